@@ -1,0 +1,93 @@
+/* Infusates and their predicted effect on serum sodium (docs/infusion.md). */
+#include "ntr_internal.h"
+
+struct fluid {
+    double na_mmol_l;
+    double k_mmol_l;
+};
+
+/* Indexed by NTR_FLUID_*; Adrogue & Madias 2000, table of infusates. */
+static const struct fluid fluids[] = {
+    {0.0, 0.0},   /* unused */
+    {154.0, 0.0}, /* 0.9% NaCl */
+    {513.0, 0.0}, /* 3% NaCl */
+    {855.0, 0.0}, /* 5% NaCl */
+    {77.0, 0.0},  /* 0.45% NaCl */
+    {130.0, 4.0}, /* Ringer's lactate */
+    {0.0, 0.0},   /* 5% dextrose */
+    {34.0, 0.0},  /* 0.2% NaCl in 5% dextrose */
+};
+
+int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l)
+{
+    if (na_mmol_l == NULL || k_mmol_l == NULL) {
+        return NTR_ERR_NULL;
+    }
+    if (fluid < 1 || (size_t)fluid >= sizeof fluids / sizeof fluids[0]) {
+        return NTR_ERR_ARG;
+    }
+    *na_mmol_l = fluids[fluid].na_mmol_l;
+    *k_mmol_l = fluids[fluid].k_mmol_l;
+    return NTR_OK;
+}
+
+static int check_infusate(double na_mmol_l, double tbw_l,
+                          double infusate_na_mmol_l, double infusate_k_mmol_l)
+{
+    NTR_TRY(ntr_check_na(na_mmol_l));
+    NTR_TRY(ntr_check_tbw(tbw_l));
+    NTR_TRY(ntr_check(infusate_na_mmol_l, 0.0, NTR_INFUSATE_NA_MAX));
+    return ntr_check(infusate_k_mmol_l, 0.0, NTR_INFUSATE_K_MAX);
+}
+
+int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
+                                  double infusate_na_mmol_l,
+                                  double infusate_k_mmol_l, double *delta_mmol_l)
+{
+    return ntr_infusate_change(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                               infusate_k_mmol_l, 1.0, delta_mmol_l);
+}
+
+int ntr_infusate_change(double na_mmol_l, double tbw_l,
+                        double infusate_na_mmol_l, double infusate_k_mmol_l,
+                        double volume_l, double *delta_mmol_l)
+{
+    if (delta_mmol_l == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(check_infusate(na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l));
+    NTR_TRY(ntr_check(volume_l, 0.0, NTR_INFUSE_VOLUME_MAX));
+    /* (Na*TBW + C*V)/(TBW + V) - Na rearranged so Na does not cancel. */
+    *delta_mmol_l = volume_l * (infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l) /
+                    (tbw_l + volume_l);
+    return NTR_OK;
+}
+
+int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
+                                   double infusate_na_mmol_l,
+                                   double infusate_k_mmol_l,
+                                   double target_delta_mmol_l, double *volume_l)
+{
+    double headroom;
+    double volume;
+    if (volume_l == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(check_infusate(na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l));
+    NTR_TRY(ntr_check(target_delta_mmol_l, -NTR_DELTA_MAX, NTR_DELTA_MAX));
+    if (target_delta_mmol_l == 0.0) {
+        *volume_l = 0.0;
+        return NTR_OK;
+    }
+    /* The infusate must lie beyond the target sodium, on the same side. */
+    headroom = infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l - target_delta_mmol_l;
+    if (target_delta_mmol_l > 0.0 ? !(headroom > 0.0) : !(headroom < 0.0)) {
+        return NTR_ERR_DOMAIN;
+    }
+    volume = target_delta_mmol_l * tbw_l / headroom;
+    if (volume > NTR_INFUSE_VOLUME_MAX) {
+        return NTR_ERR_DOMAIN;
+    }
+    *volume_l = volume;
+    return NTR_OK;
+}

@@ -1,0 +1,67 @@
+/* Internal helpers shared by the lib/ sources. Not installed. */
+#ifndef NTR_INTERNAL_H
+#define NTR_INTERNAL_H
+
+#include "natremia.h"
+#include <math.h>
+
+/* Plausible input ranges. docs/ranges.md says where each comes from; keep
+ * the two in step. */
+#define NTR_NA_MIN 80.0            /* serum sodium, mmol/L */
+#define NTR_NA_MAX 220.0
+#define NTR_GLUCOSE_MAX 200.0      /* mmol/L */
+#define NTR_UREA_MAX 200.0         /* mmol/L */
+#define NTR_ETHANOL_MAX 400.0      /* mmol/L */
+#define NTR_OSM_MIN 150.0          /* serum osmolality, mOsm/kg */
+#define NTR_OSM_MAX 600.0
+#define NTR_AGE_MAX 130.0          /* years */
+#define NTR_ADULT_AGE 18.0         /* years */
+#define NTR_ELDERLY_AGE 65.0       /* years */
+#define NTR_HEIGHT_MIN 30.0        /* cm */
+#define NTR_HEIGHT_MAX 275.0
+#define NTR_WEIGHT_MIN 0.3         /* kg */
+#define NTR_WEIGHT_MAX 650.0
+#define NTR_TBW_MIN 0.1            /* L */
+#define NTR_TBW_MAX 400.0
+#define NTR_INFUSATE_NA_MAX 1100.0 /* mmol/L; 8.4% NaHCO3 is 1000 */
+#define NTR_INFUSATE_K_MAX 400.0   /* mmol/L */
+#define NTR_INFUSE_VOLUME_MAX 20.0 /* L in one plan step */
+#define NTR_DELTA_MAX 50.0         /* |wanted change|, mmol/L */
+#define NTR_URINE_NA_MAX 500.0     /* mmol/L */
+#define NTR_URINE_K_MAX 300.0      /* mmol/L */
+#define NTR_URINE_VOLUME_MAX 30.0  /* L */
+#define NTR_RATIO_MAX 20.0
+#define NTR_CONVERT_MAX 1.0e6
+
+/* NTR_OK when x is finite and lo <= x <= hi. */
+static inline int ntr_check(double x, double lo, double hi)
+{
+    if (!isfinite(x)) {
+        return NTR_ERR_NONFINITE;
+    }
+    if (x < lo || x > hi) {
+        return NTR_ERR_RANGE;
+    }
+    return NTR_OK;
+}
+
+static inline int ntr_check_na(double na_mmol_l)
+{
+    return ntr_check(na_mmol_l, NTR_NA_MIN, NTR_NA_MAX);
+}
+
+static inline int ntr_check_tbw(double tbw_l)
+{
+    return ntr_check(tbw_l, NTR_TBW_MIN, NTR_TBW_MAX);
+}
+
+/* Evaluate a check and return its status from the caller if it failed. */
+#define NTR_TRY(expr)                     \
+    do {                                  \
+        int ntr_try_status_ = (expr);     \
+        if (ntr_try_status_ != NTR_OK) {  \
+            return ntr_try_status_;       \
+        }                                 \
+    } while (0)
+
+#endif
