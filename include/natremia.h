@@ -579,6 +579,80 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: provenance (lib/methods.c, docs/methods.md) ============= */
+/* ======================================================================= */
+
+/** @defgroup provenance Provenance of every method
+ *  Where each result comes from: a short name, the equation in plain text,
+ *  the published reference and the population it was made for.
+ *  @{ */
+
+/**
+ * @brief Description of one method, filled by ntr_method_info().
+ *
+ * Every string is a static, NUL-terminated, non-empty ASCII string owned by
+ * the library; never free or modify it. Where no population restriction
+ * applies, @c population is "any".
+ *
+ * It is a plain struct tag with no typedef, because the function that fills
+ * it carries the same name (as with POSIX `struct stat` and `stat()`);
+ * write `struct ntr_method_info`.
+ *
+ * Layout (ABI): members are never reordered, removed or retyped. The
+ * @c reserved pointers are written as NULL today; a later minor version may
+ * give them a name and a meaning (always a static string or NULL), so a
+ * reader must treat NULL as "not provided".
+ */
+struct ntr_method_info {
+    int method;              /**< The id that was asked for (an NTR_METHOD_* value). */
+    int reserved_int;        /**< Written as 0. */
+    const char *name;        /**< Short name, e.g. "Watson total body water". */
+    const char *equation;    /**< The equation or rule in plain ASCII text. */
+    const char *reference;   /**< Authors, journal or publisher, year; or "common practice". */
+    const char *population;  /**< Population it is valid for, or "any". */
+    const char *reserved[4]; /**< Written as NULL (room for growth). */
+};
+
+/**
+ * @brief Describe a method: name, equation, reference and valid population.
+ *
+ * @param method    an NTR_METHOD_* id.
+ * @param[out] out  filled with static strings (see ntr_method_info).
+ * @retval NTR_OK        @p out filled.
+ * @retval NTR_ERR_NULL  @p out is NULL.
+ * @retval NTR_ERR_ARG   @p method is not an id this library knows.
+ *
+ * Reference: this is the library's own provenance table (docs/methods.md);
+ * each entry names the published source of its method.
+ * Method: none of its own (it describes the others).
+ */
+NTR_API int ntr_method_info(int method, struct ntr_method_info *out);
+
+/**
+ * @brief Iterate over every method id the library knows, in increasing order.
+ *
+ * Writes the smallest known id greater than @p after. Start with
+ * @p after = 0; the walk ends when NTR_ERR_RANGE comes back:
+ * @code
+ * int id = 0;
+ * while (ntr_method_next(id, &id) == NTR_OK) { ... ntr_method_info(id, &info) ... }
+ * @endcode
+ * The walk reflects the library that is running, not the header a program
+ * was compiled with, so ids added by later versions appear without any
+ * change to the caller. Ids are positive and below 1000.
+ *
+ * @param after      any integer (0 or negative to start).
+ * @param[out] next  the next known id.
+ * @retval NTR_OK        @p next written.
+ * @retval NTR_ERR_NULL  @p next is NULL.
+ * @retval NTR_ERR_RANGE no known id is greater than @p after (end of walk).
+ *
+ * Reference: none (library bookkeeping). Method: none.
+ */
+NTR_API int ntr_method_next(int after, int *next);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: methods (provenance ids; lib/methods.c, docs/methods.md)  */
 /* ======================================================================= */
 

@@ -1,0 +1,217 @@
+/* Provenance: name, equation, reference and population of every method id
+ * (docs/methods.md).
+ *
+ * One switch is the single source of truth: ntr_method_info() reads it and
+ * ntr_method_next() walks it, so adding a method means adding one case in
+ * the block of its area. The strings are literals (read-only data, no
+ * relocated pointer table), and no state is kept. */
+#include "ntr_internal.h"
+
+/* Ids are positive and below this bound (header: ntr_method_next). */
+#define METHOD_ID_LIMIT 1000
+
+static int entry(struct ntr_method_info *info, int method, const char *name,
+                 const char *equation, const char *reference,
+                 const char *population)
+{
+    int i;
+    info->method = method;
+    info->reserved_int = 0;
+    info->name = name;
+    info->equation = equation;
+    info->reference = reference;
+    info->population = population;
+    for (i = 0; i < 4; i++) {
+        info->reserved[i] = NULL;
+    }
+    return NTR_OK;
+}
+
+/* Shared reference strings, so the same paper is cited the same way. */
+#define REF_SPASOVSKI                                                        \
+    "Spasovski G, Vanholder R, Allolio B, et al. Clinical practice "         \
+    "guideline on diagnosis and treatment of hyponatraemia. Eur J "          \
+    "Endocrinol 2014;170(3):G1-G47"
+#define REF_ADROGUE_MADIAS_HYPO                                              \
+    "Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med 2000;342:1581-9"
+#define REF_KATZ                                                             \
+    "Katz MA. Hyperglycemia-induced hyponatremia: calculation of expected "  \
+    "serum sodium depression. N Engl J Med 1973;289:843-4"
+#define REF_HILLIER                                                          \
+    "Hillier TA, Abbott RD, Barrett EJ. Hyponatremia: evaluating the "       \
+    "correction factor for hyperglycemia. Am J Med 1999;106:399-403"
+#define REF_FURST                                                            \
+    "Furst H, Hallows KR, Post J, et al. The urine/plasma electrolyte "      \
+    "ratio: a predictive guide to water restriction. Am J Med Sci "          \
+    "2000;319:240-4"
+#define REF_VERBALIS_2013                                                    \
+    "Verbalis JG, Goldsmith SR, Greenberg A, et al. Diagnosis, evaluation, " \
+    "and treatment of hyponatremia: expert panel recommendations. Am J Med " \
+    "2013;126(10 Suppl 1):S1-S42"
+
+static int describe(int method, struct ntr_method_info *info)
+{
+    switch (method) {
+
+    /* ==== core formulas (ids 1-29, issue P1) ============================ */
+    case NTR_METHOD_UNIT_CONVERSION:
+        return entry(info, method, "Unit conversion by molar mass",
+            "out = value * f(from) / f(to); f = 1 for mmol/L and meq/L, "
+            "0.001 for umol/L, 10/M for mg/dL, 1000/M for g/L; M = molar mass "
+            "(g/mol) from IUPAC standard atomic weights",
+            "IUPAC Commission on Isotopic Abundances and Atomic Weights, "
+            "standard atomic weights; The Unified Code for Units of Measure "
+            "(UCUM), Regenstrief Institute",
+            "any");
+    case NTR_METHOD_OSM_2NA:
+        return entry(info, method, "Calculated serum osmolality (2 Na)",
+            "Osm = 2*Na + glucose + urea + ethanol (mmol/L; mOsm/kg)",
+            "Conventional bedside formula (common practice), as compared in "
+            "Dorwart WV, Chalmers L. Comparison of methods for calculating "
+            "serum osmolality from chemical concentrations. Clin Chem "
+            "1975;21:190-4",
+            "any");
+    case NTR_METHOD_OSM_DORWART_CHALMERS:
+        return entry(info, method, "Calculated serum osmolality (Dorwart-Chalmers)",
+            "Osm = 1.86*Na + glucose + urea + 9 + ethanol (mmol/L; mOsm/kg)",
+            "Dorwart WV, Chalmers L. Comparison of methods for calculating "
+            "serum osmolality from chemical concentrations. Clin Chem "
+            "1975;21:190-4",
+            "any (regression on hospital patients' sera)");
+    case NTR_METHOD_OSM_EFFECTIVE:
+        return entry(info, method, "Effective serum osmolality (tonicity)",
+            "Osm_eff = 2*Na + glucose (mmol/L; mOsm/kg); urea is left out as "
+            "it crosses cell membranes",
+            REF_SPASOVSKI,
+            "any");
+    case NTR_METHOD_OSM_GAP:
+        return entry(info, method, "Osmolal gap",
+            "gap = measured - calculated osmolality (mOsm/kg); above about 10 "
+            "suggests unmeasured osmoles",
+            "Textbook definition; the threshold of about 10 mOsm/kg is "
+            "common practice",
+            "any");
+    case NTR_METHOD_GLUCOSE_KATZ:
+        return entry(info, method, "Glucose-corrected sodium (Katz)",
+            "G = glucose_mmol_l * 18.0156 (mg/dL); Na_corr = Na + 1.6*(G - 100)/100 "
+            "when G > 100, else Na",
+            REF_KATZ,
+            "hyperglycaemia (theoretical derivation)");
+    case NTR_METHOD_GLUCOSE_HILLIER:
+        return entry(info, method, "Glucose-corrected sodium (Hillier)",
+            "G = glucose_mmol_l * 18.0156 (mg/dL); Na_corr = Na + 2.4*(G - 100)/100 "
+            "when G > 100, else Na",
+            REF_HILLIER,
+            "hyperglycaemia (derived in healthy adult volunteers)");
+    case NTR_METHOD_GLUCOSE_FACTOR:
+        return entry(info, method, "Glucose-corrected sodium (caller's factor)",
+            "G = glucose_mmol_l * 18.0156 (mg/dL); Na_corr = Na + factor*(G - 100)/100 "
+            "when G > 100, else Na",
+            REF_KATZ "; " REF_HILLIER,
+            "hyperglycaemia");
+    case NTR_METHOD_NA_DEFICIT:
+        return entry(info, method, "Sodium deficit",
+            "deficit (mmol) = TBW * (target Na - Na)",
+            "Common practice (sodium-deficit formula of general medical texts)",
+            "low serum sodium; ignores ongoing losses");
+    case NTR_METHOD_TBW_FRACTION:
+        return entry(info, method, "Total body water as a fraction of weight",
+            "TBW = f * weight; f = 0.6 children (< 18 y), 0.6 men, 0.5 women, "
+            "0.5 men >= 65 y, 0.45 women >= 65 y",
+            REF_ADROGUE_MADIAS_HYPO,
+            "children and adults; not neonates");
+    case NTR_METHOD_TBW_WATSON:
+        return entry(info, method, "Watson total body water",
+            "men: TBW = 2.447 - 0.09516*age + 0.1074*height + 0.3362*weight; "
+            "women: TBW = -2.097 + 0.1069*height + 0.2466*weight "
+            "(years, cm, kg, L)",
+            "Watson PE, Watson ID, Batt RD. Total body water volumes for adult "
+            "males and females estimated from simple anthropometric "
+            "measurements. Am J Clin Nutr 1980;33:27-39",
+            "adults (18 years and over)");
+    case NTR_METHOD_FREE_WATER_DEFICIT:
+        return entry(info, method, "Free-water deficit",
+            "deficit (L) = TBW * (Na/140 - 1)",
+            "Textbook water-deficit formula (common practice); infusate choice "
+            "per Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med "
+            "2000;342:1493-9",
+            "high serum sodium (140 mmol/L or more)");
+    case NTR_METHOD_FLUID_PRESETS:
+        return entry(info, method, "Infusate composition table",
+            "Na (mmol/L): 0.9% NaCl 154, 3% NaCl 513, 5% NaCl 855, 0.45% NaCl "
+            "77, Ringer's lactate 130 (K 4), 5% dextrose 0, 0.2% NaCl in 5% "
+            "dextrose 34",
+            REF_ADROGUE_MADIAS_HYPO " (table of infusates)",
+            "any");
+    case NTR_METHOD_ADROGUE_MADIAS:
+        return entry(info, method, "Adrogue-Madias change per litre",
+            "delta Na = (Na_inf + K_inf - Na) / (TBW + 1)",
+            REF_ADROGUE_MADIAS_HYPO,
+            "any (body water estimated separately)");
+    case NTR_METHOD_INFUSATE_MASS_BALANCE:
+        return entry(info, method, "Infusate effect by mass balance",
+            "delta Na = V * (Na_inf + K_inf - Na) / (TBW + V); equals the "
+            "Adrogue-Madias formula at V = 1 L",
+            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO,
+            "any (body water estimated separately; no losses)");
+    case NTR_METHOD_INFUSATE_VOLUME:
+        return entry(info, method, "Infusate volume for a wanted change",
+            "V = delta * TBW / (Na_inf + K_inf - Na - delta)",
+            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO
+            "; used in the worked example of " REF_FURST,
+            "any (body water estimated separately; no losses)");
+    case NTR_METHOD_FURST:
+        return entry(info, method, "Furst urine/serum electrolyte ratio",
+            "ratio = (U_Na + U_K) / S_Na; < 0.9: under 1 L/day; 0.9 to 1.0: "
+            "500-700 mL/day; > 1.0: under 500 mL/day, restriction alone likely "
+            "to fail (the 0.9 edge is the library's own choice)",
+            REF_FURST "; " REF_VERBALIS_2013,
+            "adults with hyponatraemia from inappropriate antidiuresis");
+    case NTR_METHOD_EFWC:
+        return entry(info, method, "Electrolyte-free water clearance",
+            "EFWC = V * (1 - (U_Na + U_K) / S_Na)",
+            "Standard renal physiology, e.g. Rose BD, Post TW. Clinical "
+            "Physiology of Acid-Base and Electrolyte Disorders, 5th ed. "
+            "McGraw-Hill 2001",
+            "any");
+
+    /* ==== correction and balance (ids 30-49, issue P2) ================== */
+    /* The P2 work adds its cases here. */
+
+    /* ==== work-up (ids 50-69, issue P3) ================================= */
+    /* Added with lib/workup.c. */
+
+    default:
+        return NTR_ERR_ARG;
+    }
+}
+
+int ntr_method_info(int method, struct ntr_method_info *out)
+{
+    struct ntr_method_info info;
+    if (out == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(describe(method, &info));
+    *out = info;
+    return NTR_OK;
+}
+
+int ntr_method_next(int after, int *next)
+{
+    struct ntr_method_info scratch;
+    int id;
+    if (next == NULL) {
+        return NTR_ERR_NULL;
+    }
+    /* The table is a switch, so walk the id space; it is small. Starting
+     * from a clamped value also keeps id + 1 from overflowing. */
+    id = after < 0 ? 0 : (after < METHOD_ID_LIMIT ? after : METHOD_ID_LIMIT);
+    for (id = id + 1; id < METHOD_ID_LIMIT; id++) {
+        if (describe(id, &scratch) == NTR_OK) {
+            *next = id;
+            return NTR_OK;
+        }
+    }
+    return NTR_ERR_RANGE;
+}
