@@ -1,0 +1,30 @@
+/* Do-nothing functions with the same signatures as the library's entry
+ * points. They live in their own translation unit (bench_stubs.c) so the
+ * compiler cannot inline them: a loop calling one of them costs exactly what
+ * the same loop calling the library costs, minus the library's own work.
+ * That difference is what bench_scalar reports. */
+#ifndef BENCH_STUBS_H
+#define BENCH_STUBS_H
+
+#include <stddef.h>
+
+int stub_p_ip(const char *s, int *out);
+int stub_idiid_p(int a, double b, int c, int d, double *out);
+int stub_ddddi_p(double a, double b, double c, double d, int e, double *out);
+int stub_dd_p(double a, double b, double *out);
+int stub_ddi_p(double a, double b, int c, double *out);
+int stub_ddd_p(double a, double b, double c, double *out);
+int stub_idd_p(int a, double b, double c, double *out);
+int stub_iddd_p(int a, double b, double c, double d, double *out);
+int stub_i_pp(int a, double *out1, double *out2);
+int stub_dddd_p(double a, double b, double c, double d, double *out);
+int stub_ddddd_p(double a, double b, double c, double d, double e, double *out);
+int stub_d_ip(double a, int *out);
+const char *stub_i_str(int a);
+const char *stub_v_str(void);
+unsigned long stub_v_ul(void);
+int stub_i_vp(int a, void *out);
+int stub_pz_pp(const void *a, size_t n, const void *b, void *out);
+int stub_pdd_p(void *state, double a, double b, void *out);
+
+#endif
