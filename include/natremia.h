@@ -579,6 +579,361 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: workup (lib/workup.c, docs/workup.md) =================== */
+/* ======================================================================= */
+
+/** @defgroup workup Work-up of a low sodium
+ *  Severity, tonicity, urine findings, fractional excretion and the
+ *  criteria for the syndrome of inappropriate antidiuresis (SIAD).
+ *  Thresholds follow the European guideline: Spasovski G et al. Clinical
+ *  practice guideline on diagnosis and treatment of hyponatraemia. Eur J
+ *  Endocrinol 2014;170(3):G1-G47. docs/workup.md says which values were
+ *  checked against the text and which are from memory.
+ *  @{ */
+
+#define NTR_SEVERITY_NONE 0     /**< sodium 135 mmol/L or more: no hyponatraemia */
+#define NTR_SEVERITY_MILD 1     /**< 130 <= Na < 135 mmol/L */
+#define NTR_SEVERITY_MODERATE 2 /**< 125 <= Na < 130 mmol/L */
+#define NTR_SEVERITY_PROFOUND 3 /**< Na < 125 mmol/L */
+
+/**
+ * @brief Biochemical severity of a low serum sodium.
+ *
+ * Bands of the European guideline: mild 130-135, moderate 125-129,
+ * profound below 125 mmol/L. The guideline writes its bands in whole
+ * numbers; the library reads them as half-open intervals that meet without
+ * a gap, each including its lower edge:
+ * - Na >= 135: @ref NTR_SEVERITY_NONE
+ * - 130 <= Na < 135: @ref NTR_SEVERITY_MILD
+ * - 125 <= Na < 130: @ref NTR_SEVERITY_MODERATE (so 129.9 is moderate)
+ * - Na < 125: @ref NTR_SEVERITY_PROFOUND
+ *
+ * The band describes the number only; the guideline grades clinical
+ * severity by symptoms separately. A high sodium gives NTR_SEVERITY_NONE.
+ *
+ * @param na_mmol_l     serum sodium, 80 to 220 mmol/L.
+ * @param[out] severity one of NTR_SEVERITY_*.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
+ * (classification by biochemical severity).
+ * Method: @ref NTR_METHOD_NA_SEVERITY.
+ */
+NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
+
+#define NTR_TONICITY_HYPOTONIC 1  /**< measured osmolality below 275 mOsm/kg */
+#define NTR_TONICITY_ISOTONIC 2   /**< 275 to 295 mOsm/kg inclusive */
+#define NTR_TONICITY_HYPERTONIC 3 /**< above 295 mOsm/kg */
+
+/** Measured serum osmolality below this (mOsm/kg) is hypotonic. */
+#define NTR_TONICITY_HYPOTONIC_BELOW 275.0
+/** Measured serum osmolality above this (mOsm/kg) is hypertonic. */
+#define NTR_TONICITY_HYPERTONIC_ABOVE 295.0
+
+/**
+ * @brief Tonicity class from measured serum osmolality.
+ *
+ * - Osm < 275: @ref NTR_TONICITY_HYPOTONIC
+ * - 275 <= Osm <= 295: @ref NTR_TONICITY_ISOTONIC
+ * - Osm > 295: @ref NTR_TONICITY_HYPERTONIC
+ *
+ * 275 mOsm/kg is the European guideline's limit for hypotonic
+ * hyponatraemia; 295 mOsm/kg is the upper end of the usual reference
+ * interval for serum osmolality (common practice).
+ *
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg.
+ * @param[out] tonicity        one of NTR_TONICITY_*.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
+ * Method: @ref NTR_METHOD_TONICITY_CLASS.
+ */
+NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
+
+/** Flag bits written by ntr_low_na_tonicity(). */
+#define NTR_LOW_NA_NOT_HYPOTONIC 0x01u    /**< low sodium, measured osmolality 275 or more */
+#define NTR_LOW_NA_PSEUDO 0x02u           /**< isotonic and not explained by glucose: suspect pseudohyponatraemia */
+#define NTR_LOW_NA_TRANSLOCATIONAL 0x04u  /**< hypertonic, or glucose explains the sodium */
+#define NTR_LOW_NA_GLUCOSE_EXPLAINS 0x08u /**< glucose-corrected sodium is 135 or more */
+#define NTR_LOW_NA_DISCORDANT 0x10u       /**< hypotonic, yet glucose alone would explain the sodium: recheck */
+
+/**
+ * @brief Is a low sodium hypotonic, pseudo- or translocational?
+ *
+ * Writes the tonicity class of ntr_tonicity_class() and, when
+ * Na < 135 mmol/L, flags (0 when Na >= 135: there is no low sodium to
+ * explain):
+ * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS: the sodium corrected for glucose by
+ *   @p glucose_method (ntr_na_corrected_glucose()) is 135 or more.
+ * - @ref NTR_LOW_NA_NOT_HYPOTONIC: measured osmolality >= 275.
+ * - @ref NTR_LOW_NA_TRANSLOCATIONAL: hypertonic (> 295), or glucose
+ *   explains the sodium and measured osmolality >= 275: water has moved out
+ *   of cells towards an effective osmole (glucose, mannitol).
+ * - @ref NTR_LOW_NA_PSEUDO: isotonic (275 to 295) and glucose does not
+ *   explain the sodium: suspect a laboratory artefact from high lipids or
+ *   proteins (indirect ion-selective electrode), or an isotonic solute;
+ *   confirm with a direct ion-selective electrode.
+ * - @ref NTR_LOW_NA_DISCORDANT: hypotonic by measurement, yet glucose would
+ *   explain the whole sodium fall; the two do not fit, so recheck both.
+ *
+ * @param na_mmol_l            serum sodium, 80 to 220 mmol/L.
+ * @param glucose_mmol_l       serum glucose, 0 to 200 mmol/L.
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg.
+ * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
+ * @param[out] tonicity        one of NTR_TONICITY_*.
+ * @param[out] flags           a combination of NTR_LOW_NA_* bits.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
+ * (exclusion of non-hypotonic hyponatraemia); Katz 1973; Hillier et al.
+ * 1999.
+ * Methods: @ref NTR_METHOD_LOW_NA_TONICITY, @ref NTR_METHOD_TONICITY_CLASS,
+ * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
+ */
+NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
+                                double measured_osm_mosm_kg,
+                                int glucose_method, int *tonicity,
+                                unsigned int *flags);
+
+/** Urine osmolality at or below this (mOsm/kg) is maximally dilute. */
+#define NTR_URINE_OSM_DILUTE_MAX 100.0
+/** Urine sodium above this (mmol/L) on normal intake points to the kidney. */
+#define NTR_URINE_NA_HIGH_ABOVE 30.0
+
+/**
+ * @brief Is the urine maximally dilute?
+ *
+ * dilute = 1 when urine osmolality <= 100 mOsm/kg, else 0. Maximally
+ * dilute urine in a hypotonic low sodium means vasopressin is suppressed
+ * (high water or low solute intake), which points away from SIAD.
+ *
+ * @param urine_osm_mosm_kg urine osmolality, 10 to 2000 mOsm/kg.
+ * @param[out] dilute       1 or 0.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: common practice; the same cut-off is the European guideline's
+ * (Spasovski G et al. 2014) first urine step.
+ * Method: @ref NTR_METHOD_URINE_DILUTE.
+ */
+NTR_API int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute);
+
+/**
+ * @brief Is the urine sodium high?
+ *
+ * high = 1 when urine sodium > 30 mmol/L, else 0. The reading holds on
+ * normal salt and water intake and without diuretics: then a high urine
+ * sodium in hypotonic hyponatraemia points to the kidney (SIAD, renal or
+ * cerebral salt loss, adrenal insufficiency), and 30 or less to a low
+ * effective circulating volume.
+ *
+ * @param urine_na_mmol_l urine sodium, 0 to 500 mmol/L.
+ * @param[out] high       1 or 0.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
+ * Method: @ref NTR_METHOD_URINE_NA_HIGH.
+ */
+NTR_API int ntr_urine_na_high(double urine_na_mmol_l, int *high);
+
+/**
+ * @brief Fractional excretion of a solute (sodium, urea, uric acid, ...).
+ *
+ * FE% = 100 * (U_x * P_cr) / (P_x * U_cr)
+ *
+ * The result has no unit, so any unit works as long as each pair shares
+ * one: @p urine_x and @p plasma_x in the same unit (for example both
+ * mmol/L), @p urine_creatinine and @p plasma_creatinine in the same unit
+ * (for example both umol/L). The library cannot see units: mixing umol/L
+ * and mmol/L within a pair makes the result 1000 times wrong.
+ *
+ * @param urine_x           urine concentration of the solute, 0 to 1e6.
+ * @param plasma_x          plasma concentration of the solute, 0 to 1e6.
+ * @param urine_creatinine  urine creatinine, 0 to 1e6.
+ * @param plasma_creatinine plasma creatinine, 0 to 1e6.
+ * @param[out] percent      fractional excretion, %.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (@p plasma_x, @p urine_creatinine or
+ *         @p plasma_creatinine is 0: nothing filtered or no clearance
+ *         marker, so the fraction has no meaning).
+ *
+ * Reference: standard renal physiology (clearance of x over clearance of
+ * creatinine); the SIAD cut-offs for sodium, urea and uric acid are in
+ * Spasovski G et al. 2014.
+ * Method: @ref NTR_METHOD_FRACTIONAL_EXCRETION.
+ */
+NTR_API int ntr_fractional_excretion(double urine_x, double plasma_x,
+                                     double urine_creatinine,
+                                     double plasma_creatinine,
+                                     double *percent);
+
+/** Tri-state answer to a yes/no finding. 0 means "not known", so a zeroed
+ *  struct says "nothing is known". */
+#define NTR_FINDING_UNKNOWN 0 /**< not known */
+#define NTR_FINDING_NO 1      /**< known: no */
+#define NTR_FINDING_YES 2     /**< known: yes */
+
+#define NTR_VOLUME_UNKNOWN 0        /**< volume status not known */
+#define NTR_VOLUME_HYPOVOLAEMIC 1   /**< clinically low extracellular volume */
+#define NTR_VOLUME_EUVOLAEMIC 2     /**< clinically normal extracellular volume */
+#define NTR_VOLUME_HYPERVOLAEMIC 3  /**< clinically high extracellular volume (oedema, ascites) */
+
+/**
+ * @brief A measured value that may be missing.
+ *
+ * @c known = 0 means "not known" and @c value is then ignored (whatever it
+ * holds, even NaN); @c known = 1 means @c value is the measurement and is
+ * range-checked. An explicit flag, rather than NaN as a marker, keeps the
+ * library's rule that a NaN input is an error (NTR_ERR_NONFINITE).
+ */
+typedef struct ntr_finding_value {
+    int known;    /**< 0 not known, 1 known; anything else gives NTR_ERR_ARG. */
+    int reserved; /**< Set to 0; ignored. */
+    double value; /**< The value, in the unit named by the member that holds it. */
+} ntr_finding_value;
+
+/** Criterion numbers of the SIAD table; also the bit numbers of the masks
+ *  in ntr_siad_result (bit = 1ul << number). Bits 0-15 are essential
+ *  criteria, bits 16-31 supplemental. */
+#define NTR_SIAD_OSM_LOW 0               /**< effective serum osmolality < 275 mOsm/kg */
+#define NTR_SIAD_URINE_CONCENTRATED 1    /**< urine osmolality > 100 mOsm/kg */
+#define NTR_SIAD_EUVOLAEMIA 2            /**< clinical euvolaemia */
+#define NTR_SIAD_URINE_NA_HIGH 3         /**< urine sodium > 30 mmol/L on normal salt and water intake */
+#define NTR_SIAD_THYROID_NORMAL 4        /**< no thyroid insufficiency */
+#define NTR_SIAD_ADRENAL_NORMAL 5        /**< no adrenal insufficiency */
+#define NTR_SIAD_PITUITARY_NORMAL 6      /**< no pituitary insufficiency */
+#define NTR_SIAD_KIDNEY_NORMAL 7         /**< no renal insufficiency */
+#define NTR_SIAD_NO_DIURETIC 8           /**< no recent diuretic use */
+#define NTR_SIAD_INTAKE_NORMAL 9         /**< finding only (no criterion): normal salt and water intake */
+#define NTR_SIAD_URIC_ACID_LOW 16        /**< serum uric acid < 0.24 mmol/L */
+#define NTR_SIAD_UREA_LOW 17             /**< serum urea < 3.6 mmol/L */
+#define NTR_SIAD_SALINE_FAILS 18         /**< 0.9% saline fails to correct the sodium */
+#define NTR_SIAD_FE_NA_HIGH 19           /**< fractional sodium excretion > 0.5% */
+#define NTR_SIAD_FE_UREA_HIGH 20         /**< fractional urea excretion > 55% */
+#define NTR_SIAD_FE_URIC_ACID_HIGH 21    /**< fractional uric acid excretion > 12% */
+#define NTR_SIAD_RESTRICTION_CORRECTS 22 /**< fluid restriction corrects the sodium */
+
+/** Bits of the essential criteria (all must be met). */
+#define NTR_SIAD_ESSENTIAL_BITS 0x0000FFFFul
+/** Bits of the supplemental criteria (support, never decide). */
+#define NTR_SIAD_SUPPLEMENTAL_BITS 0xFFFF0000ul
+
+/**
+ * @brief Findings for the SIAD criteria; each is a value or "not known".
+ *
+ * Set @c struct_size to sizeof(ntr_siad_findings); ntr_siad_findings_init()
+ * does that and marks everything not known.
+ *
+ * Growth (ABI): members are only ever appended at the end, never moved,
+ * removed or retyped. A program built against an older header passes its
+ * smaller @c struct_size, and the library treats every finding beyond it
+ * as not known. A @c struct_size below this version's size gives
+ * NTR_ERR_ARG.
+ */
+typedef struct ntr_siad_findings {
+    size_t struct_size; /**< sizeof(ntr_siad_findings) as the caller knows it. */
+    /* Essential findings. */
+    ntr_finding_value effective_osm_mosm_kg; /**< 2*Na + glucose (or measured minus urea), 150 to 600 mOsm/kg. */
+    ntr_finding_value urine_osm_mosm_kg;     /**< urine osmolality, 10 to 2000 mOsm/kg. */
+    ntr_finding_value urine_na_mmol_l;       /**< urine sodium, 0 to 500 mmol/L. */
+    int volume_status;            /**< NTR_VOLUME_*. */
+    int normal_salt_water_intake; /**< NTR_FINDING_*: salt and water intake are normal. */
+    int thyroid_normal;           /**< NTR_FINDING_*: thyroid function is normal. */
+    int adrenal_normal;           /**< NTR_FINDING_*: adrenal function is normal. */
+    int pituitary_normal;         /**< NTR_FINDING_*: pituitary function is normal. */
+    int kidney_normal;            /**< NTR_FINDING_*: kidney function is normal. */
+    int recent_diuretic;          /**< NTR_FINDING_*: a diuretic was used recently. */
+    /* Supplemental yes/no findings. */
+    int saline_corrected;         /**< NTR_FINDING_*: 0.9% saline corrected the sodium. */
+    int restriction_corrected;    /**< NTR_FINDING_*: fluid restriction corrected the sodium. */
+    int reserved;                 /**< Set to 0; ignored. */
+    /* Supplemental values. */
+    ntr_finding_value uric_acid_mmol_l;     /**< serum uric acid, 0 to 5 mmol/L. */
+    ntr_finding_value urea_mmol_l;          /**< serum urea, 0 to 200 mmol/L. */
+    ntr_finding_value fe_na_percent;        /**< fractional sodium excretion, 0 to 200 %. */
+    ntr_finding_value fe_urea_percent;      /**< fractional urea excretion, 0 to 200 %. */
+    ntr_finding_value fe_uric_acid_percent; /**< fractional uric acid excretion, 0 to 200 %. */
+} ntr_siad_findings;
+
+#define NTR_SIAD_CONSISTENT 1     /**< every essential criterion is met */
+#define NTR_SIAD_NOT_CONSISTENT 2 /**< at least one essential criterion is not met */
+#define NTR_SIAD_INCOMPLETE 3     /**< none is failed, but at least one is not settled */
+
+/**
+ * @brief Outcome of the SIAD criteria, per criterion and overall.
+ *
+ * Masks use the criterion numbers (NTR_SIAD_*) as bit numbers. For every
+ * criterion in @c evaluated exactly one of @c met, @c not_met, @c not_known
+ * and @c not_assessable has its bit set.
+ *
+ * Growth (ABI): the caller sets @c struct_size to sizeof(ntr_siad_result);
+ * members are only appended, and the library writes only members that fit
+ * in the caller's @c struct_size. New criteria take unused bit numbers and
+ * appear in @c evaluated.
+ */
+typedef struct ntr_siad_result {
+    size_t struct_size;          /**< sizeof(ntr_siad_result) as the caller knows it; read, not written. */
+    int verdict;                 /**< NTR_SIAD_CONSISTENT, _NOT_CONSISTENT or _INCOMPLETE. */
+    int supplemental_met_count;  /**< number of supplemental criteria met. */
+    unsigned long evaluated;     /**< criteria this library version evaluates. */
+    unsigned long met;           /**< criteria met. */
+    unsigned long not_met;       /**< criteria not met. */
+    unsigned long not_known;     /**< criteria whose finding is not known. */
+    unsigned long not_assessable; /**< criteria that cannot be judged: urine sodium when intake is not normal. */
+    unsigned long missing;       /**< findings (NTR_SIAD_* bit numbers) not known that an unsettled criterion needs. */
+} ntr_siad_result;
+
+/**
+ * @brief Mark every finding "not known" and set @c struct_size.
+ * @param[out] findings the struct to initialise.
+ * @retval NTR_OK, NTR_ERR_NULL.
+ * Reference: none (initialiser). Method: @ref NTR_METHOD_SIAD_CRITERIA.
+ */
+NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
+
+/**
+ * @brief Test the findings against the criteria for SIAD.
+ *
+ * Essential criteria (all must be met; thresholds are strict as in the
+ * table): effective serum osmolality < 275 mOsm/kg; urine osmolality
+ * > 100 mOsm/kg; clinical euvolaemia; urine sodium > 30 mmol/L with normal
+ * dietary salt and water intake; no thyroid, adrenal, pituitary or renal
+ * insufficiency; no recent diuretic use.
+ * Supplemental criteria (support the diagnosis, never decide it): serum
+ * uric acid < 0.24 mmol/L; serum urea < 3.6 mmol/L; failure of 0.9% saline
+ * to correct the sodium; fractional excretion of sodium > 0.5%, of urea
+ * > 55%, of uric acid > 12%; correction by fluid restriction.
+ *
+ * Each criterion is met, not met, not known (its finding is not known) or
+ * not assessable (urine sodium when intake is known not to be normal: a
+ * low intake lowers it and a high one raises it). Verdict:
+ * any essential criterion not met gives NTR_SIAD_NOT_CONSISTENT; else all
+ * met gives NTR_SIAD_CONSISTENT; else NTR_SIAD_INCOMPLETE, and @c missing
+ * says which findings to obtain.
+ *
+ * Check order: NULL pointers; then @c struct_size of both structs, the
+ * @c known flags and the enumerators (NTR_ERR_ARG); then the known values
+ * in member order (NTR_ERR_NONFINITE, NTR_ERR_RANGE). On error nothing is
+ * written.
+ *
+ * @param findings     the findings (see ntr_siad_findings for ranges).
+ * @param[out] result  verdict and per-criterion masks.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47, table
+ * of diagnostic criteria for SIAD, adapted there from Schwartz WB, Bennett
+ * W, Curelop S, Bartter FC. A syndrome of renal sodium loss and
+ * hyponatremia probably resulting from inappropriate secretion of
+ * antidiuretic hormone. Am J Med 1957;23:529-42, and Bartter FC, Schwartz
+ * WB. The syndrome of inappropriate secretion of antidiuretic hormone. Am J
+ * Med 1967;42:790-806.
+ * Method: @ref NTR_METHOD_SIAD_CRITERIA.
+ */
+NTR_API int ntr_siad_evaluate(const ntr_siad_findings *findings,
+                              ntr_siad_result *result);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: provenance (lib/methods.c, docs/methods.md) ============= */
 /* ======================================================================= */
 
@@ -653,6 +1008,386 @@ NTR_API int ntr_method_next(int after, int *next);
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: batch (lib/batch.c, docs/batch.md) ====================== */
+/* ======================================================================= */
+
+/** @defgroup batch Batch (array) entry points
+ *  The formulas above applied to whole columns at once, for cohort work
+ *  and for bindings (Python, SQL) that hand over arrays.
+ *
+ *  Conventions shared by every ntr_batch_* function:
+ *  - @p n rows; input @c i of every row is element @c i of its array.
+ *    Arrays are caller-owned; the library allocates nothing.
+ *  - Row @c i gives exactly the result and status the scalar function
+ *    would give for the same inputs (same expression, bit for bit).
+ *  - Call-level errors come first and write nothing at all:
+ *    @ref NTR_ERR_NULL when a required array is NULL (checked even when
+ *    @p n is 0), then @ref NTR_ERR_ARG for an unknown enumerator passed as
+ *    a single argument (such as @p formula).
+ *  - Otherwise every row is written: @c status[i] receives the row's status
+ *    and @c out[i] its result, or a quiet NaN when the row failed (so a
+ *    stale value can never be mistaken for a result). Integer outputs of a
+ *    failed row are set to 0, which no enumerator uses.
+ *  - Return value: @ref NTR_OK when every row succeeded (and when @p n is
+ *    0); otherwise the status of the first failing row (lowest index).
+ *    The optional @p failed (may be NULL) receives the number of failing
+ *    rows whenever the call got past its call-level checks.
+ *  - @c out may be the very same array as one of the double inputs (in
+ *    place); other overlaps are not allowed.
+ *  - Enumerators stored per row (such as @c sex) that are unknown give that
+ *    row @ref NTR_ERR_ARG.
+ *  @{ */
+
+/**
+ * @brief Calculated serum osmolality for @p n rows (see ntr_osm_calculated()).
+ *
+ * - @ref NTR_OSM_2NA: out[i] = 2*na + glucose + urea + ethanol
+ * - @ref NTR_OSM_DORWART_CHALMERS: out[i] = 1.86*na + glucose + urea + 9
+ *   + ethanol
+ *
+ * (each term row i of its array), mOsm/kg.
+ *
+ * @param n number of rows.
+ * @param na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param glucose_mmol_l serum glucose, mmol/L, 0 to 200.
+ * @param urea_mmol_l serum urea, mmol/L, 0 to 200.
+ * @param ethanol_mmol_l serum ethanol, mmol/L, 0 to 400 (0 where not
+ *                       measured).
+ * @param formula @ref NTR_OSM_2NA or @ref NTR_OSM_DORWART_CHALMERS (all rows).
+ * @param[out] out     n results, mOsm/kg (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown formula), or the
+ *         status of the first failed row.
+ *
+ * Reference: Dorwart WV, Chalmers L. Clin Chem 1975;21:190-4.
+ * Methods: @ref NTR_METHOD_OSM_2NA, @ref NTR_METHOD_OSM_DORWART_CHALMERS.
+ */
+NTR_API int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
+                                     const double *glucose_mmol_l,
+                                     const double *urea_mmol_l,
+                                     const double *ethanol_mmol_l, int formula,
+                                     double *out, int *status, size_t *failed);
+
+/**
+ * @brief Effective osmolality 2*na_mmol_l[i] + glucose_mmol_l[i] for @p n rows
+ *        (see ntr_osm_effective()).
+ *
+ * @param n number of rows.
+ * @param na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param glucose_mmol_l serum glucose, mmol/L, 0 to 200.
+ * @param[out] out     n results, mOsm/kg (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: Spasovski G et al. Eur J Endocrinol 2014;170:G1-47.
+ * Method: @ref NTR_METHOD_OSM_EFFECTIVE.
+ */
+NTR_API int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
+                                    const double *glucose_mmol_l, double *out,
+                                    int *status, size_t *failed);
+
+/**
+ * @brief Osmolal gap measured_mosm_kg[i] - calculated_mosm_kg[i] for @p n rows
+ *        (see ntr_osm_gap()).
+ *
+ * @param n number of rows.
+ * @param measured_mosm_kg measured osmolality, mOsm/kg, 150 to 600.
+ * @param calculated_mosm_kg calculated osmolality, mOsm/kg, 150 to 600.
+ * @param[out] out     n gaps, mOsm/kg (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: textbook definition of the osmolal gap.
+ * Method: @ref NTR_METHOD_OSM_GAP.
+ */
+NTR_API int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
+                              const double *calculated_mosm_kg, double *out,
+                              int *status, size_t *failed);
+
+/**
+ * @brief Glucose-corrected sodium for @p n rows
+ *        (see ntr_na_corrected_glucose()).
+ *
+ * G = glucose_mmol_l[i] * 18.0156 (mg/dL);
+ * out[i] = na_mmol_l[i] + f*(G - 100)/100 when G > 100, else na_mmol_l[i];
+ * f = 1.6 (Katz) or 2.4 (Hillier).
+ *
+ * @param n number of rows.
+ * @param na_mmol_l measured serum sodium, mmol/L, 80 to 220.
+ * @param glucose_mmol_l serum glucose, mmol/L, 0 to 200.
+ * @param method @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER (all rows).
+ * @param[out] out     n corrected sodium values, mmol/L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown method), or the status
+ *         of the first failed row.
+ *
+ * References: Katz MA. N Engl J Med 1973;289:843-4. Hillier TA et al.
+ * Am J Med 1999;106:399-403.
+ * Methods: @ref NTR_METHOD_GLUCOSE_KATZ, @ref NTR_METHOD_GLUCOSE_HILLIER.
+ */
+NTR_API int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
+                                           const double *glucose_mmol_l,
+                                           int method, double *out, int *status,
+                                           size_t *failed);
+
+/**
+ * @brief Total body water as a fraction of weight for @p n rows
+ *        (see ntr_tbw_fraction()).
+ *
+ * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (under 18 years),
+ * 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and over).
+ *
+ * @param n number of rows.
+ * @param sex @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE per row.
+ * @param age_years age, years, 0 to 130.
+ * @param weight_kg body weight, kg, 0.3 to 650.
+ * @param[out] out     n volumes, L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
+ *                     NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: Adrogue HJ, Madias NE. N Engl J Med 2000;342:1581-9.
+ * Method: @ref NTR_METHOD_TBW_FRACTION.
+ */
+NTR_API int ntr_batch_tbw_fraction(size_t n, const int *sex,
+                                   const double *age_years,
+                                   const double *weight_kg, double *out,
+                                   int *status, size_t *failed);
+
+/**
+ * @brief Watson total body water for @p n rows (see ntr_tbw_watson()).
+ *
+ * men: 2.447 - 0.09516*age + 0.1074*height + 0.3362*weight;
+ * women: -2.097 + 0.1069*height + 0.2466*weight (litres).
+ *
+ * @param n number of rows.
+ * @param sex @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE per row.
+ * @param age_years age, years, 18 to 130.
+ * @param height_cm height, cm, 30 to 275.
+ * @param weight_kg body weight, kg, 0.3 to 650.
+ * @param[out] out     n volumes, L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
+ *                     NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN
+ *                     (the equation gives 0 L or less).
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: Watson PE, Watson ID, Batt RD. Am J Clin Nutr 1980;33:27-39.
+ * Method: @ref NTR_METHOD_TBW_WATSON.
+ */
+NTR_API int ntr_batch_tbw_watson(size_t n, const int *sex,
+                                 const double *age_years,
+                                 const double *height_cm,
+                                 const double *weight_kg, double *out,
+                                 int *status, size_t *failed);
+
+/**
+ * @brief Free-water deficit tbw_l[i]*(na_mmol_l[i]/140 - 1) for @p n rows
+ *        (see ntr_free_water_deficit()).
+ *
+ * @param n number of rows.
+ * @param tbw_l total body water, L, 0.1 to 400.
+ * @param na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param[out] out     n deficits, L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE,
+ *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (sodium below 140).
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: the textbook water-deficit formula (common practice).
+ * Method: @ref NTR_METHOD_FREE_WATER_DEFICIT.
+ */
+NTR_API int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
+                                         const double *na_mmol_l, double *out,
+                                         int *status, size_t *failed);
+
+/**
+ * @brief Sodium deficit tbw_l[i]*(target_na_mmol_l[i] - na_mmol_l[i])
+ *        for @p n rows (see ntr_na_deficit()).
+ *
+ * @param n number of rows.
+ * @param tbw_l total body water, L, 0.1 to 400.
+ * @param na_mmol_l current serum sodium, mmol/L, 80 to 220.
+ * @param target_na_mmol_l target serum sodium, mmol/L, 80 to 220.
+ * @param[out] out     n deficits, mmol (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE,
+ *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (target below sodium).
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: common practice (the sodium-deficit formula).
+ * Method: @ref NTR_METHOD_NA_DEFICIT.
+ */
+NTR_API int ntr_batch_na_deficit(size_t n, const double *tbw_l,
+                                 const double *na_mmol_l,
+                                 const double *target_na_mmol_l, double *out,
+                                 int *status, size_t *failed);
+
+/**
+ * @brief Change in sodium from 1 L of infusate for @p n rows
+ *        (see ntr_infusate_change_per_litre()).
+ *
+ * out[i] = (infusate_na_mmol_l[i] + infusate_k_mmol_l[i] - na_mmol_l[i]) /
+ *        (tbw_l[i] + 1), mmol/L.
+ *
+ * @param n number of rows.
+ * @param na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param tbw_l total body water, L, 0.1 to 400.
+ * @param infusate_na_mmol_l infusate sodium, mmol/L, 0 to 1100.
+ * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
+ * @param[out] out     n changes, mmol/L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: Adrogue HJ, Madias NE. N Engl J Med 2000;342:1581-9.
+ * Method: @ref NTR_METHOD_ADROGUE_MADIAS.
+ */
+NTR_API int ntr_batch_infusate_change_per_litre(size_t n,
+                                                const double *na_mmol_l,
+                                                const double *tbw_l,
+                                                const double *infusate_na_mmol_l,
+                                                const double *infusate_k_mmol_l,
+                                                double *out, int *status,
+                                                size_t *failed);
+
+/**
+ * @brief Change in sodium from any volume of infusate for @p n rows
+ *        (see ntr_infusate_change()).
+ *
+ * out[i] = volume_l[i]*(infusate_na_mmol_l[i] + infusate_k_mmol_l[i] -
+ *        na_mmol_l[i]) / (tbw_l[i] + volume_l[i]).
+ *
+ * @param n number of rows.
+ * @param na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param tbw_l total body water, L, 0.1 to 400.
+ * @param infusate_na_mmol_l infusate sodium, mmol/L, 0 to 1100.
+ * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
+ * @param volume_l volume given, L, 0 to 20.
+ * @param[out] out     n changes, mmol/L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: the Adrogue-Madias mass balance (N Engl J Med 2000;342:1581-9).
+ * Method: @ref NTR_METHOD_INFUSATE_MASS_BALANCE.
+ */
+NTR_API int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
+                                      const double *tbw_l,
+                                      const double *infusate_na_mmol_l,
+                                      const double *infusate_k_mmol_l,
+                                      const double *volume_l, double *out,
+                                      int *status, size_t *failed);
+
+/**
+ * @brief Volume of infusate for a wanted change, for @p n rows
+ *        (see ntr_infusate_volume_for_change()).
+ *
+ * out[i] = target_delta_mmol_l[i]*tbw_l[i] / (infusate_na_mmol_l[i] +
+ *        infusate_k_mmol_l[i] - na_mmol_l[i] - target_delta_mmol_l[i]),
+ * 0 when target_delta_mmol_l[i] is 0.
+ *
+ * @param n number of rows.
+ * @param na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param tbw_l total body water, L, 0.1 to 400.
+ * @param infusate_na_mmol_l infusate sodium, mmol/L, 0 to 1100.
+ * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
+ * @param target_delta_mmol_l wanted change, mmol/L, -50 to 50.
+ * @param[out] out     n volumes, L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE,
+ *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (unreachable target or
+ *                     more than 20 L).
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: derived from Adrogue & Madias 2000; Furst H et al., Am J Med
+ * Sci 2000;319:240-4.
+ * Method: @ref NTR_METHOD_INFUSATE_VOLUME.
+ */
+NTR_API int ntr_batch_infusate_volume_for_change(size_t n,
+                                                 const double *na_mmol_l,
+                                                 const double *tbw_l,
+                                                 const double *infusate_na_mmol_l,
+                                                 const double *infusate_k_mmol_l,
+                                                 const double *target_delta_mmol_l,
+                                                 double *out, int *status,
+                                                 size_t *failed);
+
+/**
+ * @brief Furst ratio (urine_na_mmol_l[i] + urine_k_mmol_l[i]) /
+ *        serum_na_mmol_l[i] for @p n rows (see ntr_furst_ratio()).
+ *
+ * @param n number of rows.
+ * @param urine_na_mmol_l urine sodium, mmol/L, 0 to 500.
+ * @param urine_k_mmol_l urine potassium, mmol/L, 0 to 300.
+ * @param serum_na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param[out] out     n ratios (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: Furst H et al. Am J Med Sci 2000;319:240-4.
+ * Method: @ref NTR_METHOD_FURST.
+ */
+NTR_API int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
+                                  const double *urine_k_mmol_l,
+                                  const double *serum_na_mmol_l, double *out,
+                                  int *status, size_t *failed);
+
+/**
+ * @brief Fluid restriction advice for @p n Furst ratios
+ *        (see ntr_restriction_from_ratio()).
+ *
+ * ratio < 0.9: @ref NTR_RESTRICT_1000ML; 0.9 to 1.0 inclusive:
+ * @ref NTR_RESTRICT_500_700ML; above 1.0: @ref NTR_RESTRICT_500ML.
+ *
+ * @param n number of rows.
+ * @param ratio Furst ratio, 0 to 20.
+ * @param[out] advice  n NTR_RESTRICT_* values (0 in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * References: Furst et al. 2000; Verbalis JG et al. Am J Med
+ * 2013;126(10 Suppl 1):S1-42.
+ * Method: @ref NTR_METHOD_FURST.
+ */
+NTR_API int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
+                                             int *advice, int *status,
+                                             size_t *failed);
+
+/**
+ * @brief Electrolyte-free water clearance for @p n rows (see ntr_efwc()).
+ *
+ * out[i] = urine_volume_l[i] * (1 - (urine_na_mmol_l[i] + urine_k_mmol_l[i]) /
+ *        serum_na_mmol_l[i]), litres.
+ *
+ * @param n number of rows.
+ * @param urine_volume_l urine volume, L, 0 to 30.
+ * @param urine_na_mmol_l urine sodium, mmol/L, 0 to 500.
+ * @param urine_k_mmol_l urine potassium, mmol/L, 0 to 300.
+ * @param serum_na_mmol_l serum sodium, mmol/L, 80 to 220.
+ * @param[out] out     n clearances, L (NaN in failed rows).
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] failed  optional: number of failed rows.
+ * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
+ *
+ * Reference: standard renal physiology (Rose BD, Post TW, 5th ed.).
+ * Method: @ref NTR_METHOD_EFWC.
+ */
+NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
+                           const double *urine_na_mmol_l,
+                           const double *urine_k_mmol_l,
+                           const double *serum_na_mmol_l, double *out,
+                           int *status, size_t *failed);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: methods (provenance ids; lib/methods.c, docs/methods.md)  */
 /* ======================================================================= */
 
@@ -678,6 +1413,14 @@ NTR_API int ntr_method_next(int after, int *next);
 #define NTR_METHOD_INFUSATE_VOLUME 16
 #define NTR_METHOD_FURST 17
 #define NTR_METHOD_EFWC 18
+/* Work-up (ids 50-69, issue P3; lib/workup.c). */
+#define NTR_METHOD_NA_SEVERITY 50          /**< severity bands of a low sodium */
+#define NTR_METHOD_TONICITY_CLASS 51       /**< hypo-, iso-, hypertonic by measured osmolality */
+#define NTR_METHOD_LOW_NA_TONICITY 52      /**< pseudo- or translocational low sodium */
+#define NTR_METHOD_URINE_DILUTE 53         /**< urine osmolality <= 100: maximally dilute */
+#define NTR_METHOD_URINE_NA_HIGH 54        /**< urine sodium > 30 mmol/L */
+#define NTR_METHOD_FRACTIONAL_EXCRETION 55 /**< fractional excretion of a solute */
+#define NTR_METHOD_SIAD_CRITERIA 56        /**< essential and supplemental SIAD criteria */
 /** @} */
 
 #ifdef __cplusplus
