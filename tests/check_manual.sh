@@ -1,0 +1,88 @@
+#!/usr/bin/env bash
+# The reference manual builds warning-free, and every computing function's
+# documentation carries what the manual promises (P5).
+#
+#   check_manual.sh <Doxyfile> <include/natremia.h>
+#
+# 1. Runs Doxygen with the project's configuration (WARN_AS_ERROR =
+#    FAIL_ON_WARNINGS) into a scratch directory; fails on a non-zero exit or
+#    on any warning line, and checks the front page, the header's page and
+#    the policy pages were written.
+# 2. Reads the public header: every NTR_API function returning int (a
+#    computing function) must have a Doxygen block naming its statuses
+#    (@retval), its published source ("Reference" or "Source") and the
+#    NTR_METHOD_* id(s) it uses ("Method"), and a @param for every
+#    parameter (Doxygen checks the names; this checks none is skipped).
+set -euo pipefail
+
+if [[ $# -ne 2 ]]; then
+    echo "usage: $0 <Doxyfile> <natremia.h>" >&2
+    exit 1
+fi
+doxyfile=$1
+header=$2
+fail=0
+
+work=$(mktemp -d)
+trap 'rm -rf "$work"' EXIT
+
+# Same configuration, scratch output, so the test never races `ninja docs`.
+rc=0
+{ cat "$doxyfile"; echo "OUTPUT_DIRECTORY = $work"; } \
+    | doxygen - > "$work/doxygen.log" 2>&1 || rc=$?
+if [[ $rc -ne 0 ]] || grep -qi 'warning' "$work/doxygen.log"; then
+    echo "FAIL: doxygen exit status $rc, output:"
+    cat "$work/doxygen.log"
+    fail=1
+else
+    echo "OK: the manual builds without a warning"
+fi
+
+for page in index.html natremia_8h.html abi.html safety.html adding_a_formula.html; do
+    if [[ -s "$work/html/$page" ]]; then
+        echo "OK: html/$page written"
+    else
+        echo "FAIL: html/$page missing"
+        fail=1
+    fi
+done
+
+if ! /usr/bin/python3 - "$header" <<'EOF'
+import re, sys
+
+text = open(sys.argv[1], encoding="utf-8").read()
+# A Doxygen block followed by an NTR_API declaration returning int.
+decl = re.compile(r"/\*\*(?P<doc>(?:(?!\*/).)*?)\*/\s*NTR_API\s+int\s+"
+                  r"(?P<name>ntr_\w+)\s*\((?P<params>[^)]*)\)\s*;", re.S)
+found = 0
+bad = 0
+for m in decl.finditer(text):
+    found += 1
+    doc, name = m.group("doc"), m.group("name")
+    params = [p.strip() for p in m.group("params").split(",") if p.strip() != "void"]
+    names = [re.findall(r"\w+", p)[-1] for p in params if p]
+    missing = []
+    if "@retval" not in doc and "@return" not in doc:
+        missing.append("statuses (@retval)")
+    if not re.search(r"\b(References?|Source)\b", doc):
+        missing.append("source (Reference:)")
+    if not re.search(r"\bMethods?\b", doc):
+        missing.append("method id (Method:)")
+    for p in names:
+        if not re.search(r"@param(\[[a-z, ]+\])?\s+" + re.escape(p) + r"\b", doc):
+            missing.append("@param " + p)
+    if missing:
+        bad += 1
+        print("FAIL: %s lacks %s" % (name, ", ".join(missing)))
+if found == 0:
+    print("FAIL: no documented NTR_API int functions found in the header")
+    sys.exit(1)
+print("%s: %d computing functions checked, %d incomplete"
+      % ("OK" if bad == 0 else "FAIL", found, bad))
+sys.exit(1 if bad else 0)
+EOF
+then
+    fail=1
+fi
+
+exit $fail
