@@ -179,7 +179,61 @@ static int describe(int method, struct ntr_method_info *info)
     /* The P2 work adds its cases here. */
 
     /* ==== work-up (ids 50-69, issue P3) ================================= */
-    /* Added with lib/workup.c. */
+    case NTR_METHOD_NA_SEVERITY:
+        return entry(info, method, "Severity of a low sodium",
+            "Na >= 135: none; 130 <= Na < 135: mild; 125 <= Na < 130: "
+            "moderate; Na < 125: profound (mmol/L; each band includes its "
+            "lower edge)",
+            REF_SPASOVSKI " (classification by biochemical severity)",
+            "adults with a low serum sodium");
+    case NTR_METHOD_TONICITY_CLASS:
+        return entry(info, method, "Tonicity class by measured osmolality",
+            "Osm < 275: hypotonic; 275 <= Osm <= 295: isotonic; Osm > 295: "
+            "hypertonic (measured serum osmolality, mOsm/kg)",
+            REF_SPASOVSKI " (275 limit); 295 is the upper end of the usual "
+            "reference interval (common practice)",
+            "any");
+    case NTR_METHOD_LOW_NA_TONICITY:
+        return entry(info, method, "Pseudo- or translocational low sodium",
+            "when Na < 135: glucose explains if glucose-corrected Na >= 135; "
+            "not hypotonic if measured Osm >= 275; translocational if Osm > 295 "
+            "or (Osm >= 275 and glucose explains); pseudo if 275 <= Osm <= 295 "
+            "and glucose does not explain; discordant if Osm < 275 and "
+            "glucose explains",
+            REF_SPASOVSKI " (exclusion of non-hypotonic hyponatraemia); "
+            REF_KATZ "; " REF_HILLIER,
+            "adults with a low serum sodium");
+    case NTR_METHOD_URINE_DILUTE:
+        return entry(info, method, "Maximally dilute urine",
+            "urine Osm <= 100 mOsm/kg: maximally dilute",
+            "Common practice; the same cut-off opens the urine steps of "
+            REF_SPASOVSKI,
+            "hypotonic hyponatraemia");
+    case NTR_METHOD_URINE_NA_HIGH:
+        return entry(info, method, "High urine sodium",
+            "urine Na > 30 mmol/L: high (valid on normal salt and water "
+            "intake, without diuretics)",
+            REF_SPASOVSKI,
+            "hypotonic hyponatraemia with urine Osm > 100 mOsm/kg");
+    case NTR_METHOD_FRACTIONAL_EXCRETION:
+        return entry(info, method, "Fractional excretion",
+            "FE% = 100 * (U_x * P_cr) / (P_x * U_cr); each pair in one unit",
+            "Standard renal physiology (clearance of x over creatinine "
+            "clearance); SIAD cut-offs in " REF_SPASOVSKI,
+            "any (spot urine and plasma taken together)");
+    case NTR_METHOD_SIAD_CRITERIA:
+        return entry(info, method, "Criteria for inappropriate antidiuresis",
+            "essential (all): effective Osm < 275 mOsm/kg; urine Osm > 100 "
+            "mOsm/kg; clinical euvolaemia; urine Na > 30 mmol/L on normal salt "
+            "and water intake; no adrenal, thyroid, pituitary or renal "
+            "insufficiency; no recent diuretic. supplemental: uric acid < 0.24 "
+            "mmol/L; urea < 3.6 mmol/L; 0.9% saline fails to correct; FE Na > "
+            "0.5%; FE urea > 55%; FE uric acid > 12%; fluid restriction "
+            "corrects",
+            REF_SPASOVSKI " (table of SIAD criteria), adapted from Schwartz "
+            "WB, Bennett W, Curelop S, Bartter FC. Am J Med 1957;23:529-42 and "
+            "Bartter FC, Schwartz WB. Am J Med 1967;42:790-806",
+            "adults with hypotonic hyponatraemia");
 
     default:
         return NTR_ERR_ARG;

@@ -32,6 +32,13 @@
 #define NTR_URINE_VOLUME_MAX 30.0  /* L */
 #define NTR_RATIO_MAX 20.0
 #define NTR_CONVERT_MAX 1.0e6
+/* Work-up (lib/workup.c). Wide nets that catch unit slips, not clinical
+ * limits; docs/ranges.md gives the reasoning. */
+#define NTR_URINE_OSM_MIN 10.0     /* urine osmolality, mOsm/kg */
+#define NTR_URINE_OSM_MAX 2000.0
+#define NTR_URIC_ACID_MAX 5.0      /* serum uric acid, mmol/L */
+#define NTR_FE_PERCENT_MAX 200.0   /* a fractional excretion given as input, % */
+#define NTR_FE_INPUT_MAX 1.0e6     /* any concentration in ntr_fractional_excretion */
 
 /* NTR_OK when x is finite and lo <= x <= hi. */
 static inline int ntr_check(double x, double lo, double hi)
