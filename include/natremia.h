@@ -1388,6 +1388,489 @@ NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: correction (lib/correction.c, docs/correction.md) ======= */
+/* ======================================================================= */
+
+/** @defgroup correction Correction-rate safety limits
+ *  Watch a measured sodium series against limits on how fast it may rise.
+ *
+ *  The rises that matter are counted over sliding windows: a rise is the
+ *  later sample minus the earlier one, for two samples at most 24 h (or
+ *  48 h) apart, both in the series. A window "ending at" a sample holds
+ *  every sample at most that many hours before it (the sample included).
+ *  All rises and limits are in mmol/L.
+ *  @{ */
+
+/** One measured (or predicted) serum sodium. */
+typedef struct ntr_sample {
+    double hours;     /**< Time in hours since an origin the caller picks. */
+    double na_mmol_l; /**< Serum sodium, mmol/L. */
+} ntr_sample;
+
+/** Limits on the rise of serum sodium, mmol/L (ABI: layout fixed). */
+typedef struct ntr_limits {
+    double max_rise_24h; /**< Largest allowed rise within any 24 h. */
+    double max_rise_48h; /**< Largest allowed rise within any 48 h. */
+    double min_rise_24h; /**< Rise wanted by the end of the first 24 h (0: no target). */
+} ntr_limits;
+
+/** What ntr_correction_assess() finds in a series (ABI: layout fixed). */
+typedef struct ntr_correction {
+    double rise_first_24h;  /**< Highest sodium within 24 h of the first sample, minus the first (>= 0). */
+    double max_rise_24h;    /**< Largest rise between two samples at most 24 h apart (>= 0). */
+    double max_rise_48h;    /**< Largest rise between two samples at most 48 h apart (>= 0). */
+    double last_rate_per_h; /**< Change per hour over the last interval, mmol/L/h (0 with one time point). */
+    double excess_mmol_l;   /**< How far the worst window exceeds its limit (0 if none does). */
+    unsigned int flags;     /**< NTR_CF_* bits. */
+    unsigned int reserved;  /**< Written as 0. */
+} ntr_correction;
+
+#define NTR_LIMITS_STANDARD 1  /**< {10, 18, 4} mmol/L: US panel and European guideline */
+#define NTR_LIMITS_HIGH_RISK 2 /**< {8, 16, 4} mmol/L: high risk of osmotic demyelination */
+
+/** @name Correction flags (bits of ntr_correction.flags; ABI)
+ *  A comparison of a rise with a threshold ignores differences below
+ *  @ref NTR_CF_TOLERANCE, so a rise that equals a limit (for example
+ *  130.1 - 120.1) is not over it because of rounding.
+ *  @{ */
+/** max_rise_24h exceeds limits.max_rise_24h. */
+#define NTR_CF_OVER_24H 1u
+/** max_rise_48h exceeds limits.max_rise_48h. */
+#define NTR_CF_OVER_48H 2u
+/** At least 24 h passed between the first and the last sample and
+ *  rise_first_24h is below limits.min_rise_24h. */
+#define NTR_CF_BELOW_TARGET 4u
+/** The last interval is falling (the last sample is lower than the latest
+ *  sample taken at an earlier time). */
+#define NTR_CF_FALLING 8u
+/** Near a limit: the rise into the last sample, over the 24 h or the 48 h
+ *  ending at it, is within @ref NTR_CF_NEAR_MARGIN of that window's limit
+ *  and not above it. */
+#define NTR_CF_NEAR_LIMIT 16u
+/** Projected over: the last interval rises, and if the next sample, due
+ *  after the same interval as the last one, rose by the same amount again,
+ *  the 24 h or 48 h window ending at it would exceed its limit. */
+#define NTR_CF_PROJECTED_OVER 32u
+/** Rapid: the rise into the last sample over the 6 h ending at it is
+ *  @ref NTR_CF_RAPID_RISE (6 mmol/L) or more: the point at which an urgent
+ *  correction for severe symptoms is usually stopped for the day (the
+ *  "rule of sixes"). */
+#define NTR_CF_RAPID_6H 64u
+/** Every flag this version defines. */
+#define NTR_CF_ALL 127u
+
+#define NTR_CF_TOLERANCE 1e-6    /**< mmol/L: smaller differences count as equal. */
+#define NTR_CF_NEAR_MARGIN 2.0   /**< mmol/L below a limit at which NTR_CF_NEAR_LIMIT starts. */
+#define NTR_CF_RAPID_WINDOW_H 6.0 /**< hours: window of NTR_CF_RAPID_6H. */
+#define NTR_CF_RAPID_RISE 6.0    /**< mmol/L: rise that sets NTR_CF_RAPID_6H. */
+/** @} */
+
+/** @name Tri-state answers and ODS risk factors
+ *  @{ */
+#define NTR_TRI_UNKNOWN 0 /**< Not known (the value a zeroed struct gives). */
+#define NTR_TRI_NO 1      /**< Known to be absent. */
+#define NTR_TRI_YES 2     /**< Known to be present. */
+
+#define NTR_ODS_NA_105 1u        /**< baseline sodium 105 mmol/L or below */
+#define NTR_ODS_LOW_K 2u         /**< low potassium */
+#define NTR_ODS_ALCOHOL 4u       /**< alcohol use disorder */
+#define NTR_ODS_MALNUTRITION 8u  /**< malnutrition */
+#define NTR_ODS_LIVER 16u        /**< advanced liver disease */
+/** @} */
+
+/**
+ * @brief Preset correction limits.
+ *
+ * - @ref NTR_LIMITS_STANDARD: {max_rise_24h 10, max_rise_48h 18,
+ *   min_rise_24h 4} mmol/L.
+ * - @ref NTR_LIMITS_HIGH_RISK: {8, 16, 4} mmol/L, for patients at high
+ *   risk of osmotic demyelination (see ntr_ods_risk()).
+ *
+ * The US panel gives a maximum of 10 to 12 mmol/L in any 24 h and 18 in
+ * any 48 h, 8 in any 24 h at high risk, and a minimum of 4 to 8 (4 to 6 at
+ * high risk). The European guideline limits the first 24 h to 10 and each
+ * later 24 h to 8 (18 over 48 h) and has no separate high-risk tier. The
+ * presets take the stricter end of each range; the 48 h high-risk figure
+ * (2 x 8) is the library's own choice. docs/correction.md explains the
+ * differences.
+ *
+ * @param preset   @ref NTR_LIMITS_STANDARD or @ref NTR_LIMITS_HIGH_RISK.
+ * @param[out] out the limits.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown preset).
+ *
+ * References: Verbalis JG et al. Diagnosis, evaluation, and treatment of
+ * hyponatremia: expert panel recommendations. Am J Med 2013;126(10 Suppl
+ * 1):S1-42. Spasovski G et al. Clinical practice guideline on diagnosis and
+ * treatment of hyponatraemia. Eur J Endocrinol 2014;170:G1-47.
+ * Methods: @ref NTR_METHOD_LIMITS_STANDARD, @ref NTR_METHOD_LIMITS_HIGH_RISK.
+ */
+NTR_API int ntr_limits_preset(int preset, ntr_limits *out);
+
+/**
+ * @brief Whether the high-risk correction limits apply, and why.
+ *
+ * High risk when the baseline sodium is 105 mmol/L or below, or any of the
+ * four factors is @ref NTR_TRI_YES, or any is @ref NTR_TRI_UNKNOWN: a
+ * missing answer never loosens the limits. The factors that are known and
+ * present go to @p drivers, the unknown ones to @p unknowns, so a caller
+ * can say "high-risk limits because alcohol use is not known" and ask.
+ *
+ * @param baseline_na_mmol_l     sodium before correction, 80 to 220 mmol/L.
+ * @param low_potassium          NTR_TRI_* (hypokalaemia).
+ * @param alcohol_use_disorder   NTR_TRI_*.
+ * @param malnutrition           NTR_TRI_*.
+ * @param advanced_liver_disease NTR_TRI_*.
+ * @param[out] preset   @ref NTR_LIMITS_HIGH_RISK or @ref NTR_LIMITS_STANDARD.
+ * @param[out] drivers  NTR_ODS_* bits of the factors known to be present
+ *                      (including @ref NTR_ODS_NA_105).
+ * @param[out] unknowns NTR_ODS_* bits of the factors not known.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (a factor is not an NTR_TRI_*
+ *         value), NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42
+ * (risk factors for osmotic demyelination).
+ * Method: @ref NTR_METHOD_ODS_RISK.
+ */
+NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
+                         int alcohol_use_disorder, int malnutrition,
+                         int advanced_liver_disease, int *preset,
+                         unsigned int *drivers, unsigned int *unknowns);
+
+/**
+ * @brief Assess a measured sodium series against correction limits.
+ *
+ * For samples s[0..n-1] in non-decreasing time, with i <= j counting as
+ * "earlier" and "later" (array order breaks ties of time):
+ * - rise_first_24h = max over j with t_j - t_0 <= 24 of (Na_j - Na_0);
+ * - max_rise_W = max(0, max over i < j with t_j - t_i <= W of
+ *   (Na_j - Na_i)), for W = 24 and 48 h;
+ * - last_rate_per_h = (Na_last - Na_prev) / (t_last - t_prev), where prev
+ *   is the latest sample taken strictly before the last one (0 if none);
+ * - excess_mmol_l = the larger of max_rise_24h - limit_24h and
+ *   max_rise_48h - limit_48h, over the windows that are flagged over
+ *   (0 if none);
+ * - flags: NTR_CF_* as defined above. "Next sample due" for
+ *   @ref NTR_CF_PROJECTED_OVER is t_last + (t_last - t_prev), the series'
+ *   own rhythm; the projected sodium is Na_last + (Na_last - Na_prev).
+ *
+ * Cost: linear in n, no allocation, O(1) extra memory (a block scheme over
+ * the time axis; docs/correction.md). One sample yields zeros and no flag.
+ *
+ * @param s   samples in non-decreasing time; hours finite, -1e6 to 1e6
+ *            (any origin, so times before it are negative); sodium 80 to
+ *            220 mmol/L.
+ * @param n   number of samples, at least 1.
+ * @param lim limits: max_rise_24h and max_rise_48h above 0 and at most 50,
+ *            max_rise_24h <= max_rise_48h, 0 <= min_rise_24h <= max_rise_24h.
+ * @param[out] out the assessment.
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p s, @p lim or @p out is NULL.
+ * @retval NTR_ERR_ARG       @p n is 0.
+ * @retval NTR_ERR_NONFINITE a sample or limit is NaN or infinite.
+ * @retval NTR_ERR_RANGE     a sample or limit is out of range, or the
+ *                           limits contradict each other.
+ * @retval NTR_ERR_ORDER     a sample is earlier than the one before it.
+ * Checks run: pointers, n, samples (each: hours, sodium) in index order,
+ * limits, then time order.
+ *
+ * References: Verbalis JG et al., Am J Med 2013; Spasovski G et al., Eur J
+ * Endocrinol 2014 (the limits); Sterns RH, Hix JK, Silver S, Am J Kidney
+ * Dis 2010;56:774-9 (the 6-in-6-hours stop point; cited from memory).
+ * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES.
+ */
+NTR_API int ntr_correction_assess(const ntr_sample *s, size_t n,
+                                  const ntr_limits *lim, ntr_correction *out);
+
+/** Most samples an ntr_watch keeps: enough for a sample every 23 minutes
+ *  rising steadily for 48 h. Only samples that can still be the lowest
+ *  point of a 48 h window are kept, so a falling or flat series needs far
+ *  fewer. */
+#define NTR_WATCH_CAPACITY 128
+
+/**
+ * @brief State of a streaming watcher (caller-owned; ABI: layout fixed).
+ *
+ * Fill it with ntr_watch_init(), then feed results one at a time with
+ * ntr_watch_push(). It holds no pointers, so it may be copied, stored as
+ * bytes and restored on the same platform. The members are private: read
+ * results through ntr_watch_push() or ntr_watch_result(). Size: 2200
+ * bytes on common 32- and 64-bit targets.
+ */
+typedef struct ntr_watch {
+    unsigned int magic;      /**< private: marks an initialised state */
+    unsigned int kept;       /**< private: samples kept */
+    unsigned int head;       /**< private: ring index of the oldest kept sample */
+    unsigned int front24;    /**< private: first kept sample in the last 24 h (offset) */
+    unsigned int front6;     /**< private: first kept sample in the last 6 h (offset) */
+    unsigned int seen;       /**< private: 0 none, 1 one time point, 2 two or more */
+    unsigned int first_open; /**< private: still within 24 h of the first sample */
+    unsigned int reserved_u; /**< private */
+    ntr_limits limits;       /**< private: the limits given to ntr_watch_init() */
+    ntr_sample first;        /**< private */
+    ntr_sample prev;         /**< private: latest sample before the last one's time */
+    ntr_sample last;         /**< private */
+    double rise_first_24h;   /**< private */
+    double max_rise_24h;     /**< private */
+    double max_rise_48h;     /**< private */
+    double reserved_d[3];    /**< private */
+    ntr_sample ring[NTR_WATCH_CAPACITY]; /**< private: candidate window minima */
+} ntr_watch;
+
+/**
+ * @brief Start a streaming watcher with the given limits.
+ *
+ * @param lim    limits, checked as in ntr_correction_assess().
+ * @param[out] w the state to initialise.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference and methods: as ntr_correction_assess().
+ */
+NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
+
+/**
+ * @brief Add one result to a watcher and return the assessment so far.
+ *
+ * The assessment equals, field for field and bit for bit, what
+ * ntr_correction_assess() returns for all the samples pushed so far.
+ * Cost: O(1) amortised, plus at most O(NTR_WATCH_CAPACITY) for the
+ * projection; no allocation.
+ *
+ * @param w         a state from ntr_watch_init() (updated on success only).
+ * @param hours     time of the result, -1e6 to 1e6, not before the last one.
+ * @param na_mmol_l serum sodium, 80 to 220 mmol/L.
+ * @param[out] out  the assessment of the series so far.
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p w or @p out is NULL.
+ * @retval NTR_ERR_ARG       @p w was not initialised, or is damaged.
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
+ * @retval NTR_ERR_ORDER     @p hours is before the previous result.
+ * @retval NTR_ERR_CAPACITY  the series rises so steadily and densely that
+ *         more than @ref NTR_WATCH_CAPACITY samples would have to be kept;
+ *         nothing changed: keep the series and use ntr_correction_assess().
+ *
+ * Reference and methods: as ntr_correction_assess().
+ */
+NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
+                           ntr_correction *out);
+
+/**
+ * @brief The current assessment of a watcher, without adding a result.
+ *
+ * @param w        a state from ntr_watch_init() with at least one result.
+ * @param[out] out the assessment (as the last ntr_watch_push() returned).
+ * @retval NTR_OK, NTR_ERR_NULL,
+ *         NTR_ERR_ARG (not initialised, damaged, or no result pushed yet).
+ *
+ * Reference and methods: as ntr_correction_assess().
+ */
+NTR_API int ntr_watch_result(const ntr_watch *w, ntr_correction *out);
+/** @} */
+
+/* ======================================================================= */
+/* ==== section: balance (lib/balance.c, docs/balance.md) ================ */
+/* ======================================================================= */
+
+/** @defgroup balance Predicting a fluid plan by mass balance
+ *  Where serum sodium goes under infusions and losses, and whether a plan
+ *  stays within the correction limits. Based on the Edelman relation
+ *  (serum Na tracks exchangeable (Na + K) / total body water) with the
+ *  slope 1 and intercept 0 that the Adrogue-Madias formula also assumes;
+ *  docs/balance.md lists what the model ignores.
+ *  @{ */
+
+/** A volume of fluid gained or lost (ABI: layout fixed). */
+typedef struct ntr_flow {
+    double volume_l;  /**< L; > 0 into the patient, < 0 out (urine and other losses). */
+    double na_mmol_l; /**< Sodium of the fluid, mmol/L. */
+    double k_mmol_l;  /**< Potassium of the fluid, mmol/L. */
+} ntr_flow;
+
+/** A fluid given or lost at a steady rate over a span of a plan
+ *  (ABI: layout fixed). Times are hours after the plan starts. */
+typedef struct ntr_timed_flow {
+    double start_h;   /**< Start, 0 to 720 h after the plan starts. */
+    double end_h;     /**< End, start_h to 720 h (the flow stops at the plan's end anyway). */
+    double rate_ml_h; /**< mL/h, -5000 to 5000; > 0 in, < 0 out (urine). */
+    double na_mmol_l; /**< Sodium of the fluid, 0 to 1100 mmol/L. */
+    double k_mmol_l;  /**< Potassium of the fluid, 0 to 400 mmol/L. */
+    unsigned int reserved[2]; /**< Must be 0 (room for growth). */
+} ntr_timed_flow;
+
+/** ntr_plan_result breach time when no predicted point breaches. */
+#define NTR_PLAN_NO_BREACH (-1.0)
+
+/** Verdict of ntr_plan_check() (ABI: layout fixed). */
+typedef struct ntr_plan_result {
+    ntr_correction course;  /**< ntr_correction_assess() of history + predicted series. */
+    double final_na_mmol_l; /**< Predicted sodium at the end of the plan. */
+    double final_tbw_l;     /**< Predicted body water at the end of the plan. */
+    double breach_24h_h;    /**< Hours after the plan starts of the first predicted point whose
+                                 24 h rise exceeds the limit, or NTR_PLAN_NO_BREACH. */
+    double breach_48h_h;    /**< The same for the 48 h limit. */
+    double reserved_d[2];   /**< Written as 0. */
+    unsigned int points;    /**< Predicted points checked (the history not counted). */
+    unsigned int reserved;  /**< Written as 0. */
+} ntr_plan_result;
+
+/**
+ * @brief Sodium and body water after a set of fluid gains and losses.
+ *
+ * Mass balance of exchangeable cation and water:
+ * Na1 = (Na0*TBW0 + sum v_i*(na_i + k_i)) / (TBW0 + sum v_i),
+ * TBW1 = TBW0 + sum v_i, computed as
+ * Na1 = Na0 + sum v_i*(na_i + k_i - Na0) / TBW1 so Na0 does not cancel.
+ * With one inflow of 1 L it equals Na0 + ntr_infusate_change_per_litre().
+ *
+ * @param na_mmol_l sodium before, 80 to 220 mmol/L.
+ * @param tbw_l     body water before, 0.1 to 400 L.
+ * @param flows     the gains and losses (may be NULL when @p n is 0):
+ *                  volume_l -30 to 20 L, na_mmol_l 0 to 1100,
+ *                  k_mmol_l 0 to 400 mmol/L.
+ * @param n         number of flows (0 gives the inputs back).
+ * @param[out] na_out  sodium after, mmol/L.
+ * @param[out] tbw_out body water after, L.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (body water after below 0.1 L, or sodium after
+ *         outside 80 to 220 mmol/L: the model no longer applies).
+ *
+ * References: Edelman IS, Leibman J, O'Meara MP, Birkenfeld LW. Interrelations
+ * between serum sodium concentration, serum osmolarity and total
+ * exchangeable sodium, total exchangeable potassium and total body water.
+ * J Clin Invest 1958;37:1236-56. Adrogue HJ, Madias NE. Hyponatremia.
+ * N Engl J Med 2000;342:1581-9.
+ * Method: @ref NTR_METHOD_BALANCE_MASS.
+ */
+NTR_API int ntr_balance_predict(double na_mmol_l, double tbw_l,
+                                const ntr_flow *flows, size_t n,
+                                double *na_out, double *tbw_out);
+
+/**
+ * @brief Predicted sodium over time under rate-based gains and losses.
+ *
+ * At each time tau the volume of flow i so far is
+ * v_i = rate_i/1000 * (min(end_i, tau) - start_i), 0 before it starts, and
+ * the sodium is ntr_balance_predict() of those volumes (exact for steady
+ * rates). Points are at tau = 0, step, 2*step, ... below @p duration_h, and
+ * at @p duration_h itself: ceil(duration/step) + 1 points. series[0] is
+ * (0, na_mmol_l). The series can go straight to ntr_correction_assess().
+ *
+ * @param na_mmol_l  sodium at the start, 80 to 220 mmol/L.
+ * @param tbw_l      body water at the start, 0.1 to 400 L.
+ * @param flows      the plan (may be NULL when @p n_flows is 0); ranges in
+ *                   ntr_timed_flow.
+ * @param n_flows    number of flows.
+ * @param duration_h length of the prediction, above 0 and at most 720 h.
+ * @param step_h     spacing of the points, 1/60 to 720 h.
+ * @param[out] series   buffer for the points (may be NULL when
+ *                      @p capacity is 0, to ask for the count).
+ * @param capacity   number of ntr_sample the buffer holds.
+ * @param[out] count points written; with NTR_ERR_CAPACITY, the number
+ *                   needed (the only output written on an error).
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p count is NULL, or @p series with a capacity,
+ *                           or @p flows with flows to read.
+ * @retval NTR_ERR_ARG       a flow's reserved field is not 0.
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input (in argument order;
+ *                           each flow's fields in struct order).
+ * @retval NTR_ERR_ORDER     a flow ends before it starts.
+ * @retval NTR_ERR_CAPACITY  @p capacity is below the count needed.
+ * @retval NTR_ERR_DOMAIN    a point leaves the model's range (as in
+ *                           ntr_balance_predict()).
+ *
+ * References: as ntr_balance_predict().
+ * Method: @ref NTR_METHOD_BALANCE_COURSE.
+ */
+NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
+                               const ntr_timed_flow *flows, size_t n_flows,
+                               double duration_h, double step_h,
+                               ntr_sample *series, size_t capacity,
+                               size_t *count);
+
+/**
+ * @brief Check a fluid plan against the correction limits before giving it.
+ *
+ * Builds the series: the measured history, whose last sample is "now"
+ * (the sodium the plan starts from, at plan time 0), followed by the
+ * points of ntr_balance_course() after time 0, placed at
+ * t_last + tau. It runs ntr_correction_assess() over that whole series (so
+ * a rise already measured counts against the limits) and reports the first
+ * predicted point whose 24 h or 48 h window rise exceeds the limit.
+ * No buffer is needed; the cost is O((n_history + points) * n_flows).
+ *
+ * @param history   measured samples, as in ntr_correction_assess(); the
+ *                  last one is the sodium now.
+ * @param n_history at least 1.
+ * @param tbw_l     body water now, 0.1 to 400 L.
+ * @param flows, n_flows, duration_h, step_h  the plan, as in
+ *                  ntr_balance_course() (times after now).
+ * @param lim       limits, as in ntr_correction_assess().
+ * @param[out] out  the verdict; out->course.flags tells whether and which
+ *                  limit is breached, breach_24h_h / breach_48h_h when.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (n_history 0, or a reserved
+ *         field not 0), NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_ORDER
+ *         (history out of time order, or a flow ending before it starts),
+ *         NTR_ERR_DOMAIN (as ntr_balance_course()).
+ * Checks run: pointers, counts and reserved fields, history, tbw, flows,
+ * duration, step, limits, time order, domain.
+ *
+ * References: as ntr_balance_predict() and ntr_correction_assess().
+ * Methods: @ref NTR_METHOD_PLAN_CHECK, @ref NTR_METHOD_BALANCE_COURSE,
+ * @ref NTR_METHOD_CORRECTION_WINDOWS.
+ */
+NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
+                           double tbw_l, const ntr_timed_flow *flows,
+                           size_t n_flows, double duration_h, double step_h,
+                           const ntr_limits *lim, ntr_plan_result *out);
+
+/**
+ * @brief Fluid needed to bring sodium back down after overcorrection.
+ *
+ * Over @p hours, a fluid of sodium + potassium c_f at rate r (L/h) and
+ * urine at rate u (L/h) with sodium + potassium c_u change sodium by mass
+ * balance; the target is Na1 = Na0 - d. Solving
+ * Na1 = (Na0*TBW0 + r*T*c_f - u*T*c_u) / (TBW0 + r*T - u*T) for r gives
+ * r*T = (d*TBW0 + u*T*(Na1 - c_u)) / (Na1 - c_f).
+ * With no urine this is ntr_infusate_volume_for_change() for a fall of d.
+ * When the losses alone lower sodium by d or more, the result is 0 (check
+ * the plan with ntr_plan_check(): it may fall further than wanted).
+ * Re-lowering is usually given with desmopressin to stop the water
+ * diuresis; with desmopressin, pass the urine rate expected under it.
+ *
+ * @param na_mmol_l        sodium now, 80 to 220 mmol/L.
+ * @param tbw_l            body water now, 0.1 to 400 L.
+ * @param fluid_na_mmol_l  sodium of the fluid, 0 to 1100 (5% dextrose: 0).
+ * @param fluid_k_mmol_l   potassium of the fluid, 0 to 400.
+ * @param lower_by_mmol_l  wanted fall d, above 0 and at most 50 (for
+ *                         example ntr_correction.excess_mmol_l).
+ * @param hours            time over which to give it, above 0 and at most 720.
+ * @param urine_ml_h       expected urine rate, 0 to 5000 mL/h.
+ * @param urine_na_mmol_l  0 to 500 mmol/L.
+ * @param urine_k_mmol_l   0 to 300 mmol/L.
+ * @param[out] volume_l    volume of fluid to give over @p hours, L.
+ * @param[out] rate_ml_h   the same as a rate, mL/h.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the fluid's sodium + potassium is not below the
+ *         target, the target is below 80 mmol/L, the volume would exceed
+ *         20 L, or body water would fall below 0.1 L).
+ *
+ * @warning An estimate for decision support, not an order: re-lowering
+ * needs frequent measured sodium and specialist judgement.
+ *
+ * References: Adrogue HJ, Madias NE, N Engl J Med 2000;342:1581-9 (mass
+ * balance). Sterns RH, Hix JK. Overcorrection of hyponatremia is a medical
+ * emergency. Kidney Int 2009;76:587-9 (re-lowering; cited from memory).
+ * Method: @ref NTR_METHOD_RELOWER.
+ */
+NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
+                                 double fluid_na_mmol_l, double fluid_k_mmol_l,
+                                 double lower_by_mmol_l, double hours,
+                                 double urine_ml_h, double urine_na_mmol_l,
+                                 double urine_k_mmol_l, double *volume_l,
+                                 double *rate_ml_h);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: methods (provenance ids; lib/methods.c, docs/methods.md)  */
 /* ======================================================================= */
 
@@ -1413,6 +1896,17 @@ NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
 #define NTR_METHOD_INFUSATE_VOLUME 16
 #define NTR_METHOD_FURST 17
 #define NTR_METHOD_EFWC 18
+/* Correction and balance (ids 30-49, issue P2; lib/correction.c, lib/balance.c). */
+#define NTR_METHOD_LIMITS_STANDARD 30      /**< 10/24 h, 18/48 h, at least 4/24 h */
+#define NTR_METHOD_LIMITS_HIGH_RISK 31     /**< 8/24 h, 16/48 h, at least 4/24 h */
+#define NTR_METHOD_ODS_RISK 32             /**< risk factors for osmotic demyelination */
+#define NTR_METHOD_CORRECTION_WINDOWS 33   /**< largest rise within 24 h and 48 h windows */
+#define NTR_METHOD_CORRECTION_TREND 34     /**< near-limit and projected-over flags */
+#define NTR_METHOD_RULE_OF_SIXES 35        /**< 6 mmol/L within 6 h: stop point */
+#define NTR_METHOD_BALANCE_MASS 36         /**< Edelman-based mass balance of flows */
+#define NTR_METHOD_BALANCE_COURSE 37       /**< time course under steady rates */
+#define NTR_METHOD_PLAN_CHECK 38           /**< predicted course against the limits */
+#define NTR_METHOD_RELOWER 39              /**< fluid to re-lower after overcorrection */
 /* Work-up (ids 50-69, issue P3; lib/workup.c). */
 #define NTR_METHOD_NA_SEVERITY 50          /**< severity bands of a low sodium */
 #define NTR_METHOD_TONICITY_CLASS 51       /**< hypo-, iso-, hypertonic by measured osmolality */
