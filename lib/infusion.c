@@ -44,8 +44,16 @@ int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
                                   double infusate_na_mmol_l,
                                   double infusate_k_mmol_l, double *delta_mmol_l)
 {
-    return ntr_infusate_change(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                               infusate_k_mmol_l, 1.0, delta_mmol_l);
+    if (delta_mmol_l == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(check_infusate(na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l));
+    /* Adrogue & Madias 2000 as published. Written out on its own rather than
+     * as ntr_infusate_change(..., 1.0, ...), so the test that the two agree
+     * at 1 L compares two independent expressions. */
+    *delta_mmol_l = (infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l) /
+                    (tbw_l + 1.0);
+    return NTR_OK;
 }
 
 int ntr_infusate_change(double na_mmol_l, double tbw_l,

@@ -1,8 +1,9 @@
 /* Units: UCUM parsing and analyte conversion (docs/units.md). */
 #include "ntr_internal.h"
 
-/* IUPAC standard atomic weights, g/mol (abridged values; tests/test_units.c
- * checks them and the molar masses against Debian's python3-periodictable). */
+/* IUPAC standard atomic weights, g/mol (abridged values; the molar masses
+ * built from them are checked against Debian's python3-periodictable by
+ * tests/check_molar_masses.py). */
 #define AW_H 1.008
 #define AW_C 12.011
 #define AW_N 14.007
