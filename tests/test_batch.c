@@ -1,0 +1,673 @@
+/* Batch entry points (lib/batch.c, docs/batch.md).
+ *
+ * Three kinds of check:
+ * - published values pushed through the batch functions (source beside each);
+ * - the batch contract: NULL and unknown enumerators write nothing, failed
+ *   rows get NaN (or 0) and their status, the first failing status is
+ *   returned, the optional counter counts, n == 0 is fine, in-place works;
+ * - the property that every row equals the scalar function bit for bit,
+ *   on thousands of random rows of which many are invalid on purpose. */
+#include <stdarg.h>
+#include <stddef.h>
+#include <setjmp.h>
+#include <stdint.h>
+#include <string.h>
+#include <math.h>
+#include <cmocka.h>
+
+#include "natremia.h"
+
+#define ROWS 4096
+#define SENTINEL (-7777.25)
+
+/* |a - b| <= tol, printing both on failure. */
+#define assert_close(a, b, tol)                                              \
+    do {                                                                     \
+        double a_ = (a), b_ = (b);                                           \
+        if (!(fabs(a_ - b_) <= (tol))) {                                     \
+            print_error("%s = %.17g, expected %.17g\n", #a, a_, b_);         \
+            fail();                                                          \
+        }                                                                    \
+    } while (0)
+
+/* ---- deterministic random inputs ------------------------------------ */
+
+/* xorshift64*: reproducible across platforms, no libc rand(). */
+static uint64_t rng_state = 0x9E3779B97F4A7C15u;
+
+static double uniform01(void)
+{
+    uint64_t x = rng_state;
+    x ^= x >> 12;
+    x ^= x << 25;
+    x ^= x >> 27;
+    rng_state = x;
+    return (double)((x * 0x2545F4914F6CDD1Du) >> 11) * (1.0 / 9007199254740992.0);
+}
+
+/* A value for an input whose range is [lo, hi]: mostly inside, sometimes
+ * just outside, at an edge, NaN or an infinity, so every status and every
+ * check order gets exercised. */
+static double draw(double lo, double hi)
+{
+    double u = uniform01();
+    double width = hi - lo;
+    if (u < 0.02) {
+        return (double)NAN;
+    }
+    if (u < 0.03) {
+        return HUGE_VAL;
+    }
+    if (u < 0.04) {
+        return -HUGE_VAL;
+    }
+    if (u < 0.07) {
+        return lo - 0.1 * width * uniform01() - 1e-9;
+    }
+    if (u < 0.10) {
+        return hi + 0.1 * width * uniform01() + 1e-9;
+    }
+    if (u < 0.11) {
+        return lo;
+    }
+    if (u < 0.12) {
+        return hi;
+    }
+    return lo + width * uniform01();
+}
+
+static int draw_sex(void)
+{
+    double u = uniform01();
+    return u < 0.47 ? NTR_SEX_MALE : u < 0.94 ? NTR_SEX_FEMALE : (u < 0.97 ? 0 : 3);
+}
+
+static void fill(double *a, size_t n, double lo, double hi)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        a[i] = draw(lo, hi);
+    }
+}
+
+/* Same double, bit for bit (NaN equal to NaN). */
+static int same_double(double a, double b)
+{
+    return memcmp(&a, &b, sizeof a) == 0 || (isnan(a) && isnan(b));
+}
+
+/* Compares a batch row with the scalar call on the same inputs: same status;
+ * when OK the same bits, otherwise NaN in the batch output and the scalar
+ * output untouched. Returns the number of failed rows seen. */
+static size_t check_row(size_t i, int scalar_status, double scalar_out,
+                        int batch_status, double batch_out)
+{
+    if (scalar_status != batch_status) {
+        print_error("row %zu: scalar status %d, batch status %d\n", i,
+                    scalar_status, batch_status);
+        fail();
+    }
+    if (scalar_status == NTR_OK) {
+        if (!same_double(scalar_out, batch_out)) {
+            print_error("row %zu: scalar %.17g, batch %.17g\n", i, scalar_out,
+                        batch_out);
+            fail();
+        }
+        return 0;
+    }
+    assert_true(isnan(batch_out));
+    assert_true(scalar_out == SENTINEL);
+    return 1;
+}
+
+/* The return value and counter agree with the per-row statuses. */
+static void check_summary(int ret, size_t failed, const int *status, size_t n,
+                          size_t expected_failed)
+{
+    size_t i;
+    int first = NTR_OK;
+    for (i = 0; i < n; i++) {
+        if (status[i] != NTR_OK) {
+            first = status[i];
+            break;
+        }
+    }
+    assert_int_equal(ret, first);
+    assert_int_equal(failed, expected_failed);
+}
+
+static double a1[ROWS], a2[ROWS], a3[ROWS], a4[ROWS], a5[ROWS];
+static int sexes[ROWS];
+static double out[ROWS];
+static int status[ROWS];
+
+/* ---- published values through the batch API -------------------------- */
+
+static void published_values(void **state)
+{
+    size_t failed = 99;
+    (void)state;
+
+    /* Source: Dorwart & Chalmers, Clin Chem 1975 (their regression
+     * 1.86*Na + glucose + urea + 9) and the conventional 2*Na formula:
+     * Na 140, glucose 5, urea 5 mmol/L -> 290 and 279.4 mOsm/kg. */
+    {
+        double na[2] = {140.0, 140.0}, glu[2] = {5.0, 5.0}, urea[2] = {5.0, 5.0},
+               eth[2] = {0.0, 0.0}, o[2];
+        int s[2];
+        assert_int_equal(ntr_batch_osm_calculated(2, na, glu, urea, eth, NTR_OSM_2NA,
+                                                  o, s, &failed), NTR_OK);
+        assert_int_equal(failed, 0);
+        assert_close(o[0], 290.0, 1e-12);
+        assert_int_equal(ntr_batch_osm_calculated(2, na, glu, urea, eth,
+                                                  NTR_OSM_DORWART_CHALMERS, o, s,
+                                                  NULL), NTR_OK);
+        assert_close(o[1], 279.4, 1e-9);
+    }
+
+    /* Source: Katz, N Engl J Med 1973 (1.6 per 100 mg/dL) and Hillier et al.,
+     * Am J Med 1999 (2.4): Na 125 with glucose 600 mg/dL (33.305 mmol/L,
+     * 600/18.0156) corrects to 125 + 5*1.6 = 133 and 125 + 5*2.4 = 137. */
+    {
+        double na[1] = {125.0}, glu[1] = {600.0 / 18.0156}, o[1];
+        int s[1];
+        assert_int_equal(ntr_batch_na_corrected_glucose(1, na, glu, NTR_GLUCOSE_KATZ,
+                                                        o, s, NULL), NTR_OK);
+        assert_close(o[0], 133.0, 1e-9);
+        assert_int_equal(ntr_batch_na_corrected_glucose(1, na, glu,
+                                                        NTR_GLUCOSE_HILLIER, o, s,
+                                                        NULL), NTR_OK);
+        assert_close(o[0], 137.0, 1e-9);
+    }
+
+    /* Source: Adrogue & Madias, N Engl J Med 2000;342:1493-9 (hypernatremia),
+     * worked example from memory: man of 78 years, 68 kg, Na 165; TBW
+     * 0.5*68 = 34 L; 1 L of 5% dextrose changes Na by (0 - 165)/(34 + 1)
+     * = -4.7 mmol/L. */
+    {
+        int sex[1] = {NTR_SEX_MALE};
+        double age[1] = {78.0}, weight[1] = {68.0}, tbw[1], na[1] = {165.0},
+               inf_na[1] = {0.0}, inf_k[1] = {0.0}, o[1];
+        int s[1];
+        assert_int_equal(ntr_batch_tbw_fraction(1, sex, age, weight, tbw, s, NULL),
+                         NTR_OK);
+        assert_close(tbw[0], 34.0, 1e-12);
+        assert_int_equal(ntr_batch_infusate_change_per_litre(1, na, tbw, inf_na,
+                                                             inf_k, o, s, NULL),
+                         NTR_OK);
+        assert_close(o[0], -4.714285714285714, 1e-12);
+        assert_close(o[0], -4.7, 0.05);
+    }
+
+    /* Source: Watson, Watson & Batt, Am J Clin Nutr 1980 (men's equation):
+     * 40 years, 180 cm, 80 kg -> 2.447 - 3.8064 + 19.332 + 26.896
+     * = 44.8686 L; women's equation, 170 cm, 60 kg -> -2.097 + 18.173
+     * + 14.796 = 30.872 L. */
+    {
+        int sex[2] = {NTR_SEX_MALE, NTR_SEX_FEMALE};
+        double age[2] = {40.0, 40.0}, height[2] = {180.0, 170.0},
+               weight[2] = {80.0, 60.0}, o[2];
+        int s[2];
+        assert_int_equal(ntr_batch_tbw_watson(2, sex, age, height, weight, o, s,
+                                              NULL), NTR_OK);
+        assert_close(o[0], 44.8686, 1e-9);
+        assert_close(o[1], 30.872, 1e-9);
+    }
+
+    /* Source: Furst et al., Am J Med Sci 2000 (ratio (U_Na + U_K)/S_Na and
+     * its table); EFWC from Rose & Post, 5th ed.: urine 2 L with Na 60,
+     * K 20, serum Na 120 -> ratio 0.667 (restrict to under 1 L/day) and
+     * EFWC = 2*(1 - 80/120) = 0.667 L. */
+    {
+        double v[1] = {2.0}, una[1] = {60.0}, uk[1] = {20.0}, sna[1] = {120.0},
+               o[1];
+        int s[1], advice[1];
+        assert_int_equal(ntr_batch_furst_ratio(1, una, uk, sna, o, s, NULL), NTR_OK);
+        assert_close(o[0], 2.0 / 3.0, 1e-15);
+        assert_int_equal(ntr_batch_restriction_from_ratio(1, o, advice, s, NULL),
+                         NTR_OK);
+        assert_int_equal(advice[0], NTR_RESTRICT_1000ML);
+        assert_int_equal(ntr_batch_efwc(1, v, una, uk, sna, o, s, NULL), NTR_OK);
+        assert_close(o[0], 2.0 / 3.0, 1e-15);
+    }
+
+    /* Source: the textbook water-deficit formula (common practice): TBW
+     * 40 L at Na 154 -> 40*(154/140 - 1) = 4 L. Sodium deficit (common
+     * practice): TBW 30 L from 120 to 126 -> 180 mmol. */
+    {
+        double tbw[1] = {40.0}, na[1] = {154.0}, o[1];
+        double tbw2[1] = {30.0}, na2[1] = {120.0}, target[1] = {126.0};
+        int s[1];
+        assert_int_equal(ntr_batch_free_water_deficit(1, tbw, na, o, s, NULL),
+                         NTR_OK);
+        assert_close(o[0], 4.0, 1e-12);
+        assert_int_equal(ntr_batch_na_deficit(1, tbw2, na2, target, o, s, NULL),
+                         NTR_OK);
+        assert_close(o[0], 180.0, 1e-12);
+    }
+
+    /* Source: Adrogue & Madias 2000 mass balance: 3% saline (513) into
+     * TBW 30 L at Na 108; a 4 mmol/L rise needs 4*30/(513 - 108 - 4)
+     * = 0.29925 L, and that volume gives back exactly +4. */
+    {
+        double na[1] = {108.0}, tbw[1] = {30.0}, inf_na[1] = {513.0},
+               inf_k[1] = {0.0}, delta[1] = {4.0}, vol[1], o[1];
+        int s[1];
+        assert_int_equal(ntr_batch_infusate_volume_for_change(1, na, tbw, inf_na,
+                                                              inf_k, delta, vol, s,
+                                                              NULL), NTR_OK);
+        assert_close(vol[0], 120.0 / 401.0, 1e-15);
+        assert_int_equal(ntr_batch_infusate_change(1, na, tbw, inf_na, inf_k, vol,
+                                                   o, s, NULL), NTR_OK);
+        assert_close(o[0], 4.0, 1e-12);
+    }
+}
+
+/* ---- contract --------------------------------------------------------- */
+
+static void prefill(void)
+{
+    size_t i;
+    for (i = 0; i < ROWS; i++) {
+        out[i] = SENTINEL;
+        status[i] = -1;
+    }
+}
+
+static void untouched(size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        assert_true(out[i] == SENTINEL);
+        assert_int_equal(status[i], -1);
+    }
+}
+
+static void null_and_bad_enumerators_write_nothing(void **state)
+{
+    double x[2] = {140.0, 140.0}, y[2] = {5.0, 5.0};
+    int sx[2] = {NTR_SEX_MALE, NTR_SEX_FEMALE};
+    int advice[2] = {-1, -1};
+    size_t failed = 12345;
+    (void)state;
+
+    prefill();
+    assert_int_equal(ntr_batch_osm_calculated(2, NULL, y, y, y, NTR_OSM_2NA, out,
+                                              status, &failed), NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_osm_calculated(2, x, y, y, y, NTR_OSM_2NA, NULL,
+                                              status, &failed), NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_osm_calculated(2, x, y, y, y, NTR_OSM_2NA, out,
+                                              NULL, &failed), NTR_ERR_NULL);
+    /* NULL is checked even with no rows; NULL beats a bad enumerator. */
+    assert_int_equal(ntr_batch_osm_calculated(0, x, y, NULL, y, 99, out, status,
+                                              &failed), NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_osm_calculated(2, x, y, y, y, 0, out, status,
+                                              &failed), NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_osm_calculated(2, x, y, y, y, 3, out, status,
+                                              &failed), NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_osm_effective(2, x, NULL, out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_osm_gap(2, NULL, x, out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_na_corrected_glucose(2, x, y, 0, out, status,
+                                                    &failed), NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_na_corrected_glucose(2, x, y, 3, out, status,
+                                                    &failed), NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_na_corrected_glucose(2, x, NULL, NTR_GLUCOSE_KATZ,
+                                                    out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_tbw_fraction(2, NULL, x, x, out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_tbw_watson(2, sx, x, x, NULL, out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_free_water_deficit(2, x, x, out, NULL, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_na_deficit(2, x, x, NULL, out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_infusate_change_per_litre(2, x, x, x, NULL, out,
+                                                         status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_infusate_change(2, x, x, x, x, NULL, out, status,
+                                               &failed), NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_infusate_volume_for_change(2, x, x, x, x, NULL,
+                                                          out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_furst_ratio(2, x, x, NULL, out, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_restriction_from_ratio(2, x, NULL, status, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_restriction_from_ratio(2, x, advice, NULL, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_efwc(2, NULL, x, x, x, out, status, &failed),
+                     NTR_ERR_NULL);
+    untouched(2);
+    assert_int_equal(advice[0], -1);
+    assert_int_equal(failed, 12345);
+}
+
+static void empty_batch_is_ok(void **state)
+{
+    double x[1] = {140.0};
+    size_t failed = 12345;
+    (void)state;
+    prefill();
+    assert_int_equal(ntr_batch_osm_effective(0, x, x, out, status, &failed), NTR_OK);
+    assert_int_equal(failed, 0);
+    untouched(1);
+}
+
+static void failed_rows_get_nan_and_status(void **state)
+{
+    /* Rows: ok, NaN sodium, sodium out of range, glucose +inf, ok,
+     * sodium 79 with NaN glucose (sodium is checked first: RANGE). */
+    double na[6] = {140.0, (double)NAN, 230.0, 130.0, 120.0, 79.0};
+    double glu[6] = {5.0, 5.0, 5.0, HUGE_VAL, 10.0, (double)NAN};
+    int expected[6] = {NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+                       NTR_ERR_NONFINITE, NTR_OK, NTR_ERR_RANGE};
+    size_t failed = 0;
+    size_t i;
+    (void)state;
+    prefill();
+    assert_int_equal(ntr_batch_osm_effective(6, na, glu, out, status, &failed),
+                     NTR_ERR_NONFINITE);
+    assert_int_equal(failed, 4);
+    for (i = 0; i < 6; i++) {
+        assert_int_equal(status[i], expected[i]);
+        assert_true(expected[i] == NTR_OK ? !isnan(out[i]) : isnan(out[i]));
+    }
+    assert_close(out[0], 285.0, 0.0);
+    assert_close(out[4], 250.0, 0.0);
+    for (i = 6; i < ROWS; i++) { /* nothing beyond the n rows is written */
+        assert_true(out[i] == SENTINEL);
+    }
+
+    /* The return value is the status of the lowest failing row, not the
+     * most severe: here a DOMAIN row comes before a NONFINITE row. */
+    {
+        double tbw[3] = {40.0, 40.0, 40.0}, na2[3] = {150.0, 130.0, (double)NAN};
+        assert_int_equal(ntr_batch_free_water_deficit(3, tbw, na2, out, status,
+                                                      NULL), NTR_ERR_DOMAIN);
+        assert_int_equal(status[2], NTR_ERR_NONFINITE);
+    }
+
+    /* Integer outputs of failed rows are 0. */
+    {
+        double r[4] = {0.5, -0.1, 0.95, (double)NAN};
+        int advice[4] = {-1, -1, -1, -1};
+        assert_int_equal(ntr_batch_restriction_from_ratio(4, r, advice, status,
+                                                          &failed), NTR_ERR_RANGE);
+        assert_int_equal(failed, 2);
+        assert_int_equal(advice[0], NTR_RESTRICT_1000ML);
+        assert_int_equal(advice[1], 0);
+        assert_int_equal(advice[2], NTR_RESTRICT_500_700ML);
+        assert_int_equal(advice[3], 0);
+    }
+}
+
+static void in_place_output(void **state)
+{
+    double tbw[3] = {40.0, 30.0, 20.0};
+    double na[3] = {154.0, 168.0, 100.0};
+    double expected[3];
+    int s[3];
+    (void)state;
+    assert_int_equal(ntr_batch_free_water_deficit(3, tbw, na, expected, s, NULL),
+                     NTR_ERR_DOMAIN);
+    /* Writing over the sodium column gives the same values. */
+    assert_int_equal(ntr_batch_free_water_deficit(3, tbw, na, na, s, NULL),
+                     NTR_ERR_DOMAIN);
+    assert_true(same_double(na[0], expected[0]));
+    assert_true(same_double(na[1], expected[1]));
+    assert_true(isnan(na[2]));
+}
+
+/* ---- property: every row equals the scalar function ----------------- */
+
+static void osmolality_rows_equal_scalar(void **state)
+{
+    size_t i, failed, bad;
+    int ret, f;
+    (void)state;
+    for (f = NTR_OSM_2NA; f <= NTR_OSM_DORWART_CHALMERS; f++) {
+        fill(a1, ROWS, 80.0, 220.0);
+        fill(a2, ROWS, 0.0, 200.0);
+        fill(a3, ROWS, 0.0, 200.0);
+        fill(a4, ROWS, 0.0, 400.0);
+        ret = ntr_batch_osm_calculated(ROWS, a1, a2, a3, a4, f, out, status, &failed);
+        bad = 0;
+        for (i = 0; i < ROWS; i++) {
+            double s = SENTINEL;
+            int st = ntr_osm_calculated(a1[i], a2[i], a3[i], a4[i], f, &s);
+            bad += check_row(i, st, s, status[i], out[i]);
+        }
+        assert_true(bad > 0 && bad < ROWS);
+        check_summary(ret, failed, status, ROWS, bad);
+    }
+
+    ret = ntr_batch_osm_effective(ROWS, a1, a2, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_osm_effective(a1[i], a2[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    fill(a1, ROWS, 150.0, 600.0);
+    fill(a2, ROWS, 150.0, 600.0);
+    ret = ntr_batch_osm_gap(ROWS, a1, a2, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_osm_gap(a1[i], a2[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+}
+
+static void sodium_rows_equal_scalar(void **state)
+{
+    size_t i, failed, bad;
+    int ret, m;
+    (void)state;
+    for (m = NTR_GLUCOSE_KATZ; m <= NTR_GLUCOSE_HILLIER; m++) {
+        fill(a1, ROWS, 80.0, 220.0);
+        /* Half the glucose values below the 100 mg/dL reference. */
+        fill(a2, ROWS / 2, 0.0, 5.55);
+        fill(a2 + ROWS / 2, ROWS / 2, 0.0, 200.0);
+        ret = ntr_batch_na_corrected_glucose(ROWS, a1, a2, m, out, status, &failed);
+        bad = 0;
+        for (i = 0; i < ROWS; i++) {
+            double s = SENTINEL;
+            int st = ntr_na_corrected_glucose(a1[i], a2[i], m, &s);
+            bad += check_row(i, st, s, status[i], out[i]);
+        }
+        check_summary(ret, failed, status, ROWS, bad);
+    }
+
+    fill(a1, ROWS, 0.1, 400.0);
+    fill(a2, ROWS, 80.0, 220.0);
+    fill(a3, ROWS, 80.0, 220.0);
+    ret = ntr_batch_na_deficit(ROWS, a1, a2, a3, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_na_deficit(a1[i], a2[i], a3[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+}
+
+static void water_rows_equal_scalar(void **state)
+{
+    size_t i, failed, bad;
+    int ret;
+    (void)state;
+    for (i = 0; i < ROWS; i++) {
+        sexes[i] = draw_sex();
+    }
+    fill(a1, ROWS, 0.0, 130.0);
+    fill(a2, ROWS, 0.3, 650.0);
+    ret = ntr_batch_tbw_fraction(ROWS, sexes, a1, a2, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_tbw_fraction(sexes[i], a1[i], a2[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    /* Small heights and weights make some women's Watson volumes <= 0
+     * (DOMAIN). */
+    fill(a1, ROWS, 18.0, 130.0);
+    fill(a2, ROWS, 30.0, 275.0);
+    fill(a3, ROWS / 2, 0.3, 20.0);
+    fill(a3 + ROWS / 2, ROWS / 2, 0.3, 650.0);
+    ret = ntr_batch_tbw_watson(ROWS, sexes, a1, a2, a3, out, status, &failed);
+    bad = 0;
+    {
+        size_t domain = 0;
+        for (i = 0; i < ROWS; i++) {
+            double s = SENTINEL;
+            int st = ntr_tbw_watson(sexes[i], a1[i], a2[i], a3[i], &s);
+            bad += check_row(i, st, s, status[i], out[i]);
+            domain += (st == NTR_ERR_DOMAIN);
+        }
+        assert_true(domain > 0);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    fill(a1, ROWS, 0.1, 400.0);
+    fill(a2, ROWS, 80.0, 220.0);
+    ret = ntr_batch_free_water_deficit(ROWS, a1, a2, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_free_water_deficit(a1[i], a2[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+}
+
+static void infusion_rows_equal_scalar(void **state)
+{
+    size_t i, failed, bad, domain = 0, zero = 0;
+    int ret;
+    (void)state;
+    fill(a1, ROWS, 80.0, 220.0);
+    fill(a2, ROWS, 0.1, 400.0);
+    fill(a3, ROWS, 0.0, 1100.0);
+    fill(a4, ROWS, 0.0, 400.0);
+    fill(a5, ROWS, 0.0, 20.0);
+
+    ret = ntr_batch_infusate_change_per_litre(ROWS, a1, a2, a3, a4, out, status,
+                                              &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_infusate_change_per_litre(a1[i], a2[i], a3[i], a4[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    ret = ntr_batch_infusate_change(ROWS, a1, a2, a3, a4, a5, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_infusate_change(a1[i], a2[i], a3[i], a4[i], a5[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    /* Wanted changes of both signs, some exactly 0, many unreachable. */
+    fill(a5, ROWS, -50.0, 50.0);
+    for (i = 0; i < ROWS; i += 97) {
+        a5[i] = 0.0;
+    }
+    ret = ntr_batch_infusate_volume_for_change(ROWS, a1, a2, a3, a4, a5, out,
+                                               status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_infusate_volume_for_change(a1[i], a2[i], a3[i], a4[i], a5[i],
+                                                &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+        domain += (st == NTR_ERR_DOMAIN);
+        zero += (st == NTR_OK && s == 0.0);
+    }
+    assert_true(domain > 0);
+    assert_true(zero > 0);
+    check_summary(ret, failed, status, ROWS, bad);
+}
+
+static void urine_rows_equal_scalar(void **state)
+{
+    size_t i, failed, bad;
+    int ret;
+    int advice[ROWS];
+    (void)state;
+    fill(a1, ROWS, 0.0, 30.0);
+    fill(a2, ROWS, 0.0, 500.0);
+    fill(a3, ROWS, 0.0, 300.0);
+    fill(a4, ROWS, 80.0, 220.0);
+
+    ret = ntr_batch_furst_ratio(ROWS, a2, a3, a4, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_furst_ratio(a2[i], a3[i], a4[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    ret = ntr_batch_efwc(ROWS, a1, a2, a3, a4, out, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        double s = SENTINEL;
+        int st = ntr_efwc(a1[i], a2[i], a3[i], a4[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+    }
+    check_summary(ret, failed, status, ROWS, bad);
+
+    /* Ratios around the 0.9 and 1.0 band edges, plus the edges exactly. */
+    fill(a1, ROWS, 0.0, 2.0);
+    a1[0] = 0.9;
+    a1[1] = 1.0;
+    a1[2] = nextafter(0.9, 0.0);
+    a1[3] = nextafter(1.0, 2.0);
+    ret = ntr_batch_restriction_from_ratio(ROWS, a1, advice, status, &failed);
+    bad = 0;
+    for (i = 0; i < ROWS; i++) {
+        int s = NTR_RESTRICT_500ML + 100;
+        int st = ntr_restriction_from_ratio(a1[i], &s);
+        assert_int_equal(st, status[i]);
+        if (st == NTR_OK) {
+            assert_int_equal(s, advice[i]);
+        } else {
+            assert_int_equal(advice[i], 0);
+            bad++;
+        }
+    }
+    assert_int_equal(advice[0], NTR_RESTRICT_500_700ML);
+    assert_int_equal(advice[1], NTR_RESTRICT_500_700ML);
+    assert_int_equal(advice[2], NTR_RESTRICT_1000ML);
+    assert_int_equal(advice[3], NTR_RESTRICT_500ML);
+    check_summary(ret, failed, status, ROWS, bad);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(published_values),
+        cmocka_unit_test(null_and_bad_enumerators_write_nothing),
+        cmocka_unit_test(empty_batch_is_ok),
+        cmocka_unit_test(failed_rows_get_nan_and_status),
+        cmocka_unit_test(in_place_output),
+        cmocka_unit_test(osmolality_rows_equal_scalar),
+        cmocka_unit_test(sodium_rows_equal_scalar),
+        cmocka_unit_test(water_rows_equal_scalar),
+        cmocka_unit_test(infusion_rows_equal_scalar),
+        cmocka_unit_test(urine_rows_equal_scalar),
+    };
+    return cmocka_run_group_tests_name("batch", tests, NULL, NULL);
+}
