@@ -1,0 +1,86 @@
+#!/usr/bin/env bash
+# The README's test command: installs whatever Debian/Ubuntu package the
+# tests need and is missing, builds in build-test/ and runs the whole suite.
+# Ends with one line "N passed, N failed, N skipped"; the exit status is
+# non-zero when anything failed.
+#
+#   bash tests/run-all.sh
+set -euo pipefail
+
+# Every Debian package the build and the tests use. Extend this list when a
+# test starts using a new tool or library.
+packages=(
+    meson
+    ninja-build
+    pkg-config
+    gcc
+    g++
+    libc6-dev
+    binutils
+    libcmocka-dev
+    abigail-tools
+    python3
+    python3-periodictable
+)
+
+cd "$(dirname "${BASH_SOURCE[0]}")/.."
+builddir=build-test
+
+# ---- dependencies: apt-get only when something is missing
+missing=()
+for p in "${packages[@]}"; do
+    if ! dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'ok installed'; then
+        missing+=("$p")
+    fi
+done
+if [[ ${#missing[@]} -gt 0 ]]; then
+    echo "Installing missing packages: ${missing[*]}"
+    if [[ $(id -u) -eq 0 ]]; then
+        as_root=()
+    elif command -v sudo >/dev/null 2>&1; then
+        as_root=(sudo)
+    else
+        echo "Not root and no sudo: please install ${missing[*]}" >&2
+        exit 1
+    fi
+    "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update
+    "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y "${missing[@]}"
+fi
+
+# ---- configure (debugoptimized: the ABI check needs -g), build, test
+if [[ -f "$builddir/meson-private/coredata.dat" ]]; then
+    meson setup --reconfigure "$builddir" -Dbuildtype=debugoptimized \
+        || meson setup --wipe "$builddir" -Dbuildtype=debugoptimized
+else
+    rm -rf "$builddir"
+    meson setup "$builddir" -Dbuildtype=debugoptimized
+fi
+ninja -C "$builddir"
+
+test_status=0
+meson test -C "$builddir" --print-errorlogs --num-processes 2 || test_status=$?
+
+# ---- summary from meson's machine-readable log (one JSON object a line)
+summary=$(python3 - "$builddir/meson-logs/testlog.json" <<'EOF'
+import json, sys
+counts = {"passed": 0, "failed": 0, "skipped": 0}
+with open(sys.argv[1], encoding="utf-8") as log:
+    for line in log:
+        if not line.strip():
+            continue
+        result = json.loads(line)["result"]
+        if result in ("OK", "EXPECTEDFAIL"):
+            counts["passed"] += 1
+        elif result == "SKIP":
+            counts["skipped"] += 1
+        else:  # FAIL, ERROR, TIMEOUT, UNEXPECTEDPASS, ...
+            counts["failed"] += 1
+print(f"{counts['passed']} passed, {counts['failed']} failed, {counts['skipped']} skipped")
+sys.exit(1 if counts["failed"] else 0)
+EOF
+) && summary_status=0 || summary_status=$?
+echo "$summary"
+
+if [[ $test_status -ne 0 || $summary_status -ne 0 ]]; then
+    exit 1
+fi
