@@ -1,0 +1,33 @@
+#!/usr/bin/env bash
+# Short fuzzing run (part of tests/run-all.sh): builds the libFuzzer driver
+# tests/fuzz/fuzz_natremia.c with ASan+UBSan and runs it for a few seconds
+# per public function, starting from one seed per function so every entry
+# point is reached from the first second. Fails on any contract breach or
+# sanitizer report. Figures for long runs: tests/fuzz-long.sh,
+# docs/reliability.md.
+#
+# Environment: NTR_BUILD_PREFIX (default "build") names the build dir
+# (<prefix>-fuzz); NTR_FUZZ_SECONDS_PER_TARGET (default 1) sets the budget.
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+out="${NTR_BUILD_PREFIX:-build}-fuzz"
+per="${NTR_FUZZ_SECONDS_PER_TARGET:-1}"
+
+tests/fuzz/build.sh "$out" >/dev/null
+corpus="$out/corpus-short"
+rm -rf "$corpus" && mkdir -p "$corpus"
+n_seeds=$(tests/fuzz/seeds.sh "$out/fuzz_natremia" "$corpus")
+total=$(( per * n_seeds ))
+[ "$total" -lt 10 ] && total=10
+
+log="$out/fuzz-short.log"
+echo "fuzz-short: $n_seeds entry points, ${total}s, seed 1"
+if ! "$out/fuzz_natremia" -max_total_time="$total" -seed=1 -print_final_stats=1 \
+      -timeout=10 -rss_limit_mb=1024 -artifact_prefix="$out/" "$corpus" >"$log" 2>&1; then
+  tail -n 40 "$log"
+  echo "fuzz-short: FAILED (crash input saved under $out/)"
+  exit 1
+fi
+runs=$(sed -n 's/^stat::number_of_executed_units: *//p' "$log")
+echo "fuzz-short: ${runs} executions in ${total}s, no contract breach, no sanitizer report"
