@@ -1,0 +1,44 @@
+"""natremia: sodium and water arithmetic for clinical software.
+
+A ctypes binding of the natremia C library. Scalar functions live here
+(``natremia.osm_calculated(na_mmol_l=..., glucose_mmol_l=..., ...)``);
+numpy array versions that call the C batch entry points live in
+``natremia.arrays`` (imported on first use, so numpy stays optional).
+
+Every result is an estimate for decision support, not an order. Verify
+with measured values; follow local protocols and licensed clinical
+judgement.
+"""
+
+from ._core import (  # noqa: F401
+    OK, ERR_NULL, ERR_NONFINITE, ERR_RANGE, ERR_UNIT, ERR_DOMAIN, ERR_ORDER,
+    ERR_CAPACITY, ERR_ARG, STATUS_NAMES,
+    NatremiaError, status_name, status_message, version, method_info, methods,
+    MethodInfo,
+    Unit, Analyte, OsmFormula, GlucoseMethod, Sex, Fluid, Restriction,
+    LimitsPreset, CorrectionFlag, OdsFactor,
+    unit_parse, convert,
+    osm_calculated, osm_effective, osm_gap,
+    na_corrected_glucose, na_corrected_glucose_factor, na_deficit,
+    tbw_fraction, tbw_watson, free_water_deficit,
+    FluidComposition, fluid_preset, infusate_change_per_litre, infusate_change,
+    infusate_volume_for_change,
+    furst_ratio, restriction_from_ratio, efwc,
+    Limits, Correction, limits_preset, ods_risk, OdsRisk, correction_assess,
+    Watch,
+    Flow, TimedFlow, BalanceResult, balance_predict, balance_course,
+    PlanResult, plan_check, RelowerEstimate, relower_estimate,
+)
+
+__version__ = "1.0.0"
+
+CAUTION = ("Estimates for decision support, not orders. Verify with measured "
+           "values; follow local protocols and licensed clinical judgement.")
+
+
+def __getattr__(name):
+    # natremia.arrays needs numpy: load it only when asked for.
+    if name == "arrays":
+        import importlib
+        return importlib.import_module(".arrays", __name__)
+    raise AttributeError("module 'natremia' has no attribute %r" % (name,))

@@ -1,0 +1,733 @@
+"""Scalar API: one Python function per C function, names without the ntr_
+prefix, keyword-only arguments whose names carry their units.
+
+Every call checks the C status and raises NatremiaError on anything but
+NTR_OK, so a result that comes back is always a valid one.
+"""
+
+import ctypes
+import enum
+from collections import namedtuple
+from dataclasses import dataclass
+
+from ._loader import load
+
+_lib = load()
+
+c_double = ctypes.c_double
+c_int = ctypes.c_int
+c_uint = ctypes.c_uint
+c_size_t = ctypes.c_size_t
+c_char_p = ctypes.c_char_p
+_P = ctypes.POINTER
+
+# ---------------------------------------------------------------------------
+# Status codes and the exception
+# ---------------------------------------------------------------------------
+
+OK = 0
+ERR_NULL = 1
+ERR_NONFINITE = 2
+ERR_RANGE = 3
+ERR_UNIT = 4
+ERR_DOMAIN = 5
+ERR_ORDER = 6
+ERR_CAPACITY = 7
+ERR_ARG = 8
+
+STATUS_NAMES = {
+    OK: "NTR_OK",
+    ERR_NULL: "NTR_ERR_NULL",
+    ERR_NONFINITE: "NTR_ERR_NONFINITE",
+    ERR_RANGE: "NTR_ERR_RANGE",
+    ERR_UNIT: "NTR_ERR_UNIT",
+    ERR_DOMAIN: "NTR_ERR_DOMAIN",
+    ERR_ORDER: "NTR_ERR_ORDER",
+    ERR_CAPACITY: "NTR_ERR_CAPACITY",
+    ERR_ARG: "NTR_ERR_ARG",
+}
+
+
+def status_name(status):
+    """The C name of a status code, e.g. 'NTR_ERR_RANGE'."""
+    return STATUS_NAMES.get(int(status), "unknown status %d" % int(status))
+
+
+def status_message(status):
+    """The library's short English description of a status code."""
+    return _fn("ntr_status_message")(int(status)).decode("ascii")
+
+
+class NatremiaError(ValueError):
+    """A natremia function refused its inputs.
+
+    Attributes: ``status`` (the C status code), ``status_name`` (such as
+    'NTR_ERR_RANGE'), ``message`` (the library's description), ``function``
+    (the Python name that failed) and, for array functions, ``row`` (index
+    of the first failing row in the flattened input) and ``failed`` (how many
+    rows failed). ``detail`` holds any extra explanation from the binding.
+    """
+
+    def __init__(self, status, function, detail=None, row=None, failed=None):
+        self.status = int(status)
+        self.status_name = status_name(status)
+        self.message = status_message(status)
+        self.function = function
+        self.detail = detail
+        self.row = row
+        self.failed = failed
+        text = "%s: %s (%s)" % (function, self.status_name, self.message)
+        if row is not None:
+            text += "; first failing row %d, %d row(s) failed" % (row, failed)
+        if detail:
+            text += ": " + detail
+        super().__init__(text)
+
+
+def _check(status, function):
+    if status != OK:
+        raise NatremiaError(status, function)
+
+
+# ---------------------------------------------------------------------------
+# C structures (layouts mirror include/natremia.h, which is ABI)
+# ---------------------------------------------------------------------------
+
+class SampleStruct(ctypes.Structure):
+    _fields_ = [("hours", c_double), ("na_mmol_l", c_double)]
+
+
+class LimitsStruct(ctypes.Structure):
+    _fields_ = [("max_rise_24h", c_double), ("max_rise_48h", c_double),
+                ("min_rise_24h", c_double)]
+
+
+class CorrectionStruct(ctypes.Structure):
+    _fields_ = [("rise_first_24h", c_double), ("max_rise_24h", c_double),
+                ("max_rise_48h", c_double), ("last_rate_per_h", c_double),
+                ("excess_mmol_l", c_double), ("flags", c_uint),
+                ("reserved", c_uint)]
+
+
+class FlowStruct(ctypes.Structure):
+    _fields_ = [("volume_l", c_double), ("na_mmol_l", c_double),
+                ("k_mmol_l", c_double)]
+
+
+class TimedFlowStruct(ctypes.Structure):
+    _fields_ = [("start_h", c_double), ("end_h", c_double),
+                ("rate_ml_h", c_double), ("na_mmol_l", c_double),
+                ("k_mmol_l", c_double), ("reserved", c_uint * 2)]
+
+
+class PlanResultStruct(ctypes.Structure):
+    _fields_ = [("course", CorrectionStruct), ("final_na_mmol_l", c_double),
+                ("final_tbw_l", c_double), ("breach_24h_h", c_double),
+                ("breach_48h_h", c_double), ("reserved_d", c_double * 2),
+                ("points", c_uint), ("reserved", c_uint)]
+
+
+WATCH_CAPACITY = 128
+
+
+class WatchStruct(ctypes.Structure):
+    """Opaque to Python; the layout only fixes its size and alignment."""
+    _fields_ = [("private_u", c_uint * 8), ("limits", LimitsStruct),
+                ("first", SampleStruct), ("prev", SampleStruct),
+                ("last", SampleStruct), ("private_d", c_double * 6),
+                ("ring", SampleStruct * WATCH_CAPACITY)]
+
+
+class MethodInfoStruct(ctypes.Structure):
+    _fields_ = [("method", c_int), ("reserved_int", c_int),
+                ("name", c_char_p), ("equation", c_char_p),
+                ("reference", c_char_p), ("population", c_char_p),
+                ("reserved", c_char_p * 4)]
+
+
+# ---------------------------------------------------------------------------
+# Prototypes, declared on first use (so a library without some later
+# function still serves every other one)
+# ---------------------------------------------------------------------------
+
+_D = c_double
+_PD = _P(c_double)
+_PI = _P(c_int)
+_PU = _P(c_uint)
+_PSZ = _P(c_size_t)
+
+_PROTOTYPES = {
+    "ntr_status_message": (c_char_p, [c_int]),
+    "ntr_version_string": (c_char_p, []),
+    "ntr_version_number": (ctypes.c_ulong, []),
+    "ntr_unit_parse": (c_int, [c_char_p, _PI]),
+    "ntr_convert": (c_int, [c_int, _D, c_int, c_int, _PD]),
+    "ntr_osm_calculated": (c_int, [_D, _D, _D, _D, c_int, _PD]),
+    "ntr_osm_effective": (c_int, [_D, _D, _PD]),
+    "ntr_osm_gap": (c_int, [_D, _D, _PD]),
+    "ntr_na_corrected_glucose": (c_int, [_D, _D, c_int, _PD]),
+    "ntr_na_corrected_glucose_factor": (c_int, [_D, _D, _D, _PD]),
+    "ntr_na_deficit": (c_int, [_D, _D, _D, _PD]),
+    "ntr_tbw_fraction": (c_int, [c_int, _D, _D, _PD]),
+    "ntr_tbw_watson": (c_int, [c_int, _D, _D, _D, _PD]),
+    "ntr_free_water_deficit": (c_int, [_D, _D, _PD]),
+    "ntr_fluid_preset": (c_int, [c_int, _PD, _PD]),
+    "ntr_infusate_change_per_litre": (c_int, [_D, _D, _D, _D, _PD]),
+    "ntr_infusate_change": (c_int, [_D, _D, _D, _D, _D, _PD]),
+    "ntr_infusate_volume_for_change": (c_int, [_D, _D, _D, _D, _D, _PD]),
+    "ntr_furst_ratio": (c_int, [_D, _D, _D, _PD]),
+    "ntr_restriction_from_ratio": (c_int, [_D, _PI]),
+    "ntr_efwc": (c_int, [_D, _D, _D, _D, _PD]),
+    "ntr_method_info": (c_int, [c_int, _P(MethodInfoStruct)]),
+    "ntr_method_next": (c_int, [c_int, _PI]),
+    "ntr_limits_preset": (c_int, [c_int, _P(LimitsStruct)]),
+    "ntr_ods_risk": (c_int, [_D, c_int, c_int, c_int, c_int, _PI, _PU, _PU]),
+    "ntr_correction_assess": (c_int, [_P(SampleStruct), c_size_t,
+                                      _P(LimitsStruct), _P(CorrectionStruct)]),
+    "ntr_watch_init": (c_int, [_P(LimitsStruct), _P(WatchStruct)]),
+    "ntr_watch_push": (c_int, [_P(WatchStruct), _D, _D, _P(CorrectionStruct)]),
+    "ntr_watch_result": (c_int, [_P(WatchStruct), _P(CorrectionStruct)]),
+    "ntr_balance_predict": (c_int, [_D, _D, _P(FlowStruct), c_size_t, _PD, _PD]),
+    "ntr_balance_course": (c_int, [_D, _D, _P(TimedFlowStruct), c_size_t, _D,
+                                   _D, _P(SampleStruct), c_size_t, _PSZ]),
+    "ntr_plan_check": (c_int, [_P(SampleStruct), c_size_t, _D,
+                               _P(TimedFlowStruct), c_size_t, _D, _D,
+                               _P(LimitsStruct), _P(PlanResultStruct)]),
+    "ntr_relower_estimate": (c_int, [_D, _D, _D, _D, _D, _D, _D, _D, _D, _PD,
+                                     _PD]),
+}
+
+_declared = {}
+
+
+def _fn(cname):
+    """The C function, with its prototype declared."""
+    fn = _declared.get(cname)
+    if fn is None:
+        try:
+            fn = getattr(_lib, cname)
+        except AttributeError:
+            raise AttributeError(
+                "%s is not in the loaded libnatremia (version %s); update the "
+                "library" % (cname, version())) from None
+        restype, argtypes = _PROTOTYPES[cname]
+        fn.restype = restype
+        fn.argtypes = argtypes
+        _declared[cname] = fn
+    return fn
+
+
+def _lib_function(cname):
+    """The raw CDLL attribute (used by natremia.arrays, which declares its
+    own prototypes)."""
+    return getattr(_lib, cname)
+
+
+def _double_result(cname, pyname, *args):
+    out = c_double()
+    _check(_fn(cname)(*args, ctypes.byref(out)), pyname)
+    return out.value
+
+
+# ---------------------------------------------------------------------------
+# Enumerators: IntEnum members, their int values, or their names as strings
+# ---------------------------------------------------------------------------
+
+class Unit(enum.IntEnum):
+    MMOL_L = 1
+    MG_DL = 2
+    MEQ_L = 3
+    MOSM_KG = 4
+    G_L = 5
+    UMOL_L = 6
+
+
+class Analyte(enum.IntEnum):
+    SODIUM = 1
+    POTASSIUM = 2
+    CHLORIDE = 3
+    GLUCOSE = 4
+    UREA = 5
+    UREA_NITROGEN = 6
+    CREATININE = 7
+    ETHANOL = 8
+
+
+class OsmFormula(enum.IntEnum):
+    TWO_NA = 1
+    DORWART_CHALMERS = 2
+
+
+class GlucoseMethod(enum.IntEnum):
+    KATZ = 1
+    HILLIER = 2
+
+
+class Sex(enum.IntEnum):
+    MALE = 1
+    FEMALE = 2
+
+
+class Fluid(enum.IntEnum):
+    NACL_0_9 = 1
+    NACL_3 = 2
+    NACL_5 = 3
+    NACL_0_45 = 4
+    RINGER_LACTATE = 5
+    DEXTROSE_5 = 6
+    NACL_0_2_DEXTROSE_5 = 7
+
+
+class Restriction(enum.IntEnum):
+    """Fluid restriction advice from the Furst ratio."""
+    UNDER_1000_ML = 1
+    FROM_500_TO_700_ML = 2
+    UNDER_500_ML = 3
+
+
+class LimitsPreset(enum.IntEnum):
+    STANDARD = 1
+    HIGH_RISK = 2
+
+
+class CorrectionFlag(enum.IntFlag):
+    """Bits of Correction.flags (NTR_CF_* in the C header)."""
+    NONE = 0
+    OVER_24H = 1
+    OVER_48H = 2
+    BELOW_TARGET = 4
+    FALLING = 8
+    NEAR_LIMIT = 16
+    PROJECTED_OVER = 32
+    RAPID_6H = 64
+
+
+class OdsFactor(enum.IntFlag):
+    """Risk factors for osmotic demyelination (NTR_ODS_* bits)."""
+    NONE = 0
+    NA_105 = 1
+    LOW_K = 2
+    ALCOHOL = 4
+    MALNUTRITION = 8
+    LIVER = 16
+
+
+# Extra spellings accepted for string enumerators.
+_ALIASES = {
+    OsmFormula: {"2na": OsmFormula.TWO_NA, "2*na": OsmFormula.TWO_NA},
+    Sex: {"m": Sex.MALE, "f": Sex.FEMALE},
+    Unit: {"mmol/l": Unit.MMOL_L, "mg/dl": Unit.MG_DL, "meq/l": Unit.MEQ_L,
+           "mosm/kg": Unit.MOSM_KG, "g/l": Unit.G_L, "umol/l": Unit.UMOL_L},
+}
+
+
+def _enum(cls, value, argname, function):
+    """An enumerator as int: a member, an int, or a (case-blind) name."""
+    if isinstance(value, str):
+        key = value.strip().lower()
+        alias = _ALIASES.get(cls, {}).get(key)
+        if alias is not None:
+            return int(alias)
+        for member in cls:
+            if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
+                return int(member)
+        raise NatremiaError(ERR_ARG, function, "unknown %s %r; one of %s" % (
+            argname, value, ", ".join(m.name.lower() for m in cls)))
+    return int(value)
+
+
+# ---------------------------------------------------------------------------
+# Version and provenance
+# ---------------------------------------------------------------------------
+
+def version():
+    """The loaded library's version string, "MAJOR.MINOR.PATCH"."""
+    return _fn("ntr_version_string")().decode("ascii")
+
+
+MethodInfo = namedtuple("MethodInfo",
+                        "method name equation reference population")
+
+
+def method_info(method):
+    """Name, equation, reference and population of an NTR_METHOD_* id."""
+    info = MethodInfoStruct()
+    _check(_fn("ntr_method_info")(int(method), ctypes.byref(info)),
+           "method_info")
+    return MethodInfo(info.method, info.name.decode(), info.equation.decode(),
+                      info.reference.decode(), info.population.decode())
+
+
+def methods():
+    """Every method id the loaded library knows, in increasing order."""
+    ids = []
+    current = c_int(0)
+    while _fn("ntr_method_next")(current.value, ctypes.byref(current)) == OK:
+        ids.append(current.value)
+    return ids
+
+
+# ---------------------------------------------------------------------------
+# Units
+# ---------------------------------------------------------------------------
+
+def unit_parse(ucum):
+    """The Unit of a case-sensitive UCUM code such as "mmol/L"."""
+    out = c_int()
+    _check(_fn("ntr_unit_parse")(ucum.encode("ascii"), ctypes.byref(out)),
+           "unit_parse")
+    return Unit(out.value)
+
+
+def _unit(value, function):
+    if isinstance(value, str) and "/" in value:
+        return int(unit_parse(value))  # exact UCUM codes first
+    return _enum(Unit, value, "unit", function)
+
+
+def convert(value, *, analyte, from_unit, to_unit):
+    """A laboratory value of an analyte converted between units.
+
+    Units are Unit members, ints or UCUM codes ("mg/dL"); analytes are
+    Analyte members, ints or names ("glucose")."""
+    fn = "convert"
+    return _double_result("ntr_convert", fn, _enum(Analyte, analyte, "analyte", fn),
+                          value, _unit(from_unit, fn), _unit(to_unit, fn))
+
+
+# ---------------------------------------------------------------------------
+# Core formulas
+# ---------------------------------------------------------------------------
+
+def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0,
+                   formula=OsmFormula.TWO_NA):
+    """Calculated serum osmolality, mOsm/kg ("2na" or "dorwart_chalmers")."""
+    fn = "osm_calculated"
+    return _double_result("ntr_osm_calculated", fn, na_mmol_l, glucose_mmol_l,
+                          urea_mmol_l, ethanol_mmol_l,
+                          _enum(OsmFormula, formula, "formula", fn))
+
+
+def osm_effective(*, na_mmol_l, glucose_mmol_l):
+    """Effective osmolality (tonicity) 2*Na + glucose, mOsm/kg."""
+    return _double_result("ntr_osm_effective", "osm_effective", na_mmol_l,
+                          glucose_mmol_l)
+
+
+def osm_gap(*, measured_mosm_kg, calculated_mosm_kg):
+    """Osmolal gap, measured minus calculated, mOsm/kg."""
+    return _double_result("ntr_osm_gap", "osm_gap", measured_mosm_kg,
+                          calculated_mosm_kg)
+
+
+def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ):
+    """Sodium corrected for hyperglycaemia ("katz" 1.6 or "hillier" 2.4)."""
+    fn = "na_corrected_glucose"
+    return _double_result("ntr_na_corrected_glucose", fn, na_mmol_l,
+                          glucose_mmol_l,
+                          _enum(GlucoseMethod, method, "method", fn))
+
+
+def na_corrected_glucose_factor(*, na_mmol_l, glucose_mmol_l,
+                                factor_per_100mg_dl):
+    """Sodium corrected for hyperglycaemia with a caller's factor."""
+    return _double_result("ntr_na_corrected_glucose_factor",
+                          "na_corrected_glucose_factor", na_mmol_l,
+                          glucose_mmol_l, factor_per_100mg_dl)
+
+
+def na_deficit(*, tbw_l, na_mmol_l, target_na_mmol_l):
+    """Sodium needed to reach a target, TBW*(target - Na), mmol."""
+    return _double_result("ntr_na_deficit", "na_deficit", tbw_l, na_mmol_l,
+                          target_na_mmol_l)
+
+
+def tbw_fraction(*, sex, age_years, weight_kg):
+    """Total body water as a fraction of weight (Adrogue-Madias), L."""
+    fn = "tbw_fraction"
+    return _double_result("ntr_tbw_fraction", fn, _enum(Sex, sex, "sex", fn),
+                          age_years, weight_kg)
+
+
+def tbw_watson(*, sex, age_years, height_cm, weight_kg):
+    """Total body water by the Watson equations (adults), L."""
+    fn = "tbw_watson"
+    return _double_result("ntr_tbw_watson", fn, _enum(Sex, sex, "sex", fn),
+                          age_years, height_cm, weight_kg)
+
+
+def free_water_deficit(*, tbw_l, na_mmol_l):
+    """Free-water deficit TBW*(Na/140 - 1), L."""
+    return _double_result("ntr_free_water_deficit", "free_water_deficit",
+                          tbw_l, na_mmol_l)
+
+
+FluidComposition = namedtuple("FluidComposition", "na_mmol_l k_mmol_l")
+
+
+def fluid_preset(fluid):
+    """Sodium and potassium of a common infusate (Fluid member or name)."""
+    na, k = c_double(), c_double()
+    fn = "fluid_preset"
+    _check(_fn("ntr_fluid_preset")(_enum(Fluid, fluid, "fluid", fn),
+                                   ctypes.byref(na), ctypes.byref(k)), fn)
+    return FluidComposition(na.value, k.value)
+
+
+def infusate_change_per_litre(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
+                              infusate_k_mmol_l=0.0):
+    """Change in serum sodium from 1 L of infusate (Adrogue-Madias), mmol/L."""
+    return _double_result("ntr_infusate_change_per_litre",
+                          "infusate_change_per_litre", na_mmol_l, tbw_l,
+                          infusate_na_mmol_l, infusate_k_mmol_l)
+
+
+def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
+                    infusate_k_mmol_l=0.0):
+    """Change in serum sodium from any volume of infusate, mmol/L."""
+    return _double_result("ntr_infusate_change", "infusate_change", na_mmol_l,
+                          tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
+                          volume_l)
+
+
+def infusate_volume_for_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
+                               target_delta_mmol_l, infusate_k_mmol_l=0.0):
+    """Volume of infusate expected to change sodium by a target, L."""
+    return _double_result("ntr_infusate_volume_for_change",
+                          "infusate_volume_for_change", na_mmol_l, tbw_l,
+                          infusate_na_mmol_l, infusate_k_mmol_l,
+                          target_delta_mmol_l)
+
+
+def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
+    """The Furst ratio (U_Na + U_K) / S_Na."""
+    return _double_result("ntr_furst_ratio", "furst_ratio", urine_na_mmol_l,
+                          urine_k_mmol_l, serum_na_mmol_l)
+
+
+def restriction_from_ratio(ratio):
+    """Fluid restriction advice (a Restriction) for a Furst ratio."""
+    out = c_int()
+    _check(_fn("ntr_restriction_from_ratio")(ratio, ctypes.byref(out)),
+           "restriction_from_ratio")
+    return Restriction(out.value)
+
+
+def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
+    """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L."""
+    return _double_result("ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
+                          urine_k_mmol_l, serum_na_mmol_l)
+
+
+# ---------------------------------------------------------------------------
+# Correction safety
+# ---------------------------------------------------------------------------
+
+@dataclass(frozen=True)
+class Limits:
+    """Limits on the rise of serum sodium, mmol/L."""
+    max_rise_24h: float
+    max_rise_48h: float
+    min_rise_24h: float
+
+    def _struct(self):
+        return LimitsStruct(self.max_rise_24h, self.max_rise_48h,
+                            self.min_rise_24h)
+
+
+@dataclass(frozen=True)
+class Correction:
+    """What the assessment of a sodium series found (mmol/L, mmol/L/h)."""
+    rise_first_24h: float
+    max_rise_24h: float
+    max_rise_48h: float
+    last_rate_per_h: float
+    excess_mmol_l: float
+    flags: CorrectionFlag
+
+    @classmethod
+    def _from_struct(cls, s):
+        return cls(s.rise_first_24h, s.max_rise_24h, s.max_rise_48h,
+                   s.last_rate_per_h, s.excess_mmol_l, CorrectionFlag(s.flags))
+
+
+def limits_preset(preset=LimitsPreset.STANDARD):
+    """Preset limits ("standard" or "high_risk") as a Limits."""
+    out = LimitsStruct()
+    fn = "limits_preset"
+    _check(_fn("ntr_limits_preset")(_enum(LimitsPreset, preset, "preset", fn),
+                                    ctypes.byref(out)), fn)
+    return Limits(out.max_rise_24h, out.max_rise_48h, out.min_rise_24h)
+
+
+def _limits_struct(limits):
+    """A LimitsStruct from a Limits, a preset (member, int or name), or a
+    (max_24h, max_48h, min_24h) triple."""
+    if isinstance(limits, Limits):
+        return limits._struct()
+    if isinstance(limits, (str, int, LimitsPreset)):
+        return limits_preset(limits)._struct()
+    return Limits(*limits)._struct()
+
+
+OdsRisk = namedtuple("OdsRisk", "preset drivers unknowns")
+
+
+def _tri(value):
+    return {None: 0, False: 1, True: 2}[None if value is None else bool(value)]
+
+
+def ods_risk(*, baseline_na_mmol_l, low_potassium=None, alcohol_use_disorder=None,
+             malnutrition=None, advanced_liver_disease=None):
+    """Whether the high-risk limits apply. Each factor is True (present),
+    False (absent) or None (not known: counts as a risk)."""
+    preset, drivers, unknowns = c_int(), c_uint(), c_uint()
+    _check(_fn("ntr_ods_risk")(baseline_na_mmol_l, _tri(low_potassium),
+                               _tri(alcohol_use_disorder), _tri(malnutrition),
+                               _tri(advanced_liver_disease),
+                               ctypes.byref(preset), ctypes.byref(drivers),
+                               ctypes.byref(unknowns)), "ods_risk")
+    return OdsRisk(LimitsPreset(preset.value), OdsFactor(drivers.value),
+                   OdsFactor(unknowns.value))
+
+
+def _samples(hours, na_mmol_l, function):
+    hours = list(hours)
+    na = list(na_mmol_l)
+    if len(hours) != len(na):
+        raise NatremiaError(ERR_ARG, function, "hours and na_mmol_l differ in "
+                            "length (%d and %d)" % (len(hours), len(na)))
+    array = (SampleStruct * max(len(hours), 1))()
+    for i, (t, v) in enumerate(zip(hours, na)):
+        array[i].hours = t
+        array[i].na_mmol_l = v
+    return array, len(hours)
+
+
+def correction_assess(*, hours, na_mmol_l, limits=LimitsPreset.STANDARD):
+    """Assess a measured sodium series (times in hours, non-decreasing)
+    against correction limits; returns a Correction."""
+    fn = "correction_assess"
+    samples, n = _samples(hours, na_mmol_l, fn)
+    lim = _limits_struct(limits)
+    out = CorrectionStruct()
+    _check(_fn("ntr_correction_assess")(samples, n, ctypes.byref(lim),
+                                        ctypes.byref(out)), fn)
+    return Correction._from_struct(out)
+
+
+class Watch:
+    """Streaming watcher: push one result at a time, get the assessment of
+    the series so far (equal to correction_assess on the same samples)."""
+
+    def __init__(self, limits=LimitsPreset.STANDARD):
+        self._state = WatchStruct()
+        lim = _limits_struct(limits)
+        _check(_fn("ntr_watch_init")(ctypes.byref(lim),
+                                     ctypes.byref(self._state)), "Watch")
+
+    def push(self, *, hours, na_mmol_l):
+        out = CorrectionStruct()
+        _check(_fn("ntr_watch_push")(ctypes.byref(self._state), hours,
+                                     na_mmol_l, ctypes.byref(out)),
+               "Watch.push")
+        return Correction._from_struct(out)
+
+    def result(self):
+        out = CorrectionStruct()
+        _check(_fn("ntr_watch_result")(ctypes.byref(self._state),
+                                       ctypes.byref(out)), "Watch.result")
+        return Correction._from_struct(out)
+
+
+# ---------------------------------------------------------------------------
+# Balance and plans
+# ---------------------------------------------------------------------------
+
+Flow = namedtuple("Flow", "volume_l na_mmol_l k_mmol_l", defaults=(0.0,))
+TimedFlow = namedtuple("TimedFlow", "start_h end_h rate_ml_h na_mmol_l k_mmol_l",
+                       defaults=(0.0,))
+BalanceResult = namedtuple("BalanceResult", "na_mmol_l tbw_l")
+
+
+def balance_predict(*, na_mmol_l, tbw_l, flows):
+    """Sodium and body water after gains (volume_l > 0) and losses (< 0);
+    flows are Flow(volume_l, na_mmol_l, k_mmol_l) or plain triples."""
+    flows = [Flow(*f) for f in flows]
+    array = (FlowStruct * max(len(flows), 1))(*[FlowStruct(*f) for f in flows])
+    na, tbw = c_double(), c_double()
+    _check(_fn("ntr_balance_predict")(na_mmol_l, tbw_l, array, len(flows),
+                                      ctypes.byref(na), ctypes.byref(tbw)),
+           "balance_predict")
+    return BalanceResult(na.value, tbw.value)
+
+
+def _timed_flows(flows):
+    flows = [TimedFlow(*f) for f in flows]
+    array = (TimedFlowStruct * max(len(flows), 1))(
+        *[TimedFlowStruct(f.start_h, f.end_h, f.rate_ml_h, f.na_mmol_l,
+                          f.k_mmol_l) for f in flows])
+    return array, len(flows)
+
+
+def balance_course(*, na_mmol_l, tbw_l, flows, duration_h, step_h):
+    """Predicted (hours, na_mmol_l) points under rate-based flows
+    (TimedFlow(start_h, end_h, rate_ml_h, na_mmol_l, k_mmol_l))."""
+    fn = "balance_course"
+    array, n = _timed_flows(flows)
+    count = c_size_t()
+    status = _fn("ntr_balance_course")(na_mmol_l, tbw_l, array, n, duration_h,
+                                       step_h, None, 0, ctypes.byref(count))
+    if status not in (OK, ERR_CAPACITY):
+        raise NatremiaError(status, fn)
+    series = (SampleStruct * max(count.value, 1))()
+    _check(_fn("ntr_balance_course")(na_mmol_l, tbw_l, array, n, duration_h,
+                                     step_h, series, count.value,
+                                     ctypes.byref(count)), fn)
+    return [(series[i].hours, series[i].na_mmol_l) for i in range(count.value)]
+
+
+@dataclass(frozen=True)
+class PlanResult:
+    course: Correction
+    final_na_mmol_l: float
+    final_tbw_l: float
+    breach_24h_h: object  # hours after the plan starts, or None
+    breach_48h_h: object
+    points: int
+
+
+def plan_check(*, history_hours, history_na_mmol_l, tbw_l, flows, duration_h,
+               step_h, limits=LimitsPreset.STANDARD):
+    """Check a fluid plan against the correction limits before giving it."""
+    fn = "plan_check"
+    history, n_history = _samples(history_hours, history_na_mmol_l, fn)
+    array, n = _timed_flows(flows)
+    lim = _limits_struct(limits)
+    out = PlanResultStruct()
+    _check(_fn("ntr_plan_check")(history, n_history, tbw_l, array, n,
+                                 duration_h, step_h, ctypes.byref(lim),
+                                 ctypes.byref(out)), fn)
+
+    def breach(h):
+        return None if h < 0 else h
+
+    return PlanResult(Correction._from_struct(out.course), out.final_na_mmol_l,
+                      out.final_tbw_l, breach(out.breach_24h_h),
+                      breach(out.breach_48h_h), out.points)
+
+
+RelowerEstimate = namedtuple("RelowerEstimate", "volume_l rate_ml_h")
+
+
+def relower_estimate(*, na_mmol_l, tbw_l, fluid_na_mmol_l, lower_by_mmol_l,
+                     hours, fluid_k_mmol_l=0.0, urine_ml_h=0.0,
+                     urine_na_mmol_l=0.0, urine_k_mmol_l=0.0):
+    """Fluid needed to bring sodium back down by lower_by_mmol_l."""
+    volume, rate = c_double(), c_double()
+    _check(_fn("ntr_relower_estimate")(na_mmol_l, tbw_l, fluid_na_mmol_l,
+                                       fluid_k_mmol_l, lower_by_mmol_l, hours,
+                                       urine_ml_h, urine_na_mmol_l,
+                                       urine_k_mmol_l, ctypes.byref(volume),
+                                       ctypes.byref(rate)), "relower_estimate")
+    return RelowerEstimate(volume.value, rate.value)
