@@ -21,6 +21,17 @@ packages=(
     abigail-tools
     python3
     python3-periodictable
+    python3-numpy
+    python3-hypothesis
+    python3-setuptools
+    python3-wheel
+    python3-pip
+    python3-venv
+    python3-dask
+    python3-distributed
+    make
+    postgresql-15
+    postgresql-server-dev-15
 )
 
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
