@@ -7,7 +7,6 @@
 #define GLUCOSE_REFERENCE_MG_DL 100.0
 #define KATZ_FACTOR 1.6
 #define HILLIER_FACTOR 2.4
-#define FACTOR_MAX 5.0
 
 static double corrected(double na_mmol_l, double glucose_mmol_l, double factor)
 {
@@ -27,7 +26,7 @@ int ntr_na_corrected_glucose_factor(double na_mmol_l, double glucose_mmol_l,
     }
     NTR_TRY(ntr_check_na(na_mmol_l));
     NTR_TRY(ntr_check(glucose_mmol_l, 0.0, NTR_GLUCOSE_MAX));
-    NTR_TRY(ntr_check(factor_per_100mg_dl, 0.0, FACTOR_MAX));
+    NTR_TRY(ntr_check(factor_per_100mg_dl, 0.0, NTR_GLUCOSE_FACTOR_MAX));
     *na_corrected_mmol_l = corrected(na_mmol_l, glucose_mmol_l, factor_per_100mg_dl);
     return NTR_OK;
 }
