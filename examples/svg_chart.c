@@ -6,7 +6,7 @@
 /* Plot area inside the drawing, in pixels; the legend sits to the right. */
 #define PLOT_LEFT 86.0
 #define PLOT_RIGHT 660.0
-#define PLOT_TOP 64.0
+#define PLOT_TOP 72.0
 #define PLOT_BOTTOM 452.0
 #define LEGEND_LEFT 684.0
 
@@ -184,8 +184,12 @@ int chart_write_svg(FILE *out, const chart *c)
             "viewBox=\"0 0 %d %d\" font-family=\"sans-serif\" font-size=\"14\">\n",
             CHART_WIDTH_PX, CHART_HEIGHT_PX, CHART_WIDTH_PX, CHART_HEIGHT_PX);
     fputs("<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n", out);
-    text_at(out, PLOT_LEFT, 36.0, "start", " font-size=\"18\" font-weight=\"bold\"",
+    text_at(out, PLOT_LEFT, 32.0, "start", " font-size=\"18\" font-weight=\"bold\"",
             c->title);
+    if (c->subtitle != NULL) {
+        text_at(out, PLOT_LEFT, 54.0, "start", " font-size=\"13\" fill=\"#444444\"",
+                c->subtitle);
+    }
     draw_axes(out, c);
     draw_band(out, c);
     for (i = 0; i < c->n_lines; ++i) {

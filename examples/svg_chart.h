@@ -43,6 +43,7 @@ typedef struct chart_points {
 
 typedef struct chart {
     const char *title;
+    const char *subtitle;         /* one smaller line under the title; may be NULL */
     const char *caption;          /* one line under the plot; may be NULL */
     double hours_max;             /* x axis runs from 0 to this */
     double na_min, na_max;        /* y axis range, mmol/L */

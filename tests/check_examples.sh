@@ -1,0 +1,204 @@
+#!/usr/bin/env bash
+# Runs the example programs and the demo on known input and checks the
+# numbers they print against published values (P5).
+#
+#   check_examples.sh examples <build/examples>   the small examples and the demo's text
+#   check_examples.sh chart    <build/examples>   the demo's SVG chart, rendered to PNG
+#
+# The chart check needs rsvg-convert (Debian package librsvg2-bin); without
+# it that test is skipped (exit 77). tests/run-all.sh installs it.
+set -euo pipefail
+
+if [[ $# -ne 2 ]]; then
+    echo "usage: $0 examples|chart <build/examples>" >&2
+    exit 1
+fi
+mode=$1
+bin=$(cd "$2" && pwd)
+work=$(mktemp -d)
+trap 'rm -rf "$work"' EXIT
+failures=0
+checks=0
+
+ok() { checks=$((checks + 1)); echo "OK: $*"; }
+fail() { checks=$((checks + 1)); failures=$((failures + 1)); echo "FAIL: $*"; }
+
+# The number printed on the first line matching a pattern: the first
+# number after the last ":", "=" or "->" on that line.
+number_after() { # file pattern
+    grep -m1 -E -- "$2" "$1" | sed -E 's/.*(:|=|->)//' | grep -o -E '[-+]?[0-9]+(\.[0-9]+)?' | head -1
+}
+
+# expect_near file pattern expected tolerance what
+expect_near() {
+    local got
+    got=$(number_after "$1" "$2" || true)
+    if [[ -z "$got" ]]; then
+        fail "$5: no line matching '$2' in the output"
+        return
+    fi
+    if awk -v g="$got" -v e="$3" -v t="$4" 'BEGIN { d = g - e; if (d < 0) d = -d; exit !(d <= t) }'; then
+        ok "$5: $got (expected $3 +- $4)"
+    else
+        fail "$5: got $got, expected $3 +- $4"
+    fi
+}
+
+expect_text() { # file pattern what
+    if grep -q -E -- "$2" "$1"; then ok "$3"; else fail "$3: '$2' not found"; fi
+}
+
+# run_expect_status status output-file program args...
+run_expect_status() {
+    local want=$1 out=$2 rc=0
+    shift 2
+    "$@" > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq $want ]]; then ok "$(basename "$1") exits $want"; else
+        fail "$(basename "$1") ${*:2} exited $rc, expected $want"; cat "$out"; fi
+}
+
+check_osmolality_panel() {
+    local out=$work/osm.txt
+    run_expect_status 0 "$out" "$bin/osmolality_panel" 140 90 mg/dL 14 mg/dL 295
+    # Source: the conventional mg/dL form 2*Na + glucose/18 + BUN/2.8, as
+    # compared by Dorwart & Chalmers, Clin Chem 1975: 280 + 5 + 5 = 290.
+    expect_near "$out" '2 Na \+ glucose \+ urea' 290.0 0.1 "osmolality_panel 2*Na formula"
+    # Source: Dorwart & Chalmers, Clin Chem 1975: 1.86*140 + 5 + 5 + 9 = 279.4.
+    expect_near "$out" 'Dorwart-Chalmers' 279.4 0.1 "osmolality_panel Dorwart-Chalmers"
+    # Source: effective osmolality 2*Na + glucose (Spasovski et al., Eur J
+    # Endocrinol 2014): 280 + 5 = 285.
+    expect_near "$out" 'effective osmolality' 285.0 0.1 "osmolality_panel effective"
+    # Source: osmolal gap = measured - calculated (textbook): 295 - 290 = 5.
+    expect_near "$out" 'osmolal gap' 5.0 0.1 "osmolality_panel gap"
+    expect_text "$out" 'not orders' "osmolality_panel prints the caution"
+
+    run_expect_status 0 "$out" "$bin/osmolality_panel" 128 540 mg/dL 30 mg/dL
+    # Source: Hillier et al., Am J Med 1999, 2.4 mmol/L per 100 mg/dL above
+    # 100: 128 + 2.4 * 4.4 = 138.56.
+    expect_near "$out" 'corrected for glucose' 138.56 0.05 "osmolality_panel Hillier correction"
+
+    run_expect_status 0 "$out" "$bin/osmolality_panel"
+    expect_text "$out" 'invented' "osmolality_panel without arguments says its panel is invented"
+
+    # A unit the analyte does not take, and a value that is not a number.
+    run_expect_status 1 "$out" "$bin/osmolality_panel" 140 90 mg/L 14 mg/dL
+    expect_text "$out" 'unit' "osmolality_panel refuses mg/L"
+    run_expect_status 1 "$out" "$bin/osmolality_panel" 140 ninety mg/dL 14 mg/dL
+}
+
+check_infusion_plan() {
+    local out=$work/inf.txt
+    # A woman under 65 weighing 60 kg: body water 0.5 * 60 = 30 L.
+    run_expect_status 0 "$out" "$bin/infusion_plan" f 40 60 108 saline-3 292
+    # Source: Adrogue & Madias, N Engl J Med 2000: TBW 0.5 * weight.
+    expect_near "$out" 'total body water' 30.0 0.05 "infusion_plan body water"
+    # Source: Adrogue & Madias, N Engl J Med 2000, worked example for 3%
+    # saline (from memory): (513 - 108) / (30 + 1) = 13.1 mmol/L per litre.
+    expect_near "$out" 'change per litre' 13.1 0.05 "infusion_plan Adrogue-Madias per litre"
+    # Source: Furst et al., Am J Med Sci 2000, worked example: sodium 108,
+    # body water 30 L, 292 mL of 3% saline gives about 112 mmol/L.
+    expect_near "$out" 'predicted sodium' 112.0 0.5 "infusion_plan Furst worked example"
+    expect_text "$out" 'not orders' "infusion_plan prints the caution"
+    run_expect_status 1 "$out" "$bin/infusion_plan" f 40 60 108 seawater 292
+    run_expect_status 1 "$out" "$bin/infusion_plan" x 40 60 108 saline-3 292
+}
+
+# watch_series output-file expected-status [high-risk] <<< lines
+watch_series() {
+    local out=$1 want=$2 rc=0
+    shift 2
+    "$bin/correction_watch" "$@" > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq $want ]]; then ok "correction_watch $* exits $want"; else
+        fail "correction_watch $* exited $rc, expected $want"; cat "$out"; fi
+}
+
+check_correction_watch() {
+    local out=$work/watch.txt
+    # Source: Verbalis et al., Am J Med 2013 and Spasovski et al., Eur J
+    # Endocrinol 2014: at most 10 mmol/L in any 24 h, 18 in any 48 h.
+    # 112 -> 121 at 12 h is a rise of 9 (within); 112 -> 122.5 at 18 h is
+    # 10.5 (over); the exit status 1 reports the breach.
+    watch_series "$out" 1 <<< $'# invented series\n0,112\n6,116\n\n12,121\n18,122.5\n24,123.5'
+    expect_text "$out" '^12,121,9\.0,9\.0,[^O]*$' "watch: a rise of 9 in 12 h is within the 24 h limit"
+    expect_text "$out" '^18,122\.5,10\.5,10\.5,.*OVER-24H' "watch: a rise of 10.5 in 18 h is over the 24 h limit"
+    expect_text "$out" 'not orders' "correction_watch prints the caution"
+    # Source: Verbalis et al. 2013, high risk of osmotic demyelination: at
+    # most 8 mmol/L in 24 h. 112 -> 120.5 is 8.5: over at high risk only.
+    watch_series "$out" 1 high-risk <<< $'0,112\n12,119\n24,120.5'
+    expect_text "$out" '^24,120\.5,8\.5,.*OVER-24H' "watch: 8.5 in 24 h is over the high-risk limit"
+    watch_series "$out" 0 <<< $'0,112\n12,119\n24,120.5'
+    expect_text "$out" '^24,120\.5,8\.5,8\.5,[^O]*$' "watch: 8.5 in 24 h is within the standard limit"
+    # Source: as above, 18 in 48 h. 110 -> 119 (9 in 24 h), 119 -> 129
+    # (exactly 10 in the next 24 h: at the limit is not over it), 110 -> 129
+    # is 19 in 48 h: over the 48 h limit.
+    watch_series "$out" 1 <<< $'0,110\n24,119\n48,129'
+    expect_text "$out" '^48,129,10\.0,19\.0,.*OVER-48H' "watch: 19 in 48 h is over the 48 h limit"
+    if grep -q 'OVER-24H' "$out"; then fail "watch: a rise of exactly 10 in 24 h was flagged over"
+    else ok "watch: a rise of exactly 10 in 24 h is not over the limit"; fi
+    # Bad input: out of time order, and a line that is not hours,sodium.
+    watch_series "$out" 2 <<< $'0,112\n6,116\n4,117'
+    expect_text "$out" 'line 3' "watch names the line out of time order"
+    watch_series "$out" 2 <<< $'0,112\n6;116'
+    watch_series "$out" 2 <<< $'0,112\n6,nan'
+    watch_series "$out" 2 bogus <<< $'0,112'
+}
+
+check_demo_text() {
+    local out=$work/demo.txt
+    (cd "$work" && "$bin/natremia-demo" > "$out" 2>&1) || { fail "natremia-demo failed"; cat "$out"; return; }
+    ok "natremia-demo exits 0"
+    expect_text "$out" 'invented' "demo says its patient is invented"
+    # Source: conversion of mg/dL with glucose 180.16 g/mol (IUPAC weights):
+    # 162 mg/dL = 8.99 mmol/L; BUN 8 mg/dL over 28.014 g/mol = 2.86 mmol/L.
+    expect_near "$out" '^ *glucose .*->' 8.99 0.005 "demo glucose conversion"
+    # Source: effective osmolality 2*Na + glucose (Spasovski et al. 2014):
+    # 2 * 114 + 8.99 = 237.0.
+    expect_near "$out" 'effective osmolality' 237.0 0.05 "demo effective osmolality"
+    # Source: Adrogue & Madias 2000: TBW 0.45 * 58 kg for a woman over 65.
+    expect_near "$out" 'fraction of weight' 26.1 0.05 "demo body water (fraction)"
+    # Source: Furst et al. 2000: (82 + 38) / 114 = 1.05, above 1.
+    expect_near "$out" 'urine Na \+ urine K' 1.05 0.005 "demo Furst ratio"
+    expect_text "$out" 'profound' "demo severity is profound (Spasovski et al. 2014: below 125)"
+    expect_text "$out" 'consistent with SIAD' "demo SIAD verdict"
+    expect_text "$out" 'decision support, not an' "demo ends with the caution"
+    if [[ -s "$work/natremia-demo.svg" ]]; then ok "demo writes natremia-demo.svg by default"
+    else fail "demo wrote no natremia-demo.svg in its working directory"; fi
+}
+
+# The PNG's width and height from its IHDR chunk (bytes 16-23, big-endian).
+png_size() {
+    local sig
+    sig=$(od -A n -t x1 -N 16 "$1" | tr -d ' \n')
+    [[ "$sig" == 89504e470d0a1a0a0000000d49484452 ]] || return 1
+    od -A n -t u1 -j 16 -N 8 "$1" | awk '{ printf "%d %d\n", $1*16777216 + $2*65536 + $3*256 + $4, $5*16777216 + $6*65536 + $7*256 + $8 }'
+}
+
+check_chart() {
+    local svg=$work/chart.svg png=$work/chart.png size
+    if ! command -v rsvg-convert > /dev/null 2>&1; then
+        echo "SKIP: rsvg-convert not found (apt-get install librsvg2-bin)"
+        exit 77
+    fi
+    "$bin/natremia-demo" "$svg" > "$work/demo.txt" 2>&1 || { fail "natremia-demo $svg failed"; return; }
+    if [[ -s "$svg" ]]; then ok "demo writes the chart to the path given"
+    else fail "demo wrote nothing to $svg"; return; fi
+    expect_text "$svg" '<svg ' "chart is an SVG document"
+    expect_text "$svg" 'Serum sodium \(mmol/L\)' "chart labels the sodium axis with its unit"
+    expect_text "$svg" 'Time since the first sample \(hours\)' "chart labels the time axis with its unit"
+    if rsvg-convert -f png -o "$png" "$svg" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders the chart"
+    else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; return; fi
+    if size=$(png_size "$png"); then
+        if [[ "$size" == "960 560" ]]; then ok "chart PNG is valid, 960 x 560 pixels"
+        else fail "chart PNG is $size pixels, expected 960 560"; fi
+    else
+        fail "rsvg-convert output is not a PNG"
+    fi
+}
+
+case $mode in
+    examples) check_osmolality_panel; check_infusion_plan; check_correction_watch; check_demo_text ;;
+    chart) check_chart ;;
+    *) echo "unknown mode $mode" >&2; exit 1 ;;
+esac
+echo "$checks checks, $failures failed"
+[[ $failures -eq 0 ]]
