@@ -32,6 +32,8 @@ packages=(
     make
     postgresql-15
     postgresql-server-dev-15
+    doxygen
+    librsvg2-bin
 )
 
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
