@@ -663,17 +663,17 @@ NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
  * Writes the tonicity class of ntr_tonicity_class() and, when
  * Na < 135 mmol/L, flags (0 when Na >= 135: there is no low sodium to
  * explain):
- * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS: the sodium corrected for glucose by
+ * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS when the sodium corrected for glucose by
  *   @p glucose_method (ntr_na_corrected_glucose()) is 135 or more.
- * - @ref NTR_LOW_NA_NOT_HYPOTONIC: measured osmolality >= 275.
- * - @ref NTR_LOW_NA_TRANSLOCATIONAL: hypertonic (> 295), or glucose
+ * - @ref NTR_LOW_NA_NOT_HYPOTONIC when measured osmolality >= 275.
+ * - @ref NTR_LOW_NA_TRANSLOCATIONAL when hypertonic (> 295), or glucose
  *   explains the sodium and measured osmolality >= 275: water has moved out
  *   of cells towards an effective osmole (glucose, mannitol).
- * - @ref NTR_LOW_NA_PSEUDO: isotonic (275 to 295) and glucose does not
+ * - @ref NTR_LOW_NA_PSEUDO when isotonic (275 to 295) and glucose does not
  *   explain the sodium: suspect a laboratory artefact from high lipids or
  *   proteins (indirect ion-selective electrode), or an isotonic solute;
  *   confirm with a direct ion-selective electrode.
- * - @ref NTR_LOW_NA_DISCORDANT: hypotonic by measurement, yet glucose would
+ * - @ref NTR_LOW_NA_DISCORDANT when hypotonic by measurement, yet glucose would
  *   explain the whole sodium fall; the two do not fit, so recheck both.
  *
  * @param na_mmol_l            serum sodium, 80 to 220 mmol/L.
@@ -1878,24 +1878,24 @@ NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
  *  Every published method the library uses has an id (ABI). Ids 1-29 are
  *  the core formulas, 30-49 correction and balance, 50-69 the work-up.
  *  @{ */
-#define NTR_METHOD_UNIT_CONVERSION 1
-#define NTR_METHOD_OSM_2NA 2
-#define NTR_METHOD_OSM_DORWART_CHALMERS 3
-#define NTR_METHOD_OSM_EFFECTIVE 4
-#define NTR_METHOD_OSM_GAP 5
-#define NTR_METHOD_GLUCOSE_KATZ 6
-#define NTR_METHOD_GLUCOSE_HILLIER 7
-#define NTR_METHOD_GLUCOSE_FACTOR 8
-#define NTR_METHOD_NA_DEFICIT 9
-#define NTR_METHOD_TBW_FRACTION 10
-#define NTR_METHOD_TBW_WATSON 11
-#define NTR_METHOD_FREE_WATER_DEFICIT 12
-#define NTR_METHOD_FLUID_PRESETS 13
-#define NTR_METHOD_ADROGUE_MADIAS 14
-#define NTR_METHOD_INFUSATE_MASS_BALANCE 15
-#define NTR_METHOD_INFUSATE_VOLUME 16
-#define NTR_METHOD_FURST 17
-#define NTR_METHOD_EFWC 18
+#define NTR_METHOD_UNIT_CONVERSION 1       /**< unit conversion by molar mass (IUPAC, UCUM) */
+#define NTR_METHOD_OSM_2NA 2               /**< calculated osmolality, 2*Na formula */
+#define NTR_METHOD_OSM_DORWART_CHALMERS 3  /**< calculated osmolality, Dorwart-Chalmers 1975 */
+#define NTR_METHOD_OSM_EFFECTIVE 4         /**< effective osmolality (tonicity), 2*Na + glucose */
+#define NTR_METHOD_OSM_GAP 5               /**< osmolal gap, measured minus calculated */
+#define NTR_METHOD_GLUCOSE_KATZ 6          /**< glucose-corrected sodium, Katz 1973 (1.6) */
+#define NTR_METHOD_GLUCOSE_HILLIER 7       /**< glucose-corrected sodium, Hillier 1999 (2.4) */
+#define NTR_METHOD_GLUCOSE_FACTOR 8        /**< glucose-corrected sodium, caller's factor */
+#define NTR_METHOD_NA_DEFICIT 9            /**< sodium deficit, TBW*(target - Na) */
+#define NTR_METHOD_TBW_FRACTION 10         /**< body water as a fraction of weight (Adrogue-Madias) */
+#define NTR_METHOD_TBW_WATSON 11           /**< Watson anthropometric body water (adults) */
+#define NTR_METHOD_FREE_WATER_DEFICIT 12   /**< free-water deficit, TBW*(Na/140 - 1) */
+#define NTR_METHOD_FLUID_PRESETS 13        /**< sodium and potassium of common infusates */
+#define NTR_METHOD_ADROGUE_MADIAS 14       /**< Adrogue-Madias change per litre of infusate */
+#define NTR_METHOD_INFUSATE_MASS_BALANCE 15 /**< infusate effect for any volume by mass balance */
+#define NTR_METHOD_INFUSATE_VOLUME 16      /**< infusate volume for a wanted change */
+#define NTR_METHOD_FURST 17                /**< Furst urine/serum electrolyte ratio and restriction bands */
+#define NTR_METHOD_EFWC 18                 /**< electrolyte-free water clearance */
 /* Correction and balance (ids 30-49, issue P2; lib/correction.c, lib/balance.c). */
 #define NTR_METHOD_LIMITS_STANDARD 30      /**< 10/24 h, 18/48 h, at least 4/24 h */
 #define NTR_METHOD_LIMITS_HIGH_RISK 31     /**< 8/24 h, 16/48 h, at least 4/24 h */

@@ -946,6 +946,31 @@ static void siad_results_are_always_coherent(void **state)
     }
 }
 
+/* The example in docs/workup.md (an invented patient): pituitary and
+ * kidney function not yet assessed, so the verdict is incomplete and
+ * exactly those two essential findings are missing. */
+static void siad_documented_example(void **state)
+{
+    ntr_siad_findings f;
+    ntr_siad_result r;
+    (void)state;
+    assert_int_equal(ntr_siad_findings_init(&f), NTR_OK);
+    f.effective_osm_mosm_kg.known = 1; f.effective_osm_mosm_kg.value = 250.0;
+    f.urine_osm_mosm_kg.known = 1;     f.urine_osm_mosm_kg.value = 450.0;
+    f.urine_na_mmol_l.known = 1;       f.urine_na_mmol_l.value = 60.0;
+    f.volume_status = NTR_VOLUME_EUVOLAEMIC;
+    f.normal_salt_water_intake = NTR_FINDING_YES;
+    f.thyroid_normal = NTR_FINDING_YES;
+    f.adrenal_normal = NTR_FINDING_YES;
+    f.recent_diuretic = NTR_FINDING_NO;
+    r.struct_size = sizeof r;
+    assert_int_equal(ntr_siad_evaluate(&f, &r), NTR_OK);
+    assert_int_equal(r.verdict, NTR_SIAD_INCOMPLETE);
+    assert_int_equal(r.missing & NTR_SIAD_ESSENTIAL_BITS,
+                     B(NTR_SIAD_PITUITARY_NORMAL) | B(NTR_SIAD_KIDNEY_NORMAL));
+    assert_int_equal(r.missing & NTR_SIAD_SUPPLEMENTAL_BITS, SUPPLEMENTAL);
+}
+
 /* On error nothing is written; checks run in the documented order. */
 static void expect_siad_error(const ntr_siad_findings *f, int expected)
 {
@@ -1102,6 +1127,7 @@ int main(void)
         cmocka_unit_test(siad_abnormal_intake_and_early_refusal),
         cmocka_unit_test(siad_zero_means_unknown),
         cmocka_unit_test(siad_results_are_always_coherent),
+        cmocka_unit_test(siad_documented_example),
         cmocka_unit_test(siad_bad_inputs_leave_result_untouched),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
