@@ -24,9 +24,11 @@ ok() { checks=$((checks + 1)); echo "OK: $*"; }
 fail() { checks=$((checks + 1)); failures=$((failures + 1)); echo "FAIL: $*"; }
 
 # The number printed on the first line matching a pattern: the first
-# number after the last ":", "=" or "->" on that line.
+# number after the pattern and after the last ":", "=" or "->" that
+# follows it. (Patterns contain no "/".)
 number_after() { # file pattern
-    grep -m1 -E -- "$2" "$1" | sed -E 's/.*(:|=|->)//' | grep -o -E '[-+]?[0-9]+(\.[0-9]+)?' | head -1
+    grep -m1 -E -- "$2" "$1" | sed -E "s/.*($2)//; s/.*(:|=|->)//" \
+        | grep -o -E '[-+]?[0-9]+(\.[0-9]+)?' | head -1
 }
 
 # expect_near file pattern expected tolerance what
@@ -160,6 +162,22 @@ check_demo_text() {
     expect_near "$out" 'urine Na \+ urine K' 1.05 0.005 "demo Furst ratio"
     expect_text "$out" 'profound' "demo severity is profound (Spasovski et al. 2014: below 125)"
     expect_text "$out" 'consistent with SIAD' "demo SIAD verdict"
+    # Source: Adrogue & Madias 2000 mass balance: 300 mL of 3% saline into
+    # 26.1 L: 114 + 0.3 * (513 - 114) / 26.4 = 118.53 mmol/L.
+    expect_near "$out" 'both boluses' 118.53 0.05 "demo predicted sodium after the boluses"
+    expect_text "$out" 'boluses alone' "demo checks the plan without a diuresis"
+    expect_text "$out" 'BREACHES the 24 h limit' "demo plan check with a water diuresis breaches the 24 h limit"
+    # Source: Verbalis et al. 2013 / Spasovski et al. 2014: 10 mmol/L in
+    # 24 h; 114 -> 125.5 at 16 h is 11.5, over by 1.5.
+    expect_text "$out" '^ +16\.0 +125\.5 +11\.5 .*OVER 24 h LIMIT' "demo flags the over-rapid rise at 16 h"
+    expect_near "$out" 'exceeds the limit by' 1.5 0.05 "demo excess over the 24 h limit"
+    # Source: Adrogue & Madias 2000, the infusate formula solved for volume:
+    # lowering 125.5 by 3.5 with 5% dextrose (Na 0) into 26.1 L needs
+    # 3.5 * 26.1 / (125.5 - 3.5) = 0.749 L. The demo also counts 0.24 L of
+    # urine at Na + K 120 mmol/L, nearly the target's 122, which changes
+    # the volume by only a few mL: hence the 10 mL tolerance.
+    expect_near "$out" '5% dextrose' 749 10 "demo re-lowering volume"
+    expect_text "$out" 'agrees with the streaming watcher' "demo batch and streaming assessments agree"
     expect_text "$out" 'decision support, not an' "demo ends with the caution"
     if [[ -s "$work/natremia-demo.svg" ]]; then ok "demo writes natremia-demo.svg by default"
     else fail "demo wrote no natremia-demo.svg in its working directory"; fi

@@ -38,7 +38,7 @@ else
     echo "OK: the manual builds without a warning"
 fi
 
-for page in index.html natremia_8h.html abi.html safety.html adding_a_formula.html; do
+for page in index.html natremia_8h.html abi.html safety.html adding_a_formula.html examples.html; do
     if [[ -s "$work/html/$page" ]]; then
         echo "OK: html/$page written"
     else
