@@ -177,8 +177,8 @@ NTR_API int ntr_convert(int analyte, double value, int from_unit, int to_unit,
 /**
  * @brief Calculated serum osmolality.
  *
- * - @ref NTR_OSM_2NA: Osm = 2*Na + glucose + urea + ethanol
- * - @ref NTR_OSM_DORWART_CHALMERS: Osm = 1.86*Na + glucose + urea + 9 + ethanol
+ * - @ref NTR_OSM_2NA (1): Osm = 2*Na + glucose + urea + ethanol
+ * - @ref NTR_OSM_DORWART_CHALMERS (2): Osm = 1.86*Na + glucose + urea + 9 + ethanol
  *
  * All inputs in mmol/L (the mg/dL forms divide glucose by 18, BUN by 2.8 and
  * ethanol by 4.6; that is the same as converting to mmol/L first). Ethanol
