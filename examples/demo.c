@@ -65,7 +65,7 @@ enum { PANEL_NA, PANEL_K, PANEL_GLUCOSE, PANEL_BUN, PANEL_CREATININE,
 
 /* The invented plan: two boluses of 150 mL of 3% saline, 20 minutes each,
  * checked over 24 h; then the same plan with a water diuresis that starts
- * at hour 6, as one often does once the cause of antidiuresis resolves. */
+ * at hour 6, as often happens once the cause of the antidiuresis resolves. */
 #define BOLUS_L 0.150
 #define BOLUS_COUNT 2
 #define BOLUS_MINUTES 20.0
@@ -99,14 +99,13 @@ static const ntr_sample measured[] = {
 struct workup {
     double mmol_l[PANEL_COUNT]; /* creatinine in umol/L */
     double osm_calculated, osm_effective;
-    double na_corrected;
     double tbw_fraction_l, tbw_watson_l;
     double furst;
     ntr_limits limits;
     /* Predicted courses of the plan, for the chart. */
     ntr_sample bolus_only[PLAN_POINTS], with_diuresis[PLAN_POINTS];
     size_t n_bolus_only, n_with_diuresis;
-    /* Measured samples as the watcher saw them. */
+    /* 1 for each measured sample that made a rise over its limit worse. */
     int flagged[MEASURED_COUNT];
 };
 
@@ -174,7 +173,6 @@ static void tonicity(struct workup *w)
          "ntr_na_corrected_glucose");
     must(ntr_na_corrected_glucose(na, glucose, NTR_GLUCOSE_HILLIER, &hillier),
          "ntr_na_corrected_glucose");
-    w->na_corrected = hillier;
     printf("  sodium corrected for glucose: %.1f mmol/L (Katz), %.1f mmol/L "
            "(Hillier)\n", katz, hillier);
     must(ntr_low_na_tonicity(na, glucose, MEASURED_OSM_MOSM_KG,
@@ -359,11 +357,13 @@ static void correction_limits(struct workup *w)
  * the second plan) the urine of a water diuresis. */
 static size_t plan_flows(int with_diuresis, ntr_timed_flow flows[2])
 {
-    const double bolus_h = BOLUS_COUNT * BOLUS_MINUTES / 60.0;
-    const ntr_timed_flow saline = {0.0, bolus_h, BOLUS_L * 1000.0 / (BOLUS_MINUTES / 60.0),
-                                   513.0, 0.0, {0u, 0u}};
     const ntr_timed_flow urine = {DIURESIS_START_H, PLAN_HOURS, -DIURESIS_ML_H,
                                   DIURESIS_NA_MMOL_L, DIURESIS_K_MMOL_L, {0u, 0u}};
+    ntr_timed_flow saline = {0.0, 0.0, 0.0, 0.0, 0.0, {0u, 0u}};
+    saline.end_h = BOLUS_COUNT * BOLUS_MINUTES / 60.0;
+    saline.rate_ml_h = BOLUS_L * 1000.0 / (BOLUS_MINUTES / 60.0);
+    must(ntr_fluid_preset(NTR_FLUID_NACL_3, &saline.na_mmol_l, &saline.k_mmol_l),
+         "ntr_fluid_preset");
     flows[0] = saline;
     flows[1] = urine;
     return with_diuresis ? 2u : 1u;
