@@ -1463,6 +1463,10 @@ typedef struct ntr_correction {
 #define NTR_CF_NEAR_MARGIN 2.0   /**< mmol/L below a limit at which NTR_CF_NEAR_LIMIT starts. */
 #define NTR_CF_RAPID_WINDOW_H 6.0 /**< hours: window of NTR_CF_RAPID_6H. */
 #define NTR_CF_RAPID_RISE 6.0    /**< mmol/L: rise that sets NTR_CF_RAPID_6H. */
+/** hours: two samples count as within a W-hour window when the later is at
+ *  most W + this after the earlier, so a pair exactly W apart (say 0.1 h
+ *  and 24.1 h) is inside despite rounding: the safe side. */
+#define NTR_CF_TIME_TOLERANCE_H 1e-6
 /** @} */
 
 /** @name Tri-state answers and ODS risk factors
@@ -1481,10 +1485,10 @@ typedef struct ntr_correction {
 /**
  * @brief Preset correction limits.
  *
- * - @ref NTR_LIMITS_STANDARD: {max_rise_24h 10, max_rise_48h 18,
+ * - @ref NTR_LIMITS_STANDARD gives {max_rise_24h 10, max_rise_48h 18,
  *   min_rise_24h 4} mmol/L.
- * - @ref NTR_LIMITS_HIGH_RISK: {8, 16, 4} mmol/L, for patients at high
- *   risk of osmotic demyelination (see ntr_ods_risk()).
+ * - @ref NTR_LIMITS_HIGH_RISK gives {8, 16, 4} mmol/L, for patients at
+ *   high risk of osmotic demyelination (see ntr_ods_risk()).
  *
  * The US panel gives a maximum of 10 to 12 mmol/L in any 24 h and 18 in
  * any 48 h, 8 in any 24 h at high risk, and a minimum of 4 to 8 (4 to 6 at
@@ -1510,8 +1514,8 @@ NTR_API int ntr_limits_preset(int preset, ntr_limits *out);
  * @brief Whether the high-risk correction limits apply, and why.
  *
  * High risk when the baseline sodium is 105 mmol/L or below, or any of the
- * four factors is @ref NTR_TRI_YES, or any is @ref NTR_TRI_UNKNOWN: a
- * missing answer never loosens the limits. The factors that are known and
+ * four factors is @ref NTR_TRI_YES, or any is @ref NTR_TRI_UNKNOWN (a
+ * missing answer never loosens the limits). The factors that are known and
  * present go to @p drivers, the unknown ones to @p unknowns, so a caller
  * can say "high-risk limits because alcohol use is not known" and ask.
  *
@@ -1624,7 +1628,9 @@ typedef struct ntr_watch {
  * @param[out] w the state to initialise.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
  *
- * Reference and methods: as ntr_correction_assess().
+ * References: as ntr_correction_assess().
+ * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES.
  */
 NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
 
@@ -1649,7 +1655,9 @@ NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  *         more than @ref NTR_WATCH_CAPACITY samples would have to be kept;
  *         nothing changed: keep the series and use ntr_correction_assess().
  *
- * Reference and methods: as ntr_correction_assess().
+ * References: as ntr_correction_assess().
+ * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES.
  */
 NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
                            ntr_correction *out);
@@ -1662,7 +1670,9 @@ NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
  * @retval NTR_OK, NTR_ERR_NULL,
  *         NTR_ERR_ARG (not initialised, damaged, or no result pushed yet).
  *
- * Reference and methods: as ntr_correction_assess().
+ * References: as ntr_correction_assess().
+ * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES.
  */
 NTR_API int ntr_watch_result(const ntr_watch *w, ntr_correction *out);
 /** @} */
@@ -1802,8 +1812,11 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  *                  last one is the sodium now.
  * @param n_history at least 1.
  * @param tbw_l     body water now, 0.1 to 400 L.
- * @param flows, n_flows, duration_h, step_h  the plan, as in
- *                  ntr_balance_course() (times after now).
+ * @param flows     the plan, as in ntr_balance_course() (times are hours
+ *                  after now; may be NULL when @p n_flows is 0).
+ * @param n_flows   number of flows.
+ * @param duration_h how far ahead to predict, above 0 and at most 720 h.
+ * @param step_h    spacing of the predicted points, 1/60 to 720 h.
  * @param lim       limits, as in ntr_correction_assess().
  * @param[out] out  the verdict; out->course.flags tells whether and which
  *                  limit is breached, breach_24h_h / breach_48h_h when.
@@ -1843,7 +1856,7 @@ NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
  * @param fluid_k_mmol_l   potassium of the fluid, 0 to 400.
  * @param lower_by_mmol_l  wanted fall d, above 0 and at most 50 (for
  *                         example ntr_correction.excess_mmol_l).
- * @param hours            time over which to give it, above 0 and at most 720.
+ * @param hours            time over which to give it, 1/60 to 720 h.
  * @param urine_ml_h       expected urine rate, 0 to 5000 mL/h.
  * @param urine_na_mmol_l  0 to 500 mmol/L.
  * @param urine_k_mmol_l   0 to 300 mmol/L.

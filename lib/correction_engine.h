@@ -1,0 +1,54 @@
+/* Internal interface between lib/correction.c (the assessment engine) and
+ * lib/balance.c (the plan check, which assesses a predicted series without
+ * storing it). Not installed. The functions have hidden visibility and the
+ * prefix ntri_ so they can clash neither with the exported ntr_* names nor
+ * with a program that links the static library. */
+#ifndef NTR_CORRECTION_ENGINE_H
+#define NTR_CORRECTION_ENGINE_H
+
+#include "ntr_internal.h"
+
+/* Ranges of the correction and balance inputs (docs/ranges.md lists them
+ * with their reasons). */
+#define NTRI_HOURS_MAX 1.0e6        /* |sample time|, h: about 114 years, so epoch-based hours fit */
+#define NTRI_LIMIT_MAX 50.0         /* a correction limit, mmol/L (as NTR_DELTA_MAX) */
+#define NTRI_FLOW_RATE_MAX 5000.0   /* |rate| of a timed flow or urine, mL/h */
+#define NTRI_PLAN_HOURS_MAX 720.0   /* plan length and flow times, h (30 days) */
+#define NTRI_PLAN_STEP_MIN (1.0 / 60.0) /* plan step, h (one minute) */
+#define NTRI_FLOW_VOLUME_MIN (-30.0) /* a loss, L (as NTR_URINE_VOLUME_MAX) */
+
+/* Index meaning "no such sample". */
+#define NTRI_NONE ((size_t)-1)
+
+/* A series read by index: an array, or points computed on demand. */
+typedef ntr_sample (*ntri_point_fn)(const void *ctx, size_t i);
+typedef struct ntri_series {
+    const ntr_sample *samples; /* the series, or NULL to call point() */
+    ntri_point_fn point;
+    const void *ctx;
+    size_t n;
+} ntri_series;
+
+/* First index (>= from) of a point whose 24 h / 48 h window rise exceeds
+ * the limit, or NTRI_NONE. */
+typedef struct ntri_breach {
+    size_t first_over_24h;
+    size_t first_over_48h;
+} ntri_breach;
+
+/* NTR_OK or the first failing status of the limit checks. */
+int ntri_limits_check(const ntr_limits *lim);
+
+/* Numeric checks of samples (each: hours, then sodium, in index order). */
+int ntri_samples_check(const ntr_sample *s, size_t n);
+
+/* NTR_OK when the times never decrease, else NTR_ERR_ORDER. */
+int ntri_samples_order(const ntr_sample *s, size_t n);
+
+/* Assess a checked, ordered, non-empty series under checked limits. When
+ * breach is not NULL, also finds the first points at or after `from` that
+ * breach each limit. */
+void ntri_assess(const ntri_series *v, const ntr_limits *lim, size_t from,
+                 ntr_correction *out, ntri_breach *breach);
+
+#endif

@@ -1,0 +1,1052 @@
+/* Correction-rate safety: ntr_limits_preset, ntr_ods_risk,
+ * ntr_correction_assess and the streaming watcher (docs/correction.md).
+ *
+ * Every series below is an invented example; the limits they are judged
+ * against come from the published guidelines named beside each check. */
+#include <stdarg.h>
+#include <stddef.h>
+#include <setjmp.h>
+#include <stdint.h>
+#include <string.h>
+#include <cmocka.h>
+
+#include "natremia_test.h"
+
+#define COUNT(a) (sizeof(a) / sizeof((a)[0]))
+
+static ntr_limits standard(void)
+{
+    ntr_limits lim;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim), NTR_OK);
+    return lim;
+}
+
+static ntr_limits high_risk(void)
+{
+    ntr_limits lim;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_HIGH_RISK, &lim), NTR_OK);
+    return lim;
+}
+
+static ntr_correction assess(const ntr_sample *s, size_t n, const ntr_limits *lim)
+{
+    ntr_correction c;
+    memset(&c, 0x5a, sizeof c);
+    assert_int_equal(ntr_correction_assess(s, n, lim, &c), NTR_OK);
+    assert_int_equal(c.reserved, 0);
+    return c;
+}
+
+/* An ntr_correction filled with a pattern no call writes. */
+static ntr_correction untouched(void)
+{
+    ntr_correction c;
+    memset(&c, 0xa5, sizeof c);
+    return c;
+}
+
+static void assert_untouched(const ntr_correction *c)
+{
+    ntr_correction ref = untouched();
+    assert_memory_equal(c, &ref, sizeof ref);
+}
+
+/* ---- layouts are ABI (issue P2) ---------------------------------------- */
+
+static void struct_layouts_are_as_specified(void **state)
+{
+    (void)state;
+    assert_int_equal(offsetof(ntr_sample, hours), 0);
+    assert_int_equal(offsetof(ntr_sample, na_mmol_l), sizeof(double));
+    assert_int_equal(sizeof(ntr_sample), 2 * sizeof(double));
+    assert_int_equal(offsetof(ntr_limits, max_rise_24h), 0);
+    assert_int_equal(offsetof(ntr_limits, max_rise_48h), 8);
+    assert_int_equal(offsetof(ntr_limits, min_rise_24h), 16);
+    assert_int_equal(sizeof(ntr_limits), 24);
+    assert_int_equal(offsetof(ntr_correction, rise_first_24h), 0);
+    assert_int_equal(offsetof(ntr_correction, max_rise_24h), 8);
+    assert_int_equal(offsetof(ntr_correction, max_rise_48h), 16);
+    assert_int_equal(offsetof(ntr_correction, last_rate_per_h), 24);
+    assert_int_equal(offsetof(ntr_correction, excess_mmol_l), 32);
+    assert_int_equal(offsetof(ntr_correction, flags), 40);
+    assert_int_equal(offsetof(ntr_correction, reserved), 44);
+    assert_int_equal(sizeof(ntr_correction), 48);
+    assert_int_equal(sizeof(ntr_watch), 2200);
+}
+
+static void flag_and_preset_values_are_fixed(void **state)
+{
+    (void)state;
+    assert_int_equal(NTR_LIMITS_STANDARD, 1);
+    assert_int_equal(NTR_LIMITS_HIGH_RISK, 2);
+    assert_int_equal(NTR_CF_OVER_24H, 1u);
+    assert_int_equal(NTR_CF_OVER_48H, 2u);
+    assert_int_equal(NTR_CF_BELOW_TARGET, 4u);
+    assert_int_equal(NTR_CF_FALLING, 8u);
+    assert_int_equal(NTR_CF_NEAR_LIMIT, 16u);
+    assert_int_equal(NTR_CF_PROJECTED_OVER, 32u);
+    assert_int_equal(NTR_CF_RAPID_6H, 64u);
+    assert_int_equal(NTR_CF_ALL, 127u);
+    assert_int_equal(NTR_TRI_UNKNOWN, 0);
+    assert_int_equal(NTR_TRI_NO, 1);
+    assert_int_equal(NTR_TRI_YES, 2);
+}
+
+/* ---- ntr_limits_preset --------------------------------------------------- */
+
+/* Source: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42: at most
+ * 10-12 mmol/L in any 24 h and 18 in any 48 h (normal risk), at most 8 in
+ * any 24 h (high risk), at least 4-8 (4-6 at high risk) per 24 h.
+ * Spasovski G et al., Eur J Endocrinol 2014;170:G1-47: at most 10 in the
+ * first 24 h and 8 in each 24 h after (18 over 48 h). The presets take the
+ * stricter ends; 16 over 48 h at high risk is the library's choice (2 x 8). */
+static void presets_match_the_guidelines(void **state)
+{
+    ntr_limits lim = standard();
+    (void)state;
+    assert_true(lim.max_rise_24h == 10.0);
+    assert_true(lim.max_rise_48h == 18.0);
+    assert_true(lim.min_rise_24h == 4.0);
+    lim = high_risk();
+    assert_true(lim.max_rise_24h == 8.0);
+    assert_true(lim.max_rise_48h == 16.0);
+    assert_true(lim.min_rise_24h == 4.0);
+}
+
+static void presets_reject_bad_arguments(void **state)
+{
+    const int bad[] = {0, 3, -1, 100};
+    size_t i;
+    (void)state;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, NULL), NTR_ERR_NULL);
+    for (i = 0; i < COUNT(bad); i++) {
+        ntr_limits lim = {NTR_TEST_SENTINEL, NTR_TEST_SENTINEL, NTR_TEST_SENTINEL};
+        assert_int_equal(ntr_limits_preset(bad[i], &lim), NTR_ERR_ARG);
+        assert_true(lim.max_rise_24h == NTR_TEST_SENTINEL);
+        assert_true(lim.max_rise_48h == NTR_TEST_SENTINEL);
+        assert_true(lim.min_rise_24h == NTR_TEST_SENTINEL);
+    }
+}
+
+/* Property: the presets pass the library's own limit checks (a one-sample
+ * series assesses without error) and high risk is stricter everywhere. */
+static void presets_are_consistent(void **state)
+{
+    const ntr_sample one = {0.0, 120.0};
+    ntr_limits s = standard(), h = high_risk();
+    (void)state;
+    (void)assess(&one, 1, &s);
+    (void)assess(&one, 1, &h);
+    assert_true(h.max_rise_24h < s.max_rise_24h);
+    assert_true(h.max_rise_48h < s.max_rise_48h);
+    assert_true(h.min_rise_24h <= s.min_rise_24h);
+}
+
+/* ---- ntr_ods_risk ------------------------------------------------------- */
+
+static int ods(double na, int k, int alcohol, int maln, int liver,
+               unsigned int *drivers, unsigned int *unknowns)
+{
+    int preset = NTR_TEST_SENTINEL_INT;
+    assert_int_equal(ntr_ods_risk(na, k, alcohol, maln, liver, &preset, drivers, unknowns),
+                     NTR_OK);
+    return preset;
+}
+
+/* Source: Verbalis et al. 2013, risk factors for osmotic demyelination:
+ * serum sodium 105 mmol/L or below, hypokalaemia, alcoholism, malnutrition,
+ * advanced liver disease. */
+static void ods_risk_follows_the_panel_factors(void **state)
+{
+    unsigned int d, u;
+    (void)state;
+    /* No factor, sodium above 105: standard. */
+    assert_int_equal(ods(105.1, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, &d, &u),
+                     NTR_LIMITS_STANDARD);
+    assert_int_equal(d, 0u);
+    assert_int_equal(u, 0u);
+    /* Exactly 105 is "105 or below": high risk, driven by sodium. */
+    assert_int_equal(ods(105.0, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, NTR_ODS_NA_105);
+    assert_int_equal(u, 0u);
+    /* Each factor alone. */
+    assert_int_equal(ods(120.0, NTR_TRI_YES, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, NTR_ODS_LOW_K);
+    assert_int_equal(ods(120.0, NTR_TRI_NO, NTR_TRI_YES, NTR_TRI_NO, NTR_TRI_NO, &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, NTR_ODS_ALCOHOL);
+    assert_int_equal(ods(120.0, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_YES, NTR_TRI_NO, &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, NTR_ODS_MALNUTRITION);
+    assert_int_equal(ods(120.0, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_YES, &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, NTR_ODS_LIVER);
+    /* Unknown answers never loosen: high risk, reported as unknown. */
+    assert_int_equal(ods(120.0, NTR_TRI_NO, NTR_TRI_UNKNOWN, NTR_TRI_NO, NTR_TRI_UNKNOWN,
+                         &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, 0u);
+    assert_int_equal(u, NTR_ODS_ALCOHOL | NTR_ODS_LIVER);
+    /* Everything at once. */
+    assert_int_equal(ods(100.0, NTR_TRI_YES, NTR_TRI_YES, NTR_TRI_UNKNOWN, NTR_TRI_YES,
+                         &d, &u),
+                     NTR_LIMITS_HIGH_RISK);
+    assert_int_equal(d, NTR_ODS_NA_105 | NTR_ODS_LOW_K | NTR_ODS_ALCOHOL | NTR_ODS_LIVER);
+    assert_int_equal(u, NTR_ODS_MALNUTRITION);
+}
+
+/* Property: over every combination of answers, high risk exactly when some
+ * factor is present or unknown or sodium <= 105; drivers and unknowns never
+ * overlap; turning a "no" into "yes" or "unknown" never lowers the risk. */
+static void ods_risk_is_monotone(void **state)
+{
+    const double sodium[] = {80.0, 105.0, nextafter(105.0, 200.0), 135.0, 220.0};
+    size_t si;
+    int code;
+    (void)state;
+    for (si = 0; si < COUNT(sodium); si++) {
+        for (code = 0; code < 81; code++) {
+            int a[4], j, c = code;
+            unsigned int d, u;
+            int preset, any = sodium[si] <= 105.0;
+            for (j = 0; j < 4; j++) {
+                a[j] = c % 3;
+                c /= 3;
+                any |= a[j] != NTR_TRI_NO;
+            }
+            preset = ods(sodium[si], a[0], a[1], a[2], a[3], &d, &u);
+            assert_int_equal(preset, any ? NTR_LIMITS_HIGH_RISK : NTR_LIMITS_STANDARD);
+            assert_int_equal(d & u, 0u);
+            for (j = 0; j < 4; j++) {
+                if (a[j] == NTR_TRI_NO) {
+                    int b[4], k;
+                    unsigned int d2, u2;
+                    for (k = 0; k < 4; k++) {
+                        b[k] = a[k];
+                    }
+                    b[j] = NTR_TRI_YES;
+                    assert_int_equal(ods(sodium[si], b[0], b[1], b[2], b[3], &d2, &u2),
+                                     NTR_LIMITS_HIGH_RISK);
+                    b[j] = NTR_TRI_UNKNOWN;
+                    assert_int_equal(ods(sodium[si], b[0], b[1], b[2], b[3], &d2, &u2),
+                                     NTR_LIMITS_HIGH_RISK);
+                }
+            }
+        }
+    }
+}
+
+static void ods_risk_rejects_bad_inputs(void **state)
+{
+    const double bad_na[] = {(double)NAN, HUGE_VAL, -HUGE_VAL, 79.9, 220.1};
+    const int expected[] = {NTR_ERR_NONFINITE, NTR_ERR_NONFINITE, NTR_ERR_NONFINITE,
+                            NTR_ERR_RANGE, NTR_ERR_RANGE};
+    int preset = NTR_TEST_SENTINEL_INT;
+    unsigned int d = 99u, u = 99u;
+    size_t i;
+    int pos;
+    (void)state;
+    assert_int_equal(ntr_ods_risk(120.0, 1, 1, 1, 1, NULL, &d, &u), NTR_ERR_NULL);
+    assert_int_equal(ntr_ods_risk(120.0, 1, 1, 1, 1, &preset, NULL, &u), NTR_ERR_NULL);
+    assert_int_equal(ntr_ods_risk(120.0, 1, 1, 1, 1, &preset, &d, NULL), NTR_ERR_NULL);
+    for (pos = 0; pos < 4; pos++) {
+        int a[4] = {1, 1, 1, 1};
+        a[pos] = 3;
+        assert_int_equal(ntr_ods_risk(120.0, a[0], a[1], a[2], a[3], &preset, &d, &u),
+                         NTR_ERR_ARG);
+        a[pos] = -1;
+        /* An unknown enumerator is reported before a bad number. */
+        assert_int_equal(ntr_ods_risk((double)NAN, a[0], a[1], a[2], a[3], &preset, &d, &u),
+                         NTR_ERR_ARG);
+    }
+    for (i = 0; i < COUNT(bad_na); i++) {
+        assert_int_equal(ntr_ods_risk(bad_na[i], 1, 1, 1, 1, &preset, &d, &u), expected[i]);
+    }
+    assert_int_equal(preset, NTR_TEST_SENTINEL_INT);
+    assert_int_equal(d, 99u);
+    assert_int_equal(u, 99u);
+}
+
+/* ---- ntr_correction_assess: hand-worked cases -------------------------- */
+
+/* One sample: nothing can rise yet. */
+static void one_sample_gives_zeros(void **state)
+{
+    const ntr_sample s[] = {{5.0, 118.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, 1, &lim);
+    (void)state;
+    assert_true(c.rise_first_24h == 0.0);
+    assert_true(c.max_rise_24h == 0.0);
+    assert_true(c.max_rise_48h == 0.0);
+    assert_true(c.last_rate_per_h == 0.0);
+    assert_true(c.excess_mmol_l == 0.0);
+    assert_int_equal(c.flags, 0u);
+}
+
+/* Standard limits (Verbalis 2013; Spasovski 2014: 10 mmol/L in 24 h).
+ * 0 h 120, 6 h 124, 12 h 127, 24 h 130:
+ *   rise_first_24h = 130 - 120 = 10 (24 h is "no later than 24 h after");
+ *   max_rise_24h = 10, exactly at the limit: not over;
+ *   max_rise_48h = 10; last rate = (130 - 127) / 12 = 0.25 /h;
+ *   near: the 24 h ending at 24 h rose 10 >= 10 - 2: NTR_CF_NEAR_LIMIT;
+ *   projection: next due at 24 + 12 = 36 h at 130 + 3 = 133; its 24 h
+ *   window (t >= 12) holds 127 and 130, rise 133 - 127 = 6 <= 10; its
+ *   48 h window holds all, rise 133 - 120 = 13 <= 18: not projected over;
+ *   6 h ending at 24 h holds 130 alone: rise 0, not rapid;
+ *   24 h passed and 10 >= 4: not below target. */
+static void exactly_at_the_24h_limit_is_not_over(void **state)
+{
+    const ntr_sample s[] = {{0.0, 120.0}, {6.0, 124.0}, {12.0, 127.0}, {24.0, 130.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(c.rise_first_24h == 10.0);
+    assert_true(c.max_rise_24h == 10.0);
+    assert_true(c.max_rise_48h == 10.0);
+    assert_true(c.last_rate_per_h == 0.25);
+    assert_true(c.excess_mmol_l == 0.0);
+    assert_int_equal(c.flags, NTR_CF_NEAR_LIMIT);
+}
+
+/* Decimal results exactly 10 apart and exactly 24 h apart: in binary
+ * 130.1 - 120.1 is not exactly 10 and 24.1 - 0.1 not exactly 24, yet the
+ * pair is inside the window and not over the limit (NTR_CF_TOLERANCE,
+ * NTR_CF_TIME_TOLERANCE_H). Limit: Verbalis 2013, 10 mmol/L per 24 h. */
+static void decimal_values_at_the_limit_are_not_over(void **state)
+{
+    const ntr_sample s[] = {{0.1, 120.1}, {24.1, 130.1}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_near(c.max_rise_24h, 10.0, 1e-12);
+    assert_near(c.rise_first_24h, 10.0, 1e-12);
+    assert_int_equal(c.flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H), 0u);
+    assert_true(c.excess_mmol_l == 0.0);
+}
+
+/* Limit 10 per 24 h (Verbalis 2013). 0 h 118, 8 h 124, 20 h 129.5:
+ *   max_rise_24h = 129.5 - 118 = 11.5 > 10: NTR_CF_OVER_24H, excess 1.5;
+ *   max_rise_48h = 11.5 <= 18; rate = 5.5 / 12 per hour;
+ *   the open 24 h rise 11.5 is above the limit, so not "near" it;
+ *   projection: next at 32 h, 135: 24 h window (t >= 8) min 124, rise 11
+ *   > 10: projected over;  6 h window (t >= 14) holds 129.5 only. */
+static void over_the_24h_limit(void **state)
+{
+    const ntr_sample s[] = {{0.0, 118.0}, {8.0, 124.0}, {20.0, 129.5}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(c.max_rise_24h == 11.5);
+    assert_true(c.max_rise_48h == 11.5);
+    assert_true(c.rise_first_24h == 11.5);
+    assert_true(c.excess_mmol_l == 1.5);
+    assert_near(c.last_rate_per_h, 5.5 / 12.0, 1e-15);
+    assert_int_equal(c.flags, NTR_CF_OVER_24H | NTR_CF_PROJECTED_OVER);
+}
+
+/* Limits 10/24 h and 18/48 h (Verbalis 2013; Spasovski 2014 10 + 8).
+ * 0 h 110, 24 h 120, 48 h 129:
+ *   24 h windows: 0-24 rises 10 (at the limit), 24-48 rises 9;
+ *   48 h window 0-48 rises 19 > 18: NTR_CF_OVER_48H only, excess 1;
+ *   open 24 h rise 9 >= 8: near; projection at 72 h, 138: 24 h window
+ *   (t >= 48) holds 129: 9; 48 h window (t >= 24): 138 - 120 = 18, at
+ *   the limit, not over. */
+static void over_the_48h_limit_only(void **state)
+{
+    const ntr_sample s[] = {{0.0, 110.0}, {24.0, 120.0}, {48.0, 129.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(c.rise_first_24h == 10.0);
+    assert_true(c.max_rise_24h == 10.0);
+    assert_true(c.max_rise_48h == 19.0);
+    assert_true(c.excess_mmol_l == 1.0);
+    assert_int_equal(c.flags, NTR_CF_OVER_48H | NTR_CF_NEAR_LIMIT);
+}
+
+/* The worst 24 h need not start at the first sample. 0 h 125, 10 h 120,
+ * 30 h 131 (limits: Verbalis 2013):
+ *   rise_first_24h: within 24 h of the first only 125 and 120: 0;
+ *   max_rise_24h: 120 -> 131 (20 h apart) = 11 > 10: over, excess 1;
+ *   0 h -> 30 h is 30 h apart: only in the 48 h window (rise 6);
+ *   max_rise_48h = 11; 30 h passed with a first-day rise of 0 < 4:
+ *   below target as well. */
+static void worst_window_slides(void **state)
+{
+    const ntr_sample s[] = {{0.0, 125.0}, {10.0, 120.0}, {30.0, 131.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(c.rise_first_24h == 0.0);
+    assert_true(c.max_rise_24h == 11.0);
+    assert_true(c.max_rise_48h == 11.0);
+    assert_true(c.excess_mmol_l == 1.0);
+    assert_true((c.flags & (NTR_CF_OVER_24H | NTR_CF_BELOW_TARGET)) ==
+                (NTR_CF_OVER_24H | NTR_CF_BELOW_TARGET));
+    assert_int_equal(c.flags & NTR_CF_OVER_48H, 0u);
+}
+
+/* Target of at least 4 mmol/L in 24 h (Verbalis 2013, lower end).
+ *   0 h 120, 24 h 124: rise 4, exactly the target: not below.
+ *   0 h 120, 24 h 123.9: 3.9 < 4 after 24 h: below target.
+ *   0 h 120, 23.9 h 121: 24 h have not passed yet: not below. */
+static void below_target_edges(void **state)
+{
+    const ntr_sample at[] = {{0.0, 120.0}, {24.0, 124.0}};
+    const ntr_sample under[] = {{0.0, 120.0}, {24.0, 123.9}};
+    const ntr_sample early[] = {{0.0, 120.0}, {23.9, 121.0}};
+    ntr_limits lim = standard();
+    (void)state;
+    assert_int_equal(assess(at, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
+    assert_int_equal(assess(under, 2, &lim).flags & NTR_CF_BELOW_TARGET, NTR_CF_BELOW_TARGET);
+    assert_int_equal(assess(early, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
+    /* min_rise_24h = 0 switches the target off. */
+    lim.min_rise_24h = 0.0;
+    assert_int_equal(assess(under, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
+}
+
+/* 0 h 120, 12 h 126, 18 h 125: last interval falls by 1 in 6 h:
+ * rate -1/6 per hour, NTR_CF_FALLING; no projection while falling. */
+static void falling_last_interval(void **state)
+{
+    const ntr_sample s[] = {{0.0, 120.0}, {12.0, 126.0}, {18.0, 125.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_near(c.last_rate_per_h, -1.0 / 6.0, 1e-15);
+    assert_true(c.max_rise_24h == 6.0);
+    assert_int_equal(c.flags, NTR_CF_FALLING);
+}
+
+/* 0 h 120, 4 h 123, 8 h 127: the last interval rose 4 in 4 h. Next due at
+ * 12 h, projected 131; its 24 h window holds every sample: 131 - 120 = 11
+ * > 10: NTR_CF_PROJECTED_OVER while nothing is over yet. Open 24 h rise
+ * 7 < 8: not near; 6 h ending at 8 h (t >= 2): 127 - 123 = 4 < 6. */
+static void projected_over_before_it_happens(void **state)
+{
+    const ntr_sample s[] = {{0.0, 120.0}, {4.0, 123.0}, {8.0, 127.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(c.max_rise_24h == 7.0);
+    assert_true(c.last_rate_per_h == 1.0);
+    assert_int_equal(c.flags, NTR_CF_PROJECTED_OVER);
+    /* With high-risk limits (8/24 h) the same series is near the limit
+     * (7 >= 8 - 2) and projected over (11 > 8). */
+    lim = high_risk();
+    c = assess(s, COUNT(s), &lim);
+    assert_int_equal(c.flags, NTR_CF_PROJECTED_OVER | NTR_CF_NEAR_LIMIT);
+}
+
+/* The "rule of sixes" stop point (Sterns RH, Hix JK, Silver S, Am J Kidney
+ * Dis 2010;56:774-9, from memory: six mmol/L in six hours for severe
+ * symptoms, then stop). 0 h 115, 3 h 118, 6 h 121: the 6 h ending at 6 h
+ * includes 0 h (exactly 6 h before): rise 6: NTR_CF_RAPID_6H. Projection:
+ * 9 h at 124, rise 9 <= 10. Shift the first sample to -0.5 h: the window
+ * (t >= 0) then holds 118 and 121 only: rise 3, not rapid. */
+static void six_in_six_hours(void **state)
+{
+    ntr_sample s[] = {{0.0, 115.0}, {3.0, 118.0}, {6.0, 121.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_int_equal(c.flags, NTR_CF_RAPID_6H);
+    s[0].hours = -0.5;
+    c = assess(s, COUNT(s), &lim);
+    assert_int_equal(c.flags & NTR_CF_RAPID_6H, 0u);
+    /* 5.9 in 6 h is not rapid. */
+    s[0].hours = 0.0;
+    s[2].na_mmol_l = 120.9;
+    c = assess(s, COUNT(s), &lim);
+    assert_int_equal(c.flags & NTR_CF_RAPID_6H, 0u);
+}
+
+/* Repeated samples at one time: the rate uses the latest sample taken
+ * before the last one's time. 0 h 120, 1 h 121, 1 h 123: last = 123 at
+ * 1 h, previous time point 0 h: rate (123 - 120) / 1 = 3 per hour; the
+ * 121 -> 123 repeat counts as a rise of 2 (later in array order). */
+static void repeated_times(void **state)
+{
+    const ntr_sample s[] = {{0.0, 120.0}, {1.0, 121.0}, {1.0, 123.0}};
+    const ntr_sample flat[] = {{2.0, 120.0}, {2.0, 119.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(c.last_rate_per_h == 3.0);
+    assert_true(c.max_rise_24h == 3.0);
+    /* No earlier time point at all: rate 0, not falling. */
+    c = assess(flat, COUNT(flat), &lim);
+    assert_true(c.last_rate_per_h == 0.0);
+    assert_int_equal(c.flags, 0u);
+}
+
+/* Negative times are allowed (a baseline before the chosen origin). */
+static void negative_times(void **state)
+{
+    const ntr_sample s[] = {{-6.0, 118.0}, {0.0, 121.0}, {12.0, 127.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(s, COUNT(s), &lim);
+    (void)state;
+    /* 118 -> 127 over 18 h: 9. */
+    assert_true(c.max_rise_24h == 9.0);
+    assert_true(c.rise_first_24h == 9.0);
+}
+
+/* ---- bad inputs ------------------------------------------------------------ */
+
+static void assess_expect(const ntr_sample *s, size_t n, const ntr_limits *lim, int status)
+{
+    ntr_correction c = untouched();
+    assert_int_equal(ntr_correction_assess(s, n, lim, &c), status);
+    assert_untouched(&c);
+}
+
+static void assess_rejects_bad_inputs(void **state)
+{
+    const double nonfinite[] = {(double)NAN, HUGE_VAL, -HUGE_VAL};
+    ntr_sample s[] = {{0.0, 120.0}, {6.0, 123.0}, {12.0, 125.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = untouched();
+    size_t i, k;
+    (void)state;
+
+    assert_int_equal(ntr_correction_assess(NULL, 3, &lim, &c), NTR_ERR_NULL);
+    assert_int_equal(ntr_correction_assess(s, 3, NULL, &c), NTR_ERR_NULL);
+    assert_int_equal(ntr_correction_assess(s, 3, &lim, NULL), NTR_ERR_NULL);
+    assert_untouched(&c);
+    assess_expect(s, 0, &lim, NTR_ERR_ARG);
+
+    for (i = 0; i < COUNT(s); i++) {
+        for (k = 0; k < COUNT(nonfinite); k++) {
+            ntr_sample t[3];
+            memcpy(t, s, sizeof s);
+            t[i].hours = nonfinite[k];
+            assess_expect(t, 3, &lim, NTR_ERR_NONFINITE);
+            memcpy(t, s, sizeof s);
+            t[i].na_mmol_l = nonfinite[k];
+            assess_expect(t, 3, &lim, NTR_ERR_NONFINITE);
+        }
+    }
+    /* Ranges: hours -1e6 to 1e6, sodium 80 to 220 (docs/ranges.md). */
+    {
+        ntr_sample t[3];
+        memcpy(t, s, sizeof s);
+        t[0].hours = nextafter(-1e6, -HUGE_VAL);
+        assess_expect(t, 3, &lim, NTR_ERR_RANGE);
+        memcpy(t, s, sizeof s);
+        t[2].hours = nextafter(1e6, HUGE_VAL);
+        assess_expect(t, 3, &lim, NTR_ERR_RANGE);
+        memcpy(t, s, sizeof s);
+        t[1].na_mmol_l = nextafter(80.0, 0.0);
+        assess_expect(t, 3, &lim, NTR_ERR_RANGE);
+        memcpy(t, s, sizeof s);
+        t[1].na_mmol_l = nextafter(220.0, 300.0);
+        assess_expect(t, 3, &lim, NTR_ERR_RANGE);
+        /* The edges themselves are accepted. */
+        memcpy(t, s, sizeof s);
+        t[0].hours = -1e6;
+        t[0].na_mmol_l = 80.0;
+        t[1].na_mmol_l = 220.0;
+        (void)assess(t, 3, &lim);
+    }
+    /* Unsorted: NTR_ERR_ORDER. */
+    {
+        ntr_sample t[3];
+        memcpy(t, s, sizeof s);
+        t[1].hours = 13.0;
+        assess_expect(t, 3, &lim, NTR_ERR_ORDER);
+        /* A numeric error later in the series outranks the order error. */
+        t[2].na_mmol_l = (double)NAN;
+        assess_expect(t, 3, &lim, NTR_ERR_NONFINITE);
+    }
+}
+
+static void assess_rejects_bad_limits(void **state)
+{
+    const ntr_sample s[] = {{0.0, 120.0}, {6.0, 123.0}};
+    const ntr_sample unsorted[] = {{6.0, 120.0}, {0.0, 123.0}};
+    const ntr_limits good = {10.0, 18.0, 4.0};
+    const struct {
+        ntr_limits lim;
+        int status;
+    } cases[] = {
+        {{(double)NAN, 18.0, 4.0}, NTR_ERR_NONFINITE},
+        {{10.0, HUGE_VAL, 4.0}, NTR_ERR_NONFINITE},
+        {{10.0, 18.0, -HUGE_VAL}, NTR_ERR_NONFINITE},
+        {{0.0, 18.0, 0.0}, NTR_ERR_RANGE},     /* a limit must be above 0 */
+        {{-1.0, 18.0, 0.0}, NTR_ERR_RANGE},
+        {{10.0, 0.0, 0.0}, NTR_ERR_RANGE},
+        {{10.0, 50.000001, 4.0}, NTR_ERR_RANGE},
+        {{10.0, 18.0, -0.1}, NTR_ERR_RANGE},
+        {{20.0, 18.0, 4.0}, NTR_ERR_RANGE},    /* 24 h looser than 48 h */
+        {{10.0, 18.0, 11.0}, NTR_ERR_RANGE},   /* target above the ceiling */
+        {{50.0, 50.0, 50.0}, NTR_OK},          /* edges accepted */
+        {{10.0, 10.0, 10.0}, NTR_OK},
+    };
+    size_t i;
+    (void)state;
+    for (i = 0; i < COUNT(cases); i++) {
+        if (cases[i].status == NTR_OK) {
+            (void)assess(s, 2, &cases[i].lim);
+        } else {
+            assess_expect(s, 2, &cases[i].lim, cases[i].status);
+            /* Limits are checked before the time order. */
+            assess_expect(unsorted, 2, &cases[i].lim, cases[i].status);
+        }
+    }
+    assess_expect(unsorted, 2, &good, NTR_ERR_ORDER);
+}
+
+/* ---- an independent oracle: the definitions, pair by pair --------------- */
+
+/* A straightforward O(n^2) reading of the definitions in the header, used
+ * to check the linear algorithm and the watcher on random series. */
+static int in_window(double t_earlier, double t_later, double w)
+{
+    return t_later - t_earlier <= w + NTR_CF_TIME_TOLERANCE_H;
+}
+
+/* Lowest sodium among samples 0..j within w hours before time t (j's own
+ * sodium included when it is in the window). HUGE_VAL if none. */
+static double window_min(const ntr_sample *s, size_t j, double t, double w)
+{
+    double m = HUGE_VAL;
+    size_t i;
+    for (i = 0; i <= j; i++) {
+        if (in_window(s[i].hours, t, w) && s[i].na_mmol_l < m) {
+            m = s[i].na_mmol_l;
+        }
+    }
+    return m;
+}
+
+static ntr_correction oracle(const ntr_sample *s, size_t n, const ntr_limits *lim)
+{
+    ntr_correction c;
+    const double tol = NTR_CF_TOLERANCE;
+    size_t i, j, last = n - 1, prev = n;
+    double open6, open24, open48;
+    memset(&c, 0, sizeof c);
+    for (j = 0; j < n; j++) {
+        for (i = 0; i <= j; i++) {
+            double rise = s[j].na_mmol_l - s[i].na_mmol_l;
+            if (in_window(s[i].hours, s[j].hours, 24.0) && rise > c.max_rise_24h) {
+                c.max_rise_24h = rise;
+            }
+            if (in_window(s[i].hours, s[j].hours, 48.0) && rise > c.max_rise_48h) {
+                c.max_rise_48h = rise;
+            }
+        }
+        if (in_window(s[0].hours, s[j].hours, 24.0) &&
+            s[j].na_mmol_l - s[0].na_mmol_l > c.rise_first_24h) {
+            c.rise_first_24h = s[j].na_mmol_l - s[0].na_mmol_l;
+        }
+    }
+    for (i = 0; i < n; i++) {
+        if (s[i].hours < s[last].hours) {
+            prev = i;
+        }
+    }
+    if (c.max_rise_24h > lim->max_rise_24h + tol) {
+        c.flags |= NTR_CF_OVER_24H;
+        c.excess_mmol_l = c.max_rise_24h - lim->max_rise_24h;
+    }
+    if (c.max_rise_48h > lim->max_rise_48h + tol) {
+        c.flags |= NTR_CF_OVER_48H;
+        if (c.max_rise_48h - lim->max_rise_48h > c.excess_mmol_l) {
+            c.excess_mmol_l = c.max_rise_48h - lim->max_rise_48h;
+        }
+    }
+    if (s[last].hours - s[0].hours >= 24.0 - NTR_CF_TIME_TOLERANCE_H &&
+        c.rise_first_24h < lim->min_rise_24h - tol) {
+        c.flags |= NTR_CF_BELOW_TARGET;
+    }
+    open6 = s[last].na_mmol_l - window_min(s, last, s[last].hours, NTR_CF_RAPID_WINDOW_H);
+    open24 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 24.0);
+    open48 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 48.0);
+    if ((open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol &&
+         open24 <= lim->max_rise_24h + tol) ||
+        (open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol &&
+         open48 <= lim->max_rise_48h + tol)) {
+        c.flags |= NTR_CF_NEAR_LIMIT;
+    }
+    if (open6 >= NTR_CF_RAPID_RISE - tol) {
+        c.flags |= NTR_CF_RAPID_6H;
+    }
+    if (prev < n) {
+        const ntr_sample a = s[prev], b = s[last];
+        c.last_rate_per_h = (b.na_mmol_l - a.na_mmol_l) / (b.hours - a.hours);
+        if (b.na_mmol_l < a.na_mmol_l) {
+            c.flags |= NTR_CF_FALLING;
+        }
+        if (b.na_mmol_l > a.na_mmol_l) {
+            double t = b.hours + (b.hours - a.hours);
+            double na = b.na_mmol_l + (b.na_mmol_l - a.na_mmol_l);
+            double p24 = na - window_min(s, last, t, 24.0);
+            double p48 = na - window_min(s, last, t, 48.0);
+            if (p24 > lim->max_rise_24h + tol || p48 > lim->max_rise_48h + tol) {
+                c.flags |= NTR_CF_PROJECTED_OVER;
+            }
+        }
+    }
+    return c;
+}
+
+/* A small deterministic generator (xorshift64*), so failures reproduce. */
+static uint64_t rng_state = 0x9e3779b97f4a7c15u;
+static uint64_t rng_next(void)
+{
+    rng_state ^= rng_state >> 12;
+    rng_state ^= rng_state << 25;
+    rng_state ^= rng_state >> 27;
+    return rng_state * 0x2545f4914f6cdd1du;
+}
+static double rng_unit(void) { return (double)(rng_next() >> 11) / 9007199254740992.0; }
+static unsigned int rng_below(unsigned int n) { return (unsigned int)(rng_next() % n); }
+
+/* A random series: time steps of 0 to 20 h on a grid of tenths of an hour
+ * (repeats included), sodium on a grid of tenths drifting up and down,
+ * so limits, windows and ties are hit exactly as often as laboratories do. */
+static size_t random_series(ntr_sample *s, size_t max_n)
+{
+    size_t n = 1 + rng_below((unsigned int)max_n);
+    size_t i;
+    double t = -10.0 + (double)rng_below(200) / 10.0;
+    double na = 105.0 + (double)rng_below(300) / 10.0;
+    for (i = 0; i < n; i++) {
+        s[i].hours = t;
+        s[i].na_mmol_l = na;
+        t += (double)rng_below(4) == 0 ? 0.0 : (double)rng_below(200) / 10.0;
+        na += (double)((int)rng_below(81) - 30) / 10.0; /* -3 to +5 */
+        if (na < 81.0) {
+            na = 81.0;
+        }
+        if (na > 219.0) {
+            na = 219.0;
+        }
+    }
+    return n;
+}
+
+static ntr_limits random_limits(void)
+{
+    ntr_limits lim;
+    switch (rng_below(3)) {
+    case 0: lim = standard(); break;
+    case 1: lim = high_risk(); break;
+    default:
+        lim.max_rise_24h = 1.0 + (double)rng_below(120) / 10.0;
+        lim.max_rise_48h = lim.max_rise_24h + (double)rng_below(100) / 10.0;
+        lim.min_rise_24h = rng_unit() * lim.max_rise_24h;
+        break;
+    }
+    return lim;
+}
+
+static void assert_same(const ntr_correction *a, const ntr_correction *b)
+{
+    assert_true(a->rise_first_24h == b->rise_first_24h);
+    assert_true(a->max_rise_24h == b->max_rise_24h);
+    assert_true(a->max_rise_48h == b->max_rise_48h);
+    assert_true(a->last_rate_per_h == b->last_rate_per_h);
+    assert_true(a->excess_mmol_l == b->excess_mmol_l);
+    assert_int_equal(a->flags, b->flags);
+    assert_int_equal(a->reserved, b->reserved);
+}
+
+/* Property: on 20000 random series the linear algorithm agrees exactly
+ * with the pairwise definitions. */
+static void assess_agrees_with_the_definitions(void **state)
+{
+    ntr_sample s[40];
+    int round;
+    (void)state;
+    for (round = 0; round < 20000; round++) {
+        size_t n = random_series(s, COUNT(s));
+        ntr_limits lim = random_limits();
+        ntr_correction got = assess(s, n, &lim);
+        ntr_correction want = oracle(s, n, &lim);
+        assert_same(&got, &want);
+    }
+}
+
+/* Property: dense series (many samples per window, up to 2000) also agree;
+ * this is where a block scheme could slip. */
+static void assess_agrees_on_dense_series(void **state)
+{
+    static ntr_sample s[2000];
+    int round;
+    (void)state;
+    for (round = 0; round < 30; round++) {
+        size_t n = 1 + rng_below(2000), i;
+        double t = 0.0, na = 120.0;
+        ntr_limits lim = random_limits();
+        for (i = 0; i < n; i++) {
+            s[i].hours = t;
+            s[i].na_mmol_l = na;
+            t += rng_unit() * (round % 3 == 0 ? 0.2 : 3.0);
+            na += rng_unit() * 2.0 - 0.9;
+            na = na < 81.0 ? 81.0 : (na > 219.0 ? 219.0 : na);
+        }
+        {
+            ntr_correction got = assess(s, n, &lim);
+            ntr_correction want = oracle(s, n, &lim);
+            assert_same(&got, &want);
+        }
+    }
+}
+
+/* Property: moving the origin by whole hours changes no rise and no flag
+ * (time differences change by rounding only, far below
+ * NTR_CF_TIME_TOLERANCE_H), and the rate only by rounding. */
+static void assess_is_shift_invariant(void **state)
+{
+    ntr_sample s[30], u[30];
+    int round;
+    (void)state;
+    for (round = 0; round < 2000; round++) {
+        size_t n = random_series(s, COUNT(s)), i;
+        ntr_limits lim = random_limits();
+        double dt = (double)rng_below(2000) - 1000.0;
+        ntr_correction a, b;
+        for (i = 0; i < n; i++) {
+            u[i].hours = s[i].hours + dt;
+            u[i].na_mmol_l = s[i].na_mmol_l;
+        }
+        a = assess(s, n, &lim);
+        b = assess(u, n, &lim);
+        assert_true(a.max_rise_24h == b.max_rise_24h);
+        assert_true(a.max_rise_48h == b.max_rise_48h);
+        assert_true(a.rise_first_24h == b.rise_first_24h);
+        assert_true(a.excess_mmol_l == b.excess_mmol_l);
+        assert_int_equal(a.flags, b.flags);
+        assert_near(a.last_rate_per_h, b.last_rate_per_h, 1e-9);
+    }
+}
+
+/* Property: adding a sample never lowers max_rise_24h / max_rise_48h. */
+static void rises_never_shrink_as_samples_arrive(void **state)
+{
+    ntr_sample s[40];
+    int round;
+    (void)state;
+    for (round = 0; round < 2000; round++) {
+        size_t n = random_series(s, COUNT(s)), k;
+        ntr_limits lim = standard();
+        ntr_correction before = assess(s, 1, &lim);
+        for (k = 2; k <= n; k++) {
+            ntr_correction now = assess(s, k, &lim);
+            assert_true(now.max_rise_24h >= before.max_rise_24h);
+            assert_true(now.max_rise_48h >= before.max_rise_48h);
+            assert_true(now.max_rise_48h >= now.max_rise_24h);
+            before = now;
+        }
+    }
+}
+
+/* ---- streaming watcher --------------------------------------------------- */
+
+/* The watcher equals the batch assessment on every prefix, exactly. */
+static void watcher_equals_batch_on_random_series(void **state)
+{
+    ntr_sample s[60];
+    int round;
+    (void)state;
+    for (round = 0; round < 5000; round++) {
+        size_t n = random_series(s, COUNT(s)), k;
+        ntr_limits lim = random_limits();
+        ntr_watch w;
+        assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+        for (k = 0; k < n; k++) {
+            ntr_correction streamed, again, batch;
+            assert_int_equal(ntr_watch_push(&w, s[k].hours, s[k].na_mmol_l, &streamed), NTR_OK);
+            batch = assess(s, k + 1, &lim);
+            assert_same(&streamed, &batch);
+            assert_int_equal(ntr_watch_result(&w, &again), NTR_OK);
+            assert_same(&again, &batch);
+        }
+    }
+}
+
+/* Same on dense, steadily rising series that fill much of the ring. */
+static void watcher_equals_batch_on_dense_series(void **state)
+{
+    static ntr_sample s[600];
+    int round;
+    (void)state;
+    for (round = 0; round < 20; round++) {
+        size_t n = 600, k;
+        double t = 0.0, na = 100.0;
+        ntr_limits lim = standard();
+        ntr_watch w;
+        assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+        for (k = 0; k < n; k++) {
+            ntr_correction streamed, batch;
+            s[k].hours = t;
+            s[k].na_mmol_l = na;
+            t += 0.5 + rng_unit();
+            na += rng_unit() * 0.6 - 0.25;
+            na = na < 81.0 ? 81.0 : (na > 219.0 ? 219.0 : na);
+            assert_int_equal(ntr_watch_push(&w, s[k].hours, s[k].na_mmol_l, &streamed), NTR_OK);
+            batch = assess(s, k + 1, &lim);
+            assert_same(&streamed, &batch);
+        }
+    }
+}
+
+/* The documented bound: 128 samples rising within 48 h fit, the 129th
+ * gives NTR_ERR_CAPACITY and changes nothing; once the oldest leave the
+ * 48 h window, room returns. */
+static void watcher_capacity_is_as_documented(void **state)
+{
+    ntr_limits lim = standard();
+    ntr_watch w, copy;
+    ntr_correction c = untouched();
+    unsigned int k;
+    (void)state;
+    assert_int_equal(NTR_WATCH_CAPACITY, 128);
+    assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+    for (k = 0; k < NTR_WATCH_CAPACITY; k++) {
+        assert_int_equal(ntr_watch_push(&w, 0.25 * k, 100.0 + 0.1 * k, &c), NTR_OK);
+    }
+    memcpy(&copy, &w, sizeof w);
+    c = untouched();
+    assert_int_equal(ntr_watch_push(&w, 0.25 * k, 100.0 + 0.1 * k, &c), NTR_ERR_CAPACITY);
+    assert_memory_equal(&w, &copy, sizeof w);
+    assert_untouched(&c);
+    /* A lower result empties the ring down to itself: always fits. */
+    assert_int_equal(ntr_watch_push(&w, 0.25 * k, 99.0, &c), NTR_OK);
+    /* 48 h after the first, rising samples fit again as old ones expire. */
+    memcpy(&w, &copy, sizeof w);
+    assert_int_equal(ntr_watch_push(&w, 48.5, 113.0, &c), NTR_OK);
+}
+
+static void watcher_rejects_bad_inputs(void **state)
+{
+    ntr_limits lim = standard();
+    ntr_limits bad = {12.0, 10.0, 4.0};
+    ntr_watch w, copy, zero;
+    ntr_correction c = untouched();
+    (void)state;
+    memset(&zero, 0, sizeof zero);
+
+    assert_int_equal(ntr_watch_init(NULL, &w), NTR_ERR_NULL);
+    assert_int_equal(ntr_watch_init(&lim, NULL), NTR_ERR_NULL);
+    memcpy(&w, &zero, sizeof w);
+    assert_int_equal(ntr_watch_init(&bad, &w), NTR_ERR_RANGE);
+    assert_memory_equal(&w, &zero, sizeof w);
+    bad.max_rise_24h = (double)NAN;
+    assert_int_equal(ntr_watch_init(&bad, &w), NTR_ERR_NONFINITE);
+    assert_memory_equal(&w, &zero, sizeof w);
+
+    /* Never initialised (all zero): refused. */
+    assert_int_equal(ntr_watch_push(&zero, 0.0, 120.0, &c), NTR_ERR_ARG);
+    assert_int_equal(ntr_watch_result(&zero, &c), NTR_ERR_ARG);
+    assert_untouched(&c);
+
+    assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+    /* Nothing pushed yet: no result. */
+    assert_int_equal(ntr_watch_result(&w, &c), NTR_ERR_ARG);
+    assert_int_equal(ntr_watch_push(NULL, 0.0, 120.0, &c), NTR_ERR_NULL);
+    assert_int_equal(ntr_watch_push(&w, 0.0, 120.0, NULL), NTR_ERR_NULL);
+    assert_int_equal(ntr_watch_result(NULL, &c), NTR_ERR_NULL);
+    assert_int_equal(ntr_watch_result(&w, NULL), NTR_ERR_NULL);
+    assert_int_equal(ntr_watch_push(&w, 10.0, 120.0, &c), NTR_OK);
+    memcpy(&copy, &w, sizeof w);
+
+    c = untouched();
+    assert_int_equal(ntr_watch_push(&w, (double)NAN, 120.0, &c), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_watch_push(&w, HUGE_VAL, 120.0, &c), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_watch_push(&w, 11.0, -HUGE_VAL, &c), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_watch_push(&w, 2e6, 120.0, &c), NTR_ERR_RANGE);
+    assert_int_equal(ntr_watch_push(&w, 11.0, 79.0, &c), NTR_ERR_RANGE);
+    assert_int_equal(ntr_watch_push(&w, 11.0, 221.0, &c), NTR_ERR_RANGE);
+    /* Earlier than the last result. */
+    assert_int_equal(ntr_watch_push(&w, 9.5, 121.0, &c), NTR_ERR_ORDER);
+    /* A number is checked before the order. */
+    assert_int_equal(ntr_watch_push(&w, 9.5, 79.0, &c), NTR_ERR_RANGE);
+    assert_untouched(&c);
+    assert_memory_equal(&w, &copy, sizeof w);
+
+    /* A damaged state is refused instead of indexing out of the ring. */
+    w.head = NTR_WATCH_CAPACITY;
+    assert_int_equal(ntr_watch_push(&w, 11.0, 121.0, &c), NTR_ERR_ARG);
+    memcpy(&w, &copy, sizeof w);
+    w.kept = NTR_WATCH_CAPACITY + 1u;
+    assert_int_equal(ntr_watch_push(&w, 11.0, 121.0, &c), NTR_ERR_ARG);
+    memcpy(&w, &copy, sizeof w);
+    w.front24 = 5u;
+    assert_int_equal(ntr_watch_result(&w, &c), NTR_ERR_ARG);
+    memcpy(&w, &copy, sizeof w);
+    w.limits.max_rise_24h = -1.0;
+    assert_int_equal(ntr_watch_push(&w, 11.0, 121.0, &c), NTR_ERR_ARG);
+    assert_untouched(&c);
+}
+
+/* A stored state (its bytes copied elsewhere) carries on identically. */
+static void watcher_state_can_be_stored_and_restored(void **state)
+{
+    const ntr_sample s[] = {{0.0, 118.0}, {4.0, 121.0}, {8.0, 124.0}, {20.0, 128.5}, {26.0, 130.0}};
+    ntr_limits lim = standard();
+    ntr_watch w;
+    unsigned char bytes[sizeof(ntr_watch)];
+    ntr_watch restored;
+    ntr_correction a, b;
+    size_t k;
+    (void)state;
+    assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+    for (k = 0; k < 3; k++) {
+        assert_int_equal(ntr_watch_push(&w, s[k].hours, s[k].na_mmol_l, &a), NTR_OK);
+    }
+    memcpy(bytes, &w, sizeof w);
+    memcpy(&restored, bytes, sizeof restored);
+    for (; k < COUNT(s); k++) {
+        assert_int_equal(ntr_watch_push(&w, s[k].hours, s[k].na_mmol_l, &a), NTR_OK);
+        assert_int_equal(ntr_watch_push(&restored, s[k].hours, s[k].na_mmol_l, &b), NTR_OK);
+        assert_same(&a, &b);
+    }
+    /* 118 -> 128.5 within 20 h: 10.5 > 10, over (Verbalis 2013 limit). */
+    assert_true((a.flags & NTR_CF_OVER_24H) != 0u);
+    assert_true(a.max_rise_24h == 10.5);
+}
+
+int main(void)
+{
+    const struct CMUnitTest tests[] = {
+        cmocka_unit_test(struct_layouts_are_as_specified),
+        cmocka_unit_test(flag_and_preset_values_are_fixed),
+        cmocka_unit_test(presets_match_the_guidelines),
+        cmocka_unit_test(presets_reject_bad_arguments),
+        cmocka_unit_test(presets_are_consistent),
+        cmocka_unit_test(ods_risk_follows_the_panel_factors),
+        cmocka_unit_test(ods_risk_is_monotone),
+        cmocka_unit_test(ods_risk_rejects_bad_inputs),
+        cmocka_unit_test(one_sample_gives_zeros),
+        cmocka_unit_test(exactly_at_the_24h_limit_is_not_over),
+        cmocka_unit_test(decimal_values_at_the_limit_are_not_over),
+        cmocka_unit_test(over_the_24h_limit),
+        cmocka_unit_test(over_the_48h_limit_only),
+        cmocka_unit_test(worst_window_slides),
+        cmocka_unit_test(below_target_edges),
+        cmocka_unit_test(falling_last_interval),
+        cmocka_unit_test(projected_over_before_it_happens),
+        cmocka_unit_test(six_in_six_hours),
+        cmocka_unit_test(repeated_times),
+        cmocka_unit_test(negative_times),
+        cmocka_unit_test(assess_rejects_bad_inputs),
+        cmocka_unit_test(assess_rejects_bad_limits),
+        cmocka_unit_test(assess_agrees_with_the_definitions),
+        cmocka_unit_test(assess_agrees_on_dense_series),
+        cmocka_unit_test(assess_is_shift_invariant),
+        cmocka_unit_test(rises_never_shrink_as_samples_arrive),
+        cmocka_unit_test(watcher_equals_batch_on_random_series),
+        cmocka_unit_test(watcher_equals_batch_on_dense_series),
+        cmocka_unit_test(watcher_capacity_is_as_documented),
+        cmocka_unit_test(watcher_rejects_bad_inputs),
+        cmocka_unit_test(watcher_state_can_be_stored_and_restored),
+    };
+    return cmocka_run_group_tests(tests, NULL, NULL);
+}
