@@ -176,7 +176,88 @@ static int describe(int method, struct ntr_method_info *info)
             "any");
 
     /* ==== correction and balance (ids 30-49, issue P2) ================== */
-    /* The P2 work adds its cases here. */
+    case NTR_METHOD_LIMITS_STANDARD:
+        return entry(info, method, "Correction limits, standard risk",
+            "rise <= 10 mmol/L in any 24 h and <= 18 mmol/L in any 48 h; "
+            "at least 4 mmol/L by 24 h (the stricter ends of the US ranges "
+            "10-12 and 4-8; the European first-day 10 and 10 + 8 over 48 h)",
+            REF_VERBALIS_2013 "; " REF_SPASOVSKI,
+            "adults with chronic or unknown-duration hyponatraemia under "
+            "treatment");
+    case NTR_METHOD_LIMITS_HIGH_RISK:
+        return entry(info, method, "Correction limits, high risk of osmotic demyelination",
+            "rise <= 8 mmol/L in any 24 h and <= 16 mmol/L in any 48 h; at "
+            "least 4 mmol/L by 24 h (16 over 48 h is the library's own choice, "
+            "twice the 24 h figure)",
+            REF_VERBALIS_2013,
+            "adults at high risk of osmotic demyelination (see the ODS risk "
+            "method)");
+    case NTR_METHOD_ODS_RISK:
+        return entry(info, method, "Risk factors for osmotic demyelination",
+            "high risk if baseline Na <= 105 mmol/L, or low potassium, alcohol "
+            "use disorder, malnutrition or advanced liver disease is present; "
+            "a factor not known counts as possibly present (library's choice)",
+            REF_VERBALIS_2013,
+            "adults with hyponatraemia");
+    case NTR_METHOD_CORRECTION_WINDOWS:
+        return entry(info, method, "Largest rise within sliding 24 h and 48 h windows",
+            "max_rise_W = max over earlier i, later j with t_j - t_i <= W of "
+            "(Na_j - Na_i), W = 24 and 48 h; rise_first_24h = max Na within "
+            "24 h of the first sample minus the first; over when the rise "
+            "exceeds the limit by more than 1e-6 mmol/L",
+            REF_VERBALIS_2013 "; " REF_SPASOVSKI,
+            "any measured serum sodium series");
+    case NTR_METHOD_CORRECTION_TREND:
+        return entry(info, method, "Near-limit and projected-over warnings",
+            "near: the rise into the last sample over the 24 h or 48 h ending "
+            "at it is within 2 mmol/L of the limit; projected over: the next "
+            "sample, due after the same interval as the last, rising by the "
+            "same amount again, would exceed a limit (library's own rules)",
+            "Library's own warning rules built on " REF_VERBALIS_2013,
+            "any measured serum sodium series");
+    case NTR_METHOD_RULE_OF_SIXES:
+        return entry(info, method, "Six mmol/L within 6 h (rule of sixes)",
+            "flag when the rise into the last sample over the 6 h ending at it "
+            "is >= 6 mmol/L: the point at which urgent correction for severe "
+            "symptoms is usually stopped for the day",
+            "Sterns RH, Hix JK, Silver S. Treating profound hyponatremia: a "
+            "strategy for controlled correction. Am J Kidney Dis "
+            "2010;56:774-9 (cited from memory)",
+            "adults given hypertonic saline for severe symptoms");
+    case NTR_METHOD_BALANCE_MASS:
+        return entry(info, method, "Mass balance of fluids (Edelman-based)",
+            "Na1 = (Na0*TBW0 + sum v*(Na_f + K_f)) / (TBW0 + sum v); "
+            "TBW1 = TBW0 + sum v; v > 0 in, v < 0 out (urine)",
+            "Edelman IS, Leibman J, O'Meara MP, Birkenfeld LW. Interrelations "
+            "between serum sodium concentration, serum osmolarity and total "
+            "exchangeable sodium, total exchangeable potassium and total body "
+            "water. J Clin Invest 1958;37:1236-56; " REF_ADROGUE_MADIAS_HYPO,
+            "any (slope 1, intercept 0 simplification of the Edelman relation; "
+            "ignores unmeasured losses and shifts)");
+    case NTR_METHOD_BALANCE_COURSE:
+        return entry(info, method, "Predicted sodium course under steady rates",
+            "at time tau each flow has given rate/1000 * (min(end, tau) - "
+            "start) L; Na(tau) by the mass balance of those volumes; points "
+            "every step and at the end",
+            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO,
+            "any (rates assumed steady within each span)");
+    case NTR_METHOD_PLAN_CHECK:
+        return entry(info, method, "Check of a fluid plan against correction limits",
+            "measured history followed by the predicted course, assessed with "
+            "the sliding-window limits; first predicted point whose 24 h or "
+            "48 h rise exceeds its limit",
+            "Library's own combination of the mass balance ("
+            REF_ADROGUE_MADIAS_HYPO ") and the limits of " REF_VERBALIS_2013,
+            "adults with hyponatraemia under treatment");
+    case NTR_METHOD_RELOWER:
+        return entry(info, method, "Fluid to re-lower sodium after overcorrection",
+            "V = (d*TBW0 + U*(Na1 - c_u)) / (Na1 - c_f), Na1 = Na0 - d; U = "
+            "urine volume over the period, c_u its Na + K, c_f the fluid's "
+            "Na + K; 0 when losses alone lower sodium by d",
+            "Mass balance of " REF_ADROGUE_MADIAS_HYPO "; re-lowering as "
+            "advised by Sterns RH, Hix JK. Overcorrection of hyponatremia is "
+            "a medical emergency. Kidney Int 2009;76:587-9 (cited from memory)",
+            "adults whose sodium rose faster than the limits");
 
     /* ==== work-up (ids 50-69, issue P3) ================================= */
     case NTR_METHOD_NA_SEVERITY:
