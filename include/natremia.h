@@ -848,7 +848,7 @@ typedef struct ntr_siad_findings {
     int restriction_corrected;    /**< NTR_FINDING_*: fluid restriction corrected the sodium. */
     int reserved;                 /**< Set to 0; ignored. */
     /* Supplemental values. */
-    ntr_finding_value uric_acid_mmol_l;     /**< serum uric acid, 0 to 5 mmol/L. */
+    ntr_finding_value uric_acid_mmol_l;     /**< serum uric acid, 0 to 2 mmol/L. */
     ntr_finding_value urea_mmol_l;          /**< serum urea, 0 to 200 mmol/L. */
     ntr_finding_value fe_na_percent;        /**< fractional sodium excretion, 0 to 200 %. */
     ntr_finding_value fe_urea_percent;      /**< fractional urea excretion, 0 to 200 %. */

@@ -37,7 +37,7 @@
  * limits; docs/ranges.md gives the reasoning. */
 #define NTR_URINE_OSM_MIN 10.0     /* urine osmolality, mOsm/kg */
 #define NTR_URINE_OSM_MAX 2000.0
-#define NTR_URIC_ACID_MAX 5.0      /* serum uric acid, mmol/L */
+#define NTR_URIC_ACID_MAX 2.0      /* serum uric acid, mmol/L (33.6 mg/dL) */
 #define NTR_FE_PERCENT_MAX 200.0   /* a fractional excretion given as input, % */
 #define NTR_FE_INPUT_MAX 1.0e6     /* any concentration in ntr_fractional_excretion */
 

@@ -1048,7 +1048,7 @@ static void siad_bad_inputs_leave_result_untouched(void **state)
             {offsetof(ntr_siad_findings, effective_osm_mosm_kg), 150.0, 600.0},
             {offsetof(ntr_siad_findings, urine_osm_mosm_kg), 10.0, 2000.0},
             {offsetof(ntr_siad_findings, urine_na_mmol_l), 0.0, 500.0},
-            {offsetof(ntr_siad_findings, uric_acid_mmol_l), 0.0, 5.0},
+            {offsetof(ntr_siad_findings, uric_acid_mmol_l), 0.0, 2.0},
             {offsetof(ntr_siad_findings, urea_mmol_l), 0.0, 200.0},
             {offsetof(ntr_siad_findings, fe_na_percent), 0.0, 200.0},
             {offsetof(ntr_siad_findings, fe_urea_percent), 0.0, 200.0},
