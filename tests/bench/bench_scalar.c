@@ -16,6 +16,7 @@
  * inputs were valid) and exits 1 otherwise. */
 #include <stdio.h>
 #include <stdlib.h>
+#include <string.h>
 
 #include "natremia.h"
 #include "bench_stubs.h"
@@ -49,6 +50,87 @@
         (void)d; (void)d2; (void)i;                              \
         return bad;                                              \
     }
+
+/* Inputs and outputs of the functions that take or fill structs. Filled by
+ * setup() before any loop runs; invented values (no patient). */
+static ntr_limits g_limits;
+static ntr_siad_findings g_siad;
+static ntr_siad_result g_siad_result;
+static ntr_watch g_watch_fresh;
+static ntr_watch g_watch;
+static ntr_correction g_correction;
+static struct ntr_method_info g_method;
+static unsigned int g_u1, g_u2;
+static ntr_sample g_series[12];
+static ntr_flow g_flows[2];
+static ntr_timed_flow g_plan_flows[2];
+static ntr_sample g_course[32];
+static size_t g_count;
+static ntr_sample g_history[3];
+static ntr_plan_result g_plan;
+
+static ntr_finding_value known(double value)
+{
+    ntr_finding_value v;
+    v.known = 1;
+    v.reserved = 0;
+    v.value = value;
+    return v;
+}
+
+static void setup(void)
+{
+    size_t k;
+    ntr_limits_preset(NTR_LIMITS_STANDARD, &g_limits);
+    /* A complete, consistent SIAD work-up (every branch of the evaluator). */
+    ntr_siad_findings_init(&g_siad);
+    g_siad.effective_osm_mosm_kg = known(255.0);
+    g_siad.urine_osm_mosm_kg = known(450.0);
+    g_siad.urine_na_mmol_l = known(60.0);
+    g_siad.volume_status = NTR_VOLUME_EUVOLAEMIC;
+    g_siad.normal_salt_water_intake = NTR_FINDING_YES;
+    g_siad.thyroid_normal = NTR_FINDING_YES;
+    g_siad.adrenal_normal = NTR_FINDING_YES;
+    g_siad.pituitary_normal = NTR_FINDING_YES;
+    g_siad.kidney_normal = NTR_FINDING_YES;
+    g_siad.recent_diuretic = NTR_FINDING_NO;
+    g_siad.saline_corrected = NTR_FINDING_NO;
+    g_siad.restriction_corrected = NTR_FINDING_YES;
+    g_siad.uric_acid_mmol_l = known(0.18);
+    g_siad.urea_mmol_l = known(2.5);
+    g_siad.fe_na_percent = known(0.8);
+    g_siad.fe_urea_percent = known(60.0);
+    g_siad.fe_uric_acid_percent = known(14.0);
+    g_siad_result.struct_size = sizeof g_siad_result;
+    ntr_watch_init(&g_limits, &g_watch);
+    /* Twelve results over 44 h, rising about 8 mmol/L a day. */
+    for (k = 0; k < 12; k++) {
+        g_series[k].hours = 4.0 * (double)k;
+        g_series[k].na_mmol_l = 116.0 + 1.3 * (double)k;
+    }
+    /* 1 L of 0.9% saline in, 0.8 L of urine (Na+K 90) out. */
+    g_flows[0].volume_l = 1.0;
+    g_flows[0].na_mmol_l = 154.0;
+    g_flows[0].k_mmol_l = 0.0;
+    g_flows[1].volume_l = -0.8;
+    g_flows[1].na_mmol_l = 60.0;
+    g_flows[1].k_mmol_l = 30.0;
+    /* 3% saline at 30 mL/h for 6 h; urine 150 mL/h (Na+K 80) for 24 h. */
+    memset(g_plan_flows, 0, sizeof g_plan_flows);
+    g_plan_flows[0].start_h = 0.0;
+    g_plan_flows[0].end_h = 6.0;
+    g_plan_flows[0].rate_ml_h = 30.0;
+    g_plan_flows[0].na_mmol_l = 513.0;
+    g_plan_flows[1].start_h = 0.0;
+    g_plan_flows[1].end_h = 24.0;
+    g_plan_flows[1].rate_ml_h = -150.0;
+    g_plan_flows[1].na_mmol_l = 50.0;
+    g_plan_flows[1].k_mmol_l = 30.0;
+    for (k = 0; k < 3; k++) {
+        g_history[k].hours = 3.0 * (double)k;
+        g_history[k].na_mmol_l = 114.0 + 0.5 * (double)k;
+    }
+}
 
 /* Invented, clinically plausible inputs that take the full computing path
  * of each function (glucose above the correction threshold, the last UCUM
@@ -98,6 +180,87 @@ PAIR(ntr_status_message, ntr_status_message(NTR_ERR_RANGE) == NULL,
 PAIR(ntr_version_string, ntr_version_string() == NULL, stub_v_str() == NULL)
 PAIR(ntr_version_number, ntr_version_number() == 0ul, stub_v_ul() == 0ul)
 
+PAIR(ntr_na_severity, ntr_na_severity(128.0, &i), stub_d_ip(128.0, &i))
+PAIR(ntr_tonicity_class, ntr_tonicity_class(265.0, &i), stub_d_ip(265.0, &i))
+PAIR(ntr_low_na_tonicity,
+     ntr_low_na_tonicity(122.0, 30.0, 290.0, NTR_GLUCOSE_HILLIER, &i, &g_u1),
+     stub_dddi_pp(122.0, 30.0, 290.0, NTR_GLUCOSE_HILLIER, &i, &g_u1))
+PAIR(ntr_urine_maximally_dilute, ntr_urine_maximally_dilute(80.0, &i),
+     stub_d_ip(80.0, &i))
+PAIR(ntr_urine_na_high, ntr_urine_na_high(45.0, &i), stub_d_ip(45.0, &i))
+PAIR(ntr_fractional_excretion,
+     ntr_fractional_excretion(60.0, 128.0, 8000.0, 90.0, &d),
+     stub_dddd_p(60.0, 128.0, 8000.0, 90.0, &d))
+PAIR(ntr_siad_findings_init, ntr_siad_findings_init(&g_siad),
+     stub_v_p(&g_siad))
+PAIR(ntr_siad_evaluate, ntr_siad_evaluate(&g_siad, &g_siad_result),
+     stub_pp(&g_siad, &g_siad_result))
+PAIR(ntr_method_info, ntr_method_info(NTR_METHOD_FURST, &g_method),
+     stub_i_vp(NTR_METHOD_FURST, &g_method))
+PAIR(ntr_method_next, ntr_method_next(NTR_METHOD_FURST, &i),
+     stub_i_vp(NTR_METHOD_FURST, &i))
+PAIR(ntr_limits_preset, ntr_limits_preset(NTR_LIMITS_HIGH_RISK, &g_limits),
+     stub_i_vp(NTR_LIMITS_HIGH_RISK, &g_limits))
+PAIR(ntr_ods_risk,
+     ntr_ods_risk(112.0, NTR_TRI_NO, NTR_TRI_YES, NTR_TRI_NO, NTR_TRI_UNKNOWN,
+                  &i, &g_u1, &g_u2),
+     stub_diiii_ppp(112.0, NTR_TRI_NO, NTR_TRI_YES, NTR_TRI_NO,
+                    NTR_TRI_UNKNOWN, &i, &g_u1, &g_u2))
+PAIR(ntr_watch_init, ntr_watch_init(&g_limits, &g_watch_fresh),
+     stub_pp(&g_limits, &g_watch_fresh))
+PAIR(ntr_watch_result, ntr_watch_result(&g_watch, &g_correction),
+     stub_pp(&g_watch, &g_correction))
+PAIR(ntr_relower_estimate,
+     ntr_relower_estimate(131.0, 30.0, 0.0, 0.0, 3.0, 6.0, 100.0, 40.0, 20.0,
+                          &d, &d2),
+     stub_d9_pp(131.0, 30.0, 0.0, 0.0, 3.0, 6.0, 100.0, 40.0, 20.0, &d, &d2))
+
+/* The watcher is fed a stream: one result every 4 h, rising 0.25 mmol/L
+ * each time for 32 results and then stepping back down, so the pushes see
+ * rises, falls and a full 48 h window. Both loops compute the same inputs. */
+#define PUSH_HOURS(k) (4.0 * (double)(k))
+#define PUSH_NA(k) (118.0 + 0.25 * (double)((k) % 32))
+NOINLINE long loop_ntr_watch_push(long n);
+NOINLINE long base_ntr_watch_push(long n);
+NOINLINE long loop_ntr_watch_push(long n)
+{
+    long bad = 0;
+    for (long k = 0; k < n; k++) {
+        bad += ntr_watch_push(&g_watch, PUSH_HOURS(k), PUSH_NA(k),
+                              &g_correction) != 0;
+    }
+    return bad;
+}
+NOINLINE long base_ntr_watch_push(long n)
+{
+    long bad = 0;
+    for (long k = 0; k < n; k++) {
+        bad += stub_pdd_p(&g_watch, PUSH_HOURS(k), PUSH_NA(k),
+                          &g_correction) != 0;
+    }
+    return bad;
+}
+
+/* Series functions: the cost depends on the length of the series, so the
+ * script reports these apart from the scalar target, per call and per
+ * sample (ntr_correction_assess scaling is measured by bench_correction). */
+PAIR(ntr_correction_assess,
+     ntr_correction_assess(g_series, 12, &g_limits, &g_correction),
+     stub_pz_pp(g_series, 12, &g_limits, &g_correction))
+PAIR(ntr_balance_predict,
+     ntr_balance_predict(125.0, 30.0, g_flows, 2, &d, &d2),
+     stub_ddpz_pp(125.0, 30.0, g_flows, 2, &d, &d2))
+PAIR(ntr_balance_course,
+     ntr_balance_course(118.0, 30.0, g_plan_flows, 2, 24.0, 1.0, g_course, 32,
+                        &g_count),
+     stub_ddpzdd_pzp(118.0, 30.0, g_plan_flows, 2, 24.0, 1.0, g_course, 32,
+                     &g_count))
+PAIR(ntr_plan_check,
+     ntr_plan_check(g_history, 3, 30.0, g_plan_flows, 2, 24.0, 1.0, &g_limits,
+                    &g_plan),
+     stub_pzdpzddp_p(g_history, 3, 30.0, g_plan_flows, 2, 24.0, 1.0,
+                     &g_limits, &g_plan))
+
 struct pair {
     const char *name;
     long (*loop)(long);
@@ -128,6 +291,26 @@ static const struct pair pairs[] = {
     ENTRY(ntr_status_message),
     ENTRY(ntr_version_string),
     ENTRY(ntr_version_number),
+    ENTRY(ntr_na_severity),
+    ENTRY(ntr_tonicity_class),
+    ENTRY(ntr_low_na_tonicity),
+    ENTRY(ntr_urine_maximally_dilute),
+    ENTRY(ntr_urine_na_high),
+    ENTRY(ntr_fractional_excretion),
+    ENTRY(ntr_siad_findings_init),
+    ENTRY(ntr_siad_evaluate),
+    ENTRY(ntr_method_info),
+    ENTRY(ntr_method_next),
+    ENTRY(ntr_limits_preset),
+    ENTRY(ntr_ods_risk),
+    ENTRY(ntr_watch_init),
+    ENTRY(ntr_watch_push),
+    ENTRY(ntr_watch_result),
+    ENTRY(ntr_relower_estimate),
+    ENTRY(ntr_correction_assess),
+    ENTRY(ntr_balance_predict),
+    ENTRY(ntr_balance_course),
+    ENTRY(ntr_plan_check),
 };
 
 int main(int argc, char **argv)
@@ -139,6 +322,7 @@ int main(int argc, char **argv)
         fprintf(stderr, "bench_scalar: N must be positive\n");
         return 2;
     }
+    setup();
     printf("calls_per_loop %ld\n", n);
     for (k = 0; k < sizeof pairs / sizeof pairs[0]; k++) {
         long bad = pairs[k].loop(n);

@@ -26,5 +26,19 @@ unsigned long stub_v_ul(void);
 int stub_i_vp(int a, void *out);
 int stub_pz_pp(const void *a, size_t n, const void *b, void *out);
 int stub_pdd_p(void *state, double a, double b, void *out);
+int stub_dddi_pp(double a, double b, double c, int d, int *out1,
+                 unsigned int *out2);
+int stub_v_p(void *out);
+int stub_pp(const void *in, void *out);
+int stub_diiii_ppp(double a, int b, int c, int d, int e, int *out1,
+                   unsigned int *out2, unsigned int *out3);
+int stub_d9_pp(double a, double b, double c, double d, double e, double f,
+               double g, double h, double i, double *out1, double *out2);
+int stub_ddpz_pp(double a, double b, const void *p, size_t n, double *out1,
+                 double *out2);
+int stub_ddpzdd_pzp(double a, double b, const void *p, size_t n, double c,
+                    double d, void *out, size_t cap, size_t *count);
+int stub_pzdpzddp_p(const void *h, size_t nh, double a, const void *f,
+                    size_t nf, double b, double c, const void *lim, void *out);
 
 #endif

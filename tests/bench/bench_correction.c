@@ -1,0 +1,242 @@
+/* Side-by-side timing of the correction-series assessment (issue P2).
+ *
+ * Three ways to get the same ntr_correction for the same series, timed in
+ * interleaved rounds on the same invented series:
+ *   linear   ntr_correction_assess (block scheme, O(n), O(1) memory)
+ *   pairwise the definitions read literally, every pair (O(n^2)); the same
+ *            code the unit test uses as its oracle
+ *   watcher  ntr_watch_init + ntr_watch_push per sample (O(n) amortised)
+ * Each round checks that the three agree, so the timing is of correct work.
+ *
+ * Usage: bench_correction [rounds]   (default 5)
+ * Prints, per series length, nanoseconds per series for each way and the
+ * ratios pairwise/linear and watcher/linear (medians over the rounds).
+ * Only the ratios mean anything across machines. */
+#define _POSIX_C_SOURCE 199309L
+#include <math.h>
+#include <stdint.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+
+#include "natremia.h"
+
+static double now_ns(void)
+{
+    struct timespec ts;
+    clock_gettime(CLOCK_MONOTONIC, &ts);
+    return (double)ts.tv_sec * 1e9 + (double)ts.tv_nsec;
+}
+
+static uint64_t rng = 0x853c49e6748fea9bu;
+static double unit(void)
+{
+    rng ^= rng >> 12;
+    rng ^= rng << 25;
+    rng ^= rng >> 27;
+    return (double)((rng * 0x2545f4914f6cdd1du) >> 11) / 9007199254740992.0;
+}
+
+/* ---- the pairwise reading of the definitions --------------------------- */
+
+static int in_window(double a, double b, double w)
+{
+    return b - a <= w + NTR_CF_TIME_TOLERANCE_H;
+}
+
+static double window_min(const ntr_sample *s, size_t j, double t, double w)
+{
+    double m = HUGE_VAL;
+    for (size_t i = 0; i <= j; i++) {
+        if (in_window(s[i].hours, t, w) && s[i].na_mmol_l < m) {
+            m = s[i].na_mmol_l;
+        }
+    }
+    return m;
+}
+
+static ntr_correction pairwise(const ntr_sample *s, size_t n, const ntr_limits *lim)
+{
+    ntr_correction c;
+    const double tol = NTR_CF_TOLERANCE;
+    size_t last = n - 1, prev = n;
+    memset(&c, 0, sizeof c);
+    for (size_t j = 0; j < n; j++) {
+        for (size_t i = 0; i <= j; i++) {
+            double rise = s[j].na_mmol_l - s[i].na_mmol_l;
+            if (in_window(s[i].hours, s[j].hours, 24.0) && rise > c.max_rise_24h) {
+                c.max_rise_24h = rise;
+            }
+            if (in_window(s[i].hours, s[j].hours, 48.0) && rise > c.max_rise_48h) {
+                c.max_rise_48h = rise;
+            }
+        }
+        if (in_window(s[0].hours, s[j].hours, 24.0) &&
+            s[j].na_mmol_l - s[0].na_mmol_l > c.rise_first_24h) {
+            c.rise_first_24h = s[j].na_mmol_l - s[0].na_mmol_l;
+        }
+    }
+    for (size_t i = 0; i < n; i++) {
+        if (s[i].hours < s[last].hours) {
+            prev = i;
+        }
+    }
+    if (c.max_rise_24h > lim->max_rise_24h + tol) {
+        c.flags |= NTR_CF_OVER_24H;
+        c.excess_mmol_l = c.max_rise_24h - lim->max_rise_24h;
+    }
+    if (c.max_rise_48h > lim->max_rise_48h + tol) {
+        c.flags |= NTR_CF_OVER_48H;
+        if (c.max_rise_48h - lim->max_rise_48h > c.excess_mmol_l) {
+            c.excess_mmol_l = c.max_rise_48h - lim->max_rise_48h;
+        }
+    }
+    if (s[last].hours - s[0].hours >= 24.0 - NTR_CF_TIME_TOLERANCE_H &&
+        c.rise_first_24h < lim->min_rise_24h - tol) {
+        c.flags |= NTR_CF_BELOW_TARGET;
+    }
+    double open6 = s[last].na_mmol_l - window_min(s, last, s[last].hours, NTR_CF_RAPID_WINDOW_H);
+    double open24 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 24.0);
+    double open48 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 48.0);
+    if ((open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol && open24 <= lim->max_rise_24h + tol) ||
+        (open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol && open48 <= lim->max_rise_48h + tol)) {
+        c.flags |= NTR_CF_NEAR_LIMIT;
+    }
+    if (open6 >= NTR_CF_RAPID_RISE - tol) {
+        c.flags |= NTR_CF_RAPID_6H;
+    }
+    if (prev < n) {
+        const ntr_sample a = s[prev], b = s[last];
+        c.last_rate_per_h = (b.na_mmol_l - a.na_mmol_l) / (b.hours - a.hours);
+        if (b.na_mmol_l < a.na_mmol_l) {
+            c.flags |= NTR_CF_FALLING;
+        }
+        if (b.na_mmol_l > a.na_mmol_l) {
+            double t = b.hours + (b.hours - a.hours);
+            double na = b.na_mmol_l + (b.na_mmol_l - a.na_mmol_l);
+            if (na - window_min(s, last, t, 24.0) > lim->max_rise_24h + tol ||
+                na - window_min(s, last, t, 48.0) > lim->max_rise_48h + tol) {
+                c.flags |= NTR_CF_PROJECTED_OVER;
+            }
+        }
+    }
+    return c;
+}
+
+/* ---- workload ----------------------------------------------------------- */
+
+/* `patients` invented series of n samples each, every `spacing_h` hours on
+ * average, sodium drifting upwards from a low start. */
+static void make_series(ntr_sample *s, size_t patients, size_t n, double spacing_h)
+{
+    for (size_t p = 0; p < patients; p++) {
+        double t = 0.0, na = 110.0 + 10.0 * unit();
+        for (size_t i = 0; i < n; i++) {
+            s[p * n + i].hours = t;
+            s[p * n + i].na_mmol_l = na;
+            t += spacing_h * (0.5 + unit());
+            /* drifts up about 0.3 per sample, pulled back towards 130 */
+            na += unit() * 1.6 - 0.5 - 0.02 * (na - 130.0);
+        }
+    }
+}
+
+static int same(const ntr_correction *a, const ntr_correction *b)
+{
+    return a->rise_first_24h == b->rise_first_24h && a->max_rise_24h == b->max_rise_24h &&
+           a->max_rise_48h == b->max_rise_48h && a->last_rate_per_h == b->last_rate_per_h &&
+           a->excess_mmol_l == b->excess_mmol_l && a->flags == b->flags;
+}
+
+static int cmp(const void *a, const void *b)
+{
+    double x = *(const double *)a, y = *(const double *)b;
+    return (x > y) - (x < y);
+}
+
+static double median(double *v, int n)
+{
+    qsort(v, (size_t)n, sizeof v[0], cmp);
+    return v[n / 2];
+}
+
+/* Times one series length; returns 0 when all three ways agreed. */
+static int run(size_t n, size_t patients, double spacing_h, int rounds)
+{
+    ntr_sample *s = malloc(sizeof *s * n * patients);
+    ntr_limits lim;
+    double t_lin[32], t_pair[32], t_watch[32], r_pair[32], r_watch[32];
+    volatile unsigned int sink = 0;
+    int bad = 0;
+    if (s == NULL) {
+        return 1;
+    }
+    ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+    make_series(s, patients, n, spacing_h);
+    for (int r = 0; r < rounds; r++) {
+        double t0 = now_ns();
+        for (size_t p = 0; p < patients; p++) {
+            ntr_correction c;
+            bad |= ntr_correction_assess(s + p * n, n, &lim, &c) != NTR_OK;
+            sink += c.flags;
+        }
+        double t1 = now_ns();
+        for (size_t p = 0; p < patients; p++) {
+            ntr_correction c = pairwise(s + p * n, n, &lim);
+            sink += c.flags;
+        }
+        double t2 = now_ns();
+        for (size_t p = 0; p < patients; p++) {
+            ntr_watch w;
+            ntr_correction c;
+            ntr_watch_init(&lim, &w);
+            for (size_t i = 0; i < n; i++) {
+                bad |= ntr_watch_push(&w, s[p * n + i].hours, s[p * n + i].na_mmol_l, &c) != NTR_OK;
+            }
+            sink += c.flags;
+        }
+        double t3 = now_ns();
+        t_lin[r] = (t1 - t0) / (double)patients;
+        t_pair[r] = (t2 - t1) / (double)patients;
+        t_watch[r] = (t3 - t2) / (double)patients;
+        r_pair[r] = t_pair[r] / t_lin[r];
+        r_watch[r] = t_watch[r] / t_lin[r];
+    }
+    /* Agreement, outside the timed loops. */
+    for (size_t p = 0; p < patients && p < 2000; p++) {
+        ntr_correction a, b = pairwise(s + p * n, n, &lim), c;
+        ntr_watch w;
+        ntr_correction_assess(s + p * n, n, &lim, &a);
+        ntr_watch_init(&lim, &w);
+        for (size_t i = 0; i < n; i++) {
+            ntr_watch_push(&w, s[p * n + i].hours, s[p * n + i].na_mmol_l, &c);
+        }
+        bad |= !same(&a, &b) || !same(&a, &c);
+    }
+    printf("%7zu %9zu %12.1f %12.1f %12.1f %10.2f %10.2f%s\n", n, patients,
+           median(t_lin, rounds), median(t_pair, rounds), median(t_watch, rounds),
+           median(r_pair, rounds), median(r_watch, rounds), bad ? "  DISAGREE" : "");
+    free(s);
+    (void)sink;
+    return bad;
+}
+
+int main(int argc, char **argv)
+{
+    int rounds = argc > 1 ? atoi(argv[1]) : 5;
+    int bad = 0;
+    if (rounds < 1 || rounds > 32) {
+        fprintf(stderr, "rounds: 1 to 32\n");
+        return 2;
+    }
+    printf("# ns per series (median of %d rounds); ratios are per-round medians\n", rounds);
+    printf("#     n  patients       linear     pairwise      watcher  pair/lin  watch/lin\n");
+    /* A cohort: a dozen results per admission, a few hours apart. */
+    bad |= run(12, 200000, 6.0, rounds);
+    bad |= run(48, 50000, 2.0, rounds);
+    /* Long, dense series (monitoring): where O(n^2) hurts. */
+    bad |= run(1000, 200, 0.5, rounds);
+    bad |= run(10000, 4, 0.5, rounds);
+    return bad;
+}
