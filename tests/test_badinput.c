@@ -36,8 +36,6 @@ static const char *header_path = NULL;
 static unsigned long cases_tried = 0;
 static unsigned long cases_by_kind[8];
 
-enum { KIND_NULL, KIND_ENUM, KIND_NUMBER, KIND_ORDER, KIND_SERIES, KIND_SWEEP, KIND_OTHER };
-
 /* Judge one case; on a breach, fail with a description of the call. */
 static void judge(const ntrc_fn *f, ntrc_case *c, int kind)
 {
@@ -57,8 +55,8 @@ static void judge(const ntrc_fn *f, ntrc_case *c, int kind)
     for (i = 0; i < f->n_num; i++) {
         print_error("  %s = %a\n", f->num[i].name, c->num[i]);
     }
-    print_error("  null mask 0x%x, n %lu, capacity %lu\n", c->out_null,
-                (unsigned long)c->n, (unsigned long)c->capacity);
+    print_error("  null mask 0x%x, n %lu, n2 %lu, capacity %lu\n", c->out_null,
+                (unsigned long)c->n, (unsigned long)c->n2, (unsigned long)c->capacity);
     fail();
 }
 
@@ -139,7 +137,7 @@ static void null_cases(const ntrc_fn *f)
         /* One pointer NULL, everything else valid. */
         ntrc_baseline(f, &c);
         c.out_null = bit;
-        judge(f, &c, KIND_NULL);
+        judge(f, &c, NTRC_KIND_NULL);
         /* NULL beats every later check: bad enumerators and NaN numbers. */
         ntrc_baseline(f, &c);
         c.out_null = bit;
@@ -153,12 +151,12 @@ static void null_cases(const ntrc_fn *f)
                 c.num[n] = NAN;
             }
         }
-        judge(f, &c, KIND_ORDER);
+        judge(f, &c, NTRC_KIND_ORDER);
     }
     if (all != 0u) {
         ntrc_baseline(f, &c);
         c.out_null = all;
-        judge(f, &c, KIND_NULL);
+        judge(f, &c, NTRC_KIND_NULL);
     }
 }
 
@@ -174,14 +172,14 @@ static void enum_cases(const ntrc_fn *f)
             int n;
             ntrc_baseline(f, &c);
             c.en[i] = values[k];
-            judge(f, &c, KIND_ENUM);
+            judge(f, &c, NTRC_KIND_ENUM);
             /* A bad enumerator beats bad numbers. */
             ntrc_baseline(f, &c);
             c.en[i] = values[k];
             for (n = 0; n < f->n_num; n++) {
                 c.num[n] = HUGE_VAL;
             }
-            judge(f, &c, KIND_ORDER);
+            judge(f, &c, NTRC_KIND_ORDER);
         }
         /* Every valid value together with every valid value of the others
          * is covered by the sweep below; here the earlier enumerator must
@@ -190,7 +188,7 @@ static void enum_cases(const ntrc_fn *f)
             ntrc_baseline(f, &c);
             c.en[i] = -7;
             c.en[i + 1] = -7;
-            judge(f, &c, KIND_ORDER);
+            judge(f, &c, NTRC_KIND_ORDER);
         }
     }
 }
@@ -207,7 +205,7 @@ static void number_cases(const ntrc_fn *f)
         for (k = 0; k < nv; k++) {
             ntrc_baseline(f, &c);
             c.num[i] = values[k];
-            judge(f, &c, KIND_NUMBER);
+            judge(f, &c, NTRC_KIND_NUMBER);
         }
     }
     /* Order between numbers: the earlier bad argument decides. */
@@ -219,11 +217,11 @@ static void number_cases(const ntrc_fn *f)
             ntrc_baseline(f, &c);
             c.num[i] = NAN;
             c.num[j] = f->num[j].hi * 2.0 + 1.0;
-            judge(f, &c, KIND_ORDER);
+            judge(f, &c, NTRC_KIND_ORDER);
             ntrc_baseline(f, &c);
             c.num[i] = f->num[i].lo - 1.0;
             c.num[j] = -HUGE_VAL;
-            judge(f, &c, KIND_ORDER);
+            judge(f, &c, NTRC_KIND_ORDER);
         }
     }
 }
@@ -241,21 +239,25 @@ static void sweep_cases(const ntrc_fn *f)
 {
     ntrc_case c;
     uint32_t seed = 12345u;
-    int combos = 1;
-    int combo;
+    long combos = 1;
+    long combo;
     int i;
     for (i = 0; i < f->n_enum; i++) {
         combos *= f->en[i].n_valid > 0 ? f->en[i].n_valid : 1;
+        if (combos > 64) {
+            combos = 65; /* too many to enumerate: 64 random combinations */
+        }
     }
-    for (combo = 0; combo < combos; combo++) {
+    for (combo = 0; combo < (combos > 64 ? 64 : combos); combo++) {
         int rep;
         for (rep = 0; rep < 40; rep++) {
-            int rest = combo;
+            long rest = combo;
             ntrc_baseline(f, &c);
             for (i = 0; i < f->n_enum; i++) {
                 int nv = f->en[i].n_valid;
                 if (nv > 0) {
-                    c.en[i] = f->en[i].valid[rest % nv];
+                    long pick = combos > 64 ? (long)(lcg(&seed) % (uint32_t)nv) : rest % nv;
+                    c.en[i] = f->en[i].valid[pick];
                     rest /= nv;
                 }
             }
@@ -263,7 +265,7 @@ static void sweep_cases(const ntrc_fn *f)
                 double u = (double)(lcg(&seed) % 1001u) / 1000.0;
                 c.num[i] = f->num[i].lo + (f->num[i].hi - f->num[i].lo) * u;
             }
-            judge(f, &c, KIND_SWEEP);
+            judge(f, &c, NTRC_KIND_SWEEP);
         }
     }
 }
@@ -278,11 +280,14 @@ static void walk_function(void **state)
     assert_null(ntrc_run_and_judge(f, &c, &status));
     assert_int_equal(status, NTR_OK);
     cases_tried++;
-    cases_by_kind[KIND_OTHER]++;
+    cases_by_kind[NTRC_KIND_OTHER]++;
     null_cases(f);
     enum_cases(f);
     number_cases(f);
     sweep_cases(f);
+    if (f->extra_cases != NULL) {
+        f->extra_cases(f, judge);
+    }
 }
 
 /* ---- functions without a status ------------------------------------------ */
@@ -297,12 +302,12 @@ static void statusless_functions(void **state)
         assert_non_null(m);
         assert_true(strlen(m) > 0 && strlen(m) < 200);
         cases_tried++;
-        cases_by_kind[KIND_OTHER]++;
+        cases_by_kind[NTRC_KIND_OTHER]++;
     }
     assert_non_null(ntr_version_string());
     assert_true(ntr_version_number() > 0ul);
     cases_tried += 2;
-    cases_by_kind[KIND_OTHER] += 2;
+    cases_by_kind[NTRC_KIND_OTHER] += 2;
 }
 
 /* ---- unit strings the table does not hold ---------------------------------- */
@@ -336,7 +341,7 @@ static void unit_parse_strings(void **state)
         assert_int_equal(unit, want_unit);
         free(s);
         cases_tried++;
-        cases_by_kind[KIND_OTHER]++;
+        cases_by_kind[NTRC_KIND_OTHER]++;
     }
 }
 
@@ -347,6 +352,11 @@ static int in_table(const char *name)
     size_t i;
     for (i = 0; i < ntrc_n_functions; i++) {
         if (strcmp(ntrc_functions[i].name, name) == 0) {
+            return 1;
+        }
+    }
+    for (i = 0; i < ntrc_n_batch_functions; i++) {
+        if (strcmp(ntrc_batch_functions[i].name, name) == 0) {
             return 1;
         }
     }
@@ -413,7 +423,7 @@ static void every_header_function_is_in_the_table(void **state)
     }
     print_message("header: %d public functions, %lu in the table, %lu without status\n", found,
                   (unsigned long)ntrc_n_functions, (unsigned long)ntrc_n_statusless);
-    assert_true(found >= (int)(ntrc_n_functions + ntrc_n_statusless));
+    assert_true(found >= (int)(ntrc_n_functions + ntrc_n_batch_functions + ntrc_n_statusless));
     assert_int_equal(missing, 0);
 }
 
@@ -422,7 +432,7 @@ static void every_header_function_is_in_the_table(void **state)
 /* Stand-ins that break the contract in one way each. */
 static int writes_on_error(ntrc_case *c)
 {
-    c->out_d[0] = 1.0;
+    c->out.d[0] = 1.0;
     return NTR_ERR_RANGE;
 }
 
@@ -434,7 +444,7 @@ static int wrong_order(ntrc_case *c)
 
 static int nonfinite_success(ntrc_case *c)
 {
-    c->out_d[0] = HUGE_VAL;
+    c->out.d[0] = HUGE_VAL;
     return NTR_OK;
 }
 
@@ -467,7 +477,7 @@ static int well_behaved(ntrc_case *c)
     if (c->num[0] < 0.0 || c->num[0] > 1.0) {
         return NTR_ERR_RANGE;
     }
-    c->out_d[0] = c->num[0];
+    c->out.d[0] = c->num[0];
     return NTR_OK;
 }
 
@@ -522,24 +532,143 @@ static void the_judge_catches_breaches(void **state)
     assert_non_null(ntrc_run_and_judge(&f, &c, &status));
 }
 
+/* ---- batch entry points --------------------------------------------------- */
+
+static void judge_batch(const ntrc_batch_fn *bf, ntrc_batch_case *b)
+{
+    int status = -1;
+    const char *breach = ntrc_batch_run_and_judge(bf, b, &status);
+    cases_tried++;
+    cases_by_kind[NTRC_KIND_BATCH]++;
+    if (breach != NULL) {
+        print_error("%s: %s (status %d, n %lu, null 0x%x, in place %d)\n", bf->name, breach,
+                    status, (unsigned long)b->n, b->null_mask, b->in_place);
+        fail();
+    }
+}
+
+/* Rows: the scalar baseline, then each row spoilt in one column. */
+static void batch_rows(const ntrc_batch_fn *bf, const ntrc_fn *f, ntrc_batch_case *b, size_t n)
+{
+    const double bad[] = {NAN, HUGE_VAL, -HUGE_VAL, -1e300, 1e300, -1.0};
+    size_t i;
+    int k;
+    memset(b, 0, sizeof *b);
+    b->n = n;
+    b->call_en = f->base_en[0];
+    for (i = 0; i < n; i++) {
+        for (k = 0; k < bf->n_cols; k++) {
+            b->col[k][i] = f->base_num[k];
+        }
+        b->row_en[i] = f->base_en[0];
+        if (i % 3 == 1 && bf->n_cols > 0) {
+            b->col[i % (size_t)bf->n_cols][i] = bad[i % 6];
+        }
+        if (bf->row_enum && i % 5 == 4) {
+            b->row_en[i] = 77;
+        }
+    }
+}
+
+static void batch_function(void **state)
+{
+    const ntrc_batch_fn *bf = (const ntrc_batch_fn *)*state;
+    const ntrc_fn *f = ntrc_find(bf->scalar);
+    ntrc_batch_case b;
+    size_t n;
+    unsigned int bit;
+    int k;
+    assert_non_null(f);
+    /* All rows valid; n = 0; mixed rows of every length. */
+    for (n = 0; n <= NTRC_MAX_ROWS; n += (n < 4 ? 1 : 5)) {
+        batch_rows(bf, f, &b, n);
+        judge_batch(bf, &b);
+    }
+    batch_rows(bf, f, &b, 3);
+    for (k = 0; k < 3; k++) {
+        for (n = 0; n < 3; n++) {
+            b.col[0][n] = f->base_num[0];
+        }
+        judge_batch(bf, &b);
+    }
+    /* Every pointer NULL in turn, with n rows and with n = 0. */
+    for (bit = 0; bit < 12; bit++) {
+        for (n = 0; n <= 4; n += 4) {
+            batch_rows(bf, f, &b, n);
+            b.null_mask = 1u << bit;
+            judge_batch(bf, &b);
+        }
+    }
+    /* A bad call-level enumerator, alone and with NULL (NULL wins). */
+    if (bf->call_enum) {
+        const int bad[] = {0, -1, 3, 99, INT_MIN, INT_MAX};
+        size_t j;
+        for (j = 0; j < sizeof bad / sizeof bad[0]; j++) {
+            batch_rows(bf, f, &b, 5);
+            b.call_en = bad[j];
+            judge_batch(bf, &b);
+            b.null_mask = 1u << 10;
+            judge_batch(bf, &b);
+        }
+    }
+    /* In place over each input column. */
+    if (!bf->int_out) {
+        for (k = 0; k < bf->n_cols; k++) {
+            batch_rows(bf, f, &b, 7);
+            b.in_place = k + 1;
+            judge_batch(bf, &b);
+        }
+    }
+}
+
+/* ---- streaming watcher: every prefix equals the whole-series answer ------------ */
+
+static void watch_streams(void **state)
+{
+    ntr_limits lim;
+    ntr_sample s[NTRC_MAX_SERIES];
+    size_t accepted;
+    size_t i;
+    int pattern;
+    (void)state;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim), NTR_OK);
+    for (pattern = 0; pattern < 6; pattern++) {
+        for (i = 0; i < NTRC_MAX_SERIES; i++) {
+            double t = 0.5 * (double)i;
+            switch (pattern) {
+            case 0: s[i].hours = t; s[i].na_mmol_l = 110.0 + 0.25 * (double)i; break; /* steady rise */
+            case 1: s[i].hours = t; s[i].na_mmol_l = 140.0 - 0.5 * (double)i; break;  /* fall */
+            case 2: s[i].hours = 6.0 * (double)i; s[i].na_mmol_l = 110.0 + (double)(i % 7); break;
+            case 3: s[i].hours = (double)(i / 3); s[i].na_mmol_l = 118.0 + (double)(i % 3); break; /* ties */
+            case 4: s[i].hours = t; s[i].na_mmol_l = (i % 9 == 4) ? (double)NAN : 120.0 + 0.1 * (double)i; break;
+            default: s[i].hours = (i % 5 == 3) ? t - 10.0 : t; s[i].na_mmol_l = 125.0; break; /* out of order */
+            }
+        }
+        assert_null(ntrc_watch_replay(&lim, s, NTRC_MAX_SERIES, &accepted));
+        cases_tried += NTRC_MAX_SERIES;
+        cases_by_kind[NTRC_KIND_SERIES] += NTRC_MAX_SERIES;
+    }
+}
+
 static int report_counts(void **state)
 {
     (void)state;
     print_message("bad-input matrix: %lu cases tried over %lu functions "
                   "(NULL %lu, enumerators %lu, numbers %lu, checking order %lu, "
-                  "series/buffers %lu, in-range sweep %lu, other %lu)\n",
-                  cases_tried, (unsigned long)(ntrc_n_functions + ntrc_n_statusless),
-                  cases_by_kind[KIND_NULL], cases_by_kind[KIND_ENUM],
-                  cases_by_kind[KIND_NUMBER], cases_by_kind[KIND_ORDER],
-                  cases_by_kind[KIND_SERIES], cases_by_kind[KIND_SWEEP],
-                  cases_by_kind[KIND_OTHER]);
+                  "series/buffers/structs %lu, in-range sweep %lu, batch %lu, other %lu)\n",
+                  cases_tried,
+                  (unsigned long)(ntrc_n_functions + ntrc_n_batch_functions + ntrc_n_statusless),
+                  cases_by_kind[NTRC_KIND_NULL], cases_by_kind[NTRC_KIND_ENUM],
+                  cases_by_kind[NTRC_KIND_NUMBER], cases_by_kind[NTRC_KIND_ORDER],
+                  cases_by_kind[NTRC_KIND_SERIES], cases_by_kind[NTRC_KIND_SWEEP],
+                  cases_by_kind[NTRC_KIND_BATCH], cases_by_kind[NTRC_KIND_OTHER]);
     return 0;
 }
 
 int main(int argc, char **argv)
 {
     struct CMUnitTest *tests;
-    size_t n = ntrc_n_functions + 4;
+    size_t n = ntrc_n_functions + ntrc_n_batch_functions + 5;
     size_t i;
     int failed;
     if (argc > 1) {
@@ -554,6 +683,14 @@ int main(int argc, char **argv)
         tests[i].test_func = walk_function;
         tests[i].initial_state = (void *)(uintptr_t)&ntrc_functions[i];
     }
+    for (; i < ntrc_n_functions + ntrc_n_batch_functions; i++) {
+        const ntrc_batch_fn *bf = &ntrc_batch_functions[i - ntrc_n_functions];
+        tests[i].name = bf->name;
+        tests[i].test_func = batch_function;
+        tests[i].initial_state = (void *)(uintptr_t)bf;
+    }
+    tests[i].name = "watch_streams";
+    tests[i++].test_func = watch_streams;
     tests[i].name = "status_and_version";
     tests[i++].test_func = statusless_functions;
     tests[i].name = "unit_parse_strings";

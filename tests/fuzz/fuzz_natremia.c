@@ -57,20 +57,20 @@ static double bits_to_double(uint64_t bits)
 }
 
 /* A number for an input documented as lo..hi. */
-static double rd_number(reader *r, const ntrc_num *spec)
+static double rd_range(reader *r, double lo, double hi)
 {
     uint8_t sel = rd_u8(r);
     if (sel < 150) {
         double u = (double)rd_bits(r, 2) / 65535.0;
-        return spec->lo + (spec->hi - spec->lo) * u;
+        return lo + (hi - lo) * u;
     }
     if (sel < 190) {
         const double edges[] = {
-            spec->lo, spec->hi, nextafter(spec->lo, -HUGE_VAL), nextafter(spec->hi, HUGE_VAL),
-            nextafter(spec->lo, HUGE_VAL), nextafter(spec->hi, -HUGE_VAL), 0.0, -0.0,
-            spec->lo - 1.0, spec->hi + 1.0, -spec->hi, spec->hi * 1e6, DBL_MAX, -DBL_MAX,
+            lo, hi, nextafter(lo, -HUGE_VAL), nextafter(hi, HUGE_VAL),
+            nextafter(lo, HUGE_VAL), nextafter(hi, -HUGE_VAL), 0.0, -0.0,
+            lo - 1.0, hi + 1.0, -hi, hi * 1e6, DBL_MAX, -DBL_MAX,
             DBL_MIN, -DBL_MIN, 4.9406564584124654e-324, -4.9406564584124654e-324,
-            (spec->lo + spec->hi) / 2.0, 1.0,
+            (lo + hi) / 2.0, 1.0,
         };
         return edges[(size_t)(sel - 150) % (sizeof edges / sizeof edges[0])];
     }
@@ -79,6 +79,16 @@ static double rd_number(reader *r, const ntrc_num *spec)
         return specials[(size_t)(sel - 190) % 4u];
     }
     return bits_to_double(rd_bits(r, 8));
+}
+
+static double src_number(ntrc_source *src, double lo, double hi)
+{
+    return rd_range((reader *)src->ctx, lo, hi);
+}
+
+static unsigned int src_byte(ntrc_source *src)
+{
+    return rd_u8((reader *)src->ctx);
 }
 
 /* A value for an enumerator: mostly valid, sometimes anything. */
@@ -97,49 +107,144 @@ static int rd_enum(reader *r, const ntrc_enum *spec)
 static void report(const ntrc_fn *f, const ntrc_case *c, int status, const char *what)
 {
     int i;
-    fprintf(stderr, "CONTRACT BREACH in %s: %s (status %d)\n", f->name, what, status);
+    fprintf(stderr, "CONTRACT BREACH in %s: %s (status %d, model %d)\n", f->name, what, status,
+            ntrc_predict(f, c));
     for (i = 0; i < f->n_enum; i++) {
         fprintf(stderr, "  %s = %d\n", f->en[i].name, c->en[i]);
     }
     for (i = 0; i < f->n_num; i++) {
         fprintf(stderr, "  %s = %a (%.17g)\n", f->num[i].name, c->num[i], c->num[i]);
     }
-    fprintf(stderr, "  null mask = 0x%x\n", c->out_null);
+    fprintf(stderr, "  null mask = 0x%x, n = %lu, n2 = %lu, capacity = %lu\n", c->out_null,
+            (unsigned long)c->n, (unsigned long)c->n2, (unsigned long)c->capacity);
+    for (i = 0; i < (int)c->n && i < NTRC_MAX_SERIES; i++) {
+        fprintf(stderr, "  sample %d: %a h, %a mmol/L\n", i, c->samples[i].hours,
+                c->samples[i].na_mmol_l);
+    }
     abort();
 }
 
+static ntrc_case the_case; /* large; one call at a time */
+
 static void fuzz_table_entry(const ntrc_fn *f, reader *r)
 {
-    ntrc_case c;
+    ntrc_case *c = &the_case;
+    ntrc_source src;
     int i;
     int status;
     const char *breach;
     uint8_t nullsel;
-    memset(&c, 0, sizeof c);
+    src.number = src_number;
+    src.byte = src_byte;
+    src.ctx = r;
+    memset(c, 0, sizeof *c);
     for (i = 0; i < f->n_enum; i++) {
-        c.en[i] = rd_enum(r, &f->en[i]);
+        c->en[i] = rd_enum(r, &f->en[i]);
     }
     for (i = 0; i < f->n_num; i++) {
-        c.num[i] = rd_number(r, &f->num[i]);
+        c->num[i] = rd_range(r, f->num[i].lo, f->num[i].hi);
     }
-    if (f->base_series != NULL) {
-        f->base_series(&c);
+    if (f->fuzz_series != NULL) {
+        f->fuzz_series(c, &src);
+    } else if (f->base_series != NULL) {
+        f->base_series(c);
     }
     nullsel = rd_u8(r);
     if (nullsel >= 240) {
         int slots = f->n_out_d + f->n_out_i + f->n_in_ptr;
         int k = slots > 0 ? (nullsel - 240) % slots : 0;
         if (k < f->n_out_d) {
-            c.out_null = NTRC_NULL_D(k);
+            c->out_null = NTRC_NULL_D(k);
         } else if (k < f->n_out_d + f->n_out_i) {
-            c.out_null = NTRC_NULL_I(k - f->n_out_d);
+            c->out_null = NTRC_NULL_I(k - f->n_out_d);
         } else {
-            c.out_null = NTRC_NULL_IN(k - f->n_out_d - f->n_out_i);
+            c->out_null = NTRC_NULL_IN(k - f->n_out_d - f->n_out_i);
         }
     }
-    breach = ntrc_run_and_judge(f, &c, &status);
+    breach = ntrc_run_and_judge(f, c, &status);
     if (breach != NULL) {
-        report(f, &c, status, breach);
+        report(f, c, status, breach);
+    }
+}
+
+static ntrc_batch_case the_batch;
+
+static void fuzz_batch(const ntrc_batch_fn *bf, reader *r)
+{
+    ntrc_batch_case *b = &the_batch;
+    const ntrc_fn *f = ntrc_find(bf->scalar);
+    size_t i;
+    int k;
+    int status;
+    const char *breach;
+    uint8_t sel;
+    memset(b, 0, sizeof *b);
+    b->n = rd_u8(r) % (NTRC_MAX_ROWS + 1);
+    for (i = 0; i < b->n; i++) {
+        for (k = 0; k < bf->n_cols; k++) {
+            b->col[k][i] = rd_range(r, f->num[k].lo, f->num[k].hi);
+        }
+        if (bf->row_enum) {
+            b->row_en[i] = rd_enum(r, &f->en[0]);
+        }
+    }
+    if (bf->call_enum) {
+        b->call_en = rd_enum(r, &f->en[0]);
+    }
+    sel = rd_u8(r);
+    if (sel >= 244) {
+        b->null_mask = 1u << (sel % 12u);
+    } else if (sel >= 230 && !bf->int_out) {
+        b->in_place = 1 + (int)(sel % (unsigned)bf->n_cols);
+    }
+    breach = ntrc_batch_run_and_judge(bf, b, &status);
+    if (breach != NULL) {
+        fprintf(stderr, "CONTRACT BREACH in %s: %s (status %d, n %lu, null 0x%x, in place %d)\n",
+                bf->name, breach, status, (unsigned long)b->n, b->null_mask, b->in_place);
+        for (i = 0; i < b->n; i++) {
+            fprintf(stderr, "  row %lu:", (unsigned long)i);
+            for (k = 0; k < bf->n_cols; k++) {
+                fprintf(stderr, " %a", b->col[k][i]);
+            }
+            fprintf(stderr, " en %d\n", bf->row_enum ? b->row_en[i] : b->call_en);
+        }
+        abort();
+    }
+}
+
+/* A stream of results into ntr_watch_push, compared after every accepted
+ * push with ntr_correction_assess over the same samples. */
+static void fuzz_watch_stream(reader *r)
+{
+    ntr_sample s[NTRC_MAX_SERIES];
+    ntr_limits lim;
+    size_t n = rd_u8(r) % (NTRC_MAX_SERIES + 1);
+    size_t i;
+    size_t accepted;
+    double t = rd_range(r, -50.0, 50.0);
+    const char *breach;
+    if (rd_u8(r) < 128) {
+        (void)ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+    } else {
+        lim.max_rise_24h = rd_range(r, 0.0, 50.0);
+        lim.max_rise_48h = rd_range(r, 0.0, 50.0);
+        lim.min_rise_24h = rd_range(r, 0.0, 50.0);
+    }
+    for (i = 0; i < n; i++) {
+        uint8_t step = rd_u8(r);
+        /* Mostly dense steady rises (the ring's worst case), sometimes
+         * anything. */
+        t += step < 200 ? (double)(step % 8u) * 0.125 : rd_range(r, -5.0, 30.0);
+        s[i].hours = t;
+        s[i].na_mmol_l = step < 200 ? 110.0 + 0.2 * (double)i : rd_range(r, 80.0, 220.0);
+    }
+    breach = ntrc_watch_replay(&lim, s, n, &accepted);
+    if (breach != NULL) {
+        fprintf(stderr, "CONTRACT BREACH in ntr_watch_push: %s\n", breach);
+        for (i = 0; i < n; i++) {
+            fprintf(stderr, "  %a h, %a mmol/L\n", s[i].hours, s[i].na_mmol_l);
+        }
+        abort();
     }
 }
 
@@ -188,6 +293,9 @@ static void fuzz_statusless(reader *r)
     }
 }
 
+/* Selector values: the scalar table, the batch table, then the modes. */
+#define ENTRIES (ntrc_n_functions + ntrc_n_batch_functions + 3)
+
 int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size);
 int LLVMFuzzerInitialize(int *argc, char ***argv);
 
@@ -198,7 +306,7 @@ int LLVMFuzzerInitialize(int *argc, char ***argv)
     (void)argc;
     (void)argv;
     if (getenv("NTR_FUZZ_PRINT_ENTRIES") != NULL) {
-        printf("%lu\n", (unsigned long)(ntrc_n_functions + 2));
+        printf("%lu\n", (unsigned long)ENTRIES);
         exit(0);
     }
     return 0;
@@ -213,11 +321,21 @@ int LLVMFuzzerTestOneInput(const uint8_t *data, size_t size)
     }
     r.p = data + 1;
     r.n = size - 1;
-    pick = data[0] % (ntrc_n_functions + 2);
+    pick = data[0] % ENTRIES;
     if (pick < ntrc_n_functions) {
         fuzz_table_entry(&ntrc_functions[pick], &r);
-    } else if (pick == ntrc_n_functions) {
+        return 0;
+    }
+    pick -= ntrc_n_functions;
+    if (pick < ntrc_n_batch_functions) {
+        fuzz_batch(&ntrc_batch_functions[pick], &r);
+        return 0;
+    }
+    pick -= ntrc_n_batch_functions;
+    if (pick == 0) {
         fuzz_unit_string(&r);
+    } else if (pick == 1) {
+        fuzz_watch_stream(&r);
     } else {
         fuzz_statusless(&r);
     }

@@ -25,40 +25,64 @@
 
 #include <stddef.h>
 
+#include "natremia.h"
+
 #define NTRC_MAX_NUM 12
-#define NTRC_MAX_ENUM 4
+#define NTRC_MAX_ENUM 20
 #define NTRC_MAX_OUT_D 8
 #define NTRC_MAX_OUT_I 4
 #define NTRC_MAX_SERIES 64
+#define NTRC_MAX_FLOWS 8
 #define NTRC_MAX_VALID 12
 
 /* Bit in ntrc_case.out_null for double output i and int output j. */
 #define NTRC_NULL_D(i) (1u << (i))
 #define NTRC_NULL_I(j) (1u << (16 + (j)))
-/* Extra pointer inputs (series, strings) have NULL bits too. */
+/* Pointer inputs and struct/series outputs have NULL bits too; which
+ * pointer each k means is up to the entry's call function. */
 #define NTRC_NULL_IN(k) (1u << (24 + (k)))
+
+/* Everything a function may write. It is filled with one byte pattern
+ * before each call, so "untouched" means every byte still holds it. */
+typedef struct ntrc_outs {
+    double d[NTRC_MAX_OUT_D];
+    int i[NTRC_MAX_OUT_I]; /* also holds unsigned int outputs */
+    size_t z[2];
+    ntr_sample samples[NTRC_MAX_SERIES];
+    union {
+        ntr_limits lim;
+        ntr_correction corr;
+        ntr_plan_result plan;
+        struct ntr_method_info info;
+        ntr_siad_findings findings;
+        ntr_siad_result siad;
+        ntr_watch watch;
+    } s;
+} ntrc_outs;
 
 /* One call: the arguments and the storage the outputs point to. */
 typedef struct ntrc_case {
     double num[NTRC_MAX_NUM];
     int en[NTRC_MAX_ENUM];
     unsigned int out_null; /* NTRC_NULL_* bits: pass NULL instead */
-    double out_d[NTRC_MAX_OUT_D];
-    int out_i[NTRC_MAX_OUT_I];
-    /* Series inputs for functions that take arrays. */
-    size_t n;
-    double series_a[NTRC_MAX_SERIES];
-    double series_b[NTRC_MAX_SERIES];
-    double series_c[NTRC_MAX_SERIES];
-    /* Caller buffer for functions that write arrays. */
-    size_t capacity;
-    double buf[NTRC_MAX_SERIES];
+    /* Series and struct inputs for the functions that take them. */
+    size_t n;               /* samples / flows in use */
+    size_t n2;              /* timed flows in use */
+    size_t capacity;        /* output series capacity */
+    ntr_sample samples[NTRC_MAX_SERIES];
+    ntr_flow flows[NTRC_MAX_FLOWS];
+    ntr_timed_flow tflows[NTRC_MAX_FLOWS];
+    ntr_siad_findings findings;
+    ntr_watch watch;        /* input state of ntr_watch_push/result */
+    ntr_watch watch_clean;  /* the same before any deliberate damage */
+    ntrc_outs out;
 } ntrc_case;
 
 typedef struct ntrc_num {
     const char *name;
     double lo;
     double hi;
+    int lo_open; /* 1: lo itself is out of range ("above lo") */
 } ntrc_num;
 
 typedef struct ntrc_enum {
@@ -67,6 +91,19 @@ typedef struct ntrc_enum {
     int n_valid;
     int valid[NTRC_MAX_VALID];
 } ntrc_enum;
+
+/* Where the fuzzer's numbers come from: number() returns a value for an
+ * input documented as lo..hi (mostly inside, sometimes not), byte() any
+ * byte. */
+typedef struct ntrc_source {
+    double (*number)(struct ntrc_source *src, double lo, double hi);
+    unsigned int (*byte)(struct ntrc_source *src);
+    void *ctx;
+} ntrc_source;
+
+/* Kinds of bad-input case, for the counts test_badinput.c prints. */
+enum { NTRC_KIND_NULL, NTRC_KIND_ENUM, NTRC_KIND_NUMBER, NTRC_KIND_ORDER,
+       NTRC_KIND_SERIES, NTRC_KIND_SWEEP, NTRC_KIND_OTHER, NTRC_KIND_BATCH };
 
 typedef struct ntrc_fn {
     const char *name;
@@ -78,6 +115,10 @@ typedef struct ntrc_fn {
     int n_out_i;
     int n_in_ptr;        /* pointer inputs that may be NULL (NTRC_NULL_IN) */
     unsigned int statuses; /* documented statuses, bit (1u << status) */
+    /* Statuses the function may give when every check the model knows
+     * passes: NTR_ERR_DOMAIN by default (0 here), or others such as
+     * NTR_ERR_CAPACITY or NTR_ERR_RANGE (end of an iteration). */
+    unsigned int may_fail;
     double base_num[NTRC_MAX_NUM]; /* a valid call that returns NTR_OK */
     int base_en[NTRC_MAX_ENUM];
     int (*call)(ntrc_case *c);
@@ -86,8 +127,27 @@ typedef struct ntrc_fn {
      * compatibility, series order, capacity). Return -1 to defer to the
      * generic model. */
     int (*predict)(const struct ntrc_fn *f, const ntrc_case *c);
-    /* Optional: fill c's series/capacity for a baseline call. */
+    /* Optional: fill c's series, flows or structs for a baseline call
+     * from its numbers (called after num/en are set). */
     void (*base_series)(ntrc_case *c);
+    /* Optional: fill them from a source of numbers (the fuzzer). */
+    void (*fuzz_series)(ntrc_case *c, struct ntrc_source *src);
+    /* Optional: called after the outputs are sentinel-filled and before
+     * the call, to set what the caller must set in an output struct
+     * (struct_size). */
+    void (*prepare_out)(ntrc_case *c);
+    /* Optional: judge an error status beyond "outputs untouched" (which is
+     * then not checked generically); NULL when it holds. */
+    const char *(*check_err)(const ntrc_case *c, const ntrc_outs *before, int status);
+    /* 1 when a successful call may change its input state (ntr_watch). */
+    int mutates_input;
+    /* Optional: the result values to print as reference vectors (struct
+     * outputs); by default the double then the int outputs. */
+    int (*results)(const ntrc_case *c, double *vals, int max);
+    /* Optional: bad-input cases beyond the generic matrix (n = 0,
+     * unsorted series, too-small buffers, bad struct members). */
+    void (*extra_cases)(const struct ntrc_fn *f,
+                        void (*judge)(const struct ntrc_fn *f, ntrc_case *c, int kind));
     /* NULL when the successful result c meets the documented bounds,
      * otherwise a short description of the breach. */
     const char *(*check_ok)(const ntrc_case *c);
@@ -122,5 +182,55 @@ int ntrc_enum_is_valid(const ntrc_fn *f, int i, int value);
 
 /* Nonzero when output storage still holds the sentinel everywhere. */
 int ntrc_outputs_untouched(const ntrc_case *c);
+
+/* ---- batch entry points ----------------------------------------------- */
+
+#define NTRC_MAX_ROWS 24
+#define NTRC_MAX_COLS 6
+
+/* One batch call: columns of row inputs, a per-row enumerator (sex), and
+ * the row outputs. */
+typedef struct ntrc_batch_case {
+    size_t n;
+    double col[NTRC_MAX_COLS][NTRC_MAX_ROWS];
+    int row_en[NTRC_MAX_ROWS];
+    int call_en;           /* enumerator passed once (formula, method) */
+    unsigned int null_mask; /* bit k < NTRC_MAX_COLS: column k NULL;
+                               bit 8 row_en, 9 out, 10 status, 11 failed */
+    int in_place;          /* 1 + k: out is column k itself */
+    double out[NTRC_MAX_ROWS];
+    int out_i[NTRC_MAX_ROWS];
+    int status[NTRC_MAX_ROWS];
+    size_t failed;
+} ntrc_batch_case;
+
+typedef struct ntrc_batch_fn {
+    const char *name;
+    const char *scalar;    /* the table entry it must agree with */
+    int n_cols;            /* double input columns, in scalar num order */
+    int row_enum;          /* 1: the scalar's en[0] is a per-row array */
+    int call_enum;         /* 1: the scalar's en[0] is one argument */
+    int int_out;           /* 1: the output is int (advice), else double */
+    int (*call)(ntrc_batch_case *b);
+} ntrc_batch_fn;
+
+extern const ntrc_batch_fn ntrc_batch_functions[];
+extern const size_t ntrc_n_batch_functions;
+
+/* The scalar entry named, or NULL. */
+const ntrc_fn *ntrc_find(const char *name);
+
+/* Run a batch call and judge it against the batch contract and the scalar
+ * function row by row. NULL when it holds. */
+const char *ntrc_batch_run_and_judge(const ntrc_batch_fn *bf, ntrc_batch_case *b, int *status);
+
+/* ---- ntr_watch: streaming equals the whole-series assessment ----------- */
+
+/* Push the samples one by one into a watcher with limits lim (pushes that
+ * are rejected are judged too and leave the state alone); after each
+ * accepted push compare with ntr_correction_assess over the accepted ones.
+ * NULL when the contract holds. *accepted receives the count. */
+const char *ntrc_watch_replay(const ntr_limits *lim, const ntr_sample *s, size_t n,
+                              size_t *accepted);
 
 #endif
