@@ -755,7 +755,8 @@ NTR_API int ntr_urine_na_high(double urine_na_mmol_l, int *high);
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
  *         NTR_ERR_DOMAIN (@p plasma_x, @p urine_creatinine or
  *         @p plasma_creatinine is 0: nothing filtered or no clearance
- *         marker, so the fraction has no meaning).
+ *         marker, so the fraction has no meaning; or denominators so close
+ *         to 0 that the quotient is not a finite double).
  *
  * Reference: standard renal physiology (clearance of x over clearance of
  * creatinine); the SIAD cut-offs for sodium, urea and uric acid are in

@@ -134,6 +134,8 @@ int ntr_fractional_excretion(double urine_x, double plasma_x,
                              double urine_creatinine, double plasma_creatinine,
                              double *percent)
 {
+    double denominator;
+    double fraction;
     if (percent == NULL) {
         return NTR_ERR_NULL;
     }
@@ -146,7 +148,18 @@ int ntr_fractional_excretion(double urine_x, double plasma_x,
     if (plasma_x == 0.0 || urine_creatinine == 0.0 || plasma_creatinine == 0.0) {
         return NTR_ERR_DOMAIN;
     }
-    *percent = 100.0 * (urine_x * plasma_creatinine) / (plasma_x * urine_creatinine);
+    /* The unit is the caller's, so there is no positive lower bound; a
+     * denominator near the smallest doubles can underflow to 0 or push the
+     * quotient past the largest double. Neither is a fraction. */
+    denominator = plasma_x * urine_creatinine;
+    if (denominator == 0.0) {
+        return NTR_ERR_DOMAIN; /* checked first: never divide by zero */
+    }
+    fraction = 100.0 * (urine_x * plasma_creatinine) / denominator;
+    if (!isfinite(fraction)) {
+        return NTR_ERR_DOMAIN;
+    }
+    *percent = fraction;
     return NTR_OK;
 }
 

@@ -12,6 +12,7 @@
 #include <setjmp.h>
 #include <stdint.h>
 #include <string.h>
+#include <float.h>
 #include <cmocka.h>
 
 #include "natremia_test.h"
@@ -537,6 +538,14 @@ static void fractional_excretion_bad_inputs(void **state)
     assert_int_equal(ntr_fractional_excretion(40.0, 140.0, 0.0, 88.0, &out), NTR_ERR_DOMAIN);
     assert_int_equal(ntr_fractional_excretion(40.0, 140.0, 8800.0, 0.0, &out), NTR_ERR_DOMAIN);
     assert_true(out == NTR_TEST_SENTINEL);
+    /* Denominators so small that the product underflows to 0, or the
+     * quotient overflows: no finite fraction, NTR_ERR_DOMAIN. */
+    assert_int_equal(ntr_fractional_excretion(80.0, DBL_MIN, 9000.0, 70.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_fractional_excretion(80.0, DBL_MIN, DBL_MIN, 70.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_fractional_excretion(1e6, 1e-300, 1e-5, 1e6, &out), NTR_ERR_DOMAIN);
+    assert_true(out == NTR_TEST_SENTINEL);
+    /* Small but representable denominators still give a finite result. */
+    assert_true(isfinite(fe(1.0, 1e-150, 1e-150, 1.0)));
     /* A zero urine concentration is a valid 0 %. */
     assert_near(fe(0.0, 140.0, 8800.0, 88.0), 0.0, 0.0);
 }
