@@ -265,6 +265,7 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
     ntri_breach breach;
     ntr_correction course;
     double final_na, final_tbw;
+    int history_order;
 
     if (history == NULL || lim == NULL || out == NULL ||
         (flows == NULL && n_flows > 0)) {
@@ -274,12 +275,12 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
         return NTR_ERR_ARG;
     }
     NTR_TRY(check_timed_flows_reserved(flows, n_flows));
-    NTR_TRY(ntri_samples_check(history, n_history));
+    NTR_TRY(ntri_samples_check(history, n_history, &history_order));
     NTR_TRY(ntr_check_tbw(tbw_l));
     NTR_TRY(check_timed_flows(flows, n_flows));
     NTR_TRY(check_span(duration_h, step_h));
     NTR_TRY(ntri_limits_check(lim));
-    NTR_TRY(ntri_samples_order(history, n_history));
+    NTR_TRY(history_order);
     NTR_TRY(timed_flows_order(flows, n_flows));
 
     p.na0 = history[n_history - 1].na_mmol_l;

@@ -115,24 +115,20 @@ int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
 
 /* ---- checks of a series ------------------------------------------------ */
 
-int ntri_samples_check(const ntr_sample *s, size_t n)
+int ntri_samples_check(const ntr_sample *s, size_t n, int *order)
 {
+    double previous = -HUGE_VAL;
+    int ordered = 1;
     size_t i;
+    /* One pass: numbers are checked in index order; the time order is only
+     * noted, because every numeric error outranks it. */
     for (i = 0; i < n; i++) {
         NTR_TRY(ntr_check(s[i].hours, -NTRI_HOURS_MAX, NTRI_HOURS_MAX));
         NTR_TRY(ntr_check_na(s[i].na_mmol_l));
+        ordered &= s[i].hours >= previous;
+        previous = s[i].hours;
     }
-    return NTR_OK;
-}
-
-int ntri_samples_order(const ntr_sample *s, size_t n)
-{
-    size_t i;
-    for (i = 1; i < n; i++) {
-        if (s[i].hours < s[i - 1].hours) {
-            return NTR_ERR_ORDER;
-        }
-    }
+    *order = ordered ? NTR_OK : NTR_ERR_ORDER;
     return NTR_OK;
 }
 
@@ -356,6 +352,27 @@ static void scan_window(const ntri_series *v, double w, double bar,
     res->first_over = first;
 }
 
+/* Walks back from index `end` (exclusive) over the samples within w
+ * before time t, lowering *lowest to their lowest sodium; returns the index
+ * where it stopped (the first sample of the stretch). */
+static size_t extend_min_back(const ntri_series *v, size_t end, double t,
+                              double w, double *lowest)
+{
+    double m = *lowest;
+    while (end > 0) {
+        const ntr_sample s = point_at(v, end - 1);
+        if (!within(s.hours, t, w)) {
+            break;
+        }
+        if (s.na_mmol_l < m) {
+            m = s.na_mmol_l;
+        }
+        end--;
+    }
+    *lowest = m;
+    return end;
+}
+
 /* rise_first_24h, the last interval, and the windows ending at the last
  * sample and at the projected next one: a walk forward over the first 24 h
  * and one backward over the last 48 h. */
@@ -367,12 +384,11 @@ static void scan_ends(const ntri_series *v, struct figures *f)
     ntr_sample prev = last;
     ntr_sample next = last;
     int has_prev = 0;
-    double min_6 = last.na_mmol_l;
-    double min_24 = last.na_mmol_l;
-    double min_48 = last.na_mmol_l;
+    double min_6, min_24, min_48;
     double next_min_24 = HUGE_VAL;
     double next_min_48 = HUGE_VAL;
     double rise_first = 0.0;
+    double lowest;
     size_t i;
 
     for (i = 1; i < n; i++) {
@@ -394,32 +410,26 @@ static void scan_ends(const ntri_series *v, struct figures *f)
         }
     }
     last_interval(has_prev, prev, last, f);
+
+    /* The 6 h, 24 h and 48 h windows ending at the last sample are nested
+     * suffixes of the series: one backward walk in three stretches. */
+    lowest = last.na_mmol_l;
+    i = n - 1;
+    i = extend_min_back(v, i, last.hours, WINDOW_6H, &lowest);
+    min_6 = lowest;
+    i = extend_min_back(v, i, last.hours, WINDOW_24H, &lowest);
+    min_24 = lowest;
+    (void)extend_min_back(v, i, last.hours, WINDOW_48H, &lowest);
+    min_48 = lowest;
+
+    /* The windows ending at the projected next sample: shorter suffixes. */
     if (f->rising) {
         next = projected_next(prev, last);
-    }
-
-    for (i = n; i > 0; i--) {
-        const ntr_sample s = point_at(v, i - 1);
-        if (!within(s.hours, last.hours, WINDOW_48H)) {
-            break;
-        }
-        if (s.na_mmol_l < min_48) {
-            min_48 = s.na_mmol_l;
-        }
-        if (s.na_mmol_l < min_24 && within(s.hours, last.hours, WINDOW_24H)) {
-            min_24 = s.na_mmol_l;
-        }
-        if (s.na_mmol_l < min_6 && within(s.hours, last.hours, WINDOW_6H)) {
-            min_6 = s.na_mmol_l;
-        }
-        if (f->rising) {
-            if (s.na_mmol_l < next_min_48 && within(s.hours, next.hours, WINDOW_48H)) {
-                next_min_48 = s.na_mmol_l;
-            }
-            if (s.na_mmol_l < next_min_24 && within(s.hours, next.hours, WINDOW_24H)) {
-                next_min_24 = s.na_mmol_l;
-            }
-        }
+        lowest = HUGE_VAL;
+        i = extend_min_back(v, n, next.hours, WINDOW_24H, &lowest);
+        next_min_24 = lowest;
+        (void)extend_min_back(v, i, next.hours, WINDOW_48H, &lowest);
+        next_min_48 = lowest;
     }
 
     f->rise_first_24h = rise_first;
@@ -454,15 +464,16 @@ int ntr_correction_assess(const ntr_sample *s, size_t n, const ntr_limits *lim,
                           ntr_correction *out)
 {
     ntri_series v;
+    int order;
     if (s == NULL || lim == NULL || out == NULL) {
         return NTR_ERR_NULL;
     }
     if (n == 0) {
         return NTR_ERR_ARG;
     }
-    NTR_TRY(ntri_samples_check(s, n));
+    NTR_TRY(ntri_samples_check(s, n, &order));
     NTR_TRY(ntri_limits_check(lim));
-    NTR_TRY(ntri_samples_order(s, n));
+    NTR_TRY(order);
     v.samples = s;
     v.point = NULL;
     v.ctx = NULL;

@@ -39,11 +39,10 @@ typedef struct ntri_breach {
 /* NTR_OK or the first failing status of the limit checks. */
 int ntri_limits_check(const ntr_limits *lim);
 
-/* Numeric checks of samples (each: hours, then sodium, in index order). */
-int ntri_samples_check(const ntr_sample *s, size_t n);
-
-/* NTR_OK when the times never decrease, else NTR_ERR_ORDER. */
-int ntri_samples_order(const ntr_sample *s, size_t n);
+/* Numeric checks of samples (each: hours, then sodium, in index order).
+ * On NTR_OK, *order is NTR_OK when the times never decrease, else
+ * NTR_ERR_ORDER (for the caller to return after its other checks). */
+int ntri_samples_check(const ntr_sample *s, size_t n, int *order);
 
 /* Assess a checked, ordered, non-empty series under checked limits. When
  * breach is not NULL, also finds the first points at or after `from` that
