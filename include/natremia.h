@@ -80,14 +80,16 @@ extern "C" {
 NTR_API const char *ntr_status_message(int status);
 
 /**
- * @brief The library's version as "MAJOR.MINOR.PATCH".
- * @return a static string; compare with the NTR_VERSION_* macros to detect
+ * @brief The library's version as text.
+ * @return "MAJOR.MINOR.PATCH" as a static string; compare with the NTR_VERSION_* macros to detect
  *         a header/library mismatch.
  */
 NTR_API const char *ntr_version_string(void);
 
 /**
- * @brief The library's version as MAJOR*10000 + MINOR*100 + PATCH.
+ * @brief The library's version as one number.
+ * @return MAJOR*10000 + MINOR*100 + PATCH of the library that is running
+ *         (10000 for 1.0.0); compare with the NTR_VERSION_* macros.
  */
 NTR_API unsigned long ntr_version_number(void);
 /** @} */
