@@ -31,7 +31,7 @@ static int apply_balance(double na0, double tbw0, double gain_l,
 
 static int check_flow(const ntr_flow *f)
 {
-    NTR_TRY(ntr_check(f->volume_l, NTRI_FLOW_VOLUME_MIN, NTR_INFUSE_VOLUME_MAX));
+    NTR_TRY(ntr_check(f->volume_l, NTR_FLOW_VOLUME_MIN, NTR_INFUSE_VOLUME_MAX));
     NTR_TRY(ntr_check(f->na_mmol_l, 0.0, NTR_INFUSATE_NA_MAX));
     return ntr_check(f->k_mmol_l, 0.0, NTR_INFUSATE_K_MAX);
 }
@@ -78,9 +78,9 @@ static int check_timed_flows(const ntr_timed_flow *flows, size_t n)
     size_t i;
     for (i = 0; i < n; i++) {
         const ntr_timed_flow *f = &flows[i];
-        NTR_TRY(ntr_check(f->start_h, 0.0, NTRI_PLAN_HOURS_MAX));
-        NTR_TRY(ntr_check(f->end_h, 0.0, NTRI_PLAN_HOURS_MAX));
-        NTR_TRY(ntr_check(f->rate_ml_h, -NTRI_FLOW_RATE_MAX, NTRI_FLOW_RATE_MAX));
+        NTR_TRY(ntr_check(f->start_h, 0.0, NTR_PLAN_HOURS_MAX));
+        NTR_TRY(ntr_check(f->end_h, 0.0, NTR_PLAN_HOURS_MAX));
+        NTR_TRY(ntr_check(f->rate_ml_h, -NTR_FLOW_RATE_MAX, NTR_FLOW_RATE_MAX));
         NTR_TRY(ntr_check(f->na_mmol_l, 0.0, NTR_INFUSATE_NA_MAX));
         NTR_TRY(ntr_check(f->k_mmol_l, 0.0, NTR_INFUSATE_K_MAX));
     }
@@ -100,11 +100,11 @@ static int timed_flows_order(const ntr_timed_flow *flows, size_t n)
 
 static int check_span(double duration_h, double step_h)
 {
-    NTR_TRY(ntr_check(duration_h, 0.0, NTRI_PLAN_HOURS_MAX));
+    NTR_TRY(ntr_check(duration_h, 0.0, NTR_PLAN_HOURS_MAX));
     if (!(duration_h > 0.0)) {
         return NTR_ERR_RANGE;
     }
-    return ntr_check(step_h, NTRI_PLAN_STEP_MIN, NTRI_PLAN_HOURS_MAX);
+    return ntr_check(step_h, NTR_PLAN_STEP_MIN, NTR_PLAN_HOURS_MAX);
 }
 
 /* A plan: where it starts and what flows, and its time grid. Points are at
@@ -334,8 +334,8 @@ int ntr_relower_estimate(double na_mmol_l, double tbw_l, double fluid_na_mmol_l,
         return NTR_ERR_RANGE;
     }
     /* At least a minute, so the rate stays finite. */
-    NTR_TRY(ntr_check(hours, NTRI_PLAN_STEP_MIN, NTRI_PLAN_HOURS_MAX));
-    NTR_TRY(ntr_check(urine_ml_h, 0.0, NTRI_FLOW_RATE_MAX));
+    NTR_TRY(ntr_check(hours, NTR_PLAN_STEP_MIN, NTR_PLAN_HOURS_MAX));
+    NTR_TRY(ntr_check(urine_ml_h, 0.0, NTR_FLOW_RATE_MAX));
     NTR_TRY(ntr_check(urine_na_mmol_l, 0.0, NTR_URINE_NA_MAX));
     NTR_TRY(ntr_check(urine_k_mmol_l, 0.0, NTR_URINE_K_MAX));
 

@@ -45,7 +45,7 @@ int ntr_limits_preset(int preset, ntr_limits *out)
 
 static int check_max_limit(double x)
 {
-    NTR_TRY(ntr_check(x, 0.0, NTRI_LIMIT_MAX));
+    NTR_TRY(ntr_check(x, 0.0, NTR_LIMIT_MAX));
     /* A zero limit would flag every measurement; it is not a limit. */
     return x > 0.0 ? NTR_OK : NTR_ERR_RANGE;
 }
@@ -54,7 +54,7 @@ int ntri_limits_check(const ntr_limits *lim)
 {
     NTR_TRY(check_max_limit(lim->max_rise_24h));
     NTR_TRY(check_max_limit(lim->max_rise_48h));
-    NTR_TRY(ntr_check(lim->min_rise_24h, 0.0, NTRI_LIMIT_MAX));
+    NTR_TRY(ntr_check(lim->min_rise_24h, 0.0, NTR_LIMIT_MAX));
     /* Any 24 h lies inside some 48 h, so a looser 24 h limit is meaningless,
      * and a target above the ceiling could never be met safely. */
     if (lim->max_rise_24h > lim->max_rise_48h ||
@@ -123,7 +123,7 @@ int ntri_samples_check(const ntr_sample *s, size_t n, int *order)
     /* One pass: numbers are checked in index order; the time order is only
      * noted, because every numeric error outranks it. */
     for (i = 0; i < n; i++) {
-        NTR_TRY(ntr_check(s[i].hours, -NTRI_HOURS_MAX, NTRI_HOURS_MAX));
+        NTR_TRY(ntr_check(s[i].hours, -NTR_HOURS_MAX, NTR_HOURS_MAX));
         NTR_TRY(ntr_check_na(s[i].na_mmol_l));
         ordered &= s[i].hours >= previous;
         previous = s[i].hours;
@@ -599,7 +599,7 @@ int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
     if (!watch_sound(w)) {
         return NTR_ERR_ARG;
     }
-    NTR_TRY(ntr_check(hours, -NTRI_HOURS_MAX, NTRI_HOURS_MAX));
+    NTR_TRY(ntr_check(hours, -NTR_HOURS_MAX, NTR_HOURS_MAX));
     NTR_TRY(ntr_check_na(na_mmol_l));
     if (w->seen != 0u && hours < w->last.hours) {
         return NTR_ERR_ORDER;

@@ -8,15 +8,6 @@
 
 #include "ntr_internal.h"
 
-/* Ranges of the correction and balance inputs (docs/ranges.md lists them
- * with their reasons). */
-#define NTRI_HOURS_MAX 1.0e6        /* |sample time|, h: about 114 years, so epoch-based hours fit */
-#define NTRI_LIMIT_MAX 50.0         /* a correction limit, mmol/L (as NTR_DELTA_MAX) */
-#define NTRI_FLOW_RATE_MAX 5000.0   /* |rate| of a timed flow or urine, mL/h */
-#define NTRI_PLAN_HOURS_MAX 720.0   /* plan length and flow times, h (30 days) */
-#define NTRI_PLAN_STEP_MIN (1.0 / 60.0) /* plan step, h (one minute) */
-#define NTRI_FLOW_VOLUME_MIN (-30.0) /* a loss, L (as NTR_URINE_VOLUME_MAX) */
-
 /* Index meaning "no such sample". */
 #define NTRI_NONE ((size_t)-1)
 

@@ -40,6 +40,13 @@
 #define NTR_URIC_ACID_MAX 2.0      /* serum uric acid, mmol/L (33.6 mg/dL) */
 #define NTR_FE_PERCENT_MAX 200.0   /* a fractional excretion given as input, % */
 #define NTR_FE_INPUT_MAX 1.0e6     /* any concentration in ntr_fractional_excretion */
+/* Correction and balance (lib/correction.c, lib/balance.c); docs/ranges.md. */
+#define NTR_HOURS_MAX 1.0e6          /* |sample time|, h: about 114 years, epoch-based hours fit */
+#define NTR_LIMIT_MAX 50.0           /* a correction limit, mmol/L (as NTR_DELTA_MAX) */
+#define NTR_FLOW_RATE_MAX 5000.0     /* |rate| of a timed flow, and urine rate, mL/h */
+#define NTR_PLAN_HOURS_MAX 720.0     /* plan length and flow times, h (30 days) */
+#define NTR_PLAN_STEP_MIN (1.0 / 60.0) /* plan step and re-lowering period, h (one minute) */
+#define NTR_FLOW_VOLUME_MIN (-30.0)  /* a loss in ntr_balance_predict, L (as NTR_URINE_VOLUME_MAX) */
 
 /* NTR_OK when x is finite and lo <= x <= hi; lo and hi must be finite.
  * The valid case costs one pair of comparisons: NaN fails both and an
