@@ -1,0 +1,927 @@
+/*
+ * natremia_pg.c: the natremia formulas as PostgreSQL functions.
+ *
+ * Every formula comes in two forms (natremia--1.0.sql declares them):
+ *   ntr_<name>(...)          invalid input gives NULL;
+ *   ntr_<name>_checked(...)  invalid input raises an error whose SQLSTATE
+ *                            says why (see report_status()).
+ * Both call the same C function of the library; only the reaction to a
+ * status other than NTR_OK differs.
+ *
+ * The aggregate ntr_correction_assess(hours, na_mmol_l [, limits]) collects
+ * a patient's samples (per GROUP BY), sorts them by time and runs
+ * ntr_correction_assess() once in its final function.
+ *
+ * Every result is an estimate for decision support, not an order. Verify
+ * with measured values; follow local protocols and licensed clinical
+ * judgement.
+ */
+#include "postgres.h"
+
+#include <math.h>
+#include <string.h>
+
+#include "access/htup_details.h"
+#include "catalog/pg_type.h"
+#include "fmgr.h"
+#include "funcapi.h"
+#include "libpq/pqformat.h"
+#include "utils/array.h"
+#include "utils/builtins.h"
+#include "utils/lsyscache.h"
+
+#include "natremia.h"
+
+PG_MODULE_MAGIC;
+
+/* ---------------------------------------------------------------------
+ * Status to SQL error
+ * --------------------------------------------------------------------- */
+
+static const char *
+status_name(int status)
+{
+	static const char *const names[] = {
+		"NTR_OK", "NTR_ERR_NULL", "NTR_ERR_NONFINITE", "NTR_ERR_RANGE",
+		"NTR_ERR_UNIT", "NTR_ERR_DOMAIN", "NTR_ERR_ORDER", "NTR_ERR_CAPACITY",
+		"NTR_ERR_ARG"
+	};
+
+	if (status >= 0 && status < (int) lengthof(names))
+		return names[status];
+	return "unknown status";
+}
+
+/*
+ * SQLSTATE for a status: a value outside its plausible range is
+ * numeric_value_out_of_range (22003); a non-finite value, an unknown name,
+ * samples out of time order or a formula undefined for the inputs are
+ * invalid_parameter_value (22023); anything else (a bug) is internal_error.
+ */
+static int
+status_sqlstate(int status)
+{
+	switch (status)
+	{
+		case NTR_ERR_RANGE:
+			return ERRCODE_NUMERIC_VALUE_OUT_OF_RANGE;
+		case NTR_ERR_NONFINITE:
+		case NTR_ERR_UNIT:
+		case NTR_ERR_DOMAIN:
+		case NTR_ERR_ORDER:
+		case NTR_ERR_ARG:
+			return ERRCODE_INVALID_PARAMETER_VALUE;
+		default:
+			return ERRCODE_INTERNAL_ERROR;
+	}
+}
+
+static void
+report_status(const char *function, int status)
+{
+	ereport(ERROR,
+			(errcode(status_sqlstate(status)),
+			 errmsg("%s: %s", function, ntr_status_message(status)),
+			 errdetail("natremia status %s (%d).", status_name(status), status),
+			 errhint("The accepted range of every input is listed in the "
+					 "natremia documentation (docs/ranges.md).")));
+}
+
+static void
+report_name(const char *function, const char *what, const char *given,
+			const char *accepted)
+{
+	ereport(ERROR,
+			(errcode(ERRCODE_INVALID_PARAMETER_VALUE),
+			 errmsg("%s: unknown %s \"%s\"", function, what, given),
+			 errdetail("natremia status NTR_ERR_ARG (%d).", NTR_ERR_ARG),
+			 errhint("Accepted: %s.", accepted)));
+}
+
+/* The result, NULL, or an error, depending on the status and the variant. */
+#define RETURN_DOUBLE(function, checked, status, value) \
+	do { \
+		if ((status) == NTR_OK) \
+			PG_RETURN_FLOAT8(value); \
+		if (checked) \
+			report_status((function), (status)); \
+		PG_RETURN_NULL(); \
+	} while (0)
+
+/* Defines the two SQL-callable C functions of one formula. */
+#define NTRPG_PAIR(name) \
+	PG_FUNCTION_INFO_V1(ntrpg_##name); \
+	PG_FUNCTION_INFO_V1(ntrpg_##name##_checked); \
+	Datum ntrpg_##name(PG_FUNCTION_ARGS); \
+	Datum ntrpg_##name##_checked(PG_FUNCTION_ARGS); \
+	Datum ntrpg_##name(PG_FUNCTION_ARGS) { return name##_impl(fcinfo, false); } \
+	Datum ntrpg_##name##_checked(PG_FUNCTION_ARGS) { return name##_impl(fcinfo, true); }
+
+/* ---------------------------------------------------------------------
+ * Names of enumerators (case-insensitive in SQL)
+ * --------------------------------------------------------------------- */
+
+typedef struct named_value
+{
+	const char *name;
+	int			value;
+} named_value;
+
+static const named_value osm_formulas[] = {
+	{"2na", NTR_OSM_2NA}, {"two_na", NTR_OSM_2NA},
+	{"dorwart_chalmers", NTR_OSM_DORWART_CHALMERS}, {NULL, 0}
+};
+static const named_value glucose_methods[] = {
+	{"katz", NTR_GLUCOSE_KATZ}, {"hillier", NTR_GLUCOSE_HILLIER}, {NULL, 0}
+};
+static const named_value sexes[] = {
+	{"male", NTR_SEX_MALE}, {"m", NTR_SEX_MALE},
+	{"female", NTR_SEX_FEMALE}, {"f", NTR_SEX_FEMALE}, {NULL, 0}
+};
+static const named_value fluids[] = {
+	{"nacl_0_9", NTR_FLUID_NACL_0_9}, {"nacl_3", NTR_FLUID_NACL_3},
+	{"nacl_5", NTR_FLUID_NACL_5}, {"nacl_0_45", NTR_FLUID_NACL_0_45},
+	{"ringer_lactate", NTR_FLUID_RINGER_LACTATE},
+	{"dextrose_5", NTR_FLUID_DEXTROSE_5},
+	{"nacl_0_2_dextrose_5", NTR_FLUID_NACL_0_2_DEXTROSE_5}, {NULL, 0}
+};
+static const named_value analytes[] = {
+	{"sodium", NTR_ANALYTE_SODIUM}, {"potassium", NTR_ANALYTE_POTASSIUM},
+	{"chloride", NTR_ANALYTE_CHLORIDE}, {"glucose", NTR_ANALYTE_GLUCOSE},
+	{"urea", NTR_ANALYTE_UREA}, {"urea_nitrogen", NTR_ANALYTE_UREA_NITROGEN},
+	{"creatinine", NTR_ANALYTE_CREATININE}, {"ethanol", NTR_ANALYTE_ETHANOL},
+	{NULL, 0}
+};
+static const named_value limit_presets[] = {
+	{"standard", NTR_LIMITS_STANDARD}, {"high_risk", NTR_LIMITS_HIGH_RISK},
+	{NULL, 0}
+};
+
+/* Accepted names, comma separated, for an error hint. */
+static char *
+accepted_names(const named_value *table)
+{
+	StringInfoData buf;
+	int			i;
+
+	initStringInfo(&buf);
+	for (i = 0; table[i].name != NULL; i++)
+		appendStringInfo(&buf, "%s%s", i ? ", " : "", table[i].name);
+	return buf.data;
+}
+
+/*
+ * Looks up a text argument in a table. On an unknown name: raises (checked)
+ * or returns false (the caller then returns NULL).
+ */
+static bool
+lookup_name(text *arg, const named_value *table, const char *what,
+			const char *function, bool checked, int *value)
+{
+	char	   *given = text_to_cstring(arg);
+	int			i;
+
+	for (i = 0; table[i].name != NULL; i++)
+	{
+		if (pg_strcasecmp(given, table[i].name) == 0)
+		{
+			*value = table[i].value;
+			return true;
+		}
+	}
+	if (checked)
+		report_name(function, what, given, accepted_names(table));
+	return false;
+}
+
+#define LOOKUP_OR_NULL(argno, table, what, function, checked, var) \
+	do { \
+		if (!lookup_name(PG_GETARG_TEXT_PP(argno), (table), (what), \
+						 (function), (checked), &(var))) \
+			PG_RETURN_NULL(); \
+	} while (0)
+
+/* ---------------------------------------------------------------------
+ * Core formulas
+ * --------------------------------------------------------------------- */
+
+static Datum
+osm_calculated_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_osm_calculated_checked" : "ntr_osm_calculated";
+	double		out = 0.0;
+	int			formula;
+	int			st;
+
+	LOOKUP_OR_NULL(4, osm_formulas, "formula", f, checked, formula);
+	st = ntr_osm_calculated(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+							PG_GETARG_FLOAT8(2), PG_GETARG_FLOAT8(3), formula,
+							&out);
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(osm_calculated)
+
+static Datum
+osm_effective_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_osm_effective_checked" : "ntr_osm_effective";
+	double		out = 0.0;
+	int			st = ntr_osm_effective(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+									   &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(osm_effective)
+
+static Datum
+osm_gap_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_osm_gap_checked" : "ntr_osm_gap";
+	double		out = 0.0;
+	int			st = ntr_osm_gap(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(osm_gap)
+
+static Datum
+na_corrected_glucose_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_na_corrected_glucose_checked"
+		: "ntr_na_corrected_glucose";
+	double		out = 0.0;
+	int			method;
+	int			st;
+
+	LOOKUP_OR_NULL(2, glucose_methods, "method", f, checked, method);
+	st = ntr_na_corrected_glucose(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+								  method, &out);
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(na_corrected_glucose)
+
+static Datum
+na_corrected_glucose_factor_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_na_corrected_glucose_factor_checked"
+		: "ntr_na_corrected_glucose_factor";
+	double		out = 0.0;
+	int			st = ntr_na_corrected_glucose_factor(PG_GETARG_FLOAT8(0),
+													 PG_GETARG_FLOAT8(1),
+													 PG_GETARG_FLOAT8(2), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(na_corrected_glucose_factor)
+
+static Datum
+na_deficit_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_na_deficit_checked" : "ntr_na_deficit";
+	double		out = 0.0;
+	int			st = ntr_na_deficit(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+									PG_GETARG_FLOAT8(2), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(na_deficit)
+
+static Datum
+tbw_fraction_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_tbw_fraction_checked" : "ntr_tbw_fraction";
+	double		out = 0.0;
+	int			sex;
+	int			st;
+
+	LOOKUP_OR_NULL(0, sexes, "sex", f, checked, sex);
+	st = ntr_tbw_fraction(sex, PG_GETARG_FLOAT8(1), PG_GETARG_FLOAT8(2), &out);
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(tbw_fraction)
+
+static Datum
+tbw_watson_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_tbw_watson_checked" : "ntr_tbw_watson";
+	double		out = 0.0;
+	int			sex;
+	int			st;
+
+	LOOKUP_OR_NULL(0, sexes, "sex", f, checked, sex);
+	st = ntr_tbw_watson(sex, PG_GETARG_FLOAT8(1), PG_GETARG_FLOAT8(2),
+						PG_GETARG_FLOAT8(3), &out);
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(tbw_watson)
+
+static Datum
+free_water_deficit_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_free_water_deficit_checked"
+		: "ntr_free_water_deficit";
+	double		out = 0.0;
+	int			st = ntr_free_water_deficit(PG_GETARG_FLOAT8(0),
+											PG_GETARG_FLOAT8(1), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(free_water_deficit)
+
+/* Fluid presets: one function for sodium, one for potassium. */
+static Datum
+fluid_value(FunctionCallInfo fcinfo, bool checked, bool potassium)
+{
+	const char *f = potassium
+		? (checked ? "ntr_fluid_k_checked" : "ntr_fluid_k")
+		: (checked ? "ntr_fluid_na_checked" : "ntr_fluid_na");
+	double		na = 0.0;
+	double		k = 0.0;
+	int			fluid;
+	int			st;
+
+	LOOKUP_OR_NULL(0, fluids, "fluid", f, checked, fluid);
+	st = ntr_fluid_preset(fluid, &na, &k);
+	RETURN_DOUBLE(f, checked, st, potassium ? k : na);
+}
+
+static Datum
+fluid_na_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	return fluid_value(fcinfo, checked, false);
+}
+NTRPG_PAIR(fluid_na)
+
+static Datum
+fluid_k_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	return fluid_value(fcinfo, checked, true);
+}
+NTRPG_PAIR(fluid_k)
+
+static Datum
+infusate_change_per_litre_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_infusate_change_per_litre_checked"
+		: "ntr_infusate_change_per_litre";
+	double		out = 0.0;
+	int			st = ntr_infusate_change_per_litre(PG_GETARG_FLOAT8(0),
+												   PG_GETARG_FLOAT8(1),
+												   PG_GETARG_FLOAT8(2),
+												   PG_GETARG_FLOAT8(3), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(infusate_change_per_litre)
+
+static Datum
+infusate_change_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_infusate_change_checked"
+		: "ntr_infusate_change";
+	double		out = 0.0;
+	int			st = ntr_infusate_change(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+										 PG_GETARG_FLOAT8(2), PG_GETARG_FLOAT8(3),
+										 PG_GETARG_FLOAT8(4), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(infusate_change)
+
+static Datum
+infusate_volume_for_change_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_infusate_volume_for_change_checked"
+		: "ntr_infusate_volume_for_change";
+	double		out = 0.0;
+	int			st = ntr_infusate_volume_for_change(PG_GETARG_FLOAT8(0),
+													PG_GETARG_FLOAT8(1),
+													PG_GETARG_FLOAT8(2),
+													PG_GETARG_FLOAT8(3),
+													PG_GETARG_FLOAT8(4), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(infusate_volume_for_change)
+
+static Datum
+furst_ratio_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_furst_ratio_checked" : "ntr_furst_ratio";
+	double		out = 0.0;
+	int			st = ntr_furst_ratio(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+									 PG_GETARG_FLOAT8(2), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(furst_ratio)
+
+/* Restriction advice as a stable code word. */
+static Datum
+restriction_from_ratio_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_restriction_from_ratio_checked"
+		: "ntr_restriction_from_ratio";
+	int			advice = 0;
+	int			st = ntr_restriction_from_ratio(PG_GETARG_FLOAT8(0), &advice);
+
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(f, st);
+		PG_RETURN_NULL();
+	}
+	switch (advice)
+	{
+		case NTR_RESTRICT_1000ML:
+			PG_RETURN_TEXT_P(cstring_to_text("under_1000_ml"));
+		case NTR_RESTRICT_500_700ML:
+			PG_RETURN_TEXT_P(cstring_to_text("500_to_700_ml"));
+		default:
+			PG_RETURN_TEXT_P(cstring_to_text("under_500_ml"));
+	}
+}
+NTRPG_PAIR(restriction_from_ratio)
+
+static Datum
+efwc_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_efwc_checked" : "ntr_efwc";
+	double		out = 0.0;
+	int			st = ntr_efwc(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+							  PG_GETARG_FLOAT8(2), PG_GETARG_FLOAT8(3), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(efwc)
+
+/* Units are UCUM codes (case-sensitive, as ntr_unit_parse() wants). */
+static Datum
+convert_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_convert_checked" : "ntr_convert";
+	double		out = 0.0;
+	int			analyte;
+	int			from_unit = 0;
+	int			to_unit = 0;
+	int			st;
+
+	LOOKUP_OR_NULL(1, analytes, "analyte", f, checked, analyte);
+	st = ntr_unit_parse(text_to_cstring(PG_GETARG_TEXT_PP(2)), &from_unit);
+	if (st == NTR_OK)
+		st = ntr_unit_parse(text_to_cstring(PG_GETARG_TEXT_PP(3)), &to_unit);
+	if (st == NTR_OK)
+		st = ntr_convert(analyte, PG_GETARG_FLOAT8(0), from_unit, to_unit, &out);
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(convert)
+
+/* ---------------------------------------------------------------------
+ * Correction assessment: composite result
+ * --------------------------------------------------------------------- */
+
+/* Names of the NTR_CF_* bits, in bit order. */
+static const char *const flag_names[] = {
+	"over_24h", "over_48h", "below_target", "falling", "near_limit",
+	"projected_over", "rapid_6h"
+};
+
+static Datum
+flags_array(unsigned int flags)
+{
+	Datum		items[lengthof(flag_names)];
+	int			n = 0;
+	int			bit;
+
+	for (bit = 0; bit < (int) lengthof(flag_names); bit++)
+	{
+		if (flags & (1u << bit))
+			items[n++] = CStringGetTextDatum(flag_names[bit]);
+	}
+	return PointerGetDatum(construct_array(items, n, TEXTOID, -1, false,
+										   TYPALIGN_INT));
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_flag_names);
+Datum		ntrpg_correction_flag_names(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_flag_names(PG_FUNCTION_ARGS)
+{
+	PG_RETURN_DATUM(flags_array((unsigned int) PG_GETARG_INT32(0)));
+}
+
+/* The composite ntr_correction row of an assessment. */
+static Datum
+correction_datum(FunctionCallInfo fcinfo, const ntr_correction *c, int n)
+{
+	TupleDesc	desc;
+	Datum		values[8];
+	bool		nulls[8] = {false, false, false, false, false, false, false, false};
+
+	if (get_call_result_type(fcinfo, NULL, &desc) != TYPEFUNC_COMPOSITE)
+		ereport(ERROR,
+				(errcode(ERRCODE_FEATURE_NOT_SUPPORTED),
+				 errmsg("natremia: the result type must be ntr_correction")));
+	desc = BlessTupleDesc(desc);
+	values[0] = Float8GetDatum(c->rise_first_24h);
+	values[1] = Float8GetDatum(c->max_rise_24h);
+	values[2] = Float8GetDatum(c->max_rise_48h);
+	values[3] = Float8GetDatum(c->last_rate_per_h);
+	values[4] = Float8GetDatum(c->excess_mmol_l);
+	values[5] = Int32GetDatum((int32) c->flags);
+	values[6] = flags_array(c->flags);
+	values[7] = Int32GetDatum(n);
+	return HeapTupleGetDatum(heap_form_tuple(desc, values, nulls));
+}
+
+/* Samples by time, then by sodium: the order of the rows never matters, and
+ * of two results at the same moment the lower one counts as earlier, so a
+ * difference between them counts as a rise (the cautious reading). */
+static int
+sample_cmp(const void *a, const void *b)
+{
+	const ntr_sample *x = (const ntr_sample *) a;
+	const ntr_sample *y = (const ntr_sample *) b;
+
+	if (x->hours != y->hours)
+		return x->hours < y->hours ? -1 : 1;
+	if (x->na_mmol_l != y->na_mmol_l)
+		return x->na_mmol_l < y->na_mmol_l ? -1 : 1;
+	return 0;
+}
+
+/* NaN sorts nowhere sensible; the library rejects it anyway, so sorting is
+ * skipped when any value is not finite (the assessment then fails). */
+static void
+sort_samples(ntr_sample *s, size_t n)
+{
+	size_t		i;
+
+	for (i = 0; i < n; i++)
+	{
+		if (!isfinite(s[i].hours) || !isfinite(s[i].na_mmol_l))
+			return;
+	}
+	if (n > 1)
+		qsort(s, n, sizeof(ntr_sample), sample_cmp);
+}
+
+/* ---------------------------------------------------------------------
+ * Aggregate state
+ * --------------------------------------------------------------------- */
+
+typedef struct series_state
+{
+	ntr_limits	limits;
+	int			limits_status;	/* NTR_OK, or why the limits are unusable */
+	bool		have_limits;
+	size_t		n;
+	size_t		capacity;
+	ntr_sample *samples;
+} series_state;
+
+static series_state *
+state_new(MemoryContext context)
+{
+	series_state *state = MemoryContextAllocZero(context, sizeof(series_state));
+
+	state->capacity = 16;
+	state->samples = MemoryContextAlloc(context,
+										state->capacity * sizeof(ntr_sample));
+	state->limits_status = NTR_OK;
+	return state;
+}
+
+static void
+state_reserve(series_state *state, size_t extra, MemoryContext context)
+{
+	size_t		need = state->n + extra;
+	MemoryContext old;
+
+	if (need <= state->capacity)
+		return;
+	while (state->capacity < need)
+		state->capacity *= 2;
+	old = MemoryContextSwitchTo(context);
+	state->samples = repalloc_huge(state->samples,
+								   state->capacity * sizeof(ntr_sample));
+	MemoryContextSwitchTo(old);
+}
+
+/* Every row must carry the same limits; a change makes the result invalid. */
+static void
+state_set_limits(series_state *state, const ntr_limits *lim, int status)
+{
+	if (!state->have_limits)
+	{
+		state->limits = *lim;
+		state->limits_status = status;
+		state->have_limits = true;
+		return;
+	}
+	if (state->limits_status == NTR_OK &&
+		(status != NTR_OK ||
+		 memcmp(&state->limits, lim, sizeof(ntr_limits)) != 0))
+		state->limits_status = status != NTR_OK ? status : NTR_ERR_ARG;
+}
+
+static series_state *
+transition(FunctionCallInfo fcinfo, const ntr_limits *lim, int limits_status)
+{
+	MemoryContext aggcontext;
+	series_state *state;
+
+	if (!AggCheckCallContext(fcinfo, &aggcontext))
+		elog(ERROR, "natremia: ntr_correction_assess called outside an aggregate");
+	state = PG_ARGISNULL(0) ? state_new(aggcontext)
+		: (series_state *) PG_GETARG_POINTER(0);
+	state_set_limits(state, lim, limits_status);
+	/* A row without a time or a sodium is a missing result: skipped. */
+	if (!PG_ARGISNULL(1) && !PG_ARGISNULL(2))
+	{
+		state_reserve(state, 1, aggcontext);
+		state->samples[state->n].hours = PG_GETARG_FLOAT8(1);
+		state->samples[state->n].na_mmol_l = PG_GETARG_FLOAT8(2);
+		state->n++;
+	}
+	return state;
+}
+
+/* Limits from a preset name; on an unknown name the status says so. */
+static int
+preset_limits(text *name, ntr_limits *lim)
+{
+	char	   *given = text_to_cstring(name);
+	int			i;
+
+	for (i = 0; limit_presets[i].name != NULL; i++)
+	{
+		if (pg_strcasecmp(given, limit_presets[i].name) == 0)
+			return ntr_limits_preset(limit_presets[i].value, lim);
+	}
+	memset(lim, 0, sizeof *lim);
+	return NTR_ERR_ARG;
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_transition);
+Datum		ntrpg_correction_transition(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_transition(PG_FUNCTION_ARGS)
+{
+	ntr_limits	lim;
+	int			st = ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+
+	PG_RETURN_POINTER(transition(fcinfo, &lim, st));
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_transition_preset);
+Datum		ntrpg_correction_transition_preset(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_transition_preset(PG_FUNCTION_ARGS)
+{
+	ntr_limits	lim;
+	int			st;
+
+	if (PG_ARGISNULL(3))
+	{
+		memset(&lim, 0, sizeof lim);
+		st = NTR_ERR_ARG;
+	}
+	else
+		st = preset_limits(PG_GETARG_TEXT_PP(3), &lim);
+	PG_RETURN_POINTER(transition(fcinfo, &lim, st));
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_transition_limits);
+Datum		ntrpg_correction_transition_limits(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_transition_limits(PG_FUNCTION_ARGS)
+{
+	ntr_limits	lim;
+	int			st = NTR_OK;
+
+	memset(&lim, 0, sizeof lim);
+	if (PG_ARGISNULL(3) || PG_ARGISNULL(4) || PG_ARGISNULL(5))
+		st = NTR_ERR_ARG;
+	else
+	{
+		lim.max_rise_24h = PG_GETARG_FLOAT8(3);
+		lim.max_rise_48h = PG_GETARG_FLOAT8(4);
+		lim.min_rise_24h = PG_GETARG_FLOAT8(5);
+	}
+	PG_RETURN_POINTER(transition(fcinfo, &lim, st));
+}
+
+/* Partial aggregation (parallel workers, distributed engines): the sample
+ * lists are concatenated; the final function sorts them anyway. */
+PG_FUNCTION_INFO_V1(ntrpg_correction_combine);
+Datum		ntrpg_correction_combine(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_combine(PG_FUNCTION_ARGS)
+{
+	MemoryContext aggcontext;
+	series_state *a;
+	series_state *b;
+
+	if (!AggCheckCallContext(fcinfo, &aggcontext))
+		elog(ERROR, "natremia: combine function called outside an aggregate");
+	if (PG_ARGISNULL(1))
+		PG_RETURN_POINTER(PG_ARGISNULL(0) ? NULL : PG_GETARG_POINTER(0));
+	b = (series_state *) PG_GETARG_POINTER(1);
+	if (PG_ARGISNULL(0))
+	{
+		a = state_new(aggcontext);
+		a->limits = b->limits;
+		a->limits_status = b->limits_status;
+		a->have_limits = b->have_limits;
+	}
+	else
+	{
+		a = (series_state *) PG_GETARG_POINTER(0);
+		if (b->have_limits)
+			state_set_limits(a, &b->limits, b->limits_status);
+	}
+	state_reserve(a, b->n, aggcontext);
+	if (b->n > 0)
+		memcpy(a->samples + a->n, b->samples, b->n * sizeof(ntr_sample));
+	a->n += b->n;
+	PG_RETURN_POINTER(a);
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_serialize);
+Datum		ntrpg_correction_serialize(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_serialize(PG_FUNCTION_ARGS)
+{
+	series_state *state = (series_state *) PG_GETARG_POINTER(0);
+	StringInfoData buf;
+	size_t		i;
+
+	pq_begintypsend(&buf);
+	pq_sendfloat8(&buf, state->limits.max_rise_24h);
+	pq_sendfloat8(&buf, state->limits.max_rise_48h);
+	pq_sendfloat8(&buf, state->limits.min_rise_24h);
+	pq_sendint32(&buf, (int32) state->limits_status);
+	pq_sendbyte(&buf, state->have_limits ? 1 : 0);
+	pq_sendint64(&buf, (int64) state->n);
+	for (i = 0; i < state->n; i++)
+	{
+		pq_sendfloat8(&buf, state->samples[i].hours);
+		pq_sendfloat8(&buf, state->samples[i].na_mmol_l);
+	}
+	PG_RETURN_BYTEA_P(pq_endtypsend(&buf));
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_deserialize);
+Datum		ntrpg_correction_deserialize(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_deserialize(PG_FUNCTION_ARGS)
+{
+	bytea	   *data = PG_GETARG_BYTEA_PP(0);
+	MemoryContext aggcontext;
+	series_state *state;
+	StringInfoData buf;
+	size_t		i;
+	size_t		n;
+
+	if (!AggCheckCallContext(fcinfo, &aggcontext))
+		elog(ERROR, "natremia: deserialize called outside an aggregate");
+	initStringInfo(&buf);
+	appendBinaryStringInfo(&buf, VARDATA_ANY(data), VARSIZE_ANY_EXHDR(data));
+	state = state_new(aggcontext);
+	state->limits.max_rise_24h = pq_getmsgfloat8(&buf);
+	state->limits.max_rise_48h = pq_getmsgfloat8(&buf);
+	state->limits.min_rise_24h = pq_getmsgfloat8(&buf);
+	state->limits_status = pq_getmsgint(&buf, 4);
+	state->have_limits = pq_getmsgbyte(&buf) != 0;
+	n = (size_t) pq_getmsgint64(&buf);
+	state_reserve(state, n, aggcontext);
+	for (i = 0; i < n; i++)
+	{
+		state->samples[i].hours = pq_getmsgfloat8(&buf);
+		state->samples[i].na_mmol_l = pq_getmsgfloat8(&buf);
+	}
+	state->n = n;
+	pq_getmsgend(&buf);
+	PG_RETURN_POINTER(state);
+}
+
+/* Sorts, assesses, returns the composite, NULL or an error. */
+static Datum
+assess_samples(FunctionCallInfo fcinfo, ntr_sample *samples, size_t n,
+			   const ntr_limits *lim, int limits_status, bool checked,
+			   const char *function)
+{
+	ntr_correction result;
+	int			st = limits_status;
+
+	memset(&result, 0, sizeof result);
+	if (st == NTR_OK)
+	{
+		sort_samples(samples, n);
+		st = ntr_correction_assess(samples, n, lim, &result);
+	}
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(function, st);
+		PG_RETURN_NULL();
+	}
+	PG_RETURN_DATUM(correction_datum(fcinfo, &result, (int) n));
+}
+
+static Datum
+correction_final(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_correction_assess_checked"
+		: "ntr_correction_assess";
+	series_state *state;
+
+	/* No rows, or only rows without values: no series, so no result. */
+	if (PG_ARGISNULL(0))
+		PG_RETURN_NULL();
+	state = (series_state *) PG_GETARG_POINTER(0);
+	if (state->n == 0)
+		PG_RETURN_NULL();
+	/* The final function may run more than once on the same state (window
+	 * use); sorting in place is harmless because it is idempotent. */
+	return assess_samples(fcinfo, state->samples, state->n, &state->limits,
+						  state->limits_status, checked, f);
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_final);
+Datum		ntrpg_correction_final(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_final(PG_FUNCTION_ARGS)
+{
+	return correction_final(fcinfo, false);
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_correction_final_checked);
+Datum		ntrpg_correction_final_checked(PG_FUNCTION_ARGS);
+Datum
+ntrpg_correction_final_checked(PG_FUNCTION_ARGS)
+{
+	return correction_final(fcinfo, true);
+}
+
+/* ---------------------------------------------------------------------
+ * The same assessment over two arrays (one call, one series)
+ * --------------------------------------------------------------------- */
+
+/* The float8 elements of a one-dimensional array; false when an element is
+ * NULL. */
+static bool
+float8_elements(ArrayType *array, Datum **values, int *n)
+{
+	bool	   *nulls;
+	int			i;
+
+	if (ARR_NDIM(array) > 1)
+		return false;
+	deconstruct_array(array, FLOAT8OID, sizeof(float8), FLOAT8PASSBYVAL,
+					  TYPALIGN_DOUBLE, values, &nulls, n);
+	for (i = 0; i < *n; i++)
+	{
+		if (nulls[i])
+			return false;
+	}
+	return true;
+}
+
+static Datum
+series_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_correction_assess_series_checked"
+		: "ntr_correction_assess_series";
+	Datum	   *hours;
+	Datum	   *na;
+	int			n_hours;
+	int			n_na;
+	ntr_limits	lim;
+	ntr_sample *samples;
+	int			st;
+	int			i;
+
+	st = preset_limits(PG_GETARG_TEXT_PP(2), &lim);
+	if (st == NTR_OK &&
+		(!float8_elements(PG_GETARG_ARRAYTYPE_P(0), &hours, &n_hours) ||
+		 !float8_elements(PG_GETARG_ARRAYTYPE_P(1), &na, &n_na) ||
+		 n_hours != n_na || n_hours == 0))
+		st = NTR_ERR_ARG;
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(f, st);
+		PG_RETURN_NULL();
+	}
+	samples = palloc(sizeof(ntr_sample) * (size_t) n_hours);
+	for (i = 0; i < n_hours; i++)
+	{
+		samples[i].hours = DatumGetFloat8(hours[i]);
+		samples[i].na_mmol_l = DatumGetFloat8(na[i]);
+	}
+	return assess_samples(fcinfo, samples, (size_t) n_hours, &lim, NTR_OK,
+						  checked, f);
+}
+NTRPG_PAIR(series)
