@@ -597,7 +597,8 @@ static void print_wrapped(const char *text, int indent, int width)
 static void sources(void)
 {
     static const int used[] = {NTR_METHOD_TBW_WATSON, NTR_METHOD_SIAD_CRITERIA,
-                               NTR_METHOD_FURST, NTR_METHOD_ADROGUE_MADIAS};
+                               NTR_METHOD_FURST, NTR_METHOD_BALANCE_COURSE,
+                               NTR_METHOD_CORRECTION_WINDOWS, NTR_METHOD_RELOWER};
     struct ntr_method_info info;
     size_t i;
     heading("14. Where the main numbers come from");
