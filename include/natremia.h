@@ -1044,9 +1044,9 @@ NTR_API int ntr_method_next(int after, int *next);
 /**
  * @brief Calculated serum osmolality for @p n rows (see ntr_osm_calculated()).
  *
- * - @ref NTR_OSM_2NA: out[i] = 2*na + glucose + urea + ethanol
- * - @ref NTR_OSM_DORWART_CHALMERS: out[i] = 1.86*na + glucose + urea + 9
- *   + ethanol
+ * - formula @ref NTR_OSM_2NA gives out[i] = 2*na + glucose + urea + ethanol
+ * - formula @ref NTR_OSM_DORWART_CHALMERS gives
+ *   out[i] = 1.86*na + glucose + urea + 9 + ethanol
  *
  * (each term row i of its array), mOsm/kg.
  *
@@ -1884,6 +1884,57 @@ NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
                                  double urine_ml_h, double urine_na_mmol_l,
                                  double urine_k_mmol_l, double *volume_l,
                                  double *rate_ml_h);
+/** @} */
+
+/* ======================================================================= */
+/* ==== section: batch correction (lib/batch.c, docs/batch.md) =========== */
+/* ======================================================================= */
+
+/** @addtogroup batch
+ *  The correction assessment of many series in one call. It needs the
+ *  types of the correction section, hence its own section after it; the
+ *  conventions are those of the batch section, with "row" read as "group".
+ *  @{ */
+
+/**
+ * @brief Assess many sodium series at once (one per patient), CSR style.
+ *
+ * Group g is the series samples[offsets[g]] to samples[offsets[g+1] - 1];
+ * out[g] and status[g] are exactly what ntr_correction_assess() returns for
+ * it (see that function for the equations, flags and per-series checks).
+ * A group whose status is not NTR_OK gets NaN in every double member of
+ * out[g] and 0 in flags and reserved. An empty group (offsets[g] ==
+ * offsets[g+1]) gets @ref NTR_ERR_ARG, as n == 0 does in the scalar call.
+ *
+ * @param groups     number of series.
+ * @param offsets    groups + 1 indices into @p samples, non-decreasing, the
+ *                   last at most @p n_samples (offsets[0] need not be 0).
+ * @param samples    all series back to back, each in non-decreasing time;
+ *                   hours -1e6 to 1e6, sodium 80 to 220 mmol/L.
+ * @param n_samples  number of elements of @p samples (a bound for offsets).
+ * @param lim        limits for every series, as in ntr_correction_assess().
+ * @param[out] out     @p groups assessments.
+ * @param[out] status  @p groups statuses: NTR_OK, NTR_ERR_ARG (empty group),
+ *                     NTR_ERR_NONFINITE, NTR_ERR_RANGE (a sample or the
+ *                     limits), NTR_ERR_ORDER.
+ * @param[out] failed  optional (may be NULL): number of failed groups.
+ * @return NTR_OK; NTR_ERR_NULL (a required pointer is NULL, checked even
+ *         when @p groups is 0); NTR_ERR_ARG (offsets decrease or pass
+ *         @p n_samples: nothing is written); otherwise the status of the
+ *         first failed group.
+ *
+ * Cost: linear in the number of samples; no allocation.
+ *
+ * References: as ntr_correction_assess() (Verbalis JG et al., Am J Med
+ * 2013; Spasovski G et al., Eur J Endocrinol 2014).
+ * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES.
+ */
+NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
+                                        const ntr_sample *samples,
+                                        size_t n_samples, const ntr_limits *lim,
+                                        ntr_correction *out, int *status,
+                                        size_t *failed);
 /** @} */
 
 /* ======================================================================= */

@@ -511,3 +511,60 @@ int ntr_batch_efwc(size_t n, const double *urine_volume_l,
     }
     return finish(n, status, bad, failed);
 }
+
+/* ---- correction assessment of many series ---------------------------- */
+
+/* What a failed group's assessment holds: no figure can be mistaken for a
+ * result, and no flag is raised. */
+static ntr_correction failed_correction(void)
+{
+    ntr_correction c;
+    c.rise_first_24h = FAILED_ROW;
+    c.max_rise_24h = FAILED_ROW;
+    c.max_rise_48h = FAILED_ROW;
+    c.last_rate_per_h = FAILED_ROW;
+    c.excess_mmol_l = FAILED_ROW;
+    c.flags = 0u;
+    c.reserved = 0u;
+    return c;
+}
+
+/* Offsets must not decrease and must stay within the samples: checked
+ * before anything is written, so a bad index array cannot make the library
+ * read out of bounds. */
+static int offsets_valid(size_t groups, const size_t *offsets, size_t n_samples)
+{
+    size_t g;
+    for (g = 0; g < groups; g++) {
+        if (offsets[g + 1] < offsets[g]) {
+            return 0;
+        }
+    }
+    return offsets[groups] <= n_samples;
+}
+
+int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
+                                const ntr_sample *samples, size_t n_samples,
+                                const ntr_limits *lim, ntr_correction *out,
+                                int *status, size_t *failed)
+{
+    size_t g;
+    size_t bad = 0;
+    if (offsets == NULL || samples == NULL || lim == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    if (!offsets_valid(groups, offsets, n_samples)) {
+        return NTR_ERR_ARG;
+    }
+    for (g = 0; g < groups; g++) {
+        size_t first = offsets[g];
+        ntr_correction result;
+        int st = ntr_correction_assess(samples + first, offsets[g + 1] - first,
+                                       lim, &result);
+        out[g] = st == NTR_OK ? result : failed_correction();
+        status[g] = st;
+        bad += (st != NTR_OK);
+    }
+    return finish(groups, status, bad, failed);
+}

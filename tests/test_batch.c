@@ -655,6 +655,163 @@ static void urine_rows_equal_scalar(void **state)
     check_summary(ret, failed, status, ROWS, bad);
 }
 
+/* ---- correction assessment of many series ----------------------------- */
+
+/* Same bits in every member (NaN equal to NaN). */
+static int same_correction(const ntr_correction *a, const ntr_correction *b)
+{
+    return same_double(a->rise_first_24h, b->rise_first_24h) &&
+           same_double(a->max_rise_24h, b->max_rise_24h) &&
+           same_double(a->max_rise_48h, b->max_rise_48h) &&
+           same_double(a->last_rate_per_h, b->last_rate_per_h) &&
+           same_double(a->excess_mmol_l, b->excess_mmol_l) &&
+           a->flags == b->flags && a->reserved == b->reserved;
+}
+
+static void correction_groups_published(void **state)
+{
+    /* Limits 10 / 18 / 4 mmol/L: Verbalis et al., Am J Med 2013; Spasovski
+     * et al., Eur J Endocrinol 2014. Invented series, worked by hand:
+     * group 0: 110, 116, 122, 124 at 0, 6, 12, 24 h: largest 24 h rise
+     *   124 - 110 = 14 > 10, excess 4, last rate 2/12 per hour;
+     * group 1: 118, 120, 121, 121 at 0, 12, 24, 30 h: first-24 h rise 3,
+     *   below the 4 wanted: below target;
+     * group 2: empty (NTR_ERR_ARG); group 3: one sample, all zero. */
+    const ntr_sample s[9] = {{0, 110}, {6, 116}, {12, 122}, {24, 124},
+                             {0, 118}, {12, 120}, {24, 121}, {30, 121},
+                             {5, 130}};
+    const size_t offsets[5] = {0, 4, 8, 8, 9};
+    ntr_limits lim;
+    ntr_correction c[4];
+    int st[4];
+    size_t failed = 0;
+    (void)state;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim), NTR_OK);
+    assert_int_equal(ntr_batch_correction_assess(4, offsets, s, 9, &lim, c, st,
+                                                 &failed), NTR_ERR_ARG);
+    assert_int_equal(failed, 1);
+    assert_int_equal(st[0], NTR_OK);
+    assert_close(c[0].max_rise_24h, 14.0, 1e-12);
+    assert_close(c[0].excess_mmol_l, 4.0, 1e-12);
+    assert_close(c[0].last_rate_per_h, 2.0 / 12.0, 1e-15);
+    assert_int_equal(c[0].flags, NTR_CF_OVER_24H);
+    assert_int_equal(st[1], NTR_OK);
+    assert_close(c[1].rise_first_24h, 3.0, 1e-12);
+    assert_int_equal(c[1].flags, NTR_CF_BELOW_TARGET);
+    assert_int_equal(st[2], NTR_ERR_ARG);
+    assert_true(isnan(c[2].max_rise_24h) && isnan(c[2].excess_mmol_l));
+    assert_int_equal(c[2].flags, 0);
+    assert_int_equal(st[3], NTR_OK);
+    assert_close(c[3].max_rise_48h, 0.0, 0.0);
+    assert_int_equal(c[3].flags, 0);
+
+    /* Offsets need not start at 0: groups 1 and 3 alone. */
+    {
+        const size_t tail[3] = {4, 8, 8};
+        ntr_correction c2[2];
+        int st2[2];
+        assert_int_equal(ntr_batch_correction_assess(2, tail, s, 9, &lim, c2, st2,
+                                                     NULL), NTR_ERR_ARG);
+        assert_true(same_correction(&c2[0], &c[1]));
+    }
+}
+
+static void correction_groups_contract(void **state)
+{
+    const ntr_sample s[3] = {{0, 120}, {6, 124}, {12, 126}};
+    const size_t decreasing[3] = {0, 2, 1};
+    const size_t beyond[3] = {0, 2, 4};
+    const size_t fine[3] = {0, 2, 3};
+    ntr_limits lim;
+    ntr_correction c[2];
+    int st[2] = {-1, -1};
+    size_t failed = 77;
+    (void)state;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim), NTR_OK);
+    c[0].flags = 99u;
+    c[1].flags = 99u;
+    assert_int_equal(ntr_batch_correction_assess(2, NULL, s, 3, &lim, c, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_correction_assess(2, fine, NULL, 3, &lim, c, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_correction_assess(2, fine, s, 3, NULL, c, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_correction_assess(0, fine, s, 3, &lim, NULL, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_correction_assess(2, fine, s, 3, &lim, c, NULL, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_correction_assess(2, decreasing, s, 3, &lim, c, st,
+                                                 &failed), NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_correction_assess(2, beyond, s, 3, &lim, c, st,
+                                                 &failed), NTR_ERR_ARG);
+    assert_int_equal(c[0].flags, 99u);
+    assert_int_equal(c[1].flags, 99u);
+    assert_int_equal(st[0], -1);
+    assert_int_equal(failed, 77);
+    /* No groups: fine, nothing written but the counter. */
+    assert_int_equal(ntr_batch_correction_assess(0, fine, s, 0, &lim, c, st,
+                                                 &failed), NTR_OK);
+    assert_int_equal(failed, 0);
+    assert_int_equal(st[0], -1);
+    /* Bad limits fail every group, as they fail every scalar call. */
+    lim.max_rise_24h = (double)NAN;
+    assert_int_equal(ntr_batch_correction_assess(2, fine, s, 3, &lim, c, st,
+                                                 &failed), NTR_ERR_NONFINITE);
+    assert_int_equal(failed, 2);
+}
+
+#define SERIES_SAMPLES 6000
+#define SERIES_GROUPS 1200
+
+static ntr_sample series[SERIES_SAMPLES];
+static size_t series_offsets[SERIES_GROUPS + 1];
+static ntr_correction series_out[SERIES_GROUPS];
+static int series_status[SERIES_GROUPS];
+
+static void correction_groups_equal_scalar(void **state)
+{
+    size_t g, i = 0, failed, bad = 0, flagged = 0;
+    int ret;
+    ntr_limits lim;
+    (void)state;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_HIGH_RISK, &lim), NTR_OK);
+    /* Random series of 0 to 9 samples, mostly rising from a low sodium,
+     * with occasional bad values and out-of-order times. */
+    for (g = 0; g < SERIES_GROUPS; g++) {
+        size_t k, len = (size_t)(uniform01() * 10.0);
+        double t = -24.0 + 48.0 * uniform01();
+        double na = 105.0 + 20.0 * uniform01();
+        series_offsets[g] = i;
+        for (k = 0; k < len && i < SERIES_SAMPLES; k++, i++) {
+            double u = uniform01();
+            t += u < 0.02 ? -1.0 : 24.0 * uniform01();
+            na += -2.0 + 8.0 * uniform01();
+            series[i].hours = t;
+            series[i].na_mmol_l = u > 0.99 ? (double)NAN : u > 0.98 ? 300.0 : na;
+        }
+    }
+    series_offsets[SERIES_GROUPS] = i;
+    ret = ntr_batch_correction_assess(SERIES_GROUPS, series_offsets, series, i, &lim,
+                                      series_out, series_status, &failed);
+    for (g = 0; g < SERIES_GROUPS; g++) {
+        ntr_correction expected;
+        size_t n = series_offsets[g + 1] - series_offsets[g];
+        int st = ntr_correction_assess(series + series_offsets[g], n, &lim, &expected);
+        assert_int_equal(st, series_status[g]);
+        if (st == NTR_OK) {
+            assert_true(same_correction(&expected, &series_out[g]));
+            flagged += series_out[g].flags != 0u;
+        } else {
+            assert_true(isnan(series_out[g].max_rise_24h));
+            assert_int_equal(series_out[g].flags, 0u);
+            bad++;
+        }
+    }
+    assert_true(bad > 0 && bad < SERIES_GROUPS);
+    assert_true(flagged > 0);
+    check_summary(ret, failed, series_status, SERIES_GROUPS, bad);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -668,6 +825,9 @@ int main(void)
         cmocka_unit_test(water_rows_equal_scalar),
         cmocka_unit_test(infusion_rows_equal_scalar),
         cmocka_unit_test(urine_rows_equal_scalar),
+        cmocka_unit_test(correction_groups_published),
+        cmocka_unit_test(correction_groups_contract),
+        cmocka_unit_test(correction_groups_equal_scalar),
     };
     return cmocka_run_group_tests_name("batch", tests, NULL, NULL);
 }
