@@ -179,8 +179,8 @@ check_demo_text() {
     expect_near "$out" '5% dextrose' 749 10 "demo re-lowering volume"
     expect_text "$out" 'agrees with the streaming watcher' "demo batch and streaming assessments agree"
     # Provenance through ntr_method_info: Watson's paper is the source of
-    # the anthropometric body water (Am J Clin Nutr 1980;33:27-39).
-    expect_text "$out" 'Am J Clin Nutr 1980' "demo names the source of the Watson equations"
+    # the anthropometric body water (Watson, Watson & Batt, Am J Clin Nutr 1980).
+    expect_text "$out" 'Watson PE, Watson ID, Batt RD' "demo names the source of the Watson equations"
     expect_text "$out" 'decision support, not an' "demo ends with the caution"
     if [[ -s "$work/natremia-demo.svg" ]]; then ok "demo writes natremia-demo.svg by default"
     else fail "demo wrote no natremia-demo.svg in its working directory"; fi
