@@ -430,3 +430,122 @@ class ArraysEqualScalars(unittest.TestCase):
 
 if __name__ == "__main__":
     unittest.main()
+
+
+class CorrectionSafety(unittest.TestCase):
+    def test_presets(self):
+        # Source: Verbalis et al., Am J Med 2013 and Spasovski et al., Eur J
+        # Endocrinol 2014: 10 mmol/L in 24 h, 18 in 48 h, at least 4; high
+        # risk 8 in 24 h (16 in 48 h, the library's choice).
+        self.assertEqual(ntr.limits_preset("standard"), ntr.Limits(10, 18, 4))
+        self.assertEqual(ntr.limits_preset("high_risk"), ntr.Limits(8, 16, 4))
+
+    def test_hand_worked_series(self):
+        # Invented series, worked by hand against the standard limits:
+        # 110, 116, 122, 124 at 0, 6, 12, 24 h rises 14 within 24 h (> 10).
+        c = ntr.correction_assess(hours=[0, 6, 12, 24],
+                                  na_mmol_l=[110, 116, 122, 124])
+        self.assertEqual(c.max_rise_24h, 14.0)
+        self.assertEqual(c.excess_mmol_l, 4.0)
+        self.assertAlmostEqual(c.last_rate_per_h, 2 / 12, places=15)
+        self.assertEqual(c.flags, ntr.CorrectionFlag.OVER_24H)
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.correction_assess(hours=[0, 6, 3], na_mmol_l=[110, 112, 113])
+        self.assertEqual(caught.exception.status_name, "NTR_ERR_ORDER")
+
+    def test_groups_hand_worked(self):
+        hours = [0, 6, 12, 24, 0, 12, 24, 30]
+        na = [110, 116, 122, 124, 118, 120, 121, 121]
+        out = arrays.correction_assess_groups(hours=hours, na_mmol_l=na,
+                                              offsets=[0, 4, 8])
+        self.assertEqual(out["max_rise_24h"].tolist(), [14.0, 3.0])
+        self.assertEqual(out["flags"].tolist(), [int(ntr.CorrectionFlag.OVER_24H),
+                                                 int(ntr.CorrectionFlag.BELOW_TARGET)])
+        ids, h, v = arrays.sort_series([7, 3, 7, 3], [5, 1, 0, 0], [111, 121, 110, 120])
+        offsets, group_ids = arrays.offsets_from_ids(ids)
+        self.assertEqual(offsets.tolist(), [0, 2, 4])
+        self.assertEqual(group_ids.tolist(), [3, 7])
+        self.assertEqual(h.tolist(), [0, 1, 0, 5])
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            arrays.correction_assess_groups(hours=hours, na_mmol_l=na,
+                                            offsets=[0, 4, 9])
+        self.assertEqual(caught.exception.status_name, "NTR_ERR_ARG")
+
+    @settings(max_examples=60)
+    @given(st.lists(st.lists(st.tuples(in_range(0, 30), in_range(-3, 9)),
+                             min_size=0, max_size=8), min_size=1, max_size=12),
+           st.sampled_from(["standard", "high_risk"]))
+    def test_groups_equal_scalar(self, groups, limits):
+        hours, na, offsets = [], [], [0]
+        for steps in groups:
+            t, v = 0.0, 110.0
+            for dt, dv in steps:
+                t += dt
+                v = min(max(v + dv, 80.0), 220.0)
+                hours.append(t)
+                na.append(v)
+            offsets.append(len(hours))
+        out, status = arrays.correction_assess_groups(
+            hours=hours, na_mmol_l=na, offsets=offsets, limits=limits,
+            errors="nan", with_status=True)
+        for g in range(len(groups)):
+            lo, hi = offsets[g], offsets[g + 1]
+            try:
+                expected = ntr.correction_assess(hours=hours[lo:hi],
+                                                 na_mmol_l=na[lo:hi], limits=limits)
+            except ntr.NatremiaError as err:
+                self.assertEqual(status[g], err.status)
+                self.assertEqual(hi, lo)  # only an empty series fails here
+                continue
+            self.assertEqual(status[g], ntr.OK)
+            for field in ("rise_first_24h", "max_rise_24h", "max_rise_48h",
+                          "last_rate_per_h", "excess_mmol_l"):
+                self.assertTrue(same_bits(float(out[field][g]),
+                                          getattr(expected, field)), field)
+            self.assertEqual(int(out["flags"][g]), int(expected.flags))
+
+    @settings(max_examples=40)
+    @given(st.lists(st.tuples(in_range(0, 12), in_range(-3, 6)), min_size=1,
+                    max_size=15))
+    def test_watch_equals_assessment_of_prefix(self, steps):
+        watch = ntr.Watch("standard")
+        hours, na = [], []
+        t, v = 0.0, 115.0
+        for dt, dv in steps:
+            t += dt
+            v += dv
+            hours.append(t)
+            na.append(v)
+            self.assertEqual(watch.push(hours=t, na_mmol_l=v),
+                             ntr.correction_assess(hours=hours, na_mmol_l=na))
+
+    @given(na=in_range(100, 160), tbw=in_range(5, 80),
+           infusate_na=in_range(0, 1100), infusate_k=in_range(0, 40))
+    def test_balance_one_litre_is_adrogue_madias(self, na, tbw, infusate_na,
+                                                 infusate_k):
+        # Source: Adrogue & Madias, N Engl J Med 2000: one litre of infusate
+        # is the mass balance of one inflow of 1 L.
+        try:
+            after = ntr.balance_predict(na_mmol_l=na, tbw_l=tbw,
+                                        flows=[(1.0, infusate_na, infusate_k)])
+        except ntr.NatremiaError as err:
+            self.assertEqual(err.status_name, "NTR_ERR_DOMAIN")
+            return
+        delta = ntr.infusate_change_per_litre(
+            na_mmol_l=na, tbw_l=tbw, infusate_na_mmol_l=infusate_na,
+            infusate_k_mmol_l=infusate_k)
+        self.assertAlmostEqual(after.na_mmol_l, na + delta, delta=1e-9 * na)
+        self.assertAlmostEqual(after.tbw_l, tbw + 1.0, delta=1e-12 * tbw)
+
+    def test_ods_risk_unknown_counts(self):
+        # Verbalis et al. 2013 list the risk factors; a factor not known is
+        # treated as present (the library's cautious choice).
+        risk = ntr.ods_risk(baseline_na_mmol_l=118, low_potassium=False,
+                            alcohol_use_disorder=None, malnutrition=False,
+                            advanced_liver_disease=False)
+        self.assertIs(risk.preset, ntr.LimitsPreset.HIGH_RISK)
+        self.assertEqual(risk.unknowns, ntr.OdsFactor.ALCOHOL)
+        low = ntr.ods_risk(baseline_na_mmol_l=118, low_potassium=False,
+                           alcohol_use_disorder=False, malnutrition=False,
+                           advanced_liver_disease=False)
+        self.assertIs(low.preset, ntr.LimitsPreset.STANDARD)
