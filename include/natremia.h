@@ -1422,7 +1422,7 @@ typedef struct ntr_correction {
     double rise_first_24h;  /**< Highest sodium within 24 h of the first sample, minus the first (>= 0). */
     double max_rise_24h;    /**< Largest rise between two samples at most 24 h apart (>= 0). */
     double max_rise_48h;    /**< Largest rise between two samples at most 48 h apart (>= 0). */
-    double last_rate_per_h; /**< Change per hour over the last interval, mmol/L/h (0 with one time point). */
+    double last_rate_per_h; /**< Change per hour over the last interval, mmol/L/h (0 without one). */
     double excess_mmol_l;   /**< How far the worst window exceeds its limit (0 if none does). */
     unsigned int flags;     /**< NTR_CF_* bits. */
     unsigned int reserved;  /**< Written as 0. */
@@ -1443,12 +1443,13 @@ typedef struct ntr_correction {
 /** At least 24 h passed between the first and the last sample and
  *  rise_first_24h is below limits.min_rise_24h. */
 #define NTR_CF_BELOW_TARGET 4u
-/** The last interval is falling (the last sample is lower than the latest
- *  sample taken at an earlier time). */
+/** The last interval is falling: the last sample is lower than the latest
+ *  sample taken at an earlier time (the two more than
+ *  @ref NTR_CF_TIME_TOLERANCE_H apart). */
 #define NTR_CF_FALLING 8u
 /** Near a limit: the rise into the last sample, over the 24 h or the 48 h
- *  ending at it, is within @ref NTR_CF_NEAR_MARGIN of that window's limit
- *  and not above it. */
+ *  ending at it, is above 0, within @ref NTR_CF_NEAR_MARGIN of that
+ *  window's limit and not above it. */
 #define NTR_CF_NEAR_LIMIT 16u
 /** Projected over: the last interval rises, and if the next sample, due
  *  after the same interval as the last one, rose by the same amount again,
@@ -1552,7 +1553,9 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  * - max_rise_W = max(0, max over i < j with t_j - t_i <= W of
  *   (Na_j - Na_i)), for W = 24 and 48 h;
  * - last_rate_per_h = (Na_last - Na_prev) / (t_last - t_prev), where prev
- *   is the latest sample taken strictly before the last one (0 if none);
+ *   is the latest sample taken strictly before the last one; 0 if there
+ *   is none or the two are within @ref NTR_CF_TIME_TOLERANCE_H (too close
+ *   for a rate: they count as one time point, as in the windows);
  * - excess_mmol_l = the larger of max_rise_24h - limit_24h and
  *   max_rise_48h - limit_48h, over the windows that are flagged over
  *   (0 if none);

@@ -163,9 +163,13 @@ static int over(double rise, double limit)
     return rise > limit + NTR_CF_TOLERANCE;
 }
 
+/* Near a limit: something has risen, to within the margin below the limit
+ * and not over it. (Without the first test a flat series would be "near" a
+ * limit smaller than the margin.) */
 static int near(double rise, double limit)
 {
-    return rise >= limit - NTR_CF_NEAR_MARGIN - NTR_CF_TOLERANCE &&
+    return rise > NTR_CF_TOLERANCE &&
+           rise >= limit - NTR_CF_NEAR_MARGIN - NTR_CF_TOLERANCE &&
            rise <= limit + NTR_CF_TOLERANCE;
 }
 
@@ -224,13 +228,17 @@ static ntr_sample projected_next(ntr_sample prev, ntr_sample last)
     return next;
 }
 
+/* The last interval: from prev (the latest sample strictly before the last
+ * one's time) to the last. Two time points closer than the time tolerance
+ * count as one (as in the windows), so they give no rate: this also keeps
+ * the rate finite when times are a subnormal apart. */
 static void last_interval(int has_prev, ntr_sample prev, ntr_sample last,
                           struct figures *f)
 {
     f->rate_per_h = 0.0;
     f->rising = 0;
     f->falling = 0;
-    if (has_prev) {
+    if (has_prev && last.hours - prev.hours > NTR_CF_TIME_TOLERANCE_H) {
         f->rate_per_h = (last.na_mmol_l - prev.na_mmol_l) / (last.hours - prev.hours);
         f->rising = last.na_mmol_l > prev.na_mmol_l;
         f->falling = last.na_mmol_l < prev.na_mmol_l;

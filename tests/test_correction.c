@@ -483,6 +483,44 @@ static void repeated_times(void **state)
     assert_int_equal(c.flags, 0u);
 }
 
+/* Times closer than NTR_CF_TIME_TOLERANCE_H count as one time point: no
+ * rate, no falling, no projection (and no infinite rate for times a
+ * subnormal apart). */
+static void times_closer_than_the_tolerance(void **state)
+{
+    const ntr_sample tiny[] = {{0.0, 120.0}, {4.9406564584124654e-324, 125.0}};
+    const ntr_sample close[] = {{10.0, 125.0}, {10.0000005, 120.0}};
+    const ntr_sample apart[] = {{10.0, 125.0}, {10.0000015, 124.0}};
+    ntr_limits lim = standard();
+    ntr_correction c = assess(tiny, 2, &lim);
+    (void)state;
+    assert_true(c.last_rate_per_h == 0.0);
+    assert_true(c.max_rise_24h == 5.0);
+    assert_int_equal(c.flags, 0u);
+    c = assess(close, 2, &lim);
+    assert_true(c.last_rate_per_h == 0.0);
+    assert_int_equal(c.flags & NTR_CF_FALLING, 0u);
+    /* 1.5e-6 h apart is an interval: falling, at a large but finite rate. */
+    c = assess(apart, 2, &lim);
+    assert_true(isfinite(c.last_rate_per_h) && c.last_rate_per_h < -1e5);
+    assert_int_equal(c.flags & NTR_CF_FALLING, NTR_CF_FALLING);
+}
+
+/* "One sample yields zeros and no flag", whatever the limits; a flat series
+ * is not "near" a limit smaller than the margin. */
+static void no_flag_without_a_rise(void **state)
+{
+    const ntr_sample one = {3.0, 121.0};
+    const ntr_sample flat[] = {{0.0, 121.0}, {5.0, 121.0}, {9.0, 121.0}};
+    const ntr_limits small = {0.5, 1.0, 0.0};
+    ntr_correction c = assess(&one, 1, &small);
+    (void)state;
+    assert_int_equal(c.flags, 0u);
+    c = assess(flat, 3, &small);
+    assert_int_equal(c.flags, 0u);
+    assert_true(c.max_rise_48h == 0.0);
+}
+
 /* Negative times are allowed (a baseline before the chosen origin). */
 static void negative_times(void **state)
 {
@@ -667,16 +705,16 @@ static ntr_correction oracle(const ntr_sample *s, size_t n, const ntr_limits *li
     open6 = s[last].na_mmol_l - window_min(s, last, s[last].hours, NTR_CF_RAPID_WINDOW_H);
     open24 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 24.0);
     open48 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 48.0);
-    if ((open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol &&
+    if ((open24 > tol && open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol &&
          open24 <= lim->max_rise_24h + tol) ||
-        (open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol &&
+        (open48 > tol && open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol &&
          open48 <= lim->max_rise_48h + tol)) {
         c.flags |= NTR_CF_NEAR_LIMIT;
     }
     if (open6 >= NTR_CF_RAPID_RISE - tol) {
         c.flags |= NTR_CF_RAPID_6H;
     }
-    if (prev < n) {
+    if (prev < n && s[last].hours - s[prev].hours > NTR_CF_TIME_TOLERANCE_H) {
         const ntr_sample a = s[prev], b = s[last];
         c.last_rate_per_h = (b.na_mmol_l - a.na_mmol_l) / (b.hours - a.hours);
         if (b.na_mmol_l < a.na_mmol_l) {
@@ -719,7 +757,11 @@ static size_t random_series(ntr_sample *s, size_t max_n)
     for (i = 0; i < n; i++) {
         s[i].hours = t;
         s[i].na_mmol_l = na;
-        t += (double)rng_below(4) == 0 ? 0.0 : (double)rng_below(200) / 10.0;
+        switch (rng_below(8)) {
+        case 0: break;                   /* a repeat at the same time */
+        case 1: t += 5e-7; break;        /* closer than the time tolerance */
+        default: t += (double)rng_below(200) / 10.0; break;
+        }
         na += (double)((int)rng_below(81) - 30) / 10.0; /* -3 to +5 */
         if (na < 81.0) {
             na = 81.0;
@@ -1035,6 +1077,8 @@ int main(void)
         cmocka_unit_test(projected_over_before_it_happens),
         cmocka_unit_test(six_in_six_hours),
         cmocka_unit_test(repeated_times),
+        cmocka_unit_test(times_closer_than_the_tolerance),
+        cmocka_unit_test(no_flag_without_a_rise),
         cmocka_unit_test(negative_times),
         cmocka_unit_test(assess_rejects_bad_inputs),
         cmocka_unit_test(assess_rejects_bad_limits),

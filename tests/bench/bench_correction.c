@@ -99,14 +99,16 @@ static ntr_correction pairwise(const ntr_sample *s, size_t n, const ntr_limits *
     double open6 = s[last].na_mmol_l - window_min(s, last, s[last].hours, NTR_CF_RAPID_WINDOW_H);
     double open24 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 24.0);
     double open48 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 48.0);
-    if ((open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol && open24 <= lim->max_rise_24h + tol) ||
-        (open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol && open48 <= lim->max_rise_48h + tol)) {
+    if ((open24 > tol && open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol &&
+         open24 <= lim->max_rise_24h + tol) ||
+        (open48 > tol && open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol &&
+         open48 <= lim->max_rise_48h + tol)) {
         c.flags |= NTR_CF_NEAR_LIMIT;
     }
     if (open6 >= NTR_CF_RAPID_RISE - tol) {
         c.flags |= NTR_CF_RAPID_6H;
     }
-    if (prev < n) {
+    if (prev < n && s[last].hours - s[prev].hours > NTR_CF_TIME_TOLERANCE_H) {
         const ntr_sample a = s[prev], b = s[last];
         c.last_rate_per_h = (b.na_mmol_l - a.na_mmol_l) / (b.hours - a.hours);
         if (b.na_mmol_l < a.na_mmol_l) {
