@@ -488,7 +488,7 @@ static void measured_history_counts_against_the_plan(void **state)
  * first point whose window breaches, found by assessing growing prefixes. */
 static void plan_check_equals_course_then_assess(void **state)
 {
-    int round;
+    int round, breaches = 0;
     (void)state;
     for (round = 0; round < 300; round++) {
         static ntr_sample s[400];
@@ -500,6 +500,7 @@ static void plan_check_equals_course_then_assess(void **state)
         ntr_correction c;
         size_t count = 0, k;
         double first_breach = NTR_PLAN_NO_BREACH;
+        double first_breach_48 = NTR_PLAN_NO_BREACH;
         plan[0] = timed(0.0, rng_in(0.1, 3.0), rng_in(0.0, 500.0), 513.0, 0.0);
         plan[1] = timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 300.0), rng_in(10.0, 60.0), 10.0);
         plan[2] = timed(0.0, 48.0, rng_in(0.0, 80.0), 154.0, 0.0);
@@ -513,13 +514,21 @@ static void plan_check_equals_course_then_assess(void **state)
         for (k = 2; k <= count; k++) {
             ntr_correction pc;
             assert_int_equal(ntr_correction_assess(s, k, &lim, &pc), NTR_OK);
-            if (pc.flags & NTR_CF_OVER_24H) {
+            if ((pc.flags & NTR_CF_OVER_24H) && first_breach == NTR_PLAN_NO_BREACH) {
                 first_breach = s[k - 1].hours;
-                break;
+            }
+            if ((pc.flags & NTR_CF_OVER_48H) && first_breach_48 == NTR_PLAN_NO_BREACH) {
+                first_breach_48 = s[k - 1].hours;
             }
         }
         assert_true(r.breach_24h_h == first_breach);
+        assert_true(r.breach_48h_h == first_breach_48);
+        if (first_breach != NTR_PLAN_NO_BREACH) {
+            breaches++;
+        }
     }
+    /* The random plans include both safe and breaching ones. */
+    assert_true(breaches > 30 && breaches < 270);
 }
 
 static void plan_check_rejects_bad_inputs(void **state)
