@@ -551,8 +551,9 @@ static void write_chart(const struct workup *w, const char *path)
              w->limits.max_rise_24h < 10.0 ? "high-risk" : "standard");
     c.title = "Serum sodium of an invented patient: plan, limits and results";
     c.subtitle = subtitle;
-    c.caption = "Invented patient. Estimates for decision support, not orders; "
-                "verify with measured values and follow local protocols.";
+    c.caption = "Invented patient. Estimates for decision support, not orders: "
+                "verify with measured values; follow local protocols and licensed "
+                "clinical judgement.";
     c.hours_max = 48.0;
     c.na_min = 110.0;
     c.na_max = 140.0;

@@ -191,11 +191,20 @@ int chart_write_svg(FILE *out, const chart *c)
                 c->subtitle);
     }
     draw_axes(out, c);
+    /* Data outside the axis ranges is cut at the plot's edge (a little
+     * margin keeps markers on the edge whole) instead of spilling over the
+     * labels. */
+    fprintf(out, "<clipPath id=\"plot-area\"><rect x=\"%.1f\" y=\"%.1f\" "
+            "width=\"%.1f\" height=\"%.1f\"/></clipPath>\n"
+            "<g clip-path=\"url(#plot-area)\">\n",
+            PLOT_LEFT - 10.0, PLOT_TOP - 10.0, PLOT_RIGHT - PLOT_LEFT + 20.0,
+            PLOT_BOTTOM - PLOT_TOP + 20.0);
     draw_band(out, c);
     for (i = 0; i < c->n_lines; ++i) {
         draw_line(out, c, &c->lines[i]);
     }
     draw_points(out, c);
+    fputs("</g>\n", out);
     draw_legend(out, c);
     if (c->caption != NULL) {
         text_at(out, 16.0, CHART_HEIGHT_PX - 18.0, "start",

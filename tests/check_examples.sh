@@ -206,6 +206,8 @@ check_chart() {
     expect_text "$svg" '<svg ' "chart is an SVG document"
     expect_text "$svg" 'Serum sodium \(mmol/L\)' "chart labels the sodium axis with its unit"
     expect_text "$svg" 'Time since the first sample \(hours\)' "chart labels the time axis with its unit"
+    expect_text "$svg" 'not orders.*licensed clinical judgement' "chart carries the caution"
+    expect_text "$svg" 'Invented patient' "chart says the patient is invented"
     if rsvg-convert -f png -o "$png" "$svg" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders the chart"
     else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; return; fi
     if size=$(png_size "$png"); then
