@@ -208,6 +208,14 @@ check_chart() {
     expect_text "$svg" 'Time since the first sample \(hours\)' "chart labels the time axis with its unit"
     expect_text "$svg" 'not orders.*licensed clinical judgement' "chart carries the caution"
     expect_text "$svg" 'Invented patient' "chart says the patient is invented"
+    # 12 measured samples, one legend entry per marker kind. By the 10 mmol/L
+    # in 24 h limit (Verbalis et al. 2013), only the 16 h result (125.5, 11.5
+    # above the first) makes a rise over the limit worse: 11 dots, 1 diamond.
+    local dots diamonds
+    dots=$(grep -c '<circle ' "$svg" || true)
+    diamonds=$(grep -c '<polygon fill="#c0392b"' "$svg" || true)
+    if [[ "$dots" == 12 && "$diamonds" == 2 ]]; then ok "chart draws 11 measured dots and 1 flagged diamond (plus legend)"
+    else fail "chart draws $dots dots and $diamonds diamonds, expected 12 and 2 with the legend"; fi
     if rsvg-convert -f png -o "$png" "$svg" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders the chart"
     else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; return; fi
     if size=$(png_size "$png"); then
