@@ -5,6 +5,11 @@
  * Everything about the patient is invented for this demo. The program
  * shows how the library's functions fit together; it is example code and
  * prints, which the library itself never does. */
+#if defined(__unix__) || defined(__APPLE__)
+#define _POSIX_C_SOURCE 200112L /* getcwd(), to show where the chart went */
+#include <unistd.h>
+#endif
+
 #include <natremia.h>
 
 #include <stdio.h>
@@ -507,6 +512,20 @@ static void rest_of_course(struct workup *w, ntr_watch *watch, ntr_correction *l
                : "DISAGREES with");
 }
 
+/* Say where the chart went even when the demo runs from a build
+ * directory: a relative path is shown after the current directory where
+ * POSIX getcwd() exists. */
+static void print_full_path(const char *path)
+{
+#if defined(__unix__) || defined(__APPLE__)
+    char cwd[4096];
+    if (path[0] != '/' && getcwd(cwd, sizeof cwd) != NULL) {
+        printf("%s/", cwd);
+    }
+#endif
+    printf("%s", path);
+}
+
 static void write_chart(const struct workup *w, const char *path)
 {
     double m_hours[MEASURED_COUNT], m_na[MEASURED_COUNT];
@@ -575,8 +594,10 @@ static void write_chart(const struct workup *w, const char *path)
         exit(1);
     }
     printf("  measured sodium, both predicted courses and the band the limits "
-           "allow\n  (%.0f in 24 h, %.0f in 48 h) written to %s\n",
-           w->limits.max_rise_24h, w->limits.max_rise_48h, path);
+           "allow\n  (%.0f in 24 h, %.0f in 48 h) written to ",
+           w->limits.max_rise_24h, w->limits.max_rise_48h);
+    print_full_path(path);
+    printf("\n  (open it in any web browser)\n");
 }
 
 /* Print text in lines of at most width columns, each indented. */
