@@ -1,0 +1,182 @@
+#!/usr/bin/env bash
+# PostgreSQL side of the natremia benchmarks (issue P7).
+#
+#   pg-bench.sh SOURCE_ROOT ROWS REPEATS   -> one JSON object on stdout
+#
+# Starts a throwaway server the way tests/postgresql/run.sh does (extension
+# built and staged out of tree, a copy of the postgres executable in the
+# stage, initdb and pg_ctl on a Unix socket in a temporary directory, run as
+# the "postgres" user, or "nobody", when started as root), fills a table of
+# ROWS invented rows and times, in one session with parallel query off:
+#   extension  SELECT sum(ntr_osm_effective(na, glucose)) FROM t
+#   bare SQL   SELECT sum(2*na + glucose) FROM t            (no validation)
+#   PL/pgSQL   the same formula with the same validation in PL/pgSQL
+# and the same three for ntr_osm_calculated (four inputs and the formula
+# name). Each query runs REPEATS times in turn with the others; the time is
+# the backend's CPU time (utime + stime from /proc, 10 ms ticks), so other
+# processes on a shared machine do not count; the least is kept.
+# Exit 77 when PostgreSQL 15 or its development files are missing.
+set -euo pipefail
+
+src=$(cd "$1" && pwd)
+rows=${2:-5000000}
+repeats=${3:-3}
+pgbin=/usr/lib/postgresql/15/bin
+pg_config=$pgbin/pg_config
+for tool in "$pg_config" "$pgbin/initdb" "$pgbin/pg_ctl" "$pgbin/postgres" "$pgbin/psql"; do
+    [[ -x $tool ]] || { echo "skipped: $tool not found" >&2; exit 77; }
+done
+command -v make >/dev/null && [[ -f $("$pg_config" --pgxs) ]] ||
+    { echo "skipped: make or PGXS missing" >&2; exit 77; }
+
+tmp=$(mktemp -d /tmp/natremia-pgbench.XXXXXX)
+chmod 755 "$tmp"
+server_user=""
+run_as() { "$@"; }
+if [[ $(id -u) -eq 0 ]]; then
+    server_user=postgres
+    id -u "$server_user" >/dev/null 2>&1 || server_user=nobody
+    run_as() { runuser -u "$server_user" -- "$@"; }
+fi
+pgdata=$tmp/data
+sockdir=$tmp/socket
+started=no
+cleanup() {
+    if [[ $started == yes ]]; then
+        run_as "$stage_bindir/pg_ctl" -D "$pgdata" -m immediate -w stop >/dev/null 2>&1 || true
+    fi
+    rm -rf "$tmp"
+}
+trap cleanup EXIT
+
+# ---- extension, staged; a server tree that sees it (as in run.sh)
+mkdir "$tmp/build"
+make -s -C "$tmp/build" -f "$src/bindings/postgresql/Makefile" \
+    PG_CONFIG="$pg_config" NATREMIA_ROOT="$src" >&2
+make -s -C "$tmp/build" -f "$src/bindings/postgresql/Makefile" \
+    PG_CONFIG="$pg_config" NATREMIA_ROOT="$src" install DESTDIR="$tmp/stage" >&2
+bindir=$("$pg_config" --bindir)
+sharedir=$("$pg_config" --sharedir)
+pkglibdir=$("$pg_config" --pkglibdir)
+stage_bindir=$tmp/stage$bindir
+mkdir -p "$stage_bindir" "$tmp/stage$sharedir/extension" "$tmp/stage$pkglibdir"
+cp "$bindir/postgres" "$stage_bindir/postgres"
+for tool in pg_ctl initdb; do
+    ln -s "$bindir/$tool" "$stage_bindir/$tool"
+done
+link_all() {
+    local entry
+    for entry in "$1"/*; do
+        [[ -e "$2/$(basename "$entry")" ]] || ln -s "$entry" "$2/"
+    done
+}
+link_all "$sharedir/extension" "$tmp/stage$sharedir/extension"
+link_all "$sharedir" "$tmp/stage$sharedir"
+link_all "$pkglibdir" "$tmp/stage$pkglibdir"
+
+mkdir "$sockdir"
+[[ -z $server_user ]] || chown -R "$server_user" "$tmp"
+run_as "$pgbin/initdb" -D "$pgdata" -U natremia_bench --auth=trust \
+    --no-instructions >"$tmp/initdb.log" 2>&1 || { cat "$tmp/initdb.log" >&2; exit 1; }
+run_as "$stage_bindir/pg_ctl" -D "$pgdata" -w -t 60 -l "$tmp/server.log" \
+    -p "$stage_bindir/postgres" \
+    -o "-k $sockdir -c listen_addresses= -c fsync=off -c shared_buffers=512MB -c max_parallel_workers_per_gather=0 -c jit=off" \
+    start >/dev/null || { cat "$tmp/server.log" >&2; exit 1; }
+started=yes
+
+# ---- one session: data, functions, then the timed queries
+queries=(
+  "ext_effective|SELECT sum(ntr_osm_effective(na, glucose)) FROM t"
+  "sql_effective|SELECT sum(2 * na + glucose) FROM t"
+  "plpgsql_effective|SELECT sum(plpgsql_osm_effective(na, glucose)) FROM t"
+  "ext_calculated|SELECT sum(ntr_osm_calculated(na, glucose, urea, ethanol)) FROM t"
+  "sql_calculated|SELECT sum(2 * na + glucose + urea + ethanol) FROM t"
+  "plpgsql_calculated|SELECT sum(plpgsql_osm_calculated(na, glucose, urea, ethanol)) FROM t"
+)
+script=$tmp/bench.sql
+cat >"$script" <<SQL
+\set ON_ERROR_STOP 1
+\pset tuples_only on
+\pset format unaligned
+SET client_min_messages = warning;
+CREATE EXTENSION natremia;
+SELECT setseed(0.2026);
+-- Invented rows: plausible sodium, glucose, urea and ethanol, mmol/L.
+CREATE TABLE t AS
+SELECT 110 + 50 * random() AS na, 3 + 37 * random() AS glucose,
+       2 + 28 * random() AS urea, CASE WHEN random() < 0.1 THEN 20 * random() ELSE 0 END AS ethanol
+FROM generate_series(1, $rows);
+VACUUM ANALYZE t;
+-- What a careful team would write without natremia: the same checks
+-- (finite, then inside the documented range, in argument order), NULL for
+-- invalid input, then the formula.
+CREATE FUNCTION plpgsql_osm_effective(na float8, glucose float8)
+RETURNS float8 LANGUAGE plpgsql IMMUTABLE STRICT PARALLEL SAFE AS \$\$
+BEGIN
+    IF na IN ('NaN', 'Infinity', '-Infinity') OR na < 80 OR na > 220 THEN
+        RETURN NULL;
+    END IF;
+    IF glucose IN ('NaN', 'Infinity', '-Infinity') OR glucose < 0 OR glucose > 200 THEN
+        RETURN NULL;
+    END IF;
+    RETURN 2 * na + glucose;
+END \$\$;
+CREATE FUNCTION plpgsql_osm_calculated(na float8, glucose float8, urea float8,
+                                       ethanol float8)
+RETURNS float8 LANGUAGE plpgsql IMMUTABLE STRICT PARALLEL SAFE AS \$\$
+BEGIN
+    IF na IN ('NaN', 'Infinity', '-Infinity') OR na < 80 OR na > 220 THEN
+        RETURN NULL;
+    END IF;
+    IF glucose IN ('NaN', 'Infinity', '-Infinity') OR glucose < 0 OR glucose > 200 THEN
+        RETURN NULL;
+    END IF;
+    IF urea IN ('NaN', 'Infinity', '-Infinity') OR urea < 0 OR urea > 200 THEN
+        RETURN NULL;
+    END IF;
+    IF ethanol IN ('NaN', 'Infinity', '-Infinity') OR ethanol < 0 OR ethanol > 400 THEN
+        RETURN NULL;
+    END IF;
+    RETURN 2 * na + glucose + urea + ethanol;
+END \$\$;
+-- The three ways must agree before they are timed.
+SELECT CASE WHEN abs(sum(ntr_osm_effective(na, glucose)) - sum(2 * na + glucose)) < 1e-3 * count(*)
+             AND abs(sum(plpgsql_osm_effective(na, glucose)) - sum(2 * na + glucose)) < 1e-3 * count(*)
+             AND abs(sum(ntr_osm_calculated(na, glucose, urea, ethanol)) - sum(2 * na + glucose + urea + ethanol)) < 1e-3 * count(*)
+             AND abs(sum(plpgsql_osm_calculated(na, glucose, urea, ethanol)) - sum(2 * na + glucose + urea + ethanol)) < 1e-3 * count(*)
+        THEN 'agree' ELSE 'DIFFER' END FROM t \g $tmp/agreement.txt
+SELECT pg_backend_pid() \g $tmp/pid.txt
+SQL
+for ((r = 0; r < repeats; r++)); do
+    for entry in "${queries[@]}"; do
+        name=${entry%%|*}
+        query=${entry#*|}
+        {
+            echo "\\! echo $name \$(awk '{print \$14 + \$15}' /proc/\$(cat $tmp/pid.txt)/stat) >> $tmp/times.txt"
+            echo "$query;"
+            echo "\\! echo $name \$(awk '{print \$14 + \$15}' /proc/\$(cat $tmp/pid.txt)/stat) >> $tmp/times.txt"
+        } >>"$script"
+    done
+done
+chmod 644 "$script"
+touch "$tmp/times.txt" "$tmp/agreement.txt" "$tmp/pid.txt"
+chmod 666 "$tmp/times.txt" "$tmp/agreement.txt" "$tmp/pid.txt"
+"$pgbin/psql" -X -q -h "$sockdir" -U natremia_bench -d postgres -f "$script" >/dev/null
+
+python3 - "$tmp/times.txt" "$rows" "$repeats" "$("$pgbin/postgres" --version)" "$(cat "$tmp/agreement.txt")" <<'PY'
+import json, os, sys
+path, rows, repeats, version = sys.argv[1], int(sys.argv[2]), int(sys.argv[3]), sys.argv[4]
+agreement = sys.argv[5].strip()
+tick = os.sysconf("SC_CLK_TCK")
+start, best = {}, {}
+for line in open(path):
+    name, value = line.split()
+    if name in start:
+        t = (int(value) - start.pop(name)) / tick
+        best[name] = min(best.get(name, t), t)
+    else:
+        start[name] = int(value)
+print(json.dumps({"rows": rows, "repeats": repeats, "server": version,
+                  "clock_tick_s": 1.0 / tick, "agreement": agreement,
+                  "seconds": best}, indent=1))
+PY

@@ -1,0 +1,357 @@
+#!/usr/bin/python3
+"""Assemble the benchmark results of run-bench.sh into docs/performance.md.
+
+Usage: report.py RESULTS_DIR OUTPUT_MD
+Reads the files run-bench.sh wrote in RESULTS_DIR (a missing file means the
+step was skipped and is reported as such), prints the summary table and
+writes the full page. The explanations of the limits come from
+tests/bench/notes.md, included as written.
+"""
+import json
+import os
+import sys
+
+SCALAR_TARGET = 50          # instructions per call
+BATCH_TARGET = 0.70         # fraction of memcpy bandwidth
+NUMPY_TARGET = 3.0          # times faster than numpy
+COHORT_TARGET = 50.0        # times faster than pandas
+SCALING_TARGET = 1.10       # slowest / fastest time per sample
+PG_BARE_TARGET = 1.5        # extension time / bare SQL time, at most
+PG_PLPGSQL_TARGET = 5.0     # PL/pgSQL time / extension time, at least
+CODE_TARGET = 12 * 1024     # bytes of .text + .rodata, Cortex-M4 -Os
+STACK_TARGET = 256          # bytes, largest frame of an entry point
+
+# Entry points whose cost grows with their input (a series, a plan, a
+# findings record, a whole watcher state): reported, not held to the
+# per-call target of the scalar formulas.
+SERIES = {
+    "ntr_correction_assess": "12-sample series",
+    "ntr_balance_predict": "2 flows",
+    "ntr_balance_course": "2 flows, 25 points",
+    "ntr_plan_check": "3 samples of history, 2 flows, 24 points",
+}
+
+
+def load(results, name):
+    path = os.path.join(results, name)
+    if not os.path.exists(path):
+        return None
+    with open(path) as f:
+        if name.endswith(".json"):
+            return json.load(f)
+        return f.read()
+
+
+def yes(ok):
+    return "yes" if ok else "**no**"
+
+
+def fmt(x, digits=2):
+    return ("%." + str(digits) + "f") % x
+
+
+class Page:
+    def __init__(self):
+        self.lines = []
+        self.summary = []
+
+    def add(self, *lines):
+        self.lines.extend(lines)
+
+    def table(self, header, rows):
+        self.add("| " + " | ".join(header) + " |",
+                 "|" + "|".join("---" for _ in header) + "|")
+        for r in rows:
+            self.add("| " + " | ".join(str(c) for c in r) + " |")
+        self.add("")
+
+    def result(self, what, target, measured, ok):
+        self.summary.append((what, target, measured, "skipped" if ok is None else yes(ok)))
+
+
+def scalar_section(page, d):
+    page.add("## 1. Instructions per call of the scalar functions", "")
+    if d is None:
+        page.add("Skipped (valgrind not installed).", "")
+        page.result("scalar functions, instructions per call", "<= %d" % SCALAR_TARGET, "skipped", None)
+        return
+    page.add("Counted by `valgrind --tool=callgrind` (instructions, not time, so "
+             "the count is the same on every run). Each function is called %d "
+             "times in a loop with valid inputs that take its full computing "
+             "path; an identical loop calls a do-nothing function of the same "
+             "signature, compiled apart so it cannot be inlined. **Per call** = "
+             "(instructions of the loop - instructions of the empty-call loop) / "
+             "calls: the library's own work, with the loop, the argument set-up "
+             "and the call instruction subtracted. **Callee** is callgrind's "
+             "inclusive count inside the function divided by its calls (it "
+             "includes the two instructions of a bare `ret` path and is shown as "
+             "a cross-check; for ntr_watch_result it also averages the calls "
+             "ntr_watch_push makes). Library built as the project builds it "
+             "(meson debugoptimized: -O2), x86-64." % d["calls_per_loop"], "")
+    rows, series_rows, worst = [], [], None
+    for r in sorted(d["functions"], key=lambda r: r["function"]):
+        name = r["function"]
+        per = r["loop_minus_base"]
+        callee = r["callee_inclusive"]
+        callee_s = "-" if callee is None else fmt(callee, 1)
+        if name in SERIES:
+            series_rows.append((name, SERIES[name], fmt(per, 0), callee_s))
+            continue
+        ok = per <= SCALAR_TARGET
+        rows.append((name, fmt(per, 1), callee_s, yes(ok)))
+        if worst is None or per > worst[1]:
+            worst = (name, per)
+    page.table(["function", "per call", "callee", "<= %d" % SCALAR_TARGET], rows)
+    met = sum(1 for r in rows if r[3] == "yes")
+    page.add("Series and record functions (cost grows with the input; no "
+             "per-call target):", "")
+    page.table(["function", "input", "per call", "callee"], series_rows)
+    page.result("scalar functions, instructions per call (%d functions)" % len(rows),
+                "<= %d each" % SCALAR_TARGET,
+                "%d of %d meet it; highest %s %.0f" % (met, len(rows), worst[0], worst[1]),
+                met == len(rows))
+
+
+def batch_section(page, text):
+    page.add("## 2. Batch throughput against memory bandwidth", "")
+    if text is None:
+        page.add("Skipped.", "")
+        page.result("batch throughput vs memcpy", ">= %.0f%%" % (BATCH_TARGET * 100), "skipped", None)
+        return
+    rows_n = None
+    rows, worst, met = [], None, 0
+    for line in text.splitlines():
+        if line.startswith("#") or not line.strip():
+            if line.startswith("# rows="):
+                rows_n = line.split()[1].split("=")[1]
+            continue
+        name, n, per_row, tb, tc, gb_b, gb_c, ratio, failed = line.split()
+        ratio = float(ratio)
+        ok = ratio >= BATCH_TARGET
+        met += ok
+        rows.append((name, per_row, fmt(float(tb) * 1e3, 1), fmt(float(tc) * 1e3, 1),
+                     fmt(float(gb_b), 1), fmt(float(gb_c), 1), fmt(ratio * 100, 0) + "%", yes(ok)))
+        if worst is None or ratio < worst[1]:
+            worst = (name, ratio)
+    page.add("`tests/bench/bench_batch`: every `ntr_batch_*` function on %s invented "
+             "valid rows, against `memcpy` of as many bytes as the call moves: a "
+             "call reads its input columns and writes its result and status "
+             "columns (bytes/row), a copy of half that many bytes reads and writes "
+             "the same total. Bandwidth = bytes moved / time for both; the ratio "
+             "of the two bandwidths is the figure. Buffers are touched before "
+             "timing; batch and copy alternate and the fastest of the repeats of "
+             "each is kept (thread CPU time)." % rows_n, "")
+    page.table(["function", "bytes/row", "batch ms", "memcpy ms", "batch GB/s",
+                "memcpy GB/s", "of memcpy", ">= %.0f%%" % (BATCH_TARGET * 100)], rows)
+    page.result("batch throughput, %s rows, vs memcpy of the same bytes" % rows_n,
+                ">= %.0f%% each" % (BATCH_TARGET * 100),
+                "%d of %d meet it; lowest %s %.0f%%" % (met, len(rows), worst[0], worst[1] * 100),
+                met == len(rows))
+
+
+def numpy_section(page, d):
+    page.add("## 3. Python binding against numpy with the same validation", "")
+    if d is None:
+        page.add("Skipped (numpy or the binding missing).", "")
+        page.result("Python array calls vs numpy", ">= %gx" % NUMPY_TARGET, "skipped", None)
+        return
+    page.add("`tests/bench/bench_numpy.py`: each array function of "
+             "`natremia.arrays` (one C batch call) against the same formula and "
+             "the same per-row validation written in numpy %s (finite, then in "
+             "range, in argument order; the same status codes; NaN in failed "
+             "rows), on %d invented rows of which about 1 in 1000 is broken. "
+             "Alternating, fastest of %d runs each, process CPU time. *Same* = "
+             "values and statuses identical." % (d["numpy"], d["rows"], d["repeats"]), "")
+    rows, worst, met, same = [], None, 0, True
+    for r in d["functions"]:
+        ok = r["ratio"] >= NUMPY_TARGET
+        met += ok
+        same &= r["same_result"]
+        rows.append((r["function"], fmt(r["binding_s"] * 1e3, 2), fmt(r["numpy_s"] * 1e3, 2),
+                     fmt(r["ratio"], 1) + "x", "yes" if r["same_result"] else "**no**", yes(ok)))
+        if worst is None or r["ratio"] < worst[1]:
+            worst = (r["function"], r["ratio"])
+    page.table(["function", "natremia ms", "numpy ms", "faster", "same", ">= %gx" % NUMPY_TARGET], rows)
+    page.result("Python array calls vs numpy, same validation (%d functions)" % len(rows),
+                ">= %gx each" % NUMPY_TARGET,
+                "%d of %d meet it; lowest %s %.1fx" % (met, len(rows), worst[0], worst[1]),
+                met == len(rows) and same)
+
+
+def cohort_section(page, d):
+    page.add("## 4. Correction assessment of a cohort against pandas", "")
+    if d is None:
+        page.add("Skipped (pandas, the binding or ntr_batch_correction_assess missing).", "")
+        page.result("cohort correction assessment vs pandas", ">= %gx" % COHORT_TARGET, "skipped", None)
+        return
+    ok = d["ratio"] >= COHORT_TARGET and d["same_result"]
+    page.add("`tests/bench/bench_cohort.py`: %d invented patients, %d sodium "
+             "results (8 to 16 each). natremia: one "
+             "`natremia.arrays.correction_assess_groups` call (C "
+             "`ntr_batch_correction_assess`), offsets included. pandas %s: "
+             "`groupby` per patient with time-based `rolling('24h')` and "
+             "`rolling('48h')` windows, the first-24-h rise, the last interval, "
+             "validation of values and time order, and the four basic flags "
+             "(less than natremia computes). Process CPU time, one run each. "
+             "Results agree: %s (rises, rate and the four flags); %d series are "
+             "over the 24 h limit." % (d["patients"], d["results"], d["pandas"],
+                                       "yes" if d["same_result"] else "**no**",
+                                       d["flagged_over_24h"]), "")
+    page.table(["", "natremia s", "pandas s", "faster", ">= %gx" % COHORT_TARGET],
+               [("correction assessment", fmt(d["natremia_s"], 3), fmt(d["pandas_s"], 1),
+                 fmt(d["ratio"], 0) + "x", yes(ok))])
+    page.result("cohort assessment, %d patients x ~12 results, vs pandas rolling" % d["patients"],
+                ">= %gx" % COHORT_TARGET, "%.0fx" % d["ratio"], ok)
+
+
+def scaling_section(page, text, ir):
+    page.add("## 5. Scaling of the correction assessment with series length", "")
+    if text is None:
+        page.add("Skipped.", "")
+        page.result("assessment time per sample, 10 to 100,000", "within 10%", "skipped", None)
+        return
+    rows, per = [], []
+    for line in text.splitlines():
+        if line.startswith("#") or not line.strip():
+            continue
+        n, series, samples, best, ns, flagged = line.split()
+        per.append((int(n), float(ns)))
+    base = per[0][1]
+    for n, ns in per:
+        ir_s = "-"
+        if ir and str(n) in ir:
+            ir_s = fmt(ir[str(n)], 1)
+        rows.append((n, fmt(ns, 1), fmt(ns / base, 2), ir_s))
+    spread = max(p[1] for p in per) / min(p[1] for p in per)
+    ir_spread = None
+    if ir:
+        vals = list(ir.values())
+        ir_spread = max(vals) / min(vals)
+    page.add("`tests/bench/bench_scaling`: `ntr_correction_assess` on runs of n "
+             "consecutive results of one invented series of 100,000 (every 2 to "
+             "6 h, drifting between 112 and 148 mmol/L), about the same number "
+             "of samples for every n; lengths take turns and the fastest pass "
+             "of each is kept (thread CPU time). Instructions per sample: "
+             "callgrind, counting only inside `ntr_correction_assess`.", "")
+    page.table(["samples per series", "ns per sample", "vs n=10", "instructions per sample"], rows)
+    measured = "time: slowest/fastest %.2f" % spread
+    if ir_spread is not None:
+        measured += "; instructions: %.3f" % ir_spread
+    page.result("assessment cost per sample, series of 10 to 100,000", "within 10%",
+                measured, spread <= SCALING_TARGET)
+
+
+def pg_section(page, d):
+    page.add("## 6. PostgreSQL", "")
+    if d is None:
+        page.add("Skipped (PostgreSQL 15 server or development files missing).", "")
+        page.result("PostgreSQL extension vs bare SQL / PL/pgSQL", "", "skipped", None)
+        return
+    s = d["seconds"]
+    page.add("`tests/bench/pg-bench.sh`: a throwaway %s on a Unix socket, the "
+             "extension built from this tree, %d invented rows, parallel query "
+             "and JIT off. `sum()` over the table of: the extension's function; "
+             "the bare arithmetic in SQL (no validation at all); a PL/pgSQL "
+             "function with the same validation (finite, in range, NULL "
+             "otherwise). Backend CPU time (%.0f ms ticks), fastest of %d runs; "
+             "the three results agree: %s." % (d["server"], d["rows"],
+                                                 d["clock_tick_s"] * 1e3, d["repeats"],
+                                                 d["agreement"]), "")
+    rows = []
+    all_ok = True
+    for f in ("effective", "calculated"):
+        ext, sql, plp = s["ext_" + f], s["sql_" + f], s["plpgsql_" + f]
+        r_bare, r_plp = ext / sql, plp / ext
+        ok1, ok2 = r_bare <= PG_BARE_TARGET, r_plp >= PG_PLPGSQL_TARGET
+        all_ok &= ok1 and ok2
+        rows.append(("ntr_osm_" + f, fmt(ext, 2), fmt(sql, 2), fmt(plp, 2),
+                     fmt(r_bare, 2) + " " + yes(ok1), fmt(r_plp, 1) + "x " + yes(ok2)))
+    page.table(["function", "extension s", "bare SQL s", "PL/pgSQL s",
+                "extension / bare (<= %.1f)" % PG_BARE_TARGET,
+                "PL/pgSQL / extension (>= %gx)" % PG_PLPGSQL_TARGET], rows)
+    worst_bare = max(s["ext_" + f] / s["sql_" + f] for f in ("effective", "calculated"))
+    worst_plp = min(s["plpgsql_" + f] / s["ext_" + f] for f in ("effective", "calculated"))
+    page.result("PostgreSQL, %d rows: extension time / bare SQL time" % d["rows"],
+                "<= %.1f" % PG_BARE_TARGET, "%.2f (worst)" % worst_bare, worst_bare <= PG_BARE_TARGET)
+    page.result("PostgreSQL: PL/pgSQL with the same validation / extension",
+                ">= %gx" % PG_PLPGSQL_TARGET, "%.1fx (worst)" % worst_plp, worst_plp >= PG_PLPGSQL_TARGET)
+
+
+def firmware_section(page, d):
+    page.add("## 7. Firmware: Cortex-M4 code size and stack", "")
+    if d is None:
+        page.add("Skipped (arm-none-eabi-gcc not installed).", "")
+        page.result("Cortex-M4 code size", "<= 12 KiB", "skipped", None)
+        page.result("largest stack frame", "<= 256 B", "skipped", None)
+        return
+    page.add("`tests/bench/firmware.py`: every library source compiled with "
+             "%s `%s`; sizes from `arm-none-eabi-size -A` of the objects "
+             "(.text* + .rodata*; writable data %d bytes); frames from "
+             "`-fstack-usage`. The linked image keeps every entry point "
+             "(`--gc-sections`, `-u` for each) with libgcc's software "
+             "double-precision routines a Cortex-M4 needs; the chain is the "
+             "deepest path through the library's own functions (`-fcallgraph-info`), "
+             "libgcc helpers not counted." % (d["compiler"], d["flags"], d["writable_bytes"]), "")
+    code_ok = d["code_bytes"] <= CODE_TARGET
+    stack_ok = d["largest_frame_bytes"] <= STACK_TARGET
+    page.table(["measure", "bytes", "target", "met"], [
+        ("library .text + .rodata", d["code_bytes"], CODE_TARGET, yes(code_ok)),
+        ("  of which .text / .rodata", "%d / %d" % (d["text"], d["rodata"]), "", ""),
+        ("linked image, every entry point + libgcc", d["image_code_bytes"], "", ""),
+        ("largest frame of an entry point (%s)" % d["largest_frame_function"],
+         d["largest_frame_bytes"], STACK_TARGET, yes(stack_ok)),
+        ("deepest call chain in the library (%s)" % " > ".join(d["deepest_chain"]),
+         d["deepest_chain_bytes"], "", ""),
+    ])
+    page.add("Per source file (.text + .rodata):", "")
+    page.table(["object", "bytes"], sorted(d["objects"].items(), key=lambda kv: -kv[1]))
+    frames = sorted(d["entry_frames"].items(), key=lambda kv: (-kv[1], kv[0]))[:10]
+    page.add("Largest entry-point frames:", "")
+    page.table(["entry point", "frame bytes"], frames)
+    page.result("Cortex-M4 -Os code size (.text + .rodata, whole library)", "<= 12 KiB",
+                "%.1f KiB" % (d["code_bytes"] / 1024.0), code_ok)
+    page.result("largest stack frame of an entry point", "<= %d B" % STACK_TARGET,
+                "%d B (%s)" % (d["largest_frame_bytes"], d["largest_frame_function"]), stack_ok)
+
+
+def machine_lines(m):
+    return ["- CPU: %s, %s logical cores (shared with other jobs while measured)" % (m["model"], m["cores"]),
+            "- Memory: %s" % m["memory"],
+            "- System: %s; compiler: %s; Python %s" % (m["kernel"], m["cc"], m["python"]),
+            "- Commit: %s; measured %s; script run time %s s" % (m["commit"], m["date"], m.get("seconds", "?"))]
+
+
+def main():
+    results, output = sys.argv[1], sys.argv[2]
+    page = Page()
+    scalar_section(page, load(results, "scalar.json"))
+    batch_section(page, load(results, "batch.txt"))
+    numpy_section(page, load(results, "numpy.json"))
+    cohort_section(page, load(results, "cohort.json"))
+    scaling_section(page, load(results, "scaling.txt"), load(results, "scaling_ir.json"))
+    pg_section(page, load(results, "pg.json"))
+    firmware_section(page, load(results, "firmware.json"))
+    machine = load(results, "machine.json")
+
+    head = ["# Performance", "",
+            "Every result natremia computes is an estimate for decision support, "
+            "not an order: verify with measured values, follow local protocols "
+            "and licensed clinical judgement. This page is about speed and size "
+            "only.", "",
+            "Written by `bash tests/bench/run-bench.sh` (issue P7); do not edit by "
+            "hand: rerun the script. Every comparison is measured side by side in "
+            "the same run on the same machine and reported as a ratio; absolute "
+            "times are only for orientation. All data are invented.", "",
+            "## Machine", ""] + machine_lines(machine) + ["", "## Summary", ""]
+    summary = ["| measurement | target | measured | met |", "|---|---|---|---|"]
+    summary += ["| %s | %s | %s | %s |" % row for row in page.summary]
+    notes_path = os.path.join(os.path.dirname(os.path.abspath(__file__)), "notes.md")
+    notes = open(notes_path).read().rstrip("\n").splitlines() if os.path.exists(notes_path) else []
+    text = "\n".join(head + summary + [""] + page.lines + notes) + "\n"
+    with open(output, "w") as f:
+        f.write(text)
+    print("\n".join(["Machine:"] + machine_lines(machine) + [""] + summary))
+
+
+if __name__ == "__main__":
+    main()

@@ -1,0 +1,150 @@
+#!/usr/bin/env bash
+# Reproduces the whole performance table of natremia (issue P7) and writes
+# docs/performance.md.
+#
+#   bash tests/bench/run-bench.sh [BUILD_DIR]      (default: build-bench)
+#
+# Builds the library and the bench programs with meson in BUILD_DIR (the
+# project's default build type, -O2), then measures side by side:
+#   1. instructions per call of every scalar function (valgrind callgrind)
+#   2. batch throughput on 10 million rows against memcpy of the same bytes
+#   3. the Python binding's array calls against numpy with the same checks
+#   4. correction assessment of 1 million invented patients against pandas
+#   5. assessment cost per sample for series of 10 to 100,000 samples
+#   6. the PostgreSQL extension against bare SQL and PL/pgSQL (5 million rows)
+#   7. Cortex-M4 code size and stack frames (arm-none-eabi-gcc -Os)
+# A step whose tools are missing is reported as skipped. Sizes can be
+# lowered for a quick look (the page then says what was run):
+#   BENCH_ROWS (10000000) BENCH_NUMPY_ROWS (1000000) BENCH_PATIENTS (1000000)
+#   BENCH_PG_ROWS (5000000) BENCH_REPEATS (7)
+# Packages: meson ninja-build valgrind python3-numpy python3-pandas
+# gcc-arm-none-eabi postgresql-15 postgresql-server-dev-15 make.
+# Takes a few minutes; the pandas side of step 4 is the longest part.
+set -euo pipefail
+
+root=$(cd "$(dirname "$0")/../.." && pwd)
+build=${1:-$root/build-bench}
+[[ $build == /* ]] || build=$root/$build
+rows=${BENCH_ROWS:-10000000}
+numpy_rows=${BENCH_NUMPY_ROWS:-1000000}
+patients=${BENCH_PATIENTS:-1000000}
+pg_rows=${BENCH_PG_ROWS:-5000000}
+repeats=${BENCH_REPEATS:-7}
+python=/usr/bin/python3
+started=$(date +%s)
+
+step() { printf '\n== %s\n' "$*" >&2; }
+have() { command -v "$1" >/dev/null 2>&1; }
+
+step "build ($build)"
+if [[ ! -f $build/build.ninja ]]; then
+    meson setup "$build" "$root" >/dev/null
+fi
+ninja -C "$build" tests/bench/bench_scalar tests/bench/bench_batch \
+    tests/bench/bench_scaling lib/libnatremia.so.1.0.0 >/dev/null
+bench=$build/tests/bench
+out=$build/bench-results
+rm -rf "$out"
+mkdir -p "$out"
+lib=$build/lib/libnatremia.so.1
+
+step "machine"
+"$python" - "$out/machine.json" "$root" <<'PY'
+import json, os, platform, subprocess, sys, time
+def run(*cmd):
+    try:
+        return subprocess.run(cmd, capture_output=True, text=True, check=True).stdout
+    except (OSError, subprocess.CalledProcessError):
+        return ""
+model = "unknown"
+for line in run("lscpu").splitlines():
+    if line.startswith("Model name:"):
+        model = line.split(":", 1)[1].strip()
+mem_kib = 0
+for line in open("/proc/meminfo"):
+    if line.startswith("MemTotal:"):
+        mem_kib = int(line.split()[1])
+json.dump({
+    "model": model, "cores": os.cpu_count(),
+    "memory": "%.1f GiB" % (mem_kib / 1048576.0),
+    "kernel": platform.system() + " " + platform.release(),
+    "cc": (run("cc", "--version").splitlines() or ["?"])[0],
+    "python": platform.python_version(),
+    "commit": run("git", "-C", sys.argv[2], "rev-parse", "--short", "HEAD").strip() or "?",
+    "date": time.strftime("%Y-%m-%d %H:%M UTC", time.gmtime()),
+}, open(sys.argv[1], "w"))
+PY
+
+step "1. scalar instructions per call (callgrind)"
+if have valgrind; then
+    valgrind --tool=callgrind --dump-line=no --dump-instr=no \
+        --compress-strings=no --compress-pos=no \
+        --callgrind-out-file="$out/scalar.callgrind" \
+        "$bench/bench_scalar" 20000 >"$out/scalar.log" 2>&1
+    "$python" "$root/tests/bench/callgrind_cost.py" "$out/scalar.callgrind" 20000 >"$out/scalar.json"
+else
+    echo "skipped: valgrind not installed" >&2
+fi
+
+step "2. batch throughput, $rows rows, against memcpy"
+"$bench/bench_batch" "$rows" "$repeats" >"$out/batch.txt"
+
+step "3. Python array calls against numpy ($numpy_rows rows)"
+export NATREMIA_LIBRARY=$lib
+export PYTHONPATH=$root/bindings/python${PYTHONPATH:+:$PYTHONPATH}
+if "$python" -c "import numpy" 2>/dev/null; then
+    "$python" "$root/tests/bench/bench_numpy.py" "$numpy_rows" 5 >"$out/numpy.json"
+else
+    echo "skipped: python3-numpy not installed" >&2
+fi
+
+step "4. cohort correction assessment against pandas ($patients patients)"
+if "$python" -c "import pandas" 2>/dev/null; then
+    "$python" "$root/tests/bench/bench_cohort.py" "$patients" >"$out/cohort.json"
+else
+    echo "skipped: python3-pandas not installed" >&2
+fi
+
+step "5. assessment cost per sample, series of 10 to 100,000"
+"$bench/bench_scaling" 1000000 15 >"$out/scaling.txt"
+if have valgrind; then
+    {
+        echo "{"
+        sep=""
+        for n in 10 100 1000 10000 100000; do
+            valgrind --tool=callgrind --toggle-collect=ntr_correction_assess \
+                --callgrind-out-file="$out/scaling.$n.callgrind" \
+                "$bench/bench_scaling" one "$n" 200000 >"$out/scaling.$n.log" 2>/dev/null
+            samples=$(awk '{print $3}' "$out/scaling.$n.log")
+            ir=$(awk '/^(summary|totals):/ {print $2; exit}' "$out/scaling.$n.callgrind")
+            printf '%s "%s": %s\n' "$sep" "$n" "$(awk -v a="$ir" -v b="$samples" 'BEGIN {printf "%.3f", a / b}')"
+            sep=","
+        done
+        echo "}"
+    } >"$out/scaling_ir.json"
+fi
+
+step "6. PostgreSQL ($pg_rows rows)"
+status=0
+bash "$root/tests/bench/pg-bench.sh" "$root" "$pg_rows" 3 >"$out/pg.json" || status=$?
+if [[ $status -ne 0 ]]; then
+    rm -f "$out/pg.json"
+    [[ $status -eq 77 ]] || { echo "pg-bench.sh failed ($status)" >&2; exit 1; }
+fi
+
+step "7. Cortex-M4 code size and stack"
+if have arm-none-eabi-gcc; then
+    "$python" "$root/tests/bench/firmware.py" "$root" "$build/bench-m4" >"$out/firmware.json"
+else
+    echo "skipped: gcc-arm-none-eabi not installed" >&2
+fi
+
+step "report"
+"$python" - "$out/machine.json" "$(( $(date +%s) - started ))" <<'PY'
+import json, sys
+m = json.load(open(sys.argv[1]))
+m["seconds"] = int(sys.argv[2])
+json.dump(m, open(sys.argv[1], "w"))
+PY
+"$python" "$root/tests/bench/report.py" "$out" "$root/docs/performance.md"
+echo "written: docs/performance.md" >&2
