@@ -85,6 +85,9 @@ link_all "$sharedir" "$tmp/stage$sharedir"
 link_all "$pkglibdir" "$tmp/stage$pkglibdir"
 
 # ---- initdb, start on a private socket (no TCP), as the server user
+# (from inside the temporary directory: the server user may not be allowed
+# into the directory the test was started from)
+cd "$tmp"
 mkdir "$sockdir"
 if [[ -n $server_user ]]; then
     chown -R "$server_user" "$tmp"
