@@ -66,10 +66,16 @@ int ntri_limits_check(const ntr_limits *lim)
 
 /* ---- risk of osmotic demyelination ------------------------------------- */
 
+/* NTR_TRI_UNKNOWN, _NO and _YES are 0, 1 and 2. */
 static int is_tri(int answer)
 {
-    return answer == NTR_TRI_UNKNOWN || answer == NTR_TRI_NO ||
-           answer == NTR_TRI_YES;
+    return answer >= NTR_TRI_UNKNOWN && answer <= NTR_TRI_YES;
+}
+
+/* `bit` when the answer is `value`, else 0. */
+static unsigned int bit_if(int answer, int value, unsigned int bit)
+{
+    return answer == value ? bit : 0u;
 }
 
 int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
@@ -77,34 +83,29 @@ int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
                  int advanced_liver_disease, int *preset,
                  unsigned int *drivers, unsigned int *unknowns)
 {
-    const int answers[4] = {low_potassium, alcohol_use_disorder, malnutrition,
-                            advanced_liver_disease};
-    const unsigned int bits[4] = {NTR_ODS_LOW_K, NTR_ODS_ALCOHOL,
-                                  NTR_ODS_MALNUTRITION, NTR_ODS_LIVER};
-    unsigned int present = 0u;
-    unsigned int not_known = 0u;
-    size_t i;
+    unsigned int present;
+    unsigned int not_known;
 
     if (preset == NULL || drivers == NULL || unknowns == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < 4; i++) {
-        if (!is_tri(answers[i])) {
-            return NTR_ERR_ARG;
-        }
+    if (!is_tri(low_potassium) || !is_tri(alcohol_use_disorder) ||
+        !is_tri(malnutrition) || !is_tri(advanced_liver_disease)) {
+        return NTR_ERR_ARG;
     }
     NTR_TRY(ntr_check_na(baseline_na_mmol_l));
 
-    if (baseline_na_mmol_l <= ODS_NA_THRESHOLD) {
-        present |= NTR_ODS_NA_105;
-    }
-    for (i = 0; i < 4; i++) {
-        if (answers[i] == NTR_TRI_YES) {
-            present |= bits[i];
-        } else if (answers[i] == NTR_TRI_UNKNOWN) {
-            not_known |= bits[i];
-        }
-    }
+    /* Straight-line bit arithmetic (no local arrays and loops): a third of
+     * the instructions per call (tests/bench/run-bench.sh). */
+    present = (baseline_na_mmol_l <= ODS_NA_THRESHOLD ? NTR_ODS_NA_105 : 0u) |
+              bit_if(low_potassium, NTR_TRI_YES, NTR_ODS_LOW_K) |
+              bit_if(alcohol_use_disorder, NTR_TRI_YES, NTR_ODS_ALCOHOL) |
+              bit_if(malnutrition, NTR_TRI_YES, NTR_ODS_MALNUTRITION) |
+              bit_if(advanced_liver_disease, NTR_TRI_YES, NTR_ODS_LIVER);
+    not_known = bit_if(low_potassium, NTR_TRI_UNKNOWN, NTR_ODS_LOW_K) |
+                bit_if(alcohol_use_disorder, NTR_TRI_UNKNOWN, NTR_ODS_ALCOHOL) |
+                bit_if(malnutrition, NTR_TRI_UNKNOWN, NTR_ODS_MALNUTRITION) |
+                bit_if(advanced_liver_disease, NTR_TRI_UNKNOWN, NTR_ODS_LIVER);
     /* An unknown factor may be present: it must not loosen the limits. */
     *preset = (present | not_known) != 0u ? NTR_LIMITS_HIGH_RISK
                                           : NTR_LIMITS_STANDARD;
@@ -528,14 +529,38 @@ static int watch_sound(const ntr_watch *w)
 
 int ntr_watch_init(const ntr_limits *lim, ntr_watch *w)
 {
-    ntr_watch fresh = {0};
+    static const ntr_sample zero_sample = {0.0, 0.0};
+    ntr_limits limits;
+    unsigned int k;
     if (lim == NULL || w == NULL) {
         return NTR_ERR_NULL;
     }
     NTR_TRY(ntri_limits_check(lim));
-    fresh.magic = WATCH_MAGIC;
-    fresh.limits = *lim;
-    *w = fresh;
+    limits = *lim; /* lim may point into *w */
+    /* Member by member, after the checks, rather than through a zeroed
+     * local copy: that put the whole 2.2 KB state on the stack, far over a
+     * firmware stack budget (tests/bench/run-bench.sh measures frames). */
+    w->magic = WATCH_MAGIC;
+    w->kept = 0u;
+    w->head = 0u;
+    w->front24 = 0u;
+    w->front6 = 0u;
+    w->seen = 0u;
+    w->first_open = 0u;
+    w->reserved_u = 0u;
+    w->limits = limits;
+    w->first = zero_sample;
+    w->prev = zero_sample;
+    w->last = zero_sample;
+    w->rise_first_24h = 0.0;
+    w->max_rise_24h = 0.0;
+    w->max_rise_48h = 0.0;
+    for (k = 0; k < 3u; k++) {
+        w->reserved_d[k] = 0.0;
+    }
+    for (k = 0; k < NTR_WATCH_CAPACITY; k++) {
+        w->ring[k] = zero_sample;
+    }
     return NTR_OK;
 }
 
