@@ -299,3 +299,79 @@ CREATE AGGREGATE ntr_correction_assess_checked(hours float8, na_mmol_l float8,
 
 COMMENT ON AGGREGATE ntr_correction_assess(float8, float8) IS
 'Assesses one patient''s sodium series (per GROUP BY) against the standard correction limits (10 mmol/L in 24 h, 18 in 48 h). NULL for invalid input.';
+
+-- ------------------------------------------------------------------ work-up
+CREATE FUNCTION ntr_na_severity(na_mmol_l float8)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_na_severity'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_na_severity_checked(na_mmol_l float8)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_na_severity_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_na_severity(float8) IS
+'Biochemical severity of a low sodium: none, mild, moderate or profound (European guideline bands).';
+
+CREATE FUNCTION ntr_tonicity_class(measured_osm_mosm_kg float8)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_tonicity_class'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_tonicity_class_checked(measured_osm_mosm_kg float8)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_tonicity_class_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_tonicity_class(float8) IS
+'Measured serum osmolality as hypotonic (below 275), isotonic (275 to 295) or hypertonic (above 295).';
+
+CREATE FUNCTION ntr_urine_maximally_dilute(urine_osm_mosm_kg float8)
+RETURNS boolean AS 'MODULE_PATHNAME', 'ntrpg_urine_maximally_dilute'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_urine_maximally_dilute_checked(urine_osm_mosm_kg float8)
+RETURNS boolean AS 'MODULE_PATHNAME', 'ntrpg_urine_maximally_dilute_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+
+CREATE FUNCTION ntr_urine_na_high(urine_na_mmol_l float8)
+RETURNS boolean AS 'MODULE_PATHNAME', 'ntrpg_urine_na_high'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_urine_na_high_checked(urine_na_mmol_l float8)
+RETURNS boolean AS 'MODULE_PATHNAME', 'ntrpg_urine_na_high_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+
+CREATE FUNCTION ntr_fractional_excretion(urine_x float8, plasma_x float8,
+                                         urine_creatinine float8, plasma_creatinine float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_fractional_excretion'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_fractional_excretion_checked(urine_x float8, plasma_x float8,
+                                                 urine_creatinine float8,
+                                                 plasma_creatinine float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_fractional_excretion_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_fractional_excretion(float8, float8, float8, float8) IS
+'Fractional excretion of a solute, percent: (U_x * P_cr) / (P_x * U_cr) * 100 (solute and creatinine each in one unit).';
+
+-- ------------------------------------------------------------------ balance
+CREATE FUNCTION ntr_balance_predict(na_mmol_l float8, tbw_l float8, volume_l float8[],
+                                    flow_na_mmol_l float8[], flow_k_mmol_l float8[])
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_balance_predict'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_balance_predict_checked(na_mmol_l float8, tbw_l float8,
+                                            volume_l float8[], flow_na_mmol_l float8[],
+                                            flow_k_mmol_l float8[])
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_balance_predict_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_balance_predict(float8, float8, float8[], float8[], float8[]) IS
+'Serum sodium after gains (volume > 0) and losses (volume < 0) by mass balance; the three arrays describe one flow per element.';
+
+CREATE FUNCTION ntr_relower_volume(na_mmol_l float8, tbw_l float8, fluid_na_mmol_l float8,
+                                   fluid_k_mmol_l float8, lower_by_mmol_l float8,
+                                   hours float8, urine_ml_h float8 DEFAULT 0,
+                                   urine_na_mmol_l float8 DEFAULT 0,
+                                   urine_k_mmol_l float8 DEFAULT 0)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_relower_volume'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_relower_volume_checked(na_mmol_l float8, tbw_l float8,
+                                           fluid_na_mmol_l float8, fluid_k_mmol_l float8,
+                                           lower_by_mmol_l float8, hours float8,
+                                           urine_ml_h float8 DEFAULT 0,
+                                           urine_na_mmol_l float8 DEFAULT 0,
+                                           urine_k_mmol_l float8 DEFAULT 0)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_relower_volume_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_relower_volume(float8, float8, float8, float8, float8, float8, float8, float8, float8) IS
+'Volume (L) of a fluid to give over the hours so that sodium falls back by lower_by_mmol_l after overcorrection; an estimate that needs frequent measured sodium and specialist judgement.';

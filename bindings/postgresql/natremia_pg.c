@@ -477,6 +477,156 @@ convert_impl(FunctionCallInfo fcinfo, bool checked)
 NTRPG_PAIR(convert)
 
 /* ---------------------------------------------------------------------
+ * Work-up classifications and fractional excretion
+ * --------------------------------------------------------------------- */
+
+/* A classification returned as a code word. */
+#define RETURN_WORD(function, checked, status, word) \
+	do { \
+		if ((status) == NTR_OK) \
+			PG_RETURN_TEXT_P(cstring_to_text(word)); \
+		if (checked) \
+			report_status((function), (status)); \
+		PG_RETURN_NULL(); \
+	} while (0)
+
+#define RETURN_BOOL(function, checked, status, value) \
+	do { \
+		if ((status) == NTR_OK) \
+			PG_RETURN_BOOL((value) != 0); \
+		if (checked) \
+			report_status((function), (status)); \
+		PG_RETURN_NULL(); \
+	} while (0)
+
+static Datum
+na_severity_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	static const char *const words[] = {"none", "mild", "moderate", "profound"};
+	const char *f = checked ? "ntr_na_severity_checked" : "ntr_na_severity";
+	int			severity = 0;
+	int			st = ntr_na_severity(PG_GETARG_FLOAT8(0), &severity);
+
+	if (st == NTR_OK && (severity < 0 || severity >= (int) lengthof(words)))
+		st = NTR_ERR_ARG;		/* a newer library with a new class */
+	RETURN_WORD(f, checked, st, words[st == NTR_OK ? severity : 0]);
+}
+NTRPG_PAIR(na_severity)
+
+static Datum
+tonicity_class_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	static const char *const words[] = {"", "hypotonic", "isotonic", "hypertonic"};
+	const char *f = checked ? "ntr_tonicity_class_checked" : "ntr_tonicity_class";
+	int			tonicity = 0;
+	int			st = ntr_tonicity_class(PG_GETARG_FLOAT8(0), &tonicity);
+
+	if (st == NTR_OK && (tonicity < 1 || tonicity >= (int) lengthof(words)))
+		st = NTR_ERR_ARG;
+	RETURN_WORD(f, checked, st, words[st == NTR_OK ? tonicity : 0]);
+}
+NTRPG_PAIR(tonicity_class)
+
+static Datum
+urine_maximally_dilute_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_urine_maximally_dilute_checked"
+		: "ntr_urine_maximally_dilute";
+	int			dilute = 0;
+	int			st = ntr_urine_maximally_dilute(PG_GETARG_FLOAT8(0), &dilute);
+
+	RETURN_BOOL(f, checked, st, dilute);
+}
+NTRPG_PAIR(urine_maximally_dilute)
+
+static Datum
+urine_na_high_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_urine_na_high_checked" : "ntr_urine_na_high";
+	int			high = 0;
+	int			st = ntr_urine_na_high(PG_GETARG_FLOAT8(0), &high);
+
+	RETURN_BOOL(f, checked, st, high);
+}
+NTRPG_PAIR(urine_na_high)
+
+static Datum
+fractional_excretion_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_fractional_excretion_checked"
+		: "ntr_fractional_excretion";
+	double		out = 0.0;
+	int			st = ntr_fractional_excretion(PG_GETARG_FLOAT8(0),
+											  PG_GETARG_FLOAT8(1),
+											  PG_GETARG_FLOAT8(2),
+											  PG_GETARG_FLOAT8(3), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(fractional_excretion)
+
+/* ---------------------------------------------------------------------
+ * Balance: sodium after flows, and the re-lowering volume
+ * --------------------------------------------------------------------- */
+
+static bool float8_elements(ArrayType *array, Datum **values, int *n);
+
+static Datum
+balance_predict_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_balance_predict_checked"
+		: "ntr_balance_predict";
+	Datum	   *volume;
+	Datum	   *na;
+	Datum	   *k;
+	int			n_volume;
+	int			n_na;
+	int			n_k;
+	ntr_flow   *flows;
+	double		na_out = 0.0;
+	double		tbw_out = 0.0;
+	int			st = NTR_OK;
+	int			i;
+
+	if (!float8_elements(PG_GETARG_ARRAYTYPE_P(2), &volume, &n_volume) ||
+		!float8_elements(PG_GETARG_ARRAYTYPE_P(3), &na, &n_na) ||
+		!float8_elements(PG_GETARG_ARRAYTYPE_P(4), &k, &n_k) ||
+		n_volume != n_na || n_volume != n_k)
+		st = NTR_ERR_ARG;
+	if (st == NTR_OK)
+	{
+		flows = palloc(sizeof(ntr_flow) * (size_t) (n_volume > 0 ? n_volume : 1));
+		for (i = 0; i < n_volume; i++)
+		{
+			flows[i].volume_l = DatumGetFloat8(volume[i]);
+			flows[i].na_mmol_l = DatumGetFloat8(na[i]);
+			flows[i].k_mmol_l = DatumGetFloat8(k[i]);
+		}
+		st = ntr_balance_predict(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1), flows,
+								 (size_t) n_volume, &na_out, &tbw_out);
+	}
+	RETURN_DOUBLE(f, checked, st, na_out);
+}
+NTRPG_PAIR(balance_predict)
+
+static Datum
+relower_volume_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_relower_volume_checked"
+		: "ntr_relower_volume";
+	double		volume = 0.0;
+	double		rate = 0.0;
+	int			st = ntr_relower_estimate(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+										  PG_GETARG_FLOAT8(2), PG_GETARG_FLOAT8(3),
+										  PG_GETARG_FLOAT8(4), PG_GETARG_FLOAT8(5),
+										  PG_GETARG_FLOAT8(6), PG_GETARG_FLOAT8(7),
+										  PG_GETARG_FLOAT8(8), &volume, &rate);
+
+	RETURN_DOUBLE(f, checked, st, volume);
+}
+NTRPG_PAIR(relower_volume)
+
+/* ---------------------------------------------------------------------
  * Correction assessment: composite result
  * --------------------------------------------------------------------- */
 

@@ -98,6 +98,33 @@ SELECT pg_temp.near('efwc', ntr_efwc(2, 60, 20, 120), 2.0 / 3, 1e-15);
 SELECT pg_temp.near('free water deficit', ntr_free_water_deficit(40, 154), 4, 1e-12);
 SELECT pg_temp.near('sodium deficit', ntr_na_deficit(30, 120, 126), 180, 1e-12);
 
+-- Source: Spasovski et al., Eur J Endocrinol 2014 (severity bands: mild
+-- 130 to 134, moderate 125 to 129, profound below 125; measured
+-- osmolality below 275 is hypotonic).
+SELECT pg_temp.same('severity 124', ntr_na_severity(124), 'profound'),
+       pg_temp.same('severity 127', ntr_na_severity(127), 'moderate'),
+       pg_temp.same('severity 132', ntr_na_severity(132), 'mild'),
+       pg_temp.same('severity 140', ntr_na_severity(140), 'none'),
+       pg_temp.same('tonicity 260', ntr_tonicity_class(260), 'hypotonic'),
+       pg_temp.same('tonicity 285', ntr_tonicity_class(285), 'isotonic'),
+       pg_temp.same('tonicity 310', ntr_tonicity_class(310), 'hypertonic');
+-- Source: the standard fractional-excretion formula (U_x P_cr)/(P_x U_cr)
+-- x 100, hand-worked: urine Na 40, plasma Na 130 mmol/L, urine creatinine
+-- 8000, plasma creatinine 80 umol/L -> 0.3077 %.
+SELECT pg_temp.near('FENa', ntr_fractional_excretion(40, 130, 8000, 80),
+                    40.0 * 80 / (130.0 * 8000) * 100, 1e-12);
+-- Source: Adrogue & Madias 2000 (one 1 L inflow is their per-litre
+-- formula): 3% saline into TBW 30 L at Na 108 -> (108*30 + 513)/31.
+SELECT pg_temp.near('balance one litre',
+    ntr_balance_predict(108, 30, ARRAY[1.0], ARRAY[513.0], ARRAY[0.0]), (108.0 * 30 + 513) / 31, 1e-9);
+SELECT pg_temp.near('balance = per litre',
+    ntr_balance_predict(108, 30, ARRAY[1.0], ARRAY[513.0], ARRAY[0.0]),
+    108 + ntr_infusate_change_per_litre(108, 30, 513), 1e-9);
+-- Source: Adrogue & Madias 2000 formula solved for volume, 5% dextrose, no
+-- urine (hand-worked): lowering 125.5 by 3.5 with TBW 26.1 L needs
+-- 3.5 * 26.1 / 122 = 0.7488 L.
+SELECT pg_temp.near('relower', ntr_relower_volume(125.5, 26.1, 0, 0, 3.5, 6), 3.5 * 26.1 / 122, 1e-9);
+
 -- ------------------------------------------------------------ invalid input
 SELECT pg_temp.same('range gives NULL', ntr_osm_effective(300, 5), NULL::float8);
 SELECT pg_temp.same('NaN gives NULL', ntr_osm_effective('NaN', 5), NULL::float8);
@@ -112,6 +139,9 @@ SELECT pg_temp.raises('infinity', $q$SELECT ntr_efwc_checked(1, 'Infinity', 0, 1
 SELECT pg_temp.raises('domain', 'SELECT ntr_free_water_deficit_checked(40, 130)', '22023');
 SELECT pg_temp.raises('unknown formula',
     $q$SELECT ntr_osm_calculated_checked(140, 5, 5, 0, 'three_na')$q$, '22023');
+SELECT pg_temp.raises('balance arrays differ',
+    'SELECT ntr_balance_predict_checked(108, 30, ARRAY[1.0, 2.0], ARRAY[513.0], ARRAY[0.0])', '22023');
+SELECT pg_temp.same('severity NULL for range', ntr_na_severity(500), NULL::text);
 SELECT pg_temp.raises('unknown sex', $q$SELECT ntr_tbw_fraction_checked('x', 40, 70)$q$, '22023');
 SELECT pg_temp.raises('unknown unit',
     $q$SELECT ntr_convert_checked(1, 'glucose', 'MG/DL', 'mmol/L')$q$, '22023');
