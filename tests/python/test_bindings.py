@@ -100,6 +100,22 @@ class PublishedValues(unittest.TestCase):
                                         urine_k_mmol_l=20, serum_na_mmol_l=120),
                                2 / 3, places=15)
 
+    def test_workup(self):
+        # Source: Spasovski et al., Eur J Endocrinol 2014 (severity bands;
+        # measured osmolality below 275 is hypotonic).
+        self.assertIs(ntr.na_severity(na_mmol_l=124), ntr.Severity.PROFOUND)
+        self.assertIs(ntr.na_severity(na_mmol_l=127), ntr.Severity.MODERATE)
+        self.assertIs(ntr.na_severity(na_mmol_l=132), ntr.Severity.MILD)
+        self.assertIs(ntr.tonicity_class(measured_osm_mosm_kg=260),
+                      ntr.Tonicity.HYPOTONIC)
+        low = ntr.low_na_tonicity(na_mmol_l=125, glucose_mmol_l=5,
+                                  measured_osm_mosm_kg=260)
+        self.assertIs(low.tonicity, ntr.Tonicity.HYPOTONIC)
+        # Source: standard fractional-excretion formula, hand-worked.
+        self.assertAlmostEqual(ntr.fractional_excretion(
+            urine_x=40, plasma_x=130, urine_creatinine=8000,
+            plasma_creatinine=80), 40 * 80 / (130 * 8000) * 100, places=12)
+
     def test_three_percent_saline_example(self):
         # Source: Furst et al., Am J Med Sci 2000, worked example: Na 108,
         # TBW 30 L, 3% saline (513 mmol/L); about 0.3 L raises Na to ~112.
@@ -198,6 +214,10 @@ class ConstantsMatchHeader(unittest.TestCase):
         self.check(ntr.LimitsPreset, "NTR_LIMITS_")
         self.check(ntr.CorrectionFlag, "NTR_CF_")
         self.check(ntr.OdsFactor, "NTR_ODS_")
+        self.check(ntr.Severity, "NTR_SEVERITY_")
+        self.check(ntr.Tonicity, "NTR_TONICITY_")
+        self.check(ntr.LowNaFlag, "NTR_LOW_NA_")
+        self.assertEqual(self.defines["NTR_SEVERITY_NONE"], ntr.Severity.NONE)
         self.assertEqual(self.defines["NTR_OSM_2NA"], ntr.OsmFormula.TWO_NA)
         self.assertEqual(self.defines["NTR_OSM_DORWART_CHALMERS"],
                          ntr.OsmFormula.DORWART_CHALMERS)

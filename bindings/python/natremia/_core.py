@@ -178,6 +178,12 @@ _PROTOTYPES = {
     "ntr_furst_ratio": (c_int, [_D, _D, _D, _PD]),
     "ntr_restriction_from_ratio": (c_int, [_D, _PI]),
     "ntr_efwc": (c_int, [_D, _D, _D, _D, _PD]),
+    "ntr_na_severity": (c_int, [_D, _PI]),
+    "ntr_tonicity_class": (c_int, [_D, _PI]),
+    "ntr_low_na_tonicity": (c_int, [_D, _D, _D, c_int, _PI, _PU]),
+    "ntr_urine_maximally_dilute": (c_int, [_D, _PI]),
+    "ntr_urine_na_high": (c_int, [_D, _PI]),
+    "ntr_fractional_excretion": (c_int, [_D, _D, _D, _D, _PD]),
     "ntr_method_info": (c_int, [c_int, _P(MethodInfoStruct)]),
     "ntr_method_next": (c_int, [c_int, _PI]),
     "ntr_limits_preset": (c_int, [c_int, _P(LimitsStruct)]),
@@ -517,6 +523,89 @@ def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
     """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L."""
     return _double_result("ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
+
+
+# ---------------------------------------------------------------------------
+# Work-up of a low sodium
+# ---------------------------------------------------------------------------
+
+class Severity(enum.IntEnum):
+    """Biochemical severity of a low sodium (NTR_SEVERITY_*)."""
+    NONE = 0
+    MILD = 1
+    MODERATE = 2
+    PROFOUND = 3
+
+
+class Tonicity(enum.IntEnum):
+    """Class of a measured serum osmolality (NTR_TONICITY_*)."""
+    HYPOTONIC = 1
+    ISOTONIC = 2
+    HYPERTONIC = 3
+
+
+class LowNaFlag(enum.IntFlag):
+    """Bits from low_na_tonicity (NTR_LOW_NA_*)."""
+    NONE = 0
+    NOT_HYPOTONIC = 0x01
+    PSEUDO = 0x02
+    TRANSLOCATIONAL = 0x04
+    GLUCOSE_EXPLAINS = 0x08
+    DISCORDANT = 0x10
+
+
+def _int_result(cname, pyname, *args):
+    out = c_int()
+    _check(_fn(cname)(*args, ctypes.byref(out)), pyname)
+    return out.value
+
+
+def na_severity(*, na_mmol_l):
+    """Severity band of a sodium (a Severity)."""
+    return Severity(_int_result("ntr_na_severity", "na_severity", na_mmol_l))
+
+
+def tonicity_class(*, measured_osm_mosm_kg):
+    """Hypo-, iso- or hypertonic measured osmolality (a Tonicity)."""
+    return Tonicity(_int_result("ntr_tonicity_class", "tonicity_class",
+                                measured_osm_mosm_kg))
+
+
+LowNaTonicity = namedtuple("LowNaTonicity", "tonicity flags")
+
+
+def low_na_tonicity(*, na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
+                    glucose_method=GlucoseMethod.KATZ):
+    """Whether a low sodium is truly hypotonic, and why not."""
+    fn = "low_na_tonicity"
+    tonicity, flags = c_int(), c_uint()
+    _check(_fn("ntr_low_na_tonicity")(na_mmol_l, glucose_mmol_l,
+                                      measured_osm_mosm_kg,
+                                      _enum(GlucoseMethod, glucose_method,
+                                            "glucose_method", fn),
+                                      ctypes.byref(tonicity),
+                                      ctypes.byref(flags)), fn)
+    return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
+
+
+def urine_maximally_dilute(*, urine_osm_mosm_kg):
+    """True when the urine is maximally dilute."""
+    return bool(_int_result("ntr_urine_maximally_dilute",
+                            "urine_maximally_dilute", urine_osm_mosm_kg))
+
+
+def urine_na_high(*, urine_na_mmol_l):
+    """True when urine sodium is above the work-up threshold."""
+    return bool(_int_result("ntr_urine_na_high", "urine_na_high",
+                            urine_na_mmol_l))
+
+
+def fractional_excretion(*, urine_x, plasma_x, urine_creatinine,
+                         plasma_creatinine):
+    """Fractional excretion of a solute, percent (each pair in one unit)."""
+    return _double_result("ntr_fractional_excretion", "fractional_excretion",
+                          urine_x, plasma_x, urine_creatinine,
+                          plasma_creatinine)
 
 
 # ---------------------------------------------------------------------------
