@@ -20,11 +20,13 @@
 #define URIC_ACID_HI 2.0                                /* code: NTR_URIC_ACID_MAX */
 #define FE_NONFINITE_OK 1 /* code: overflow to infinity for tiny denominators */
 #define RATE_NONFINITE_OK 1 /* code: last_rate_per_h overflows for times a subnormal apart */
+#define ONE_SAMPLE_FLAGS NTR_CF_NEAR_LIMIT /* code: near-limit with one sample when a limit < 2 */
 #else
 #define RELOWER_HOURS {"hours", 0.0, 720.0, 1} /* header: "above 0" */
 #define URIC_ACID_HI 5.0                       /* header: "0 to 5 mmol/L" */
 #define FE_NONFINITE_OK 0
 #define RATE_NONFINITE_OK 0
+#define ONE_SAMPLE_FLAGS 0u /* header: "One sample yields zeros and no flag" */
 #endif
 
 #define BIT(s) (1u << (s))
@@ -973,7 +975,7 @@ static const char *judge_correction(const ntr_correction *r, const ntr_sample *s
         (r->max_rise_48h > lim->max_rise_48h + NTR_CF_TOLERANCE)) {
         return "48 h over-limit flag disagrees with the rise";
     }
-    if (n == 1 && (r->flags != 0u || r->max_rise_24h != 0.0 || r->last_rate_per_h != 0.0)) {
+    if (n == 1 && ((r->flags & ~ONE_SAMPLE_FLAGS) != 0u || r->max_rise_24h != 0.0 || r->last_rate_per_h != 0.0)) {
         return "one sample must give zeros and no flag";
     }
     return NULL;
@@ -1064,7 +1066,8 @@ static void extra_series(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_c
 /* ---- streaming watcher ------------------------------------------------------------ */
 
 /* en[0] of the watch entries: 0 an intact state; 1 never initialised
- * (zeroed); 2 a broken marker; 3 a kept count beyond the ring. */
+ * (zeroed); 2 a broken marker; 3 a kept count beyond the ring; 4 all
+ * bytes 0xff; 5-8 one inconsistent private member each. */
 static void damage_watch(ntr_watch *w, int mode)
 {
     switch (mode) {
@@ -1072,7 +1075,11 @@ static void damage_watch(ntr_watch *w, int mode)
     case 1: memset(w, 0, sizeof *w); break;
     case 2: w->magic ^= 0x10101010u; break;
     case 3: w->kept = NTR_WATCH_CAPACITY + 5u; break;
-    default: memset(w, 0xff, sizeof *w); break;
+    case 4: memset(w, 0xff, sizeof *w); break;
+    case 5: w->front24 = w->kept; break;          /* window front past the kept samples */
+    case 6: w->seen = 0u; break;                  /* "nothing seen" yet samples kept */
+    case 7: w->limits.max_rise_24h = -1.0; break; /* limits no longer valid */
+    default: w->head = NTR_WATCH_CAPACITY; break;  /* ring index outside the ring */
     }
 }
 
@@ -1136,6 +1143,18 @@ static const char *ok_watch_init(const ntrc_case *c)
     ntr_watch w = c->out.s.watch;
     /* Initialised with nothing pushed: no result yet. */
     return ntr_watch_result(&w, &r) == NTR_ERR_ARG ? NULL : "fresh watcher reports a result";
+}
+
+/* The state is opaque (and its bytes depend on the target): show what a
+ * first push into it gives instead. */
+static int results_watch_init(const ntrc_case *c, double *v, int max)
+{
+    ntrc_case probe;
+    ntr_watch w = c->out.s.watch;
+    if (ntr_watch_push(&w, 0.0, 120.0, &probe.out.s.corr) != NTR_OK) {
+        return 0;
+    }
+    return results_correction(&probe, v, max);
 }
 
 static int call_watch_push(ntrc_case *c)
@@ -1225,7 +1244,7 @@ static void extra_watch(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_ca
     prime_watch(&c);
     judge(f, &c, NTRC_KIND_SERIES);
     /* Damaged states with every input otherwise valid. */
-    for (mode = 1; mode <= 4; mode++) {
+    for (mode = 1; mode <= 8; mode++) {
         ntrc_baseline(f, &c);
         c.en[0] = mode;
         judge(f, &c, NTRC_KIND_SERIES);
@@ -1707,6 +1726,18 @@ static void extra_course(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_c
     c.capacity = 0;
     c.out_null = NTRC_NULL_IN(1);
     judge(f, &c, NTRC_KIND_SERIES);
+    /* Durations whose quotient by the step rounds just above a whole
+     * number (0.27 / 0.03 = 9.000000000000002): the point count must still
+     * be ceil of the exact quotient plus one. */
+    ntrc_baseline(f, &c);
+    c.num[2] = 0.27;
+    c.num[3] = 0.03;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[2] = 4.15;
+    c.num[3] = 1.0 / 60.0;
+    c.capacity = NTRC_MAX_SERIES;
+    judge(f, &c, NTRC_KIND_SERIES);
     /* A step longer than the plan; a step that divides it exactly. */
     ntrc_baseline(f, &c);
     c.num[3] = 700.0;
@@ -1935,6 +1966,206 @@ static const char *ok_ods_risk(const ntrc_case *c)
                : "preset does not follow the risk factors";
 }
 
+/* ---- grouped correction assessment ---------------------------------------------- */
+
+static void base_groups(ntrc_case *c)
+{
+    base_samples(c);
+    c->groups = 3;
+    c->offsets[0] = 0;
+    c->offsets[1] = 2;
+    c->offsets[2] = 2; /* an empty group: NTR_ERR_ARG for that group only */
+    c->offsets[3] = 6;
+    c->capacity = 6;   /* n_samples */
+}
+
+/* The base case has an empty group; the valid baseline drops it. */
+static void base_groups_valid(ntrc_case *c)
+{
+    base_groups(c);
+    c->offsets[2] = 4;
+}
+
+static void fuzz_groups(ntrc_case *c, ntrc_source *src)
+{
+    size_t g;
+    fuzz_samples(c, src);
+    c->groups = src->byte(src) % 9u;
+    c->capacity = c->n;
+    c->offsets[0] = c->n > 0 ? src->byte(src) % (c->n + 1) % 3u : 0;
+    for (g = 1; g <= c->groups; g++) {
+        size_t left = c->n - c->offsets[g - 1];
+        c->offsets[g] = c->offsets[g - 1] + (left > 0 ? src->byte(src) % (left + 1) : 0);
+    }
+    if (src->byte(src) > 245u) {
+        /* Spoil the offsets: decreasing, or past n_samples. */
+        c->offsets[src->byte(src) % (c->groups + 1)] += 1 + src->byte(src) % 4u;
+    }
+    if (src->byte(src) > 245u && c->capacity > 0) {
+        c->capacity--;
+    }
+}
+
+static int call_batch_correction_assess(ntrc_case *c)
+{
+    ntr_limits lim;
+    limits_from(c->num, &lim);
+    return ntr_batch_correction_assess(
+        c->groups, in_null(c, 0) ? NULL : c->offsets, in_null(c, 1) ? NULL : c->samples,
+        c->capacity, in_null(c, 2) ? NULL : &lim, in_null(c, 3) ? NULL : c->out.s.groups.out,
+        in_null(c, 4) ? NULL : c->out.s.groups.status, in_null(c, 5) ? NULL : &c->out.z[1]);
+}
+
+static int groups_call_level(const ntrc_case *c)
+{
+    size_t g;
+    if ((c->out_null & ~NTRC_NULL_IN(5)) != 0u) {
+        return NTR_ERR_NULL;
+    }
+    for (g = 0; g < c->groups; g++) {
+        if (c->offsets[g + 1] < c->offsets[g]) {
+            return NTR_ERR_ARG;
+        }
+    }
+    if (c->offsets[c->groups] > c->capacity) {
+        return NTR_ERR_ARG;
+    }
+    return NTR_OK;
+}
+
+static int group_status(const ntrc_case *c, size_t g, ntr_correction *r)
+{
+    ntr_limits lim;
+    limits_from(c->num, &lim);
+    return ntr_correction_assess(&c->samples[c->offsets[g]], c->offsets[g + 1] - c->offsets[g],
+                                 &lim, r);
+}
+
+static int predict_batch_correction(const ntrc_fn *f, const ntrc_case *c)
+{
+    size_t g;
+    int st = groups_call_level(c);
+    (void)f;
+    if (st != NTR_OK) {
+        return st;
+    }
+    for (g = 0; g < c->groups; g++) {
+        ntr_correction r;
+        st = group_status(c, g, &r);
+        if (st != NTR_OK) {
+            return st;
+        }
+    }
+    return NTR_OK;
+}
+
+/* Every group equals the scalar call; failed groups NaN and zero flags;
+ * nothing past the last group. */
+static const char *judge_groups(const ntrc_case *c, const ntrc_outs *before)
+{
+    size_t g;
+    size_t bad = 0;
+    for (g = 0; g < 8; g++) {
+        const ntr_correction *o = &c->out.s.groups.out[g];
+        ntr_correction want;
+        int st;
+        if (g >= c->groups) {
+            if (memcmp(o, &before->s.groups.out[g], sizeof *o) != 0 ||
+                c->out.s.groups.status[g] != before->s.groups.status[g]) {
+                return "a group past the last was written";
+            }
+            continue;
+        }
+        st = group_status(c, g, &want);
+        if (c->out.s.groups.status[g] != st) {
+            return "group status differs from ntr_correction_assess";
+        }
+        if (st == NTR_OK) {
+            if (memcmp(&o->rise_first_24h, &want.rise_first_24h, 5 * sizeof(double)) != 0 ||
+                o->flags != want.flags || o->reserved != want.reserved) {
+                return "group result differs (bits) from ntr_correction_assess";
+            }
+        } else {
+            bad++;
+            if (!isnan(o->rise_first_24h) || !isnan(o->max_rise_24h) || !isnan(o->max_rise_48h) ||
+                !isnan(o->last_rate_per_h) || !isnan(o->excess_mmol_l) || o->flags != 0u ||
+                o->reserved != 0u) {
+                return "failed group not NaN with zero flags";
+            }
+        }
+    }
+    if (!in_null(c, 5) && c->out.z[1] != bad) {
+        return "failed count wrong";
+    }
+    return NULL;
+}
+
+static const char *ok_batch_correction(const ntrc_case *c)
+{
+    ntrc_outs before;
+    memset(&before, SENTINEL_BYTE, sizeof before);
+    return judge_groups(c, &before);
+}
+
+static const char *err_batch_correction(const ntrc_case *c, const ntrc_outs *before, int status)
+{
+    (void)status;
+    if (groups_call_level(c) != NTR_OK) {
+        return memcmp(&c->out, before, sizeof *before) == 0
+                   ? NULL
+                   : "something was written on a call-level error";
+    }
+    return judge_groups(c, before);
+}
+
+static int results_groups(const ntrc_case *c, double *v, int max)
+{
+    int k = 0;
+    size_t g;
+    for (g = 0; g < c->groups && k + 3 <= max; g++) {
+        v[k++] = c->out.s.groups.status[g];
+        v[k++] = c->out.s.groups.out[g].max_rise_24h;
+        v[k++] = c->out.s.groups.out[g].flags;
+    }
+    return k;
+}
+
+static void extra_groups(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    unsigned int k;
+    /* An empty group; groups = 0 (with and without NULLs). */
+    ntrc_baseline(f, &c);
+    base_groups(&c);
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.groups = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (k = 0; k < 6; k++) {
+        ntrc_baseline(f, &c);
+        c.groups = 0;
+        c.out_null = NTRC_NULL_IN(k);
+        judge(f, &c, NTRC_KIND_NULL);
+    }
+    /* Offsets that decrease, or run past n_samples. */
+    ntrc_baseline(f, &c);
+    c.offsets[1] = 5;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.capacity = 5;
+    judge(f, &c, NTRC_KIND_SERIES);
+    /* A bad sample in one group only; an unsorted group; bad limits. */
+    ntrc_baseline(f, &c);
+    c.samples[3].na_mmol_l = NAN;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[5].hours = 1.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[0] = 40.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+}
+
 /* ---- the table --------------------------------------------------------------- */
 
 
@@ -2094,7 +2325,7 @@ const ntrc_fn ntrc_functions[] = {
      .check_ok = ok_correction_assess},
     {CALL(watch_init), .n_num = 3, .num = {LIMITS_NUMS(0)}, .n_in_ptr = 2,
      .statuses = OK_COMMON, .base_num = {10.0, 18.0, 4.0}, .predict = predict_watch_init,
-     .results = results_limits, .check_ok = ok_watch_init},
+     .results = results_watch_init, .check_ok = ok_watch_init},
     {CALL(watch_push), .n_enum = 1, .en = {WATCH_MODE}, .n_num = 2,
      .num = {{"hours", -1e6, 1e6, 0}, NA}, .n_in_ptr = 2,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_CAPACITY),
@@ -2128,6 +2359,11 @@ const ntrc_fn ntrc_functions[] = {
      .base_num = {35.0, 24.0, 2.0, 10.0, 18.0, 4.0}, .predict = predict_plan_check,
      .base_series = base_plan, .fuzz_series = fuzz_plan, .results = results_plan,
      .extra_cases = extra_plan, .check_ok = ok_plan_check},
+    {CALL(batch_correction_assess), .n_num = 3, .num = {LIMITS_NUMS(0)}, .n_in_ptr = 6,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER), .base_num = {10.0, 18.0, 4.0},
+     .predict = predict_batch_correction, .base_series = base_groups_valid,
+     .fuzz_series = fuzz_groups, .check_err = err_batch_correction, .results = results_groups,
+     .extra_cases = extra_groups, .check_ok = ok_batch_correction},
     {CALL(relower_estimate), .n_num = 9,
      .num = {NA, TBW, {"fluid_na_mmol_l", 0.0, 1100.0, 0}, {"fluid_k_mmol_l", 0.0, 400.0, 0},
              {"lower_by_mmol_l", 0.0, 50.0, 1}, RELOWER_HOURS,

@@ -57,6 +57,10 @@ typedef struct ntrc_outs {
         ntr_siad_findings findings;
         ntr_siad_result siad;
         ntr_watch watch;
+        struct {
+            ntr_correction out[8];
+            int status[8];
+        } groups;
     } s;
 } ntrc_outs;
 
@@ -69,6 +73,8 @@ typedef struct ntrc_case {
     size_t n;               /* samples / flows in use */
     size_t n2;              /* timed flows in use */
     size_t capacity;        /* output series capacity */
+    size_t groups;          /* groups of ntr_batch_correction_assess */
+    size_t offsets[9];      /* their CSR offsets into samples[] */
     ntr_sample samples[NTRC_MAX_SERIES];
     ntr_flow flows[NTRC_MAX_FLOWS];
     ntr_timed_flow tflows[NTRC_MAX_FLOWS];

@@ -1,0 +1,106 @@
+#!/usr/bin/env bash
+# Cross-architecture check (docs/reliability.md).
+#
+# For 32-bit x86 (i686, SSE2 arithmetic), 32-bit ARM (arm-linux-gnueabihf)
+# and big-endian s390x: build the library and the unit suite with the meson
+# cross files in tests/cross/ and run the whole 'unit' suite under
+# qemu-user -- every area's tests, the bad-input matrix and the reference
+# vectors, which must equal tests/refvectors/expected.txt bit for bit.
+# For a Cortex-M4 (arm-none-eabi, -mcpu=cortex-m4 -mthumb): build the
+# static library freestanding and link a bare-metal image against it.
+#
+# Usage: tests/cross.sh [i686] [arm] [s390x] [cortex-m4]   (default: all)
+# Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
+# <prefix>-cross-<arch>. Installs what it needs with apt-get when missing
+# (cross compilers, qemu-user, and cmocka for each target through Debian
+# multiarch; never gcc-multilib, which conflicts with the cross compilers).
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+prefix="${NTR_BUILD_PREFIX:-build}-cross"
+archs=("$@")
+[ ${#archs[@]} -eq 0 ] && archs=(i686 arm s390x cortex-m4)
+
+as_root=()
+[ "$(id -u)" -ne 0 ] && as_root=(sudo)
+need=()
+need_update=0
+want_pkg() { dpkg-query -W -f='${Status}' "$1" 2>/dev/null | grep -q 'ok installed' || need+=("$1"); }
+want_arch() {
+  if ! dpkg --print-foreign-architectures | grep -qx "$1" && [ "$(dpkg --print-architecture)" != "$1" ]; then
+    "${as_root[@]}" dpkg --add-architecture "$1"
+    need_update=1
+  fi
+}
+for a in "${archs[@]}"; do
+  case "$a" in
+    i686) want_pkg gcc-i686-linux-gnu; want_pkg qemu-user; want_arch i386; want_pkg libcmocka-dev:i386 ;;
+    arm) want_pkg gcc-arm-linux-gnueabihf; want_pkg qemu-user; want_arch armhf; want_pkg libcmocka-dev:armhf ;;
+    s390x) want_pkg gcc-s390x-linux-gnu; want_pkg qemu-user; want_arch s390x; want_pkg libcmocka-dev:s390x ;;
+    cortex-m4) want_pkg gcc-arm-none-eabi; want_pkg libnewlib-arm-none-eabi ;;
+    *) echo "cross.sh: unknown architecture $a" >&2; exit 2 ;;
+  esac
+done
+want_pkg meson; want_pkg ninja-build; want_pkg pkg-config
+if [ ${#need[@]} -gt 0 ] || [ $need_update -eq 1 ]; then
+  echo "cross.sh: installing ${need[*]:-} (apt-get)"
+  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -qq
+  [ ${#need[@]} -gt 0 ] && "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${need[@]}" >/dev/null
+fi
+
+setup() { # builddir crossfile
+  if [ -f "$1/meson-private/coredata.dat" ]; then
+    meson setup --reconfigure "$1" --cross-file "$2" >/dev/null || meson setup --wipe "$1" --cross-file "$2" >/dev/null
+  else
+    rm -rf "$1"
+    meson setup "$1" --cross-file "$2" >/dev/null
+  fi
+}
+
+passed=()
+failed=()
+for a in "${archs[@]}"; do
+  start=$SECONDS
+  dir="$prefix-$a"
+  case "$a" in
+    i686) ini=tests/cross/i686-linux-gnu.ini ;;
+    arm) ini=tests/cross/arm-linux-gnueabihf.ini ;;
+    s390x) ini=tests/cross/s390x-linux-gnu.ini ;;
+    cortex-m4) ini=tests/cross/arm-none-eabi-cortex-m4.ini ;;
+  esac
+  if [ "$a" = cortex-m4 ]; then
+    if setup "$dir" "$ini" && ninja -C "$dir" lib/libnatremia.a >/dev/null &&
+       arm-none-eabi-gcc -std=c99 -Os -mcpu=cortex-m4 -mthumb -mfloat-abi=hard -mfpu=fpv4-sp-d16 \
+         -ffreestanding -Wall -Wextra -Werror -Iinclude tests/cross/cortex_m4_image.c \
+         "$dir/lib/libnatremia.a" --specs=nosys.specs -Wl,--gc-sections -o "$dir/natremia-m4.elf"; then
+      # The library may import only libgcc's soft-double helpers and the four
+      # functions GCC requires of every freestanding environment (memcpy,
+      # memset, memmove, memcmp: struct copies and clears).
+      imports=$(arm-none-eabi-nm -u "$dir/lib/libnatremia.a" | awk 'NF==2{print $2}' | sort -u |
+                grep -v -E '^(__aeabi_|ntr_|ntri_|memcpy$|memset$|memmove$|memcmp$)' || true)
+      if [ -n "$imports" ]; then
+        echo "cross.sh: cortex-m4 library imports $imports"; failed+=("$a")
+      else
+        lib_text=$(arm-none-eabi-size -t "$dir/lib/libnatremia.a" | awk 'END{print $1}')
+        img=$(arm-none-eabi-size "$dir/natremia-m4.elf" | awk 'NR==2{print "text " $1 ", data " $2 ", bss " $3}')
+        echo "cross.sh: cortex-m4: library builds freestanding (${lib_text} bytes of code, no data), image links ($img bytes) [$((SECONDS - start))s]"
+        passed+=("$a")
+      fi
+    else
+      echo "cross.sh: cortex-m4 build FAILED"; failed+=("$a")
+    fi
+    continue
+  fi
+  if setup "$dir" "$ini" && ninja -C "$dir" >/dev/null &&
+     meson test -C "$dir" --suite unit --num-processes 2 --print-errorlogs >"$dir/cross-test.log" 2>&1; then
+    summary=$(grep -E '^Ok:' "$dir/cross-test.log" | tr -s ' ')
+    echo "cross.sh: $a: unit suite passes under $(sed -n "s/^exe_wrapper = \['\([^']*\)'.*/\1/p" "$ini"), reference vectors identical ($summary) [$((SECONDS - start))s]"
+    passed+=("$a")
+  else
+    echo "cross.sh: $a FAILED (log: $dir/cross-test.log)"
+    grep -E 'FAIL|differs|expected:|computed:' "$dir/cross-test.log" | head -20 || true
+    failed+=("$a")
+  fi
+done
+echo "cross.sh: ${#passed[@]} passed, ${#failed[@]} failed (${passed[*]:-}${failed[*]:+; failed: ${failed[*]}})"
+[ ${#failed[@]} -eq 0 ]

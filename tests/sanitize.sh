@@ -1,0 +1,82 @@
+#!/usr/bin/env bash
+# The test suite under AddressSanitizer + UndefinedBehaviorSanitizer, then
+# under valgrind (docs/reliability.md).
+#
+# 1. A separate build with -Db_sanitize=address,undefined (every UBSan
+#    finding fatal) runs every suite whose programs are ours: unit (all
+#    areas, the bad-input matrix, the reference vectors), examples and docs.
+#    Left out: 'build' (it inspects the plain library's exports and ABI,
+#    which instrumentation changes) and 'bindings' (Python and PostgreSQL
+#    load the library into uninstrumented processes).
+# 2. A plain build runs the unit suite with every test program under
+#    valgrind --error-exitcode=1 --leak-check=full.
+#
+# Usage: tests/sanitize.sh [asan|valgrind]   (default: both)
+# Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
+# <prefix>-sanitize and <prefix>-valgrind.
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+prefix="${NTR_BUILD_PREFIX:-build}"
+modes=("$@")
+[ ${#modes[@]} -eq 0 ] && modes=(asan valgrind)
+
+as_root=()
+[ "$(id -u)" -ne 0 ] && as_root=(sudo)
+need=()
+for p in meson ninja-build pkg-config gcc libcmocka-dev valgrind; do
+  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'ok installed' || need+=("$p")
+done
+if [ ${#need[@]} -gt 0 ]; then
+  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -qq
+  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${need[@]}" >/dev/null
+fi
+
+setup() { # builddir options...
+  local dir="$1"
+  shift
+  if [ -f "$dir/meson-private/coredata.dat" ]; then
+    meson setup --reconfigure "$dir" "$@" >/dev/null || meson setup --wipe "$dir" "$@" >/dev/null
+  else
+    rm -rf "$dir"
+    meson setup "$dir" "$@" >/dev/null
+  fi
+}
+
+status=0
+for m in "${modes[@]}"; do
+  start=$SECONDS
+  case "$m" in
+  asan)
+    dir="$prefix-sanitize"
+    setup "$dir" -Db_sanitize=address,undefined -Db_lundef=false -Dbuildtype=debugoptimized
+    ninja -C "$dir" >/dev/null
+    if ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:strict_string_checks=1:detect_stack_use_after_return=1 \
+       UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
+       meson test -C "$dir" --no-suite build --no-suite bindings --num-processes 2 \
+         --print-errorlogs >"$dir/sanitize.log" 2>&1; then
+      echo "sanitize.sh: ASan+UBSan: $(grep -E '^Ok:' "$dir/sanitize.log" | tr -s ' ') tests, no report [$((SECONDS - start))s]"
+    else
+      grep -E 'ERROR|runtime error|FAIL' "$dir/sanitize.log" | head -20
+      echo "sanitize.sh: ASan+UBSan FAILED (log: $dir/sanitize.log)"
+      status=1
+    fi
+    ;;
+  valgrind)
+    dir="$prefix-valgrind"
+    setup "$dir" -Dbuildtype=debugoptimized
+    ninja -C "$dir" >/dev/null
+    if meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 10 \
+         --wrap='valgrind --error-exitcode=1 --leak-check=full --errors-for-leak-kinds=definite,indirect --quiet' \
+         --print-errorlogs >"$dir/valgrind.log" 2>&1; then
+      echo "sanitize.sh: valgrind: $(grep -E '^Ok:' "$dir/valgrind.log" | tr -s ' ') tests, no error [$((SECONDS - start))s]"
+    else
+      grep -E '==[0-9]+==|FAIL' "$dir/valgrind.log" | head -20
+      echo "sanitize.sh: valgrind FAILED (log: $dir/valgrind.log)"
+      status=1
+    fi
+    ;;
+  *) echo "sanitize.sh: unknown mode $m" >&2; exit 2 ;;
+  esac
+done
+exit $status
