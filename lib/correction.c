@@ -568,7 +568,6 @@ int ntr_watch_init(const ntr_limits *lim, ntr_watch *w)
 static void watch_figures(const ntr_watch *w, struct figures *f)
 {
     const ntr_sample last = w->last;
-    unsigned int k;
 
     f->rise_first_24h = w->rise_first_24h;
     f->max_rise_24h = w->max_rise_24h;
@@ -582,6 +581,7 @@ static void watch_figures(const ntr_watch *w, struct figures *f)
     f->projected_48h = 0.0;
     if (f->rising) {
         const ntr_sample next = projected_next(w->prev, last);
+        unsigned int k;
         /* The first entry inside the projected window is its minimum. */
         for (k = 0u; k < w->kept; k++) {
             if (within(ring_at(w, k)->hours, next.hours, WINDOW_48H)) {
