@@ -39,6 +39,9 @@ cppcheck_suppress=(
   # infusion.c: the index is checked by "fluid < 1 || (size_t)fluid >= N"
   # just above; cppcheck 2.10 does not follow the cast in the second half.
   "arrayIndexOutOfBoundsCond:lib/infusion.c"
+  # units.c ntr_convert: the same pattern ("analyte < 1 || (size_t)analyte
+  # >= N_ANALYTES" guards the index).
+  "arrayIndexOutOfBoundsCond:lib/units.c"
 )
 # clang-tidy suppressions: file:check
 tidy_suppress=(
@@ -46,6 +49,10 @@ tidy_suppress=(
   # and the grid always has at least 2 points, so the capacity check
   # returns before any write; the analyzer does not know grid_count() >= 1.
   "lib/balance.c:clang-analyzer-core.NullDereference"
+  # batch.c body-water fraction table: the index adult*(1 + 2*female +
+  # elderly) is built from three 0/1 flags, so it is 0 to 4 and the int
+  # product cannot overflow before it widens.
+  "lib/batch.c:bugprone-implicit-widening-of-multiplication-result"
 )
 
 status=0
