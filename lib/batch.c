@@ -40,6 +40,155 @@ static inline double row_value(int status, double value)
     return status == NTR_OK ? value : FAILED_ROW;
 }
 
+/* ---- two rows at a time ------------------------------------------------
+ *
+ * On processors with two-lane double-precision vectors (x86-64 SSE2,
+ * AArch64) each kernel first tries rows i and i+1 together: load both,
+ * check every input of both against its range with vector comparisons,
+ * and when all pass, compute both values with the same operations in the
+ * same order as the scalar kernel (lane by lane the same IEEE results) and
+ * store them with status NTR_OK. When anything fails, row i goes through
+ * the scalar kernel below, which finds the exact status, and the pair is
+ * tried again from row i+1. Valid cohorts, the common case, then cost a
+ * third of the instructions per row, which is what brings the batch calls
+ * near memory speed (tests/bench/run-bench.sh). GCC and Clang vector
+ * extensions; any other compiler or target uses the scalar kernels alone.
+ */
+#if defined(__GNUC__) && (defined(__SSE2__) || defined(__aarch64__)) && \
+    (defined(__clang__) || __GNUC__ >= 9)
+#define NTR_PAIRS 1
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
+/* Two doubles in a register; in memory (ntr_pair_mem) at any 8-byte
+ * aligned address, aliasing double. */
+typedef double ntr_pair __attribute__((vector_size(16)));
+typedef double ntr_pair_mem
+    __attribute__((vector_size(16), aligned(8), may_alias));
+/* Two ints, for the advice column. */
+typedef int ntr_int_pair __attribute__((vector_size(8), aligned(4), may_alias));
+
+static inline ntr_pair pair_load(const double *p)
+{
+    return *(const ntr_pair_mem *)p;
+}
+
+static inline void pair_store(double *p, ntr_pair v)
+{
+    *(ntr_pair_mem *)p = v;
+}
+
+/* Lane masks (all bits set where true). The comparisons are ordered:
+ * false when either side is NaN. On x86 the SSE2 intrinsics keep masks in
+ * registers; the generic vector operators serve other targets. */
+#if defined(__SSE2__)
+typedef __m128d ntr_mask;
+static inline ntr_pair pair_splat(double x)
+{
+    return _mm_set1_pd(x);
+}
+static inline ntr_mask pair_ge(ntr_pair a, ntr_pair b)
+{
+    return _mm_cmpge_pd(a, b);
+}
+static inline ntr_mask pair_gt(ntr_pair a, ntr_pair b)
+{
+    return _mm_cmpgt_pd(a, b);
+}
+static inline ntr_mask pair_le(ntr_pair a, ntr_pair b)
+{
+    return _mm_cmple_pd(a, b);
+}
+static inline ntr_mask pair_lt(ntr_pair a, ntr_pair b)
+{
+    return _mm_cmplt_pd(a, b);
+}
+static inline ntr_mask pair_and(ntr_mask a, ntr_mask b)
+{
+    return _mm_and_pd(a, b);
+}
+static inline ntr_mask pair_or(ntr_mask a, ntr_mask b)
+{
+    return _mm_or_pd(a, b);
+}
+static inline int pair_all(ntr_mask m)
+{
+    return _mm_movemask_pd(m) == 3;
+}
+static inline ntr_pair pair_select(ntr_mask m, ntr_pair a, ntr_pair b)
+{
+    return _mm_or_pd(_mm_and_pd(m, a), _mm_andnot_pd(m, b));
+}
+#else
+typedef long long ntr_mask __attribute__((vector_size(16)));
+static inline ntr_pair pair_splat(double x)
+{
+    ntr_pair v = {x, x};
+    return v;
+}
+static inline ntr_mask pair_ge(ntr_pair a, ntr_pair b) { return a >= b; }
+static inline ntr_mask pair_gt(ntr_pair a, ntr_pair b) { return a > b; }
+static inline ntr_mask pair_le(ntr_pair a, ntr_pair b) { return a <= b; }
+static inline ntr_mask pair_lt(ntr_pair a, ntr_pair b) { return a < b; }
+static inline ntr_mask pair_and(ntr_mask a, ntr_mask b) { return a & b; }
+static inline ntr_mask pair_or(ntr_mask a, ntr_mask b) { return a | b; }
+static inline int pair_all(ntr_mask m) { return (m[0] & m[1]) != 0; }
+static inline ntr_pair pair_select(ntr_mask m, ntr_pair a, ntr_pair b)
+{
+    return (ntr_pair)(((ntr_mask)a & m) | ((ntr_mask)b & ~m));
+}
+static inline ntr_mask pair_from_ints(int lane0, int lane1)
+{
+    ntr_mask m = {-(long long)lane0, -(long long)lane1};
+    return m;
+}
+#endif
+
+static inline ntr_mask pair_and3(ntr_mask a, ntr_mask b, ntr_mask c)
+{
+    return pair_and(pair_and(a, b), c);
+}
+
+static inline ntr_mask pair_and4(ntr_mask a, ntr_mask b, ntr_mask c, ntr_mask d)
+{
+    return pair_and(pair_and(a, b), pair_and(c, d));
+}
+
+/* Both lanes: lo <= x <= hi (false for NaN and the infinities). */
+static inline ntr_mask pair_in(ntr_pair x, double lo, double hi)
+{
+    return pair_and(pair_ge(x, pair_splat(lo)), pair_le(x, pair_splat(hi)));
+}
+
+/* Lanes whose sex code (sex[i], sex[i + 1]) is `which`. */
+static inline ntr_mask pair_sex_is(const int *sex, size_t i, int which)
+{
+#if defined(__SSE2__)
+    /* Both codes in one load and compare, widened to the double lanes. */
+    __m128i codes = _mm_loadl_epi64((const __m128i *)(const void *)(sex + i));
+    __m128i same = _mm_cmpeq_epi32(codes, _mm_set1_epi32(which));
+    return _mm_castsi128_pd(_mm_unpacklo_epi32(same, same));
+#else
+    return pair_from_ints(sex[i] == which, sex[i + 1] == which);
+#endif
+}
+
+static inline void pair_ok(int *status)
+{
+    status[0] = NTR_OK;
+    status[1] = NTR_OK;
+}
+
+/* The scalar kernels (rows_*) stay out of line in this build: they run
+ * only for a pair with a failing row and for the last odd row, and keeping
+ * them out of the pair loop leaves it its registers, so its constants are
+ * loaded once per call instead of once per pair. */
+#define NTR_ROWS __attribute__((noinline))
+#else
+#define NTR_PAIRS 0
+#define NTR_ROWS
+#endif
+
 /* Shared ending of every batch call: the number of failed rows goes to
  * the optional counter, and the status of the first failed row (found by
  * a second scan that runs only when something failed, so the hot loop
@@ -72,6 +221,54 @@ static inline int osm_inputs_status(double na, double glucose, double urea,
     return first_error(st, ntr_check(ethanol, 0.0, NTR_ETHANOL_MAX));
 }
 
+#if NTR_PAIRS
+static inline int pair_osm_calculated(const double *na, const double *glucose,
+                                      const double *urea, const double *ethanol,
+                                      double coefficient, double intercept,
+                                      double *out, int *status, size_t i)
+{
+    ntr_pair a = pair_load(na + i), g = pair_load(glucose + i);
+    ntr_pair u = pair_load(urea + i), e = pair_load(ethanol + i);
+    if (!pair_all(pair_and4(pair_in(a, NTR_NA_MIN, NTR_NA_MAX),
+                            pair_in(g, 0.0, NTR_GLUCOSE_MAX),
+                            pair_in(u, 0.0, NTR_UREA_MAX),
+                            pair_in(e, 0.0, NTR_ETHANOL_MAX)))) {
+        return 0;
+    }
+    pair_store(out + i, pair_splat(coefficient) * a + g + u +
+                            pair_splat(intercept) + e);
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_osm_calculated(size_t from, size_t to,
+                                           const double *na_mmol_l,
+                                           const double *glucose_mmol_l,
+                                           const double *urea_mmol_l,
+                                           const double *ethanol_mmol_l,
+                                           double coefficient,
+                                           double intercept, double *out,
+                                           int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double na = na_mmol_l[i];
+        double glucose = glucose_mmol_l[i];
+        double urea = urea_mmol_l[i];
+        double ethanol = ethanol_mmol_l[i];
+        int st = osm_inputs_status(na, glucose, urea, ethanol);
+        /* Term order as in ntr_osm_calculated(): sodium term, glucose,
+         * urea, intercept, ethanol (adding 0.0 changes no value). */
+        out[i] = row_value(st, coefficient * na + glucose + urea + intercept +
+                                   ethanol);
+        status[i] = st;
+        bad += (st != NTR_OK);
+    }
+    return bad;
+}
+
 int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
                              const double *glucose_mmol_l,
                              const double *urea_mmol_l,
@@ -95,20 +292,59 @@ int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
     } else {
         return NTR_ERR_ARG;
     }
-    for (i = 0; i < n; i++) {
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_osm_calculated(na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                                ethanol_mmol_l, coefficient, intercept,
+                                out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_osm_calculated(i, i + 1, na_mmol_l, glucose_mmol_l,
+                                       urea_mmol_l, ethanol_mmol_l,
+                                       coefficient, intercept, out, status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_osm_calculated(i, n, na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                               ethanol_mmol_l, coefficient, intercept, out,
+                               status);
+    return finish(n, status, bad, failed);
+}
+
+#if NTR_PAIRS
+static inline int pair_osm_effective(const double *na, const double *glucose,
+                                     double *out, int *status, size_t i)
+{
+    ntr_pair a = pair_load(na + i), g = pair_load(glucose + i);
+    if (!pair_all(pair_and(pair_in(a, NTR_NA_MIN, NTR_NA_MAX),
+                           pair_in(g, 0.0, NTR_GLUCOSE_MAX)))) {
+        return 0;
+    }
+    pair_store(out + i, pair_splat(2.0) * a + g);
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_osm_effective(size_t from, size_t to,
+                                          const double *na_mmol_l,
+                                          const double *glucose_mmol_l,
+                                          double *out, int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
         double na = na_mmol_l[i];
         double glucose = glucose_mmol_l[i];
-        double urea = urea_mmol_l[i];
-        double ethanol = ethanol_mmol_l[i];
-        int st = osm_inputs_status(na, glucose, urea, ethanol);
-        /* Term order as in ntr_osm_calculated(): sodium term, glucose,
-         * urea, intercept, ethanol (adding 0.0 changes no value). */
-        out[i] = row_value(st, coefficient * na + glucose + urea + intercept +
-                                   ethanol);
+        int st = first_error(ntr_check_na(na),
+                             ntr_check(glucose, 0.0, NTR_GLUCOSE_MAX));
+        out[i] = row_value(st, 2.0 * na + glucose);
         status[i] = st;
         bad += (st != NTR_OK);
     }
-    return finish(n, status, bad, failed);
+    return bad;
 }
 
 int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
@@ -121,16 +357,54 @@ int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double na = na_mmol_l[i];
-        double glucose = glucose_mmol_l[i];
-        int st = first_error(ntr_check_na(na),
-                             ntr_check(glucose, 0.0, NTR_GLUCOSE_MAX));
-        out[i] = row_value(st, 2.0 * na + glucose);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_osm_effective(na_mmol_l, glucose_mmol_l, out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_osm_effective(i, i + 1, na_mmol_l, glucose_mmol_l, out,
+                                      status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_osm_effective(i, n, na_mmol_l, glucose_mmol_l, out, status);
+    return finish(n, status, bad, failed);
+}
+
+#if NTR_PAIRS
+static inline int pair_osm_gap(const double *measured, const double *calculated,
+                               double *out, int *status, size_t i)
+{
+    ntr_pair m = pair_load(measured + i), c = pair_load(calculated + i);
+    if (!pair_all(pair_and(pair_in(m, NTR_OSM_MIN, NTR_OSM_MAX),
+                           pair_in(c, NTR_OSM_MIN, NTR_OSM_MAX)))) {
+        return 0;
+    }
+    pair_store(out + i, m - c);
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_osm_gap(size_t from, size_t to,
+                                    const double *measured_mosm_kg,
+                                    const double *calculated_mosm_kg,
+                                    double *out, int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double measured = measured_mosm_kg[i];
+        double calculated = calculated_mosm_kg[i];
+        int st = first_error(ntr_check(measured, NTR_OSM_MIN, NTR_OSM_MAX),
+                             ntr_check(calculated, NTR_OSM_MIN, NTR_OSM_MAX));
+        out[i] = row_value(st, measured - calculated);
         status[i] = st;
         bad += (st != NTR_OK);
     }
-    return finish(n, status, bad, failed);
+    return bad;
 }
 
 int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
@@ -143,19 +417,72 @@ int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
         out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double measured = measured_mosm_kg[i];
-        double calculated = calculated_mosm_kg[i];
-        int st = first_error(ntr_check(measured, NTR_OSM_MIN, NTR_OSM_MAX),
-                             ntr_check(calculated, NTR_OSM_MIN, NTR_OSM_MAX));
-        out[i] = row_value(st, measured - calculated);
-        status[i] = st;
-        bad += (st != NTR_OK);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_osm_gap(measured_mosm_kg, calculated_mosm_kg, out, status,
+                         i)) {
+            i += 2;
+        } else {
+            bad += rows_osm_gap(i, i + 1, measured_mosm_kg, calculated_mosm_kg,
+                                out, status);
+            i++;
+        }
     }
+#endif
+    bad += rows_osm_gap(i, n, measured_mosm_kg, calculated_mosm_kg, out,
+                        status);
     return finish(n, status, bad, failed);
 }
 
 /* ---- sodium ---------------------------------------------------------- */
+
+#if NTR_PAIRS
+static inline int pair_na_corrected_glucose(const double *na,
+                                            const double *glucose,
+                                            double factor,
+                                            double *out, int *status, size_t i)
+{
+    ntr_pair a = pair_load(na + i), g = pair_load(glucose + i);
+    ntr_pair mg_dl, reference = pair_splat(GLUCOSE_REFERENCE_MG_DL);
+    if (!pair_all(pair_and(pair_in(a, NTR_NA_MIN, NTR_NA_MAX),
+                           pair_in(g, 0.0, NTR_GLUCOSE_MAX)))) {
+        return 0;
+    }
+    mg_dl = g * pair_splat(GLUCOSE_MG_DL_PER_MMOL_L);
+    pair_store(out + i,
+               pair_select(pair_le(mg_dl, reference), a,
+                           a + pair_splat(factor) * (mg_dl - reference) /
+                                   pair_splat(100.0)));
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_na_corrected_glucose(size_t from, size_t to,
+                                                 const double *na_mmol_l,
+                                                 const double *glucose_mmol_l,
+                                                 double factor, double *out,
+                                                 int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double na = na_mmol_l[i];
+        double glucose = glucose_mmol_l[i];
+        double glucose_mg_dl = glucose * GLUCOSE_MG_DL_PER_MMOL_L;
+        double corrected =
+            glucose_mg_dl <= GLUCOSE_REFERENCE_MG_DL
+                ? na
+                : na + factor * (glucose_mg_dl - GLUCOSE_REFERENCE_MG_DL) / 100.0;
+        int st = first_error(ntr_check_na(na),
+                             ntr_check(glucose, 0.0, NTR_GLUCOSE_MAX));
+        out[i] = row_value(st, corrected);
+        status[i] = st;
+        bad += (st != NTR_OK);
+    }
+    return bad;
+}
 
 int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
                                    const double *glucose_mmol_l, int method,
@@ -175,21 +502,65 @@ int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
     } else {
         return NTR_ERR_ARG;
     }
-    for (i = 0; i < n; i++) {
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_na_corrected_glucose(na_mmol_l, glucose_mmol_l, factor, out,
+                                      status, i)) {
+            i += 2;
+        } else {
+            bad += rows_na_corrected_glucose(i, i + 1, na_mmol_l,
+                                             glucose_mmol_l, factor, out,
+                                             status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_na_corrected_glucose(i, n, na_mmol_l, glucose_mmol_l, factor,
+                                     out, status);
+    return finish(n, status, bad, failed);
+}
+
+#if NTR_PAIRS
+static inline int pair_na_deficit(const double *tbw, const double *na,
+                                  const double *target, double *out,
+                                  int *status, size_t i)
+{
+    ntr_pair w = pair_load(tbw + i), a = pair_load(na + i);
+    ntr_pair t = pair_load(target + i);
+    if (!pair_all(pair_and4(pair_in(w, NTR_TBW_MIN, NTR_TBW_MAX),
+                            pair_in(a, NTR_NA_MIN, NTR_NA_MAX),
+                            pair_in(t, NTR_NA_MIN, NTR_NA_MAX),
+                            pair_ge(t, a)))) {
+        return 0;
+    }
+    pair_store(out + i, w * (t - a));
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_na_deficit(size_t from, size_t to,
+                                       const double *tbw_l,
+                                       const double *na_mmol_l,
+                                       const double *target_na_mmol_l,
+                                       double *out, int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double tbw = tbw_l[i];
         double na = na_mmol_l[i];
-        double glucose = glucose_mmol_l[i];
-        double glucose_mg_dl = glucose * GLUCOSE_MG_DL_PER_MMOL_L;
-        double corrected =
-            glucose_mg_dl <= GLUCOSE_REFERENCE_MG_DL
-                ? na
-                : na + factor * (glucose_mg_dl - GLUCOSE_REFERENCE_MG_DL) / 100.0;
-        int st = first_error(ntr_check_na(na),
-                             ntr_check(glucose, 0.0, NTR_GLUCOSE_MAX));
-        out[i] = row_value(st, corrected);
+        double target = target_na_mmol_l[i];
+        int st = ntr_check_tbw(tbw);
+        st = first_error(st, ntr_check_na(na));
+        st = first_error(st, ntr_check_na(target));
+        st = first_error(st, target < na ? NTR_ERR_DOMAIN : NTR_OK);
+        out[i] = row_value(st, tbw * (target - na));
         status[i] = st;
         bad += (st != NTR_OK);
     }
-    return finish(n, status, bad, failed);
+    return bad;
 }
 
 int ntr_batch_na_deficit(size_t n, const double *tbw_l,
@@ -203,18 +574,21 @@ int ntr_batch_na_deficit(size_t n, const double *tbw_l,
         out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double tbw = tbw_l[i];
-        double na = na_mmol_l[i];
-        double target = target_na_mmol_l[i];
-        int st = ntr_check_tbw(tbw);
-        st = first_error(st, ntr_check_na(na));
-        st = first_error(st, ntr_check_na(target));
-        st = first_error(st, target < na ? NTR_ERR_DOMAIN : NTR_OK);
-        out[i] = row_value(st, tbw * (target - na));
-        status[i] = st;
-        bad += (st != NTR_OK);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_na_deficit(tbw_l, na_mmol_l, target_na_mmol_l, out, status,
+                            i)) {
+            i += 2;
+        } else {
+            bad += rows_na_deficit(i, i + 1, tbw_l, na_mmol_l,
+                                   target_na_mmol_l, out, status);
+            i++;
+        }
     }
+#endif
+    bad += rows_na_deficit(i, n, tbw_l, na_mmol_l, target_na_mmol_l, out,
+                           status);
     return finish(n, status, bad, failed);
 }
 
@@ -242,17 +616,44 @@ static inline double water_fraction(int sex, double age_years)
     return water_fractions[adult * (1 + 2 * female + elderly)];
 }
 
-int ntr_batch_tbw_fraction(size_t n, const int *sex, const double *age_years,
-                           const double *weight_kg, double *out, int *status,
-                           size_t *failed)
+#if NTR_PAIRS
+static inline int pair_tbw_fraction(const int *sex, const double *age,
+                                    const double *weight, double *out,
+                                    int *status, size_t i)
+{
+    ntr_pair y = pair_load(age + i), w = pair_load(weight + i);
+    ntr_mask female = pair_sex_is(sex, i, NTR_SEX_FEMALE);
+    ntr_mask known = pair_or(pair_sex_is(sex, i, NTR_SEX_MALE), female);
+    /* The entries of water_fractions[], chosen lane by lane; worked out
+     * before the check so the compiler keeps the constants in registers
+     * across the loop. */
+    ntr_mask elderly = pair_ge(y, pair_splat(NTR_ELDERLY_AGE));
+    ntr_pair man = pair_select(elderly, pair_splat(water_fractions[2]),
+                               pair_splat(water_fractions[1]));
+    ntr_pair woman = pair_select(elderly, pair_splat(water_fractions[4]),
+                                 pair_splat(water_fractions[3]));
+    ntr_pair fraction = pair_select(pair_ge(y, pair_splat(NTR_ADULT_AGE)),
+                                    pair_select(female, woman, man),
+                                    pair_splat(water_fractions[0]));
+    if (!pair_all(pair_and3(known, pair_in(y, 0.0, NTR_AGE_MAX),
+                            pair_in(w, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX)))) {
+        return 0;
+    }
+    pair_store(out + i, fraction * w);
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_tbw_fraction(size_t from, size_t to,
+                                         const int *sex,
+                                         const double *age_years,
+                                         const double *weight_kg, double *out,
+                                         int *status)
 {
     size_t i;
     size_t bad = 0;
-    if (sex == NULL || age_years == NULL || weight_kg == NULL || out == NULL ||
-        status == NULL) {
-        return NTR_ERR_NULL;
-    }
-    for (i = 0; i < n; i++) {
+    for (i = from; i < to; i++) {
         int s = sex[i];
         double age = age_years[i];
         double weight = weight_kg[i];
@@ -263,20 +664,72 @@ int ntr_batch_tbw_fraction(size_t n, const int *sex, const double *age_years,
         status[i] = st;
         bad += (st != NTR_OK);
     }
-    return finish(n, status, bad, failed);
+    return bad;
 }
 
-int ntr_batch_tbw_watson(size_t n, const int *sex, const double *age_years,
-                         const double *height_cm, const double *weight_kg,
-                         double *out, int *status, size_t *failed)
+int ntr_batch_tbw_fraction(size_t n, const int *sex, const double *age_years,
+                           const double *weight_kg, double *out, int *status,
+                           size_t *failed)
 {
     size_t i;
     size_t bad = 0;
-    if (sex == NULL || age_years == NULL || height_cm == NULL ||
-        weight_kg == NULL || out == NULL || status == NULL) {
+    if (sex == NULL || age_years == NULL || weight_kg == NULL || out == NULL ||
+        status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_tbw_fraction(sex, age_years, weight_kg, out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_tbw_fraction(i, i + 1, sex, age_years, weight_kg, out,
+                                     status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_tbw_fraction(i, n, sex, age_years, weight_kg, out, status);
+    return finish(n, status, bad, failed);
+}
+
+#if NTR_PAIRS
+static inline int pair_tbw_watson(const int *sex, const double *age,
+                                  const double *height, const double *weight,
+                                  double *out, int *status, size_t i)
+{
+    ntr_pair y = pair_load(age + i), h = pair_load(height + i);
+    ntr_pair w = pair_load(weight + i);
+    ntr_mask male = pair_sex_is(sex, i, NTR_SEX_MALE);
+    ntr_mask known = pair_or(male, pair_sex_is(sex, i, NTR_SEX_FEMALE));
+    ntr_pair men, women, tbw;
+    /* Watson, Watson & Batt 1980, term order as in the scalar kernel. */
+    men = pair_splat(2.447) - pair_splat(0.09516) * y + pair_splat(0.1074) * h +
+          pair_splat(0.3362) * w;
+    women = pair_splat(-2.097) + pair_splat(0.1069) * h +
+            pair_splat(0.2466) * w;
+    tbw = pair_select(male, men, women);
+    ntr_mask measures = pair_and3(pair_in(y, NTR_ADULT_AGE, NTR_AGE_MAX),
+                                  pair_in(h, NTR_HEIGHT_MIN, NTR_HEIGHT_MAX),
+                                  pair_in(w, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX));
+    if (!pair_all(pair_and3(known, measures, pair_gt(tbw, pair_splat(0.0))))) {
+        return 0;
+    }
+    pair_store(out + i, tbw);
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_tbw_watson(size_t from, size_t to, const int *sex,
+                                       const double *age_years,
+                                       const double *height_cm,
+                                       const double *weight_kg, double *out,
+                                       int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
         int s = sex[i];
         double age = age_years[i];
         double height = height_cm[i];
@@ -295,7 +748,70 @@ int ntr_batch_tbw_watson(size_t n, const int *sex, const double *age_years,
         status[i] = st;
         bad += (st != NTR_OK);
     }
+    return bad;
+}
+
+int ntr_batch_tbw_watson(size_t n, const int *sex, const double *age_years,
+                         const double *height_cm, const double *weight_kg,
+                         double *out, int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (sex == NULL || age_years == NULL || height_cm == NULL ||
+        weight_kg == NULL || out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_tbw_watson(sex, age_years, height_cm, weight_kg, out, status,
+                            i)) {
+            i += 2;
+        } else {
+            bad += rows_tbw_watson(i, i + 1, sex, age_years, height_cm,
+                                   weight_kg, out, status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_tbw_watson(i, n, sex, age_years, height_cm, weight_kg, out,
+                           status);
     return finish(n, status, bad, failed);
+}
+
+#if NTR_PAIRS
+static inline int pair_free_water_deficit(const double *tbw, const double *na,
+                                          double *out, int *status, size_t i)
+{
+    ntr_pair w = pair_load(tbw + i), a = pair_load(na + i);
+    if (!pair_all(pair_and(pair_in(w, NTR_TBW_MIN, NTR_TBW_MAX),
+                           pair_in(a, NORMAL_NA_MMOL_L, NTR_NA_MAX)))) {
+        return 0;
+    }
+    pair_store(out + i,
+               w * (a / pair_splat(NORMAL_NA_MMOL_L) - pair_splat(1.0)));
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_free_water_deficit(size_t from, size_t to,
+                                               const double *tbw_l,
+                                               const double *na_mmol_l,
+                                               double *out, int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double tbw = tbw_l[i];
+        double na = na_mmol_l[i];
+        int st = first_error(ntr_check_tbw(tbw), ntr_check_na(na));
+        st = first_error(st, na < NORMAL_NA_MMOL_L ? NTR_ERR_DOMAIN : NTR_OK);
+        out[i] = row_value(st, tbw * (na / NORMAL_NA_MMOL_L - 1.0));
+        status[i] = st;
+        bad += (st != NTR_OK);
+    }
+    return bad;
 }
 
 int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
@@ -307,15 +823,19 @@ int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
     if (tbw_l == NULL || na_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double tbw = tbw_l[i];
-        double na = na_mmol_l[i];
-        int st = first_error(ntr_check_tbw(tbw), ntr_check_na(na));
-        st = first_error(st, na < NORMAL_NA_MMOL_L ? NTR_ERR_DOMAIN : NTR_OK);
-        out[i] = row_value(st, tbw * (na / NORMAL_NA_MMOL_L - 1.0));
-        status[i] = st;
-        bad += (st != NTR_OK);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_free_water_deficit(tbw_l, na_mmol_l, out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_free_water_deficit(i, i + 1, tbw_l, na_mmol_l, out,
+                                           status);
+            i++;
+        }
     }
+#endif
+    bad += rows_free_water_deficit(i, n, tbw_l, na_mmol_l, out, status);
     return finish(n, status, bad, failed);
 }
 
@@ -328,6 +848,104 @@ static inline int infusate_status(double na, double tbw, double infusate_na,
     st = first_error(st, ntr_check_tbw(tbw));
     st = first_error(st, ntr_check(infusate_na, 0.0, NTR_INFUSATE_NA_MAX));
     return first_error(st, ntr_check(infusate_k, 0.0, NTR_INFUSATE_K_MAX));
+}
+
+#if NTR_PAIRS
+static inline ntr_mask pair_infusate_in(ntr_pair na, ntr_pair tbw,
+                                        ntr_pair infusate_na,
+                                        ntr_pair infusate_k)
+{
+    return pair_and4(pair_in(na, NTR_NA_MIN, NTR_NA_MAX),
+                     pair_in(tbw, NTR_TBW_MIN, NTR_TBW_MAX),
+                     pair_in(infusate_na, 0.0, NTR_INFUSATE_NA_MAX),
+                     pair_in(infusate_k, 0.0, NTR_INFUSATE_K_MAX));
+}
+
+static inline int pair_infusate_change_per_litre(const double *na,
+                                                 const double *tbw,
+                                                 const double *infusate_na,
+                                                 const double *infusate_k,
+                                                 double *out, int *status,
+                                                 size_t i)
+{
+    ntr_pair a = pair_load(na + i), w = pair_load(tbw + i);
+    ntr_pair c = pair_load(infusate_na + i), k = pair_load(infusate_k + i);
+    if (!pair_all(pair_infusate_in(a, w, c, k))) {
+        return 0;
+    }
+    pair_store(out + i, (c + k - a) / (w + pair_splat(1.0)));
+    pair_ok(status + i);
+    return 1;
+}
+
+static inline int pair_infusate_change(const double *na, const double *tbw,
+                                       const double *infusate_na,
+                                       const double *infusate_k,
+                                       const double *volume, double *out,
+                                       int *status, size_t i)
+{
+    ntr_pair a = pair_load(na + i), w = pair_load(tbw + i);
+    ntr_pair c = pair_load(infusate_na + i), k = pair_load(infusate_k + i);
+    ntr_pair v = pair_load(volume + i);
+    if (!pair_all(pair_and(pair_infusate_in(a, w, c, k),
+                           pair_in(v, 0.0, NTR_INFUSE_VOLUME_MAX)))) {
+        return 0;
+    }
+    pair_store(out + i, v * (c + k - a) / (w + v));
+    pair_ok(status + i);
+    return 1;
+}
+
+/* Only a change other than 0 that the infusate can reach within the volume
+ * limit takes this path; the rest (including delta 0) is left to the
+ * scalar kernel. */
+static inline int pair_infusate_volume(const double *na, const double *tbw,
+                                       const double *infusate_na,
+                                       const double *infusate_k,
+                                       const double *delta, double *out,
+                                       int *status, size_t i)
+{
+    ntr_pair a = pair_load(na + i), w = pair_load(tbw + i);
+    ntr_pair c = pair_load(infusate_na + i), k = pair_load(infusate_k + i);
+    ntr_pair d = pair_load(delta + i);
+    ntr_pair zero = pair_splat(0.0);
+    ntr_pair headroom = c + k - a - d;
+    ntr_pair volume = d * w / headroom;
+    ntr_mask reachable =
+        pair_or(pair_and(pair_gt(d, zero), pair_gt(headroom, zero)),
+                pair_and(pair_lt(d, zero), pair_lt(headroom, zero)));
+    ntr_pair volume_max = pair_splat(NTR_INFUSE_VOLUME_MAX);
+    if (!pair_all(pair_and4(pair_infusate_in(a, w, c, k),
+                            pair_in(d, -NTR_DELTA_MAX, NTR_DELTA_MAX),
+                            reachable, pair_le(volume, volume_max)))) {
+        return 0;
+    }
+    pair_store(out + i, volume);
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t
+rows_infusate_change_per_litre(size_t from, size_t to, const double *na_mmol_l,
+                               const double *tbw_l,
+                               const double *infusate_na_mmol_l,
+                               const double *infusate_k_mmol_l, double *out,
+                               int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double na = na_mmol_l[i];
+        double tbw = tbw_l[i];
+        double infusate_na = infusate_na_mmol_l[i];
+        double infusate_k = infusate_k_mmol_l[i];
+        int st = infusate_status(na, tbw, infusate_na, infusate_k);
+        out[i] = row_value(st, (infusate_na + infusate_k - na) / (tbw + 1.0));
+        status[i] = st;
+        bad += (st != NTR_OK);
+    }
+    return bad;
 }
 
 int ntr_batch_infusate_change_per_litre(size_t n, const double *na_mmol_l,
@@ -343,17 +961,51 @@ int ntr_batch_infusate_change_per_litre(size_t n, const double *na_mmol_l,
         infusate_k_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_infusate_change_per_litre(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                           infusate_k_mmol_l, out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_infusate_change_per_litre(i, i + 1, na_mmol_l, tbw_l,
+                                                  infusate_na_mmol_l,
+                                                  infusate_k_mmol_l, out,
+                                                  status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_infusate_change_per_litre(i, n, na_mmol_l, tbw_l,
+                                          infusate_na_mmol_l,
+                                          infusate_k_mmol_l, out, status);
+    return finish(n, status, bad, failed);
+}
+
+static NTR_ROWS size_t rows_infusate_change(size_t from, size_t to,
+                                            const double *na_mmol_l,
+                                            const double *tbw_l,
+                                            const double *infusate_na_mmol_l,
+                                            const double *infusate_k_mmol_l,
+                                            const double *volume_l,
+                                            double *out, int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
         double na = na_mmol_l[i];
         double tbw = tbw_l[i];
         double infusate_na = infusate_na_mmol_l[i];
         double infusate_k = infusate_k_mmol_l[i];
+        double volume = volume_l[i];
         int st = infusate_status(na, tbw, infusate_na, infusate_k);
-        out[i] = row_value(st, (infusate_na + infusate_k - na) / (tbw + 1.0));
+        st = first_error(st, ntr_check(volume, 0.0, NTR_INFUSE_VOLUME_MAX));
+        out[i] = row_value(st, volume * (infusate_na + infusate_k - na) /
+                                   (tbw + volume));
         status[i] = st;
         bad += (st != NTR_OK);
     }
-    return finish(n, status, bad, failed);
+    return bad;
 }
 
 int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
@@ -370,19 +1022,22 @@ int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double na = na_mmol_l[i];
-        double tbw = tbw_l[i];
-        double infusate_na = infusate_na_mmol_l[i];
-        double infusate_k = infusate_k_mmol_l[i];
-        double volume = volume_l[i];
-        int st = infusate_status(na, tbw, infusate_na, infusate_k);
-        st = first_error(st, ntr_check(volume, 0.0, NTR_INFUSE_VOLUME_MAX));
-        out[i] = row_value(st, volume * (infusate_na + infusate_k - na) /
-                                   (tbw + volume));
-        status[i] = st;
-        bad += (st != NTR_OK);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_infusate_change(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                 infusate_k_mmol_l, volume_l, out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_infusate_change(i, i + 1, na_mmol_l, tbw_l,
+                                        infusate_na_mmol_l, infusate_k_mmol_l,
+                                        volume_l, out, status);
+            i++;
+        }
     }
+#endif
+    bad += rows_infusate_change(i, n, na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                infusate_k_mmol_l, volume_l, out, status);
     return finish(n, status, bad, failed);
 }
 
@@ -393,22 +1048,17 @@ static inline int reachable(double delta, double headroom)
     return delta > 0.0 ? headroom > 0.0 : headroom < 0.0;
 }
 
-int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
-                                         const double *tbw_l,
-                                         const double *infusate_na_mmol_l,
-                                         const double *infusate_k_mmol_l,
-                                         const double *target_delta_mmol_l,
-                                         double *out, int *status,
-                                         size_t *failed)
+static NTR_ROWS size_t
+rows_infusate_volume_for_change(size_t from, size_t to, const double *na_mmol_l,
+                                const double *tbw_l,
+                                const double *infusate_na_mmol_l,
+                                const double *infusate_k_mmol_l,
+                                const double *target_delta_mmol_l, double *out,
+                                int *status)
 {
     size_t i;
     size_t bad = 0;
-    if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
-        infusate_k_mmol_l == NULL || target_delta_mmol_l == NULL ||
-        out == NULL || status == NULL) {
-        return NTR_ERR_NULL;
-    }
-    for (i = 0; i < n; i++) {
+    for (i = from; i < to; i++) {
         double na = na_mmol_l[i];
         double tbw = tbw_l[i];
         double infusate_na = infusate_na_mmol_l[i];
@@ -427,6 +1077,45 @@ int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
         status[i] = st;
         bad += (st != NTR_OK);
     }
+    return bad;
+}
+
+int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
+                                         const double *tbw_l,
+                                         const double *infusate_na_mmol_l,
+                                         const double *infusate_k_mmol_l,
+                                         const double *target_delta_mmol_l,
+                                         double *out, int *status,
+                                         size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
+        infusate_k_mmol_l == NULL || target_delta_mmol_l == NULL ||
+        out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_infusate_volume(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                 infusate_k_mmol_l, target_delta_mmol_l,
+                                 out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_infusate_volume_for_change(i, i + 1, na_mmol_l, tbw_l,
+                                                   infusate_na_mmol_l,
+                                                   infusate_k_mmol_l,
+                                                   target_delta_mmol_l, out,
+                                                   status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_infusate_volume_for_change(i, n, na_mmol_l, tbw_l,
+                                           infusate_na_mmol_l,
+                                           infusate_k_mmol_l,
+                                           target_delta_mmol_l, out, status);
     return finish(n, status, bad, failed);
 }
 
@@ -440,6 +1129,86 @@ static inline int urine_status(double urine_na, double urine_k,
     return first_error(st, ntr_check_na(serum_na));
 }
 
+#if NTR_PAIRS
+static inline ntr_mask pair_urine_in(ntr_pair urine_na, ntr_pair urine_k,
+                                     ntr_pair serum_na)
+{
+    return pair_and3(pair_in(urine_na, 0.0, NTR_URINE_NA_MAX),
+                     pair_in(urine_k, 0.0, NTR_URINE_K_MAX),
+                     pair_in(serum_na, NTR_NA_MIN, NTR_NA_MAX));
+}
+
+static inline int pair_furst_ratio(const double *urine_na,
+                                   const double *urine_k,
+                                   const double *serum_na, double *out,
+                                   int *status, size_t i)
+{
+    ntr_pair u = pair_load(urine_na + i), k = pair_load(urine_k + i);
+    ntr_pair s = pair_load(serum_na + i);
+    if (!pair_all(pair_urine_in(u, k, s))) {
+        return 0;
+    }
+    pair_store(out + i, (u + k) / s);
+    pair_ok(status + i);
+    return 1;
+}
+
+static inline int pair_restriction(const double *ratio, int *advice,
+                                   int *status, size_t i)
+{
+    ntr_pair r = pair_load(ratio + i);
+    ntr_pair one = pair_splat(1.0), zero = pair_splat(0.0);
+    /* NTR_RESTRICT_1000ML (1) plus one for each edge reached, as in the
+     * scalar kernel; exact small integers, converted to int. */
+    ntr_mask at_least_low = pair_ge(r, pair_splat(NTR_FURST_ABOUT_ONE_LOW));
+    ntr_mask above_high = pair_gt(r, pair_splat(NTR_FURST_ABOUT_ONE_HIGH));
+    ntr_pair band = pair_splat((double)NTR_RESTRICT_1000ML) +
+                    pair_select(at_least_low, one, zero) +
+                    pair_select(above_high, one, zero);
+    if (!pair_all(pair_in(r, 0.0, NTR_RATIO_MAX))) {
+        return 0;
+    }
+    *(ntr_int_pair *)(advice + i) = __builtin_convertvector(band, ntr_int_pair);
+    pair_ok(status + i);
+    return 1;
+}
+
+static inline int pair_efwc(const double *volume, const double *urine_na,
+                            const double *urine_k, const double *serum_na,
+                            double *out, int *status, size_t i)
+{
+    ntr_pair v = pair_load(volume + i), u = pair_load(urine_na + i);
+    ntr_pair k = pair_load(urine_k + i), s = pair_load(serum_na + i);
+    if (!pair_all(pair_and(pair_in(v, 0.0, NTR_URINE_VOLUME_MAX),
+                           pair_urine_in(u, k, s)))) {
+        return 0;
+    }
+    pair_store(out + i, v * (pair_splat(1.0) - (u + k) / s));
+    pair_ok(status + i);
+    return 1;
+}
+#endif
+
+static NTR_ROWS size_t rows_furst_ratio(size_t from, size_t to,
+                                        const double *urine_na_mmol_l,
+                                        const double *urine_k_mmol_l,
+                                        const double *serum_na_mmol_l,
+                                        double *out, int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double urine_na = urine_na_mmol_l[i];
+        double urine_k = urine_k_mmol_l[i];
+        double serum_na = serum_na_mmol_l[i];
+        int st = urine_status(urine_na, urine_k, serum_na);
+        out[i] = row_value(st, (urine_na + urine_k) / serum_na);
+        status[i] = st;
+        bad += (st != NTR_OK);
+    }
+    return bad;
+}
+
 int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
                           const double *urine_k_mmol_l,
                           const double *serum_na_mmol_l, double *out,
@@ -451,27 +1220,31 @@ int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
         serum_na_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double urine_na = urine_na_mmol_l[i];
-        double urine_k = urine_k_mmol_l[i];
-        double serum_na = serum_na_mmol_l[i];
-        int st = urine_status(urine_na, urine_k, serum_na);
-        out[i] = row_value(st, (urine_na + urine_k) / serum_na);
-        status[i] = st;
-        bad += (st != NTR_OK);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_furst_ratio(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
+                             out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_furst_ratio(i, i + 1, urine_na_mmol_l, urine_k_mmol_l,
+                                    serum_na_mmol_l, out, status);
+            i++;
+        }
     }
+#endif
+    bad += rows_furst_ratio(i, n, urine_na_mmol_l, urine_k_mmol_l,
+                            serum_na_mmol_l, out, status);
     return finish(n, status, bad, failed);
 }
 
-int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
-                                     int *advice, int *status, size_t *failed)
+static NTR_ROWS size_t rows_restriction_from_ratio(size_t from, size_t to,
+                                                   const double *ratio,
+                                                   int *advice, int *status)
 {
     size_t i;
     size_t bad = 0;
-    if (ratio == NULL || advice == NULL || status == NULL) {
-        return NTR_ERR_NULL;
-    }
-    for (i = 0; i < n; i++) {
+    for (i = from; i < to; i++) {
         double r = ratio[i];
         /* NTR_RESTRICT_1000ML, _500_700ML, _500ML are 1, 2, 3: the band is
          * a sum of two comparisons, with no branch to mispredict on ratios
@@ -483,7 +1256,53 @@ int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
         status[i] = st;
         bad += (st != NTR_OK);
     }
+    return bad;
+}
+
+int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
+                                     int *advice, int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (ratio == NULL || advice == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_restriction(ratio, advice, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_restriction_from_ratio(i, i + 1, ratio, advice, status);
+            i++;
+        }
+    }
+#endif
+    bad += rows_restriction_from_ratio(i, n, ratio, advice, status);
     return finish(n, status, bad, failed);
+}
+
+static NTR_ROWS size_t rows_efwc(size_t from, size_t to,
+                                 const double *urine_volume_l,
+                                 const double *urine_na_mmol_l,
+                                 const double *urine_k_mmol_l,
+                                 const double *serum_na_mmol_l, double *out,
+                                 int *status)
+{
+    size_t i;
+    size_t bad = 0;
+    for (i = from; i < to; i++) {
+        double volume = urine_volume_l[i];
+        double urine_na = urine_na_mmol_l[i];
+        double urine_k = urine_k_mmol_l[i];
+        double serum_na = serum_na_mmol_l[i];
+        int st = first_error(ntr_check(volume, 0.0, NTR_URINE_VOLUME_MAX),
+                             urine_status(urine_na, urine_k, serum_na));
+        out[i] = row_value(st, volume * (1.0 - (urine_na + urine_k) / serum_na));
+        status[i] = st;
+        bad += (st != NTR_OK);
+    }
+    return bad;
 }
 
 int ntr_batch_efwc(size_t n, const double *urine_volume_l,
@@ -498,17 +1317,21 @@ int ntr_batch_efwc(size_t n, const double *urine_volume_l,
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    for (i = 0; i < n; i++) {
-        double volume = urine_volume_l[i];
-        double urine_na = urine_na_mmol_l[i];
-        double urine_k = urine_k_mmol_l[i];
-        double serum_na = serum_na_mmol_l[i];
-        int st = first_error(ntr_check(volume, 0.0, NTR_URINE_VOLUME_MAX),
-                             urine_status(urine_na, urine_k, serum_na));
-        out[i] = row_value(st, volume * (1.0 - (urine_na + urine_k) / serum_na));
-        status[i] = st;
-        bad += (st != NTR_OK);
+    i = 0;
+#if NTR_PAIRS
+    while (i + 1 < n) {
+        if (pair_efwc(urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
+                      serum_na_mmol_l, out, status, i)) {
+            i += 2;
+        } else {
+            bad += rows_efwc(i, i + 1, urine_volume_l, urine_na_mmol_l,
+                             urine_k_mmol_l, serum_na_mmol_l, out, status);
+            i++;
+        }
     }
+#endif
+    bad += rows_efwc(i, n, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
+                     serum_na_mmol_l, out, status);
     return finish(n, status, bad, failed);
 }
 
