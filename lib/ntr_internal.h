@@ -52,7 +52,19 @@
  * The valid case costs one pair of comparisons: NaN fails both and an
  * infinity fails one, so only a value that is already rejected needs the
  * finiteness test that tells NTR_ERR_NONFINITE from NTR_ERR_RANGE
- * (tests/bench/run-bench.sh measures the per-call cost this keeps low). */
+ * (tests/bench/run-bench.sh measures the per-call cost this keeps low).
+ * Built for size (-Os, as firmware is), every check calls the one copy in
+ * lib/status.c instead: on a processor without double-precision hardware
+ * each inlined comparison is a library call, and sharing them saves about
+ * 5 KB on a Cortex-M4 (tests/bench/firmware.py). */
+int ntri_check_range(double x, double lo, double hi);
+
+#if defined(__OPTIMIZE_SIZE__)
+static inline int ntr_check(double x, double lo, double hi)
+{
+    return ntri_check_range(x, lo, hi);
+}
+#else
 static inline int ntr_check(double x, double lo, double hi)
 {
     if (x >= lo && x <= hi) {
@@ -60,6 +72,7 @@ static inline int ntr_check(double x, double lo, double hi)
     }
     return isfinite(x) ? NTR_ERR_RANGE : NTR_ERR_NONFINITE;
 }
+#endif
 
 static inline int ntr_check_na(double na_mmol_l)
 {

@@ -32,3 +32,13 @@ unsigned long ntr_version_number(void)
            (unsigned long)NTR_VERSION_MINOR * 100ul +
            (unsigned long)NTR_VERSION_PATCH;
 }
+
+/* The out-of-line range check that size-optimised builds share
+ * (lib/ntr_internal.h). Internal: hidden, not in the version script. */
+int ntri_check_range(double x, double lo, double hi)
+{
+    if (x >= lo && x <= hi) {
+        return NTR_OK;
+    }
+    return isfinite(x) ? NTR_ERR_RANGE : NTR_ERR_NONFINITE;
+}
