@@ -11,9 +11,10 @@ then measures
     and, for information, the deepest call chain inside the library (frames
     summed along the call graph from the .ci files; the libgcc
     double-precision helpers the chain ends in are listed, not counted);
-  * for information, a linked image that keeps every entry point
-    (--gc-sections, -u for each ntr_ symbol) together with the libgcc
-    soft-float helpers a Cortex-M4 needs for double arithmetic.
+  * for information, linked images (--gc-sections) that keep every entry
+    point, or only the core formulas, or what a sodium-watching infusion
+    pump calls, with the bytes from the library and from libgcc's
+    soft-float helpers (double arithmetic on a Cortex-M4) read off the map.
 
 Usage: firmware.py SOURCE_ROOT WORK_DIR  -> prints JSON on stdout.
 """
@@ -38,8 +39,11 @@ def library_sources(root):
 
 
 def run(cmd, cwd):
-    return subprocess.run(cmd, cwd=cwd, check=True, capture_output=True,
-                          text=True).stdout
+    done = subprocess.run(cmd, cwd=cwd, capture_output=True, text=True)
+    if done.returncode != 0:
+        sys.stderr.write(done.stdout + done.stderr)
+        raise SystemExit("firmware.py: failed: " + " ".join(cmd))
+    return done.stdout
 
 
 def section_sizes(path, cwd):
@@ -117,6 +121,57 @@ def deepest_chain(name, frames, edges, seen=()):
     return own + best[0], [name] + best[1], external
 
 
+# The P1 formulas (the core a meter or a calculator needs) and what an
+# infusion pump that watches a sodium series would call on top of them.
+CORE = ["ntr_status_message", "ntr_unit_parse", "ntr_convert",
+        "ntr_osm_calculated", "ntr_osm_effective", "ntr_osm_gap",
+        "ntr_na_corrected_glucose", "ntr_na_corrected_glucose_factor",
+        "ntr_na_deficit", "ntr_tbw_fraction", "ntr_tbw_watson",
+        "ntr_free_water_deficit", "ntr_fluid_preset",
+        "ntr_infusate_change_per_litre", "ntr_infusate_change",
+        "ntr_infusate_volume_for_change", "ntr_furst_ratio",
+        "ntr_restriction_from_ratio", "ntr_efwc"]
+PUMP = CORE + ["ntr_limits_preset", "ntr_ods_risk", "ntr_watch_init",
+               "ntr_watch_push", "ntr_watch_result", "ntr_balance_predict",
+               "ntr_plan_check", "ntr_relower_estimate"]
+
+
+def profile_sets(names):
+    return {"every entry point": names,
+            "core formulas (P1)": [n for n in CORE if n in names],
+            "pump: core + limits, watcher, balance, plan check":
+                [n for n in PUMP if n in names]}
+
+
+MAP_ENTRY = re.compile(
+    r"^ (\.(?:text|rodata)\S*)\s+0x[0-9a-f]+\s+0x([0-9a-f]+)\s+(\S+)", re.M)
+
+
+def link_profile(work, profile, keep):
+    """Bytes of .text + .rodata in a linked image keeping `keep`: from the
+    library and from everything else (libgcc, newlib), read off the map."""
+    elf = "profile.elf"
+    link = [CC, "-mcpu=cortex-m4", "-mthumb", "-nostartfiles",
+            "-Wl,--gc-sections", "-Wl,-e," + keep[0], "--specs=nosys.specs",
+            "-Wl,-Map=profile.map"]
+    link += ["-Wl,-u," + n for n in keep]
+    link += ["libnatremia-m4.a", "-lgcc", "-o", elf]
+    run(link, work)
+    text = open(os.path.join(work, "profile.map")).read()
+    # Input sections sit on one line, or the name alone on the line before.
+    text = re.sub(r"^ (\.\S+)\n\s+", r" \1 ", text, flags=re.M)
+    start = text.index("Linker script and memory map")
+    sums = {"library": 0, "other": 0}
+    for m in MAP_ENTRY.finditer(text, start):
+        size = int(m.group(2), 16)
+        origin = m.group(3)
+        if size == 0 or origin.startswith("*"):
+            continue
+        sums["library" if "libnatremia-m4.a(" in origin else "other"] += size
+    sums["entry_points"] = len(keep)
+    return sums
+
+
 def main():
     root, work = sys.argv[1], sys.argv[2]
     os.makedirs(work, exist_ok=True)
@@ -147,15 +202,14 @@ def main():
     deepest = max(chains.items(), key=lambda kv: (kv[1][0], kv[0]))
     external = sorted(set().union(*(c[2] for c in chains.values())))
 
-    # A linked image keeping every entry point, with libgcc's soft-float
-    # helpers (and newlib only if the compiler emitted a libc call).
-    link = [CC, "-mcpu=cortex-m4", "-mthumb", "-nostartfiles",
-            "-Wl,--gc-sections", "-Wl,-e,ntr_version_number",
-            "--specs=nosys.specs"]
-    link += ["-Wl,-u," + n for n in names]
-    link += ["libnatremia-m4.a", "-lgcc", "-o", "natremia-m4.elf"]
-    run(link, work)
-    image = section_sizes("natremia-m4.elf", work)
+    # Linked images (--gc-sections) that keep a set of entry points, with
+    # libgcc's soft-float helpers (and newlib only if the compiler emitted
+    # a libc call): every entry point, and the sets two kinds of firmware
+    # would call.
+    profiles = {}
+    for profile, keep in profile_sets(names).items():
+        profiles[profile] = link_profile(work, profile, keep)
+    image = profiles["every entry point"]
 
     print(json.dumps({
         "compiler": run([CC, "--version"], work).splitlines()[0],
@@ -170,7 +224,8 @@ def main():
         "deepest_chain_bytes": deepest[1][0],
         "deepest_chain": deepest[1][1],
         "external_callees": external,
-        "image_code_bytes": image["text"] + image["rodata"],
+        "image_code_bytes": image["library"] + image["other"],
+        "profiles": profiles,
     }, indent=1, sort_keys=True))
 
 

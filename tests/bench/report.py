@@ -303,6 +303,14 @@ def firmware_section(page, d):
         ("deepest call chain in the library (%s)" % " > ".join(d["deepest_chain"]),
          d["deepest_chain_bytes"], "", ""),
     ])
+    page.add("Linked images (`--gc-sections`) keeping only some entry points: "
+             "a firmware links what it calls.", "")
+    prof_rows = []
+    for name, p in sorted(d["profiles"].items(), key=lambda kv: kv[1]["library"]):
+        prof_rows.append((name, p["entry_points"], p["library"], p["other"],
+                          yes(p["library"] <= CODE_TARGET)))
+    page.table(["image", "entry points", "library bytes", "libgcc/newlib bytes",
+                "library <= 12 KiB"], prof_rows)
     page.add("Per source file (.text + .rodata):", "")
     page.table(["object", "bytes"], sorted(d["objects"].items(), key=lambda kv: -kv[1]))
     frames = sorted(d["entry_frames"].items(), key=lambda kv: (-kv[1], kv[0]))[:10]
