@@ -6,15 +6,28 @@
 # sanitizer report. Figures for long runs: tests/fuzz-long.sh,
 # docs/reliability.md.
 #
-# Environment: NTR_BUILD_PREFIX (default "build") names the build dir
-# (<prefix>-fuzz); NTR_FUZZ_SECONDS_PER_TARGET (default 1) sets the budget.
+# Registered as the meson test 'fuzz-short' (suite 'fuzz'), so the README
+# test command runs it; exits 77 (skipped) when clang or its fuzzer runtime
+# is missing.
+#
+# Environment: NTR_FUZZ_OUT names the build dir (default
+# <NTR_BUILD_PREFIX or "build">-fuzz); NTR_FUZZ_SECONDS_PER_TARGET
+# (default 1) sets the budget per entry point.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
-out="${NTR_BUILD_PREFIX:-build}-fuzz"
+out="${NTR_FUZZ_OUT:-${NTR_BUILD_PREFIX:-build}-fuzz}"
 per="${NTR_FUZZ_SECONDS_PER_TARGET:-1}"
 
-tests/fuzz/build.sh "$out" >/dev/null
+if ! command -v "${NTR_FUZZ_CC:-clang}" >/dev/null 2>&1 ||
+   ! echo 'int LLVMFuzzerTestOneInput(const char *d, unsigned long n){(void)d;(void)n;return 0;}' |
+     "${NTR_FUZZ_CC:-clang}" -x c -fsanitize=fuzzer,address,undefined - -o /dev/null >/dev/null 2>&1; then
+  echo "fuzz-short: clang with libFuzzer not available (apt-get install clang libclang-rt-14-dev): skipped"
+  exit 77
+fi
+mkdir -p "$out"
+
+tests/fuzz/build.sh "$out" >"$out/build.log" 2>&1 || { cat "$out/build.log"; exit 1; }
 corpus="$out/corpus-short"
 rm -rf "$corpus" && mkdir -p "$corpus"
 n_seeds=$(tests/fuzz/seeds.sh "$out/fuzz_natremia" "$corpus")

@@ -34,6 +34,13 @@ packages=(
     postgresql-server-dev-15
     doxygen
     librsvg2-bin
+    # reliability (P6): short fuzzing (suite 'fuzz') and the s390x cross
+    # test (suite 'cross'; tests/cross.sh adds the s390x architecture and
+    # its libcmocka-dev itself)
+    clang
+    libclang-rt-14-dev
+    gcc-s390x-linux-gnu
+    qemu-user
 )
 
 cd "$(dirname "${BASH_SOURCE[0]}")/.."

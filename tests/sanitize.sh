@@ -6,8 +6,10 @@
 #    finding fatal) runs every suite whose programs are ours: unit (all
 #    areas, the bad-input matrix, the reference vectors), examples and docs.
 #    Left out: 'build' (it inspects the plain library's exports and ABI,
-#    which instrumentation changes) and 'bindings' (Python and PostgreSQL
-#    load the library into uninstrumented processes).
+#    which instrumentation changes), 'bindings' (Python and PostgreSQL
+#    load the library into uninstrumented processes), and 'fuzz' and
+#    'cross' (they make builds of their own: the fuzz driver is already
+#    ASan+UBSan, the cross builds run under qemu).
 # 2. A plain build runs the unit suite with every test program under
 #    valgrind --error-exitcode=1 --leak-check=full.
 #
@@ -53,7 +55,7 @@ for m in "${modes[@]}"; do
     ninja -C "$dir" >/dev/null
     if ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:strict_string_checks=1:detect_stack_use_after_return=1 \
        UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
-       meson test -C "$dir" --no-suite build --no-suite bindings --num-processes 2 \
+       meson test -C "$dir" --no-suite build --no-suite bindings --no-suite fuzz --no-suite cross --num-processes 2 \
          --print-errorlogs >"$dir/sanitize.log" 2>&1; then
       echo "sanitize.sh: ASan+UBSan: $(grep -E '^Ok:' "$dir/sanitize.log" | tr -s ' ') tests, no report [$((SECONDS - start))s]"
     else

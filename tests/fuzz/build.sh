@@ -1,8 +1,15 @@
 #!/usr/bin/env bash
 # Build the libFuzzer driver with clang, AddressSanitizer and
-# UndefinedBehaviorSanitizer (every UB check fatal; float division by zero
-# and implicit integer conversions are checked too, since the library must
-# never produce an infinity or truncate silently).
+# UndefinedBehaviorSanitizer (every UB check fatal), plus implicit integer
+# conversions (the library must never truncate silently).
+# NTR_FUZZ_EXTRA_SANITIZE replaces the extra checks (default
+# ",implicit-conversion"); ",float-divide-by-zero,implicit-conversion" also
+# traps IEEE division by zero. That one is off by default: the batch entry
+# points evaluate every row without data-dependent branches and discard
+# the result of a rejected row, which IEEE 754 defines but which raises the
+# divide-by-zero flag (docs/reliability.md, "Floating-point exceptions"). Warnings are shown but
+# not fatal here: the meson build (gcc, -Werror) owns the warning policy,
+# and clang warns about a few things gcc accepts (unused static inline).
 # Usage: tests/fuzz/build.sh OUTDIR   -> OUTDIR/fuzz_natremia
 set -euo pipefail
 root="$(cd "$(dirname "$0")/../.." && pwd)"
@@ -10,8 +17,8 @@ out="${1:?usage: build.sh OUTDIR}"
 mkdir -p "$out"
 cc="${NTR_FUZZ_CC:-clang}"
 "$cc" ${NTR_FUZZ_CFLAGS:-} -std=c99 -g -O1 -fno-omit-frame-pointer -ffp-contract=off \
-  -Wall -Wextra -Wpedantic -Werror \
-  -fsanitize=fuzzer,address,undefined${NTR_FUZZ_EXTRA_SANITIZE-,float-divide-by-zero,implicit-conversion} \
+  -Wall -Wextra -Wpedantic \
+  -fsanitize=fuzzer,address,undefined${NTR_FUZZ_EXTRA_SANITIZE-,implicit-conversion} \
   -fno-sanitize-recover=all \
   -I"$root/include" -I"$root/lib" -I"$root/tests/fuzz" \
   "$root"/lib/*.c "$root/tests/fuzz/ntr_contract.c" "$root/tests/fuzz/fuzz_natremia.c" \

@@ -11,23 +11,6 @@
 
 #include "natremia.h"
 
-/* Findings already reported, where the code and the header disagree. The
- * table follows the header; building with -DNTRC_TOLERATE_REPORTED follows
- * the code instead, so a long exploratory fuzzing run can look past them
- * (docs/reliability.md lists them). */
-#ifdef NTRC_TOLERATE_REPORTED
-#define RELOWER_HOURS {"hours", 1.0 / 60.0, 720.0, 0} /* code: at least one minute */
-#define URIC_ACID_HI 2.0                                /* code: NTR_URIC_ACID_MAX */
-#define FE_NONFINITE_OK 1 /* code: overflow to infinity for tiny denominators */
-#define RATE_NONFINITE_OK 1 /* code: last_rate_per_h overflows for times a subnormal apart */
-#define ONE_SAMPLE_FLAGS NTR_CF_NEAR_LIMIT /* code: near-limit with one sample when a limit < 2 */
-#else
-#define RELOWER_HOURS {"hours", 0.0, 720.0, 1} /* header: "above 0" */
-#define URIC_ACID_HI 5.0                       /* header: "0 to 5 mmol/L" */
-#define FE_NONFINITE_OK 0
-#define RATE_NONFINITE_OK 0
-#define ONE_SAMPLE_FLAGS 0u /* header: "One sample yields zeros and no flag" */
-#endif
 
 #define BIT(s) (1u << (s))
 #define COMMON_ERR (BIT(NTR_ERR_NULL) | BIT(NTR_ERR_NONFINITE) | BIT(NTR_ERR_RANGE))
@@ -485,9 +468,6 @@ static const char *ok_fractional_excretion(const ntrc_case *c)
 {
     const double *x = c->num;
     double expect = 100.0 * (x[0] * x[3]) / (x[1] * x[2]);
-    if (FE_NONFINITE_OK && !isfinite(c->out.d[0])) {
-        return NULL;
-    }
     if (!(c->out.d[0] >= 0.0)) {
         return "negative fractional excretion";
     }
@@ -953,7 +933,7 @@ static const char *judge_correction(const ntr_correction *r, const ntr_sample *s
                                     const ntr_limits *lim)
 {
     if (!isfinite(r->rise_first_24h) || !isfinite(r->max_rise_24h) ||
-        !isfinite(r->max_rise_48h) || (!RATE_NONFINITE_OK && !isfinite(r->last_rate_per_h)) ||
+        !isfinite(r->max_rise_48h) || !isfinite(r->last_rate_per_h) ||
         !isfinite(r->excess_mmol_l)) {
         return "a non-finite field";
     }
@@ -975,7 +955,7 @@ static const char *judge_correction(const ntr_correction *r, const ntr_sample *s
         (r->max_rise_48h > lim->max_rise_48h + NTR_CF_TOLERANCE)) {
         return "48 h over-limit flag disagrees with the rise";
     }
-    if (n == 1 && ((r->flags & ~ONE_SAMPLE_FLAGS) != 0u || r->max_rise_24h != 0.0 || r->last_rate_per_h != 0.0)) {
+    if (n == 1 && (r->flags != 0u || r->max_rise_24h != 0.0 || r->last_rate_per_h != 0.0)) {
         return "one sample must give zeros and no flag";
     }
     return NULL;
@@ -1076,8 +1056,14 @@ static void damage_watch(ntr_watch *w, int mode)
     case 2: w->magic ^= 0x10101010u; break;
     case 3: w->kept = NTR_WATCH_CAPACITY + 5u; break;
     case 4: memset(w, 0xff, sizeof *w); break;
-    case 5: w->front24 = w->kept; break;          /* window front past the kept samples */
-    case 6: w->seen = 0u; break;                  /* "nothing seen" yet samples kept */
+    case 5: /* window front past the kept samples (or a front with none kept) */
+        if (w->kept > 0u) {
+            w->front24 = w->kept;
+        } else {
+            w->seen = 1u;
+        }
+        break;
+    case 6: w->seen = w->kept > 0u ? 0u : 2u; break; /* "seen" disagrees with "kept" */
     case 7: w->limits.max_rise_24h = -1.0; break; /* limits no longer valid */
     default: w->head = NTR_WATCH_CAPACITY; break;  /* ring index outside the ring */
     }
@@ -2289,7 +2275,7 @@ const ntrc_fn ntrc_functions[] = {
             KNOWN("fe_na.known"), KNOWN("fe_urea.known"), KNOWN("fe_uric_acid.known")},
      .n_num = 8,
      .num = {OSM("effective_osm_mosm_kg"), {"urine_osm_mosm_kg", 10.0, 2000.0, 0}, U_NA,
-             {"uric_acid_mmol_l", 0.0, URIC_ACID_HI, 0}, {"urea_mmol_l", 0.0, 200.0, 0},
+             {"uric_acid_mmol_l", 0.0, 2.0, 0}, {"urea_mmol_l", 0.0, 200.0, 0},
              {"fe_na_percent", 0.0, 200.0, 0}, {"fe_urea_percent", 0.0, 200.0, 0},
              {"fe_uric_acid_percent", 0.0, 200.0, 0}},
      .n_in_ptr = 2, .statuses = OK_COMMON | ST(ERR_ARG),
@@ -2366,7 +2352,7 @@ const ntrc_fn ntrc_functions[] = {
      .extra_cases = extra_groups, .check_ok = ok_batch_correction},
     {CALL(relower_estimate), .n_num = 9,
      .num = {NA, TBW, {"fluid_na_mmol_l", 0.0, 1100.0, 0}, {"fluid_k_mmol_l", 0.0, 400.0, 0},
-             {"lower_by_mmol_l", 0.0, 50.0, 1}, RELOWER_HOURS,
+             {"lower_by_mmol_l", 0.0, 50.0, 1}, {"hours", 1.0 / 60.0, 720.0, 0},
              {"urine_ml_h", 0.0, 5000.0, 0}, U_NA, U_K},
      .n_out_d = 2, .statuses = OK_COMMON | ST(ERR_DOMAIN),
      .base_num = {131.0, 35.0, 0.0, 0.0, 3.0, 6.0, 100.0, 40.0, 20.0},
@@ -2524,7 +2510,7 @@ const char *ntrc_run_and_judge(const ntrc_fn *f, ntrc_case *c, int *status)
     if (!all_outputs_written(f, c, &before.out)) {
         return "success without writing every output";
     }
-    if (!finite_outputs(f, c) && !(FE_NONFINITE_OK && f->call == call_fractional_excretion)) {
+    if (!finite_outputs(f, c)) {
         return "success with a non-finite output";
     }
     return f->check_ok != NULL ? f->check_ok(c) : NULL;

@@ -1,0 +1,48 @@
+#!/usr/bin/env bash
+# Long fuzzing run of tests/fuzz/fuzz_natremia.c (every public entry point),
+# for the figures in docs/reliability.md.
+#
+# Runs libFuzzer in fork mode with -ignore_crashes, so one finding does not
+# end the run: each crashing input is saved and the run goes on. At the end
+# it prints executions, time, coverage and the distinct findings (one line
+# per distinct breach message or sanitizer report) and appends a line to
+# <out>/history.txt. The corpus is kept in <out>/corpus-long between runs.
+#
+# Usage: tests/fuzz-long.sh [SECONDS]     (default 1800)
+# Environment: NTR_FUZZ_OUT (default <NTR_BUILD_PREFIX or "build">-fuzz-long),
+# NTR_FUZZ_JOBS (parallel workers, default 1; the machine has 2 cores),
+# NTR_FUZZ_SEED (default 1), NTR_FUZZ_CFLAGS (extra compiler flags),
+# NTR_FUZZ_EXTRA_SANITIZE (default ",implicit-conversion"; see
+# tests/fuzz/build.sh).
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+seconds="${1:-1800}"
+out="${NTR_FUZZ_OUT:-${NTR_BUILD_PREFIX:-build}-fuzz-long}"
+jobs="${NTR_FUZZ_JOBS:-1}"
+seed="${NTR_FUZZ_SEED:-1}"
+mkdir -p "$out/corpus-long" "$out/findings"
+
+tests/fuzz/build.sh "$out" >"$out/build.log" 2>&1 || { cat "$out/build.log"; exit 1; }
+tests/fuzz/seeds.sh "$out/fuzz_natremia" "$out/corpus-long" >/dev/null
+log="$out/fuzz-long.log"
+start=$(date +%s)
+"$out/fuzz_natremia" -fork="$jobs" -ignore_crashes=1 -ignore_timeouts=1 -ignore_ooms=1 \
+  -max_total_time="$seconds" -seed="$seed" -timeout=10 -rss_limit_mb=2048 \
+  -artifact_prefix="$out/findings/" "$out/corpus-long" >"$log" 2>&1 || true
+elapsed=$(( $(date +%s) - start ))
+
+# Fork mode reports "#<execs>: cov: <edges> ft: <features> corp: <n> ..."
+last=$(grep -E '^#[0-9]+: cov:' "$log" | tail -n 1 || true)
+execs=$(sed -n 's/^#\([0-9]*\):.*/\1/p' <<<"$last")
+cov=$(sed -n 's/.* cov: \([0-9]*\).*/\1/p' <<<"$last")
+corp=$(sed -n 's/.* corp: \([0-9]*\).*/\1/p' <<<"$last")
+crashes=$(ls "$out/findings" 2>/dev/null | grep -c '^crash-' || true)
+distinct=$( { grep -hoE 'CONTRACT BREACH in [a-z_0-9]+: [^(]*' "$log" || true;
+              grep -hoE 'runtime error: .*|ERROR: AddressSanitizer: [a-z-]+' "$log" | sed 's/0x[0-9a-f]*//g' || true; } |
+            sort | uniq -c | sort -rn)
+n_distinct=$(grep -c . <<<"$distinct" || true)
+echo "fuzz-long: ${elapsed}s, ${execs:-?} executions, ${cov:-?} edges covered, corpus ${corp:-?}, ${crashes} crashing inputs, ${n_distinct} distinct findings"
+[ -n "$distinct" ] && echo "$distinct"
+echo "$(date -u +%Y-%m-%dT%H:%MZ) seconds=$elapsed jobs=$jobs seed=$seed execs=${execs:-?} edges=${cov:-?} corpus=${corp:-?} crashes=$crashes distinct=$n_distinct cflags='${NTR_FUZZ_CFLAGS:-}'" >>"$out/history.txt"
+[ "$crashes" -eq 0 ]
