@@ -1,7 +1,8 @@
 /* Scaling of ntr_correction_assess: time per sample for series of 10 to
  * 100,000 samples (issue P7: constant within 10%).
  *
- * One invented series of 100,000 sodium results is built (every 2 to 6 h,
+ * One invented series of 100,000 sodium results is built (dense: every 2
+ * to 6 h, as on a ward correcting a low sodium; sparse: every 8 to 12 h;
  * drifting up and down between 112 and 148 mmol/L, so windows rise, fall
  * and cross the limits); a series of length n is a run of n consecutive
  * results of it. For each n the program assesses runs one after another
@@ -9,10 +10,10 @@
  * the fastest pass: time per sample = best pass time / samples assessed.
  *
  * Usage:
- *   bench_scaling [total] [repeats]         table for every length
- *   bench_scaling one N TOTAL              one length only (for callgrind,
- *                                           which counts the instructions
- *                                           inside ntr_correction_assess)
+ *   bench_scaling [total] [repeats] [dense|sparse]   table for every length
+ *   bench_scaling one N TOTAL [dense|sparse]         one length only (for
+ *       callgrind, which counts the instructions inside
+ *       ntr_correction_assess)
  * Output lines: samples_per_series series samples best_s ns_per_sample
  * flagged (series with a flag raised, to show the work is real). */
 #define _POSIX_C_SOURCE 200809L
@@ -47,7 +48,8 @@ static double uniform(uint64_t *state)
     return (double)(x >> 11) / 9007199254740992.0;
 }
 
-static void build_series(void)
+/* Results every min_gap_h to min_gap_h + 4 hours. */
+static void build_series(double min_gap_h)
 {
     uint64_t seed = 0x2545f4914f6cdd1du;
     double t = 0.0, na = 120.0, drift = 0.35;
@@ -55,7 +57,7 @@ static void build_series(void)
     for (k = 0; k < LONGEST; k++) {
         series[k].hours = t;
         series[k].na_mmol_l = na;
-        t += 2.0 + 4.0 * uniform(&seed);
+        t += min_gap_h + 4.0 * uniform(&seed);
         na += drift * 4.0 * uniform(&seed) - 0.4 * uniform(&seed);
         if (na > 148.0) {
             drift = -0.2;
@@ -93,9 +95,18 @@ int main(int argc, char **argv)
     ntr_limits lim;
     size_t flagged = 0;
     int failed = 0;
-    build_series();
+    int one = argc > 1 && strcmp(argv[1], "one") == 0;
+    const char *spacing = argc > (one ? 4 : 3) ? argv[one ? 4 : 3] : "dense";
+    if (strcmp(spacing, "dense") == 0) {
+        build_series(2.0);
+    } else if (strcmp(spacing, "sparse") == 0) {
+        build_series(8.0);
+    } else {
+        fprintf(stderr, "bench_scaling: spacing is dense or sparse\n");
+        return 2;
+    }
     ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
-    if (argc > 1 && strcmp(argv[1], "one") == 0) {
+    if (one) {
         size_t n = argc > 2 ? (size_t)strtoull(argv[2], NULL, 10) : 10u;
         size_t total = argc > 3 ? (size_t)strtoull(argv[3], NULL, 10) : 1000000u;
         size_t done = assess_runs(n, total, &lim, &flagged, &failed);

@@ -106,19 +106,25 @@ else
 fi
 
 step "5. assessment cost per sample, series of 10 to 100,000"
-"$bench/bench_scaling" 1000000 15 >"$out/scaling.txt"
+for spacing in dense sparse; do
+    "$bench/bench_scaling" 1000000 15 "$spacing" >"$out/scaling_$spacing.txt"
+done
 if have valgrind; then
     {
         echo "{"
         sep=""
-        for n in 10 100 1000 10000 100000; do
-            valgrind --tool=callgrind --toggle-collect=ntr_correction_assess \
-                --callgrind-out-file="$out/scaling.$n.callgrind" \
-                "$bench/bench_scaling" one "$n" 200000 >"$out/scaling.$n.log" 2>/dev/null
-            samples=$(awk '{print $3}' "$out/scaling.$n.log")
-            ir=$(awk '/^(summary|totals):/ {print $2; exit}' "$out/scaling.$n.callgrind")
-            printf '%s "%s": %s\n' "$sep" "$n" "$(awk -v a="$ir" -v b="$samples" 'BEGIN {printf "%.3f", a / b}')"
-            sep=","
+        for spacing in dense sparse; do
+            for n in 10 100 1000 10000 100000; do
+                valgrind --tool=callgrind --toggle-collect=ntr_correction_assess \
+                    --callgrind-out-file="$out/scaling.$spacing.$n.callgrind" \
+                    "$bench/bench_scaling" one "$n" 200000 "$spacing" \
+                    >"$out/scaling.$spacing.$n.log" 2>/dev/null
+                samples=$(awk '{print $3}' "$out/scaling.$spacing.$n.log")
+                ir=$(awk '/^(summary|totals):/ {print $2; exit}' "$out/scaling.$spacing.$n.callgrind")
+                printf '%s "%s %s": %s\n' "$sep" "$spacing" "$n" \
+                    "$(awk -v a="$ir" -v b="$samples" 'BEGIN {printf "%.3f", a / b}')"
+                sep=","
+            done
         done
         echo "}"
     } >"$out/scaling_ir.json"
