@@ -70,7 +70,10 @@ json.dump({
     "kernel": platform.system() + " " + platform.release(),
     "cc": (run("cc", "--version").splitlines() or ["?"])[0],
     "python": platform.python_version(),
-    "commit": run("git", "-C", sys.argv[2], "rev-parse", "--short", "HEAD").strip() or "?",
+    "commit": (run("git", "-C", sys.argv[2], "rev-parse", "--short", "HEAD").strip() or "?")
+              + (" with uncommitted changes in lib/ or include/"
+                 if run("git", "-C", sys.argv[2], "status", "--porcelain", "--",
+                        "lib", "include").strip() else ""),
     "date": time.strftime("%Y-%m-%d %H:%M UTC", time.gmtime()),
 }, open(sys.argv[1], "w"))
 PY
