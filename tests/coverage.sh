@@ -12,6 +12,12 @@
 # "build"): the build dir is <prefix>-coverage; the report is written to
 # <prefix>-coverage/coverage.txt (per file, with uncovered lines).
 set -euo pipefail
+# Run a command with its output kept back, shown only when it fails.
+quiet() {
+  local log
+  log=$(mktemp)
+  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
+}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 dir="${NTR_BUILD_PREFIX:-build}-coverage"
@@ -30,12 +36,12 @@ if [ ${#need[@]} -gt 0 ]; then
 fi
 
 if [ -f "$dir/meson-private/coredata.dat" ]; then
-  meson setup --reconfigure "$dir" -Db_coverage=true -Dbuildtype=debug >/dev/null
+  quiet meson setup --reconfigure "$dir" -Db_coverage=true -Dbuildtype=debug
 else
   rm -rf "$dir"
-  meson setup "$dir" -Db_coverage=true -Dbuildtype=debug >/dev/null
+  quiet meson setup "$dir" -Db_coverage=true -Dbuildtype=debug
 fi
-ninja -C "$dir" >/dev/null
+quiet ninja -C "$dir"
 find "$dir" -name '*.gcda' -delete
 meson test -C "$dir" --suite unit --suite examples --num-processes 2 >"$dir/coverage-tests.log" 2>&1 ||
   echo "coverage.sh: note: some tests failed (see $dir/coverage-tests.log); coverage counts what ran"

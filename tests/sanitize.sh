@@ -17,6 +17,12 @@
 # Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
 # <prefix>-sanitize and <prefix>-valgrind.
 set -euo pipefail
+# Run a command with its output kept back, shown only when it fails.
+quiet() {
+  local log
+  log=$(mktemp)
+  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
+}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 prefix="${NTR_BUILD_PREFIX:-build}"
@@ -38,10 +44,10 @@ setup() { # builddir options...
   local dir="$1"
   shift
   if [ -f "$dir/meson-private/coredata.dat" ]; then
-    meson setup --reconfigure "$dir" "$@" >/dev/null || meson setup --wipe "$dir" "$@" >/dev/null
+    quiet meson setup --reconfigure "$dir" "$@" || quiet meson setup --wipe "$dir" "$@"
   else
     rm -rf "$dir"
-    meson setup "$dir" "$@" >/dev/null
+    quiet meson setup "$dir" "$@"
   fi
 }
 
@@ -52,7 +58,7 @@ for m in "${modes[@]}"; do
   asan)
     dir="$prefix-sanitize"
     setup "$dir" -Db_sanitize=address,undefined -Db_lundef=false -Dbuildtype=debugoptimized
-    ninja -C "$dir" >/dev/null
+    quiet ninja -C "$dir"
     if ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:strict_string_checks=1:detect_stack_use_after_return=1 \
        UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
        meson test -C "$dir" --no-suite build --no-suite bindings --no-suite fuzz --no-suite cross --num-processes 2 \
@@ -67,7 +73,7 @@ for m in "${modes[@]}"; do
   valgrind)
     dir="$prefix-valgrind"
     setup "$dir" -Dbuildtype=debugoptimized
-    ninja -C "$dir" >/dev/null
+    quiet ninja -C "$dir"
     if meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 10 \
          --wrap='valgrind --error-exitcode=1 --leak-check=full --errors-for-leak-kinds=definite,indirect --quiet' \
          --print-errorlogs >"$dir/valgrind.log" 2>&1; then

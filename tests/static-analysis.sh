@@ -19,6 +19,12 @@
 # Usage: tests/static-analysis.sh     Environment: NTR_BUILD_PREFIX
 # (default "build"): compile commands come from <prefix>-analysis.
 set -euo pipefail
+# Run a command with its output kept back, shown only when it fails.
+quiet() {
+  local log
+  log=$(mktemp)
+  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
+}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 dir="${NTR_BUILD_PREFIX:-build}-analysis"
@@ -71,7 +77,7 @@ rm -f "/tmp/ntr-cppcheck.$$"
 
 if [ ! -f "$dir/compile_commands.json" ]; then
   rm -rf "$dir"
-  meson setup "$dir" >/dev/null
+  quiet meson setup "$dir"
 fi
 checks='-*,clang-analyzer-*,bugprone-*,-bugprone-easily-swappable-parameters,cert-*,-cert-err33-c,misc-*,-misc-unused-parameters,performance-*,portability-*'
 findings=0
