@@ -12,7 +12,9 @@
  * speed. Each kernel computes its value unconditionally (NaN or infinity in
  * a bad row is harmless: the value is then replaced) and its status as a
  * chain of checks in argument order, the same order the scalar functions
- * use. */
+ * use. Builds for size (-Os) are the exception: there code, not speed, is
+ * scarce, and each entry point is a loop over the scalar function
+ * (NTR_BATCH_LOOPS below). */
 #include "ntr_internal.h"
 
 /* Same constants as the scalar areas use (lib/sodium.c, lib/water.c and the
@@ -54,7 +56,16 @@ static inline double row_value(int status, double value)
  * near memory speed (tests/bench/run-bench.sh). GCC and Clang vector
  * extensions; any other compiler or target uses the scalar kernels alone.
  */
-#if defined(__GNUC__) && (defined(__SSE2__) || defined(__aarch64__)) && \
+/* Size-optimised builds (-Os) use plain loops over the scalar functions
+ * instead of the kernels (see below). */
+#if defined(__OPTIMIZE_SIZE__)
+#define NTR_BATCH_LOOPS 1
+#else
+#define NTR_BATCH_LOOPS 0
+#endif
+
+#if !NTR_BATCH_LOOPS && defined(__GNUC__) && \
+    (defined(__SSE2__) || defined(__aarch64__)) && \
     (defined(__clang__) || __GNUC__ >= 9)
 #define NTR_PAIRS 1
 #if defined(__SSE2__)
@@ -209,6 +220,327 @@ static int finish(size_t n, const int *status, size_t bad, size_t *failed)
     }
     return NTR_OK; /* not reached: bad > 0 means some status is set */
 }
+
+#if NTR_BATCH_LOOPS
+/* ---- size-optimised builds: a loop over the scalar function ----------
+ *
+ * Built for size (-Os, as firmware is), each entry point is a plain loop
+ * that calls the scalar function row by row: identical results and
+ * statuses by construction, in a fraction of the code of the kernels
+ * below (tests/bench/firmware.py). A failed row's value is FAILED_ROW
+ * because every scalar function leaves its output untouched on an error.
+ * Each row's inputs are passed by value before its output is written, so
+ * an output column may be one of the input columns, as documented. */
+
+/* Store one row's status and count it when it failed. */
+static size_t row_status(int st, int *status, size_t i)
+{
+    status[i] = st;
+    return st != NTR_OK;
+}
+
+int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
+                             const double *glucose_mmol_l,
+                             const double *urea_mmol_l,
+                             const double *ethanol_mmol_l, int formula,
+                             double *out, int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || glucose_mmol_l == NULL || urea_mmol_l == NULL ||
+        ethanol_mmol_l == NULL || out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    if (formula != NTR_OSM_2NA && formula != NTR_OSM_DORWART_CHALMERS) {
+        return NTR_ERR_ARG;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_osm_calculated(na_mmol_l[i], glucose_mmol_l[i],
+                                    urea_mmol_l[i], ethanol_mmol_l[i],
+                                    formula, &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
+                            const double *glucose_mmol_l, double *out,
+                            int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || glucose_mmol_l == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_osm_effective(na_mmol_l[i], glucose_mmol_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
+                      const double *calculated_mosm_kg, double *out,
+                      int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (measured_mosm_kg == NULL || calculated_mosm_kg == NULL ||
+        out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_osm_gap(measured_mosm_kg[i], calculated_mosm_kg[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
+                                   const double *glucose_mmol_l, int method,
+                                   double *out, int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || glucose_mmol_l == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    if (method != NTR_GLUCOSE_KATZ && method != NTR_GLUCOSE_HILLIER) {
+        return NTR_ERR_ARG;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_na_corrected_glucose(na_mmol_l[i], glucose_mmol_l[i],
+                                          method, &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_na_deficit(size_t n, const double *tbw_l,
+                         const double *na_mmol_l,
+                         const double *target_na_mmol_l, double *out,
+                         int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (tbw_l == NULL || na_mmol_l == NULL || target_na_mmol_l == NULL ||
+        out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_na_deficit(tbw_l[i], na_mmol_l[i], target_na_mmol_l[i],
+                                &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_tbw_fraction(size_t n, const int *sex, const double *age_years,
+                           const double *weight_kg, double *out, int *status,
+                           size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (sex == NULL || age_years == NULL || weight_kg == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_tbw_fraction(sex[i], age_years[i], weight_kg[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_tbw_watson(size_t n, const int *sex, const double *age_years,
+                         const double *height_cm, const double *weight_kg,
+                         double *out, int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (sex == NULL || age_years == NULL || height_cm == NULL ||
+        weight_kg == NULL || out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_tbw_watson(sex[i], age_years[i], height_cm[i],
+                                weight_kg[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
+                                 const double *na_mmol_l, double *out,
+                                 int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (tbw_l == NULL || na_mmol_l == NULL || out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_free_water_deficit(tbw_l[i], na_mmol_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_infusate_change_per_litre(size_t n, const double *na_mmol_l,
+                                        const double *tbw_l,
+                                        const double *infusate_na_mmol_l,
+                                        const double *infusate_k_mmol_l,
+                                        double *out, int *status,
+                                        size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
+        infusate_k_mmol_l == NULL || out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_infusate_change_per_litre(na_mmol_l[i], tbw_l[i],
+                                               infusate_na_mmol_l[i],
+                                               infusate_k_mmol_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
+                              const double *tbw_l,
+                              const double *infusate_na_mmol_l,
+                              const double *infusate_k_mmol_l,
+                              const double *volume_l, double *out,
+                              int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
+        infusate_k_mmol_l == NULL || volume_l == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_infusate_change(na_mmol_l[i], tbw_l[i],
+                                     infusate_na_mmol_l[i],
+                                     infusate_k_mmol_l[i], volume_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
+                                         const double *tbw_l,
+                                         const double *infusate_na_mmol_l,
+                                         const double *infusate_k_mmol_l,
+                                         const double *target_delta_mmol_l,
+                                         double *out, int *status,
+                                         size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
+        infusate_k_mmol_l == NULL || target_delta_mmol_l == NULL ||
+        out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_infusate_volume_for_change(na_mmol_l[i], tbw_l[i],
+                                                infusate_na_mmol_l[i],
+                                                infusate_k_mmol_l[i],
+                                                target_delta_mmol_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
+                          const double *urine_k_mmol_l,
+                          const double *serum_na_mmol_l, double *out,
+                          int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (urine_na_mmol_l == NULL || urine_k_mmol_l == NULL ||
+        serum_na_mmol_l == NULL || out == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_furst_ratio(urine_na_mmol_l[i], urine_k_mmol_l[i],
+                                 serum_na_mmol_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
+                                     int *advice, int *status, size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (ratio == NULL || advice == NULL || status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        int a = 0; /* a failed row's advice */
+        int st = ntr_restriction_from_ratio(ratio[i], &a);
+        advice[i] = a;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+int ntr_batch_efwc(size_t n, const double *urine_volume_l,
+                   const double *urine_na_mmol_l, const double *urine_k_mmol_l,
+                   const double *serum_na_mmol_l, double *out, int *status,
+                   size_t *failed)
+{
+    size_t i;
+    size_t bad = 0;
+    if (urine_volume_l == NULL || urine_na_mmol_l == NULL ||
+        urine_k_mmol_l == NULL || serum_na_mmol_l == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < n; i++) {
+        double v = FAILED_ROW;
+        int st = ntr_efwc(urine_volume_l[i], urine_na_mmol_l[i],
+                          urine_k_mmol_l[i], serum_na_mmol_l[i], &v);
+        out[i] = v;
+        bad += row_status(st, status, i);
+    }
+    return finish(n, status, bad, failed);
+}
+
+#else /* !NTR_BATCH_LOOPS: the row kernels */
 
 /* ---- osmolality ------------------------------------------------------ */
 
@@ -1334,6 +1666,8 @@ int ntr_batch_efwc(size_t n, const double *urine_volume_l,
                      serum_na_mmol_l, out, status);
     return finish(n, status, bad, failed);
 }
+
+#endif /* NTR_BATCH_LOOPS */
 
 /* ---- correction assessment of many series ---------------------------- */
 
