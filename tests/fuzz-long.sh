@@ -27,6 +27,7 @@ tests/fuzz/build.sh "$out" >"$out/build.log" 2>&1 || { cat "$out/build.log"; exi
 tests/fuzz/seeds.sh "$out/fuzz_natremia" "$out/corpus-long" >/dev/null
 log="$out/fuzz-long.log"
 start=$(date +%s)
+touch "$out/.run-start"
 "$out/fuzz_natremia" -fork="$jobs" -ignore_crashes=1 -ignore_timeouts=1 -ignore_ooms=1 \
   -max_total_time="$seconds" -seed="$seed" -timeout=10 -rss_limit_mb=2048 \
   -artifact_prefix="$out/findings/" "$out/corpus-long" >"$log" 2>&1 || true
@@ -37,7 +38,8 @@ last=$(grep -E '^#[0-9]+: cov:' "$log" | tail -n 1 || true)
 execs=$(sed -n 's/^#\([0-9]*\):.*/\1/p' <<<"$last")
 cov=$(sed -n 's/.* cov: \([0-9]*\).*/\1/p' <<<"$last")
 corp=$(sed -n 's/.* corp: \([0-9]*\).*/\1/p' <<<"$last")
-crashes=$(ls "$out/findings" 2>/dev/null | grep -c '^crash-' || true)
+# Findings of this run only (older ones stay in findings/ for reference).
+crashes=$(find "$out/findings" -name 'crash-*' -newer "$out/.run-start" | wc -l)
 distinct=$( { grep -hoE 'CONTRACT BREACH in [a-z_0-9]+: [^(]*' "$log" || true;
               grep -hoE 'runtime error: .*|ERROR: AddressSanitizer: [a-z-]+' "$log" | sed 's/0x[0-9a-f]*//g' || true; } |
             sort | uniq -c | sort -rn)

@@ -4,6 +4,10 @@
  *   refvectors              print the vectors
  *   refvectors --check FILE compare with FILE; exit 1 on any difference
  *
+ * Doubles are written by put_hex_double(), which gives exactly the GNU C
+ * library's %a text from the bits, so a C library without %a (newlib on
+ * the Cortex-M4) prints the same file.
+ *
  * The input set comes from the contract table (tests/fuzz/ntr_contract.c):
  * each function's valid baseline, the ends of every documented range, a
  * spread of points inside it for every enumerator choice, and series built
@@ -30,12 +34,80 @@ typedef struct out_buf {
     size_t len;
 } out_buf;
 
+static void put_str(out_buf *b, const char *s);
+
+/* A double as C99's %a prints it with the GNU C library ("0x1.8p+1",
+ * "0x0.0000000000001p-1022", "-0x0p+0", "inf", "-nan"), written out here
+ * from the bits so that every C library -- newlib on the Cortex-M4 has no
+ * %a -- gives the same text. */
+static void put_hex_double(out_buf *b, double x)
+{
+    static const char digits[] = "0123456789abcdef";
+    char text[40];
+    size_t n = 0;
+    uint64_t bits;
+    uint64_t mant;
+    int exp;
+    int lead;
+    int i;
+    int last;
+    memcpy(&bits, &x, sizeof bits);
+    mant = bits & 0xfffffffffffffull;
+    exp = (int)((bits >> 52) & 0x7ffu);
+    if (bits >> 63) {
+        text[n++] = '-';
+    }
+    if (exp == 0x7ff) {
+        memcpy(text + n, mant ? "nan" : "inf", 4);
+        put_str(b, text);
+        return;
+    }
+    if (exp == 0 && mant == 0) {
+        memcpy(text + n, "0x0p+0", 7);
+        put_str(b, text);
+        return;
+    }
+    lead = exp == 0 ? 0 : 1;
+    exp = exp == 0 ? -1022 : exp - 1023;
+    text[n++] = '0';
+    text[n++] = 'x';
+    text[n++] = (char)('0' + lead);
+    last = -1;
+    for (i = 0; i < 13; i++) {
+        if ((mant >> (48 - 4 * i)) & 0xfu) {
+            last = i;
+        }
+    }
+    if (last >= 0) {
+        text[n++] = '.';
+        for (i = 0; i <= last; i++) {
+            text[n++] = digits[(mant >> (48 - 4 * i)) & 0xfu];
+        }
+    }
+    text[n++] = 'p';
+    text[n++] = exp < 0 ? '-' : '+';
+    {
+        char rev[8];
+        int k = 0;
+        unsigned int e = (unsigned int)(exp < 0 ? -exp : exp);
+        do {
+            rev[k++] = (char)('0' + e % 10u);
+            e /= 10u;
+        } while (e != 0u);
+        while (k > 0) {
+            text[n++] = rev[--k];
+        }
+    }
+    text[n] = '\0';
+    put_str(b, text);
+}
+
+/* " " followed by the double. */
 static void put(out_buf *b, const char *fmt, double x)
 {
-    int k = snprintf(b->text + b->len, sizeof b->text - b->len, fmt, x);
-    if (k > 0 && b->len + (size_t)k < sizeof b->text) {
-        b->len += (size_t)k;
-    }
+    (void)fmt;
+    put_str(b, " ");
+    put_hex_double(b, x);
 }
 
 static void put_int(out_buf *b, const char *fmt, long x)
@@ -146,11 +218,19 @@ static void emit_case(const ntrc_fn *f, ntrc_case *c, int idx, int with_series, 
     }
     put_str(&b, " |");
     for (i = 0; i < f->n_num; i++) {
-        put(&b, " %a", c->num[i]);
+        put(&b, "%a", c->num[i]);
     }
     if (with_series) {
-        char hex[24];
-        snprintf(hex, sizeof hex, " s%016llx", (unsigned long long)series_print(c));
+        static const char digits[] = "0123456789abcdef";
+        char hex[20];
+        uint64_t h = series_print(c);
+        int k;
+        hex[0] = ' ';
+        hex[1] = 's';
+        for (k = 0; k < 16; k++) {
+            hex[2 + k] = digits[(h >> (60 - 4 * k)) & 0xfu];
+        }
+        hex[18] = '\0';
         put_str(&b, hex);
     }
     ntrc_fill_sentinel(c);
@@ -171,7 +251,7 @@ static void emit_case(const ntrc_fn *f, ntrc_case *c, int idx, int with_series, 
             }
         }
         for (i = 0; i < nv; i++) {
-            put(&b, " %a", vals[i]);
+            put(&b, "%a", vals[i]);
         }
     }
     fprintf(to, "%s\n", b.text);
@@ -265,13 +345,13 @@ static void emit_batch(const ntrc_batch_fn *bf, FILE *to)
         put_str(&line, bf->name);
         put_int(&line, " row %ld |", (long)i);
         for (k = 0; k < bf->n_cols; k++) {
-            put(&line, " %a", b.col[k][i]);
+            put(&line, "%a", b.col[k][i]);
         }
         put_int(&line, " -> %ld", b.status[i]);
         if (bf->int_out) {
             put_int(&line, " %ld", b.out_i[i]);
         } else {
-            put(&line, " %a", b.out[i]);
+            put(&line, "%a", b.out[i]);
         }
         fprintf(to, "%s\n", line.text);
     }
@@ -293,6 +373,42 @@ static void emit_all(FILE *to)
     }
 }
 
+/* Where the C library has %a (glibc), require put_hex_double() to write
+ * exactly its text for special values and 100000 random bit patterns. */
+static int formatter_matches_libc(void)
+{
+#ifdef __GLIBC__
+    const double special[] = {0.0, -0.0, 1.0, -1.5, 0.1, 4.9406564584124654e-324,
+                              2.2250738585072009e-308, 2.2250738585072014e-308,
+                              1.7976931348623157e308, HUGE_VAL, -HUGE_VAL, NAN, -NAN};
+    lcg_state g;
+    size_t i;
+    g.s = 99u;
+    for (i = 0; i < 100000 + sizeof special / sizeof special[0]; i++) {
+        out_buf mine;
+        char libc[64];
+        double x;
+        if (i < sizeof special / sizeof special[0]) {
+            x = special[i];
+        } else {
+            uint64_t bits = ((uint64_t)lcg_next(&g) << 40) ^ ((uint64_t)lcg_next(&g) << 20) ^
+                            (uint64_t)lcg_next(&g);
+            memcpy(&x, &bits, sizeof x);
+        }
+        mine.len = 0;
+        mine.text[0] = '\0';
+        put_hex_double(&mine, x);
+        snprintf(libc, sizeof libc, "%a", x);
+        if (strcmp(mine.text, libc) != 0) {
+            fprintf(stderr, "refvectors: hex formatter wrote %s where %%a writes %s\n", mine.text,
+                    libc);
+            return 0;
+        }
+    }
+#endif
+    return 1;
+}
+
 /* Compare the vectors with a file, line by line. */
 static int check(const char *path)
 {
@@ -304,6 +420,9 @@ static int check(const char *path)
     long differ = 0;
     if (want == NULL || got == NULL) {
         fprintf(stderr, "refvectors: cannot open %s or a temporary file\n", path);
+        return 1;
+    }
+    if (!formatter_matches_libc()) {
         return 1;
     }
     emit_all(got);
