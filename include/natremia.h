@@ -1606,6 +1606,13 @@ NTR_API int ntr_correction_assess(const ntr_sample *s, size_t n,
  * bytes and restored on the same platform. The members are private: read
  * results through ntr_watch_push() or ntr_watch_result(). Size: 2200
  * bytes on common 32- and 64-bit targets.
+ *
+ * ntr_watch_init() does not clear @c ring: the bytes of ring entries that
+ * no push has used yet are unspecified (whatever the memory held before;
+ * the library never reads them). Copies and stored bytes restore
+ * correctly all the same. To compare two states byte by byte, or to store
+ * one without stale memory in it, set the struct to zero (memset) before
+ * ntr_watch_init().
  */
 typedef struct ntr_watch {
     unsigned int magic;      /**< private: marks an initialised state */

@@ -1028,6 +1028,40 @@ static void watcher_rejects_bad_inputs(void **state)
     assert_untouched(&c);
 }
 
+/* A state whose limits were overwritten is refused exactly when
+ * ntr_watch_init() would refuse those limits (the watcher checks them on
+ * every call by a shorter route). Property over every combination of
+ * boundary and ordinary values, NaN and the infinities included. */
+static void watcher_refuses_exactly_the_limits_init_refuses(void **state)
+{
+    const double values[] = {-HUGE_VAL, -1.0, -0.0, 0.0, 1e-300, 4.0, 8.0, 10.0,
+                             18.0, 50.0, 50.000000000000007, 51.0, HUGE_VAL, (double)NAN};
+    ntr_limits lim = standard();
+    ntr_watch fed, w, probe;
+    ntr_correction c;
+    size_t a, b, m;
+    (void)state;
+    assert_int_equal(ntr_watch_init(&lim, &fed), NTR_OK);
+    assert_int_equal(ntr_watch_push(&fed, 0.0, 118.0, &c), NTR_OK);
+    for (a = 0; a < COUNT(values); a++) {
+        for (b = 0; b < COUNT(values); b++) {
+            for (m = 0; m < COUNT(values); m++) {
+                ntr_limits damaged;
+                int init_ok;
+                damaged.max_rise_24h = values[a];
+                damaged.max_rise_48h = values[b];
+                damaged.min_rise_24h = values[m];
+                init_ok = ntr_watch_init(&damaged, &probe) == NTR_OK;
+                memcpy(&w, &fed, sizeof w);
+                w.limits = damaged;
+                assert_int_equal(ntr_watch_result(&w, &c), init_ok ? NTR_OK : NTR_ERR_ARG);
+                assert_int_equal(ntr_watch_push(&w, 1.0, 119.0, &c),
+                                 init_ok ? NTR_OK : NTR_ERR_ARG);
+            }
+        }
+    }
+}
+
 /* A stored state (its bytes copied elsewhere) carries on identically. */
 static void watcher_state_can_be_stored_and_restored(void **state)
 {
@@ -1091,6 +1125,7 @@ int main(void)
         cmocka_unit_test(watcher_capacity_is_as_documented),
         cmocka_unit_test(watcher_rejects_bad_inputs),
         cmocka_unit_test(watcher_state_can_be_stored_and_restored),
+        cmocka_unit_test(watcher_refuses_exactly_the_limits_init_refuses),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -1264,6 +1264,10 @@ const char *ntrc_watch_replay(const ntr_limits *lim, const ntr_sample *s, size_t
     size_t i;
     size_t k = 0;
     *accepted = 0;
+    /* The ring entries a watcher has not used yet are left as they were
+     * (header: ntr_watch); clearing the state first makes every byte of
+     * the comparison below defined. */
+    memset(&w, 0, sizeof w);
     if (ntr_watch_init(lim, &w) != NTR_OK) {
         return NULL; /* bad limits: judged by the ntr_watch_init entry */
     }
