@@ -517,10 +517,16 @@ static const ntr_sample *ring_at(const ntr_watch *w, unsigned int k)
  * and needs only yes or no, so it is worth a third of the instructions. */
 static int limits_sound(const ntr_limits *lim)
 {
+#if defined(__OPTIMIZE_SIZE__)
+    /* Built for size, the one full check serves: on a processor without
+     * double-precision hardware every comparison is a library call. */
+    return ntri_limits_check(lim) == NTR_OK;
+#else
     return lim->min_rise_24h >= 0.0 &&
            lim->min_rise_24h <= lim->max_rise_24h &&
            lim->max_rise_24h <= lim->max_rise_48h &&
            lim->max_rise_48h <= NTR_LIMIT_MAX && lim->max_rise_24h > 0.0;
+#endif
 }
 
 /* Cheap structural checks, so a damaged or uninitialised state can never
