@@ -1,14 +1,13 @@
 /* Provenance: name, equation, reference and population of every method id
  * (docs/methods.md).
  *
- * One switch is the single source of truth: ntr_method_info() reads it and
- * ntr_method_next() walks it, so adding a method means adding one case in
- * the block of its area. The strings are literals (read-only data, no
+ * One switch holds the descriptions: ntr_method_info() reads it. Beside it,
+ * method_runs lists the same ids as runs of consecutive ids for
+ * ntr_method_next(), so adding a method means adding one case in the block
+ * of its area and extending (or adding) its run; the method tests fail
+ * until the two agree. The strings are literals (read-only data, no
  * relocated pointer table), and no state is kept. */
 #include "ntr_internal.h"
-
-/* Ids are positive and below this bound (header: ntr_method_next). */
-#define METHOD_ID_LIMIT 1000
 
 static int entry(struct ntr_method_info *info, int method, const char *name,
                  const char *equation, const char *reference,
@@ -332,19 +331,33 @@ int ntr_method_info(int method, struct ntr_method_info *out)
     return describe(method, out);
 }
 
+/* The ids describe() knows, as runs of consecutive ids in increasing
+ * order, one run per area, all positive and below 1000 (header:
+ * ntr_method_next). They must cover exactly the cases of
+ * describe(): tests/test_methods.c (info_and_next_agree) checks that over
+ * the whole id space, and that the walk finds exactly the ids the header
+ * defines. Three runs cost a few comparisons; walking the switch id by id
+ * cost a call per id tried (68 instructions for the next id, about a
+ * thousand calls past the last one; tests/bench/run-bench.sh). */
+static const struct {
+    int first;
+    int last;
+} method_runs[] = {
+    {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
+    {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_RELOWER},       /* correction, 30-49 */
+    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_SIAD_CRITERIA}};    /* work-up, 50-69 */
+
 int ntr_method_next(int after, int *next)
 {
-    struct ntr_method_info scratch;
-    int id;
+    size_t k;
     if (next == NULL) {
         return NTR_ERR_NULL;
     }
-    /* The table is a switch, so walk the id space; it is small. Starting
-     * from a clamped value also keeps id + 1 from overflowing. */
-    id = after < 0 ? 0 : (after < METHOD_ID_LIMIT ? after : METHOD_ID_LIMIT);
-    for (id = id + 1; id < METHOD_ID_LIMIT; id++) {
-        if (describe(id, &scratch) == NTR_OK) {
-            *next = id;
+    for (k = 0; k < sizeof method_runs / sizeof method_runs[0]; k++) {
+        /* after < last also keeps after + 1 from overflowing. */
+        if (after < method_runs[k].last) {
+            *next = after < method_runs[k].first ? method_runs[k].first
+                                                 : after + 1;
             return NTR_OK;
         }
     }
