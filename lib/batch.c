@@ -17,12 +17,9 @@
  * (NTR_BATCH_LOOPS below). */
 #include "ntr_internal.h"
 
-/* Same constants as the scalar areas use (lib/sodium.c, lib/water.c and the
- * Dorwart-Chalmers regression in lib/osmolality.c). */
-#define GLUCOSE_MG_DL_PER_MMOL_L 18.0156
-#define GLUCOSE_REFERENCE_MG_DL 100.0
-#define KATZ_FACTOR 1.6
-#define HILLIER_FACTOR 2.4
+/* Same constants as the scalar areas use (lib/water.c and the
+ * Dorwart-Chalmers regression in lib/osmolality.c; the glucose correction's
+ * are shared through ntr_internal.h). */
 #define DC_NA_COEFFICIENT 1.86
 #define DC_INTERCEPT 9.0
 #define NORMAL_NA_MMOL_L 140.0
@@ -776,12 +773,12 @@ static inline int pair_na_corrected_glucose(const double *na,
                                             double *out, int *status, size_t i)
 {
     ntr_pair a = pair_load(na + i), g = pair_load(glucose + i);
-    ntr_pair mg_dl, reference = pair_splat(GLUCOSE_REFERENCE_MG_DL);
+    ntr_pair mg_dl, reference = pair_splat(NTR_GLUCOSE_REFERENCE_MG_DL);
     if (!pair_all(pair_and(pair_in(a, NTR_NA_MIN, NTR_NA_MAX),
                            pair_in(g, 0.0, NTR_GLUCOSE_MAX)))) {
         return 0;
     }
-    mg_dl = g * pair_splat(GLUCOSE_MG_DL_PER_MMOL_L);
+    mg_dl = g * pair_splat(NTR_GLUCOSE_MG_DL_PER_MMOL_L);
     pair_store(out + i,
                pair_select(pair_le(mg_dl, reference), a,
                            a + pair_splat(factor) * (mg_dl - reference) /
@@ -802,11 +799,11 @@ static NTR_ROWS size_t rows_na_corrected_glucose(size_t from, size_t to,
     for (i = from; i < to; i++) {
         double na = na_mmol_l[i];
         double glucose = glucose_mmol_l[i];
-        double glucose_mg_dl = glucose * GLUCOSE_MG_DL_PER_MMOL_L;
+        double glucose_mg_dl = glucose * NTR_GLUCOSE_MG_DL_PER_MMOL_L;
         double corrected =
-            glucose_mg_dl <= GLUCOSE_REFERENCE_MG_DL
+            glucose_mg_dl <= NTR_GLUCOSE_REFERENCE_MG_DL
                 ? na
-                : na + factor * (glucose_mg_dl - GLUCOSE_REFERENCE_MG_DL) / 100.0;
+                : na + factor * (glucose_mg_dl - NTR_GLUCOSE_REFERENCE_MG_DL) / 100.0;
         int st = first_error(ntr_check_na(na),
                              ntr_check(glucose, 0.0, NTR_GLUCOSE_MAX));
         out[i] = row_value(st, corrected);
@@ -828,9 +825,9 @@ int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
         return NTR_ERR_NULL;
     }
     if (method == NTR_GLUCOSE_KATZ) {
-        factor = KATZ_FACTOR;
+        factor = NTR_KATZ_FACTOR;
     } else if (method == NTR_GLUCOSE_HILLIER) {
-        factor = HILLIER_FACTOR;
+        factor = NTR_HILLIER_FACTOR;
     } else {
         return NTR_ERR_ARG;
     }

@@ -84,6 +84,28 @@ static inline int ntr_check_tbw(double tbw_l)
     return ntr_check(tbw_l, NTR_TBW_MIN, NTR_TBW_MAX);
 }
 
+/* Glucose-corrected sodium (Katz, Hillier, or a caller's factor per
+ * 100 mg/dL) of inputs already checked: ntr_na_corrected_glucose_factor()
+ * and the work-up's ntr_low_na_tonicity() share it, so both give the same
+ * value bit for bit without the second validating call. Constants: glucose
+ * molar mass 180.156 g/mol / 10 (mg/dL per mmol/L); both published
+ * corrections start at 100 mg/dL. */
+#define NTR_GLUCOSE_MG_DL_PER_MMOL_L 18.0156
+#define NTR_GLUCOSE_REFERENCE_MG_DL 100.0
+#define NTR_KATZ_FACTOR 1.6
+#define NTR_HILLIER_FACTOR 2.4
+static inline double ntri_glucose_corrected(double na_mmol_l,
+                                            double glucose_mmol_l,
+                                            double factor_per_100mg_dl)
+{
+    double glucose_mg_dl = glucose_mmol_l * NTR_GLUCOSE_MG_DL_PER_MMOL_L;
+    if (glucose_mg_dl <= NTR_GLUCOSE_REFERENCE_MG_DL) {
+        return na_mmol_l;
+    }
+    return na_mmol_l + factor_per_100mg_dl *
+                           (glucose_mg_dl - NTR_GLUCOSE_REFERENCE_MG_DL) / 100.0;
+}
+
 /* Evaluate a check and return its status from the caller if it failed. */
 #define NTR_TRY(expr)                     \
     do {                                  \

@@ -69,22 +69,26 @@ int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
                         double measured_osm_mosm_kg, int glucose_method,
                         int *tonicity, unsigned int *flags)
 {
+    double factor;
     double na_corrected;
     int measured_class;
     unsigned int found = 0u;
     if (tonicity == NULL || flags == NULL) {
         return NTR_ERR_NULL;
     }
-    if (glucose_method != NTR_GLUCOSE_KATZ &&
-        glucose_method != NTR_GLUCOSE_HILLIER) {
+    if (glucose_method == NTR_GLUCOSE_KATZ) {
+        factor = NTR_KATZ_FACTOR;
+    } else if (glucose_method == NTR_GLUCOSE_HILLIER) {
+        factor = NTR_HILLIER_FACTOR;
+    } else {
         return NTR_ERR_ARG;
     }
     NTR_TRY(ntr_check_na(na_mmol_l));
     NTR_TRY(ntr_check(glucose_mmol_l, 0.0, NTR_GLUCOSE_MAX));
     NTR_TRY(ntr_check(measured_osm_mosm_kg, NTR_OSM_MIN, NTR_OSM_MAX));
-    /* Inputs are valid, so the correction cannot fail. */
-    NTR_TRY(ntr_na_corrected_glucose(na_mmol_l, glucose_mmol_l, glucose_method,
-                                     &na_corrected));
+    /* The inputs are checked: the same correction as
+     * ntr_na_corrected_glucose() gives, without checking them again. */
+    na_corrected = ntri_glucose_corrected(na_mmol_l, glucose_mmol_l, factor);
     measured_class = tonicity_of(measured_osm_mosm_kg);
 
     if (na_mmol_l < SEVERITY_MILD_BELOW) {
