@@ -75,6 +75,8 @@ typedef double ntr_pair_mem
     __attribute__((vector_size(16), aligned(8), may_alias));
 /* Two ints, for the advice column. */
 typedef int ntr_int_pair __attribute__((vector_size(8), aligned(4), may_alias));
+/* A comparison result as two 64-bit integer lanes (0 or -1). */
+typedef long long ntr_lanes __attribute__((vector_size(16)));
 
 static inline ntr_pair pair_load(const double *p)
 {
@@ -951,20 +953,27 @@ static inline int pair_tbw_fraction(const int *sex, const double *age,
                                     int *status, size_t i)
 {
     ntr_pair y = pair_load(age + i), w = pair_load(weight + i);
+    ntr_pair zero = pair_splat(0.0);
     ntr_mask female = pair_sex_is(sex, i, NTR_SEX_FEMALE);
     ntr_mask known = pair_or(pair_sex_is(sex, i, NTR_SEX_MALE), female);
-    /* The entries of water_fractions[], chosen lane by lane; worked out
-     * before the check so the compiler keeps the constants in registers
-     * across the loop. */
+    /* The entries of water_fractions[], chosen lane by lane, and 0 for an
+     * unknown sex code. The check then asks for a positive fraction rather
+     * than for a known code (the same test: every entry is positive), so
+     * the fraction is worked out before the check on every pass and the
+     * compiler keeps its constants in registers across the loop instead of
+     * loading them again for each pair. */
     ntr_mask elderly = pair_ge(y, pair_splat(NTR_ELDERLY_AGE));
     ntr_pair man = pair_select(elderly, pair_splat(water_fractions[2]),
                                pair_splat(water_fractions[1]));
     ntr_pair woman = pair_select(elderly, pair_splat(water_fractions[4]),
                                  pair_splat(water_fractions[3]));
-    ntr_pair fraction = pair_select(pair_ge(y, pair_splat(NTR_ADULT_AGE)),
-                                    pair_select(female, woman, man),
-                                    pair_splat(water_fractions[0]));
-    if (!pair_all(pair_and3(known, pair_in(y, 0.0, NTR_AGE_MAX),
+    ntr_pair fraction = pair_select(
+        known,
+        pair_select(pair_ge(y, pair_splat(NTR_ADULT_AGE)),
+                    pair_select(female, woman, man),
+                    pair_splat(water_fractions[0])),
+        zero);
+    if (!pair_all(pair_and3(pair_gt(fraction, zero), pair_in(y, 0.0, NTR_AGE_MAX),
                             pair_in(w, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX)))) {
         return 0;
     }
@@ -1486,18 +1495,19 @@ static inline int pair_restriction(const double *ratio, int *advice,
                                    int *status, size_t i)
 {
     ntr_pair r = pair_load(ratio + i);
-    ntr_pair one = pair_splat(1.0), zero = pair_splat(0.0);
     /* NTR_RESTRICT_1000ML (1) plus one for each edge reached, as in the
-     * scalar kernel; exact small integers, converted to int. */
-    ntr_mask at_least_low = pair_ge(r, pair_splat(NTR_FURST_ABOUT_ONE_LOW));
-    ntr_mask above_high = pair_gt(r, pair_splat(NTR_FURST_ABOUT_ONE_HIGH));
-    ntr_pair band = pair_splat((double)NTR_RESTRICT_1000ML) +
-                    pair_select(at_least_low, one, zero) +
-                    pair_select(above_high, one, zero);
+     * scalar kernel, in integer lanes: a true comparison lane is all ones,
+     * -1, so subtracting it adds one. */
+    ntr_lanes at_least_low = (ntr_lanes)pair_ge(r, pair_splat(NTR_FURST_ABOUT_ONE_LOW));
+    ntr_lanes above_high = (ntr_lanes)pair_gt(r, pair_splat(NTR_FURST_ABOUT_ONE_HIGH));
+    ntr_lanes band = NTR_RESTRICT_1000ML - at_least_low - above_high;
+    /* Stored before the check (a failed pair's rows are written again by
+     * the scalar kernel and the next pair), so the band is worked out on
+     * every pass and its constants stay in registers across the loop. */
+    *(ntr_int_pair *)(advice + i) = __builtin_convertvector(band, ntr_int_pair);
     if (!pair_all(pair_in(r, 0.0, NTR_RATIO_MAX))) {
         return 0;
     }
-    *(ntr_int_pair *)(advice + i) = __builtin_convertvector(band, ntr_int_pair);
     pair_ok(status + i);
     return 1;
 }
