@@ -50,7 +50,8 @@ static int check_max_limit(double x)
     return x > 0.0 ? NTR_OK : NTR_ERR_RANGE;
 }
 
-int ntri_limits_check(const ntr_limits *lim)
+/* The checks in order, naming the first that fails. */
+static int limits_status(const ntr_limits *lim)
 {
     NTR_TRY(check_max_limit(lim->max_rise_24h));
     NTR_TRY(check_max_limit(lim->max_rise_48h));
@@ -62,6 +63,33 @@ int ntri_limits_check(const ntr_limits *lim)
         return NTR_ERR_RANGE;
     }
     return NTR_OK;
+}
+
+/* Whether limits_status() accepts the limits, as one chain of ordered
+ * comparisons (each false for NaN): 0 <= min <= max24 <= max48 <=
+ * NTR_LIMIT_MAX and max24 > 0. Every condition of limits_status() follows
+ * from the chain (max24 and max48 lie in (0, 50], min in [0, 50]) and the
+ * chain from them; tests/test_correction.c compares the two on every
+ * combination of edge values. Valid limits, the common case, then cost a
+ * third of the instructions: the watcher asks on every push and result,
+ * and every assessment and plan check once. */
+static int limits_sound(const ntr_limits *lim)
+{
+#if defined(__OPTIMIZE_SIZE__)
+    /* Built for size, the one full check serves: on a processor without
+     * double-precision hardware every comparison is a library call. */
+    return limits_status(lim) == NTR_OK;
+#else
+    return lim->min_rise_24h >= 0.0 &&
+           lim->min_rise_24h <= lim->max_rise_24h &&
+           lim->max_rise_24h <= lim->max_rise_48h &&
+           lim->max_rise_48h <= NTR_LIMIT_MAX && lim->max_rise_24h > 0.0;
+#endif
+}
+
+int ntri_limits_check(const ntr_limits *lim)
+{
+    return limits_sound(lim) ? NTR_OK : limits_status(lim);
 }
 
 /* ---- risk of osmotic demyelination ------------------------------------- */
@@ -509,26 +537,6 @@ static const ntr_sample *ring_at(const ntr_watch *w, unsigned int k)
     return &w->ring[(w->head + k) % NTR_WATCH_CAPACITY];
 }
 
-/* Whether ntri_limits_check() would accept the limits, as one chain of
- * ordered comparisons (each false for NaN): 0 <= min <= max24 <= max48 <=
- * NTR_LIMIT_MAX and max24 > 0. Every condition of ntri_limits_check()
- * follows from the chain (max24 and max48 lie in (0, 50], min in [0, 50])
- * and the chain from them. The watcher asks this on every push and result
- * and needs only yes or no, so it is worth a third of the instructions. */
-static int limits_sound(const ntr_limits *lim)
-{
-#if defined(__OPTIMIZE_SIZE__)
-    /* Built for size, the one full check serves: on a processor without
-     * double-precision hardware every comparison is a library call. */
-    return ntri_limits_check(lim) == NTR_OK;
-#else
-    return lim->min_rise_24h >= 0.0 &&
-           lim->min_rise_24h <= lim->max_rise_24h &&
-           lim->max_rise_24h <= lim->max_rise_48h &&
-           lim->max_rise_48h <= NTR_LIMIT_MAX && lim->max_rise_24h > 0.0;
-#endif
-}
-
 /* Cheap structural checks, so a damaged or uninitialised state can never
  * make an index leave the ring. */
 static int watch_sound(const ntr_watch *w)
@@ -556,8 +564,7 @@ int ntr_watch_init(const ntr_limits *lim, ntr_watch *w)
         return NTR_ERR_NULL;
     }
     if (!limits_sound(lim)) {
-        /* Refused for certain: the full check names the reason. */
-        return ntri_limits_check(lim);
+        return limits_status(lim); /* as ntri_limits_check(), inlined */
     }
     limits = *lim; /* lim may point into *w */
     /* Member by member, after the checks, rather than through a zeroed
