@@ -956,23 +956,26 @@ static inline int pair_tbw_fraction(const int *sex, const double *age,
     ntr_pair zero = pair_splat(0.0);
     ntr_mask female = pair_sex_is(sex, i, NTR_SEX_FEMALE);
     ntr_mask known = pair_or(pair_sex_is(sex, i, NTR_SEX_MALE), female);
-    /* The entries of water_fractions[], chosen lane by lane, and 0 for an
-     * unknown sex code. The check then asks for a positive fraction rather
-     * than for a known code (the same test: every entry is positive), so
-     * the fraction is worked out before the check on every pass and the
-     * compiler keeps its constants in registers across the loop instead of
-     * loading them again for each pair. */
+    ntr_mask adult = pair_ge(y, pair_splat(NTR_ADULT_AGE));
     ntr_mask elderly = pair_ge(y, pair_splat(NTR_ELDERLY_AGE));
-    ntr_pair man = pair_select(elderly, pair_splat(water_fractions[2]),
-                               pair_splat(water_fractions[1]));
-    ntr_pair woman = pair_select(elderly, pair_splat(water_fractions[4]),
-                                 pair_splat(water_fractions[3]));
-    ntr_pair fraction = pair_select(
-        known,
-        pair_select(pair_ge(y, pair_splat(NTR_ADULT_AGE)),
-                    pair_select(female, woman, man),
-                    pair_splat(water_fractions[0])),
-        zero);
+    /* The entry of water_fractions[] lane by lane, with two choices instead
+     * of a choice per entry, as the table holds three values: entries 0
+     * and 1 (a child, a man under 65) are equal, and so are 2 and 3 (a man
+     * from 65, a woman under 65); entry 4 is a woman from 65 (elderly
+     * implies adult). The test of batch against scalar rows checks that.
+     * An unknown sex code gets 0, and the check asks for a positive
+     * fraction rather than for a known code (the same test: every entry is
+     * positive), so the fraction is worked out before the check on every
+     * pass and the compiler keeps its constants in registers across the
+     * loop instead of loading them again for each pair. */
+    ntr_pair grown = pair_select(pair_and(female, elderly),
+                                 pair_splat(water_fractions[4]),
+                                 pair_splat(water_fractions[2]));
+    ntr_pair fraction =
+        pair_select(known,
+                    pair_select(pair_and(adult, pair_or(female, elderly)), grown,
+                                pair_splat(water_fractions[0])),
+                    zero);
     if (!pair_all(pair_and3(pair_gt(fraction, zero), pair_in(y, 0.0, NTR_AGE_MAX),
                             pair_in(w, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX)))) {
         return 0;
