@@ -212,12 +212,11 @@ static int finish(size_t n, const int *status, size_t bad, size_t *failed)
     if (bad == 0) {
         return NTR_OK;
     }
-    for (i = 0; i < n; i++) {
-        if (status[i] != NTR_OK) {
-            return status[i];
-        }
+    /* bad > 0, so n >= 1 and some row failed: stop at the first one (the
+     * bound only guards against a status array changed under our feet). */
+    for (i = 0; i + 1 < n && status[i] == NTR_OK; i++) {
     }
-    return NTR_OK; /* not reached: bad > 0 means some status is set */
+    return status[i];
 }
 
 #if NTR_BATCH_LOOPS
@@ -1252,13 +1251,13 @@ static inline int pair_infusate_volume(const double *na, const double *tbw,
     ntr_pair zero = pair_splat(0.0);
     ntr_pair headroom = c + k - a - d;
     ntr_pair volume = d * w / headroom;
-    ntr_mask reachable =
+    ntr_mask reaches =
         pair_or(pair_and(pair_gt(d, zero), pair_gt(headroom, zero)),
                 pair_and(pair_lt(d, zero), pair_lt(headroom, zero)));
     ntr_pair volume_max = pair_splat(NTR_INFUSE_VOLUME_MAX);
     if (!pair_all(pair_and4(pair_infusate_in(a, w, c, k),
                             pair_in(d, -NTR_DELTA_MAX, NTR_DELTA_MAX),
-                            reachable, pair_le(volume, volume_max)))) {
+                            reaches, pair_le(volume, volume_max)))) {
         return 0;
     }
     pair_store(out + i, volume);
