@@ -25,16 +25,8 @@ dir="${NTR_BUILD_PREFIX:-build}-coverage"
 line_min="${NTR_COVERAGE_LINES:-100}"
 branch_min="${NTR_COVERAGE_BRANCHES:-95}"
 
-as_root=()
-[ "$(id -u)" -ne 0 ] && as_root=(sudo)
-need=()
-for p in meson ninja-build gcc libcmocka-dev gcovr; do
-  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'ok installed' || need+=("$p")
-done
-if [ ${#need[@]} -gt 0 ]; then
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -qq
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${need[@]}" >/dev/null
-fi
+source tests/lib/apt-missing.sh
+apt_missing --quiet meson ninja-build gcc libcmocka-dev gcovr
 
 # Two configurations, because the library compiles some checks differently
 # when built for size (__OPTIMIZE_SIZE__, as firmware is: one shared range

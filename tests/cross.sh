@@ -34,33 +34,26 @@ prefix="${NTR_BUILD_PREFIX:-build}-cross"
 archs=("$@")
 [ ${#archs[@]} -eq 0 ] && archs=(i686 arm s390x cortex-m4 minsize)
 
-as_root=()
-[ "$(id -u)" -ne 0 ] && as_root=(sudo)
-need=()
-need_update=0
-want_pkg() { dpkg-query -W -f='${Status}' "$1" 2>/dev/null | grep -q 'ok installed' || need+=("$1"); }
-want_arch() {
+source tests/lib/apt-missing.sh
+need=(meson ninja-build pkg-config)
+want_arch() { # Debian multiarch: the target's libcmocka-dev needs its architecture
   if ! dpkg --print-foreign-architectures | grep -qx "$1" && [ "$(dpkg --print-architecture)" != "$1" ]; then
-    "${as_root[@]}" dpkg --add-architecture "$1"
-    need_update=1
+    apt_as_root dpkg --add-architecture "$1"
   fi
 }
 for a in "${archs[@]}"; do
   case "$a" in
-    i686) want_pkg gcc-i686-linux-gnu; want_pkg qemu-user; want_arch i386; want_pkg libcmocka-dev:i386 ;;
-    arm) want_pkg gcc-arm-linux-gnueabihf; want_pkg qemu-user; want_arch armhf; want_pkg libcmocka-dev:armhf ;;
-    s390x) want_pkg gcc-s390x-linux-gnu; want_pkg qemu-user; want_arch s390x; want_pkg libcmocka-dev:s390x ;;
-    cortex-m4) want_pkg gcc-arm-none-eabi; want_pkg libnewlib-arm-none-eabi; want_pkg qemu-system-arm ;;
-    minsize) want_pkg libcmocka-dev ;;
+    i686) want_arch i386; need+=(gcc-i686-linux-gnu qemu-user libcmocka-dev:i386) ;;
+    arm) want_arch armhf; need+=(gcc-arm-linux-gnueabihf qemu-user libcmocka-dev:armhf) ;;
+    s390x) want_arch s390x; need+=(gcc-s390x-linux-gnu qemu-user libcmocka-dev:s390x) ;;
+    cortex-m4) need+=(gcc-arm-none-eabi libnewlib-arm-none-eabi qemu-system-arm) ;;
+    minsize) need+=(libcmocka-dev) ;;
     *) echo "cross.sh: unknown architecture $a" >&2; exit 2 ;;
   esac
 done
-want_pkg meson; want_pkg ninja-build; want_pkg pkg-config
-if [ ${#need[@]} -gt 0 ] || [ $need_update -eq 1 ]; then
-  echo "cross.sh: installing ${need[*]:-} (apt-get)"
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -qq
-  [ ${#need[@]} -gt 0 ] && "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "${need[@]}" >/dev/null
-fi
+# (an architecture just added leaves its libcmocka-dev missing, so the
+# package lists are always updated after it)
+apt_missing --quiet --no-install-recommends "${need[@]}"
 
 setup() { # builddir crossfile (or "native")
   local how=(--cross-file "$2")

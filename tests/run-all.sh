@@ -47,25 +47,8 @@ cd "$(dirname "${BASH_SOURCE[0]}")/.."
 builddir=build-test
 
 # ---- dependencies: apt-get only when something is missing
-missing=()
-for p in "${packages[@]}"; do
-    if ! dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'ok installed'; then
-        missing+=("$p")
-    fi
-done
-if [[ ${#missing[@]} -gt 0 ]]; then
-    echo "Installing missing packages: ${missing[*]}"
-    if [[ $(id -u) -eq 0 ]]; then
-        as_root=()
-    elif command -v sudo >/dev/null 2>&1; then
-        as_root=(sudo)
-    else
-        echo "Not root and no sudo: please install ${missing[*]}" >&2
-        exit 1
-    fi
-    "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update
-    "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y "${missing[@]}"
-fi
+source tests/lib/apt-missing.sh
+apt_missing "${packages[@]}"
 
 # ---- configure (debugoptimized: the ABI check needs -g), build, test
 if [[ -f "$builddir/meson-private/coredata.dat" ]]; then

@@ -29,16 +29,8 @@ prefix="${NTR_BUILD_PREFIX:-build}"
 modes=("$@")
 [ ${#modes[@]} -eq 0 ] && modes=(asan valgrind)
 
-as_root=()
-[ "$(id -u)" -ne 0 ] && as_root=(sudo)
-need=()
-for p in meson ninja-build pkg-config gcc libcmocka-dev valgrind; do
-  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'ok installed' || need+=("$p")
-done
-if [ ${#need[@]} -gt 0 ]; then
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -qq
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${need[@]}" >/dev/null
-fi
+source tests/lib/apt-missing.sh
+apt_missing --quiet meson ninja-build pkg-config gcc libcmocka-dev valgrind
 
 setup() { # builddir options...
   local dir="$1"

@@ -29,16 +29,8 @@ root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 dir="${NTR_BUILD_PREFIX:-build}-analysis"
 
-as_root=()
-[ "$(id -u)" -ne 0 ] && as_root=(sudo)
-need=()
-for p in meson ninja-build gcc cppcheck clang-tidy; do
-  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q 'ok installed' || need+=("$p")
-done
-if [ ${#need[@]} -gt 0 ]; then
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get update -qq
-  "${as_root[@]}" env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "${need[@]}" >/dev/null
-fi
+source tests/lib/apt-missing.sh
+apt_missing --quiet meson ninja-build gcc cppcheck clang-tidy
 
 # cppcheck suppressions: id:file
 cppcheck_suppress=(
