@@ -13,18 +13,13 @@
 # the report is written to <prefix>-coverage/coverage.txt (per file, with
 # uncovered lines).
 set -euo pipefail
-# Run a command with its output kept back, shown only when it fails.
-quiet() {
-  local log
-  log=$(mktemp)
-  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
-}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 dir="${NTR_BUILD_PREFIX:-build}-coverage"
 line_min="${NTR_COVERAGE_LINES:-100}"
 branch_min="${NTR_COVERAGE_BRANCHES:-95}"
 
+source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
 apt_missing --quiet meson ninja-build gcc libcmocka-dev gcovr
 
@@ -35,12 +30,7 @@ apt_missing --quiet meson ninja-build gcc libcmocka-dev gcovr
 # line numbers (no optimisation in either). gcovr merges the two.
 run_config() { # builddir extra-c-args
   local d="$1"
-  if [ -f "$d/meson-private/coredata.dat" ]; then
-    quiet meson setup --reconfigure "$d" -Db_coverage=true -Dbuildtype=debug -Dc_args="$2"
-  else
-    rm -rf "$d"
-    quiet meson setup "$d" -Db_coverage=true -Dbuildtype=debug -Dc_args="$2"
-  fi
+  quiet meson_setup_dir "$d" -Db_coverage=true -Dbuildtype=debug -Dc_args="$2"
   quiet ninja -C "$d"
   find "$d" -name '*.gcda' -delete
   meson test -C "$d" --suite unit --suite examples --num-processes 2 >"$d/coverage-tests.log" 2>&1 ||

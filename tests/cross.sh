@@ -22,18 +22,13 @@
 # (cross compilers, qemu-user, and cmocka for each target through Debian
 # multiarch; never gcc-multilib, which conflicts with the cross compilers).
 set -euo pipefail
-# Run a command with its output kept back, shown only when it fails.
-quiet() {
-  local log
-  log=$(mktemp)
-  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
-}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 prefix="${NTR_BUILD_PREFIX:-build}-cross"
 archs=("$@")
 [ ${#archs[@]} -eq 0 ] && archs=(i686 arm s390x cortex-m4 minsize)
 
+source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
 need=(meson ninja-build pkg-config)
 want_arch() { # Debian multiarch: the target's libcmocka-dev needs its architecture
@@ -55,14 +50,11 @@ done
 # package lists are always updated after it)
 apt_missing --quiet --no-install-recommends "${need[@]}"
 
-setup() { # builddir crossfile (or "native")
-  local how=(--cross-file "$2")
-  [ "$2" = native ] && how=(-Dbuildtype=minsize)
-  if [ -f "$1/meson-private/coredata.dat" ]; then
-    quiet meson setup --reconfigure "$1" "${how[@]}" || quiet meson setup --wipe "$1" "${how[@]}"
+setup() { # builddir crossfile (or "native": the host at -Os)
+  if [ "$2" = native ]; then
+    quiet meson_setup_dir "$1" -Dbuildtype=minsize
   else
-    rm -rf "$1"
-    quiet meson setup "$1" "${how[@]}"
+    quiet meson_setup_dir "$1" --cross-file "$2"
   fi
 }
 

@@ -51,13 +51,8 @@ source tests/lib/apt-missing.sh
 apt_missing "${packages[@]}"
 
 # ---- configure (debugoptimized: the ABI check needs -g), build, test
-if [[ -f "$builddir/meson-private/coredata.dat" ]]; then
-    meson setup --reconfigure "$builddir" -Dbuildtype=debugoptimized \
-        || meson setup --wipe "$builddir" -Dbuildtype=debugoptimized
-else
-    rm -rf "$builddir"
-    meson setup "$builddir" -Dbuildtype=debugoptimized
-fi
+source tests/lib/build-steps.sh
+meson_setup_dir "$builddir" -Dbuildtype=debugoptimized
 ninja -C "$builddir"
 
 test_status=0

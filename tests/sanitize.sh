@@ -17,31 +17,15 @@
 # Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
 # <prefix>-sanitize and <prefix>-valgrind.
 set -euo pipefail
-# Run a command with its output kept back, shown only when it fails.
-quiet() {
-  local log
-  log=$(mktemp)
-  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
-}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 prefix="${NTR_BUILD_PREFIX:-build}"
 modes=("$@")
 [ ${#modes[@]} -eq 0 ] && modes=(asan valgrind)
 
+source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
 apt_missing --quiet meson ninja-build pkg-config gcc libcmocka-dev valgrind
-
-setup() { # builddir options...
-  local dir="$1"
-  shift
-  if [ -f "$dir/meson-private/coredata.dat" ]; then
-    quiet meson setup --reconfigure "$dir" "$@" || quiet meson setup --wipe "$dir" "$@"
-  else
-    rm -rf "$dir"
-    quiet meson setup "$dir" "$@"
-  fi
-}
 
 status=0
 for m in "${modes[@]}"; do
@@ -49,7 +33,7 @@ for m in "${modes[@]}"; do
   case "$m" in
   asan)
     dir="$prefix-sanitize"
-    setup "$dir" -Db_sanitize=address,undefined -Db_lundef=false -Dbuildtype=debugoptimized
+    quiet meson_setup_dir "$dir" -Db_sanitize=address,undefined -Db_lundef=false -Dbuildtype=debugoptimized
     quiet ninja -C "$dir"
     if ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:strict_string_checks=1:detect_stack_use_after_return=1 \
        UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
@@ -64,7 +48,7 @@ for m in "${modes[@]}"; do
     ;;
   valgrind)
     dir="$prefix-valgrind"
-    setup "$dir" -Dbuildtype=debugoptimized
+    quiet meson_setup_dir "$dir" -Dbuildtype=debugoptimized
     quiet ninja -C "$dir"
     if meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 10 \
          --wrap='valgrind --error-exitcode=1 --leak-check=full --errors-for-leak-kinds=definite,indirect --quiet' \

@@ -19,16 +19,11 @@
 # Usage: tests/static-analysis.sh     Environment: NTR_BUILD_PREFIX
 # (default "build"): compile commands come from <prefix>-analysis.
 set -euo pipefail
-# Run a command with its output kept back, shown only when it fails.
-quiet() {
-  local log
-  log=$(mktemp)
-  if "$@" >"$log" 2>&1; then rm -f "$log"; else cat "$log"; rm -f "$log"; return 1; fi
-}
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 dir="${NTR_BUILD_PREFIX:-build}-analysis"
 
+source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
 apt_missing --quiet meson ninja-build gcc cppcheck clang-tidy
 
