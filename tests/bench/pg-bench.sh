@@ -3,10 +3,11 @@
 #
 #   pg-bench.sh SOURCE_ROOT ROWS REPEATS   -> one JSON object on stdout
 #
-# Starts a throwaway server the way tests/postgresql/run.sh does (extension
-# built and staged out of tree, a copy of the postgres executable in the
-# stage, initdb and pg_ctl on a Unix socket in a temporary directory, run as
-# the "postgres" user, or "nobody", when started as root), fills a table of
+# Starts the throwaway server that tests/postgresql/run.sh uses too
+# (tests/lib/pg-throwaway.sh: extension built and staged out of tree, a copy
+# of the postgres executable in the stage, initdb and pg_ctl on a Unix
+# socket in a temporary directory, run as the "postgres" user, or "nobody",
+# when started as root), fills a table of
 # ROWS invented rows and times, in one session with parallel query off:
 #   extension  SELECT sum(ntr_osm_effective(na, glucose)) FROM t
 #   bare SQL   SELECT sum(2*na + glucose) FROM t            (no validation)
@@ -21,68 +22,11 @@ set -euo pipefail
 src=$(cd "$1" && pwd)
 rows=${2:-5000000}
 repeats=${3:-3}
-pgbin=/usr/lib/postgresql/15/bin
-pg_config=$pgbin/pg_config
-for tool in "$pg_config" "$pgbin/initdb" "$pgbin/pg_ctl" "$pgbin/postgres" "$pgbin/psql"; do
-    [[ -x $tool ]] || { echo "skipped: $tool not found" >&2; exit 77; }
-done
-command -v make >/dev/null && [[ -f $("$pg_config" --pgxs) ]] ||
-    { echo "skipped: make or PGXS missing" >&2; exit 77; }
-
-tmp=$(mktemp -d /tmp/natremia-pgbench.XXXXXX)
-chmod 755 "$tmp"
-server_user=""
-run_as() { "$@"; }
-if [[ $(id -u) -eq 0 ]]; then
-    server_user=postgres
-    id -u "$server_user" >/dev/null 2>&1 || server_user=nobody
-    run_as() { runuser -u "$server_user" -- "$@"; }
-fi
-pgdata=$tmp/data
-sockdir=$tmp/socket
-started=no
-cleanup() {
-    if [[ $started == yes ]]; then
-        run_as "$stage_bindir/pg_ctl" -D "$pgdata" -m immediate -w stop >/dev/null 2>&1 || true
-    fi
-    rm -rf "$tmp"
-}
-trap cleanup EXIT
-
-# ---- extension, staged; a server tree that sees it (as in run.sh)
-mkdir "$tmp/build"
-make -s -C "$tmp/build" -f "$src/bindings/postgresql/Makefile" \
-    PG_CONFIG="$pg_config" NATREMIA_ROOT="$src" >&2
-make -s -C "$tmp/build" -f "$src/bindings/postgresql/Makefile" \
-    PG_CONFIG="$pg_config" NATREMIA_ROOT="$src" install DESTDIR="$tmp/stage" >&2
-bindir=$("$pg_config" --bindir)
-sharedir=$("$pg_config" --sharedir)
-pkglibdir=$("$pg_config" --pkglibdir)
-stage_bindir=$tmp/stage$bindir
-mkdir -p "$stage_bindir" "$tmp/stage$sharedir/extension" "$tmp/stage$pkglibdir"
-cp "$bindir/postgres" "$stage_bindir/postgres"
-for tool in pg_ctl initdb; do
-    ln -s "$bindir/$tool" "$stage_bindir/$tool"
-done
-link_all() {
-    local entry
-    for entry in "$1"/*; do
-        [[ -e "$2/$(basename "$entry")" ]] || ln -s "$entry" "$2/"
-    done
-}
-link_all "$sharedir/extension" "$tmp/stage$sharedir/extension"
-link_all "$sharedir" "$tmp/stage$sharedir"
-link_all "$pkglibdir" "$tmp/stage$pkglibdir"
-
-mkdir "$sockdir"
-[[ -z $server_user ]] || chown -R "$server_user" "$tmp"
-run_as "$pgbin/initdb" -D "$pgdata" -U natremia_bench --auth=trust \
-    --no-instructions >"$tmp/initdb.log" 2>&1 || { cat "$tmp/initdb.log" >&2; exit 1; }
-run_as "$stage_bindir/pg_ctl" -D "$pgdata" -w -t 60 -l "$tmp/server.log" \
-    -p "$stage_bindir/postgres" \
-    -o "-k $sockdir -c listen_addresses= -c fsync=off -c shared_buffers=512MB -c max_parallel_workers_per_gather=0 -c jit=off" \
-    start >/dev/null || { cat "$tmp/server.log" >&2; exit 1; }
-started=yes
+source "$src/tests/lib/pg-throwaway.sh"
+pg_require
+pg_throwaway_start "$src" natremia-pgbench natremia_bench \
+    shared_buffers=512MB max_parallel_workers_per_gather=0 jit=off
+tmp=$pg_tmp
 
 # ---- one session: data, functions, then the timed queries
 queries=(
@@ -161,9 +105,9 @@ done
 chmod 644 "$script"
 touch "$tmp/times.txt" "$tmp/agreement.txt" "$tmp/pid.txt"
 chmod 666 "$tmp/times.txt" "$tmp/agreement.txt" "$tmp/pid.txt"
-"$pgbin/psql" -X -q -h "$sockdir" -U natremia_bench -d postgres -f "$script" >/dev/null
+"$pg_bin/psql" -X -q -h "$pg_socket" -U natremia_bench -d postgres -f "$script" >/dev/null
 
-python3 - "$tmp/times.txt" "$rows" "$repeats" "$("$pgbin/postgres" --version)" "$(cat "$tmp/agreement.txt")" <<'PY'
+python3 - "$tmp/times.txt" "$rows" "$repeats" "$("$pg_bin/postgres" --version)" "$(cat "$tmp/agreement.txt")" <<'PY'
 import json, os, sys
 path, rows, repeats, version = sys.argv[1], int(sys.argv[2]), int(sys.argv[3]), sys.argv[4]
 agreement = sys.argv[5].strip()
