@@ -3,7 +3,8 @@
  * Three ways to get the same ntr_correction for the same series, timed in
  * interleaved rounds on the same invented series:
  *   linear   ntr_correction_assess (block scheme, O(n), O(1) memory)
- *   pairwise the definitions read literally, every pair (O(n^2)); the same
+ *   pairwise the definitions read literally, every pair (O(n^2)):
+ *            correction_oracle from tests/correction_oracle.h, the same
  *            code the unit test uses as its oracle
  *   watcher  ntr_watch_init + ntr_watch_push per sample (O(n) amortised)
  * Each round checks that the three agree, so the timing is of correct work.
@@ -21,6 +22,7 @@
 #include <time.h>
 
 #include "natremia.h"
+#include "../correction_oracle.h"
 
 static double now_ns(void)
 {
@@ -36,94 +38,6 @@ static double unit(void)
     rng ^= rng << 25;
     rng ^= rng >> 27;
     return (double)((rng * 0x2545f4914f6cdd1du) >> 11) / 9007199254740992.0;
-}
-
-/* ---- the pairwise reading of the definitions --------------------------- */
-
-static int in_window(double a, double b, double w)
-{
-    return b - a <= w + NTR_CF_TIME_TOLERANCE_H;
-}
-
-static double window_min(const ntr_sample *s, size_t j, double t, double w)
-{
-    double m = HUGE_VAL;
-    for (size_t i = 0; i <= j; i++) {
-        if (in_window(s[i].hours, t, w) && s[i].na_mmol_l < m) {
-            m = s[i].na_mmol_l;
-        }
-    }
-    return m;
-}
-
-static ntr_correction pairwise(const ntr_sample *s, size_t n, const ntr_limits *lim)
-{
-    ntr_correction c;
-    const double tol = NTR_CF_TOLERANCE;
-    size_t last = n - 1, prev = n;
-    memset(&c, 0, sizeof c);
-    for (size_t j = 0; j < n; j++) {
-        for (size_t i = 0; i <= j; i++) {
-            double rise = s[j].na_mmol_l - s[i].na_mmol_l;
-            if (in_window(s[i].hours, s[j].hours, 24.0) && rise > c.max_rise_24h) {
-                c.max_rise_24h = rise;
-            }
-            if (in_window(s[i].hours, s[j].hours, 48.0) && rise > c.max_rise_48h) {
-                c.max_rise_48h = rise;
-            }
-        }
-        if (in_window(s[0].hours, s[j].hours, 24.0) &&
-            s[j].na_mmol_l - s[0].na_mmol_l > c.rise_first_24h) {
-            c.rise_first_24h = s[j].na_mmol_l - s[0].na_mmol_l;
-        }
-    }
-    for (size_t i = 0; i < n; i++) {
-        if (s[i].hours < s[last].hours) {
-            prev = i;
-        }
-    }
-    if (c.max_rise_24h > lim->max_rise_24h + tol) {
-        c.flags |= NTR_CF_OVER_24H;
-        c.excess_mmol_l = c.max_rise_24h - lim->max_rise_24h;
-    }
-    if (c.max_rise_48h > lim->max_rise_48h + tol) {
-        c.flags |= NTR_CF_OVER_48H;
-        if (c.max_rise_48h - lim->max_rise_48h > c.excess_mmol_l) {
-            c.excess_mmol_l = c.max_rise_48h - lim->max_rise_48h;
-        }
-    }
-    if (s[last].hours - s[0].hours >= 24.0 - NTR_CF_TIME_TOLERANCE_H &&
-        c.rise_first_24h < lim->min_rise_24h - tol) {
-        c.flags |= NTR_CF_BELOW_TARGET;
-    }
-    double open6 = s[last].na_mmol_l - window_min(s, last, s[last].hours, NTR_CF_RAPID_WINDOW_H);
-    double open24 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 24.0);
-    double open48 = s[last].na_mmol_l - window_min(s, last, s[last].hours, 48.0);
-    if ((open24 > tol && open24 >= lim->max_rise_24h - NTR_CF_NEAR_MARGIN - tol &&
-         open24 <= lim->max_rise_24h + tol) ||
-        (open48 > tol && open48 >= lim->max_rise_48h - NTR_CF_NEAR_MARGIN - tol &&
-         open48 <= lim->max_rise_48h + tol)) {
-        c.flags |= NTR_CF_NEAR_LIMIT;
-    }
-    if (open6 >= NTR_CF_RAPID_RISE - tol) {
-        c.flags |= NTR_CF_RAPID_6H;
-    }
-    if (prev < n && s[last].hours - s[prev].hours > NTR_CF_TIME_TOLERANCE_H) {
-        const ntr_sample a = s[prev], b = s[last];
-        c.last_rate_per_h = (b.na_mmol_l - a.na_mmol_l) / (b.hours - a.hours);
-        if (b.na_mmol_l < a.na_mmol_l) {
-            c.flags |= NTR_CF_FALLING;
-        }
-        if (b.na_mmol_l > a.na_mmol_l) {
-            double t = b.hours + (b.hours - a.hours);
-            double na = b.na_mmol_l + (b.na_mmol_l - a.na_mmol_l);
-            if (na - window_min(s, last, t, 24.0) > lim->max_rise_24h + tol ||
-                na - window_min(s, last, t, 48.0) > lim->max_rise_48h + tol) {
-                c.flags |= NTR_CF_PROJECTED_OVER;
-            }
-        }
-    }
-    return c;
 }
 
 /* ---- workload ----------------------------------------------------------- */
@@ -185,7 +99,7 @@ static int run(size_t n, size_t patients, double spacing_h, int rounds)
         }
         double t1 = now_ns();
         for (size_t p = 0; p < patients; p++) {
-            ntr_correction c = pairwise(s + p * n, n, &lim);
+            ntr_correction c = correction_oracle(s + p * n, n, &lim);
             sink += c.flags;
         }
         double t2 = now_ns();
@@ -207,7 +121,7 @@ static int run(size_t n, size_t patients, double spacing_h, int rounds)
     }
     /* Agreement, outside the timed loops. */
     for (size_t p = 0; p < patients && p < 2000; p++) {
-        ntr_correction a, b = pairwise(s + p * n, n, &lim), c;
+        ntr_correction a, b = correction_oracle(s + p * n, n, &lim), c;
         ntr_watch w;
         ntr_correction_assess(s + p * n, n, &lim, &a);
         ntr_watch_init(&lim, &w);
