@@ -48,7 +48,7 @@ for a in "${archs[@]}"; do
 done
 # (an architecture just added leaves its libcmocka-dev missing, so the
 # package lists are always updated after it)
-apt_missing --quiet --no-install-recommends "${need[@]}"
+apt_missing --quiet "${need[@]}"
 
 setup() { # builddir crossfile (or "native": the host at -Os)
   if [ "$2" = native ]; then

@@ -9,6 +9,10 @@
 #       apt-get install -y for those alone. Nothing runs when all are there.
 #       --quiet hides apt-get's own output (shown only through the exit
 #       status); other options before the packages go to apt-get install.
+#       Recommended packages are never installed: every script names what
+#       it needs, and recommends drag in extras (a mail server through
+#       cron, plotting and compiler stacks through the Python packages)
+#       that only lengthen the install and add ways for it to fail.
 #   apt_as_root COMMAND...
 #       Runs COMMAND as root: directly when already root, through sudo
 #       otherwise; fails with a note when neither is possible.
@@ -52,10 +56,10 @@ apt_missing() {
     if [[ $quiet -eq 1 ]]; then
         apt_as_root env DEBIAN_FRONTEND=noninteractive apt-get update -qq >/dev/null
         apt_as_root env DEBIAN_FRONTEND=noninteractive \
-            apt-get install -y -qq "${options[@]}" "${missing[@]}" >/dev/null
+            apt-get install -y -qq --no-install-recommends "${options[@]}" "${missing[@]}" >/dev/null
     else
         apt_as_root env DEBIAN_FRONTEND=noninteractive apt-get update
         apt_as_root env DEBIAN_FRONTEND=noninteractive \
-            apt-get install -y "${options[@]}" "${missing[@]}"
+            apt-get install -y --no-install-recommends "${options[@]}" "${missing[@]}"
     fi
 }
