@@ -38,9 +38,9 @@ want_arch() { # Debian multiarch: the target's libcmocka-dev needs its architect
 }
 for a in "${archs[@]}"; do
   case "$a" in
-    i686) want_arch i386; need+=(gcc-i686-linux-gnu qemu-user libcmocka-dev:i386) ;;
-    arm) want_arch armhf; need+=(gcc-arm-linux-gnueabihf qemu-user libcmocka-dev:armhf) ;;
-    s390x) want_arch s390x; need+=(gcc-s390x-linux-gnu qemu-user libcmocka-dev:s390x) ;;
+    i686) want_arch i386; need+=(gcc-i686-linux-gnu libc6-dev-i386-cross qemu-user libcmocka-dev:i386) ;;
+    arm) want_arch armhf; need+=(gcc-arm-linux-gnueabihf libc6-dev-armhf-cross qemu-user libcmocka-dev:armhf) ;;
+    s390x) want_arch s390x; need+=(gcc-s390x-linux-gnu libc6-dev-s390x-cross qemu-user libcmocka-dev:s390x) ;;
     cortex-m4) need+=(gcc-arm-none-eabi libnewlib-arm-none-eabi qemu-system-arm) ;;
     minsize) need+=(libcmocka-dev) ;;
     *) echo "cross.sh: unknown architecture $a" >&2; exit 2 ;;

@@ -20,6 +20,9 @@ cleanup() {
 }
 trap cleanup EXIT
 
+# mktemp makes the directory 0700; as the chroot's "/" it must be 0755, or
+# no user but root (the PostgreSQL test's server user) can reach anything.
+chmod 755 "$root"
 debootstrap --variant=minbase --include=git,ca-certificates,sudo bookworm \
     "$root" http://deb.debian.org/debian > "$root.debootstrap.log" 2>&1
 cp /etc/resolv.conf "$root/etc/resolv.conf"

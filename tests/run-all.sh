@@ -40,6 +40,7 @@ packages=(
     clang
     libclang-rt-14-dev
     gcc-s390x-linux-gnu
+    libc6-dev-s390x-cross
     qemu-user
 )
 
