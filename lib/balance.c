@@ -142,6 +142,24 @@ static size_t grid_count(double duration_h, double step_h)
     return k;
 }
 
+/* A plan starting at sodium na0 with body water tbw0; history (may be
+ * NULL with n_history 0) is the measured series the plan continues. */
+static void plan_init(struct plan *p, double na0, double tbw0,
+                      const ntr_timed_flow *flows, size_t n_flows,
+                      double duration_h, double step_h,
+                      const ntr_sample *history, size_t n_history)
+{
+    p->na0 = na0;
+    p->tbw0 = tbw0;
+    p->flows = flows;
+    p->n_flows = n_flows;
+    p->duration_h = duration_h;
+    p->step_h = step_h;
+    p->grid = grid_count(duration_h, step_h);
+    p->history = history;
+    p->n_history = n_history;
+}
+
 static double plan_offset(const struct plan *p, size_t j)
 {
     return j < p->grid ? (double)j * p->step_h : p->duration_h;
@@ -202,15 +220,8 @@ int ntr_balance_course(double na_mmol_l, double tbw_l,
     NTR_TRY(check_span(duration_h, step_h));
     NTR_TRY(timed_flows_order(flows, n_flows));
 
-    p.na0 = na_mmol_l;
-    p.tbw0 = tbw_l;
-    p.flows = flows;
-    p.n_flows = n_flows;
-    p.duration_h = duration_h;
-    p.step_h = step_h;
-    p.grid = grid_count(duration_h, step_h);
-    p.history = NULL;
-    p.n_history = 0;
+    plan_init(&p, na_mmol_l, tbw_l, flows, n_flows, duration_h, step_h,
+              NULL, 0);
 
     if (capacity < p.grid + 1) {
         *count = p.grid + 1;
@@ -283,15 +294,8 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
     NTR_TRY(history_order);
     NTR_TRY(timed_flows_order(flows, n_flows));
 
-    p.na0 = history[n_history - 1].na_mmol_l;
-    p.tbw0 = tbw_l;
-    p.flows = flows;
-    p.n_flows = n_flows;
-    p.duration_h = duration_h;
-    p.step_h = step_h;
-    p.grid = grid_count(duration_h, step_h);
-    p.history = history;
-    p.n_history = n_history;
+    plan_init(&p, history[n_history - 1].na_mmol_l, tbw_l, flows, n_flows,
+              duration_h, step_h, history, n_history);
     NTR_TRY(plan_validate(&p, &final_na, &final_tbw));
 
     v.samples = NULL;

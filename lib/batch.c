@@ -825,13 +825,7 @@ int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    if (method == NTR_GLUCOSE_KATZ) {
-        factor = NTR_KATZ_FACTOR;
-    } else if (method == NTR_GLUCOSE_HILLIER) {
-        factor = NTR_HILLIER_FACTOR;
-    } else {
-        return NTR_ERR_ARG;
-    }
+    NTR_TRY(ntri_glucose_factor(method, &factor));
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {

@@ -94,6 +94,20 @@ static inline int ntr_check_tbw(double tbw_l)
 #define NTR_GLUCOSE_REFERENCE_MG_DL 100.0
 #define NTR_KATZ_FACTOR 1.6
 #define NTR_HILLIER_FACTOR 2.4
+/* The factor of a published glucose correction (NTR_GLUCOSE_*), or
+ * NTR_ERR_ARG for an unknown method; *factor is left alone then. */
+static inline int ntri_glucose_factor(int method, double *factor)
+{
+    if (method == NTR_GLUCOSE_KATZ) {
+        *factor = NTR_KATZ_FACTOR;
+    } else if (method == NTR_GLUCOSE_HILLIER) {
+        *factor = NTR_HILLIER_FACTOR;
+    } else {
+        return NTR_ERR_ARG;
+    }
+    return NTR_OK;
+}
+
 static inline double ntri_glucose_corrected(double na_mmol_l,
                                             double glucose_mmol_l,
                                             double factor_per_100mg_dl)

@@ -26,13 +26,7 @@ int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
     if (na_corrected_mmol_l == NULL) {
         return NTR_ERR_NULL;
     }
-    if (method == NTR_GLUCOSE_KATZ) {
-        factor = NTR_KATZ_FACTOR;
-    } else if (method == NTR_GLUCOSE_HILLIER) {
-        factor = NTR_HILLIER_FACTOR;
-    } else {
-        return NTR_ERR_ARG;
-    }
+    NTR_TRY(ntri_glucose_factor(method, &factor));
     return ntr_na_corrected_glucose_factor(na_mmol_l, glucose_mmol_l, factor,
                                            na_corrected_mmol_l);
 }

@@ -76,13 +76,7 @@ int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
     if (tonicity == NULL || flags == NULL) {
         return NTR_ERR_NULL;
     }
-    if (glucose_method == NTR_GLUCOSE_KATZ) {
-        factor = NTR_KATZ_FACTOR;
-    } else if (glucose_method == NTR_GLUCOSE_HILLIER) {
-        factor = NTR_HILLIER_FACTOR;
-    } else {
-        return NTR_ERR_ARG;
-    }
+    NTR_TRY(ntri_glucose_factor(glucose_method, &factor));
     NTR_TRY(ntr_check_na(na_mmol_l));
     NTR_TRY(ntr_check(glucose_mmol_l, 0.0, NTR_GLUCOSE_MAX));
     NTR_TRY(ntr_check(measured_osm_mosm_kg, NTR_OSM_MIN, NTR_OSM_MAX));
