@@ -32,7 +32,7 @@
 /** @name Version
  *  @{ */
 #define NTR_VERSION_MAJOR 1 /**< Major version: changes only with an ABI break. */
-#define NTR_VERSION_MINOR 0 /**< Minor version: compatible additions. */
+#define NTR_VERSION_MINOR 1 /**< Minor version: compatible additions. */
 #define NTR_VERSION_PATCH 0 /**< Patch version: fixes without API change. */
 /** @} */
 
@@ -1688,6 +1688,68 @@ NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
  * @ref NTR_METHOD_RULE_OF_SIXES.
  */
 NTR_API int ntr_watch_result(const ntr_watch *w, ntr_correction *out);
+
+/* ---- 1.1: direction-aware course limits (rises and falls) ------------- */
+
+/** @name Goals of a correction (ntr_course_limits.goal; ABI, since 1.1)
+ *  @{ */
+#define NTR_GOAL_RAISE 1 /**< A low sodium being raised. */
+#define NTR_GOAL_LOWER 2 /**< A high sodium being lowered. */
+#define NTR_GOAL_HOLD 3  /**< Neither direction wanted (target reached, clamp, neurosurgery). */
+/** @} */
+
+/** @name Course presets (ntr_course_limits_preset(); ABI, since 1.1)
+ *  @{ */
+#define NTR_COURSE_HYPO_STANDARD 1  /**< raise; rises at most 10 in 24 h, 18 in 48 h */
+#define NTR_COURSE_HYPO_HIGH_RISK 2 /**< raise; rises at most 8 in 24 h, 16 in 48 h */
+#define NTR_COURSE_HYPER_CHRONIC 3  /**< lower; falls at most 10 in any 24 h */
+/** @} */
+
+/**
+ * @brief Limits on a sodium course in both directions (ABI since 1.1).
+ *
+ * Set @c struct_size to sizeof(ntr_course_limits) (ntr_course_limits_preset()
+ * does). A limit of 0 means no limit in that direction.
+ */
+typedef struct ntr_course_limits {
+    size_t struct_size;    /**< sizeof(ntr_course_limits) as the caller knows it. */
+    int goal;              /**< NTR_GOAL_*. */
+    double max_rise_24h;   /**< Largest allowed rise within any 24 h, mmol/L (0: none). */
+    double max_rise_48h;   /**< Largest allowed rise within any 48 h, mmol/L (0: none). */
+    double max_fall_24h;   /**< Largest allowed fall within any 24 h, mmol/L (0: none). */
+    double max_fall_48h;   /**< Largest allowed fall within any 48 h, mmol/L (0: none). */
+    double min_change_24h; /**< Change wanted in the goal's direction by 24 h, mmol/L (0: no target). */
+} ntr_course_limits;
+
+/** @name Course flags added in 1.1 (bits of ntr_course_report.flags; ABI)
+ *  Bits 1-64 keep their 1.0 meaning (rises); see NTR_CF_OVER_24H and on.
+ *  @{ */
+#define NTR_CF_FALL_OVER_24H 0x80u  /**< max_fall_24h exceeds the fall limit. */
+#define NTR_CF_FALL_OVER_48H 0x100u /**< max_fall_48h exceeds the fall limit. */
+#define NTR_CF_WRONG_WAY 0x200u     /**< Moved against the goal by more than the library's margin. */
+#define NTR_CF_APPROXIMATE 0x400u   /**< A watcher compacted its memory: figures are upper bounds. */
+/** @} */
+
+/**
+ * @brief What ntr_course_assess() finds in a series (ABI since 1.1).
+ *
+ * Set @c struct_size to sizeof(ntr_course_report) before the call.
+ */
+typedef struct ntr_course_report {
+    size_t struct_size;     /**< sizeof(ntr_course_report) as the caller knows it. */
+    double max_rise_24h;    /**< Largest rise between two samples at most 24 h apart (>= 0). */
+    double max_rise_48h;    /**< Largest rise between two samples at most 48 h apart (>= 0). */
+    double max_fall_24h;    /**< Largest fall between two samples at most 24 h apart (>= 0). */
+    double max_fall_48h;    /**< Largest fall between two samples at most 48 h apart (>= 0). */
+    double excess_mmol_l;   /**< The worst window's excess over its limit, either direction (0 if none). */
+    unsigned int flags;     /**< NTR_CF_* bits. */
+} ntr_course_report;
+
+NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
+
+NTR_API int ntr_course_assess(const ntr_sample *s, size_t n,
+                              const ntr_course_limits *lim,
+                              ntr_course_report *out);
 /** @} */
 
 /* ======================================================================= */
