@@ -1178,12 +1178,13 @@ NTR_API int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
  * @brief Total body water as a fraction of weight for @p n rows
  *        (see ntr_tbw_fraction()).
  *
- * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (under 18 years),
- * 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and over).
+ * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (1 to below 18
+ * years), 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and
+ * over). Infants under 1 year are refused, as by ntr_tbw_fraction().
  *
  * @param n number of rows.
  * @param sex @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE per row.
- * @param age_years age, years, 0 to 130.
+ * @param age_years age, years, 1 to 130.
  * @param weight_kg body weight, kg, 0.3 to 650.
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
@@ -1213,7 +1214,8 @@ NTR_API int ntr_batch_tbw_fraction(size_t n, const int *sex,
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
  *                     NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN
- *                     (the equation gives 0 L or less).
+ *                     (the result is below 20% or above 80% of the
+ *                     weight, or below 0.1 L, as ntr_tbw_watson()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1281,7 +1283,8 @@ NTR_API int ntr_batch_na_deficit(size_t n, const double *tbw_l,
  * @param infusate_na_mmol_l infusate sodium, mmol/L, 0 to 1100.
  * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
  * @param[out] out     n changes, mmol/L (NaN in failed rows).
- * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *                     NTR_ERR_DOMAIN (as ntr_infusate_change_per_litre()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1310,7 +1313,8 @@ NTR_API int ntr_batch_infusate_change_per_litre(size_t n,
  * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
  * @param volume_l volume given, L, 0 to 20.
  * @param[out] out     n changes, mmol/L (NaN in failed rows).
- * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *                     NTR_ERR_DOMAIN (as ntr_infusate_change()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1340,8 +1344,10 @@ NTR_API int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
  * @param target_delta_mmol_l wanted change, mmol/L, -50 to 50.
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE,
- *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (unreachable target or
- *                     more than 20 L).
+ *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (as
+ *                     ntr_infusate_volume_for_change(): target sodium
+ *                     outside 80 to 220, unreachable target, more than
+ *                     20 L, or a volume ntr_infusate_change() refuses).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
