@@ -346,8 +346,8 @@ int ntr_relower_estimate(double na_mmol_l, double tbw_l, double fluid_na_mmol_l,
     }
     /* The state the plan ends in, by the rule ntr_balance_predict() and the
      * course apply: refused here when they would refuse it (body water
-     * below 0.1 L, or, when the losses alone overshoot, a sodium below
-     * 80). Sodium moves monotonically between the start and this end under
+     * outside 0.1 to 400 L, or, when the losses alone overshoot, a sodium
+     * below 80). Sodium moves monotonically between the start and this end under
      * steady rates, so the course in between is inside too. */
     NTR_TRY(ntri_mass_balance(na_mmol_l, tbw_l, volume - urine_l,
                               volume * (fluid_c - na_mmol_l) -
