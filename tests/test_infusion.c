@@ -139,7 +139,7 @@ static void per_litre_bad_inputs_leave_output_untouched(void **state)
 /* ---- ntr_infusate_change --------------------------------------------------- */
 
 /* Source: Furst H et al., Am J Med Sci 2000;319:240-4, worked example
- * (checked, /work/shared/sources.md), the forward step only: the paper
+ * (checked against the paper), the forward step only: the paper
  * wanted a rise of 5 from 108 in a body water of 30 L and sized the dose
  * by the sodium-deficit step, 5 x 30 = 150 mmol / 513 mmol/L = 292 mL of
  * 3% saline; its own mass-balance check then gives about 112, a rise of
@@ -292,7 +292,7 @@ static void change_bad_inputs_leave_output_untouched(void **state)
 /* ---- ntr_infusate_volume_for_change --------------------------------------- */
 
 /* The exact inverse on the inputs of the Furst et al. 2000 example
- * (hand-worked, /work/shared/sources.md): a rise of 5 from 108 in 30 L of
+ * (hand-worked): a rise of 5 from 108 in 30 L of
  * body water needs 5 x 30 / (513 - 108 - 5) = 150/400 = 0.375 L of 3%
  * saline, not the 292 mL the paper's sodium-deficit step gave (that dose
  * reaches about 112, test change_furst_worked_example). The 375 mL

@@ -34,7 +34,7 @@ static double corrected_factor(double na, double glucose_mmol_l, double factor)
 /* Source: Katz MA, N Engl J Med 1973;289:843-4: sodium falls 1.6 mmol/L per
  * 100 mg/dL of glucose above 100 mg/dL. Hillier TA et al., Am J Med
  * 1999;106:399-403: 2.4 per 100 mg/dL (both factors checked against
- * Hillier's abstract, /work/shared/sources.md). Hand-worked from them:
+ * Hillier's published abstract). Hand-worked from them:
  * Na 130 with glucose 600 mg/dL -> Katz 130 + 1.6*5 = 138.0,
  * Hillier 130 + 2.4*5 = 142.0; glucose 400 mg/dL -> +4.8 and +7.2. */
 static void corrected_glucose_katz_and_hillier_worked(void **state)

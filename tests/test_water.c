@@ -124,7 +124,7 @@ static void fraction_bad_inputs_leave_output_untouched(void **state)
 /* ---- ntr_tbw_watson ------------------------------------------------------ */
 
 /* Source: Watson PE, Watson ID, Batt RD, Am J Clin Nutr 1980;33:27-39
- * (coefficients checked against the abstract, /work/shared/sources.md):
+ * (coefficients checked against the published abstract):
  *   men   2.447 - 0.09516*age + 0.1074*height + 0.3362*weight
  *   women -2.097 + 0.1069*height + 0.2466*weight.
  * Hand-worked: man 40 y, 175 cm, 75 kg:

@@ -6,7 +6,7 @@
  * diagnosis and treatment of hyponatraemia. Eur J Endocrinol
  * 2014;170(3):G1-G47. Its thresholds (severity bands, 275 mOsm/kg, the
  * urine thresholds and the SIAD criteria) are checked against the
- * guideline (/work/shared/sources.md); docs/workup.md lists them. Every patient
+ * guideline's published text; docs/workup.md lists them. Every patient
  * below is an invented scenario. */
 #include <stdarg.h>
 #include <stddef.h>
