@@ -217,6 +217,9 @@ class ConstantsMatchHeader(unittest.TestCase):
         self.check(ntr.Severity, "NTR_SEVERITY_")
         self.check(ntr.Tonicity, "NTR_TONICITY_")
         self.check(ntr.LowNaFlag, "NTR_LOW_NA_")
+        self.check(ntr.Goal, "NTR_GOAL_")
+        self.check(ntr.CoursePreset, "NTR_COURSE_")
+        self.check(ntr.CourseFlag, "NTR_CF_")
         self.assertEqual(self.defines["NTR_SEVERITY_NONE"], ntr.Severity.NONE)
         self.assertEqual(self.defines["NTR_OSM_2NA"], ntr.OsmFormula.TWO_NA)
         self.assertEqual(self.defines["NTR_OSM_DORWART_CHALMERS"],

@@ -1,0 +1,312 @@
+"""Direction-aware course limits (natremia 1.1): rises and falls, a goal,
+presets for low and high sodium, the assessment of a measured series and
+the direction-aware plan check.
+
+The 1.0 calls (limits_preset, correction_assess, Watch, plan_check) stay as
+they were; in the library they are thin wrappers over this same engine.
+
+Every result is an estimate for decision support, not an order. Verify
+with measured values; follow local protocols and licensed clinical
+judgement.
+"""
+
+import ctypes
+import enum
+from dataclasses import dataclass, fields
+
+from . import _core
+from ._core import (NatremiaError, SampleStruct, TimedFlowStruct, ERR_ARG,
+                    ERR_ORDER, ERR_NONFINITE, ERR_RANGE, OK, _enum, _fn,
+                    _timed_flows, c_double, c_int, c_size_t, c_uint)
+
+_P = ctypes.POINTER
+
+
+# ---------------------------------------------------------------------------
+# Enumerators (values from include/natremia.h; ABI)
+# ---------------------------------------------------------------------------
+
+class Goal(enum.IntEnum):
+    """What the treatment wants the sodium to do (NTR_GOAL_*)."""
+    RAISE = 1  # a low sodium being raised
+    LOWER = 2  # a high sodium being lowered
+    HOLD = 3   # neither direction wanted
+
+
+class CoursePreset(enum.IntEnum):
+    """Preset course limits (NTR_COURSE_*); course_limits_preset() gives
+    the figures and course_preset_names() what the loaded library knows."""
+    HYPO_STANDARD = 1
+    HYPO_HIGH_RISK = 2
+    HYPER_CHRONIC = 3
+
+
+class CourseFlag(enum.IntFlag):
+    """Bits of CourseReport.flags (NTR_CF_* in the C header). The first
+    seven keep their 1.0 meaning and concern rises; the 1.1 bits add the
+    falls, a move against the goal, and a watcher's approximation."""
+    NONE = 0
+    OVER_24H = 0x1          # rise over the 24 h limit
+    OVER_48H = 0x2          # rise over the 48 h limit
+    BELOW_TARGET = 0x4      # less change in the goal's direction than wanted by 24 h
+    FALLING = 0x8           # the last interval falls
+    NEAR_LIMIT = 0x10       # a rise within the near-limit margin of its limit
+    PROJECTED_OVER = 0x20   # the same rise again would pass a rise limit
+    RAPID_6H = 0x40         # 6 mmol/L or more within 6 h
+    FALL_OVER_24H = 0x80    # fall over the 24 h limit
+    FALL_OVER_48H = 0x100   # fall over the 48 h limit
+    WRONG_WAY = 0x200       # moved against the goal by more than the margin
+    APPROXIMATE = 0x400     # a watcher compacted its memory: upper bounds
+
+
+# Readable names of the flags, in bit order: the rise bits say "rise", so a
+# screen never shows a bare "over_24h" next to "fall_over_24h".
+FLAG_LABELS = {
+    CourseFlag.OVER_24H: "rise_over_24h",
+    CourseFlag.OVER_48H: "rise_over_48h",
+    CourseFlag.BELOW_TARGET: "below_target",
+    CourseFlag.FALLING: "falling",
+    CourseFlag.NEAR_LIMIT: "near_limit",
+    CourseFlag.PROJECTED_OVER: "projected_over",
+    CourseFlag.RAPID_6H: "rapid_6h",
+    CourseFlag.FALL_OVER_24H: "fall_over_24h",
+    CourseFlag.FALL_OVER_48H: "fall_over_48h",
+    CourseFlag.WRONG_WAY: "wrong_way",
+    CourseFlag.APPROXIMATE: "approximate",
+}
+
+
+def flag_labels(flags):
+    """The readable names of the set bits, in bit order; an unknown bit
+    (a newer library) reads "bit_0x...."."""
+    flags = int(flags)
+    names = []
+    bit = 1
+    while bit <= flags:
+        if flags & bit:
+            try:
+                names.append(FLAG_LABELS[CourseFlag(bit)])
+            except (KeyError, ValueError):
+                names.append("bit_0x%x" % bit)
+        bit <<= 1
+    return tuple(names)
+
+
+# ---------------------------------------------------------------------------
+# C structures (layouts mirror include/natremia.h)
+# ---------------------------------------------------------------------------
+
+class CourseLimitsStruct(ctypes.Structure):
+    _fields_ = [("struct_size", c_size_t), ("goal", c_int),
+                ("max_rise_24h", c_double), ("max_rise_48h", c_double),
+                ("max_fall_24h", c_double), ("max_fall_48h", c_double),
+                ("min_change_24h", c_double)]
+
+
+class CourseReportStruct(ctypes.Structure):
+    _fields_ = [("struct_size", c_size_t),
+                ("max_rise_24h", c_double), ("max_rise_48h", c_double),
+                ("max_fall_24h", c_double), ("max_fall_48h", c_double),
+                ("excess_mmol_l", c_double), ("flags", c_uint)]
+
+
+def _new_report():
+    out = CourseReportStruct()
+    out.struct_size = ctypes.sizeof(CourseReportStruct)
+    return out
+
+
+_PROTOTYPES = {
+    "ntr_course_limits_preset": (c_int, [c_int, _P(CourseLimitsStruct)]),
+    "ntr_course_assess": (c_int, [_P(SampleStruct), c_size_t,
+                                  _P(CourseLimitsStruct),
+                                  _P(CourseReportStruct)]),
+}
+_core._PROTOTYPES.update(_PROTOTYPES)
+
+
+# ---------------------------------------------------------------------------
+# Limits
+# ---------------------------------------------------------------------------
+
+@dataclass(frozen=True)
+class CourseLimits:
+    """Limits on a sodium course in both directions, mmol/L (0: no limit
+    in that direction; min_change_24h 0: no target). ``goal`` is a Goal
+    member, its int value or its name ("raise", "lower", "hold")."""
+    goal: Goal
+    max_rise_24h: float = 0.0
+    max_rise_48h: float = 0.0
+    max_fall_24h: float = 0.0
+    max_fall_48h: float = 0.0
+    min_change_24h: float = 0.0
+
+    def __post_init__(self):
+        object.__setattr__(self, "goal", Goal(_enum(Goal, self.goal, "goal",
+                                                    "CourseLimits")))
+
+    def _struct(self):
+        return CourseLimitsStruct(ctypes.sizeof(CourseLimitsStruct),
+                                  int(self.goal), self.max_rise_24h,
+                                  self.max_rise_48h, self.max_fall_24h,
+                                  self.max_fall_48h, self.min_change_24h)
+
+
+_LIMIT_MEMBERS = ("max_rise_24h", "max_rise_48h", "max_fall_24h",
+                  "max_fall_48h", "min_change_24h")
+
+
+def course_limits_preset(preset):
+    """Preset course limits as a CourseLimits: a CoursePreset member, its
+    int value, or its name ("hypo_standard", "hypo_high_risk",
+    "hyper_chronic", or any preset the loaded library adds)."""
+    fn = "course_limits_preset"
+    code = _preset_code(preset, fn)
+    out = CourseLimitsStruct()
+    out.struct_size = ctypes.sizeof(CourseLimitsStruct)
+    status = _fn("ntr_course_limits_preset")(code, ctypes.byref(out))
+    if status != OK:
+        raise NatremiaError(status, fn, argument="preset", value=preset)
+    return CourseLimits(Goal(out.goal), out.max_rise_24h, out.max_rise_48h,
+                        out.max_fall_24h, out.max_fall_48h, out.min_change_24h)
+
+
+def _preset_code(preset, function):
+    if isinstance(preset, str):
+        key = preset.strip().lower().replace("-", "_").replace(" ", "_")
+        code = course_preset_names().get(key)
+        if code is None:
+            raise NatremiaError(ERR_ARG, function, argument="preset",
+                                value=preset, detail="one of " + ", ".join(
+                                    sorted(course_preset_names())))
+        return code
+    return int(preset)
+
+
+def course_preset_names():
+    """{name: code} of the presets: those this binding names, plus any the
+    loaded library defines beyond them (named "preset_N")."""
+    names = {m.name.lower(): int(m) for m in CoursePreset}
+    code = max(names.values()) + 1
+    probe = CourseLimitsStruct()
+    probe.struct_size = ctypes.sizeof(CourseLimitsStruct)
+    # Presets are numbered from 1 without gaps (ABI: added at fresh values).
+    while code < 64 and _fn("ntr_course_limits_preset")(
+            code, ctypes.byref(probe)) == OK:
+        names.setdefault("preset_%d" % code, code)
+        code += 1
+    return names
+
+
+def _course_limits_struct(limits, function):
+    """A CourseLimitsStruct from a CourseLimits or a preset."""
+    if isinstance(limits, CourseLimits):
+        return limits._struct()
+    if isinstance(limits, (str, int)):
+        try:
+            return course_limits_preset(limits)._struct()
+        except NatremiaError as err:
+            raise NatremiaError(err.status, function, argument="limits",
+                                value=limits, detail=err.detail) from None
+    raise TypeError("%s: limits must be a CourseLimits or a preset "
+                    "(CoursePreset member, int or name), not %r"
+                    % (function, limits))
+
+
+# ---------------------------------------------------------------------------
+# The report
+# ---------------------------------------------------------------------------
+
+@dataclass(frozen=True)
+class CourseReport:
+    """What the assessment of a sodium series found, mmol/L. The rises and
+    falls are the largest increase / decrease between two samples at most
+    24 h (48 h) apart (both >= 0); excess_mmol_l is the worst window's
+    excess over its limit in either direction. ``flags`` is a CourseFlag;
+    ``flag_names`` the same bits by readable name."""
+    max_rise_24h: float
+    max_rise_48h: float
+    max_fall_24h: float
+    max_fall_48h: float
+    excess_mmol_l: float
+    flags: CourseFlag
+
+    @property
+    def flag_names(self):
+        return flag_labels(self.flags)
+
+    @classmethod
+    def _from_struct(cls, s):
+        values = {}
+        for f in fields(cls):
+            raw = getattr(s, f.name)
+            values[f.name] = CourseFlag(raw) if f.name == "flags" else raw
+        return cls(**values)
+
+    def as_dict(self):
+        """The fields and the readable flag names, for a table row."""
+        row = {f.name: getattr(self, f.name) for f in fields(self)}
+        row["flags"] = int(self.flags)
+        row["flag_names"] = self.flag_names
+        return row
+
+
+# ---------------------------------------------------------------------------
+# Assessment
+# ---------------------------------------------------------------------------
+
+_GOOD_SAMPLE = (0.0, 140.0)
+
+
+def _blame_series(hours, na, lim, status, function):
+    """(argument, value) that made a series call fail (see _core._blame:
+    one valid example stands in for everything but the value probed)."""
+    if status == ERR_ORDER:
+        for i in range(1, len(hours)):
+            if hours[i] < hours[i - 1]:
+                return "hours[%d]" % i, hours[i]
+        return "hours", None
+    if status not in (ERR_NONFINITE, ERR_RANGE):
+        return (None, None) if len(hours) else ("hours", [])
+    good = course_limits_preset(CoursePreset.HYPO_STANDARD)._struct()
+    for i in range(len(hours)):
+        for name, sample in (("hours", (hours[i], _GOOD_SAMPLE[1])),
+                             ("na_mmol_l", (_GOOD_SAMPLE[0], na[i]))):
+            one = (SampleStruct * 1)(SampleStruct(*sample))
+            if _course_status(one, 1, good) == status:
+                return "%s[%d]" % (name, i), sample[0 if name == "hours" else 1]
+    one = (SampleStruct * 1)(SampleStruct(*_GOOD_SAMPLE))
+    for name in _LIMIT_MEMBERS:
+        probe = CourseLimitsStruct.from_buffer_copy(good)
+        setattr(probe, name, getattr(lim, name))
+        if _course_status(one, 1, probe) == status:
+            return "limits." + name, getattr(lim, name)
+    return "limits", None
+
+
+def _course_status(samples, n, lim):
+    out = _new_report()
+    return _fn("ntr_course_assess")(samples, n, ctypes.byref(lim),
+                                    ctypes.byref(out))
+
+
+def course_assess(*, hours, na_mmol_l, limits):
+    """Assess a measured sodium series in both directions.
+
+    ``hours`` (non-decreasing) and ``na_mmol_l`` are sequences of equal
+    length; ``limits`` is a CourseLimits or a preset (CoursePreset member,
+    int or name such as "hyper_chronic"): there is no default, because the
+    direction the sodium should take is the caller's to state. Returns a
+    CourseReport; raises NatremiaError naming the failing argument
+    (``hours[3]``, ``na_mmol_l[0]``, ``limits.max_fall_24h``...)."""
+    fn = "course_assess"
+    samples, n = _core._samples(hours, na_mmol_l, fn)
+    lim = _course_limits_struct(limits, fn)
+    out = _new_report()
+    status = _fn("ntr_course_assess")(samples, n, ctypes.byref(lim),
+                                      ctypes.byref(out))
+    if status != OK:
+        argument, value = _blame_series(list(hours), list(na_mmol_l), lim,
+                                        status, fn)
+        raise NatremiaError(status, fn, argument=argument, value=value)
+    return CourseReport._from_struct(out)
