@@ -174,8 +174,10 @@ class Falls(unittest.TestCase):
     def test_flag_labels(self):
         self.assertEqual(ntr.flag_labels(F.OVER_24H | F.FALL_OVER_48H),
                          ("rise_over_24h", "fall_over_48h"))
-        self.assertEqual(ntr.flag_labels(0x800), ("bit_0x800",))
-        self.assertEqual(len(ntr.FLAG_LABELS), len(F) - 1)
+        self.assertEqual(ntr.flag_labels(0x4000), ("bit_0x4000",))
+        # Every flag has a readable name (test_bindings compares the flags
+        # with the header's NTR_CF_COURSE_ALL).
+        self.assertEqual(set(ntr.FLAG_LABELS), set(F))
 
 
 class Errors(unittest.TestCase):
@@ -376,6 +378,72 @@ class Table(unittest.TestCase):
         self.assertIn("fall_over_24h", out.loc["a", "flag_names"])
         self.assertIn("rise_over_24h", out.loc["b", "flag_names"])
         self.assertEqual(out.loc["c", "status"], ntr.ERR_RANGE)
+
+
+class PlanCheck(unittest.TestCase):
+    def test_water_plan_in_hypernatraemia_breaches_the_fall_limit(self):
+        # The case, hand-worked by mass balance (Adrogue & Madias,
+        # Hypernatremia, N Engl J Med 2000: 5% dextrose adds water only):
+        # Na 165, body water 34 L, 500 mL/h for 24 h adds 12 L, so the
+        # sodium ends at 165 * 34 / 46 = 121.96 (a fall of 43). The fall
+        # passes 10 once 165 * 34 / (34 + v) < 155, i.e. v > 2.194 L, after
+        # 4.39 h: the first point of a 0.5 h grid over it is at 4.5 h.
+        d5 = ntr.fluid_preset("dextrose_5")
+        plan = ntr.course_plan_check(
+            history_hours=[0], history_na_mmol_l=[165], tbw_l=34,
+            flows=[(0, 24, 500, d5.na_mmol_l, d5.k_mmol_l)], duration_h=24,
+            step_h=0.5, limits="hyper_chronic")
+        self.assertAlmostEqual(plan.final_na_mmol_l, 165 * 34 / 46, places=9)
+        self.assertEqual(plan.breach_fall_24h_h, 4.5)
+        self.assertEqual(plan.first_breach_h, 4.5)
+        self.assertIs(plan.direction, ntr.BreachDirection.FALL)
+        self.assertEqual(plan.first_breach, F.FALL_OVER_24H)
+        self.assertEqual(plan.first_breach_name, "fall_over_24h")
+        self.assertIsNone(plan.breach_rise_24h_h)
+        self.assertAlmostEqual(plan.course.max_fall_24h, 165 - 165 * 34 / 46,
+                               places=9)
+        self.assertTrue(plan.course.flags & F.FALL_OVER_24H)
+        self.assertEqual(plan.points, 48)
+
+    def test_saline_plan_rise_breach_as_in_1_0(self):
+        # Hand-worked: Na 110, body water 30 L, 3% saline (513 mmol/L) at
+        # 100 mL/h: (3300 + 513 v) / (30 + v) > 120 once v > 300/393 =
+        # 0.763 L, after 7.63 h: first grid point over at 8 h. The 1.0
+        # plan check finds the same time.
+        flows = [(0, 24, 100, 513, 0)]
+        plan = ntr.course_plan_check(history_hours=[0], history_na_mmol_l=[110],
+                                     tbw_l=30, flows=flows, duration_h=24,
+                                     step_h=0.5, limits="hypo_standard")
+        old = ntr.plan_check(history_hours=[0], history_na_mmol_l=[110],
+                             tbw_l=30, flows=flows, duration_h=24, step_h=0.5)
+        self.assertEqual(plan.breach_rise_24h_h, 8.0)
+        self.assertEqual(old.breach_24h_h, 8.0)
+        self.assertIs(plan.direction, ntr.BreachDirection.RISE)
+        self.assertIsNone(plan.breach_fall_24h_h)
+
+    def test_plan_errors_name_the_argument(self):
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.course_plan_check(history_hours=[0], history_na_mmol_l=[165],
+                                  tbw_l=-3, flows=[], duration_h=24, step_h=1,
+                                  limits="hyper_chronic")
+        self.assertEqual(caught.exception.argument, "tbw_l")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.course_plan_check(history_hours=[0], history_na_mmol_l=[165],
+                                  tbw_l=34, flows=[], duration_h=24,
+                                  step_h=math.nan, limits="hyper_chronic")
+        self.assertEqual(caught.exception.argument, "step_h")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.course_plan_check(history_hours=[0, 1],
+                                  history_na_mmol_l=[165, 500], tbw_l=34,
+                                  flows=[], duration_h=24, step_h=1,
+                                  limits="hyper_chronic")
+        self.assertEqual(caught.exception.argument, "history_na_mmol_l[1]")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.course_plan_check(history_hours=[0], history_na_mmol_l=[165],
+                                  tbw_l=34, flows=[(0, 24, 99999, 0, 0)],
+                                  duration_h=24, step_h=1,
+                                  limits="hyper_chronic")
+        self.assertEqual(caught.exception.argument, "flows")
 
 
 class EffectiveTonicity(unittest.TestCase):

@@ -12,6 +12,7 @@ judgement.
 
 import ctypes
 import enum
+import functools
 from dataclasses import dataclass, fields
 
 from . import _core
@@ -36,9 +37,11 @@ class Goal(enum.IntEnum):
 class CoursePreset(enum.IntEnum):
     """Preset course limits (NTR_COURSE_*); course_limits_preset() gives
     the figures and course_preset_names() what the loaded library knows."""
-    HYPO_STANDARD = 1
-    HYPO_HIGH_RISK = 2
-    HYPER_CHRONIC = 3
+    HYPO_STANDARD = 1   # raise; rises at most 10 in 24 h, 18 in 48 h
+    HYPO_HIGH_RISK = 2  # raise; rises at most 8 in 24 h, 16 in 48 h
+    HYPER_CHRONIC = 3   # lower; falls at most 10 in any 24 h
+    HYPER_ACUTE = 4     # lower; falls at most 24 in any 24 h
+    HOLD = 5            # hold; rises and falls at most 4 in any 24 h
 
 
 class CourseFlag(enum.IntFlag):
@@ -57,6 +60,8 @@ class CourseFlag(enum.IntFlag):
     FALL_OVER_48H = 0x100   # fall over the 48 h limit
     WRONG_WAY = 0x200       # moved against the goal by more than the margin
     APPROXIMATE = 0x400     # a watcher compacted its memory: upper bounds
+    FALL_NEAR_LIMIT = 0x800       # a fall within the near-limit margin of its limit
+    FALL_PROJECTED_OVER = 0x1000  # the same fall again would pass a fall limit
 
 
 # Readable names of the flags, in bit order: the rise bits say "rise", so a
@@ -73,6 +78,8 @@ FLAG_LABELS = {
     CourseFlag.FALL_OVER_48H: "fall_over_48h",
     CourseFlag.WRONG_WAY: "wrong_way",
     CourseFlag.APPROXIMATE: "approximate",
+    CourseFlag.FALL_NEAR_LIMIT: "fall_near_limit",
+    CourseFlag.FALL_PROJECTED_OVER: "fall_projected_over",
 }
 
 
@@ -107,7 +114,16 @@ class CourseReportStruct(ctypes.Structure):
     _fields_ = [("struct_size", c_size_t),
                 ("max_rise_24h", c_double), ("max_rise_48h", c_double),
                 ("max_fall_24h", c_double), ("max_fall_48h", c_double),
-                ("excess_mmol_l", c_double), ("flags", c_uint)]
+                ("excess_mmol_l", c_double), ("flags", c_uint),
+                ("reserved", c_uint),
+                ("rise_first_24h", c_double), ("fall_first_24h", c_double),
+                ("rise_now_24h", c_double), ("fall_now_24h", c_double),
+                ("last_rate_per_h", c_double), ("elapsed_h", c_double),
+                ("worst_at_h", c_double)]
+
+
+# ntr_course_report.worst_at_h when no window is over (NTR_COURSE_NO_TIME).
+COURSE_NO_TIME = -1.0e9
 
 
 def _new_report():
@@ -116,11 +132,26 @@ def _new_report():
     return out
 
 
+class CoursePlanResultStruct(ctypes.Structure):
+    _fields_ = [("struct_size", c_size_t), ("final_na_mmol_l", c_double),
+                ("final_tbw_l", c_double), ("breach_rise_24h_h", c_double),
+                ("breach_rise_48h_h", c_double),
+                ("breach_fall_24h_h", c_double),
+                ("breach_fall_48h_h", c_double), ("first_breach_h", c_double),
+                ("first_breach_flag", c_uint),
+                ("first_breach_direction", c_int), ("points", c_uint),
+                ("reserved", c_uint), ("course", CourseReportStruct)]
+
+
 _PROTOTYPES = {
     "ntr_course_limits_preset": (c_int, [c_int, _P(CourseLimitsStruct)]),
     "ntr_course_assess": (c_int, [_P(SampleStruct), c_size_t,
                                   _P(CourseLimitsStruct),
                                   _P(CourseReportStruct)]),
+    "ntr_course_plan_check": (c_int, [_P(SampleStruct), c_size_t, c_double,
+                                      _P(TimedFlowStruct), c_size_t, c_double,
+                                      c_double, _P(CourseLimitsStruct),
+                                      _P(CoursePlanResultStruct)]),
 }
 _core._PROTOTYPES.update(_PROTOTYPES)
 
@@ -174,16 +205,27 @@ def course_limits_preset(preset):
 def _preset_code(preset, function):
     if isinstance(preset, str):
         key = preset.strip().lower().replace("-", "_").replace(" ", "_")
-        code = course_preset_names().get(key)
+        code = _preset_names().get(key)
         if code is None:
             raise NatremiaError(ERR_ARG, function, argument="preset",
                                 value=preset, detail="one of " + ", ".join(
-                                    sorted(course_preset_names())))
+                                    sorted(_preset_names())))
         return code
     return int(preset)
 
 
+@functools.lru_cache(maxsize=1)
+def _preset_names():
+    return _probe_preset_names()
+
+
 def course_preset_names():
+    """{name: code} of the presets: those this binding names, plus any the
+    loaded library defines beyond them (named "preset_N")."""
+    return dict(_preset_names())
+
+
+def _probe_preset_names():
     """{name: code} of the presets: those this binding names, plus any the
     loaded library defines beyond them (named "preset_N")."""
     names = {m.name.lower(): int(m) for m in CoursePreset}
@@ -219,17 +261,28 @@ def _course_limits_struct(limits, function):
 
 @dataclass(frozen=True)
 class CourseReport:
-    """What the assessment of a sodium series found, mmol/L. The rises and
-    falls are the largest increase / decrease between two samples at most
-    24 h (48 h) apart (both >= 0); excess_mmol_l is the worst window's
-    excess over its limit in either direction. ``flags`` is a CourseFlag;
-    ``flag_names`` the same bits by readable name."""
+    """What the assessment of a sodium series found, mmol/L (rates
+    mmol/L/h, times hours). The max_* figures are "so far": the largest
+    increase / decrease between two samples at most 24 h (48 h) apart (both
+    >= 0); rise_now_24h / fall_now_24h are "now", over the 24 h ending at
+    the last sample; rise_first_24h / fall_first_24h over the first 24 h.
+    excess_mmol_l is the worst window's excess over its limit in either
+    direction, worst_at_h the time of its later sample (None when no window
+    is over). ``flags`` is a CourseFlag; ``flag_names`` the same bits by
+    readable name."""
     max_rise_24h: float
     max_rise_48h: float
     max_fall_24h: float
     max_fall_48h: float
     excess_mmol_l: float
     flags: CourseFlag
+    rise_first_24h: float
+    fall_first_24h: float
+    rise_now_24h: float
+    fall_now_24h: float
+    last_rate_per_h: float
+    elapsed_h: float
+    worst_at_h: object  # hours, or None
 
     @property
     def flag_names(self):
@@ -239,8 +292,10 @@ class CourseReport:
     def _from_struct(cls, s):
         values = {}
         for f in fields(cls):
-            raw = getattr(s, f.name)
-            values[f.name] = CourseFlag(raw) if f.name == "flags" else raw
+            values[f.name] = getattr(s, f.name)
+        values["flags"] = CourseFlag(values["flags"])
+        if values["worst_at_h"] == COURSE_NO_TIME:
+            values["worst_at_h"] = None
         return cls(**values)
 
     def as_dict(self):
@@ -310,3 +365,121 @@ def course_assess(*, hours, na_mmol_l, limits):
                                         status, fn)
         raise NatremiaError(status, fn, argument=argument, value=value)
     return CourseReport._from_struct(out)
+
+
+# ---------------------------------------------------------------------------
+# The plan check in both directions
+# ---------------------------------------------------------------------------
+
+class BreachDirection(enum.IntEnum):
+    """Direction of the first predicted breach (NTR_PLAN_BREACH_*)."""
+    NONE = 0
+    RISE = 1
+    FALL = 2
+
+
+_NO_BREACH = -1.0  # NTR_PLAN_NO_BREACH
+
+
+def _breach(hours):
+    return None if hours == _NO_BREACH else hours
+
+
+@dataclass(frozen=True)
+class CoursePlanResult:
+    """What a fluid plan is predicted to do, checked against limits in both
+    directions. Breach times are hours after the plan starts (None: no
+    predicted point over that limit); ``first_breach_h`` is the earliest,
+    ``first_breach`` its limit as a CourseFlag (OVER_24H, OVER_48H,
+    FALL_OVER_24H or FALL_OVER_48H; NONE when there is none) and
+    ``direction`` a BreachDirection. ``course`` is the CourseReport of the
+    measured history followed by the predicted points."""
+    final_na_mmol_l: float
+    final_tbw_l: float
+    breach_rise_24h_h: object
+    breach_rise_48h_h: object
+    breach_fall_24h_h: object
+    breach_fall_48h_h: object
+    first_breach_h: object
+    first_breach: CourseFlag
+    direction: BreachDirection
+    points: int
+    course: CourseReport
+
+    @property
+    def first_breach_name(self):
+        """Readable name of the limit breached first, or None."""
+        return flag_labels(self.first_breach)[0] if self.first_breach else None
+
+
+_PLAN_ARGUMENTS = ("tbw_l", "flows", "duration_h", "step_h")
+
+
+def _blame_plan(hours, na, tbw_l, flows, duration_h, step_h, lim, status):
+    """(argument, value) that made a plan check fail: the history through
+    the series rules, then each scalar with the rest at valid examples."""
+    if status == ERR_ORDER:
+        for i in range(1, len(hours)):
+            if hours[i] < hours[i - 1]:
+                return "history_hours[%d]" % i, hours[i]
+        return "flows", None
+    if status not in (ERR_NONFINITE, ERR_RANGE):
+        return None, None
+    good_lim = course_limits_preset(CoursePreset.HYPO_STANDARD)._struct()
+    ok_history = (SampleStruct * 1)(SampleStruct(*_GOOD_SAMPLE))
+    good = (30.0, None, 24.0, 1.0)
+    given = (tbw_l, flows, duration_h, step_h)
+    # The history alone, as a course assessment checks it.
+    for i in range(len(hours)):
+        for name, sample in (("history_hours", (hours[i], _GOOD_SAMPLE[1])),
+                             ("history_na_mmol_l", (_GOOD_SAMPLE[0], na[i]))):
+            one = (SampleStruct * 1)(SampleStruct(*sample))
+            if _course_status(one, 1, good_lim) == status:
+                return "%s[%d]" % (name, i), sample[0 if name == "history_hours" else 1]
+    empty, _ = _timed_flows([])
+    for k, name in enumerate(_PLAN_ARGUMENTS):
+        args = [g if j <= k else e for j, (g, e) in enumerate(zip(given, good))]
+        flow_array, n_flows = (flows if k >= 1 else (empty, 0))
+        out = CoursePlanResultStruct()
+        out.struct_size = ctypes.sizeof(CoursePlanResultStruct)
+        out.course.struct_size = ctypes.sizeof(CourseReportStruct)
+        st = _fn("ntr_course_plan_check")(ok_history, 1, args[0], flow_array,
+                                          n_flows, args[2], args[3],
+                                          ctypes.byref(good_lim),
+                                          ctypes.byref(out))
+        if st == status:
+            return name, None if name == "flows" else given[k]
+    return "limits", None
+
+
+def course_plan_check(*, history_hours, history_na_mmol_l, tbw_l, flows,
+                      duration_h, step_h, limits):
+    """Check a fluid plan against limits in both directions before giving
+    it (ntr_course_plan_check): the measured history (its last sample is
+    "now"), then the predicted sodium under ``flows`` (TimedFlow(start_h,
+    end_h, rate_ml_h, na_mmol_l, k_mmol_l), hours after now). ``limits`` is
+    a CourseLimits or a preset ("hyper_chronic" for a water plan in
+    hypernatraemia). Returns a CoursePlanResult."""
+    fn = "course_plan_check"
+    history, n_history = _core._samples(history_hours, history_na_mmol_l, fn)
+    array, n = _timed_flows(flows)
+    lim = _course_limits_struct(limits, fn)
+    out = CoursePlanResultStruct()
+    out.struct_size = ctypes.sizeof(CoursePlanResultStruct)
+    out.course.struct_size = ctypes.sizeof(CourseReportStruct)
+    status = _fn("ntr_course_plan_check")(history, n_history, tbw_l, array, n,
+                                          duration_h, step_h,
+                                          ctypes.byref(lim), ctypes.byref(out))
+    if status != OK:
+        argument, value = _blame_plan(list(history_hours),
+                                      list(history_na_mmol_l), tbw_l,
+                                      (array, n), duration_h, step_h, lim,
+                                      status)
+        raise NatremiaError(status, fn, argument=argument, value=value)
+    return CoursePlanResult(
+        out.final_na_mmol_l, out.final_tbw_l,
+        _breach(out.breach_rise_24h_h), _breach(out.breach_rise_48h_h),
+        _breach(out.breach_fall_24h_h), _breach(out.breach_fall_48h_h),
+        _breach(out.first_breach_h), CourseFlag(out.first_breach_flag),
+        BreachDirection(out.first_breach_direction), out.points,
+        CourseReport._from_struct(out.course))

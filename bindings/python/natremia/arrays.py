@@ -340,8 +340,8 @@ def _course_batch_fn():
         fn = _core._lib_function("ntr_batch_course_assess")
         fn.argtypes = [ctypes.c_size_t, _P(ctypes.c_size_t),
                        _P(_core.SampleStruct), ctypes.c_size_t,
-                       _P(CourseLimitsStruct), _P(CourseReportStruct),
-                       _PI, _PSZ]
+                       _P(CourseLimitsStruct), ctypes.c_size_t,
+                       _P(CourseReportStruct), _PI, _PSZ]
         fn.restype = ctypes.c_int
         _declared["ntr_batch_course_assess"] = fn
     return fn
@@ -388,7 +388,8 @@ def course_assess_groups(*, hours, na_mmol_l, offsets, limits, errors="raise",
     code = _course_batch_fn()(
         groups, _ptr(offsets, ctypes.c_size_t),
         _ptr(samples, _core.SampleStruct), samples.size, ctypes.byref(lim),
-        _ptr(out, CourseReportStruct), _ptr(status, ctypes.c_int),
+        COURSE_REPORT_DTYPE.itemsize, _ptr(out, CourseReportStruct),
+        _ptr(status, ctypes.c_int),
         ctypes.byref(failed))
     if failed.value == _SIZE_MAX:
         raise NatremiaError(code, f, argument="offsets" if code ==
@@ -404,84 +405,104 @@ def _limits_key(limits):
     return ("limits", limits)
 
 
+def _factorize_limits(limits, n_rows, function):
+    """(codes per row, distinct limits) for a per-row sequence of limits:
+    vectorised for an array of preset names, a loop over the rows only
+    for other objects (CourseLimits)."""
+    a = np.asarray(limits) if not isinstance(limits, np.ndarray) else limits
+    if a.shape != (n_rows,):
+        raise NatremiaError(_core.ERR_ARG, function, "limits needs one entry "
+                            "per row (%d, not %s)" % (n_rows, a.shape),
+                            argument="limits")
+    if a.dtype.kind in "US":
+        distinct, codes = np.unique(a, return_inverse=True)
+        return codes, [str(x) for x in distinct]
+    index = {}
+    distinct = []
+    codes = np.empty(n_rows, dtype=np.intp)
+    for i, lim in enumerate(limits):
+        key = _limits_key(lim)
+        code = index.get(key)
+        if code is None:
+            code = index[key] = len(distinct)
+            distinct.append(lim)
+        codes[i] = code
+    return codes, distinct
+
+
 def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
     """Assess a long table of (patient id, time, sodium) rows, one series
     per patient, in both directions; the patient ids are kept.
 
     Rows may come in any order: they are sorted by (id, hours), stably.
     ``limits`` is one CourseLimits or preset for the whole cohort, or a
-    sequence with one per row (the same within a patient: for example the
-    preset each patient's goal calls for), or a dict {id: limits}. Patients
-    sharing limits go to the C batch together (one call per distinct
-    limits). Returns a structured array: "id", "status" (0 = NTR_OK), then
-    the fields of COURSE_REPORT_DTYPE, one record per patient in id order.
-    With ``errors="raise"`` the first failing patient raises NatremiaError
-    with its ``group_id``.
+    sequence with one per row (the same within a patient; a numpy array of
+    preset names is handled without a Python loop), or a dict {id: limits}.
+    Patients sharing limits go to the C batch together: one call of
+    ntr_batch_course_assess per distinct limits. Returns a structured
+    array: "id", "status" (0 = NTR_OK), then the fields of
+    COURSE_REPORT_DTYPE, one record per patient in id order. With
+    ``errors="raise"`` the first failing patient raises NatremiaError with
+    its ``group_id``.
     """
     f = "arrays.course_assess_table"
     _check_errors_choice(errors)
-    ids = np.asarray(ids)
+    ids = np.asarray(ids).ravel()
     hours = np.asarray(hours, dtype=np.float64).ravel()
     na = np.asarray(na_mmol_l, dtype=np.float64).ravel()
     if not (ids.size == hours.size == na.size):
         raise NatremiaError(_core.ERR_ARG, f, "ids, hours and na_mmol_l "
                             "differ in length (%d, %d, %d)"
                             % (ids.size, hours.size, na.size), argument="ids")
-    per_row = not isinstance(limits, (str, int, dict)) and \
-        not hasattr(limits, "_struct")
-    if per_row:
-        limits = list(limits)
-        if len(limits) != ids.size:
-            raise NatremiaError(_core.ERR_ARG, f, "limits needs one entry "
-                                "per row (%d, not %d)" % (ids.size,
-                                                          len(limits)),
-                                argument="limits")
     order = np.lexsort((hours, ids))
     ids, hours, na = ids[order], hours[order], na[order]
     offsets, group_ids = offsets_from_ids(ids)
     groups = group_ids.size
-    # The limits of each patient.
-    if per_row:
-        sorted_limits = [limits[i] for i in order]
-        patient_limits = []
-        for g in range(groups):
-            lo, hi = int(offsets[g]), int(offsets[g + 1])
-            first = _limits_key(sorted_limits[lo])
-            if any(_limits_key(x) != first for x in sorted_limits[lo:hi]):
-                raise NatremiaError(_core.ERR_ARG, f, "patient %r has rows "
-                                    "with different limits" % (group_ids[g],),
-                                    argument="limits",
-                                    group_id=group_ids[g].item())
-            patient_limits.append(sorted_limits[lo])
-    elif isinstance(limits, dict):
-        try:
-            patient_limits = [limits[i.item() if hasattr(i, "item") else i]
-                              for i in group_ids]
-        except KeyError as missing:
-            raise NatremiaError(_core.ERR_ARG, f, "no limits for patient %r"
-                                % (missing.args[0],), argument="limits",
-                                group_id=missing.args[0]) from None
+    counts = np.diff(offsets.astype(np.intp))
+    firsts = offsets[:-1].astype(np.intp)
+
+    # code of each patient's limits, and the distinct limits
+    if isinstance(limits, dict):
+        index, distinct = {}, []
+        patient_code = np.empty(groups, dtype=np.intp)
+        for g, pid in enumerate(group_ids.tolist()):
+            if pid not in limits:
+                raise NatremiaError(_core.ERR_ARG, f, "no limits for "
+                                    "patient %r" % (pid,), argument="limits",
+                                    group_id=pid)
+            key = _limits_key(limits[pid])
+            if key not in index:
+                index[key] = len(distinct)
+                distinct.append(limits[pid])
+            patient_code[g] = index[key]
+    elif isinstance(limits, (str, int)) or hasattr(limits, "_struct"):
+        patient_code = np.zeros(groups, dtype=np.intp)
+        distinct = [limits]
     else:
-        patient_limits = [limits] * groups
+        codes, distinct = _factorize_limits(limits, ids.size, f)
+        codes = codes[order]
+        patient_code = codes[firsts] if groups else codes[:0]
+        differs = codes != np.repeat(patient_code, counts)
+        if differs.any():
+            g = int(np.searchsorted(offsets, np.flatnonzero(differs)[0],
+                                    side="right")) - 1
+            raise NatremiaError(_core.ERR_ARG, f, "patient %r has rows with "
+                                "different limits" % (group_ids[g].item(),),
+                                argument="limits",
+                                group_id=group_ids[g].item())
 
     table = np.zeros(groups, dtype=[("id", group_ids.dtype),
                                     ("status", np.intc)] +
                      [(name, COURSE_REPORT_DTYPE.fields[name][0])
                       for name in COURSE_REPORT_DTYPE.names
-                      if name != "struct_size"])
+                      if name not in ("struct_size", "reserved")])
     table["id"] = group_ids
-    by_limits = {}
-    for g, lim in enumerate(patient_limits):
-        by_limits.setdefault(_limits_key(lim), (lim, []))[1].append(g)
-    for lim, members in by_limits.values():
-        members = np.asarray(members, dtype=np.intp)
-        # The members' rows, back to back, with offsets of their own.
-        starts = offsets[members].astype(np.intp)
-        counts = (offsets[members + 1] - offsets[members]).astype(np.intp)
-        rows = np.concatenate([np.arange(s, s + c) for s, c in
-                               zip(starts, counts)]) if members.size else \
-            np.zeros(0, dtype=np.intp)
-        sub_offsets = np.concatenate(([0], np.cumsum(counts)))
+    for code, lim in enumerate(distinct):
+        members = patient_code == code
+        if not members.any():
+            continue
+        rows = np.repeat(members, counts)
+        sub_offsets = np.concatenate(([0], np.cumsum(counts[members])))
         out, status = course_assess_groups(
             hours=hours[rows], na_mmol_l=na[rows], offsets=sub_offsets,
             limits=lim, errors="nan", with_status=True)
