@@ -21,6 +21,13 @@ CREATE TYPE ntr_course_report AS (
     excess_mmol_l   float8,  -- the worst window's excess over its limit, either direction
     flags           int4,    -- NTR_CF_* bits
     flag_names      text[],  -- the same bits by name (rise_over_24h, fall_over_24h, wrong_way, ...)
+    rise_first_24h  float8,  -- highest sodium within 24 h of the first sample, minus the first
+    fall_first_24h  float8,  -- the first sample minus the lowest within 24 h of it
+    rise_now_24h    float8,  -- "now": the last sample minus the lowest in the 24 h ending at it
+    fall_now_24h    float8,  -- "now": the highest in the 24 h ending at the last sample minus the last
+    last_rate_per_h float8,  -- change per hour over the last interval
+    elapsed_h       float8,  -- last sample's time minus the first's
+    worst_at_h      float8,  -- time of the later sample of the worst window; NULL when none is over
     samples         int4     -- number of samples assessed
 );
 
@@ -44,7 +51,7 @@ CREATE FUNCTION ntr_course_limits_preset_checked(preset text)
 RETURNS ntr_course_limits AS 'MODULE_PATHNAME', 'ntrpg_course_limits_checked'
 LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
 COMMENT ON FUNCTION ntr_course_limits_preset(text) IS
-'The limits of a course preset: hypo_standard (raise; rises at most 10 in 24 h, 18 in 48 h), hypo_high_risk (raise; 8 and 16), hyper_chronic (lower; falls at most 10 in any 24 h). NULL for an unknown name.';
+'The limits of a course preset: hypo_standard (raise; rises at most 10 in 24 h, 18 in 48 h), hypo_high_risk (raise; 8 and 16), hyper_chronic (lower; falls at most 10 in any 24 h), hyper_acute (lower; falls at most 24 in 24 h), hold (rises and falls at most 4 in 24 h). NULL for an unknown name.';
 
 CREATE FUNCTION ntr_course_assess_series(hours float8[], na_mmol_l float8[], preset text)
 RETURNS ntr_course_report AS 'MODULE_PATHNAME', 'ntrpg_course_series'
@@ -102,7 +109,7 @@ CREATE AGGREGATE ntr_course_assess_checked(hours float8, na_mmol_l float8, goal 
     PARALLEL = SAFE);
 
 COMMENT ON AGGREGATE ntr_course_assess(float8, float8, text) IS
-'Assesses one patient''s sodium series (per GROUP BY) in both directions against a course preset (hypo_standard, hypo_high_risk, hyper_chronic): largest rises and falls within 24 h and 48 h, the excess over a limit, and flags by name. NULL for invalid input.';
+'Assesses one patient''s sodium series (per GROUP BY) in both directions against a course preset (hypo_standard, hypo_high_risk, hyper_chronic, hyper_acute, hold): largest rises and falls within 24 h and 48 h, the excess over a limit, and flags by name. NULL for invalid input.';
 COMMENT ON AGGREGATE ntr_course_assess(float8, float8, text, float8, float8, float8, float8, float8) IS
 'Assesses one patient''s sodium series (per GROUP BY) against a goal (raise, lower, hold) and explicit limits in mmol/L: max_rise_24h, max_rise_48h, max_fall_24h, max_fall_48h (0: no limit), min_change_24h (0: no target). NULL for invalid input.';
 
@@ -129,3 +136,16 @@ RETURNS ntr_low_na_tonicity AS 'MODULE_PATHNAME', 'ntrpg_low_na_effective_tonici
 LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
 COMMENT ON FUNCTION ntr_low_na_effective_tonicity(float8, float8, float8, float8, float8, text) IS
 'Whether a low sodium is truly hypotonic, judged on the effective measured osmolality (measured minus urea and ethanol): tonicity class and flags (not_hypotonic, pseudo, translocational, glucose_explains, discordant, ineffective_osmoles). NULL for invalid input.';
+
+CREATE FUNCTION ntr_effective_osm_measured(na_mmol_l float8, glucose_mmol_l float8,
+                                           urea_mmol_l float8, ethanol_mmol_l float8,
+                                           measured_osm_mosm_kg float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_effective_osm_measured'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_effective_osm_measured_checked(na_mmol_l float8, glucose_mmol_l float8,
+                                                   urea_mmol_l float8, ethanol_mmol_l float8,
+                                                   measured_osm_mosm_kg float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_effective_osm_measured_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_effective_osm_measured(float8, float8, float8, float8, float8) IS
+'Effective serum osmolality from a measured one, mOsm/kg: measured less urea and 1.25 x ethanol, not below min(2*Na + glucose, measured). NULL for invalid input.';

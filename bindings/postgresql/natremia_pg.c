@@ -1120,6 +1120,8 @@ static const named_value course_presets[] = {
 	{"hypo_standard", NTR_COURSE_HYPO_STANDARD},
 	{"hypo_high_risk", NTR_COURSE_HYPO_HIGH_RISK},
 	{"hyper_chronic", NTR_COURSE_HYPER_CHRONIC},
+	{"hyper_acute", NTR_COURSE_HYPER_ACUTE},
+	{"hold", NTR_COURSE_HOLD},
 	{NULL, 0}
 };
 static const named_value goals[] = {
@@ -1132,7 +1134,8 @@ static const named_value goals[] = {
 static const char *const course_flag_names[] = {
 	"rise_over_24h", "rise_over_48h", "below_target", "falling",
 	"near_limit", "projected_over", "rapid_6h", "fall_over_24h",
-	"fall_over_48h", "wrong_way", "approximate"
+	"fall_over_48h", "wrong_way", "approximate", "fall_near_limit",
+	"fall_projected_over"
 };
 
 static Datum
@@ -1248,8 +1251,8 @@ course_datum(FunctionCallInfo fcinfo, const ntr_course_report *r,
 			 const ntr_course_limits *lim, int n)
 {
 	TupleDesc	desc;
-	Datum		values[9];
-	bool		nulls[9];
+	Datum		values[16];
+	bool		nulls[16];
 
 	memset(nulls, 0, sizeof nulls);
 	if (get_call_result_type(fcinfo, NULL, &desc) != TYPEFUNC_COMPOSITE)
@@ -1265,7 +1268,15 @@ course_datum(FunctionCallInfo fcinfo, const ntr_course_report *r,
 	values[5] = Float8GetDatum(r->excess_mmol_l);
 	values[6] = Int32GetDatum((int32) r->flags);
 	values[7] = course_flags_array(r->flags);
-	values[8] = Int32GetDatum(n);
+	values[8] = Float8GetDatum(r->rise_first_24h);
+	values[9] = Float8GetDatum(r->fall_first_24h);
+	values[10] = Float8GetDatum(r->rise_now_24h);
+	values[11] = Float8GetDatum(r->fall_now_24h);
+	values[12] = Float8GetDatum(r->last_rate_per_h);
+	values[13] = Float8GetDatum(r->elapsed_h);
+	values[14] = Float8GetDatum(r->worst_at_h);
+	nulls[14] = r->worst_at_h == NTR_COURSE_NO_TIME;
+	values[15] = Int32GetDatum(n);
 	return HeapTupleGetDatum(heap_form_tuple(desc, values, nulls));
 }
 
@@ -1461,3 +1472,19 @@ low_na_effective_tonicity_impl(FunctionCallInfo fcinfo, bool checked)
 	PG_RETURN_DATUM(HeapTupleGetDatum(heap_form_tuple(desc, values, nulls)));
 }
 NTRPG_PAIR(low_na_effective_tonicity)
+
+static Datum
+effective_osm_measured_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_effective_osm_measured_checked"
+		: "ntr_effective_osm_measured";
+	double		out = 0.0;
+	int			st = ntr_effective_osm_measured(PG_GETARG_FLOAT8(0),
+												PG_GETARG_FLOAT8(1),
+												PG_GETARG_FLOAT8(2),
+												PG_GETARG_FLOAT8(3),
+												PG_GETARG_FLOAT8(4), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(effective_osm_measured)

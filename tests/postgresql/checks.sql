@@ -334,6 +334,22 @@ SELECT pg_temp.same('hyper_24h goal', goal, 'lower'),
        pg_temp.same('hyper_24h not wrong way', 'wrong_way' = ANY (flag_names), false),
        pg_temp.same('hyper_24h samples', samples, 2)
 FROM course_assessed WHERE patient = 'hyper_24h';
+-- "Now" and the time of the worst window (hand-worked): 165 -> 140 is the
+-- whole course, so the fall now is 25 too, and the worst window ends at
+-- 24 h; the last rate is -25/24 mmol/L/h.
+SELECT pg_temp.near('hyper_24h fall now', fall_now_24h, 25, 1e-12),
+       pg_temp.near('hyper_24h fall first', fall_first_24h, 25, 1e-12),
+       pg_temp.near('hyper_24h worst at', worst_at_h, 24, 0),
+       pg_temp.near('hyper_24h rate', last_rate_per_h, -25.0 / 24, 1e-15),
+       pg_temp.near('hyper_24h elapsed', elapsed_h, 24, 0)
+FROM course_assessed WHERE patient = 'hyper_24h';
+SELECT pg_temp.same('no breach: worst_at_h NULL',
+    (ntr_course_assess_series(ARRAY[0, 24]::float8[], ARRAY[160, 155]::float8[], 'hyper_chronic')).worst_at_h,
+    NULL::float8);
+-- Presets beyond the issue's three (header table; Adrogue & Madias 2000
+-- for the acute pace of about 1 mmol/L/h; hold: the library's margin).
+SELECT pg_temp.near('hyper_acute fall', (ntr_course_limits_preset('hyper_acute')).max_fall_24h, 24, 0),
+       pg_temp.same('hold goal', (ntr_course_limits_preset('hold')).goal, 'hold');
 SELECT pg_temp.near('hyper_12h fall', max_fall_24h, 22, 1e-12),
        pg_temp.near('hyper_12h excess', excess_mmol_l, 12, 1e-12),
        pg_temp.same('hyper_12h fall flagged', 'fall_over_24h' = ANY (flag_names), true)
@@ -364,7 +380,8 @@ FROM (VALUES (0.0::float8, 140.0::float8), (12, 147.5)) s(h, v);
 SELECT pg_temp.same('course array form',
     ntr_course_assess_series(ARRAY[0, 24]::float8[], ARRAY[165, 140]::float8[], 'hyper_chronic'),
     (SELECT (goal, max_rise_24h, max_rise_48h, max_fall_24h, max_fall_48h, excess_mmol_l,
-             flags, flag_names, samples)::ntr_course_report
+             flags, flag_names, rise_first_24h, fall_first_24h, rise_now_24h, fall_now_24h,
+             last_rate_per_h, elapsed_h, worst_at_h, samples)::ntr_course_report
      FROM course_assessed WHERE patient = 'hyper_24h'));
 SELECT pg_temp.same('course flag names', ntr_course_flag_names(128 | 512 | 1),
                     ARRAY['rise_over_24h', 'fall_over_24h', 'wrong_way']);
@@ -435,6 +452,8 @@ SELECT pg_temp.same('uraemia class', (ntr_low_na_effective_tonicity(125, 5, 40, 
        pg_temp.same('urea 50 class', (ntr_low_na_effective_tonicity(125, 5, 50, 0, 307, 'hillier')).tonicity, 'hypotonic'),
        pg_temp.same('urea 50 not translocational',
                     'translocational' = ANY ((ntr_low_na_effective_tonicity(125, 5, 50, 0, 307)).flag_names), false);
+SELECT pg_temp.near('effective osmolality uraemia', ntr_effective_osm_measured(125, 5, 40, 0, 295), 255, 1e-12),
+       pg_temp.same('effective osmolality range', ntr_effective_osm_measured(125, 5, 40, 0, 900), NULL::float8);
 -- The 1.0 class of the measured value cannot see urea: isotonic.
 SELECT pg_temp.same('measured class', ntr_tonicity_class(295), 'isotonic');
 SELECT pg_temp.same('tonicity range gives NULL',

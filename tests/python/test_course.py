@@ -103,6 +103,27 @@ class Falls(unittest.TestCase):
         self.assertFalse(r.flags & RISE_FLAGS)
         self.assertIn("fall_over_24h", r.flag_names)
 
+    def test_now_and_so_far(self):
+        # Hand-worked: 165 -> 150 in the first 12 h (a fall of 15, over 10),
+        # then 150 at 36 h and 149 at 48 h. So far: the breach stays
+        # (max_fall_24h 15, worst window ending at 12 h); now (the 24 h
+        # ending at 48 h holds 150 and 149): a fall of 1.
+        r = ntr.course_assess(hours=[0, 12, 36, 48],
+                              na_mmol_l=[165, 150, 150, 149],
+                              limits="hyper_chronic")
+        self.assertEqual(r.max_fall_24h, 15.0)
+        self.assertEqual(r.excess_mmol_l, 5.0)
+        self.assertEqual(r.worst_at_h, 12.0)
+        self.assertEqual(r.fall_now_24h, 1.0)
+        self.assertEqual(r.fall_first_24h, 15.0)
+        self.assertEqual(r.elapsed_h, 48.0)
+        self.assertAlmostEqual(r.last_rate_per_h, -1 / 12, places=15)
+        self.assertTrue(r.flags & F.FALL_OVER_24H)
+        quiet = ntr.course_assess(hours=[0, 24], na_mmol_l=[160, 155],
+                                  limits="hyper_chronic")
+        self.assertIsNone(quiet.worst_at_h)
+        self.assertEqual(quiet.excess_mmol_l, 0.0)
+
     def test_hypernatraemia_170_to_148_in_12h(self):
         # Hand-worked: a fall of 22 within 12 h; excess 22 - 10 = 12.
         r = ntr.course_assess(hours=[0, 6, 12], na_mmol_l=[170, 160, 148],
@@ -484,6 +505,16 @@ class EffectiveTonicity(unittest.TestCase):
         self.assertIs(t.tonicity, ntr.Tonicity.HYPOTONIC)
         self.assertTrue(t.flags & ntr.LowNaFlag.INEFFECTIVE_OSMOLES)
         self.assertFalse(t.flags & ntr.LowNaFlag.TRANSLOCATIONAL)
+
+    def test_effective_osmolality(self):
+        # Hand-worked: 295 - 40 = 255, above the floor 2*125 + 5 = 255;
+        # without urea or ethanol the measured value comes back.
+        self.assertEqual(ntr.effective_osm_measured(
+            na_mmol_l=125, glucose_mmol_l=5, urea_mmol_l=40,
+            measured_osm_mosm_kg=295), 255.0)
+        self.assertEqual(ntr.effective_osm_measured(
+            na_mmol_l=125, glucose_mmol_l=5, urea_mmol_l=0,
+            measured_osm_mosm_kg=281.5), 281.5)
 
     @settings(max_examples=150)
     @given(na=in_range(80, 220), glucose=in_range(0, 200),

@@ -34,7 +34,7 @@ from ._core import (  # noqa: F401
     Watch,
     Flow, TimedFlow, BalanceResult, balance_predict, balance_course,
     PlanResult, plan_check, RelowerEstimate, relower_estimate,
-    low_na_effective_tonicity,
+    low_na_effective_tonicity, effective_osm_measured,
 )
 from ._course import (  # noqa: F401
     Goal, CoursePreset, CourseFlag, FLAG_LABELS, flag_labels, CourseLimits,

@@ -156,6 +156,10 @@ _ARGUMENTS = {
                                        "glucose_method"),
                                       (125.0, 5.0, 5.0, 0.0, 260.0, None)),
     "ntr_restriction_from_ratio": (("ratio",), (0.5,)),
+    "ntr_effective_osm_measured": (("na_mmol_l", "glucose_mmol_l",
+                                    "urea_mmol_l", "ethanol_mmol_l",
+                                    "measured_osm_mosm_kg"),
+                                   (125.0, 5.0, 5.0, 0.0, 260.0)),
     "ntr_urine_maximally_dilute": (("urine_osm_mosm_kg",), (80.0,)),
     "ntr_urine_na_high": (("urine_na_mmol_l",), (20.0,)),
     "ntr_fractional_excretion": (("urine_x", "plasma_x", "urine_creatinine",
@@ -303,6 +307,7 @@ _PROTOTYPES = {
     "ntr_low_na_tonicity": (c_int, [_D, _D, _D, c_int, _PI, _PU]),
     "ntr_low_na_effective_tonicity": (c_int, [_D, _D, _D, _D, _D, c_int, _PI,
                                               _PU]),
+    "ntr_effective_osm_measured": (c_int, [_D, _D, _D, _D, _D, _PD]),
     "ntr_urine_maximally_dilute": (c_int, [_D, _PI]),
     "ntr_urine_na_high": (c_int, [_D, _PI]),
     "ntr_fractional_excretion": (c_int, [_D, _D, _D, _D, _PD]),
@@ -727,6 +732,17 @@ def low_na_effective_tonicity(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
            _enum(GlucoseMethod, glucose_method, "glucose_method", fn)),
           [tonicity, flags])
     return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
+
+
+def effective_osm_measured(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                           measured_osm_mosm_kg, ethanol_mmol_l=0.0):
+    """Effective serum osmolality from a measured one, mOsm/kg: measured
+    less urea and the library's ethanol term, floored at the calculated
+    effective osmolality (ntr_effective_osm_measured; the header gives the
+    equation, the coefficient and why the floor)."""
+    return _double_result("ntr_effective_osm_measured", "effective_osm_measured",
+                          na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                          ethanol_mmol_l, measured_osm_mosm_kg)
 
 
 def urine_maximally_dilute(*, urine_osm_mosm_kg):
