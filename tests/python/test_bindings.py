@@ -220,6 +220,9 @@ class ConstantsMatchHeader(unittest.TestCase):
         self.check(ntr.Goal, "NTR_GOAL_")
         self.check(ntr.CoursePreset, "NTR_COURSE_")
         self.check(ntr.CourseFlag, "NTR_CF_")
+        self.check(ntr.BreachDirection, "NTR_PLAN_BREACH_")
+        self.assertEqual(self.defines["NTR_PLAN_BREACH_NONE"],
+                         ntr.BreachDirection.NONE)
         self.assertEqual(self.defines["NTR_SEVERITY_NONE"], ntr.Severity.NONE)
         self.assertEqual(self.defines["NTR_OSM_2NA"], ntr.OsmFormula.TWO_NA)
         self.assertEqual(self.defines["NTR_OSM_DORWART_CHALMERS"],
