@@ -175,13 +175,13 @@ def summary_lines(result, preset, seconds=None):
     ]
     if seconds is not None:
         lines.append("Assessed in %.2f s." % seconds)
-    lines.append("%-16s %10s %8s" % ("flag", "patients", "share"))
+    lines.append("%-20s %10s %8s" % ("flag", "patients", "share"))
     for bit, name in FLAGS:
         count = int(np.count_nonzero(flags & bit))
-        lines.append("%-16s %10d %7.2f%%" % (name, count,
+        lines.append("%-20s %10d %7.2f%%" % (name, count,
                                              100.0 * count / max(patients, 1)))
     failed = int(np.count_nonzero(result["status"]))
-    lines.append("%-16s %10d" % ("not assessable", failed))
+    lines.append("%-20s %10d" % ("not assessable", failed))
     over = result["excess_mmol_l"][result["excess_mmol_l"] > 0]
     if over.size:
         lines.append("Excess over a limit (rise or fall): median %.1f, "
@@ -203,7 +203,8 @@ def local_cluster(workers, threads):
 
 
 def main(argv=None):
-    parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0])
+    parser = argparse.ArgumentParser(description=__doc__.split("\n\n")[0],
+                                     epilog="Caution: " + natremia.CAUTION)
     parser.add_argument("--patients", type=int, default=1_000_000)
     parser.add_argument("--partitions", type=int, default=32)
     parser.add_argument("--workers", type=int, default=2,
