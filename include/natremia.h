@@ -623,7 +623,7 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
  */
 NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
 
-#define NTR_TONICITY_HYPOTONIC 1  /**< measured osmolality below 275 mOsm/kg */
+#define NTR_TONICITY_HYPOTONIC 1  /**< osmolality (measured, or effective where a function says so) below 275 mOsm/kg */
 #define NTR_TONICITY_ISOTONIC 2   /**< 275 to 295 mOsm/kg inclusive */
 #define NTR_TONICITY_HYPERTONIC 3 /**< above 295 mOsm/kg */
 
