@@ -235,6 +235,8 @@ class ConstantsMatchHeader(unittest.TestCase):
                          ntr.Restriction.UNDER_500_ML)
         self.assertEqual(self.defines["NTR_WATCH_CAPACITY"],
                          ntr._core.WATCH_CAPACITY)
+        self.assertEqual(self.defines["NTR_COURSE_WATCH_CAPACITY"],
+                         ntr._course.COURSE_WATCH_CAPACITY)
         all_flags = 0
         for flag in ntr.CorrectionFlag:
             all_flags |= int(flag)
@@ -264,6 +266,9 @@ class ConstantsMatchHeader(unittest.TestCase):
         if ntr._core.ctypes.sizeof(ntr._core.c_size_t) == 8:
             self.assertEqual(ntr._core.ctypes.sizeof(ntr._course.CourseLimitsStruct), 56)
             self.assertEqual(ntr._core.ctypes.sizeof(ntr._course.CourseReportStruct), 112)
+        if ntr._core.ctypes.sizeof(ntr._core.c_size_t) == 8:
+            # The header states 4072 bytes on common 64-bit targets.
+            self.assertEqual(ntr._core.ctypes.sizeof(ntr._course.CourseWatchStruct), 4072)
         self.assertEqual(arrays.COURSE_REPORT_DTYPE.itemsize,
                          ntr._core.ctypes.sizeof(ntr._course.CourseReportStruct))
 

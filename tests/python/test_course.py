@@ -401,6 +401,60 @@ class Table(unittest.TestCase):
         self.assertEqual(out.loc["c", "status"], ntr.ERR_RANGE)
 
 
+class Watcher(unittest.TestCase):
+    @settings(max_examples=60)
+    @given(series_strategy(110, 170, max_len=15),
+           st.sampled_from(["hypo_standard", "hyper_chronic", "hold"]))
+    def test_equals_assessment_of_each_prefix(self, series, preset):
+        # The header's contract: while its memory holds (15 samples here),
+        # the watcher reports exactly what course_assess() reports.
+        hours, na = build(*series)
+        watch = ntr.CourseWatch(preset)
+        for i in range(len(hours)):
+            pushed = watch.push(hours=hours[i], na_mmol_l=na[i])
+            self.assertEqual(pushed, ntr.course_assess(
+                hours=hours[:i + 1], na_mmol_l=na[:i + 1], limits=preset))
+        self.assertEqual(watch.result(), pushed)
+
+    def test_dense_rising_series_never_refused(self):
+        # The case for the 1.0 watcher: every 15 min, rising
+        # 0.375-0.5 mmol/L/h (invented), here for 72 h: 289 pushes. The
+        # course watcher accepts all, and once it compacts its figures are
+        # never below the exact ones and it says so (APPROXIMATE).
+        hours, na = [], []
+        watch = ntr.CourseWatch("hypo_standard")
+        value = 110.0
+        for k in range(289):
+            t = 0.25 * k
+            value += 0.25 * (0.375 if k % 2 else 0.5)
+            hours.append(t)
+            na.append(value)
+            r = watch.push(hours=t, na_mmol_l=value)
+        exact = ntr.course_assess(hours=hours, na_mmol_l=na,
+                                  limits="hypo_standard")
+        self.assertTrue(r.flags & F.APPROXIMATE)
+        self.assertFalse(exact.flags & F.APPROXIMATE)
+        for field in ("max_rise_24h", "max_rise_48h", "rise_now_24h"):
+            self.assertGreaterEqual(getattr(r, field), getattr(exact, field))
+        self.assertEqual(r.elapsed_h, exact.elapsed_h)
+
+    def test_errors_name_the_argument(self):
+        watch = ntr.CourseWatch("hyper_chronic")
+        watch.push(hours=0, na_mmol_l=160)
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            watch.push(hours=1, na_mmol_l=400)
+        self.assertEqual(caught.exception.argument, "na_mmol_l")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            watch.push(hours=math.inf, na_mmol_l=150)
+        self.assertEqual(caught.exception.argument, "hours")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            watch.push(hours=-1, na_mmol_l=150)
+        self.assertEqual(caught.exception.status_name, "NTR_ERR_ORDER")
+        self.assertEqual(caught.exception.argument, "hours")
+        with self.assertRaises(ntr.NatremiaError):
+            ntr.CourseWatch("hold").result()  # nothing pushed yet
+
+
 class PlanCheck(unittest.TestCase):
     def test_water_plan_in_hypernatraemia_breaches_the_fall_limit(self):
         # The case, hand-worked by mass balance (Adrogue & Madias,

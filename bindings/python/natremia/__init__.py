@@ -39,7 +39,7 @@ from ._core import (  # noqa: F401
 from ._course import (  # noqa: F401
     Goal, CoursePreset, CourseFlag, FLAG_LABELS, flag_labels, CourseLimits,
     CourseReport, course_limits_preset, course_preset_names, course_assess,
-    BreachDirection, CoursePlanResult, course_plan_check,
+    BreachDirection, CoursePlanResult, course_plan_check, CourseWatch,
 )
 
 __version__ = "1.1.0"

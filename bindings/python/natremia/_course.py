@@ -143,11 +143,33 @@ class CoursePlanResultStruct(ctypes.Structure):
                 ("reserved", c_uint), ("course", CourseReportStruct)]
 
 
+COURSE_WATCH_CAPACITY = 96  # NTR_COURSE_WATCH_CAPACITY
+
+
+class _CourseWatchRing(ctypes.Structure):
+    _fields_ = [("private_u", c_uint * 4),
+                ("entry", SampleStruct * COURSE_WATCH_CAPACITY),
+                ("span", ctypes.c_float * COURSE_WATCH_CAPACITY)]
+
+
+class CourseWatchStruct(ctypes.Structure):
+    """Opaque to Python; the layout only fixes its size and alignment."""
+    _fields_ = [("private_u", c_uint * 4), ("limits", CourseLimitsStruct),
+                ("samples", SampleStruct * 3), ("private_d", c_double * 10),
+                ("low", _CourseWatchRing), ("high", _CourseWatchRing)]
+
+
 _PROTOTYPES = {
     "ntr_course_limits_preset": (c_int, [c_int, _P(CourseLimitsStruct)]),
     "ntr_course_assess": (c_int, [_P(SampleStruct), c_size_t,
                                   _P(CourseLimitsStruct),
                                   _P(CourseReportStruct)]),
+    "ntr_course_watch_init": (c_int, [_P(CourseLimitsStruct),
+                                      _P(CourseWatchStruct)]),
+    "ntr_course_watch_push": (c_int, [_P(CourseWatchStruct), c_double,
+                                      c_double, _P(CourseReportStruct)]),
+    "ntr_course_watch_result": (c_int, [_P(CourseWatchStruct),
+                                        _P(CourseReportStruct)]),
     "ntr_course_plan_check": (c_int, [_P(SampleStruct), c_size_t, c_double,
                                       _P(TimedFlowStruct), c_size_t, c_double,
                                       c_double, _P(CourseLimitsStruct),
@@ -483,3 +505,63 @@ def course_plan_check(*, history_hours, history_na_mmol_l, tbw_l, flows,
         _breach(out.first_breach_h), CourseFlag(out.first_breach_flag),
         BreachDirection(out.first_breach_direction), out.points,
         CourseReport._from_struct(out.course))
+
+
+# ---------------------------------------------------------------------------
+# The streaming course watcher
+# ---------------------------------------------------------------------------
+
+class CourseWatch:
+    """Streaming course watcher (ntr_course_watch_*): push one result at a
+    time, get the report of the series so far. It never refuses a valid
+    sample: while its fixed memory holds, the report equals course_assess()
+    on the same samples; after it compacts, the window figures are upper
+    bounds and CourseFlag.APPROXIMATE is set. ``limits`` is a CourseLimits
+    or a preset, as for course_assess() (no default)."""
+
+    def __init__(self, limits):
+        fn = "CourseWatch"
+        self._lim = _course_limits_struct(limits, fn)
+        self._state = CourseWatchStruct()
+        status = _fn("ntr_course_watch_init")(ctypes.byref(self._lim),
+                                              ctypes.byref(self._state))
+        if status != OK:
+            argument, value = _blame_series([], [], self._lim, status, fn) \
+                if status in (ERR_NONFINITE, ERR_RANGE) else ("limits", None)
+            raise NatremiaError(status, fn, argument=argument, value=value)
+
+    def push(self, *, hours, na_mmol_l):
+        out = _new_report()
+        status = _fn("ntr_course_watch_push")(ctypes.byref(self._state), hours,
+                                              na_mmol_l, ctypes.byref(out))
+        if status != OK:
+            raise NatremiaError(status, "CourseWatch.push",
+                                **self._blame_push(hours, na_mmol_l, status))
+        return CourseReport._from_struct(out)
+
+    def _blame_push(self, hours, na_mmol_l, status):
+        """hours or na_mmol_l, judged by a fresh watcher (the library checks
+        hours first)."""
+        if status == ERR_ORDER:
+            return {"argument": "hours", "value": hours}
+        if status not in (ERR_NONFINITE, ERR_RANGE):
+            return {}
+        probe = CourseWatchStruct()
+        _fn("ntr_course_watch_init")(ctypes.byref(self._lim),
+                                     ctypes.byref(probe))
+        out = _new_report()
+        if _fn("ntr_course_watch_push")(ctypes.byref(probe), hours,
+                                        _GOOD_SAMPLE[1],
+                                        ctypes.byref(out)) == status:
+            return {"argument": "hours", "value": hours}
+        return {"argument": "na_mmol_l", "value": na_mmol_l}
+
+    def result(self):
+        out = _new_report()
+        status = _fn("ntr_course_watch_result")(ctypes.byref(self._state),
+                                                ctypes.byref(out))
+        if status != OK:
+            raise NatremiaError(status, "CourseWatch.result",
+                                detail="no result pushed yet"
+                                if status == ERR_ARG else None)
+        return CourseReport._from_struct(out)
