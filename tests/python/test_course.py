@@ -81,7 +81,16 @@ class Presets(unittest.TestCase):
         self.assertEqual(caught.exception.argument, "preset")
         with self.assertRaises(ntr.NatremiaError) as caught:
             ntr.CourseLimits("sideways", max_rise_24h=10)
-        self.assertIn("goal", str(caught.exception))
+        self.assertEqual(caught.exception.argument, "goal")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.low_na_effective_tonicity(na_mmol_l=125, glucose_mmol_l=5,
+                                          urea_mmol_l=40,
+                                          measured_osm_mosm_kg=295,
+                                          glucose_method="guess")
+        self.assertEqual(caught.exception.argument, "glucose_method")
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            ntr.CourseLimits(7, max_rise_24h=10)
+        self.assertEqual(caught.exception.argument, "goal")
 
 
 class Falls(unittest.TestCase):

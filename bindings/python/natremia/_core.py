@@ -465,7 +465,8 @@ def _enum(cls, value, argname, function):
             if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
                 return int(member)
         raise NatremiaError(ERR_ARG, function, "unknown %s %r; one of %s" % (
-            argname, value, ", ".join(m.name.lower() for m in cls)))
+            argname, value, ", ".join(m.name.lower() for m in cls)),
+            argument=argname, value=value)
     return int(value)
 
 

@@ -195,8 +195,14 @@ class CourseLimits:
     min_change_24h: float = 0.0
 
     def __post_init__(self):
-        object.__setattr__(self, "goal", Goal(_enum(Goal, self.goal, "goal",
-                                                    "CourseLimits")))
+        code = _enum(Goal, self.goal, "goal", "CourseLimits")
+        try:
+            goal = Goal(code)
+        except ValueError:
+            raise NatremiaError(ERR_ARG, "CourseLimits", argument="goal",
+                                value=self.goal, detail="one of raise, "
+                                "lower, hold") from None
+        object.__setattr__(self, "goal", goal)
 
     def _struct(self):
         return CourseLimitsStruct(ctypes.sizeof(CourseLimitsStruct),
