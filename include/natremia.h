@@ -2350,6 +2350,11 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  * predicted point whose 24 h or 48 h window rise exceeds the limit.
  * No buffer is needed; the cost is O((n_history + points) * n_flows).
  *
+ * It judges rises only: a plan that lowers sodium too fast (free water in
+ * hypernatraemia, or a hyponatraemia worsening) is not flagged. For
+ * either direction use ntr_course_plan_check() (since 1.1), which gives
+ * these same rise breach times under the same rise limits.
+ *
  * @param history   measured samples, as in ntr_correction_assess(); the
  *                  last one is the sodium now.
  * @param n_history at least 1.
@@ -2497,6 +2502,9 @@ NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
 
 /**
  * @brief Assess many sodium series at once (one per patient), CSR style.
+ *
+ * Rises only, as ntr_correction_assess(); for falls as well use
+ * ntr_batch_course_assess() (since 1.1).
  *
  * Group g is the series samples[offsets[g]] to samples[offsets[g+1] - 1];
  * out[g] and status[g] are exactly what ntr_correction_assess() returns for

@@ -321,7 +321,6 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
 {
     struct plan_run run;
     ntri_breach breach;
-    ntr_correction course;
 
     if (history == NULL || lim == NULL || out == NULL ||
         (flows == NULL && n_flows > 0)) {
@@ -330,9 +329,10 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
     /* The 1.0 limits have no ARG stage. */
     NTR_TRY(plan_run_start(&run, history, n_history, tbw_l, flows, n_flows,
                            duration_h, step_h, NTR_OK, ntri_limits_check(lim)));
-    ntri_assess(&run.v, lim, n_history, &course, &breach);
-
-    out->course = course;
+    /* Every check has passed: nothing can fail from here, so the
+     * assessment goes straight into *out (no copy on the stack, which
+     * firmware builds keep small: tests/bench/firmware.py). */
+    ntri_assess(&run.v, lim, n_history, &out->course, &breach);
     out->final_na_mmol_l = run.final_na;
     out->final_tbw_l = run.final_tbw;
     out->breach_24h_h = breach_time(&run.p, breach.first_over_24h);
@@ -391,7 +391,6 @@ int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
 {
     struct plan_run run;
     ntri_course_breach breach;
-    ntr_course_report course;
     size_t first;
     unsigned int flag;
     int kind;
@@ -406,7 +405,8 @@ int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
     NTR_TRY(plan_run_start(&run, history, n_history, tbw_l, flows, n_flows,
                            duration_h, step_h, kind,
                            kind == NTR_OK ? ntri_course_limits_values(lim) : kind));
-    ntri_course_assess(&run.v, lim, n_history, &course, &breach);
+    /* As in ntr_plan_check(): nothing can fail from here. */
+    ntri_course_assess(&run.v, lim, n_history, &out->course, &breach);
     first_breach(&breach, &first, &flag);
 
     out->struct_size = sizeof(ntr_course_plan_result);
@@ -421,7 +421,6 @@ int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
     out->first_breach_direction = direction_of(flag);
     out->points = (unsigned int)run.p.grid;
     out->reserved = 0u;
-    out->course = course;
     return NTR_OK;
 }
 

@@ -439,70 +439,6 @@ static const char *ok_low_na_tonicity(const ntrc_case *c)
     return NULL;
 }
 
-/* The effective osmolality as the header states it (measured less urea
- * and 1.25 * ethanol, floored at min(2*Na + glucose, measured)); the
- * subtraction is grouped as the library groups it, so the class edge at
- * 275 is judged on the same double. */
-static double effective_expected(const double *x)
-{
-    double calculated = 2.0 * x[0] + x[1];
-    double floor_osm = calculated < x[4] ? calculated : x[4];
-    double subtracted = x[4] - (x[2] + 1.25 * x[3]);
-    return subtracted > floor_osm ? subtracted : floor_osm;
-}
-
-static int call_effective_osm_measured(ntrc_case *c)
-{
-    return ntr_effective_osm_measured(c->num[0], c->num[1], c->num[2], c->num[3], c->num[4],
-                                      od(c, 0));
-}
-
-static const char *ok_effective_osm_measured(const ntrc_case *c)
-{
-    double e = c->out.d[0];
-    if (!within(e, 150.0, 600.0)) {
-        return "effective osmolality outside [150, 600]";
-    }
-    if (e > c->num[4]) {
-        return "effective osmolality above the measured one";
-    }
-    return close_to(e, effective_expected(c->num), 1e-14) ? NULL
-                                                         : "effective osmolality off its equation";
-}
-
-static int call_low_na_effective_tonicity(ntrc_case *c)
-{
-    return ntr_low_na_effective_tonicity(
-        c->num[0], c->num[1], c->num[2], c->num[3], c->num[4], c->en[0], oi(c, 0),
-        (c->out_null & NTRC_NULL_I(1)) ? NULL : (unsigned int *)&c->out.i[1]);
-}
-
-static const char *ok_low_na_effective_tonicity(const ntrc_case *c)
-{
-    unsigned int flags = (unsigned int)c->out.i[1];
-    double e = effective_expected(c->num);
-    int hidden = c->num[4] >= NTR_TONICITY_HYPOTONIC_BELOW && e < NTR_TONICITY_HYPOTONIC_BELOW;
-    if (c->out.i[0] != tonicity_of(e)) {
-        return "tonicity does not match the band of the effective osmolality";
-    }
-    if ((flags & ~0x3fu) != 0u) {
-        return "undefined flag bits";
-    }
-    if (c->num[0] >= 135.0 && (flags & ~NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u) {
-        return "low-sodium flags set although sodium is not low";
-    }
-    if (((flags & NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u) != hidden) {
-        return "ineffective-osmoles flag not set exactly when measured >= 275 > effective";
-    }
-    if ((flags & NTR_LOW_NA_PSEUDO) && e < NTR_TONICITY_HYPOTONIC_BELOW) {
-        return "pseudo flag on a hypotonic effective osmolality";
-    }
-    if ((flags & NTR_LOW_NA_NOT_HYPOTONIC) && e < NTR_TONICITY_HYPOTONIC_BELOW) {
-        return "not-hypotonic flag on a hypotonic effective osmolality";
-    }
-    return NULL;
-}
-
 static int call_urine_maximally_dilute(ntrc_case *c)
 {
     return ntr_urine_maximally_dilute(c->num[0], oi(c, 0));
@@ -2690,61 +2626,17 @@ static void extra_groups(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_c
 
 /* ---- direction-aware plan check and grouped course assessment ------------------ */
 
-/* Course limits as numbers: rise 24 h, rise 48 h, fall 24 h, fall 48 h,
- * target (each 0 to 50; 0 is "none"), with the goal and the struct_size
- * mode as enumerators. */
-#define COURSE_LIMITS_NUMS                                                             \
-    {"max_rise_24h", 0.0, 50.0, 0}, {"max_rise_48h", 0.0, 50.0, 0},                     \
-    {"max_fall_24h", 0.0, 50.0, 0}, {"max_fall_48h", 0.0, 50.0, 0},                     \
-    {"min_change_24h", 0.0, 50.0, 0}
-#define GOAL_ENUM {"lim.goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}}
-
-/* A struct_size for a mode: 0 the real size, 2 a later, larger header's,
- * 1 one byte short, others far too small (all three refused). */
-static size_t size_for_mode(int mode, size_t real)
+/* Course limits as in ntr_course_assess()'s entry (COURSE_NUMS,
+ * COURSE_ENUMS, course_limits_from, course_limits_status): the plan check
+ * has its limits at num[3..7], after body water, duration and step. */
+static void plan_course_limits(const ntrc_case *c, ntr_course_limits *lim)
 {
-    switch (mode) {
-    case 0: return real;
-    case 2: return real + 64;
-    case 1: return real - 1;
-    default: return mode < 0 ? 0 : sizeof(size_t);
-    }
-}
-
-static void course_limits_of_values(const double *x, int goal, int size_mode, ntr_course_limits *lim)
-{
-    lim->struct_size = size_for_mode(size_mode, sizeof *lim);
-    lim->goal = goal;
-    lim->max_rise_24h = x[0];
-    lim->max_rise_48h = x[1];
-    lim->max_fall_24h = x[2];
-    lim->max_fall_48h = x[3];
-    lim->min_change_24h = x[4];
-}
-
-/* The values checks of course limits as the header states them: each of
- * the five in order, then the 24 h limit not above the 48 h one where
- * both are set, and the target (0 for hold) not above a limit of the
- * goal's direction. */
-static int course_limits_values_status(const double *x, int goal)
-{
-    int i, st;
-    for (i = 0; i < 5; i++) {
-        if ((st = check_value(x[i], 0.0, 50.0)) != NTR_OK) {
-            return st;
-        }
-    }
-#define LOOSER(a, b) ((a) > 0.0 && (b) > 0.0 && (a) > (b))
-    if (LOOSER(x[0], x[1]) || LOOSER(x[2], x[3])) {
-        return NTR_ERR_RANGE;
-    }
-    if (goal == NTR_GOAL_HOLD ? x[4] > 0.0
-        : goal == NTR_GOAL_RAISE ? (LOOSER(x[4], x[0]) || LOOSER(x[4], x[1]))
-                                 : (LOOSER(x[4], x[2]) || LOOSER(x[4], x[3]))) {
-        return NTR_ERR_RANGE;
-    }
-#undef LOOSER
-    return NTR_OK;
+    course_limits_from(c, lim);
+    lim->max_rise_24h = c->num[3];
+    lim->max_rise_48h = c->num[4];
+    lim->max_fall_24h = c->num[5];
+    lim->max_fall_48h = c->num[6];
+    lim->min_change_24h = c->num[7];
 }
 
 static int size_mode_ok(int mode)
@@ -2752,7 +2644,8 @@ static int size_mode_ok(int mode)
     return mode == 0 || mode == 2;
 }
 
-/* en[0] goal, en[1] limits' size mode, en[2] result's (or report's) size mode. */
+/* en[0] goal, en[1] limits' size mode, en[2] result's (or report's) size
+ * mode, as in COURSE_ENUMS. */
 enum { CP_GOAL, CP_LIM_SIZE, CP_OUT_SIZE };
 
 static void base_course_plan(ntrc_case *c)
@@ -2762,14 +2655,13 @@ static void base_course_plan(ntrc_case *c)
 
 static void prepare_course_plan(ntrc_case *c)
 {
-    c->out.s.course_plan.struct_size =
-        size_for_mode(c->en[CP_OUT_SIZE], sizeof c->out.s.course_plan);
+    c->out.s.course_plan.struct_size = siad_size(c->en[CP_OUT_SIZE], sizeof c->out.s.course_plan);
 }
 
 static int call_course_plan_check(ntrc_case *c)
 {
     ntr_course_limits lim;
-    course_limits_of_values(&c->num[3], c->en[CP_GOAL], c->en[CP_LIM_SIZE], &lim);
+    plan_course_limits(c, &lim);
     return ntr_course_plan_check(in_null(c, 0) ? NULL : c->samples, c->n, c->num[0],
                                  in_null(c, 1) ? NULL : c->tflows, c->n2, c->num[1], c->num[2],
                                  in_null(c, 2) ? NULL : &lim,
@@ -2792,7 +2684,7 @@ static int predict_course_plan_check(const ntrc_fn *f, const ntrc_case *c)
         (st = check_value(c->num[0], 0.1, 400.0)) != NTR_OK ||
         (st = tflows_status(c->tflows, c->n2)) != NTR_OK ||
         (st = span_status(c->num[1], c->num[2])) != NTR_OK ||
-        (st = course_limits_values_status(&c->num[3], c->en[CP_GOAL])) != NTR_OK) {
+        (st = course_limits_status(c->en[CP_GOAL], &c->num[3])) != NTR_OK) {
         return st;
     }
     if (!samples_sorted(c->samples, c->n) || !tflows_ordered(c->tflows, c->n2)) {
@@ -2953,13 +2845,13 @@ static void extra_course_plan(const ntrc_fn *f, void (*judge)(const ntrc_fn *, n
  * (the stride). */
 static size_t course_report_stride(const ntrc_case *c)
 {
-    return size_for_mode(c->en[CP_OUT_SIZE], sizeof(ntr_course_report));
+    return siad_size(c->en[CP_OUT_SIZE], sizeof(ntr_course_report));
 }
 
 static int call_batch_course_assess(ntrc_case *c)
 {
     ntr_course_limits lim;
-    course_limits_of_values(c->num, c->en[CP_GOAL], c->en[CP_LIM_SIZE], &lim);
+    course_limits_from(c, &lim);
     return ntr_batch_course_assess(
         c->groups, in_null(c, 0) ? NULL : c->offsets, in_null(c, 1) ? NULL : c->samples,
         c->capacity, in_null(c, 2) ? NULL : &lim, course_report_stride(c),
@@ -2982,7 +2874,7 @@ static int course_groups_call_level(const ntrc_case *c)
 static int course_group_status(const ntrc_case *c, size_t g, ntr_course_report *r)
 {
     ntr_course_limits lim;
-    course_limits_of_values(c->num, c->en[CP_GOAL], c->en[CP_LIM_SIZE], &lim);
+    course_limits_from(c, &lim);
     r->struct_size = sizeof *r;
     return ntr_course_assess(&c->samples[c->offsets[g]], c->offsets[g + 1] - c->offsets[g], &lim,
                              r);
@@ -3281,19 +3173,6 @@ const ntrc_fn ntrc_functions[] = {
      .n_num = 3, .num = {NA, GLU, OSM("measured_osm_mosm_kg")}, .n_out_i = 2,
      .statuses = OK_COMMON | ST(ERR_ARG), .base_num = {126.0, 30.0, 290.0},
      .base_en = {NTR_GLUCOSE_HILLIER}, .check_ok = ok_low_na_tonicity},
-    {CALL(effective_osm_measured), .n_num = 5,
-     .num = {NA, GLU, {"urea_mmol_l", 0.0, 200.0, 0}, {"ethanol_mmol_l", 0.0, 400.0, 0},
-             OSM("measured_osm_mosm_kg")},
-     .n_out_d = 1, .statuses = OK_COMMON, .base_num = {125.0, 5.0, 40.0, 0.0, 295.0},
-     .check_ok = ok_effective_osm_measured},
-    {CALL(low_na_effective_tonicity), .n_enum = 1,
-     .en = {{"glucose_method", NTR_ERR_ARG, 2, {NTR_GLUCOSE_KATZ, NTR_GLUCOSE_HILLIER}}},
-     .n_num = 5,
-     .num = {NA, GLU, {"urea_mmol_l", 0.0, 200.0, 0}, {"ethanol_mmol_l", 0.0, 400.0, 0},
-             OSM("measured_osm_mosm_kg")},
-     .n_out_i = 2, .statuses = OK_COMMON | ST(ERR_ARG),
-     .base_num = {118.0, 5.0, 5.0, 45.0, 295.0}, .base_en = {NTR_GLUCOSE_HILLIER},
-     .check_ok = ok_low_na_effective_tonicity},
     {CALL(urine_maximally_dilute), .n_num = 1, .num = {{"urine_osm_mosm_kg", 10.0, 2000.0, 0}},
      .n_out_i = 1, .statuses = OK_COMMON, .base_num = {80.0},
      .check_ok = ok_urine_maximally_dilute},
@@ -3423,10 +3302,11 @@ const ntrc_fn ntrc_functions[] = {
      .fuzz_series = fuzz_groups, .check_err = err_batch_correction, .results = results_groups,
      .extra_cases = extra_groups, .check_ok = ok_batch_correction},
     {CALL(course_plan_check), .n_enum = 3,
-     .en = {GOAL_ENUM, SIZE_MODE("lim.struct_size"), SIZE_MODE("out.struct_size")},
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            SIZE_MODE("limits_struct_size"), SIZE_MODE("result_struct_size")},
      .n_num = 8,
      .num = {TBW, {"duration_h", 0.0, 720.0, 1}, {"step_h", 1.0 / 60.0, 720.0, 0},
-             COURSE_LIMITS_NUMS},
+             COURSE_NUMS},
      .n_in_ptr = 4,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
      .base_num = {35.0, 24.0, 2.0, 10.0, 18.0, 10.0, 0.0, 4.0},
@@ -3435,8 +3315,7 @@ const ntrc_fn ntrc_functions[] = {
      .prepare_out = prepare_course_plan, .results = results_course_plan,
      .extra_cases = extra_course_plan, .check_ok = ok_course_plan_check},
     {CALL(batch_course_assess), .n_enum = 3,
-     .en = {GOAL_ENUM, SIZE_MODE("lim.struct_size"), SIZE_MODE("report_size")},
-     .n_num = 5, .num = {COURSE_LIMITS_NUMS}, .n_in_ptr = 6,
+     .en = {COURSE_ENUMS}, .n_num = 5, .num = {COURSE_NUMS}, .n_in_ptr = 6,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER),
      .base_num = {10.0, 18.0, 10.0, 0.0, 4.0}, .base_en = {NTR_GOAL_RAISE, 0, 0},
      .predict = predict_batch_course, .base_series = base_groups_valid,
