@@ -11,7 +11,7 @@ import math
 import unittest
 
 import numpy as np
-from hypothesis import given, settings
+from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 import natremia as ntr
@@ -21,6 +21,13 @@ try:
     import pandas as pd
 except ImportError:  # python3-pandas not installed: those checks skip
     pd = None
+
+# Deterministic and leaving no example database in the tree (the same
+# profile as test_bindings.py, so this file also runs on its own).
+settings.register_profile("natremia", derandomize=True, database=None,
+                          deadline=None, max_examples=150,
+                          suppress_health_check=[HealthCheck.too_slow])
+settings.load_profile("natremia")
 
 F = ntr.CourseFlag
 RISE_FLAGS = (F.OVER_24H | F.OVER_48H | F.NEAR_LIMIT | F.PROJECTED_OVER |
