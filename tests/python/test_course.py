@@ -10,7 +10,6 @@ include/natremia.h. Series are invented.
 import math
 import unittest
 
-import numpy as np
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 

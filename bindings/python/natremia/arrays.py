@@ -20,6 +20,8 @@ import numpy as np
 from . import _core
 from ._core import (NatremiaError, GlucoseMethod, LimitsPreset, OsmFormula,
                     Sex, _enum, _limits_struct)
+from ._course import (CourseReportStruct, CourseLimitsStruct, CoursePreset,
+                      _course_limits_struct, flag_labels)
 
 _P = ctypes.POINTER
 _PD = _P(ctypes.c_double)
@@ -325,10 +327,6 @@ def correction_assess_groups(*, hours, na_mmol_l, offsets,
 # ---------------------------------------------------------------------------
 # Course assessment in both directions, many series at once (natremia 1.1)
 # ---------------------------------------------------------------------------
-
-from ._course import (CourseReportStruct, CourseLimitsStruct,  # noqa: E402
-                      CoursePreset, _course_limits_struct, _new_report,
-                      flag_labels)
 
 # One ntr_course_report per record, laid out as the C struct.
 COURSE_REPORT_DTYPE = np.dtype(CourseReportStruct)
