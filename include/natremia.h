@@ -1535,7 +1535,9 @@ NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
 /* ======================================================================= */
 
 /** @defgroup correction Correction-rate safety limits
- *  Watch a measured sodium series against limits on how fast it may rise.
+ *  Watch a measured sodium series against limits on how fast it may rise
+ *  and, since 1.1 (ntr_course_assess(), ntr_course_watch_push()), on how
+ *  fast it may fall.
  *
  *  The rises that matter are counted over sliding windows: a rise is the
  *  later sample minus the earlier one, for two samples at most 24 h (or
@@ -1705,6 +1707,9 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  *
  * Cost: linear in n, no allocation, O(1) extra memory (a block scheme over
  * the time axis; docs/correction.md). One sample yields zeros and no flag.
+ * Since 1.1 this is ntr_course_assess() with goal raise, no fall limits and
+ * the 1.0 target, its flags limited to @ref NTR_CF_ALL: one engine, the
+ * same results bit for bit. It cannot see falls: use ntr_course_assess().
  *
  * @param s   samples in non-decreasing time; hours finite, -1e6 to 1e6
  *            (any origin, so times before it are negative); sodium 80 to
