@@ -282,7 +282,8 @@ NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
  *
  * @param na_mmol_l            80 to 220 mmol/L.
  * @param glucose_mmol_l       0 to 200 mmol/L.
- * @param factor_per_100mg_dl  0 to 5 (published factors lie between 1.6 and 2.4).
+ * @param factor_per_100mg_dl  0 to 5 (published factors: 1.6 and 2.4, and
+ *                             about 4.0 above 400 mg/dL, Hillier 1999).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
  *
@@ -299,6 +300,12 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  *
  * deficit = TBW * (target - Na), in mmol.
  *
+ * It ignores the water the sodium is given in, so giving the deficit as a
+ * saline falls short of the target: 300 mmol (TBW 30 L, 120 to 130) as
+ * 0.585 L of 3% saline reaches 127.5 by mass balance, not 130. To size a
+ * fluid for a target use ntr_infusate_volume_for_change(), which solves
+ * the mass balance exactly.
+ *
  * @param tbw_l               total body water, 0.1 to 400 L.
  * @param na_mmol_l           current serum sodium, 80 to 220 mmol/L.
  * @param target_na_mmol_l    target serum sodium, 80 to 220 mmol/L.
@@ -307,7 +314,7 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  *         NTR_ERR_DOMAIN (target below the current sodium).
  *
  * Reference: common practice (the sodium-deficit formula of general
- * medical texts). It ignores ongoing losses; see ntr_balance_predict().
+ * medical texts). It ignores ongoing losses too; see ntr_balance_predict().
  * Method: @ref NTR_METHOD_NA_DEFICIT.
  */
 NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
@@ -326,16 +333,19 @@ NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
 /**
  * @brief Total body water as a fraction of body weight.
  *
- * TBW = f * weight, with f = 0.6 for children (age below 18 years),
+ * TBW = f * weight, with f = 0.6 for children (1 year to below 18 years),
  * 0.6 for men 18 to 64, 0.5 for women 18 to 64, 0.5 for men 65 and over,
  * 0.45 for women 65 and over. The child boundary is the age of majority
  * used by paediatric services; 65 is the conventional start of "elderly"
  * in the geriatric literature (both common practice; the paper does not
- * state ages). Neonates hold more water (about 0.7 to 0.8) than this
- * fraction: use a measured or paediatric estimate for them.
+ * state ages). Infants under 1 year are refused (NTR_ERR_RANGE): a
+ * newborn holds about 0.75 to 0.8 of its weight as water, falling to about
+ * 0.6 over the first year, so 0.6 would under-read a neonate by a fifth;
+ * use a measured or paediatric estimate for them (docs/water.md). Since
+ * 1.1; 1.0 gave 0.6 from age 0.
  *
  * @param sex         @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE.
- * @param age_years   0 to 130.
+ * @param age_years   1 to 130.
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
@@ -355,6 +365,15 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  *
  * with age in years, height in cm, weight in kg, TBW in litres.
  *
+ * The equations are regressions on adults of ordinary build; far outside
+ * it they give numbers no body holds. A result below 20% or above 80% of
+ * the weight is refused (adult body water is about 40 to 75% of weight,
+ * lower in severe obesity, and lean tissue itself is about 73% water;
+ * docs/water.md), and so is one below 0.1 L, which no function taking a
+ * body water accepts. Adults 145 to 210 cm tall with a body-mass index
+ * of 17 to 80 keep the 1.0 result (tested); a very light, short young man
+ * (BMI 15 to 16, under 160 cm) can exceed 80% and is refused.
+ *
  * @param sex         @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE.
  * @param age_years   18 to 130 (adults only: the equations were derived
  *                    in adults; younger ages give NTR_ERR_RANGE).
@@ -362,7 +381,8 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE,
- *         NTR_ERR_RANGE, NTR_ERR_DOMAIN (the equation gives 0 L or less).
+ *         NTR_ERR_RANGE, NTR_ERR_DOMAIN (the result is below 20% or above
+ *         80% of the weight, or below 0.1 L; 1.0 refused only 0 L or less).
  *
  * Reference: Watson PE, Watson ID, Batt RD. Total body water volumes for
  * adult males and females estimated from simple anthropometric
@@ -434,7 +454,10 @@ NTR_API int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
  * @param infusate_na_mmol_l 0 to 1100 mmol/L.
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param[out] delta_mmol_l  expected change, mmol/L (negative: a fall).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the sodium after, Na + delta, would lie outside
+ *         80 to 220 mmol/L, or the body water after, TBW + 1, above 400 L:
+ *         the rule ntr_balance_predict() applies to the same 1 L; since 1.1).
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9.
@@ -460,7 +483,12 @@ NTR_API int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param volume_l           volume given, 0 to 20 L.
  * @param[out] delta_mmol_l  expected change, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the sodium after would lie outside 80 to
+ *         220 mmol/L, or the body water after outside 0.1 to 400 L:
+ *         exactly what ntr_balance_predict() refuses for the same flow;
+ *         since 1.1, where 1.0 answered, e.g. 264 mmol/L for 20 L of 3%
+ *         saline on 140 and 40 L).
  *
  * Reference: derived from the Adrogue-Madias mass balance
  * (N Engl J Med 2000;342:1581-9).
@@ -484,11 +512,20 @@ NTR_API int ntr_infusate_change(double na_mmol_l, double tbw_l,
  * @param target_delta_mmol_l wanted change, -50 to 50 mmol/L.
  * @param[out] volume_l      volume needed, L (0 when the target is 0).
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the infusate cannot move sodium that far in
- *         that direction, or the volume would exceed 20 L).
+ *         NTR_ERR_DOMAIN (the target sodium Na + delta lies outside 80 to
+ *         220 mmol/L, as ntr_relower_estimate() refuses a target below 80;
+ *         the infusate cannot move sodium that far in that direction; the
+ *         volume would exceed 20 L; or ntr_infusate_change() would refuse
+ *         the volume found. The first and last since 1.1).
  *
- * Reference: derived from Adrogue & Madias 2000; Furst H et al., Am J Med
- * Sci 2000;319:240-4 uses the same relation for its worked example.
+ * Unlike the sodium-deficit step (ntr_na_deficit() divided by the
+ * infusate's sodium), this counts the water the infusate brings: on the
+ * inputs of the Furst et al. example (Na 108, TBW 30 L, 3% saline, a rise
+ * of 5) it gives 150/400 = 0.375 L, where the deficit step's 292 mL
+ * reaches only about 112.
+ *
+ * Reference: derived from the Adrogue & Madias 2000 mass balance (exact
+ * inverse of ntr_infusate_change()).
  * Method: @ref NTR_METHOD_INFUSATE_VOLUME.
  */
 NTR_API int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
@@ -1281,12 +1318,13 @@ NTR_API int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
  * @brief Total body water as a fraction of weight for @p n rows
  *        (see ntr_tbw_fraction()).
  *
- * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (under 18 years),
- * 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and over).
+ * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (1 to below 18
+ * years), 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and
+ * over). Infants under 1 year are refused, as by ntr_tbw_fraction().
  *
  * @param n number of rows.
  * @param sex @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE per row.
- * @param age_years age, years, 0 to 130.
+ * @param age_years age, years, 1 to 130.
  * @param weight_kg body weight, kg, 0.3 to 650.
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
@@ -1316,7 +1354,8 @@ NTR_API int ntr_batch_tbw_fraction(size_t n, const int *sex,
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
  *                     NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN
- *                     (the equation gives 0 L or less).
+ *                     (the result is below 20% or above 80% of the
+ *                     weight, or below 0.1 L, as ntr_tbw_watson()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1384,7 +1423,8 @@ NTR_API int ntr_batch_na_deficit(size_t n, const double *tbw_l,
  * @param infusate_na_mmol_l infusate sodium, mmol/L, 0 to 1100.
  * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
  * @param[out] out     n changes, mmol/L (NaN in failed rows).
- * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *                     NTR_ERR_DOMAIN (as ntr_infusate_change_per_litre()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1413,7 +1453,8 @@ NTR_API int ntr_batch_infusate_change_per_litre(size_t n,
  * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
  * @param volume_l volume given, L, 0 to 20.
  * @param[out] out     n changes, mmol/L (NaN in failed rows).
- * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *                     NTR_ERR_DOMAIN (as ntr_infusate_change()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1443,8 +1484,10 @@ NTR_API int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
  * @param target_delta_mmol_l wanted change, mmol/L, -50 to 50.
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE,
- *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (unreachable target or
- *                     more than 20 L).
+ *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (as
+ *                     ntr_infusate_volume_for_change(): target sodium
+ *                     outside 80 to 220, unreachable target, more than
+ *                     20 L, or a volume ntr_infusate_change() refuses).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -2288,8 +2331,10 @@ typedef struct ntr_course_plan_result {
  * @param[out] na_out  sodium after, mmol/L.
  * @param[out] tbw_out body water after, L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (body water after below 0.1 L, or sodium after
- *         outside 80 to 220 mmol/L: the model no longer applies).
+ *         NTR_ERR_DOMAIN (body water after outside 0.1 to 400 L, or sodium
+ *         after outside 80 to 220 mmol/L: the model no longer applies, and
+ *         no function would take that state as input. The infusate and
+ *         re-lowering functions apply the same rule; 400 L since 1.1).
  *
  * References: Edelman IS, Leibman J, O'Meara MP, Birkenfeld LW. Interrelations
  * between serum sodium concentration, serum osmolarity and total
@@ -2477,7 +2522,11 @@ NTR_API int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
  *         NTR_ERR_DOMAIN (the fluid's sodium + potassium is not below the
  *         target, the target is below 80 mmol/L, the volume would exceed
- *         20 L, or body water would fall below 0.1 L).
+ *         20 L, the rate would exceed 5000 mL/h (what a timed flow takes),
+ *         or the plan's end state is one ntr_balance_predict() refuses:
+ *         body water outside 0.1 to 400 L, or, when the losses alone
+ *         overshoot, sodium below 80. The rate and end-state rules since
+ *         1.1).
  *
  * @warning An estimate for decision support, not an order: re-lowering
  * needs frequent measured sodium and specialist judgement.

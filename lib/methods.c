@@ -116,13 +116,14 @@ static int describe(int method, struct ntr_method_info *info)
         return entry(info, method, "Sodium deficit",
             "deficit (mmol) = TBW * (target Na - Na)",
             "Common practice (sodium-deficit formula of general medical texts)",
-            "low serum sodium; ignores ongoing losses");
+            "low serum sodium; ignores ongoing losses and the water the sodium "
+            "is given in, so a saline dosed by it falls short of the target");
     case NTR_METHOD_TBW_FRACTION:
         return entry(info, method, "Total body water as a fraction of weight",
-            "TBW = f * weight; f = 0.6 children (< 18 y), 0.6 men, 0.5 women, "
-            "0.5 men >= 65 y, 0.45 women >= 65 y",
+            "TBW = f * weight; f = 0.6 children (1 to < 18 y), 0.6 men, 0.5 "
+            "women, 0.5 men >= 65 y, 0.45 women >= 65 y",
             REF_ADROGUE_MADIAS_HYPO,
-            "children and adults; not neonates");
+            "children from 1 year and adults; infants under 1 year refused");
     case NTR_METHOD_TBW_WATSON:
         return entry(info, method, "Watson total body water",
             "men: TBW = 2.447 - 0.09516*age + 0.1074*height + 0.3362*weight; "
@@ -131,7 +132,8 @@ static int describe(int method, struct ntr_method_info *info)
             "Watson PE, Watson ID, Batt RD. Total body water volumes for adult "
             "males and females estimated from simple anthropometric "
             "measurements. Am J Clin Nutr 1980;33:27-39",
-            "adults (18 years and over)");
+            "adults (18 years and over); a result outside 20% to 80% of the "
+            "weight, or below 0.1 L, is refused");
     case NTR_METHOD_FREE_WATER_DEFICIT:
         return entry(info, method, "Free-water deficit",
             "deficit (L) = TBW * (Na/140 - 1)",
@@ -155,13 +157,15 @@ static int describe(int method, struct ntr_method_info *info)
         return entry(info, method, "Infusate effect by mass balance",
             "delta Na = V * (Na_inf + K_inf - Na) / (TBW + V); equals the "
             "Adrogue-Madias formula at V = 1 L",
-            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO,
+            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO
+            "; the same forward step checks the dose in the worked example of "
+            REF_FURST,
             "any (body water estimated separately; no losses)");
     case NTR_METHOD_INFUSATE_VOLUME:
         return entry(info, method, "Infusate volume for a wanted change",
             "V = delta * TBW / (Na_inf + K_inf - Na - delta)",
-            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO
-            "; used in the worked example of " REF_FURST,
+            "Exact inverse of the mass balance of " REF_ADROGUE_MADIAS_HYPO
+            " (counts the water given, unlike the sodium-deficit step)",
             "any (body water estimated separately; no losses)");
     case NTR_METHOD_FURST:
         return entry(info, method, "Furst urine/serum electrolyte ratio",
@@ -225,7 +229,7 @@ static int describe(int method, struct ntr_method_info *info)
             "symptoms is usually stopped for the day",
             "Sterns RH, Hix JK, Silver S. Treating profound hyponatremia: a "
             "strategy for controlled correction. Am J Kidney Dis "
-            "2010;56:774-9 (cited from memory)",
+            "2010;56:774-9",
             "adults given hypertonic saline for severe symptoms");
     case NTR_METHOD_BALANCE_MASS:
         return entry(info, method, "Mass balance of fluids (Edelman-based)",
@@ -259,7 +263,7 @@ static int describe(int method, struct ntr_method_info *info)
             "Na + K; 0 when losses alone lower sodium by d",
             "Mass balance of " REF_ADROGUE_MADIAS_HYPO "; re-lowering as "
             "advised by Sterns RH, Hix JK. Overcorrection of hyponatremia is "
-            "a medical emergency. Kidney Int 2009;76:587-9 (cited from memory)",
+            "a medical emergency. Kidney Int 2009;76:587-9",
             "adults whose sodium rose faster than the limits");
     /* ---- course limits in both directions (ids 40-45, issue P1) ------- */
 #define REF_ADROGUE_MADIAS_HYPER                                             \

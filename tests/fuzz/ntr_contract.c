@@ -257,11 +257,14 @@ static int call_tbw_watson(ntrc_case *c)
 
 static const char *ok_tbw_watson(const ntrc_case *c)
 {
-    /* Positive, and below the male equation at the youngest adult age and
-     * the largest height and weight. */
+    /* A usable body water (0.1 to 400 L) between 20% and 80% of the
+     * weight (docs/water.md), and below the male equation at the youngest
+     * adult age and the largest height and weight. */
     double most = 2.447 - 0.09516 * 18.0 + 0.1074 * 275.0 + 0.3362 * 650.0;
-    return (c->out.d[0] > 0.0 && within(c->out.d[0], 0.0, most)) ? NULL
-                                                                 : "Watson TBW outside (0, 250]";
+    double w = c->num[2];
+    return (within(c->out.d[0], 0.1, most) && within(c->out.d[0], 0.2 * w, 0.8 * w))
+               ? NULL
+               : "Watson TBW outside [0.1, 250] L or outside 20-80% of weight";
 }
 
 static int call_free_water_deficit(ntrc_case *c)
@@ -317,6 +320,9 @@ static int call_infusate_change(ntrc_case *c)
 static const char *ok_infusate_change(const ntrc_case *c)
 {
     double gap = c->num[2] + c->num[3] - c->num[0];
+    if (!within(c->num[0] + c->out.d[0], 80.0, 220.0)) {
+        return "predicted sodium outside 80 to 220 (ntr_balance_predict refuses it)";
+    }
     return delta_between(c->out.d[0], gap) ? NULL
                                            : "change outside [0, infusate - serum]";
 }
@@ -3193,7 +3199,7 @@ const ntrc_fn ntrc_functions[] = {
      .check_ok = ok_na_deficit},
     /* water */
     {CALL(tbw_fraction), .n_enum = 1, .en = {SEX}, .n_num = 2,
-     .num = {{"age_years", 0.0, 130.0, 0}, {"weight_kg", 0.3, 650.0, 0}}, .n_out_d = 1,
+     .num = {{"age_years", 1.0, 130.0, 0}, {"weight_kg", 0.3, 650.0, 0}}, .n_out_d = 1,
      .statuses = OK_COMMON | ST(ERR_ARG), .base_num = {70.0, 60.0},
      .base_en = {NTR_SEX_FEMALE}, .check_ok = ok_tbw_fraction},
     {CALL(tbw_watson), .n_enum = 1, .en = {SEX}, .n_num = 3,
@@ -3209,11 +3215,11 @@ const ntrc_fn ntrc_functions[] = {
      .n_out_d = 2, .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG),
      .base_en = {NTR_FLUID_NACL_3}, .check_ok = ok_fluid_preset},
     {CALL(infusate_change_per_litre), .n_num = 4, .num = {NA, TBW, INF_NA, INF_K},
-     .n_out_d = 1, .statuses = OK_COMMON, .base_num = {112.0, 30.0, 513.0, 0.0},
+     .n_out_d = 1, .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {112.0, 30.0, 513.0, 0.0},
      .check_ok = ok_infusate_change_per_litre},
     {CALL(infusate_change), .n_num = 5,
      .num = {NA, TBW, INF_NA, INF_K, {"volume_l", 0.0, 20.0, 0}}, .n_out_d = 1,
-     .statuses = OK_COMMON, .base_num = {108.0, 30.0, 513.0, 0.0, 0.292},
+     .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {108.0, 30.0, 513.0, 0.0, 0.292},
      .check_ok = ok_infusate_change},
     {CALL(infusate_volume_for_change), .n_num = 5,
      .num = {NA, TBW, INF_NA, INF_K, {"target_delta_mmol_l", -50.0, 50.0, 0}}, .n_out_d = 1,
