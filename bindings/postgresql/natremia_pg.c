@@ -722,7 +722,8 @@ sort_samples(ntr_sample *s, size_t n)
 
 typedef struct series_state
 {
-	ntr_limits	limits;
+	ntr_limits	limits;			/* the 1.0 aggregates' limits (else zero) */
+	ntr_course_limits course;	/* the 1.1 course aggregates' (else zero) */
 	int			limits_status;	/* NTR_OK, or why the limits are unusable */
 	bool		have_limits;
 	size_t		n;
@@ -758,25 +759,32 @@ state_reserve(series_state *state, size_t extra, MemoryContext context)
 	MemoryContextSwitchTo(old);
 }
 
-/* Every row must carry the same limits; a change makes the result invalid. */
+/* Every row must carry the same limits; a change makes the result invalid.
+ * A 1.0 aggregate passes zeroed course limits and a course aggregate
+ * zeroed 1.0 limits (both memset, so padding compares equal too). */
 static void
-state_set_limits(series_state *state, const ntr_limits *lim, int status)
+state_set_limits(series_state *state, const ntr_limits *lim,
+				 const ntr_course_limits *course, int status)
 {
 	if (!state->have_limits)
 	{
 		state->limits = *lim;
+		/* memcpy, not assignment: the padding must be copied for memcmp. */
+		memcpy(&state->course, course, sizeof(ntr_course_limits));
 		state->limits_status = status;
 		state->have_limits = true;
 		return;
 	}
 	if (state->limits_status == NTR_OK &&
 		(status != NTR_OK ||
-		 memcmp(&state->limits, lim, sizeof(ntr_limits)) != 0))
+		 memcmp(&state->limits, lim, sizeof(ntr_limits)) != 0 ||
+		 memcmp(&state->course, course, sizeof(ntr_course_limits)) != 0))
 		state->limits_status = status != NTR_OK ? status : NTR_ERR_ARG;
 }
 
 static series_state *
-transition(FunctionCallInfo fcinfo, const ntr_limits *lim, int limits_status)
+transition(FunctionCallInfo fcinfo, const ntr_limits *lim,
+		   const ntr_course_limits *course, int limits_status)
 {
 	MemoryContext aggcontext;
 	series_state *state;
@@ -785,7 +793,7 @@ transition(FunctionCallInfo fcinfo, const ntr_limits *lim, int limits_status)
 		elog(ERROR, "natremia: ntr_correction_assess called outside an aggregate");
 	state = PG_ARGISNULL(0) ? state_new(aggcontext)
 		: (series_state *) PG_GETARG_POINTER(0);
-	state_set_limits(state, lim, limits_status);
+	state_set_limits(state, lim, course, limits_status);
 	/* A row without a time or a sodium is a missing result: skipped. */
 	if (!PG_ARGISNULL(1) && !PG_ARGISNULL(2))
 	{
@@ -819,9 +827,11 @@ Datum
 ntrpg_correction_transition(PG_FUNCTION_ARGS)
 {
 	ntr_limits	lim;
+	ntr_course_limits none;
 	int			st = ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
 
-	PG_RETURN_POINTER(transition(fcinfo, &lim, st));
+	memset(&none, 0, sizeof none);
+	PG_RETURN_POINTER(transition(fcinfo, &lim, &none, st));
 }
 
 PG_FUNCTION_INFO_V1(ntrpg_correction_transition_preset);
@@ -830,8 +840,10 @@ Datum
 ntrpg_correction_transition_preset(PG_FUNCTION_ARGS)
 {
 	ntr_limits	lim;
+	ntr_course_limits none;
 	int			st;
 
+	memset(&none, 0, sizeof none);
 	if (PG_ARGISNULL(3))
 	{
 		memset(&lim, 0, sizeof lim);
@@ -839,7 +851,7 @@ ntrpg_correction_transition_preset(PG_FUNCTION_ARGS)
 	}
 	else
 		st = preset_limits(PG_GETARG_TEXT_PP(3), &lim);
-	PG_RETURN_POINTER(transition(fcinfo, &lim, st));
+	PG_RETURN_POINTER(transition(fcinfo, &lim, &none, st));
 }
 
 PG_FUNCTION_INFO_V1(ntrpg_correction_transition_limits);
@@ -848,9 +860,11 @@ Datum
 ntrpg_correction_transition_limits(PG_FUNCTION_ARGS)
 {
 	ntr_limits	lim;
+	ntr_course_limits none;
 	int			st = NTR_OK;
 
 	memset(&lim, 0, sizeof lim);
+	memset(&none, 0, sizeof none);
 	if (PG_ARGISNULL(3) || PG_ARGISNULL(4) || PG_ARGISNULL(5))
 		st = NTR_ERR_ARG;
 	else
@@ -859,7 +873,7 @@ ntrpg_correction_transition_limits(PG_FUNCTION_ARGS)
 		lim.max_rise_48h = PG_GETARG_FLOAT8(4);
 		lim.min_rise_24h = PG_GETARG_FLOAT8(5);
 	}
-	PG_RETURN_POINTER(transition(fcinfo, &lim, st));
+	PG_RETURN_POINTER(transition(fcinfo, &lim, &none, st));
 }
 
 /* Partial aggregation (parallel workers, distributed engines): the sample
@@ -882,6 +896,7 @@ ntrpg_correction_combine(PG_FUNCTION_ARGS)
 	{
 		a = state_new(aggcontext);
 		a->limits = b->limits;
+		memcpy(&a->course, &b->course, sizeof(ntr_course_limits));
 		a->limits_status = b->limits_status;
 		a->have_limits = b->have_limits;
 	}
@@ -889,7 +904,7 @@ ntrpg_correction_combine(PG_FUNCTION_ARGS)
 	{
 		a = (series_state *) PG_GETARG_POINTER(0);
 		if (b->have_limits)
-			state_set_limits(a, &b->limits, b->limits_status);
+			state_set_limits(a, &b->limits, &b->course, b->limits_status);
 	}
 	state_reserve(a, b->n, aggcontext);
 	if (b->n > 0)
@@ -911,6 +926,13 @@ ntrpg_correction_serialize(PG_FUNCTION_ARGS)
 	pq_sendfloat8(&buf, state->limits.max_rise_24h);
 	pq_sendfloat8(&buf, state->limits.max_rise_48h);
 	pq_sendfloat8(&buf, state->limits.min_rise_24h);
+	pq_sendint64(&buf, (int64) state->course.struct_size);
+	pq_sendint32(&buf, (int32) state->course.goal);
+	pq_sendfloat8(&buf, state->course.max_rise_24h);
+	pq_sendfloat8(&buf, state->course.max_rise_48h);
+	pq_sendfloat8(&buf, state->course.max_fall_24h);
+	pq_sendfloat8(&buf, state->course.max_fall_48h);
+	pq_sendfloat8(&buf, state->course.min_change_24h);
 	pq_sendint32(&buf, (int32) state->limits_status);
 	pq_sendbyte(&buf, state->have_limits ? 1 : 0);
 	pq_sendint64(&buf, (int64) state->n);
@@ -942,6 +964,14 @@ ntrpg_correction_deserialize(PG_FUNCTION_ARGS)
 	state->limits.max_rise_24h = pq_getmsgfloat8(&buf);
 	state->limits.max_rise_48h = pq_getmsgfloat8(&buf);
 	state->limits.min_rise_24h = pq_getmsgfloat8(&buf);
+	/* state_new() zeroed the struct, padding included (memcmp above). */
+	state->course.struct_size = (size_t) pq_getmsgint64(&buf);
+	state->course.goal = pq_getmsgint(&buf, 4);
+	state->course.max_rise_24h = pq_getmsgfloat8(&buf);
+	state->course.max_rise_48h = pq_getmsgfloat8(&buf);
+	state->course.max_fall_24h = pq_getmsgfloat8(&buf);
+	state->course.max_fall_48h = pq_getmsgfloat8(&buf);
+	state->course.min_change_24h = pq_getmsgfloat8(&buf);
 	state->limits_status = pq_getmsgint(&buf, 4);
 	state->have_limits = pq_getmsgbyte(&buf) != 0;
 	n = (size_t) pq_getmsgint64(&buf);
@@ -1075,3 +1105,386 @@ series_impl(FunctionCallInfo fcinfo, bool checked)
 						  checked, f);
 }
 NTRPG_PAIR(series)
+
+/* =====================================================================
+ * 1.1: the course in both directions (natremia--1.0--1.1.sql)
+ *
+ * ntr_course_assess(hours, na_mmol_l, preset) and
+ * ntr_course_assess(hours, na_mmol_l, goal, max_rise_24h, max_rise_48h,
+ * max_fall_24h, max_fall_48h, min_change_24h) collect a series as the 1.0
+ * aggregate does (same state, combine, serialize and deserialize) and run
+ * ntr_course_assess() once in the final function.
+ * ===================================================================== */
+
+static const named_value course_presets[] = {
+	{"hypo_standard", NTR_COURSE_HYPO_STANDARD},
+	{"hypo_high_risk", NTR_COURSE_HYPO_HIGH_RISK},
+	{"hyper_chronic", NTR_COURSE_HYPER_CHRONIC},
+	{"hyper_acute", NTR_COURSE_HYPER_ACUTE},
+	{"hold", NTR_COURSE_HOLD},
+	{NULL, 0}
+};
+static const named_value goals[] = {
+	{"raise", NTR_GOAL_RAISE}, {"lower", NTR_GOAL_LOWER},
+	{"hold", NTR_GOAL_HOLD}, {NULL, 0}
+};
+
+/* Readable names of the NTR_CF_* bits of a course report, in bit order:
+ * the 1.0 rise bits say "rise" so they never read as a fall. */
+static const char *const course_flag_names[] = {
+	"rise_over_24h", "rise_over_48h", "below_target", "falling",
+	"near_limit", "projected_over", "rapid_6h", "fall_over_24h",
+	"fall_over_48h", "wrong_way", "approximate", "fall_near_limit",
+	"fall_projected_over"
+};
+
+static Datum
+course_flags_array(unsigned int flags)
+{
+	Datum		items[lengthof(course_flag_names)];
+	int			n = 0;
+	int			bit;
+
+	for (bit = 0; bit < (int) lengthof(course_flag_names); bit++)
+	{
+		if (flags & (1u << bit))
+			items[n++] = CStringGetTextDatum(course_flag_names[bit]);
+	}
+	return PointerGetDatum(construct_array(items, n, TEXTOID, -1, false,
+										   TYPALIGN_INT));
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_course_flag_names);
+Datum		ntrpg_course_flag_names(PG_FUNCTION_ARGS);
+Datum
+ntrpg_course_flag_names(PG_FUNCTION_ARGS)
+{
+	PG_RETURN_DATUM(course_flags_array((unsigned int) PG_GETARG_INT32(0)));
+}
+
+static const char *
+value_name(const named_value *table, int value)
+{
+	int			i;
+
+	for (i = 0; table[i].name != NULL; i++)
+	{
+		if (table[i].value == value)
+			return table[i].name;
+	}
+	return "unknown";
+}
+
+/* Course limits from a preset name (NTR_ERR_ARG when unknown). */
+static int
+course_preset_limits(text *name, ntr_course_limits *lim)
+{
+	char	   *given = text_to_cstring(name);
+	int			i;
+
+	memset(lim, 0, sizeof *lim);
+	lim->struct_size = sizeof *lim;
+	for (i = 0; course_presets[i].name != NULL; i++)
+	{
+		if (pg_strcasecmp(given, course_presets[i].name) == 0)
+			return ntr_course_limits_preset(course_presets[i].value, lim);
+	}
+	return NTR_ERR_ARG;
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_course_transition_preset);
+Datum		ntrpg_course_transition_preset(PG_FUNCTION_ARGS);
+Datum
+ntrpg_course_transition_preset(PG_FUNCTION_ARGS)
+{
+	ntr_limits	none;
+	ntr_course_limits lim;
+	int			st;
+
+	memset(&none, 0, sizeof none);
+	memset(&lim, 0, sizeof lim);
+	if (PG_ARGISNULL(3))
+		st = NTR_ERR_ARG;
+	else
+		st = course_preset_limits(PG_GETARG_TEXT_PP(3), &lim);
+	PG_RETURN_POINTER(transition(fcinfo, &none, &lim, st));
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_course_transition_limits);
+Datum		ntrpg_course_transition_limits(PG_FUNCTION_ARGS);
+Datum
+ntrpg_course_transition_limits(PG_FUNCTION_ARGS)
+{
+	ntr_limits	none;
+	ntr_course_limits lim;
+	int			st = NTR_OK;
+	int			arg;
+	int			goal = 0;
+
+	memset(&none, 0, sizeof none);
+	memset(&lim, 0, sizeof lim);
+	lim.struct_size = sizeof lim;
+	for (arg = 3; arg <= 8; arg++)
+	{
+		if (PG_ARGISNULL(arg))
+			st = NTR_ERR_ARG;
+	}
+	if (st == NTR_OK &&
+		!lookup_name(PG_GETARG_TEXT_PP(3), goals, "goal", "ntr_course_assess",
+					 false, &goal))
+		st = NTR_ERR_ARG;
+	if (st == NTR_OK)
+	{
+		lim.goal = goal;
+		lim.max_rise_24h = PG_GETARG_FLOAT8(4);
+		lim.max_rise_48h = PG_GETARG_FLOAT8(5);
+		lim.max_fall_24h = PG_GETARG_FLOAT8(6);
+		lim.max_fall_48h = PG_GETARG_FLOAT8(7);
+		lim.min_change_24h = PG_GETARG_FLOAT8(8);
+	}
+	PG_RETURN_POINTER(transition(fcinfo, &none, &lim, st));
+}
+
+/* The composite ntr_course_report row of an assessment. */
+static Datum
+course_datum(FunctionCallInfo fcinfo, const ntr_course_report *r,
+			 const ntr_course_limits *lim, int n)
+{
+	TupleDesc	desc;
+	Datum		values[16];
+	bool		nulls[16];
+
+	memset(nulls, 0, sizeof nulls);
+	if (get_call_result_type(fcinfo, NULL, &desc) != TYPEFUNC_COMPOSITE)
+		ereport(ERROR,
+				(errcode(ERRCODE_FEATURE_NOT_SUPPORTED),
+				 errmsg("natremia: the result type must be ntr_course_report")));
+	desc = BlessTupleDesc(desc);
+	values[0] = CStringGetTextDatum(value_name(goals, lim->goal));
+	values[1] = Float8GetDatum(r->max_rise_24h);
+	values[2] = Float8GetDatum(r->max_rise_48h);
+	values[3] = Float8GetDatum(r->max_fall_24h);
+	values[4] = Float8GetDatum(r->max_fall_48h);
+	values[5] = Float8GetDatum(r->excess_mmol_l);
+	values[6] = Int32GetDatum((int32) r->flags);
+	values[7] = course_flags_array(r->flags);
+	values[8] = Float8GetDatum(r->rise_first_24h);
+	values[9] = Float8GetDatum(r->fall_first_24h);
+	values[10] = Float8GetDatum(r->rise_now_24h);
+	values[11] = Float8GetDatum(r->fall_now_24h);
+	values[12] = Float8GetDatum(r->last_rate_per_h);
+	values[13] = Float8GetDatum(r->elapsed_h);
+	values[14] = Float8GetDatum(r->worst_at_h);
+	nulls[14] = r->worst_at_h == NTR_COURSE_NO_TIME;
+	values[15] = Int32GetDatum(n);
+	return HeapTupleGetDatum(heap_form_tuple(desc, values, nulls));
+}
+
+/* Sorts, assesses, returns the composite, NULL or an error. */
+static Datum
+course_samples(FunctionCallInfo fcinfo, ntr_sample *samples, size_t n,
+			   const ntr_course_limits *lim, int limits_status, bool checked,
+			   const char *function)
+{
+	ntr_course_report report;
+	int			st = limits_status;
+
+	memset(&report, 0, sizeof report);
+	report.struct_size = sizeof report;
+	if (st == NTR_OK)
+	{
+		sort_samples(samples, n);
+		st = ntr_course_assess(samples, n, lim, &report);
+	}
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(function, st);
+		PG_RETURN_NULL();
+	}
+	PG_RETURN_DATUM(course_datum(fcinfo, &report, lim, (int) n));
+}
+
+static Datum
+course_final(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_course_assess_checked" : "ntr_course_assess";
+	series_state *state;
+
+	if (PG_ARGISNULL(0))
+		PG_RETURN_NULL();
+	state = (series_state *) PG_GETARG_POINTER(0);
+	if (state->n == 0)
+		PG_RETURN_NULL();
+	return course_samples(fcinfo, state->samples, state->n, &state->course,
+						  state->limits_status, checked, f);
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_course_final);
+Datum		ntrpg_course_final(PG_FUNCTION_ARGS);
+Datum
+ntrpg_course_final(PG_FUNCTION_ARGS)
+{
+	return course_final(fcinfo, false);
+}
+
+PG_FUNCTION_INFO_V1(ntrpg_course_final_checked);
+Datum		ntrpg_course_final_checked(PG_FUNCTION_ARGS);
+Datum
+ntrpg_course_final_checked(PG_FUNCTION_ARGS)
+{
+	return course_final(fcinfo, true);
+}
+
+/* One series given as two arrays, with a preset. */
+static Datum
+course_series_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_course_assess_series_checked"
+		: "ntr_course_assess_series";
+	Datum	   *hours;
+	Datum	   *na;
+	int			n_hours;
+	int			n_na;
+	ntr_course_limits lim;
+	ntr_sample *samples;
+	int			st;
+	int			i;
+
+	st = course_preset_limits(PG_GETARG_TEXT_PP(2), &lim);
+	if (st == NTR_OK &&
+		(!float8_elements(PG_GETARG_ARRAYTYPE_P(0), &hours, &n_hours) ||
+		 !float8_elements(PG_GETARG_ARRAYTYPE_P(1), &na, &n_na) ||
+		 n_hours != n_na || n_hours == 0))
+		st = NTR_ERR_ARG;
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(f, st);
+		PG_RETURN_NULL();
+	}
+	samples = palloc(sizeof(ntr_sample) * (size_t) n_hours);
+	for (i = 0; i < n_hours; i++)
+	{
+		samples[i].hours = DatumGetFloat8(hours[i]);
+		samples[i].na_mmol_l = DatumGetFloat8(na[i]);
+	}
+	return course_samples(fcinfo, samples, (size_t) n_hours, &lim, NTR_OK,
+						  checked, f);
+}
+NTRPG_PAIR(course_series)
+
+/* The limits of a preset as a row (goal, the five limits). */
+static Datum
+course_limits_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_course_limits_preset_checked"
+		: "ntr_course_limits_preset";
+	ntr_course_limits lim;
+	TupleDesc	desc;
+	Datum		values[6];
+	bool		nulls[6];
+	int			st = course_preset_limits(PG_GETARG_TEXT_PP(0), &lim);
+
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(f, st);
+		PG_RETURN_NULL();
+	}
+	memset(nulls, 0, sizeof nulls);
+	if (get_call_result_type(fcinfo, NULL, &desc) != TYPEFUNC_COMPOSITE)
+		ereport(ERROR,
+				(errcode(ERRCODE_FEATURE_NOT_SUPPORTED),
+				 errmsg("natremia: the result type must be ntr_course_limits")));
+	desc = BlessTupleDesc(desc);
+	values[0] = CStringGetTextDatum(value_name(goals, lim.goal));
+	values[1] = Float8GetDatum(lim.max_rise_24h);
+	values[2] = Float8GetDatum(lim.max_rise_48h);
+	values[3] = Float8GetDatum(lim.max_fall_24h);
+	values[4] = Float8GetDatum(lim.max_fall_48h);
+	values[5] = Float8GetDatum(lim.min_change_24h);
+	PG_RETURN_DATUM(HeapTupleGetDatum(heap_form_tuple(desc, values, nulls)));
+}
+NTRPG_PAIR(course_limits)
+
+/* ---------------------------------------------------------------------
+ * 1.1: tonicity judged on the effective osmolality
+ * --------------------------------------------------------------------- */
+
+/* Names of the NTR_LOW_NA_* bits, in bit order. */
+static const char *const low_na_flag_names[] = {
+	"not_hypotonic", "pseudo", "translocational", "glucose_explains",
+	"discordant", "ineffective_osmoles"
+};
+
+static Datum
+low_na_flags_array(unsigned int flags)
+{
+	Datum		items[lengthof(low_na_flag_names)];
+	int			n = 0;
+	int			bit;
+
+	for (bit = 0; bit < (int) lengthof(low_na_flag_names); bit++)
+	{
+		if (flags & (1u << bit))
+			items[n++] = CStringGetTextDatum(low_na_flag_names[bit]);
+	}
+	return PointerGetDatum(construct_array(items, n, TEXTOID, -1, false,
+										   TYPALIGN_INT));
+}
+
+static Datum
+low_na_effective_tonicity_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	static const char *const words[] = {"", "hypotonic", "isotonic", "hypertonic"};
+	const char *f = checked ? "ntr_low_na_effective_tonicity_checked"
+		: "ntr_low_na_effective_tonicity";
+	int			method;
+	int			tonicity = 0;
+	unsigned int flags = 0;
+	int			st;
+	TupleDesc	desc;
+	Datum		values[3];
+	bool		nulls[3] = {false, false, false};
+
+	LOOKUP_OR_NULL(5, glucose_methods, "glucose_method", f, checked, method);
+	st = ntr_low_na_effective_tonicity(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+									   PG_GETARG_FLOAT8(2), PG_GETARG_FLOAT8(3),
+									   PG_GETARG_FLOAT8(4), method, &tonicity,
+									   &flags);
+	if (st == NTR_OK && (tonicity < 1 || tonicity >= (int) lengthof(words)))
+		st = NTR_ERR_ARG;		/* a newer library with a new class */
+	if (st != NTR_OK)
+	{
+		if (checked)
+			report_status(f, st);
+		PG_RETURN_NULL();
+	}
+	if (get_call_result_type(fcinfo, NULL, &desc) != TYPEFUNC_COMPOSITE)
+		ereport(ERROR,
+				(errcode(ERRCODE_FEATURE_NOT_SUPPORTED),
+				 errmsg("natremia: the result type must be ntr_low_na_tonicity")));
+	desc = BlessTupleDesc(desc);
+	values[0] = CStringGetTextDatum(words[tonicity]);
+	values[1] = Int32GetDatum((int32) flags);
+	values[2] = low_na_flags_array(flags);
+	PG_RETURN_DATUM(HeapTupleGetDatum(heap_form_tuple(desc, values, nulls)));
+}
+NTRPG_PAIR(low_na_effective_tonicity)
+
+static Datum
+effective_osm_measured_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_effective_osm_measured_checked"
+		: "ntr_effective_osm_measured";
+	double		out = 0.0;
+	int			st = ntr_effective_osm_measured(PG_GETARG_FLOAT8(0),
+												PG_GETARG_FLOAT8(1),
+												PG_GETARG_FLOAT8(2),
+												PG_GETARG_FLOAT8(3),
+												PG_GETARG_FLOAT8(4), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(effective_osm_measured)

@@ -1,8 +1,9 @@
 #!/usr/bin/env python3
 """Runs examples/cohort_dask.py small on a LocalCluster of worker processes
 (loopback) and checks that its result equals the serial computation, and
-that the serial batch computation equals one scalar ntr_correction_assess
-call per invented patient.
+that the serial batch computation equals one scalar course_assess() call
+per invented patient (ntr_course_assess, the 1.1 engine), both with a
+preset per patient (by its goal) and with one preset for the cohort.
 
 Exit 77 (skipped) only when numpy, dask or distributed is not installed
 (apt-get install python3-numpy python3-dask python3-distributed).
@@ -32,7 +33,9 @@ import cohort_dask  # noqa: E402
 PATIENTS = 3000
 PARTITIONS = 6
 SEED = 7
-LIMITS = "high_risk"
+# Both ways of choosing limits: each patient's goal, and one for all.
+PRESETS = (cohort_dask.PER_PATIENT, "hypo_high_risk")
+F = natremia.CourseFlag
 
 
 def check(condition, message):
@@ -42,55 +45,81 @@ def check(condition, message):
     print("ok: " + message)
 
 
-def scalar_reference():
-    """One scalar call per patient, partition by partition."""
-    flags, rise, excess, status = [], [], [], []
+def scalar_reference(preset):
+    """One scalar course_assess call per patient, partition by partition."""
+    ref = {"flags": [], "status": [], "id": []}
+    for field in cohort_dask.FIELDS:
+        ref[field] = []
     for index, n in enumerate(cohort_dask.partition_sizes(PATIENTS, PARTITIONS)):
-        counts, hours, na = cohort_dask.make_partition(index, n, SEED)
+        ids, hours, na, presets = cohort_dask.partition_rows(index, n, SEED,
+                                                             preset)
         start = 0
-        for count in counts:
-            end = start + int(count)
+        while start < ids.size:
+            end = start + int(np.count_nonzero(ids == ids[start]))
+            ref["id"].append(int(ids[start]))
             try:
-                c = natremia.correction_assess(hours=hours[start:end],
-                                               na_mmol_l=na[start:end],
-                                               limits=LIMITS)
-                flags.append(int(c.flags))
-                rise.append(c.max_rise_24h)
-                excess.append(c.excess_mmol_l)
-                status.append(0)
+                r = natremia.course_assess(hours=hours[start:end],
+                                           na_mmol_l=na[start:end],
+                                           limits=str(presets[start]))
+                ref["flags"].append(int(r.flags))
+                ref["status"].append(0)
+                for field in cohort_dask.FIELDS:
+                    ref[field].append(getattr(r, field))
             except natremia.NatremiaError as err:
-                flags.append(0)
-                rise.append(float("nan"))
-                excess.append(float("nan"))
-                status.append(err.status)
+                ref["flags"].append(0)
+                ref["status"].append(err.status)
+                for field in cohort_dask.FIELDS:
+                    ref[field].append(float("nan"))
             start = end
-    return flags, rise, excess, status
+    return ref
+
+
+def check_serial(preset):
+    serial = cohort_dask.run_serial(PATIENTS, PARTITIONS, SEED, preset)
+    check(serial["flags"].size == PATIENTS,
+          "%s: serial result has one row per patient" % preset)
+    ref = scalar_reference(preset)
+    check(serial["id"].tolist() == ref["id"], "%s: patient ids kept" % preset)
+    check(serial["flags"].tolist() == ref["flags"]
+          and serial["status"].tolist() == ref["status"],
+          "%s: batch flags and statuses equal the scalar calls" % preset)
+    check(all(np.array_equal(serial[f], np.array(ref[f]), equal_nan=True)
+              for f in cohort_dask.FIELDS),
+          "%s: batch figures equal the scalar calls" % preset)
+    return serial
 
 
 def main():
-    serial = cohort_dask.run_serial(PATIENTS, PARTITIONS, SEED, LIMITS)
-    check(serial["flags"].size == PATIENTS, "serial result has one row per patient")
-    check(np.count_nonzero(serial["flags"]) > 0, "some invented patients are flagged")
-
-    flags, rise, excess, status = scalar_reference()
-    check(serial["flags"].tolist() == flags and serial["status"].tolist() == status,
-          "batch flags and statuses equal the scalar calls")
-    check(np.array_equal(serial["max_rise_24h"], np.array(rise), equal_nan=True)
-          and np.array_equal(serial["excess_mmol_l"], np.array(excess), equal_nan=True),
-          "batch figures equal the scalar calls")
+    serials = {preset: check_serial(preset) for preset in PRESETS}
+    per_patient = serials[cohort_dask.PER_PATIENT]
+    flags = per_patient["flags"]
+    # The invented cohort has falling high sodiums and rising low ones:
+    # both directions are flagged when each patient has its goal's preset.
+    check(np.count_nonzero(flags & int(F.FALL_OVER_24H)) > 0,
+          "some invented high-sodium patients fall too fast")
+    check(np.count_nonzero(flags & int(F.OVER_24H)) > 0,
+          "some invented low-sodium patients rise too fast")
+    one_goal = serials["hypo_high_risk"]["flags"]
+    check(np.count_nonzero(one_goal & int(F.WRONG_WAY)) > 0,
+          "one raise preset for all: the falling patients move the wrong way")
 
     cluster, client = cohort_dask.local_cluster(workers=2, threads=1)
     try:
         check(all(addr.startswith("tcp://127.0.0.1:")
                   for addr in client.scheduler_info()["workers"]),
               "workers listen on loopback")
-        result = cohort_dask.run_dask(client, PATIENTS, PARTITIONS, SEED, LIMITS)
+        results = {preset: cohort_dask.run_dask(client, PATIENTS, PARTITIONS,
+                                                SEED, preset)
+                   for preset in PRESETS}
     finally:
         client.close()
         cluster.close()
-    check(cohort_dask.same_result(result, serial),
-          "Dask result equals the serial computation bit for bit")
-    print("\n".join(cohort_dask.summary_lines(result, LIMITS)))
+    for preset in PRESETS:
+        check(cohort_dask.same_result(results[preset], serials[preset]),
+              "%s: Dask result equals the serial computation bit for bit"
+              % preset)
+    print("\n".join(cohort_dask.summary_lines(results[cohort_dask.PER_PATIENT],
+                                              cohort_dask.PER_PATIENT)))
     return 0
 
 

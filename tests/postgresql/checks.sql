@@ -286,6 +286,230 @@ SELECT pg_temp.same('parallel == serial', (SELECT count(*) FROM (
     0::bigint);
 SELECT pg_temp.same('cohort size', (SELECT count(*) FROM serial WHERE samples = 7), 3000::bigint);
 
+-- ------------------------------------------------------------ 1.1: course
+SELECT pg_temp.same('default version',
+    (SELECT extversion FROM pg_extension WHERE extname = 'natremia'), '1.1');
+
+-- Presets. Source: Adrogue & Madias, Hypernatremia, N Engl J Med
+-- 2000;342:1493-9 (chronic: lower by at most about 10 mmol/L a day);
+-- Spasovski et al., Eur J Endocrinol 2014 (10 in 24 h, 18 in 48 h) and the
+-- US panel's 8 in any 24 h at high risk (16 in 48 h: the library's 2 x 8).
+SELECT pg_temp.same('hyper_chronic goal', (ntr_course_limits_preset('hyper_chronic')).goal, 'lower'),
+       pg_temp.near('hyper_chronic fall', (ntr_course_limits_preset('hyper_chronic')).max_fall_24h, 10, 0),
+       pg_temp.near('hyper_chronic target', (ntr_course_limits_preset('hyper_chronic')).min_change_24h, 0, 0),
+       pg_temp.same('hypo_standard goal', (ntr_course_limits_preset('HYPO_STANDARD')).goal, 'raise'),
+       pg_temp.near('hypo_standard 24h', (ntr_course_limits_preset('hypo_standard')).max_rise_24h, 10, 0),
+       pg_temp.near('hypo_standard 48h', (ntr_course_limits_preset('hypo_standard')).max_rise_48h, 18, 0),
+       pg_temp.near('hypo_high_risk 24h', (ntr_course_limits_preset('hypo_high_risk')).max_rise_24h, 8, 0),
+       pg_temp.near('hypo_high_risk 48h', (ntr_course_limits_preset('hypo_high_risk')).max_rise_48h, 16, 0);
+SELECT pg_temp.same('unknown course preset gives NULL',
+    ntr_course_limits_preset('lenient'), NULL::ntr_course_limits);
+SELECT pg_temp.raises('unknown course preset checked',
+    $q$SELECT ntr_course_limits_preset_checked('lenient')$q$, '22023');
+
+-- The falling cases, invented series, worked by hand (a fall is the
+-- largest decrease between two samples at most 24 h apart):
+--   hyper_24h:  165 -> 140 in 24 h, lowering: fall 25, 15 over the limit 10;
+--   hyper_12h:  170, 160, 148 at 0, 6, 12 h: fall 22, excess 12;
+--   hypo_worse: 124 -> 112 in 12 h while raising: 12 against the goal;
+--   hypo_fast:  the 1.0 patient 1 (110 -> 124 in 24 h): rise 14, excess 4.
+CREATE TEMP TABLE course_lab (patient text, hours float8, na float8, preset text);
+INSERT INTO course_lab VALUES
+    ('hyper_24h', 24, 140, 'hyper_chronic'), ('hyper_24h', 0, 165, 'hyper_chronic'),
+    ('hyper_12h', 0, 170, 'hyper_chronic'), ('hyper_12h', 6, 160, 'hyper_chronic'),
+    ('hyper_12h', 12, 148, 'hyper_chronic'),
+    ('hypo_worse', 0, 124, 'hypo_standard'), ('hypo_worse', 12, 112, 'hypo_standard'),
+    ('hypo_worse', 6, NULL, 'hypo_standard'),
+    ('hypo_fast', 0, 110, 'hypo_standard'), ('hypo_fast', 6, 116, 'hypo_standard'),
+    ('hypo_fast', 12, 122, 'hypo_standard'), ('hypo_fast', 24, 124, 'hypo_standard');
+CREATE TEMP TABLE course_assessed AS
+SELECT patient, (ntr_course_assess(hours, na, preset)).*
+FROM course_lab GROUP BY patient;
+
+SELECT pg_temp.same('hyper_24h goal', goal, 'lower'),
+       pg_temp.near('hyper_24h fall', max_fall_24h, 25, 1e-12),
+       pg_temp.near('hyper_24h rise', max_rise_24h, 0, 0),
+       pg_temp.near('hyper_24h excess', excess_mmol_l, 15, 1e-12),
+       pg_temp.same('hyper_24h fall flagged', 'fall_over_24h' = ANY (flag_names), true),
+       pg_temp.same('hyper_24h bit', flags & 128, 128),
+       pg_temp.same('hyper_24h not below target', 'below_target' = ANY (flag_names), false),
+       pg_temp.same('hyper_24h not wrong way', 'wrong_way' = ANY (flag_names), false),
+       pg_temp.same('hyper_24h samples', samples, 2)
+FROM course_assessed WHERE patient = 'hyper_24h';
+-- "Now" and the time of the worst window (hand-worked): 165 -> 140 is the
+-- whole course, so the fall now is 25 too, and the worst window ends at
+-- 24 h; the last rate is -25/24 mmol/L/h.
+SELECT pg_temp.near('hyper_24h fall now', fall_now_24h, 25, 1e-12),
+       pg_temp.near('hyper_24h fall first', fall_first_24h, 25, 1e-12),
+       pg_temp.near('hyper_24h worst at', worst_at_h, 24, 0),
+       pg_temp.near('hyper_24h rate', last_rate_per_h, -25.0 / 24, 1e-15),
+       pg_temp.near('hyper_24h elapsed', elapsed_h, 24, 0)
+FROM course_assessed WHERE patient = 'hyper_24h';
+SELECT pg_temp.same('no breach: worst_at_h NULL',
+    (ntr_course_assess_series(ARRAY[0, 24]::float8[], ARRAY[160, 155]::float8[], 'hyper_chronic')).worst_at_h,
+    NULL::float8);
+-- Presets beyond the issue's three (header table; Adrogue & Madias 2000
+-- for the acute pace of about 1 mmol/L/h; hold: the library's margin).
+SELECT pg_temp.near('hyper_acute fall', (ntr_course_limits_preset('hyper_acute')).max_fall_24h, 24, 0),
+       pg_temp.same('hold goal', (ntr_course_limits_preset('hold')).goal, 'hold');
+SELECT pg_temp.near('hyper_12h fall', max_fall_24h, 22, 1e-12),
+       pg_temp.near('hyper_12h excess', excess_mmol_l, 12, 1e-12),
+       pg_temp.same('hyper_12h fall flagged', 'fall_over_24h' = ANY (flag_names), true)
+FROM course_assessed WHERE patient = 'hyper_12h';
+SELECT pg_temp.near('hypo_worse fall', max_fall_24h, 12, 1e-12),
+       pg_temp.same('hypo_worse wrong way', 'wrong_way' = ANY (flag_names), true),
+       pg_temp.same('hypo_worse no rise flag', 'rise_over_24h' = ANY (flag_names), false),
+       pg_temp.same('hypo_worse samples (NULL skipped)', samples, 2)
+FROM course_assessed WHERE patient = 'hypo_worse';
+SELECT pg_temp.near('hypo_fast rise', max_rise_24h, 14, 1e-12),
+       pg_temp.near('hypo_fast excess', excess_mmol_l, 4, 1e-12),
+       pg_temp.same('hypo_fast rise flagged', 'rise_over_24h' = ANY (flag_names), true),
+       pg_temp.same('hypo_fast not wrong way', 'wrong_way' = ANY (flag_names), false)
+FROM course_assessed WHERE patient = 'hypo_fast';
+-- The same rise as the 1.0 aggregate finds for that patient.
+SELECT pg_temp.same('course rise = 1.0 rise',
+    (SELECT (ntr_course_assess(hours, na, 'hypo_standard')).max_rise_24h FROM lab WHERE patient = 1),
+    (SELECT max_rise_24h FROM assessed WHERE patient = 1));
+
+-- A goal and explicit limits. Hand-worked: hold, 6 either way per 24 h;
+-- 140 -> 147.5 in 12 h rises 7.5, 1.5 over, a move past a limit.
+SELECT pg_temp.near('hold excess', (ntr_course_assess(h, v, 'hold', 6, 12, 6, 12, 0)).excess_mmol_l, 1.5, 1e-12),
+       pg_temp.same('hold flags', (ntr_course_assess(h, v, 'hold', 6, 12, 6, 12, 0)).flag_names
+                    @> ARRAY['rise_over_24h', 'wrong_way'], true),
+       pg_temp.same('hold goal', (ntr_course_assess(h, v, 'HOLD', 6, 12, 6, 12, 0)).goal, 'hold')
+FROM (VALUES (0.0::float8, 140.0::float8), (12, 147.5)) s(h, v);
+-- The array form gives the same row as the aggregate.
+SELECT pg_temp.same('course array form',
+    ntr_course_assess_series(ARRAY[0, 24]::float8[], ARRAY[165, 140]::float8[], 'hyper_chronic'),
+    (SELECT (goal, max_rise_24h, max_rise_48h, max_fall_24h, max_fall_48h, excess_mmol_l,
+             flags, flag_names, rise_first_24h, fall_first_24h, rise_now_24h, fall_now_24h,
+             last_rate_per_h, elapsed_h, worst_at_h, samples)::ntr_course_report
+     FROM course_assessed WHERE patient = 'hyper_24h'));
+SELECT pg_temp.same('course flag names', ntr_course_flag_names(128 | 512 | 1),
+                    ARRAY['rise_over_24h', 'fall_over_24h', 'wrong_way']);
+
+-- Invalid input: NULL, or an error from the _checked aggregate.
+SELECT pg_temp.same('course unknown preset gives NULL',
+    (SELECT ntr_course_assess(h, v, 'lenient') FROM (VALUES (0.0::float8, 150.0::float8)) s(h, v)),
+    NULL::ntr_course_report);
+SELECT pg_temp.same('course unknown goal gives NULL',
+    (SELECT ntr_course_assess(h, v, 'sideways', 10, 18, 10, 18, 0)
+     FROM (VALUES (0.0::float8, 150.0::float8)) s(h, v)), NULL::ntr_course_report);
+SELECT pg_temp.same('course bad sodium gives NULL',
+    (SELECT ntr_course_assess(h, v, 'hyper_chronic')
+     FROM (VALUES (0.0::float8, 150.0::float8), (6, 300)) s(h, v)), NULL::ntr_course_report);
+SELECT pg_temp.same('course mixed presets give NULL',
+    (SELECT ntr_course_assess(h, v, p)
+     FROM (VALUES (0.0::float8, 150.0::float8, 'hyper_chronic'), (6, 148, 'hypo_standard')) s(h, v, p)),
+    NULL::ntr_course_report);
+SELECT pg_temp.raises('course checked range',
+    $q$SELECT ntr_course_assess_checked(h, v, 'hyper_chronic') FROM (VALUES (0.0::float8, 150.0::float8), (6, 300)) s(h, v)$q$,
+    '22003');
+SELECT pg_temp.raises('course checked preset',
+    $q$SELECT ntr_course_assess_checked(h, v, 'lenient') FROM (VALUES (0.0::float8, 150.0::float8)) s(h, v)$q$,
+    '22023');
+
+-- Parallel partial aggregation of the course aggregate equals the serial
+-- plan on the invented cohort (the course limits travel in the state).
+SET max_parallel_workers_per_gather = 0;
+CREATE TEMP TABLE course_serial AS
+SELECT patient, (ntr_course_assess(hours, na, 'hypo_high_risk')).* FROM cohort GROUP BY patient;
+SET max_parallel_workers_per_gather = 2;
+DO $$
+DECLARE
+    line text;
+    partial boolean := false;
+BEGIN
+    FOR line IN EXPLAIN SELECT patient, ntr_course_assess(hours, na, 'hypo_high_risk')
+                FROM cohort GROUP BY patient LOOP
+        partial := partial OR line LIKE '%Partial%Aggregate%';
+    END LOOP;
+    IF NOT partial THEN
+        RAISE EXCEPTION 'check failed: no partial aggregation in the parallel course plan';
+    END IF;
+END $$;
+SELECT pg_temp.same('course parallel == serial', (SELECT count(*) FROM (
+    (SELECT patient, (ntr_course_assess(hours, na, 'hypo_high_risk')).* FROM cohort GROUP BY patient
+     EXCEPT SELECT * FROM course_serial)
+    UNION ALL
+    (SELECT * FROM course_serial EXCEPT
+     SELECT patient, (ntr_course_assess(hours, na, 'hypo_high_risk')).* FROM cohort GROUP BY patient)) x),
+    0::bigint);
+SELECT pg_temp.same('course cohort size', (SELECT count(*) FROM course_serial WHERE samples = 7), 3000::bigint);
+
+-- ------------------------------------------------------------ 1.1: tonicity
+-- Source: Oster & Singer, Arch Intern Med 1999;159:333-6; Milionis et al.,
+-- CMAJ 2002;166:1056-62 (urea and ethanol are ineffective osmoles; a
+-- normal measured osmolality does not exclude hypotonicity). Hand-worked:
+--   uraemia: Na 125, glucose 5, urea 40, measured 295: effective 255;
+--   ethanol: Na 118, glucose 5, ethanol 45, measured 290: at most
+--     2*118 + 5 = 241 whatever the ethanol coefficient;
+--   urea 50, measured 307: effective 257.
+SELECT pg_temp.same('uraemia class', (ntr_low_na_effective_tonicity(125, 5, 40, 0, 295)).tonicity, 'hypotonic'),
+       pg_temp.same('uraemia flag', 'ineffective_osmoles' = ANY ((ntr_low_na_effective_tonicity(125, 5, 40, 0, 295)).flag_names), true),
+       pg_temp.same('uraemia not pseudo', 'pseudo' = ANY ((ntr_low_na_effective_tonicity(125, 5, 40, 0, 295)).flag_names), false),
+       pg_temp.same('ethanol class', (ntr_low_na_effective_tonicity(118, 5, 0, 45, 290)).tonicity, 'hypotonic'),
+       pg_temp.same('ethanol flag', (ntr_low_na_effective_tonicity(118, 5, 0, 45, 290)).flags & 32, 32),
+       pg_temp.same('ethanol not pseudo', (ntr_low_na_effective_tonicity(118, 5, 0, 45, 290)).flags & 2, 0),
+       pg_temp.same('urea 50 class', (ntr_low_na_effective_tonicity(125, 5, 50, 0, 307, 'hillier')).tonicity, 'hypotonic'),
+       pg_temp.same('urea 50 not translocational',
+                    'translocational' = ANY ((ntr_low_na_effective_tonicity(125, 5, 50, 0, 307)).flag_names), false);
+SELECT pg_temp.near('effective osmolality uraemia', ntr_effective_osm_measured(125, 5, 40, 0, 295), 255, 1e-12),
+       pg_temp.same('effective osmolality range', ntr_effective_osm_measured(125, 5, 40, 0, 900), NULL::float8);
+-- The 1.0 class of the measured value cannot see urea: isotonic.
+SELECT pg_temp.same('measured class', ntr_tonicity_class(295), 'isotonic');
+SELECT pg_temp.same('tonicity range gives NULL',
+    ntr_low_na_effective_tonicity(125, 5, -1, 0, 295), NULL::ntr_low_na_tonicity);
+SELECT pg_temp.raises('tonicity checked NaN',
+    $q$SELECT ntr_low_na_effective_tonicity_checked(125, 5, 'NaN', 0, 295)$q$, '22023');
+SELECT pg_temp.raises('tonicity checked method',
+    $q$SELECT ntr_low_na_effective_tonicity_checked(125, 5, 40, 0, 295, 'guess')$q$, '22023');
+
+-- ------------------------------------------------------------ upgrade 1.0 -> 1.1
+-- A fresh 1.1 and a 1.0 updated with ALTER EXTENSION hold the same objects,
+-- and both the 1.0 and the course aggregates work after the update.
+CREATE TEMP TABLE objects_fresh AS
+SELECT pg_describe_object(classid, objid, objsubid) AS object
+FROM pg_depend
+WHERE refclassid = 'pg_extension'::regclass AND deptype = 'e'
+  AND refobjid = (SELECT oid FROM pg_extension WHERE extname = 'natremia');
+DROP EXTENSION natremia;
+CREATE EXTENSION natremia VERSION '1.0';
+SELECT pg_temp.same('1.0 installed',
+    (SELECT extversion FROM pg_extension WHERE extname = 'natremia'), '1.0');
+SELECT pg_temp.same('1.0 has no course aggregate',
+    (SELECT count(*) FROM pg_proc WHERE proname = 'ntr_course_assess'), 0::bigint);
+SELECT pg_temp.near('1.0 aggregate before update',
+    (SELECT (ntr_correction_assess(hours, na)).max_rise_24h FROM lab WHERE patient = 1), 14, 1e-12);
+ALTER EXTENSION natremia UPDATE TO '1.1';
+SELECT pg_temp.same('updated version',
+    (SELECT extversion FROM pg_extension WHERE extname = 'natremia'), '1.1');
+SELECT pg_temp.same('fresh and updated objects', (SELECT count(*) FROM (
+    (SELECT object FROM objects_fresh
+     EXCEPT
+     SELECT pg_describe_object(classid, objid, objsubid) FROM pg_depend
+     WHERE refclassid = 'pg_extension'::regclass AND deptype = 'e'
+       AND refobjid = (SELECT oid FROM pg_extension WHERE extname = 'natremia'))
+    UNION ALL
+    (SELECT pg_describe_object(classid, objid, objsubid) FROM pg_depend
+     WHERE refclassid = 'pg_extension'::regclass AND deptype = 'e'
+       AND refobjid = (SELECT oid FROM pg_extension WHERE extname = 'natremia')
+     EXCEPT
+     SELECT object FROM objects_fresh)) x), 0::bigint);
+-- (the comparison saw both generations of objects)
+SELECT pg_temp.same('fresh 1.1 objects listed',
+    (SELECT count(*) FROM objects_fresh WHERE object IN (
+        'function ntr_course_assess(double precision,double precision,text)',
+        'type ntr_course_report', 'type ntr_low_na_tonicity',
+        'function ntr_correction_assess(double precision,double precision)',
+        'function ntr_osm_effective(double precision,double precision)')), 5::bigint);
+SELECT pg_temp.same('1.0 aggregate after update', (SELECT count(*) FROM (
+    SELECT patient, (ntr_correction_assess(hours, na)).* FROM lab GROUP BY patient
+    EXCEPT SELECT * FROM assessed) x), 0::bigint);
+SELECT pg_temp.same('course aggregate after update', (SELECT count(*) FROM (
+    SELECT patient, (ntr_course_assess(hours, na, preset)).* FROM course_lab GROUP BY patient
+    EXCEPT SELECT * FROM course_assessed) x), 0::bigint);
+
 \o
 \pset tuples_only on
 SELECT 'natremia SQL checks passed' AS result;

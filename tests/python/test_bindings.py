@@ -220,6 +220,12 @@ class ConstantsMatchHeader(unittest.TestCase):
         self.check(ntr.Severity, "NTR_SEVERITY_")
         self.check(ntr.Tonicity, "NTR_TONICITY_")
         self.check(ntr.LowNaFlag, "NTR_LOW_NA_")
+        self.check(ntr.Goal, "NTR_GOAL_")
+        self.check(ntr.CoursePreset, "NTR_COURSE_")
+        self.check(ntr.CourseFlag, "NTR_CF_")
+        self.check(ntr.BreachDirection, "NTR_PLAN_BREACH_")
+        self.assertEqual(self.defines["NTR_PLAN_BREACH_NONE"],
+                         ntr.BreachDirection.NONE)
         self.assertEqual(self.defines["NTR_SEVERITY_NONE"], ntr.Severity.NONE)
         self.assertEqual(self.defines["NTR_OSM_2NA"], ntr.OsmFormula.TWO_NA)
         self.assertEqual(self.defines["NTR_OSM_DORWART_CHALMERS"],
@@ -232,10 +238,21 @@ class ConstantsMatchHeader(unittest.TestCase):
                          ntr.Restriction.UNDER_500_ML)
         self.assertEqual(self.defines["NTR_WATCH_CAPACITY"],
                          ntr._core.WATCH_CAPACITY)
+        self.assertEqual(self.defines["NTR_COURSE_WATCH_CAPACITY"],
+                         ntr._course.COURSE_WATCH_CAPACITY)
         all_flags = 0
         for flag in ntr.CorrectionFlag:
             all_flags |= int(flag)
         self.assertEqual(all_flags, self.defines["NTR_CF_ALL"])
+        course_flags = 0
+        for flag in ntr.CourseFlag:
+            course_flags |= int(flag)
+        self.assertEqual(course_flags, self.defines["NTR_CF_COURSE_ALL"])
+        with open(HEADER, encoding="utf-8") as f:
+            no_time = re.search(r"#define\s+NTR_COURSE_NO_TIME\s+\(([^)]+)\)",
+                                f.read())
+        self.assertIsNotNone(no_time)
+        self.assertEqual(float(no_time.group(1)), ntr._course.COURSE_NO_TIME)
 
     def test_status_codes(self):
         for code, name in ntr.STATUS_NAMES.items():
@@ -247,6 +264,16 @@ class ConstantsMatchHeader(unittest.TestCase):
         self.assertEqual(ntr._core.ctypes.sizeof(ntr._core.CorrectionStruct), 48)
         self.assertEqual(ntr._core.ctypes.sizeof(ntr._core.WatchStruct), 2200)
         self.assertEqual(arrays.CORRECTION_DTYPE.itemsize, 48)
+        # ntr_course_limits: size_t, int (+ padding), 5 doubles; the
+        # report: size_t, 5 doubles, 2 unsigned ints, 7 doubles (LP64).
+        if ntr._core.ctypes.sizeof(ntr._core.c_size_t) == 8:
+            self.assertEqual(ntr._core.ctypes.sizeof(ntr._course.CourseLimitsStruct), 56)
+            self.assertEqual(ntr._core.ctypes.sizeof(ntr._course.CourseReportStruct), 112)
+        if ntr._core.ctypes.sizeof(ntr._core.c_size_t) == 8:
+            # The header states 4072 bytes on common 64-bit targets.
+            self.assertEqual(ntr._core.ctypes.sizeof(ntr._course.CourseWatchStruct), 4072)
+        self.assertEqual(arrays.COURSE_REPORT_DTYPE.itemsize,
+                         ntr._core.ctypes.sizeof(ntr._course.CourseReportStruct))
 
 
 class Properties(unittest.TestCase):

@@ -4,6 +4,9 @@ A ctypes binding of the natremia C library. Scalar functions live here
 (``natremia.osm_calculated(na_mmol_l=..., glucose_mmol_l=..., ...)``);
 numpy array versions that call the C batch entry points live in
 ``natremia.arrays`` (imported on first use, so numpy stays optional).
+Since 1.1 the course functions (``course_assess``, ``course_limits_preset``,
+``arrays.course_assess_table``) assess a sodium series in both directions
+against a goal; the 1.0 calls stay as they were.
 
 Every result is an estimate for decision support, not an order. Verify
 with measured values; follow local protocols and licensed clinical
@@ -31,9 +34,15 @@ from ._core import (  # noqa: F401
     Watch,
     Flow, TimedFlow, BalanceResult, balance_predict, balance_course,
     PlanResult, plan_check, RelowerEstimate, relower_estimate,
+    low_na_effective_tonicity, effective_osm_measured,
+)
+from ._course import (  # noqa: F401
+    Goal, CoursePreset, CourseFlag, FLAG_LABELS, flag_labels, CourseLimits,
+    CourseReport, course_limits_preset, course_preset_names, course_assess,
+    BreachDirection, CoursePlanResult, course_plan_check, CourseWatch,
 )
 
-__version__ = "1.0.0"
+__version__ = "1.1.0"
 
 CAUTION = ("Estimates for decision support, not orders. Verify with measured "
            "values; follow local protocols and licensed clinical judgement.")

@@ -68,7 +68,8 @@ class NatremiaError(ValueError):
     rows failed). ``detail`` holds any extra explanation from the binding.
     """
 
-    def __init__(self, status, function, detail=None, row=None, failed=None):
+    def __init__(self, status, function, detail=None, row=None, failed=None,
+                 argument=None, group_id=None, value=None):
         self.status = int(status)
         self.status_name = status_name(status)
         self.message = status_message(status)
@@ -76,9 +77,18 @@ class NatremiaError(ValueError):
         self.detail = detail
         self.row = row
         self.failed = failed
+        self.argument = argument
+        self.value = value
+        self.group_id = group_id
         text = "%s: %s (%s)" % (function, self.status_name, self.message)
+        if argument is not None:
+            text += " in argument %s" % (argument,)
+            if value is not None:
+                text += " (given %r)" % (value,)
         if row is not None:
             text += "; first failing row %d, %d row(s) failed" % (row, failed)
+        if group_id is not None:
+            text += " (id %r)" % (group_id,)
         if detail:
             text += ": " + detail
         super().__init__(text)
@@ -87,6 +97,120 @@ class NatremiaError(ValueError):
 def _check(status, function):
     if status != OK:
         raise NatremiaError(status, function)
+
+
+# ---------------------------------------------------------------------------
+# Naming the argument that failed
+#
+# The library reports only a status, but it checks its numeric inputs one
+# at a time in argument order (each: non-finite, then out of range; see
+# DEVELOPERS.md). So the culprit of NTR_ERR_NONFINITE or NTR_ERR_RANGE is
+# the first argument i for which the call with the caller's arguments up to
+# i, and valid example values after it, fails with that status. The library
+# stays the only judge of every range: the binding holds no limits, only
+# one valid example input per function.
+# ---------------------------------------------------------------------------
+
+# C function -> (argument names in C order, a valid example of each; None
+# marks an enumerator, which is always taken from the caller).
+_ARGUMENTS = {
+    "ntr_osm_calculated": (("na_mmol_l", "glucose_mmol_l", "urea_mmol_l",
+                            "ethanol_mmol_l", "formula"),
+                           (140.0, 5.0, 5.0, 0.0, None)),
+    "ntr_osm_effective": (("na_mmol_l", "glucose_mmol_l"), (140.0, 5.0)),
+    "ntr_osm_gap": (("measured_mosm_kg", "calculated_mosm_kg"), (290.0, 290.0)),
+    "ntr_na_corrected_glucose": (("na_mmol_l", "glucose_mmol_l", "method"),
+                                 (140.0, 5.0, None)),
+    "ntr_na_corrected_glucose_factor": (("na_mmol_l", "glucose_mmol_l",
+                                         "factor_per_100mg_dl"),
+                                        (140.0, 5.0, 1.6)),
+    "ntr_na_deficit": (("tbw_l", "na_mmol_l", "target_na_mmol_l"),
+                       (30.0, 120.0, 125.0)),
+    "ntr_tbw_fraction": (("sex", "age_years", "weight_kg"), (None, 40.0, 70.0)),
+    "ntr_tbw_watson": (("sex", "age_years", "height_cm", "weight_kg"),
+                       (None, 40.0, 170.0, 70.0)),
+    "ntr_free_water_deficit": (("tbw_l", "na_mmol_l"), (40.0, 150.0)),
+    "ntr_infusate_change_per_litre": (("na_mmol_l", "tbw_l", "infusate_na_mmol_l",
+                                       "infusate_k_mmol_l"),
+                                      (120.0, 30.0, 513.0, 0.0)),
+    "ntr_infusate_change": (("na_mmol_l", "tbw_l", "infusate_na_mmol_l",
+                             "infusate_k_mmol_l", "volume_l"),
+                            (120.0, 30.0, 513.0, 0.0, 1.0)),
+    "ntr_infusate_volume_for_change": (("na_mmol_l", "tbw_l",
+                                        "infusate_na_mmol_l",
+                                        "infusate_k_mmol_l",
+                                        "target_delta_mmol_l"),
+                                       (120.0, 30.0, 513.0, 0.0, 4.0)),
+    "ntr_furst_ratio": (("urine_na_mmol_l", "urine_k_mmol_l", "serum_na_mmol_l"),
+                        (60.0, 20.0, 120.0)),
+    "ntr_efwc": (("urine_volume_l", "urine_na_mmol_l", "urine_k_mmol_l",
+                  "serum_na_mmol_l"), (2.0, 60.0, 20.0, 120.0)),
+    "ntr_na_severity": (("na_mmol_l",), (130.0,)),
+    "ntr_tonicity_class": (("measured_osm_mosm_kg",), (280.0,)),
+    "ntr_low_na_tonicity": (("na_mmol_l", "glucose_mmol_l",
+                             "measured_osm_mosm_kg", "glucose_method"),
+                            (125.0, 5.0, 260.0, None)),
+    "ntr_low_na_effective_tonicity": (("na_mmol_l", "glucose_mmol_l",
+                                       "urea_mmol_l", "ethanol_mmol_l",
+                                       "measured_osm_mosm_kg",
+                                       "glucose_method"),
+                                      (125.0, 5.0, 5.0, 0.0, 260.0, None)),
+    "ntr_restriction_from_ratio": (("ratio",), (0.5,)),
+    "ntr_effective_osm_measured": (("na_mmol_l", "glucose_mmol_l",
+                                    "urea_mmol_l", "ethanol_mmol_l",
+                                    "measured_osm_mosm_kg"),
+                                   (125.0, 5.0, 5.0, 0.0, 260.0)),
+    "ntr_urine_maximally_dilute": (("urine_osm_mosm_kg",), (80.0,)),
+    "ntr_urine_na_high": (("urine_na_mmol_l",), (20.0,)),
+    "ntr_fractional_excretion": (("urine_x", "plasma_x", "urine_creatinine",
+                                  "plasma_creatinine"),
+                                 (40.0, 130.0, 8000.0, 80.0)),
+    "ntr_relower_estimate": (("na_mmol_l", "tbw_l", "fluid_na_mmol_l",
+                              "fluid_k_mmol_l", "lower_by_mmol_l", "hours",
+                              "urine_ml_h", "urine_na_mmol_l", "urine_k_mmol_l"),
+                             (125.5, 26.1, 0.0, 0.0, 3.5, 6.0, 0.0, 0.0, 0.0)),
+}
+
+_VALUE_STATUSES = (ERR_NONFINITE, ERR_RANGE)
+
+
+def _probe_status(cname, args):
+    """Status of a call with throw-away outputs."""
+    fn = _fn(cname)
+    outs = [t._type_() for t in fn.argtypes[len(args):]]
+    return fn(*args, *[ctypes.byref(o) for o in outs])
+
+
+def _blame(cname, args, status):
+    """(name, value) of the argument that made a call fail, or (None,
+    None) when the status is not about one value."""
+    names, examples = _ARGUMENTS.get(cname, ((), ()))
+    if status in _VALUE_STATUSES and len(names) == len(args):
+        for i in range(len(args)):
+            probe = list(args[:i + 1]) + [
+                given if example is None else example
+                for given, example in zip(args[i + 1:], examples[i + 1:])]
+            if _probe_status(cname, probe) == status:
+                return names[i], args[i]
+    if status == ERR_ARG and len(names) == len(args):
+        enums = [n for n, e in zip(names, examples) if e is None]
+        if len(enums) == 1:
+            return enums[0], args[names.index(enums[0])]
+    return None, None
+
+
+def _call(cname, pyname, args, outs):
+    """Call a C function with inputs and output objects; raise a
+    NatremiaError naming the failing argument on any status but NTR_OK."""
+    status = _fn(cname)(*args, *[ctypes.byref(o) for o in outs])
+    if status != OK:
+        detail = None
+        if status == ERR_DOMAIN and cname in _ARGUMENTS:
+            detail = ("the inputs are each in range, but the formula is not "
+                      "defined for them together")
+        argument, value = _blame(cname, args, status)
+        raise NatremiaError(status, pyname, detail=detail, argument=argument,
+                            value=value)
 
 
 # ---------------------------------------------------------------------------
@@ -181,6 +305,9 @@ _PROTOTYPES = {
     "ntr_na_severity": (c_int, [_D, _PI]),
     "ntr_tonicity_class": (c_int, [_D, _PI]),
     "ntr_low_na_tonicity": (c_int, [_D, _D, _D, c_int, _PI, _PU]),
+    "ntr_low_na_effective_tonicity": (c_int, [_D, _D, _D, _D, _D, c_int, _PI,
+                                              _PU]),
+    "ntr_effective_osm_measured": (c_int, [_D, _D, _D, _D, _D, _PD]),
     "ntr_urine_maximally_dilute": (c_int, [_D, _PI]),
     "ntr_urine_na_high": (c_int, [_D, _PI]),
     "ntr_fractional_excretion": (c_int, [_D, _D, _D, _D, _PD]),
@@ -231,7 +358,7 @@ def _lib_function(cname):
 
 def _double_result(cname, pyname, *args):
     out = c_double()
-    _check(_fn(cname)(*args, ctypes.byref(out)), pyname)
+    _call(cname, pyname, args, [out])
     return out.value
 
 
@@ -338,7 +465,8 @@ def _enum(cls, value, argname, function):
             if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
                 return int(member)
         raise NatremiaError(ERR_ARG, function, "unknown %s %r; one of %s" % (
-            argname, value, ", ".join(m.name.lower() for m in cls)))
+            argname, value, ", ".join(m.name.lower() for m in cls)),
+            argument=argname, value=value)
     return int(value)
 
 
@@ -514,8 +642,8 @@ def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
 def restriction_from_ratio(ratio):
     """Fluid restriction advice (a Restriction) for a Furst ratio."""
     out = c_int()
-    _check(_fn("ntr_restriction_from_ratio")(ratio, ctypes.byref(out)),
-           "restriction_from_ratio")
+    _call("ntr_restriction_from_ratio", "restriction_from_ratio", (ratio,),
+          [out])
     return Restriction(out.value)
 
 
@@ -552,11 +680,12 @@ class LowNaFlag(enum.IntFlag):
     TRANSLOCATIONAL = 0x04
     GLUCOSE_EXPLAINS = 0x08
     DISCORDANT = 0x10
+    INEFFECTIVE_OSMOLES = 0x20  # since 1.1: urea/ethanol hide a hypotonic state
 
 
 def _int_result(cname, pyname, *args):
     out = c_int()
-    _check(_fn(cname)(*args, ctypes.byref(out)), pyname)
+    _call(cname, pyname, args, [out])
     return out.value
 
 
@@ -579,13 +708,42 @@ def low_na_tonicity(*, na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
     """Whether a low sodium is truly hypotonic, and why not."""
     fn = "low_na_tonicity"
     tonicity, flags = c_int(), c_uint()
-    _check(_fn("ntr_low_na_tonicity")(na_mmol_l, glucose_mmol_l,
-                                      measured_osm_mosm_kg,
-                                      _enum(GlucoseMethod, glucose_method,
-                                            "glucose_method", fn),
-                                      ctypes.byref(tonicity),
-                                      ctypes.byref(flags)), fn)
+    _call("ntr_low_na_tonicity", fn,
+          (na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
+           _enum(GlucoseMethod, glucose_method, "glucose_method", fn)),
+          [tonicity, flags])
     return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
+
+
+def low_na_effective_tonicity(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                              measured_osm_mosm_kg, ethanol_mmol_l=0.0,
+                              glucose_method=GlucoseMethod.KATZ):
+    """Whether a low sodium is truly hypotonic, judged on the effective
+    measured osmolality (measured minus urea and ethanol, which cross cell
+    membranes and so do not hold water out of cells): the library's
+    ntr_low_na_effective_tonicity(). ``tonicity`` is the class of the
+    effective value; ``flags`` has LowNaFlag.INEFFECTIVE_OSMOLES when the
+    measured value is 275 or more but the effective one is below 275.
+    Use it rather than low_na_tonicity() whenever urea or ethanol is known."""
+    fn = "low_na_effective_tonicity"
+    tonicity, flags = c_int(), c_uint()
+    _call("ntr_low_na_effective_tonicity", fn,
+          (na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l,
+           measured_osm_mosm_kg,
+           _enum(GlucoseMethod, glucose_method, "glucose_method", fn)),
+          [tonicity, flags])
+    return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
+
+
+def effective_osm_measured(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                           measured_osm_mosm_kg, ethanol_mmol_l=0.0):
+    """Effective serum osmolality from a measured one, mOsm/kg: measured
+    less urea and the library's ethanol term, floored at the calculated
+    effective osmolality (ntr_effective_osm_measured; the header gives the
+    equation, the coefficient and why the floor)."""
+    return _double_result("ntr_effective_osm_measured", "effective_osm_measured",
+                          na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                          ethanol_mmol_l, measured_osm_mosm_kg)
 
 
 def urine_maximally_dilute(*, urine_osm_mosm_kg):
@@ -814,9 +972,7 @@ def relower_estimate(*, na_mmol_l, tbw_l, fluid_na_mmol_l, lower_by_mmol_l,
                      urine_na_mmol_l=0.0, urine_k_mmol_l=0.0):
     """Fluid needed to bring sodium back down by lower_by_mmol_l."""
     volume, rate = c_double(), c_double()
-    _check(_fn("ntr_relower_estimate")(na_mmol_l, tbw_l, fluid_na_mmol_l,
-                                       fluid_k_mmol_l, lower_by_mmol_l, hours,
-                                       urine_ml_h, urine_na_mmol_l,
-                                       urine_k_mmol_l, ctypes.byref(volume),
-                                       ctypes.byref(rate)), "relower_estimate")
+    _call("ntr_relower_estimate", "relower_estimate",
+          (na_mmol_l, tbw_l, fluid_na_mmol_l, fluid_k_mmol_l, lower_by_mmol_l,
+           hours, urine_ml_h, urine_na_mmol_l, urine_k_mmol_l), [volume, rate])
     return RelowerEstimate(volume.value, rate.value)

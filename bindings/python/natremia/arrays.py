@@ -20,6 +20,8 @@ import numpy as np
 from . import _core
 from ._core import (NatremiaError, GlucoseMethod, LimitsPreset, OsmFormula,
                     Sex, _enum, _limits_struct)
+from ._course import (CourseReportStruct, CourseLimitsStruct, CoursePreset,
+                      _course_limits_struct, flag_labels)
 
 _P = ctypes.POINTER
 _PD = _P(ctypes.c_double)
@@ -322,11 +324,223 @@ def correction_assess_groups(*, hours, na_mmol_l, offsets,
     return _finish(f, code, failed, out, status, (groups,), errors, with_status)
 
 
+# ---------------------------------------------------------------------------
+# Course assessment in both directions, many series at once (natremia 1.1)
+# ---------------------------------------------------------------------------
+
+# One ntr_course_report per record, laid out as the C struct.
+COURSE_REPORT_DTYPE = np.dtype(CourseReportStruct)
+
+
+def _course_batch_fn():
+    fn = _declared.get("ntr_batch_course_assess")
+    if fn is None:
+        fn = _core._lib_function("ntr_batch_course_assess")
+        fn.argtypes = [ctypes.c_size_t, _P(ctypes.c_size_t),
+                       _P(_core.SampleStruct), ctypes.c_size_t,
+                       _P(CourseLimitsStruct), ctypes.c_size_t,
+                       _P(CourseReportStruct), _PI, _PSZ]
+        fn.restype = ctypes.c_int
+        _declared["ntr_batch_course_assess"] = fn
+    return fn
+
+
+def _samples_array(hours, na, function):
+    hours = np.asarray(hours, dtype=np.float64).ravel()
+    na = np.asarray(na, dtype=np.float64).ravel()
+    if hours.shape != na.shape:
+        raise NatremiaError(_core.ERR_ARG, function, "hours and na_mmol_l "
+                            "differ in length (%d and %d)" % (hours.size,
+                                                              na.size),
+                            argument="na_mmol_l")
+    samples = np.empty(hours.size, dtype=SAMPLE_DTYPE)
+    samples["hours"] = hours
+    samples["na_mmol_l"] = na
+    return samples
+
+
+def course_assess_groups(*, hours, na_mmol_l, offsets, limits, errors="raise",
+                         with_status=False):
+    """Assess many sodium series in both directions in one C call
+    (ntr_batch_course_assess).
+
+    Series g is rows offsets[g] to offsets[g+1] - 1 (each in non-decreasing
+    time). ``limits`` is a CourseLimits or a preset (CoursePreset member,
+    int or name), the same for every series; course_assess_table() takes
+    one per patient. Returns a numpy structured array (COURSE_REPORT_DTYPE:
+    the fields of ntr_course_report); failed series hold NaN and flags 0.
+    """
+    f = "arrays.course_assess_groups"
+    _check_errors_choice(errors)
+    samples = _samples_array(hours, na_mmol_l, f)
+    offsets = np.ascontiguousarray(offsets, dtype=np.uintp).ravel()
+    if offsets.size < 1:
+        raise NatremiaError(_core.ERR_ARG, f, "offsets needs groups + 1 "
+                            "entries", argument="offsets")
+    lim = _course_limits_struct(limits, f)
+    groups = offsets.size - 1
+    out = np.zeros(groups, dtype=COURSE_REPORT_DTYPE)
+    out["struct_size"] = ctypes.sizeof(CourseReportStruct)
+    status = np.empty(groups, dtype=np.intc)
+    failed = ctypes.c_size_t(_SIZE_MAX)
+    code = _course_batch_fn()(
+        groups, _ptr(offsets, ctypes.c_size_t),
+        _ptr(samples, _core.SampleStruct), samples.size, ctypes.byref(lim),
+        COURSE_REPORT_DTYPE.itemsize, _ptr(out, CourseReportStruct),
+        _ptr(status, ctypes.c_int),
+        ctypes.byref(failed))
+    if failed.value == _SIZE_MAX:
+        raise NatremiaError(code, f, argument="offsets" if code ==
+                            _core.ERR_ARG else None)
+    return _finish(f, code, failed, out, status, (groups,), errors,
+                   with_status)
+
+
+def _limits_key(limits):
+    """A hashable key for grouping patients by their limits."""
+    if isinstance(limits, (str, int)):
+        return ("preset", limits)
+    return ("limits", limits)
+
+
+def _factorize_limits(limits, n_rows, function):
+    """(codes per row, distinct limits) for a per-row sequence of limits:
+    vectorised for an array of preset names, a loop over the rows only
+    for other objects (CourseLimits)."""
+    a = np.asarray(limits) if not isinstance(limits, np.ndarray) else limits
+    if a.shape != (n_rows,):
+        raise NatremiaError(_core.ERR_ARG, function, "limits needs one entry "
+                            "per row (%d, not %s)" % (n_rows, a.shape),
+                            argument="limits")
+    if a.dtype.kind in "US":
+        distinct, codes = np.unique(a, return_inverse=True)
+        return codes, [str(x) for x in distinct]
+    index = {}
+    distinct = []
+    codes = np.empty(n_rows, dtype=np.intp)
+    for i, lim in enumerate(limits):
+        key = _limits_key(lim)
+        code = index.get(key)
+        if code is None:
+            code = index[key] = len(distinct)
+            distinct.append(lim)
+        codes[i] = code
+    return codes, distinct
+
+
+def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
+    """Assess a long table of (patient id, time, sodium) rows, one series
+    per patient, in both directions; the patient ids are kept.
+
+    Rows may come in any order: they are sorted by (id, hours), stably.
+    ``limits`` is one CourseLimits or preset for the whole cohort, or a
+    sequence with one per row (the same within a patient; a numpy array of
+    preset names is handled without a Python loop), or a dict {id: limits}.
+    Patients sharing limits go to the C batch together: one call of
+    ntr_batch_course_assess per distinct limits. Returns a structured
+    array: "id", "status" (0 = NTR_OK), then the fields of
+    COURSE_REPORT_DTYPE, one record per patient in id order. With
+    ``errors="raise"`` the first failing patient raises NatremiaError with
+    its ``group_id``.
+    """
+    f = "arrays.course_assess_table"
+    _check_errors_choice(errors)
+    ids = np.asarray(ids).ravel()
+    hours = np.asarray(hours, dtype=np.float64).ravel()
+    na = np.asarray(na_mmol_l, dtype=np.float64).ravel()
+    if not (ids.size == hours.size == na.size):
+        raise NatremiaError(_core.ERR_ARG, f, "ids, hours and na_mmol_l "
+                            "differ in length (%d, %d, %d)"
+                            % (ids.size, hours.size, na.size), argument="ids")
+    order = np.lexsort((hours, ids))
+    ids, hours, na = ids[order], hours[order], na[order]
+    offsets, group_ids = offsets_from_ids(ids)
+    groups = group_ids.size
+    counts = np.diff(offsets.astype(np.intp))
+    firsts = offsets[:-1].astype(np.intp)
+
+    # code of each patient's limits, and the distinct limits
+    if isinstance(limits, dict):
+        index, distinct = {}, []
+        patient_code = np.empty(groups, dtype=np.intp)
+        for g, pid in enumerate(group_ids.tolist()):
+            if pid not in limits:
+                raise NatremiaError(_core.ERR_ARG, f, "no limits for "
+                                    "patient %r" % (pid,), argument="limits",
+                                    group_id=pid)
+            key = _limits_key(limits[pid])
+            if key not in index:
+                index[key] = len(distinct)
+                distinct.append(limits[pid])
+            patient_code[g] = index[key]
+    elif isinstance(limits, (str, int)) or hasattr(limits, "_struct"):
+        patient_code = np.zeros(groups, dtype=np.intp)
+        distinct = [limits]
+    else:
+        codes, distinct = _factorize_limits(limits, ids.size, f)
+        codes = codes[order]
+        patient_code = codes[firsts] if groups else codes[:0]
+        differs = codes != np.repeat(patient_code, counts)
+        if differs.any():
+            g = int(np.searchsorted(offsets, np.flatnonzero(differs)[0],
+                                    side="right")) - 1
+            raise NatremiaError(_core.ERR_ARG, f, "patient %r has rows with "
+                                "different limits" % (group_ids[g].item(),),
+                                argument="limits",
+                                group_id=group_ids[g].item())
+
+    table = np.zeros(groups, dtype=[("id", group_ids.dtype),
+                                    ("status", np.intc)] +
+                     [(name, COURSE_REPORT_DTYPE.fields[name][0])
+                      for name in COURSE_REPORT_DTYPE.names
+                      if name not in ("struct_size", "reserved")])
+    table["id"] = group_ids
+    for code, lim in enumerate(distinct):
+        members = patient_code == code
+        if not members.any():
+            continue
+        rows = np.repeat(members, counts)
+        sub_offsets = np.concatenate(([0], np.cumsum(counts[members])))
+        out, status = course_assess_groups(
+            hours=hours[rows], na_mmol_l=na[rows], offsets=sub_offsets,
+            limits=lim, errors="nan", with_status=True)
+        table["status"][members] = status
+        for name in table.dtype.names[2:]:
+            table[name][members] = out[name]
+    bad = np.flatnonzero(table["status"])
+    if bad.size and errors == "raise":
+        g = int(bad[0])
+        raise NatremiaError(int(table["status"][g]), f, row=g,
+                            failed=int(bad.size),
+                            group_id=table["id"][g].item())
+    return table
+
+
+def course_assess_frame(frame, *, id="patient_id", hours="hours",
+                        na_mmol_l="na_mmol_l", limits, errors="nan"):
+    """course_assess_table() over a pandas DataFrame of long rows; returns
+    a DataFrame indexed by patient id with the report fields, the status,
+    and a "flag_names" column of readable flag names. ``limits`` may also
+    name a column of the frame holding each row's preset."""
+    import pandas as pd
+    if isinstance(limits, str) and limits in frame.columns:
+        limits = frame[limits].tolist()
+    table = course_assess_table(ids=frame[id].to_numpy(),
+                                hours=frame[hours].to_numpy(),
+                                na_mmol_l=frame[na_mmol_l].to_numpy(),
+                                limits=limits, errors=errors)
+    result = pd.DataFrame({name: table[name] for name in table.dtype.names})
+    result["flag_names"] = [flag_labels(x) for x in table["flags"]]
+    return result.set_index("id").rename_axis(id)
+
+
 __all__ = [
     "CORRECTION_DTYPE", "SAMPLE_DTYPE", "osm_calculated", "osm_effective",
     "osm_gap", "na_corrected_glucose", "na_deficit", "tbw_fraction",
     "tbw_watson", "free_water_deficit", "infusate_change_per_litre",
     "infusate_change", "infusate_volume_for_change", "furst_ratio",
     "restriction_from_ratio", "efwc", "offsets_from_ids", "sort_series",
-    "correction_assess_groups", "LimitsPreset",
+    "correction_assess_groups", "LimitsPreset", "COURSE_REPORT_DTYPE",
+    "course_assess_groups", "course_assess_table", "course_assess_frame",
+    "CoursePreset",
 ]
