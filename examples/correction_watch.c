@@ -11,6 +11,13 @@
 #include <stdio.h>
 #include <string.h>
 
+#include "example_cli.h"
+
+static const char usage[] =
+    "usage: correction_watch [standard|high-risk] < lines of hours,sodium\n"
+    "  hours since any origin, sodium in mmol/L, one result a line; blank lines\n"
+    "  and # comments are skipped. Exit 1 if a limit was exceeded, 2 on bad input.\n";
+
 static void print_flags(unsigned int f)
 {
     if (f & NTR_CF_OVER_24H) printf(" OVER-24H");
@@ -25,26 +32,26 @@ static void print_flags(unsigned int f)
 
 int main(int argc, char **argv)
 {
-    int preset = argc == 1 ? NTR_LIMITS_STANDARD
-                 : strcmp(argv[1], "high-risk") == 0 ? NTR_LIMITS_HIGH_RISK : 0;
+    int preset = NTR_LIMITS_STANDARD, st;
     ntr_limits lim;
     ntr_watch watch;
     ntr_correction c = {0.0, 0.0, 0.0, 0.0, 0.0, 0u, 0u};
     char line[256];
     unsigned long line_no = 0;
-    int st;
+    cli cl;
 
-    if (argc > 2 || preset == 0) {
-        fprintf(stderr, "usage: correction_watch [high-risk] < hours,sodium lines\n");
-        return 2;
-    }
+    if ((st = cli_start(&cl, "correction_watch", usage, argc, argv)) >= 0) return st;
+    if (cl.argc > 1) return cli_usage_error(&cl, "expected at most one argument");
+    if (cl.argc == 1 && strcmp(cl.argv[0], "high-risk") == 0) preset = NTR_LIMITS_HIGH_RISK;
+    else if (cl.argc == 1 && strcmp(cl.argv[0], "standard") != 0)
+        return cli_usage_error(&cl, "the limits are 'standard' or 'high-risk'");
     if ((st = ntr_limits_preset(preset, &lim)) || (st = ntr_watch_init(&lim, &watch))) {
         fprintf(stderr, "correction_watch: %s\n", ntr_status_message(st));
         return 2;
     }
     printf("limits: %.0f mmol/L in 24 h, %.0f in 48 h (at least %.0f in the first 24 h)\n",
            lim.max_rise_24h, lim.max_rise_48h, lim.min_rise_24h);
-    printf("hours,sodium,rise_24h,rise_48h,rate_per_h,flags\n");
+    printf("hours,sodium_mmol_l,rise_24h_mmol_l,rise_48h_mmol_l,rate_mmol_l_per_h,flags\n");
     while (fgets(line, sizeof line, stdin) != NULL) {
         double hours, na;
         char extra;
@@ -55,8 +62,8 @@ int main(int argc, char **argv)
             return 2;
         }
         if ((st = ntr_watch_push(&watch, hours, na, &c)) != NTR_OK) {
-            fprintf(stderr, "correction_watch: line %lu: %s\n", line_no,
-                    ntr_status_message(st));
+            fprintf(stderr, "correction_watch: line %lu (%g,%g) refused: %s\n", line_no,
+                    hours, na, ntr_status_message(st));
             return 2;
         }
         printf("%g,%g,%.1f,%.1f,%+.2f,", hours, na, c.max_rise_24h, c.max_rise_48h,
