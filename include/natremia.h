@@ -652,15 +652,33 @@ NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
  */
 NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
 
-/** Flag bits written by ntr_low_na_tonicity(). */
-#define NTR_LOW_NA_NOT_HYPOTONIC 0x01u    /**< low sodium, measured osmolality 275 or more */
+/** Flag bits written by ntr_low_na_tonicity() and
+ *  ntr_low_na_effective_tonicity(). "Osmolality" is the measured value for
+ *  the first, the effective one (ntr_effective_osm_measured()) for the
+ *  second. */
+#define NTR_LOW_NA_NOT_HYPOTONIC 0x01u    /**< low sodium, osmolality 275 or more */
 #define NTR_LOW_NA_PSEUDO 0x02u           /**< isotonic and not explained by glucose: suspect pseudohyponatraemia */
 #define NTR_LOW_NA_TRANSLOCATIONAL 0x04u  /**< hypertonic, or glucose explains the sodium */
 #define NTR_LOW_NA_GLUCOSE_EXPLAINS 0x08u /**< glucose-corrected sodium is 135 or more */
 #define NTR_LOW_NA_DISCORDANT 0x10u       /**< hypotonic, yet glucose alone would explain the sodium: recheck */
+#define NTR_LOW_NA_INEFFECTIVE_OSMOLES 0x20u /**< measured osmolality 275 or more, effective below 275: urea or ethanol hide a hypotonic state */
 
 /**
- * @brief Is a low sodium hypotonic, pseudo- or translocational?
+ * @brief Is a low sodium hypotonic, pseudo- or translocational? Measured
+ *        osmolality only: prefer ntr_low_na_effective_tonicity().
+ *
+ * The same as ntr_low_na_effective_tonicity() with urea and ethanol 0, so
+ * it classifies the **measured** osmolality as it stands. It cannot see
+ * the ineffective osmoles: urea and ethanol raise the measured value
+ * without holding water outside cells, so uraemia or ethanol intoxication
+ * with a truly hypotonic plasma can read here as isotonic with
+ * @ref NTR_LOW_NA_PSEUDO, or as hypertonic with
+ * @ref NTR_LOW_NA_TRANSLOCATIONAL (sodium 125, glucose 5, urea 40,
+ * measured 295: isotonic and "pseudo", while the effective osmolality is
+ * 255). A normal measured osmolality does not exclude hypotonicity (Oster
+ * and Singer 1999); call ntr_low_na_effective_tonicity() with the urea and
+ * ethanol results. Kept unchanged for 1.0 callers: it never sets
+ * @ref NTR_LOW_NA_INEFFECTIVE_OSMOLES.
  *
  * Writes the tonicity class of ntr_tonicity_class() and, when
  * Na < 135 mmol/L, flags (0 when Na >= 135: there is no low sodium to
@@ -689,7 +707,8 @@ NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
  * (exclusion of non-hypotonic hyponatraemia); Katz 1973; Hillier et al.
- * 1999.
+ * 1999; Oster JR, Singer I. Arch Intern Med 1999;159:333-6 (what the
+ * measured value cannot show).
  * Methods: @ref NTR_METHOD_LOW_NA_TONICITY, @ref NTR_METHOD_TONICITY_CLASS,
  * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
@@ -697,6 +716,117 @@ NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
                                 double measured_osm_mosm_kg,
                                 int glucose_method, int *tonicity,
                                 unsigned int *flags);
+
+/**
+ * @brief Effective serum osmolality from a measured one: the measured value
+ *        less the ineffective osmoles urea and ethanol.
+ *
+ * Urea and ethanol cross cell membranes freely: they raise the measured
+ * osmolality but hold no water outside cells, so they do not count towards
+ * tonicity.
+ *
+ *     subtracted = measured - urea - 1.25 * ethanol
+ *     floor      = min(2*Na + glucose, measured)
+ *     effective  = max(subtracted, floor)
+ *
+ * - Ethanol coefficient 1.25 mOsm/kg per mmol/L: the empirical value of
+ *   Purssell et al. for freezing-point osmometry (ethanol 4.6 mg/dL is
+ *   1 mmol/L). A vapour-pressure osmometer does not detect ethanol, which
+ *   is volatile: then pass @p ethanol_mmol_l = 0.
+ * - Floor: the subtraction stops at the calculated effective osmolality
+ *   2*Na + glucose (ntr_osm_effective()). Sodium salts and glucose are
+ *   effective osmoles measured in the same sample; a value below what they
+ *   supply means more was subtracted than the sample held (an osmometer
+ *   that does not see ethanol, a coefficient too high for this patient,
+ *   samples drawn at different times, assay errors adding up). The floor
+ *   is below 275 whenever 2*Na + glucose is, so it never hides a
+ *   hypotonicity that sodium and glucose show. It never exceeds the
+ *   measured value: with urea and ethanol 0 the result is exactly the
+ *   measured osmolality.
+ *
+ * The result lies in 150 to 600 mOsm/kg, the range of an osmolality input,
+ * so it can be passed as the effective osmolality of ntr_siad_findings.
+ *
+ * @param na_mmol_l            serum sodium, 80 to 220 mmol/L.
+ * @param glucose_mmol_l       serum glucose, 0 to 200 mmol/L.
+ * @param urea_mmol_l          serum urea, 0 to 200 mmol/L (BUN mg/dL / 2.8).
+ * @param ethanol_mmol_l       serum ethanol, 0 to 400 mmol/L (mg/dL / 4.6);
+ *                             0 when not measured or when the osmometer
+ *                             uses vapour pressure.
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg,
+ *                             from the same sample.
+ * @param[out] mosm_kg         effective osmolality, mOsm/kg.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6 and
+ * Milionis HJ et al. CMAJ 2002;166:1056-62 (a normal measured osmolality
+ * does not exclude hypotonicity; effective osmolality is the measured
+ * value less urea); Purssell RA et al. Ann Emerg Med 2001 (ethanol
+ * coefficient; docs/workup.md says how sure it is).
+ * Method: @ref NTR_METHOD_EFFECTIVE_OSM_MEASURED.
+ */
+NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
+                                       double urea_mmol_l, double ethanol_mmol_l,
+                                       double measured_osm_mosm_kg,
+                                       double *mosm_kg);
+
+/**
+ * @brief Is a low sodium hypotonic, pseudo- or translocational, judged on
+ *        the effective osmolality (urea and ethanol taken out)?
+ *
+ * Classifies the effective osmolality E of ntr_effective_osm_measured()
+ * (measured - urea - 1.25*ethanol, floored at min(2*Na + glucose,
+ * measured); see there why). @p tonicity is ntr_tonicity_class() of E.
+ * When Na < 135 mmol/L the flags of ntr_low_na_tonicity() are set with
+ * their meanings, judged on E:
+ * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS: glucose-corrected sodium >= 135.
+ * - @ref NTR_LOW_NA_NOT_HYPOTONIC: E >= 275.
+ * - @ref NTR_LOW_NA_TRANSLOCATIONAL: E > 295, or E >= 275 and glucose
+ *   explains the sodium.
+ * - @ref NTR_LOW_NA_PSEUDO: 275 <= E <= 295 and glucose does not explain
+ *   the sodium. Never set when urea and ethanol account for a normal
+ *   measured osmolality: then E < 275.
+ * - @ref NTR_LOW_NA_DISCORDANT: E < 275, yet glucose would explain the
+ *   sodium.
+ *
+ * and, whatever the sodium (it explains the class, not the sodium):
+ * - @ref NTR_LOW_NA_INEFFECTIVE_OSMOLES: measured >= 275 but E < 275, a
+ *   true hypotonic state that the measured value alone would hide.
+ *
+ * Examples (hand-worked): sodium 125, glucose 5, urea 40 mmol/L, measured
+ * 295 mOsm/kg: E = 255, hypotonic, INEFFECTIVE_OSMOLES. Sodium 118,
+ * glucose 5, ethanol 45 mmol/L, measured 295: 295 - 56.25 = 238.75 is
+ * floored at 2*118 + 5 = 241; hypotonic, INEFFECTIVE_OSMOLES.
+ *
+ * Check order: NULL pointers, @p glucose_method, then the numbers in
+ * argument order (non-finite, then out of range). With @p urea_mmol_l and
+ * @p ethanol_mmol_l 0 the results equal ntr_low_na_tonicity() bit for bit.
+ *
+ * @param na_mmol_l            serum sodium, 80 to 220 mmol/L.
+ * @param glucose_mmol_l       serum glucose, 0 to 200 mmol/L.
+ * @param urea_mmol_l          serum urea, 0 to 200 mmol/L.
+ * @param ethanol_mmol_l       serum ethanol, 0 to 400 mmol/L (0 when not
+ *                             measured or with a vapour-pressure osmometer).
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg.
+ * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
+ * @param[out] tonicity        one of NTR_TONICITY_*, of the effective value.
+ * @param[out] flags           a combination of NTR_LOW_NA_* bits.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6;
+ * Milionis HJ et al. CMAJ 2002;166:1056-62; Spasovski G et al. Eur J
+ * Endocrinol 2014;170(3):G1-G47; Katz 1973; Hillier et al. 1999;
+ * Purssell RA et al. Ann Emerg Med 2001.
+ * Methods: @ref NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY,
+ * @ref NTR_METHOD_EFFECTIVE_OSM_MEASURED, @ref NTR_METHOD_TONICITY_CLASS,
+ * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
+ */
+NTR_API int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_l,
+                                          double urea_mmol_l, double ethanol_mmol_l,
+                                          double measured_osm_mosm_kg,
+                                          int glucose_method, int *tonicity,
+                                          unsigned int *flags);
 
 /** Urine osmolality at or below this (mOsm/kg) is maximally dilute. */
 #define NTR_URINE_OSM_DILUTE_MAX 100.0
@@ -836,7 +966,7 @@ typedef struct ntr_finding_value {
 typedef struct ntr_siad_findings {
     size_t struct_size; /**< sizeof(ntr_siad_findings) as the caller knows it. */
     /* Essential findings. */
-    ntr_finding_value effective_osm_mosm_kg; /**< 2*Na + glucose (or measured minus urea), 150 to 600 mOsm/kg. */
+    ntr_finding_value effective_osm_mosm_kg; /**< effective (not measured) osmolality, 150 to 600 mOsm/kg: ntr_effective_osm_measured() (measured less urea and ethanol), or ntr_osm_effective() (2*Na + glucose) when none was measured. */
     ntr_finding_value urine_osm_mosm_kg;     /**< urine osmolality, 10 to 2000 mOsm/kg. */
     ntr_finding_value urine_na_mmol_l;       /**< urine sodium, 0 to 500 mmol/L. */
     int volume_status;            /**< NTR_VOLUME_*. */
@@ -898,7 +1028,10 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  * @brief Test the findings against the criteria for SIAD.
  *
  * Essential criteria (all must be met; thresholds are strict as in the
- * table): effective serum osmolality < 275 mOsm/kg; urine osmolality
+ * table): effective serum osmolality < 275 mOsm/kg (the hypotonic edge
+ * @ref NTR_TONICITY_HYPOTONIC_BELOW, so the criterion is met exactly when
+ * ntr_low_na_effective_tonicity() gives @ref NTR_TONICITY_HYPOTONIC for
+ * the same value); urine osmolality
  * > 100 mOsm/kg; clinical euvolaemia; urine sodium > 30 mmol/L with normal
  * dietary salt and water intake; no thyroid, adrenal, pituitary or renal
  * insufficiency; no recent diuretic use.
@@ -913,6 +1046,13 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  * any essential criterion not met gives NTR_SIAD_NOT_CONSISTENT; else all
  * met gives NTR_SIAD_CONSISTENT; else NTR_SIAD_INCOMPLETE, and @c missing
  * says which findings to obtain.
+ *
+ * The evaluator takes the effective osmolality as given and does not
+ * derive it: the caller passes the value of ntr_effective_osm_measured()
+ * (measured less urea and ethanol) or of ntr_osm_effective(), never the
+ * measured osmolality itself, which urea or ethanol can hold at 275 or
+ * more in a hypotonic patient (the 1.0 layout has no room for a measured
+ * value and an ethanol result).
  *
  * Check order: NULL pointers; then @c struct_size of both structs, the
  * @c known flags and the enumerators (NTR_ERR_ARG); then the known values
@@ -2054,6 +2194,8 @@ NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_URINE_NA_HIGH 54        /**< urine sodium > 30 mmol/L */
 #define NTR_METHOD_FRACTIONAL_EXCRETION 55 /**< fractional excretion of a solute */
 #define NTR_METHOD_SIAD_CRITERIA 56        /**< essential and supplemental SIAD criteria */
+#define NTR_METHOD_EFFECTIVE_OSM_MEASURED 57 /**< measured osmolality less urea and 1.25*ethanol, floored at 2*Na + glucose */
+#define NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY 58 /**< low-sodium flags judged on the effective osmolality */
 /** @} */
 
 #ifdef __cplusplus

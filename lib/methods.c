@@ -33,6 +33,10 @@ static int entry(struct ntr_method_info *info, int method, const char *name,
     "Endocrinol 2014;170(3):G1-G47"
 #define REF_ADROGUE_MADIAS_HYPO                                              \
     "Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med 2000;342:1581-9"
+#define REF_OSTER_SINGER                                                     \
+    "Oster JR, Singer I. Arch Intern Med 1999;159:333-6"
+#define REF_MILIONIS                                                         \
+    "Milionis HJ et al. CMAJ 2002;166:1056-62"
 #define REF_KATZ                                                             \
     "Katz MA. Hyperglycemia-induced hyponatremia: calculation of expected "  \
     "serum sodium depression. N Engl J Med 1973;289:843-4"
@@ -314,6 +318,24 @@ static int describe(int method, struct ntr_method_info *info)
             "WB, Bennett W, Curelop S, Bartter FC. Am J Med 1957;23:529-42 and "
             "Bartter FC, Schwartz WB. Am J Med 1967;42:790-806",
             "adults with hypotonic hyponatraemia");
+    case NTR_METHOD_EFFECTIVE_OSM_MEASURED:
+        return entry(info, method, "Effective osmolality from a measured osmolality",
+            "E = max(measured - urea - 1.25*ethanol, min(2*Na + glucose, "
+            "measured)) (mOsm/kg; urea, ethanol, Na, glucose in mmol/L; "
+            "ethanol 0 with a vapour-pressure osmometer)",
+            REF_OSTER_SINGER "; " REF_MILIONIS " (urea and ethanol are "
+            "ineffective osmoles); Purssell RA et al. Ann Emerg Med 2001 "
+            "(ethanol coefficient, freezing-point osmometry)",
+            "any; measured osmolality, urea and ethanol from one sample");
+    case NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY:
+        return entry(info, method, "Low sodium judged on the effective osmolality",
+            "as the pseudo- or translocational flags, with the effective "
+            "osmolality E in place of the measured one; ineffective osmoles "
+            "if measured Osm >= 275 and E < 275",
+            REF_OSTER_SINGER "; " REF_MILIONIS "; " REF_SPASOVSKI
+            " (exclusion of non-hypotonic hyponatraemia); " REF_KATZ "; "
+            REF_HILLIER,
+            "adults with a low serum sodium");
 
     default:
         return NTR_ERR_ARG;
@@ -345,7 +367,7 @@ static const struct {
 } method_runs[] = {
     {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_RELOWER},       /* correction, 30-49 */
-    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_SIAD_CRITERIA}};    /* work-up, 50-69 */
+    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY}}; /* work-up, 50-69 */
 
 int ntr_method_next(int after, int *next)
 {

@@ -439,6 +439,70 @@ static const char *ok_low_na_tonicity(const ntrc_case *c)
     return NULL;
 }
 
+/* The effective osmolality as the header states it (measured less urea
+ * and 1.25 * ethanol, floored at min(2*Na + glucose, measured)); the
+ * subtraction is grouped as the library groups it, so the class edge at
+ * 275 is judged on the same double. */
+static double effective_expected(const double *x)
+{
+    double calculated = 2.0 * x[0] + x[1];
+    double floor_osm = calculated < x[4] ? calculated : x[4];
+    double subtracted = x[4] - (x[2] + 1.25 * x[3]);
+    return subtracted > floor_osm ? subtracted : floor_osm;
+}
+
+static int call_effective_osm_measured(ntrc_case *c)
+{
+    return ntr_effective_osm_measured(c->num[0], c->num[1], c->num[2], c->num[3], c->num[4],
+                                      od(c, 0));
+}
+
+static const char *ok_effective_osm_measured(const ntrc_case *c)
+{
+    double e = c->out.d[0];
+    if (!within(e, 150.0, 600.0)) {
+        return "effective osmolality outside [150, 600]";
+    }
+    if (e > c->num[4]) {
+        return "effective osmolality above the measured one";
+    }
+    return close_to(e, effective_expected(c->num), 1e-14) ? NULL
+                                                         : "effective osmolality off its equation";
+}
+
+static int call_low_na_effective_tonicity(ntrc_case *c)
+{
+    return ntr_low_na_effective_tonicity(
+        c->num[0], c->num[1], c->num[2], c->num[3], c->num[4], c->en[0], oi(c, 0),
+        (c->out_null & NTRC_NULL_I(1)) ? NULL : (unsigned int *)&c->out.i[1]);
+}
+
+static const char *ok_low_na_effective_tonicity(const ntrc_case *c)
+{
+    unsigned int flags = (unsigned int)c->out.i[1];
+    double e = effective_expected(c->num);
+    int hidden = c->num[4] >= NTR_TONICITY_HYPOTONIC_BELOW && e < NTR_TONICITY_HYPOTONIC_BELOW;
+    if (c->out.i[0] != tonicity_of(e)) {
+        return "tonicity does not match the band of the effective osmolality";
+    }
+    if ((flags & ~0x3fu) != 0u) {
+        return "undefined flag bits";
+    }
+    if (c->num[0] >= 135.0 && (flags & ~NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u) {
+        return "low-sodium flags set although sodium is not low";
+    }
+    if (((flags & NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u) != hidden) {
+        return "ineffective-osmoles flag not set exactly when measured >= 275 > effective";
+    }
+    if ((flags & NTR_LOW_NA_PSEUDO) && e < NTR_TONICITY_HYPOTONIC_BELOW) {
+        return "pseudo flag on a hypotonic effective osmolality";
+    }
+    if ((flags & NTR_LOW_NA_NOT_HYPOTONIC) && e < NTR_TONICITY_HYPOTONIC_BELOW) {
+        return "not-hypotonic flag on a hypotonic effective osmolality";
+    }
+    return NULL;
+}
+
 static int call_urine_maximally_dilute(ntrc_case *c)
 {
     return ntr_urine_maximally_dilute(c->num[0], oi(c, 0));
@@ -2259,6 +2323,19 @@ const ntrc_fn ntrc_functions[] = {
      .n_num = 3, .num = {NA, GLU, OSM("measured_osm_mosm_kg")}, .n_out_i = 2,
      .statuses = OK_COMMON | ST(ERR_ARG), .base_num = {126.0, 30.0, 290.0},
      .base_en = {NTR_GLUCOSE_HILLIER}, .check_ok = ok_low_na_tonicity},
+    {CALL(effective_osm_measured), .n_num = 5,
+     .num = {NA, GLU, {"urea_mmol_l", 0.0, 200.0, 0}, {"ethanol_mmol_l", 0.0, 400.0, 0},
+             OSM("measured_osm_mosm_kg")},
+     .n_out_d = 1, .statuses = OK_COMMON, .base_num = {125.0, 5.0, 40.0, 0.0, 295.0},
+     .check_ok = ok_effective_osm_measured},
+    {CALL(low_na_effective_tonicity), .n_enum = 1,
+     .en = {{"glucose_method", NTR_ERR_ARG, 2, {NTR_GLUCOSE_KATZ, NTR_GLUCOSE_HILLIER}}},
+     .n_num = 5,
+     .num = {NA, GLU, {"urea_mmol_l", 0.0, 200.0, 0}, {"ethanol_mmol_l", 0.0, 400.0, 0},
+             OSM("measured_osm_mosm_kg")},
+     .n_out_i = 2, .statuses = OK_COMMON | ST(ERR_ARG),
+     .base_num = {118.0, 5.0, 5.0, 45.0, 295.0}, .base_en = {NTR_GLUCOSE_HILLIER},
+     .check_ok = ok_low_na_effective_tonicity},
     {CALL(urine_maximally_dilute), .n_num = 1, .num = {{"urine_osm_mosm_kg", 10.0, 2000.0, 0}},
      .n_out_i = 1, .statuses = OK_COMMON, .base_num = {80.0},
      .check_ok = ok_urine_maximally_dilute},
