@@ -44,7 +44,7 @@ int main(int argc, char **argv)
     if (cl.argc > 1) return cli_usage_error(&cl, "expected at most one argument");
     if (cl.argc == 1 && strcmp(cl.argv[0], "high-risk") == 0) preset = NTR_LIMITS_HIGH_RISK;
     else if (cl.argc == 1 && strcmp(cl.argv[0], "standard") != 0)
-        return cli_usage_error(&cl, "the limits are 'standard' or 'high-risk'");
+        return cli_bad_choice(&cl, "LIMITS", cl.argv[0], "standard, high-risk");
     if ((st = ntr_limits_preset(preset, &lim)) || (st = ntr_watch_init(&lim, &watch))) {
         fprintf(stderr, "correction_watch: %s\n", ntr_status_message(st));
         return 2;

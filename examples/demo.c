@@ -447,7 +447,7 @@ static const ntr_sample a_measured[] = {
 /* Results carried from one step to the next. */
 struct patient_a {
     double si[PANEL_COUNT]; /* creatinine in umol/L, the rest in mmol/L */
-    double osm_calculated, osm_effective;
+    double osm_calculated, osm_effective; /* effective: measured less urea */
     double tbw_fraction_l, tbw_watson_l;
     double furst;
     ntr_limits lim10;
@@ -498,31 +498,38 @@ static void a_tonicity_step(struct patient_a *p)
     int tonicity_class;
     unsigned int flags;
     const double na = p->si[PANEL_NA], glucose = p->si[PANEL_GLUCOSE];
+    const double urea = p->si[PANEL_BUN];
     heading("A2. Is the low sodium truly hypotonic?");
-    must(ntr_osm_calculated(na, glucose, p->si[PANEL_BUN], 0.0, NTR_OSM_2NA,
-                            &p->osm_calculated), "ntr_osm_calculated");
-    must(ntr_osm_effective(na, glucose, &p->osm_effective), "ntr_osm_effective");
+    must(ntr_osm_calculated(na, glucose, urea, 0.0, NTR_OSM_2NA, &p->osm_calculated),
+         "ntr_osm_calculated");
     must(ntr_osm_gap(A_MEASURED_OSM_MOSM_KG, p->osm_calculated, &gap), "ntr_osm_gap");
-    printf("  calculated osmolality  2 x Na + glucose + urea = %6.1f mOsm/kg\n",
-           p->osm_calculated);
-    printf("  effective osmolality   2 x Na + glucose        = %6.1f mOsm/kg\n",
-           p->osm_effective);
-    printf("  measured osmolality                            = %6.0f mOsm/kg\n",
+    /* Urea crosses cell membranes and draws no water: the tonicity the
+     * cells feel is the measured value less urea (and less ethanol, which
+     * was not measured here and counts as 0). */
+    must(ntr_effective_osm_measured(na, glucose, urea, 0.0, A_MEASURED_OSM_MOSM_KG,
+                                    &p->osm_effective), "ntr_effective_osm_measured");
+    printf("  measured osmolality                            %6.0f mOsm/kg\n",
            A_MEASURED_OSM_MOSM_KG);
-    printf("  osmolal gap            measured - calculated   = %6.1f mOsm/kg%s\n",
+    printf("  calculated osmolality  2 x Na + glucose + urea  %6.1f mOsm/kg\n",
+           p->osm_calculated);
+    printf("  osmolal gap            measured - calculated    %6.1f mOsm/kg%s\n",
            gap, gap > 10.0 ? " (raised)" : " (not raised)");
+    printf("  effective osmolality   measured - urea          %6.1f mOsm/kg\n",
+           p->osm_effective);
+    printf("                         (ethanol not measured: counted as 0)\n");
     must(ntr_na_corrected_glucose(na, glucose, NTR_GLUCOSE_KATZ, &katz),
          "ntr_na_corrected_glucose");
     must(ntr_na_corrected_glucose(na, glucose, NTR_GLUCOSE_HILLIER, &hillier),
          "ntr_na_corrected_glucose");
     printf("  sodium corrected for glucose: %.1f mmol/L (Katz), %.1f mmol/L "
            "(Hillier)\n", katz, hillier);
-    must(ntr_low_na_tonicity(na, glucose, A_MEASURED_OSM_MOSM_KG, NTR_GLUCOSE_HILLIER,
-                             &tonicity_class, &flags), "ntr_low_na_tonicity");
+    must(ntr_low_na_effective_tonicity(na, glucose, urea, 0.0, A_MEASURED_OSM_MOSM_KG,
+                                       NTR_GLUCOSE_HILLIER, &tonicity_class, &flags),
+         "ntr_low_na_effective_tonicity");
     if (tonicity_class == NTR_TONICITY_HYPOTONIC && flags == 0u) {
-        printf("  -> measured osmolality %.0f mOsm/kg is below 275 and glucose "
+        printf("  -> effective osmolality %.0f mOsm/kg is below 275 and glucose "
                "does not explain\n     the sodium: a hypotonic low sodium.\n",
-               A_MEASURED_OSM_MOSM_KG);
+               p->osm_effective);
     } else {
         printf("  -> not a plain hypotonic low sodium (class %d, flags 0x%02x): "
                "recheck before treating.\n", tonicity_class, flags);
@@ -579,21 +586,6 @@ static void known(ntr_finding_value *f, double value)
 
 static void a_siad_step(const struct patient_a *p)
 {
-    enum { MEASURED, CLINICIAN };
-    static const struct { int criterion, source; const char *text; } shown[] = {
-        {NTR_SIAD_OSM_LOW, MEASURED, "effective osmolality below 275 mOsm/kg"},
-        {NTR_SIAD_URINE_CONCENTRATED, MEASURED, "urine osmolality above 100 mOsm/kg"},
-        {NTR_SIAD_URINE_NA_HIGH, MEASURED, "urine sodium above 30 mmol/L (*)"},
-        {NTR_SIAD_EUVOLAEMIA, CLINICIAN, "clinically euvolaemic"},
-        {NTR_SIAD_THYROID_NORMAL, CLINICIAN, "thyroid function normal"},
-        {NTR_SIAD_ADRENAL_NORMAL, CLINICIAN, "adrenal function normal"},
-        {NTR_SIAD_PITUITARY_NORMAL, CLINICIAN, "pituitary function normal"},
-        {NTR_SIAD_KIDNEY_NORMAL, CLINICIAN, "kidney function normal"},
-        {NTR_SIAD_NO_DIURETIC, CLINICIAN, "no recent diuretic"},
-        {NTR_SIAD_UREA_LOW, MEASURED, "(supporting) serum urea below 3.6 mmol/L"},
-        {NTR_SIAD_URIC_ACID_LOW, MEASURED, "(supporting) uric acid below 0.24 mmol/L"},
-        {NTR_SIAD_FE_UREA_HIGH, MEASURED, "(supporting) urea excretion above 55%"},
-    };
     ntr_siad_findings f;
     ntr_siad_result r;
     double fe_urea;
@@ -603,8 +595,8 @@ static void a_siad_step(const struct patient_a *p)
     must(ntr_fractional_excretion(A_URINE_UREA_MMOL_L, p->si[PANEL_BUN],
                                   A_URINE_CREATININE_UMOL_L, p->si[PANEL_CREATININE],
                                   &fe_urea), "ntr_fractional_excretion");
-    printf("  fractional excretion of urea: %.0f%%\n", fe_urea);
     must(ntr_siad_findings_init(&f), "ntr_siad_findings_init");
+    /* The effective osmolality of step A2, the one the tonicity was judged on. */
     known(&f.effective_osm_mosm_kg, p->osm_effective);
     known(&f.urine_osm_mosm_kg, A_URINE_OSM_MOSM_KG);
     known(&f.urine_na_mmol_l, A_URINE_NA_MMOL_L);
@@ -621,11 +613,34 @@ static void a_siad_step(const struct patient_a *p)
     f.recent_diuretic = NTR_FINDING_NO;
     r.struct_size = sizeof r;
     must(ntr_siad_evaluate(&f, &r), "ntr_siad_evaluate");
-    printf("  %-44s %s\n", "criterion (measured values, then findings", "");
-    printf("  %-44s %s\n", "entered by the clinician)", "result");
-    for (i = 0; i < sizeof shown / sizeof shown[0]; ++i) {
-        printf("  %-44s %s\n", shown[i].text,
-               criterion_state(&r, shown[i].criterion, shown[i].source == CLINICIAN));
+    {
+        char v[6][24];
+        const struct { int criterion; const char *text; const char *value; } shown[] = {
+            {NTR_SIAD_OSM_LOW, "effective osmolality below 275 mOsm/kg", v[0]},
+            {NTR_SIAD_URINE_CONCENTRATED, "urine osmolality above 100 mOsm/kg", v[1]},
+            {NTR_SIAD_URINE_NA_HIGH, "urine sodium above 30 mmol/L (*)", v[2]},
+            {NTR_SIAD_EUVOLAEMIA, "clinically euvolaemic", NULL},
+            {NTR_SIAD_THYROID_NORMAL, "thyroid function normal", NULL},
+            {NTR_SIAD_ADRENAL_NORMAL, "adrenal function normal", NULL},
+            {NTR_SIAD_PITUITARY_NORMAL, "pituitary function normal", NULL},
+            {NTR_SIAD_KIDNEY_NORMAL, "kidney function normal", NULL},
+            {NTR_SIAD_NO_DIURETIC, "no recent diuretic", NULL},
+            {NTR_SIAD_UREA_LOW, "(supporting) urea below 3.6 mmol/L", v[3]},
+            {NTR_SIAD_URIC_ACID_LOW, "(supporting) uric acid below 0.24 mmol/L", v[4]},
+            {NTR_SIAD_FE_UREA_HIGH, "(supporting) fractional urea excretion > 55%", v[5]},
+        };
+        snprintf(v[0], sizeof v[0], "%.1f mOsm/kg", p->osm_effective);
+        snprintf(v[1], sizeof v[1], "%.0f mOsm/kg", A_URINE_OSM_MOSM_KG);
+        snprintf(v[2], sizeof v[2], "%.0f mmol/L", A_URINE_NA_MMOL_L);
+        snprintf(v[3], sizeof v[3], "%.1f mmol/L", p->si[PANEL_BUN]);
+        snprintf(v[4], sizeof v[4], "%.2f mmol/L", A_URIC_ACID_MMOL_L);
+        snprintf(v[5], sizeof v[5], "%.0f%%", fe_urea);
+        printf("  %-44s %-14s %s\n", "criterion", "finding", "result");
+        for (i = 0; i < sizeof shown / sizeof shown[0]; ++i) {
+            printf("  %-44s %-14s %s\n", shown[i].text,
+                   shown[i].value != NULL ? shown[i].value : "by clinician",
+                   criterion_state(&r, shown[i].criterion, shown[i].value == NULL));
+        }
     }
     printf("  (*) with salt and water intake reported normal.\n");
     printf("  -> %s\n", r.verdict == NTR_SIAD_CONSISTENT

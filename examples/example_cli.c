@@ -64,6 +64,14 @@ int cli_number(const cli *c, const char *name, const char *text, double *out)
     return 1;
 }
 
+int cli_bad_choice(const cli *c, const char *name, const char *text,
+                   const char *choices)
+{
+    char message[256];
+    snprintf(message, sizeof message, "%s '%s' is not one of: %s", name, text, choices);
+    return cli_usage_error(c, message);
+}
+
 int cli_refused(const cli *c, const char *name, const char *text, int status)
 {
     fprintf(stderr, "%s: %s %s refused: %s\n", c->program, name, text,

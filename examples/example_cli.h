@@ -38,6 +38,11 @@ int cli_usage_error(const cli *c, const char *message);
  * number" and return 0, else 1. */
 int cli_number(const cli *c, const char *name, const char *text, double *out);
 
+/* A word not in the list: print "NAME 'TEXT' is not one of: CHOICES"
+ * and a pointer to --help. Returns CLI_EXIT_USAGE. */
+int cli_bad_choice(const cli *c, const char *name, const char *text,
+                   const char *choices);
+
 /* Name a refused argument with the library's message for status.
  * Returns CLI_EXIT_REFUSED. */
 int cli_refused(const cli *c, const char *name, const char *text, int status);

@@ -41,10 +41,10 @@ int main(int argc, char **argv)
     }
     if (c.argc != 6) return cli_usage_error(&c, "expected 6 arguments");
     sex = strcmp(c.argv[0], "m") == 0 ? NTR_SEX_MALE : strcmp(c.argv[0], "f") == 0 ? NTR_SEX_FEMALE : 0;
-    if (sex == 0) return cli_usage_error(&c, "SEX must be m or f");
+    if (sex == 0) return cli_bad_choice(&c, "SEX", c.argv[0], "m, f");
     for (i = 0; i < (int)(sizeof fluids / sizeof fluids[0]); ++i)
         if (strcmp(c.argv[4], fluids[i].name) == 0) fluid = fluids[i].fluid;
-    if (fluid == 0) return cli_usage_error(&c, "FLUID is not one of the names listed");
+    if (fluid == 0) return cli_bad_choice(&c, "FLUID", c.argv[4], "the names --help lists");
     for (i = 0; i < 5; ++i)
         if (i != 3 && !cli_number(&c, names[i], c.argv[i + 1], &v[i])) return CLI_EXIT_USAGE;
     if ((st = ntr_tbw_fraction(sex, v[0], v[1], &tbw)) != NTR_OK) {
