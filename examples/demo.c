@@ -85,39 +85,33 @@ static void print_full_path(const char *path)
 /* A watched series: "now" and "so far"                                     */
 /* ======================================================================= */
 
-/* The limits a series is read against, in both directions (0: none). */
-typedef struct limits_view {
-    int goal; /* NTR_GOAL_RAISE or NTR_GOAL_LOWER */
-    double rise_24h, rise_48h, fall_24h, fall_48h;
-    const char *name; /* "standard", "high-risk", ... */
-} limits_view;
+/* Course limits with a name for the screen. */
+typedef struct named_limits {
+    ntr_course_limits lim;
+    const char *name; /* "standard", "high-risk", "chronic high sodium" */
+} named_limits;
 
-/* How the newest result stands against the limits NOW: its rise above the
- * lowest result of the 24 h (48 h) before it, and its fall below the
- * highest. This is the current 24 h window; a breach earlier in the course
- * is reported separately ("so far"), so that a rise corrected since does
- * not read as a current alarm. The library's near-limit flag reads the
- * same windows (NTR_CF_NEAR_LIMIT), and its tolerances are used here. */
+/* How the newest result stands NOW: its change from the lowest (highest)
+ * result of the 24 h and of the 48 h ending at it. The 24 h figures are
+ * the library's (rise_now_24h, fall_now_24h); the 48 h ones the demo reads
+ * the same way from the samples, with the library's time tolerance. A
+ * breach earlier in the course is "so far" (the report's maxima and OVER
+ * flags), so a rise corrected since does not read as a current alarm. */
 typedef struct change_now {
     double rise_24h, rise_48h, fall_24h, fall_48h;
 } change_now;
 
-static int in_window(const ntr_sample *s, size_t i, size_t j, double window_h)
+static change_now change_now_of(const ntr_sample *s, size_t j, const ntr_course_report *r)
 {
-    return s[j].hours - s[i].hours <= window_h + NTR_CF_TIME_TOLERANCE_H;
-}
-
-static change_now change_into(const ntr_sample *s, size_t j)
-{
-    change_now c = {0.0, 0.0, 0.0, 0.0};
+    change_now c;
     size_t i;
+    c.rise_24h = r->rise_now_24h;
+    c.fall_24h = r->fall_now_24h;
+    c.rise_48h = 0.0;
+    c.fall_48h = 0.0;
     for (i = 0; i <= j; ++i) {
-        double d = s[j].na_mmol_l - s[i].na_mmol_l;
-        if (in_window(s, i, j, 24.0)) {
-            if (d > c.rise_24h) c.rise_24h = d;
-            if (-d > c.fall_24h) c.fall_24h = -d;
-        }
-        if (in_window(s, i, j, 48.0)) {
+        const double d = s[j].na_mmol_l - s[i].na_mmol_l;
+        if (s[j].hours - s[i].hours <= 48.0 + NTR_CF_TIME_TOLERANCE_H) {
             if (d > c.rise_48h) c.rise_48h = d;
             if (-d > c.fall_48h) c.fall_48h = -d;
         }
@@ -130,117 +124,127 @@ static int over(double change, double limit)
     return limit > 0.0 && change > limit + NTR_CF_TOLERANCE;
 }
 
-static int near(double change, double limit)
+/* The words for "now" (at most 21 characters); returns 1 when over. */
+static int describe_now(const change_now *c, const ntr_course_limits *l,
+                        unsigned int flags, char *text, size_t size)
 {
-    return limit > 0.0 && change > 0.0 && !over(change, limit) &&
-           change >= limit - NTR_CF_NEAR_MARGIN;
-}
-
-/* The words for "now", at most 22 characters, and whether it is over. */
-static int describe_now(const change_now *c, const limits_view *l, char *text,
-                        size_t size)
-{
-    if (over(c->rise_24h, l->rise_24h)) {
-        snprintf(text, size, "OVER 24 h rise limit");
-    } else if (over(c->rise_48h, l->rise_48h)) {
-        snprintf(text, size, "OVER 48 h rise limit");
-    } else if (over(c->fall_24h, l->fall_24h)) {
-        snprintf(text, size, "OVER 24 h fall limit");
-    } else if (over(c->fall_48h, l->fall_48h)) {
-        snprintf(text, size, "OVER 48 h fall limit");
-    } else if (near(c->rise_24h, l->rise_24h) || near(c->rise_48h, l->rise_48h) ||
-               near(c->fall_24h, l->fall_24h) || near(c->fall_48h, l->fall_48h)) {
-        snprintf(text, size, "within, near a limit");
-        return 0;
-    } else {
-        snprintf(text, size, "within the limits");
-        return 0;
+    const char *words = NULL;
+    if (over(c->rise_24h, l->max_rise_24h)) words = "OVER 24 h rise limit";
+    else if (over(c->rise_48h, l->max_rise_48h)) words = "OVER 48 h rise limit";
+    else if (over(c->fall_24h, l->max_fall_24h)) words = "OVER 24 h fall limit";
+    else if (over(c->fall_48h, l->max_fall_48h)) words = "OVER 48 h fall limit";
+    if (words != NULL) {
+        snprintf(text, size, "%s", words);
+        return 1;
     }
-    return 1;
+    /* The library's near-limit flags read the same windows as "now". */
+    snprintf(text, size, "%s", (flags & (NTR_CF_NEAR_LIMIT | NTR_CF_FALL_NEAR_LIMIT))
+                                   ? "within, near a limit" : "within the limits");
+    return 0;
 }
 
-/* The first breach of the course, as "so far" reports it. */
-typedef struct breach {
-    double hours;  /* NTR_PLAN_NO_BREACH (-1) until there is one */
-    double worst;  /* the largest excess over a limit so far, mmol/L */
-    const char *what;
-} breach;
-
-/* What the watcher reports after each result (the whole course so far). */
-typedef struct course_view {
-    double max_rise_24h, max_rise_48h, max_fall_24h, max_fall_48h;
-    double last_rate_per_h, excess_mmol_l;
-    unsigned int flags;
-} course_view;
+#define MAX_WATCHED 32
 
 typedef struct watched {
     const ntr_sample *s;
     size_t n;
-    limits_view limits;
-    ntr_limits lim10; /* the 1.0 limits the watcher takes */
-    ntr_watch watch;
-    course_view last;
-    breach first;
-    int over_now[64]; /* per result: over a limit now (drawn as a diamond) */
+    named_limits limits;
+    ntr_course_report last;
+    double first_over_h; /* when a window first went over, NTR_COURSE_NO_TIME before */
+    int over_now[MAX_WATCHED]; /* per result: over a limit now (drawn as a diamond) */
 } watched;
 
 static void watched_init(watched *w, const ntr_sample *s, size_t n,
-                         const limits_view *l, const ntr_limits *lim10)
+                         const named_limits *l)
 {
     memset(w, 0, sizeof *w);
     w->s = s;
     w->n = n;
     w->limits = *l;
-    w->lim10 = *lim10;
-    w->first.hours = NTR_PLAN_NO_BREACH;
-    must(ntr_watch_init(&w->lim10, &w->watch), "ntr_watch_init");
+    w->first_over_h = NTR_COURSE_NO_TIME;
+    /* TEMPORARY until the course watcher lands: see watched_push. */
 }
 
 static void watched_push(watched *w, size_t i)
 {
-    ntr_correction c;
-    must(ntr_watch_push(&w->watch, w->s[i].hours, w->s[i].na_mmol_l, &c),
-         "ntr_watch_push");
-    w->last.max_rise_24h = c.max_rise_24h;
-    w->last.max_rise_48h = c.max_rise_48h;
-    w->last.max_fall_24h = 0.0;
-    w->last.max_fall_48h = 0.0;
-    w->last.last_rate_per_h = c.last_rate_per_h;
-    w->last.excess_mmol_l = c.excess_mmol_l;
-    w->last.flags = c.flags;
+    w->last.struct_size = sizeof w->last;
+    must(ntr_course_assess(w->s, i + 1, &w->limits.lim, &w->last), "ntr_course_assess");
 }
 
-static const char *breach_words(unsigned int flags)
+static unsigned int over_bits(unsigned int flags)
 {
-    if (flags & NTR_CF_OVER_24H) return "24 h rise limit";
-    if (flags & NTR_CF_OVER_48H) return "48 h rise limit";
-    return NULL;
+    return flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_24H |
+                    NTR_CF_FALL_OVER_48H);
+}
+
+/* The limit of the worst window so far, in words. */
+static const char *worst_words(const ntr_course_report *r, const ntr_course_limits *l)
+{
+    static const struct { unsigned int bit; const char *words; } names[] = {
+        {NTR_CF_OVER_24H, "24 h rise limit"}, {NTR_CF_OVER_48H, "48 h rise limit"},
+        {NTR_CF_FALL_OVER_24H, "24 h fall limit"}, {NTR_CF_FALL_OVER_48H, "48 h fall limit"},
+    };
+    const double figure[] = {r->max_rise_24h - l->max_rise_24h,
+                             r->max_rise_48h - l->max_rise_48h,
+                             r->max_fall_24h - l->max_fall_24h,
+                             r->max_fall_48h - l->max_fall_48h};
+    size_t i;
+    for (i = 0; i < 4; ++i) {
+        if ((r->flags & names[i].bit) && figure[i] >= r->excess_mmol_l - NTR_CF_TOLERANCE) {
+            return names[i].words;
+        }
+    }
+    return "limits";
 }
 
 /* Notes from the library's trend flags, on a line under the result. */
-static void print_trend_notes(unsigned int flags, const limits_view *l)
+static void print_trend_notes(unsigned int flags, const ntr_course_limits *l)
 {
-    char text[200];
+    char text[240];
     size_t used = 0;
     text[0] = '\0';
-    if (flags & NTR_CF_PROJECTED_OVER) {
-        used += (size_t)snprintf(text + used, sizeof text - used, "%sthe next result, "
-                                 "at the same pace, would be over a limit", used ? "; " : "");
+    if (flags & (NTR_CF_PROJECTED_OVER | NTR_CF_FALL_PROJECTED_OVER)) {
+        used += (size_t)snprintf(text + used, sizeof text - used, "the next result, "
+                                 "at the same pace, would be over a limit");
     }
     if ((flags & NTR_CF_RAPID_6H) && used < sizeof text) {
         used += (size_t)snprintf(text + used, sizeof text - used,
                                  "%s6 mmol/L or more in 6 h", used ? "; " : "");
     }
-    if ((flags & NTR_CF_FALLING) && l->goal == NTR_GOAL_RAISE && used < sizeof text) {
+    if ((flags & NTR_CF_WRONG_WAY) && used < sizeof text) {
+        used += (size_t)snprintf(text + used, sizeof text - used, "%smoved against the "
+                                 "goal by more than %.0f mmol/L", used ? "; " : "",
+                                 NTR_CF_WRONG_WAY_MARGIN);
+    } else if ((flags & NTR_CF_FALLING) && l->goal == NTR_GOAL_RAISE && used < sizeof text) {
         used += (size_t)snprintf(text + used, sizeof text - used, "%sfalling",
                                  used ? "; " : "");
+    }
+    if ((flags & NTR_CF_APPROXIMATE) && used < sizeof text) {
+        used += (size_t)snprintf(text + used, sizeof text - used, "%sfigures are upper "
+                                 "bounds", used ? "; " : "");
     }
     if (used > 0) {
         printf("%16s(%s)\n", "", text);
     }
 }
 
-static void watch_header(const limits_view *l)
+/* A result over a limit after the first such: say which earlier result
+ * keeps the window over, so that a course that has stopped moving is not
+ * read as moving on. */
+static void print_still_over(const ntr_sample *s, size_t j, int raising)
+{
+    size_t i, ref = j;
+    for (i = 0; i < j; ++i) {
+        if (s[j].hours - s[i].hours <= 24.0 + NTR_CF_TIME_TOLERANCE_H &&
+            (raising ? s[i].na_mmol_l < s[ref].na_mmol_l : s[i].na_mmol_l > s[ref].na_mmol_l)) {
+            ref = i;
+        }
+    }
+    printf("%16s(still over: the %.1f mmol/L of hour %.0f is within the last 24 h)\n", "",
+           s[ref].na_mmol_l, s[ref].hours);
+}
+
+static void watch_header(const ntr_course_limits *l)
 {
     printf("                %s\n"
            "   time sodium  result of the past      rate  now                   so far\n"
@@ -252,25 +256,22 @@ static void watch_header(const limits_view *l)
 /* Feed results [from, to) to the watcher; one line each. */
 static void watch_rows(watched *w, size_t from, size_t to)
 {
+    const ntr_course_limits *l = &w->limits.lim;
+    const int raising = l->goal == NTR_GOAL_RAISE;
     size_t i;
     for (i = from; i < to; ++i) {
-        const int raising = w->limits.goal == NTR_GOAL_RAISE;
         change_now now;
-        char now_text[40], so_far[48];
-        const char *what;
+        char now_text[40], so_far[40];
         watched_push(w, i);
-        now = change_into(w->s, i);
-        w->over_now[i] = describe_now(&now, &w->limits, now_text, sizeof now_text);
-        what = breach_words(w->last.flags);
-        if (what != NULL && w->first.hours == NTR_PLAN_NO_BREACH) {
-            w->first.hours = w->s[i].hours;
-            w->first.what = what;
+        now = change_now_of(w->s, i, &w->last);
+        w->over_now[i] = describe_now(&now, l, w->last.flags, now_text, sizeof now_text);
+        if (over_bits(w->last.flags) != 0u && w->first_over_h == NTR_COURSE_NO_TIME) {
+            w->first_over_h = w->s[i].hours;
         }
-        if (what != NULL) w->first.worst = w->last.excess_mmol_l;
-        if (w->first.hours == NTR_PLAN_NO_BREACH) {
+        if (w->first_over_h == NTR_COURSE_NO_TIME) {
             snprintf(so_far, sizeof so_far, "none");
         } else {
-            snprintf(so_far, sizeof so_far, "over at %.0f h", w->first.hours);
+            snprintf(so_far, sizeof so_far, "over at %.0f h", w->first_over_h);
         }
         printf("  %5.1f %6.1f  %6.1f  %6.1f  ", w->s[i].hours, w->s[i].na_mmol_l,
                raising ? now.rise_24h : now.fall_24h, raising ? now.rise_48h : now.fall_48h);
@@ -280,41 +281,82 @@ static void watch_rows(watched *w, size_t from, size_t to)
             printf("%+8.2f  ", w->last.last_rate_per_h);
         }
         printf("%-22s%s\n", now_text, so_far);
-        print_trend_notes(w->last.flags, &w->limits);
+        print_trend_notes(w->last.flags, l);
+        if (w->over_now[i] && w->first_over_h < w->s[i].hours) {
+            print_still_over(w->s, i, raising);
+        }
     }
+}
+
+/* The whole-course summary: now, so far, and the batch cross-check. */
+static void watch_summary(const watched *w)
+{
+    const ntr_course_limits *l = &w->limits.lim;
+    const int raising = l->goal == NTR_GOAL_RAISE;
+    const size_t last = w->n - 1;
+    const change_now now = change_now_of(w->s, last, &w->last);
+    ntr_course_report batch;
+    batch.struct_size = sizeof batch;
+    must(ntr_course_assess(w->s, w->n, l, &batch), "ntr_course_assess");
+    printf("  now (hour %.0f): a %s of %.1f mmol/L in the last 24 h and %.1f in the "
+           "last\n  48 h: %s\n", w->s[last].hours, raising ? "rise" : "fall",
+           raising ? now.rise_24h : now.fall_24h, raising ? now.rise_48h : now.fall_48h,
+           w->over_now[last] ? "OVER a limit" : "within the limits");
+    if (over_bits(batch.flags) == 0u) {
+        printf("  so far: no limit exceeded (largest %s %.1f mmol/L in any 24 h)\n",
+               raising ? "rise" : "fall", raising ? batch.max_rise_24h : batch.max_fall_24h);
+    } else {
+        printf("  so far: over a limit from %.0f h; the worst window, over the %s\n"
+               "  by %.1f mmol/L, ends at %.0f h (largest %s %.1f mmol/L in any 24 h, "
+               "%.1f\n  in any 48 h)\n", w->first_over_h, worst_words(&batch, l),
+               batch.excess_mmol_l, batch.worst_at_h, raising ? "rise" : "fall",
+               raising ? batch.max_rise_24h : batch.max_fall_24h,
+               raising ? batch.max_rise_48h : batch.max_fall_48h);
+    }
+    printf("  the batch assessment %s the streaming watcher.\n",
+           batch.flags == w->last.flags && batch.max_rise_24h == w->last.max_rise_24h &&
+                   batch.max_rise_48h == w->last.max_rise_48h &&
+                   batch.max_fall_24h == w->last.max_fall_24h &&
+                   batch.max_fall_48h == w->last.max_fall_48h &&
+                   batch.excess_mmol_l == w->last.excess_mmol_l
+               ? "agrees with"
+               : "DISAGREES with");
 }
 
 /* The band the limits allow NOW at time t, from the results up to t: a
  * rise limit caps sodium at the lowest result of the window plus the
  * limit; a fall limit floors it at the highest result minus the limit.
  * The band runs from that reference to the cap (or the floor). */
-static int band_at(const ntr_sample *s, size_t n, const limits_view *l, double t,
+static int band_at(const ntr_sample *s, size_t n, const ntr_course_limits *l, double t,
                    double *low, double *high)
 {
     double lo24 = 0.0, lo48 = 0.0, hi24 = 0.0, hi48 = 0.0;
-    int any = 0;
+    int any48 = 0, any24 = 0;
     size_t i;
     for (i = 0; i < n && s[i].hours <= t + NTR_CF_TIME_TOLERANCE_H; ++i) {
-        const double na = s[i].na_mmol_l;
-        if (t - s[i].hours <= 48.0 + NTR_CF_TIME_TOLERANCE_H) {
-            if (!any || na < lo48) lo48 = na;
-            if (!any || na > hi48) hi48 = na;
-            if (t - s[i].hours <= 24.0 + NTR_CF_TIME_TOLERANCE_H) {
-                if (lo24 == 0.0 || na < lo24) lo24 = na;
-                if (na > hi24) hi24 = na;
-            }
-            any = 1;
+        const double na = s[i].na_mmol_l, age = t - s[i].hours;
+        if (age <= 48.0 + NTR_CF_TIME_TOLERANCE_H) {
+            if (!any48 || na < lo48) lo48 = na;
+            if (!any48 || na > hi48) hi48 = na;
+            any48 = 1;
+        }
+        if (age <= 24.0 + NTR_CF_TIME_TOLERANCE_H) {
+            if (!any24 || na < lo24) lo24 = na;
+            if (!any24 || na > hi24) hi24 = na;
+            any24 = 1;
         }
     }
-    if (!any || lo24 == 0.0) return 0;
+    if (!any24) return 0;
     if (l->goal == NTR_GOAL_RAISE) {
-        double cap = lo24 + l->rise_24h;
-        if (l->rise_48h > 0.0 && lo48 + l->rise_48h < cap) cap = lo48 + l->rise_48h;
+        double cap = lo24 + l->max_rise_24h;
+        if (l->max_rise_48h > 0.0 && lo48 + l->max_rise_48h < cap) cap = lo48 + l->max_rise_48h;
         *low = lo24;
         *high = cap;
     } else {
-        double floor_na = hi24 - l->fall_24h;
-        if (l->fall_48h > 0.0 && hi48 - l->fall_48h > floor_na) floor_na = hi48 - l->fall_48h;
+        double floor_na = hi24 - l->max_fall_24h;
+        if (l->max_fall_48h > 0.0 && hi48 - l->max_fall_48h > floor_na) {
+            floor_na = hi48 - l->max_fall_48h;
+        }
         *low = floor_na;
         *high = hi24;
     }
@@ -329,7 +371,7 @@ typedef struct band_points {
     size_t n;
 } band_points;
 
-static void band_over(const ntr_sample *s, size_t n, const limits_view *l,
+static void band_over(const ntr_sample *s, size_t n, const ntr_course_limits *l,
                       double hours_max, band_points *b)
 {
     size_t k;
@@ -343,7 +385,7 @@ static void band_over(const ntr_sample *s, size_t n, const limits_view *l,
     }
 }
 
-/* The chart's notes: the same "so far" and "now" as the table's last row. */
+/* The chart's notes: the same "so far" and "now" as the summary. */
 typedef struct chart_notes {
     char text[5][64];
     const char *lines[5];
@@ -352,25 +394,72 @@ typedef struct chart_notes {
 static void notes_for(const watched *w, chart_notes *n)
 {
     const size_t last = w->n - 1;
-    const change_now now = change_into(w->s, last);
-    const int raising = w->limits.goal == NTR_GOAL_RAISE;
+    const change_now now = change_now_of(w->s, last, &w->last);
+    const int raising = w->limits.lim.goal == NTR_GOAL_RAISE;
     size_t i;
-    if (w->first.hours == NTR_PLAN_NO_BREACH) {
+    if (over_bits(w->last.flags) == 0u) {
         snprintf(n->text[0], sizeof n->text[0], "So far: no limit exceeded");
         snprintf(n->text[1], sizeof n->text[1], " ");
     } else {
-        snprintf(n->text[0], sizeof n->text[0], "So far: over the %s", w->first.what);
-        snprintf(n->text[1], sizeof n->text[1], "at %.0f h (worst excess %.1f mmol/L)",
-                 w->first.hours, w->first.worst);
+        snprintf(n->text[0], sizeof n->text[0], "So far: over the %s",
+                 worst_words(&w->last, &w->limits.lim));
+        snprintf(n->text[1], sizeof n->text[1], "first at %.0f h; worst %.0f h, by %.1f mmol/L",
+                 w->first_over_h, w->last.worst_at_h, w->last.excess_mmol_l);
     }
     snprintf(n->text[2], sizeof n->text[2], "Now (%.0f h): %s", w->s[last].hours,
              w->over_now[last] ? "OVER a limit" : "within the limits");
     snprintf(n->text[3], sizeof n->text[3], "%s %.1f mmol/L in 24 h, %.1f in 48 h",
              raising ? "rise" : "fall", raising ? now.rise_24h : now.fall_24h,
              raising ? now.rise_48h : now.fall_48h);
-    for (i = 0; i < 4; ++i) n->lines[i] = n->text[i];
     snprintf(n->text[4], sizeof n->text[4], "(each result judged when taken)");
-    n->lines[4] = n->text[4];
+    for (i = 0; i < 5; ++i) n->lines[i] = n->text[i];
+}
+
+/* Copy a series into the chart's x and y arrays. */
+static void split(const ntr_sample *s, size_t n, double *hours, double *na)
+{
+    size_t i;
+    for (i = 0; i < n; ++i) {
+        hours[i] = s[i].hours;
+        na[i] = s[i].na_mmol_l;
+    }
+}
+
+static void sources_step(const char *title, const int *used, size_t n)
+{
+    struct ntr_method_info info;
+    size_t i;
+    heading(title);
+    for (i = 0; i < n; ++i) {
+        must(ntr_method_info(used[i], &info), "ntr_method_info");
+        printf("  %s (method %d)\n", info.name, used[i]);
+        print_wrapped(info.reference, 6, 78);
+    }
+}
+
+/* A plan's verdict from the direction-aware plan check. */
+static void report_plan(const char *label, const ntr_course_plan_result *r, double na0,
+                        double hours)
+{
+    const double change = r->final_na_mmol_l - na0;
+    printf("  %s\n    predicted sodium at %.0f h: %.1f mmol/L (%s %.1f mmol/L), body "
+           "water %.1f L\n", label, hours, r->final_na_mmol_l,
+           change >= 0.0 ? "rise" : "fall", change >= 0.0 ? change : -change,
+           r->final_tbw_l);
+    if (r->first_breach_direction == NTR_PLAN_BREACH_NONE) {
+        printf("    -> predicted to stay within the limits (largest %s %.1f mmol/L "
+               "in 24 h)\n", r->course.max_fall_24h > r->course.max_rise_24h ? "fall" : "rise",
+               r->course.max_fall_24h > r->course.max_rise_24h ? r->course.max_fall_24h
+                                                               : r->course.max_rise_24h);
+    } else {
+        const int fall = r->first_breach_direction == NTR_PLAN_BREACH_FALL;
+        const int w48 = r->first_breach_flag == NTR_CF_OVER_48H ||
+                        r->first_breach_flag == NTR_CF_FALL_OVER_48H;
+        printf("    -> predicted to BREACH the %s h %s limit from hour %.1f (largest "
+               "%s\n       %.1f mmol/L in 24 h)\n", w48 ? "48" : "24", fall ? "fall" : "rise",
+               r->first_breach_h, fall ? "fall" : "rise",
+               fall ? r->course.max_fall_24h : r->course.max_rise_24h);
+    }
 }
 
 /* ======================================================================= */
@@ -450,8 +539,7 @@ struct patient_a {
     double osm_calculated, osm_effective; /* effective: measured less urea */
     double tbw_fraction_l, tbw_watson_l;
     double furst;
-    ntr_limits lim10;
-    limits_view limits;
+    named_limits limits;
     /* Predicted courses of the plan, for the chart. */
     ntr_sample bolus_only[PLAN_POINTS], with_diuresis[PLAN_POINTS];
     size_t n_bolus_only, n_with_diuresis;
@@ -717,30 +805,35 @@ static void describe_risk(unsigned int drivers, unsigned int unknowns, int prese
     }
 }
 
+/* ntr_ods_risk() answers with a 1.0 preset; the course engine has the
+ * same limits under its own preset numbers. */
+static int course_preset_for(int limits_preset)
+{
+    return limits_preset == NTR_LIMITS_HIGH_RISK ? NTR_COURSE_HYPO_HIGH_RISK
+                                                 : NTR_COURSE_HYPO_STANDARD;
+}
+
 static void a_limits_step(struct patient_a *p)
 {
     int preset, what_if;
     unsigned int drivers, unknowns, d2, u2;
-    ntr_limits high;
+    ntr_course_limits high;
     heading("A7. Which correction limits apply?");
     /* Potassium 3.6 mmol/L is not low; the other risk factors were asked
      * about and are absent in this invented history. */
     must(ntr_ods_risk(p->si[PANEL_NA], NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO, NTR_TRI_NO,
                       &preset, &drivers, &unknowns), "ntr_ods_risk");
-    must(ntr_limits_preset(preset, &p->lim10), "ntr_limits_preset");
+    must(ntr_course_limits_preset(course_preset_for(preset), &p->limits.lim),
+         "ntr_course_limits_preset");
+    p->limits.name = preset == NTR_LIMITS_HIGH_RISK ? "high-risk" : "standard";
     describe_risk(drivers, unknowns, preset);
     printf("     a rise of at most %.0f mmol/L in any 24 h and %.0f in any 48 h.\n",
-           p->lim10.max_rise_24h, p->lim10.max_rise_48h);
-    p->limits.goal = NTR_GOAL_RAISE;
-    p->limits.rise_24h = p->lim10.max_rise_24h;
-    p->limits.rise_48h = p->lim10.max_rise_48h;
-    p->limits.fall_24h = 0.0;
-    p->limits.fall_48h = 0.0;
-    p->limits.name = preset == NTR_LIMITS_HIGH_RISK ? "high-risk" : "standard";
+           p->limits.lim.max_rise_24h, p->limits.lim.max_rise_48h);
     /* What the same call says had alcohol use not been asked about. */
     must(ntr_ods_risk(p->si[PANEL_NA], NTR_TRI_NO, NTR_TRI_UNKNOWN, NTR_TRI_NO,
                       NTR_TRI_NO, &what_if, &d2, &u2), "ntr_ods_risk");
-    must(ntr_limits_preset(what_if, &high), "ntr_limits_preset");
+    must(ntr_course_limits_preset(course_preset_for(what_if), &high),
+         "ntr_course_limits_preset");
     printf("  had alcohol use not been recorded, the answer would be:\n");
     describe_risk(d2, u2, what_if);
     printf("     a rise of at most %.0f mmol/L in any 24 h and %.0f in any 48 h.\n",
@@ -791,46 +884,33 @@ static size_t a_plan_flows(int with_diuresis, ntr_timed_flow flows[2])
     return with_diuresis ? 2u : 1u;
 }
 
-static void a_report_plan(const char *label, const ntr_plan_result *r, double na0)
-{
-    printf("  %s\n    predicted sodium at %.0f h: %.1f mmol/L (rise %.1f mmol/L), "
-           "body water %.1f L\n", label, PLAN_HOURS, r->final_na_mmol_l,
-           r->final_na_mmol_l - na0, r->final_tbw_l);
-    if (r->breach_24h_h == NTR_PLAN_NO_BREACH && r->breach_48h_h == NTR_PLAN_NO_BREACH) {
-        printf("    -> predicted to stay within the limits (largest 24 h rise "
-               "%.1f mmol/L)\n", r->course.max_rise_24h);
-    } else {
-        printf("    -> predicted to BREACH the 24 h rise limit from hour %.1f "
-               "(largest 24 h\n       rise %.1f mmol/L)\n", r->breach_24h_h,
-               r->course.max_rise_24h);
-    }
-}
-
 static void a_plan_step(struct patient_a *p)
 {
     const ntr_sample now = {0.0, p->si[PANEL_NA]};
     ntr_timed_flow flows[2];
-    ntr_plan_result alone, diuresis;
+    ntr_course_plan_result alone, diuresis;
     char label[160];
     size_t n;
     heading("A9. Checking the plan, with and without a water diuresis");
     n = a_plan_flows(0, flows);
-    must(ntr_plan_check(&now, 1, p->tbw_fraction_l, flows, n, PLAN_HOURS, PLAN_STEP_H,
-                        &p->lim10, &alone), "ntr_plan_check");
+    alone.struct_size = sizeof alone;
+    must(ntr_course_plan_check(&now, 1, p->tbw_fraction_l, flows, n, PLAN_HOURS,
+                               PLAN_STEP_H, &p->limits.lim, &alone), "ntr_course_plan_check");
     must(ntr_balance_course(now.na_mmol_l, p->tbw_fraction_l, flows, n, PLAN_HOURS,
                             PLAN_STEP_H, p->bolus_only, PLAN_POINTS, &p->n_bolus_only),
          "ntr_balance_course");
-    a_report_plan("boluses alone:", &alone, now.na_mmol_l);
+    report_plan("boluses alone:", &alone, now.na_mmol_l, PLAN_HOURS);
     n = a_plan_flows(1, flows);
-    must(ntr_plan_check(&now, 1, p->tbw_fraction_l, flows, n, PLAN_HOURS, PLAN_STEP_H,
-                        &p->lim10, &diuresis), "ntr_plan_check");
+    diuresis.struct_size = sizeof diuresis;
+    must(ntr_course_plan_check(&now, 1, p->tbw_fraction_l, flows, n, PLAN_HOURS,
+                               PLAN_STEP_H, &p->limits.lim, &diuresis), "ntr_course_plan_check");
     must(ntr_balance_course(now.na_mmol_l, p->tbw_fraction_l, flows, n, PLAN_HOURS,
                             PLAN_STEP_H, p->with_diuresis, PLAN_POINTS,
                             &p->n_with_diuresis), "ntr_balance_course");
     snprintf(label, sizeof label, "boluses, then from hour %.0f a water diuresis of "
              "%.0f mL/h (urine Na %.0f,\n  K %.0f mmol/L):", DIURESIS_START_H,
              DIURESIS_ML_H, DIURESIS_NA_MMOL_L, DIURESIS_K_MMOL_L);
-    a_report_plan(label, &diuresis, now.na_mmol_l);
+    report_plan(label, &diuresis, now.na_mmol_l, PLAN_HOURS);
     printf("  -> the prediction counts only the fluids listed, and measured rises "
            "after\n     hypertonic saline often exceed it: measure sodium after "
            "each bolus. A\n     diuresis like this needs sodium every few hours "
@@ -843,10 +923,10 @@ static void a_watch_step(struct patient_a *p)
     printf("  \"now\": each result against the %s limits (%.0f mmol/L in 24 h, "
            "%.0f in 48 h),\n  counted from the lowest result of the 24 h (48 h) "
            "before it. \"so far\": when\n  the course first went over a limit, "
-           "even if it is within now.\n", p->limits.name, p->limits.rise_24h,
-           p->limits.rise_48h);
-    watched_init(&p->series, a_measured, A_MEASURED_COUNT, &p->limits, &p->lim10);
-    watch_header(&p->limits);
+           "even if it is within now.\n", p->limits.name, p->limits.lim.max_rise_24h,
+           p->limits.lim.max_rise_48h);
+    watched_init(&p->series, a_measured, A_MEASURED_COUNT, &p->limits);
+    watch_header(&p->limits.lim);
     watch_rows(&p->series, 0, A_BEFORE_RELOWER);
     if (p->series.last.flags & NTR_CF_OVER_24H) {
         printf("  -> over-rapid correction: the rise in 24 h exceeds the limit by "
@@ -875,38 +955,10 @@ static void a_relower_step(const struct patient_a *p)
 
 static void a_rest_step(struct patient_a *p)
 {
-    ntr_correction batch;
-    change_now now;
-    const size_t last = A_MEASURED_COUNT - 1;
     heading("A12. The rest of the course, still watched");
-    watch_header(&p->limits);
+    watch_header(&p->limits.lim);
     watch_rows(&p->series, A_BEFORE_RELOWER, A_MEASURED_COUNT);
-    now = change_into(a_measured, last);
-    must(ntr_correction_assess(a_measured, A_MEASURED_COUNT, &p->lim10, &batch),
-         "ntr_correction_assess");
-    printf("  now (hour %.0f): a rise of %.1f mmol/L in the last 24 h and %.1f in "
-           "the last 48 h:\n  %s\n", a_measured[last].hours, now.rise_24h, now.rise_48h,
-           p->series.over_now[last] ? "OVER a limit" : "within the limits");
-    printf("  so far: largest rise %.1f mmol/L in any 24 h (limit %.0f: over at "
-           "%.0f h), %.1f in\n  any 48 h (limit %.0f)\n", batch.max_rise_24h,
-           p->limits.rise_24h, p->series.first.hours, batch.max_rise_48h,
-           p->limits.rise_48h);
-    printf("  the batch assessment %s the streaming watcher.\n",
-           batch.flags == p->series.last.flags &&
-                   batch.max_rise_24h == p->series.last.max_rise_24h &&
-                   batch.max_rise_48h == p->series.last.max_rise_48h
-               ? "agrees with"
-               : "DISAGREES with");
-}
-
-/* Copy a series into the chart's x and y arrays. */
-static void split(const ntr_sample *s, size_t n, double *hours, double *na)
-{
-    size_t i;
-    for (i = 0; i < n; ++i) {
-        hours[i] = s[i].hours;
-        na[i] = s[i].na_mmol_l;
-    }
+    watch_summary(&p->series);
 }
 
 static void a_chart_step(struct patient_a *p, const char *path)
@@ -923,7 +975,7 @@ static void a_chart_step(struct patient_a *p, const char *path)
     split(a_measured, A_MEASURED_COUNT, m_hours, m_na);
     split(p->bolus_only, p->n_bolus_only, a_hours, a_na);
     split(p->with_diuresis, p->n_with_diuresis, d_hours, d_na);
-    band_over(a_measured, A_MEASURED_COUNT, &p->limits, 48.0, &band);
+    band_over(a_measured, A_MEASURED_COUNT, &p->limits.lim, 48.0, &band);
     lines[0].label = "Predicted: boluses alone";
     lines[0].colour = "#7a7a7a";
     lines[0].hours = a_hours;
@@ -937,7 +989,8 @@ static void a_chart_step(struct patient_a *p, const char *path)
 
     snprintf(subtitle, sizeof subtitle, "Band: from the lowest result of the past "
              "24 h up to %.0f mmol/L above it (%.0f above the lowest of 48 h); %s "
-             "limits", p->limits.rise_24h, p->limits.rise_48h, p->limits.name);
+             "limits", p->limits.lim.max_rise_24h, p->limits.lim.max_rise_48h,
+             p->limits.name);
     c.title = "Patient A (invented): serum sodium, plan, limits and results";
     c.subtitle = subtitle;
     c.caption = "Invented patient. Estimates for decision support, not orders: "
@@ -973,23 +1026,13 @@ static void a_chart_step(struct patient_a *p, const char *path)
            "limit when it\n  was taken, as in the \"now\" column.\n");
 }
 
-static void sources_step(const char *title, const int *used, size_t n)
-{
-    struct ntr_method_info info;
-    size_t i;
-    heading(title);
-    for (i = 0; i < n; ++i) {
-        must(ntr_method_info(used[i], &info), "ntr_method_info");
-        printf("  %s (method %d)\n", info.name, used[i]);
-        print_wrapped(info.reference, 6, 78);
-    }
-}
-
 static void patient_a(const char *chart_path)
 {
-    static const int used[] = {NTR_METHOD_TBW_WATSON, NTR_METHOD_SIAD_CRITERIA,
+    static const int used[] = {NTR_METHOD_EFFECTIVE_OSM_MEASURED, NTR_METHOD_TBW_WATSON,
+                               NTR_METHOD_SIAD_CRITERIA,
                                NTR_METHOD_FURST, NTR_METHOD_BALANCE_COURSE,
-                               NTR_METHOD_CORRECTION_WINDOWS, NTR_METHOD_RELOWER};
+                               NTR_METHOD_PLAN_CHECK, NTR_METHOD_COURSE_WINDOWS,
+                               NTR_METHOD_RELOWER};
     static struct patient_a p; /* static: the predicted courses are sizeable */
     a_introduce();
     a_panel_step(&p);
@@ -1007,6 +1050,267 @@ static void patient_a(const char *chart_path)
     a_chart_step(&p, chart_path);
     sources_step("A14. Where the main numbers come from", used,
                  sizeof used / sizeof used[0]);
+    caution();
+}
+
+/* ======================================================================= */
+/* Patient B: a high sodium, lowered                                        */
+/* ======================================================================= */
+
+#define B_SEX NTR_SEX_MALE
+#define B_AGE_YEARS 79.0
+#define B_HEIGHT_CM 172.0
+#define B_WEIGHT_KG 70.0
+#define B_NA_MMOL_L 162.0
+#define B_K_MMOL_L 4.1
+#define B_GLUCOSE_MMOL_L 7.2
+#define B_UREA_MMOL_L 16.0
+#define B_CREATININE_UMOL_L 130.0
+#define B_MEASURED_OSM_MOSM_KG 350.0
+
+/* Urine expected while the water is given (concentrated, little of it). */
+#define B_URINE_ML_H 50.0
+#define B_URINE_NA_MMOL_L 40.0
+#define B_URINE_K_MMOL_L 30.0
+#define B_PLAN_STEP_H 0.5
+#define B_PLAN_POINTS 97 /* 48 h / 0.5 h + 1 */
+#define B_FAST_HOURS 24.0
+#define B_SLOW_HOURS 48.0
+
+/* The invented measured series: the 48 h plan was started; by 16 h the
+ * sodium had fallen faster than predicted and the infusion was slowed. */
+static const ntr_sample b_measured[] = {
+    {0.0, 162.0},  {4.0, 158.5},  {8.0, 155.0},  {12.0, 152.0}, {16.0, 150.5},
+    {20.0, 150.5}, {24.0, 150.0}, {30.0, 149.0}, {36.0, 147.5}, {42.0, 146.0},
+    {48.0, 144.5}, {60.0, 142.0}, {72.0, 140.0},
+};
+#define B_MEASURED_COUNT (sizeof b_measured / sizeof b_measured[0])
+#define B_BEFORE_SLOWING 5
+
+struct patient_b {
+    double effective_osm, tbw_fraction_l, tbw_watson_l, deficit_l;
+    named_limits limits;
+    ntr_sample fast[B_PLAN_POINTS], slow[B_PLAN_POINTS];
+    size_t n_fast, n_slow;
+    watched series;
+};
+
+static void b_introduce(void)
+{
+    printf("\n######## Patient B: a high sodium, lowered ########\n\n");
+    printf("Patient B (invented): man, %.0f years, %.0f cm, %.0f kg; from a care "
+           "home, drowsy,\ndrinking little for a week; how long the sodium has been "
+           "high is not known.\n", B_AGE_YEARS, B_HEIGHT_CM, B_WEIGHT_KG);
+}
+
+static void b_panel_step(struct patient_b *p)
+{
+    int tonicity;
+    heading("B1. Laboratory panel and tonicity");
+    printf("  sodium %.0f mmol/L, potassium %.1f mmol/L, glucose %.1f mmol/L, urea "
+           "%.1f mmol/L,\n  creatinine %.0f umol/L; measured osmolality %.0f mOsm/kg\n",
+           B_NA_MMOL_L, B_K_MMOL_L, B_GLUCOSE_MMOL_L, B_UREA_MMOL_L, B_CREATININE_UMOL_L,
+           B_MEASURED_OSM_MOSM_KG);
+    must(ntr_effective_osm_measured(B_NA_MMOL_L, B_GLUCOSE_MMOL_L, B_UREA_MMOL_L, 0.0,
+                                    B_MEASURED_OSM_MOSM_KG, &p->effective_osm),
+         "ntr_effective_osm_measured");
+    must(ntr_tonicity_class(p->effective_osm, &tonicity), "ntr_tonicity_class");
+    printf("  effective osmolality   measured - urea          %6.1f mOsm/kg\n",
+           p->effective_osm);
+    printf("  -> %s: the cells have lost water to the high sodium.\n",
+           tonicity == NTR_TONICITY_HYPERTONIC ? "hypertonic (above 295 mOsm/kg)"
+                                               : "not hypertonic: recheck the panel");
+}
+
+static void b_water_step(struct patient_b *p)
+{
+    heading("B2. Body water and the water deficit");
+    must(ntr_tbw_fraction(B_SEX, B_AGE_YEARS, B_WEIGHT_KG, &p->tbw_fraction_l),
+         "ntr_tbw_fraction");
+    must(ntr_tbw_watson(B_SEX, B_AGE_YEARS, B_HEIGHT_CM, B_WEIGHT_KG, &p->tbw_watson_l),
+         "ntr_tbw_watson");
+    must(ntr_free_water_deficit(p->tbw_fraction_l, B_NA_MMOL_L, &p->deficit_l),
+         "ntr_free_water_deficit");
+    printf("  fraction of weight (0.5 for a man of 65 or more):   %5.1f L\n",
+           p->tbw_fraction_l);
+    printf("  Watson anthropometric equation:                     %5.1f L\n",
+           p->tbw_watson_l);
+    printf("  water deficit  TBW x (Na / 140 - 1) = %.1f x (%.0f / 140 - 1) = %.1f L\n",
+           p->tbw_fraction_l, B_NA_MMOL_L, p->deficit_l);
+    printf("  -> the smaller body water predicts the larger fall; the deficit "
+           "counts no\n     ongoing losses (urine, skin, breath), which come on "
+           "top.\n");
+}
+
+static void b_limits_step(struct patient_b *p)
+{
+    heading("B3. Which limits apply?");
+    must(ntr_course_limits_preset(NTR_COURSE_HYPER_CHRONIC, &p->limits.lim),
+         "ntr_course_limits_preset");
+    p->limits.name = "chronic high sodium";
+    printf("  duration not known, so treated as chronic: the limits for lowering a "
+           "chronic\n  high sodium, a fall of at most %.0f mmol/L in any 24 h",
+           p->limits.lim.max_fall_24h);
+    if (p->limits.lim.max_fall_48h > 0.0) {
+        printf(" and %.0f in any 48 h", p->limits.lim.max_fall_48h);
+    }
+    printf(".\n  (A sodium known to have risen within hours may be lowered faster; "
+           "the library\n  has limits for that case too.)\n");
+}
+
+/* Replace the deficit with 5% dextrose over the hours given, while the
+ * expected urine runs. */
+static size_t b_plan_flows(const struct patient_b *p, double hours, ntr_timed_flow flows[2])
+{
+    const ntr_timed_flow urine = {0.0, 0.0, -B_URINE_ML_H, B_URINE_NA_MMOL_L,
+                                  B_URINE_K_MMOL_L, {0u, 0u}};
+    ntr_timed_flow water = {0.0, 0.0, 0.0, 0.0, 0.0, {0u, 0u}};
+    must(ntr_fluid_preset(NTR_FLUID_DEXTROSE_5, &water.na_mmol_l, &water.k_mmol_l),
+         "ntr_fluid_preset");
+    water.end_h = hours;
+    water.rate_ml_h = p->deficit_l * 1000.0 / hours;
+    flows[0] = water;
+    flows[1] = urine;
+    flows[1].end_h = hours;
+    return 2u;
+}
+
+static void b_check_plan(struct patient_b *p, double hours, ntr_sample *course,
+                         size_t *n_course)
+{
+    const ntr_sample now = {0.0, B_NA_MMOL_L};
+    ntr_timed_flow flows[2];
+    ntr_course_plan_result r;
+    char label[200];
+    const size_t n = b_plan_flows(p, hours, flows);
+    r.struct_size = sizeof r;
+    must(ntr_course_plan_check(&now, 1, p->tbw_fraction_l, flows, n, hours, B_PLAN_STEP_H,
+                               &p->limits.lim, &r), "ntr_course_plan_check");
+    must(ntr_balance_course(now.na_mmol_l, p->tbw_fraction_l, flows, n, hours,
+                            B_PLAN_STEP_H, course, B_PLAN_POINTS, n_course),
+         "ntr_balance_course");
+    snprintf(label, sizeof label, "the deficit over %.0f h: 5%% dextrose %.0f mL/h, "
+             "urine %.0f mL/h (Na %.0f, K %.0f mmol/L):", hours, flows[0].rate_ml_h,
+             B_URINE_ML_H, B_URINE_NA_MMOL_L, B_URINE_K_MMOL_L);
+    report_plan(label, &r, now.na_mmol_l, hours);
+}
+
+static void b_plan_step(struct patient_b *p)
+{
+    heading("B4. Checking two water plans against the fall limit");
+    b_check_plan(p, B_FAST_HOURS, p->fast, &p->n_fast);
+    b_check_plan(p, B_SLOW_HOURS, p->slow, &p->n_slow);
+    printf("  -> the prediction counts only the fluids listed; water by mouth or "
+           "less urine\n     than expected makes the fall faster: measure sodium "
+           "every few hours.\n");
+}
+
+static void b_watch_step(struct patient_b *p)
+{
+    heading("B5. Watching the measured series (the 48 h plan was started)");
+    printf("  \"now\": each result against the %s limit (a fall of %.0f\n"
+           "  mmol/L in 24 h), counted from the highest result of the 24 h (48 h) "
+           "before it.\n  \"so far\": when the course first went over a limit, "
+           "even if it is within now.\n", p->limits.name, p->limits.lim.max_fall_24h);
+    watched_init(&p->series, b_measured, B_MEASURED_COUNT, &p->limits);
+    watch_header(&p->limits.lim);
+    watch_rows(&p->series, 0, B_BEFORE_SLOWING);
+    if (p->series.last.flags & NTR_CF_FALL_OVER_24H) {
+        printf("  -> too fast a fall: %.1f mmol/L in 24 h, over the limit by %.1f "
+               "mmol/L. The\n     measured fall ran ahead of the prediction; the "
+               "5%% dextrose is slowed.\n", p->series.last.max_fall_24h,
+               p->series.last.excess_mmol_l);
+    }
+}
+
+static void b_rest_step(struct patient_b *p)
+{
+    heading("B6. The rest of the course, still watched");
+    watch_header(&p->limits.lim);
+    watch_rows(&p->series, B_BEFORE_SLOWING, B_MEASURED_COUNT);
+    watch_summary(&p->series);
+}
+
+static void b_chart_step(struct patient_b *p, const char *path)
+{
+    static band_points band;
+    double m_hours[B_MEASURED_COUNT], m_na[B_MEASURED_COUNT];
+    static double f_hours[B_PLAN_POINTS], f_na[B_PLAN_POINTS];
+    static double s_hours[B_PLAN_POINTS], s_na[B_PLAN_POINTS];
+    chart_line lines[2];
+    char subtitle[200];
+    chart_notes notes;
+    chart c;
+
+    heading("B7. Chart");
+    split(b_measured, B_MEASURED_COUNT, m_hours, m_na);
+    split(p->fast, p->n_fast, f_hours, f_na);
+    split(p->slow, p->n_slow, s_hours, s_na);
+    band_over(b_measured, B_MEASURED_COUNT, &p->limits.lim, 72.0, &band);
+    lines[0].label = "Predicted: deficit in 24 h";
+    lines[0].colour = "#d4780a";
+    lines[0].hours = f_hours;
+    lines[0].na_mmol_l = f_na;
+    lines[0].n = p->n_fast;
+    lines[1].label = "Predicted: deficit in 48 h";
+    lines[1].colour = "#7a7a7a";
+    lines[1].hours = s_hours;
+    lines[1].na_mmol_l = s_na;
+    lines[1].n = p->n_slow;
+    snprintf(subtitle, sizeof subtitle, "Band: from the highest result of the past "
+             "24 h down to %.0f mmol/L below it; limits for a chronic high sodium",
+             p->limits.lim.max_fall_24h);
+    c.title = "Patient B (invented): serum sodium, water plans, fall limit and results";
+    c.subtitle = subtitle;
+    c.caption = "Invented patient. Estimates for decision support, not orders: "
+                "verify with measured values; follow local protocols and licensed "
+                "clinical judgement.";
+    c.hours_max = 72.0;
+    c.na_min = 135.0;
+    c.na_max = 165.0;
+    c.band.label = "Fall allowed now";
+    c.band.hours = band.hours;
+    c.band.low_mmol_l = band.low;
+    c.band.high_mmol_l = band.high;
+    c.band.n = band.n;
+    c.lines = lines;
+    c.n_lines = 2;
+    c.points.label = "Measured, within the limits";
+    c.points.flagged_label = "Measured, over a limit";
+    c.points.hours = m_hours;
+    c.points.na_mmol_l = m_na;
+    c.points.flagged = p->series.over_now;
+    c.points.n = B_MEASURED_COUNT;
+    notes_for(&p->series, &notes);
+    c.notes = notes.lines;
+    c.n_notes = 5;
+    if (chart_save_svg(path, &c) != 0) {
+        fprintf(stderr, "natremia-demo: could not write %s\n", path);
+        exit(1);
+    }
+    printf("  measured sodium, both predicted courses and the fall the limit "
+           "allows at each\n  moment written to ");
+    print_full_path(path);
+    printf("\n  (open it in any web browser); a diamond marks a result over the "
+           "limit when it\n  was taken, as in the \"now\" column.\n");
+}
+
+static void patient_b(const char *chart_path)
+{
+    static const int used[] = {NTR_METHOD_EFFECTIVE_OSM_MEASURED, NTR_METHOD_TBW_FRACTION,
+                               NTR_METHOD_FREE_WATER_DEFICIT,
+                               NTR_METHOD_COURSE_HYPER_CHRONIC, NTR_METHOD_PLAN_CHECK,
+                               NTR_METHOD_COURSE_WINDOWS};
+    static struct patient_b p;
+    b_introduce();
+    b_panel_step(&p);
+    b_water_step(&p);
+    b_limits_step(&p);
+    b_plan_step(&p);
+    b_watch_step(&p);
+    b_rest_step(&p);
+    b_chart_step(&p, chart_path);
+    sources_step("B8. Where the main numbers come from", used, sizeof used / sizeof used[0]);
     caution();
 }
 
@@ -1045,5 +1349,6 @@ int main(int argc, char **argv)
            "demo.\n");
     caution();
     patient_a(chart_a);
+    patient_b(second);
     return 0;
 }

@@ -257,15 +257,56 @@ check_demo_text() {
     # urine at Na + K 120 mmol/L, nearly the target's 122, which changes
     # the volume by only a few mL: hence the 10 mL tolerance.
     expect_near "$out" '5% dextrose' 749 10 "demo re-lowering volume"
-    expect_text "$out" 'agrees with the streaming watcher' "demo batch and streaming assessments agree"
+    expect_text "$out" 'so far: over a limit from 16 h; the worst window, over the 24 h rise limit' "demo: patient A so far, over from 16 h"
+    if [[ $(grep -c 'agrees with the streaming watcher' "$out") -eq 2 ]]; then ok "demo batch and streaming assessments agree for both patients"
+    else fail "demo: batch and streaming assessments do not agree for both patients"; fi
+
+    # ---- patient B: high sodium, lowered ----
+    # Source: Oster & Singer 1999; Milionis et al. 2002 (effective = measured
+    # less urea): 350 - 16 = 334.0 mOsm/kg, above 295: hypertonic.
+    expect_text "$out" 'effective osmolality +measured - urea +334\.0 mOsm/kg' "demo patient B effective osmolality 334.0"
+    expect_text "$out" 'hypertonic \(above 295 mOsm/kg\)' "demo patient B is hypertonic"
+    # Source: Adrogue & Madias 2000 (from memory): 0.5 * 70 kg for a man
+    # over 65 = 35.0 L. Water deficit, the textbook formula (Adrogue &
+    # Madias, Hypernatremia, N Engl J Med 2000): 35 * (162/140 - 1) = 5.5 L.
+    expect_near "$out" 'fraction of weight \(0\.5 for a man' 35.0 0.05 "demo patient B body water"
+    expect_near "$out" 'water deficit  TBW' 5.5 0.05 "demo patient B water deficit"
+    # Limits: Adrogue & Madias, Hypernatremia, N Engl J Med 2000: chronic
+    # or unknown duration, a fall of at most 10 mmol/L a day.
+    expect_text "$out" 'a fall of at most 10 mmol/L in any 24 h' "demo patient B fall limit"
+    # Hand-worked mass balance, the deficit over 24 h: 5.5 L / 24 h = 229
+    # mL/h of 5% dextrose, urine 50 mL/h at Na + K 70: at 24 h
+    # (162*35 - 1.2*70) / (35 + 5.5 - 1.2) = 142.1 mmol/L; the fall first
+    # exceeds 10 when (5670 - 3.5 t) / (35 + 0.1792 t) < 152, t > 11.39 h:
+    # the first 0.5 h point is 11.5 h.
+    expect_text "$out" 'the deficit over 24 h: 5% dextrose 229 mL/h' "demo patient B 24 h plan rate"
+    expect_text "$out" 'predicted sodium at 24 h: 142\.1 mmol/L \(fall 19\.9 mmol/L\)' "demo patient B 24 h plan: 142.1 at 24 h, a fall of 19.9"
+    expect_text "$out" 'predicted to BREACH the 24 h fall limit from hour 11\.5' "demo patient B: the 24 h water plan breaches the fall limit at 11.5 h"
+    # The deficit over 48 h, 115 mL/h: at 24 h (5670 - 84) / 36.55 = 152.8
+    # (a fall of 9.2, within); at 48 h (5670 - 168) / 38.1 = 144.4.
+    expect_near "$out" 'predicted sodium at 48 h' 144.4 0.05 "demo patient B 48 h plan, sodium at 48 h"
+    expect_text "$out" 'predicted to stay within the limits \(largest fall 9\.2 mmol/L in 24 h\)' "demo patient B: the 48 h water plan stays within"
+    # The measured fall (limit 10 in 24 h, Adrogue & Madias 2000), hand-worked:
+    # 162 -> 152 at 12 h is exactly 10 (at the limit, not over); 150.5 at
+    # 16 h is 11.5, over; at 30 h the highest of the past 24 h is 155 (8 h),
+    # a fall of 6.0: within now, over so far.
+    expect_text "$out" '^ +12\.0 +152\.0 +10\.0 +10\.0 +-0\.75 +within, near a limit +none$' "demo patient B: 10 in 12 h is at the limit, not over"
+    expect_text "$out" '^ +16\.0 +150\.5 +11\.5 +11\.5 +-0\.38 +OVER 24 h fall limit +over at 16 h$' "demo patient B: the too-fast fall flagged at 16 h"
+    expect_text "$out" '^ +30\.0 +149\.0 +6\.0 +13\.0 +-0\.17 +within the limits +over at 16 h$' "demo patient B: at 30 h within now, over so far"
+    expect_text "$out" 'still over: the 162\.0 mmol/L of hour 0 is within the last 24 h' "demo patient B says why 20 h is still over"
+    expect_text "$out" 'too fast a fall: 11\.5 mmol/L in 24 h, over the limit by 1\.5' "demo patient B too-fast fall message"
+    expect_text "$out" 'over the 24 h fall limit$' "demo patient B so far names the fall limit"
+    expect_text "$out" 'by 2\.0 mmol/L, ends at 24 h' "demo patient B worst window: 162 -> 150 by 24 h, 2.0 over"
+    expect_text "$out" 'Patient B \(invented\)' "demo says patient B is invented"
     # Provenance through ntr_method_info: Watson's paper is the source of
     # the anthropometric body water (Watson, Watson & Batt, Am J Clin Nutr 1980).
     expect_text "$out" 'Watson PE, Watson ID, Batt RD' "demo names the source of the Watson equations"
     if [[ $(grep -c 'Caution: every figure here is an estimate for decision support, not an' "$out") -ge 3 ]]; then
         ok "demo shows the caution at the start and after each patient"
     else fail "demo shows the caution fewer than 3 times"; fi
-    if [[ -s "$work/natremia-demo.svg" ]]; then ok "demo writes natremia-demo.svg by default"
-    else fail "demo wrote no natremia-demo.svg in its working directory"; fi
+    if [[ -s "$work/natremia-demo.svg" && -s "$work/natremia-demo-high-sodium.svg" ]]; then
+        ok "demo writes natremia-demo.svg and natremia-demo-high-sodium.svg by default"
+    else fail "demo wrote not both default charts in its working directory"; fi
 }
 
 # The PNG's width and height from its IHDR chunk (bytes 16-23, big-endian).
@@ -282,7 +323,7 @@ check_chart() {
         echo "SKIP: rsvg-convert not found (apt-get install librsvg2-bin)"
         exit 77
     fi
-    "$bin/natremia-demo" "$svg" > "$work/demo.txt" 2>&1 || { fail "natremia-demo $svg failed"; return; }
+    "$bin/natremia-demo" "$svg" "$work/chart2.svg" > "$work/demo.txt" 2>&1 || { fail "natremia-demo $svg failed"; return; }
     if [[ -s "$svg" ]]; then ok "demo writes the chart to the path given"
     else fail "demo wrote nothing to $svg"; return; fi
     expect_text "$svg" '<svg ' "chart is an SVG document"
@@ -302,16 +343,33 @@ check_chart() {
     else fail "chart draws $dots dots and $diamonds diamonds, expected 12 and 2 with the legend"; fi
     # The chart says what the table's last row says.
     expect_text "$svg" '>So far: over the 24 h rise limit<' "chart: so far, over the 24 h rise limit"
-    expect_text "$svg" '>at 16 h \(worst excess 1\.5 mmol/L\)<' "chart: the breach at 16 h, by 1.5"
+    expect_text "$svg" '>first at 16 h; worst 16 h, by 1\.5 mmol/L<' "chart: the breach at 16 h, by 1.5"
     expect_text "$svg" '>Now \(48 h\): within the limits<' "chart: now within the limits"
-    if rsvg-convert -f png -o "$png" "$svg" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders the chart"
-    else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; return; fi
-    if size=$(png_size "$png"); then
-        if [[ "$size" == "960 560" ]]; then ok "chart PNG is valid, 960 x 560 pixels"
-        else fail "chart PNG is $size pixels, expected 960 560"; fi
-    else
-        fail "rsvg-convert output is not a PNG"
-    fi
+    # Patient B (Adrogue & Madias 2000, a fall of at most 10 in 24 h): 13
+    # results, over now at 16 h (11.5), 20 h (11.5) and 24 h (12.0): 10
+    # dots and 3 diamonds, plus one of each in the legend.
+    local svg2=$work/chart2.svg png2=$work/chart2.png
+    if [[ -s "$svg2" ]]; then ok "demo writes the second chart to the second path"
+    else fail "demo wrote nothing to $svg2"; return; fi
+    dots=$(grep -c '<circle ' "$svg2" || true)
+    diamonds=$(grep -c '<polygon fill="#c0392b"' "$svg2" || true)
+    if [[ "$dots" == 11 && "$diamonds" == 4 ]]; then ok "chart B draws 10 measured dots and 3 flagged diamonds (plus legend)"
+    else fail "chart B draws $dots dots and $diamonds diamonds, expected 11 and 4 with the legend"; fi
+    expect_text "$svg2" 'fall limit' "chart B names the fall limit"
+    expect_text "$svg2" '>So far: over the 24 h fall limit<' "chart B: so far, over the 24 h fall limit"
+    expect_text "$svg2" '>Now \(72 h\): within the limits<' "chart B: now within the limits"
+    expect_text "$svg2" 'not orders.*licensed clinical judgement' "chart B carries the caution"
+    expect_text "$svg2" 'Invented patient' "chart B says the patient is invented"
+    for pair in "$svg:$png" "$svg2:$png2"; do
+        if rsvg-convert -f png -o "${pair#*:}" "${pair%%:*}" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders $(basename "${pair%%:*}")"
+        else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; continue; fi
+        if size=$(png_size "${pair#*:}"); then
+            if [[ "$size" == "960 560" ]]; then ok "$(basename "${pair#*:}") is a valid PNG, 960 x 560 pixels"
+            else fail "$(basename "${pair#*:}") is $size pixels, expected 960 560"; fi
+        else
+            fail "rsvg-convert output is not a PNG"
+        fi
+    done
 }
 
 case $mode in
