@@ -869,39 +869,282 @@ int ntr_course_assess(const ntr_sample *s, size_t n, const ntr_course_limits *li
     return NTR_OK;
 }
 
-/* ---- streaming watcher --------------------------------------------------- */
+/* ---- streaming watchers ---------------------------------------------------- */
 
 /*
- * The ring holds a monotonic deque: the samples of the last 48 h that are
- * lower than every sample after them, oldest first, so sodium strictly
- * increases along it. The lowest sodium of any window ending at the last
- * sample is the first ring entry inside that window; front24 and front6
- * remember where the 24 h and 6 h windows begin. A sample that is not in
- * the ring was pushed out by a later, lower (or equal) one, which lies in
- * every window the first one lies in, so no minimum is lost.
+ * Both watchers (1.0 ntr_watch, rises only; 1.1 ntr_course_watch, both
+ * directions) share one ring engine. A ring holds a monotonic deque: the
+ * samples of the last 48 h that are lower than every sample after them,
+ * oldest first, so sodium strictly increases along it. The lowest sodium
+ * of any window ending at the last sample is the first ring entry inside
+ * that window; front24 and front6 remember where the 24 h and 6 h windows
+ * begin. A sample that is not in the ring was pushed out by a later, lower
+ * (or equal) one, which lies in every window the first one lies in, so no
+ * minimum is lost. The course watcher's second ring holds the mirror image
+ * (sodium negated), whose minima are the series' maxima: its falls.
  */
 
-static const ntr_sample *ring_at(const ntr_watch *w, unsigned int k)
+/* Where a ring's entries are, in whichever state holds them. */
+struct ring_pos {
+    unsigned int cap;
+    unsigned int head;
+    unsigned int kept;
+    unsigned int front24;
+    unsigned int front6;
+};
+
+static const ntr_sample *ring_get(const ntr_sample *e, const struct ring_pos *p,
+                                  unsigned int k)
 {
-    return &w->ring[(w->head + k) % NTR_WATCH_CAPACITY];
+    return &e[(p->head + k) % p->cap];
 }
 
-/* Cheap structural checks, so a damaged or uninitialised state can never
- * make an index leave the ring. */
+/* Structural checks, so a damaged state can never make an index leave the
+ * ring. */
+static int ring_shape_sound(const struct ring_pos *p, unsigned int seen)
+{
+    if (p->head >= p->cap || p->kept > p->cap || (seen == 0u) != (p->kept == 0u)) {
+        return 0;
+    }
+    return p->kept == 0u ||
+           (p->front24 < p->kept && p->front6 < p->kept && p->front6 >= p->front24);
+}
+
+/* A stored time, or a stored sodium read in direction `sign` (+1 the
+ * series, -1 its mirror image): finite and inside the accepted ranges
+ * (each comparison fails for NaN). */
+static int time_sound(double hours)
+{
+    return hours >= -NTR_HOURS_MAX && hours <= NTR_HOURS_MAX;
+}
+
+static int na_sound(double na, double sign)
+{
+    const double v = sign * na;
+    return v >= NTR_NA_MIN && v <= NTR_NA_MAX;
+}
+
+static int sample_sound(ntr_sample s, double sign)
+{
+    return time_sound(s.hours) && na_sound(s.na_mmol_l, sign);
+}
+
+/* A stored change: 0 up to the widest the sodium range allows. */
+static int change_sound(double x)
+{
+    return x >= 0.0 && x <= NTR_NA_MAX - NTR_NA_MIN;
+}
+
+static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, double sign)
+{
+    unsigned int k;
+    for (k = 0u; k < p->kept; k++) {
+        if (!sample_sound(*ring_get(e, p, k), sign)) {
+            return 0;
+        }
+    }
+    return 1;
+}
+
+/* How many entries a new sample pushes out: from the front, those no
+ * longer within 48 h; from the back, those not lower than it. */
+static void ring_drops(const ntr_sample *e, const struct ring_pos *p, ntr_sample s,
+                       unsigned int *drop_front, unsigned int *drop_back)
+{
+    unsigned int f = 0u;
+    unsigned int b = 0u;
+    while (f < p->kept && !within(ring_get(e, p, f)->hours, s.hours, WINDOW_48H)) {
+        f++;
+    }
+    while (f + b < p->kept && ring_get(e, p, p->kept - 1u - b)->na_mmol_l >= s.na_mmol_l) {
+        b++;
+    }
+    *drop_front = f;
+    *drop_back = b;
+}
+
+static unsigned int front_after(unsigned int front, unsigned int dropped)
+{
+    return front >= dropped ? front - dropped : 0u;
+}
+
+/* Entries before a front were already outside its window; if the front
+ * itself was pushed out, the next sample is the first inside. */
+static void ring_drop(struct ring_pos *p, unsigned int drop_front, unsigned int drop_back)
+{
+    p->head = (p->head + drop_front) % p->cap;
+    p->front24 = front_after(p->front24, drop_front);
+    p->front6 = front_after(p->front6, drop_front);
+    p->kept -= drop_front + drop_back;
+    if (p->front24 > p->kept) {
+        p->front24 = p->kept;
+    }
+    if (p->front6 > p->kept) {
+        p->front6 = p->kept;
+    }
+}
+
+/*
+ * Makes room for one entry (kept >= 2): merges an adjacent pair into one
+ * entry with the later time and the lower sodium. A window that holds the
+ * later time then sees a minimum no higher than its true one (the true
+ * minimum lies at or after the merged pair's first entry, and the ring
+ * increases), so no rise is under-reported. An entry stands for a group of
+ * original samples; span[] holds, per entry, its highest original sodium
+ * minus its stored one: the most it can over-report by. The pair merged is
+ * the one whose merged span is smallest (spans are float: they only choose
+ * the pair, never enter a result). Fronts keep pointing at the first entry
+ * inside their window.
+ */
+static void ring_compact(ntr_sample *e, float *span, struct ring_pos *p)
+{
+    unsigned int best = 0u;
+    double best_span = HUGE_VAL;
+    unsigned int k;
+    for (k = 0u; k + 1u < p->kept; k++) {
+        const unsigned int b = (p->head + k + 1u) % p->cap;
+        double merged = e[b].na_mmol_l + (double)span[b] - ring_get(e, p, k)->na_mmol_l;
+        if (merged < best_span) {
+            best_span = merged;
+            best = k;
+        }
+    }
+    e[(p->head + best) % p->cap].hours = ring_get(e, p, best + 1u)->hours;
+    span[(p->head + best) % p->cap] = (float)best_span;
+    for (k = best + 1u; k + 1u < p->kept; k++) {
+        const unsigned int to = (p->head + k) % p->cap;
+        const unsigned int from = (p->head + k + 1u) % p->cap;
+        e[to] = e[from];
+        span[to] = span[from];
+    }
+    p->kept--;
+    if (p->front24 > best) {
+        p->front24--;
+    }
+    if (p->front6 > best) {
+        p->front6--;
+    }
+}
+
+/* Appends the sample (room made) and moves the fronts to the first entry
+ * inside each window ending at it. */
+static void ring_insert(ntr_sample *e, struct ring_pos *p, ntr_sample s)
+{
+    e[(p->head + p->kept) % p->cap] = s;
+    p->kept++;
+    while (!within(ring_get(e, p, p->front24)->hours, s.hours, WINDOW_24H)) {
+        p->front24++;
+    }
+    if (p->front6 < p->front24) {
+        p->front6 = p->front24;
+    }
+    while (!within(ring_get(e, p, p->front6)->hours, s.hours, WINDOW_6H)) {
+        p->front6++;
+    }
+}
+
+/* The largest rises so far, with the window ending at the new sample s
+ * (already inserted). Strictly larger only: the time kept is that of the
+ * earliest sample reaching the maximum, as the batch engine keeps. */
+static void ring_track(const ntr_sample *e, const struct ring_pos *p, ntr_sample s,
+                       double *max_24h, double *max_48h, double *at_24h, double *at_48h)
+{
+    double open = s.na_mmol_l - ring_get(e, p, 0u)->na_mmol_l;
+    if (open > *max_48h) {
+        *max_48h = open;
+        *at_48h = s.hours;
+    }
+    open = s.na_mmol_l - ring_get(e, p, p->front24)->na_mmol_l;
+    if (open > *max_24h) {
+        *max_24h = open;
+        *at_24h = s.hours;
+    }
+}
+
+/* The windows ending at the last sample and at the projected next one,
+ * read from a ring (the last sample and prev in the ring's direction). */
+static void ring_direction(const ntr_sample *e, const struct ring_pos *p, int has_prev,
+                           ntr_sample prev, ntr_sample last, struct direction *d)
+{
+    d->open_48h = last.na_mmol_l - ring_get(e, p, 0u)->na_mmol_l;
+    d->open_24h = last.na_mmol_l - ring_get(e, p, p->front24)->na_mmol_l;
+    d->open_6h = last.na_mmol_l - ring_get(e, p, p->front6)->na_mmol_l;
+    d->moving = has_interval(has_prev, prev, last) && last.na_mmol_l > prev.na_mmol_l;
+    d->projected_24h = 0.0;
+    d->projected_48h = 0.0;
+    if (d->moving) {
+        const ntr_sample next = projected_next(prev, last);
+        unsigned int k;
+        /* The first entry inside the projected window is its minimum. */
+        for (k = 0u; k < p->kept; k++) {
+            if (within(ring_get(e, p, k)->hours, next.hours, WINDOW_48H)) {
+                d->projected_48h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
+                break;
+            }
+        }
+        for (k = p->front24; k < p->kept; k++) {
+            if (within(ring_get(e, p, k)->hours, next.hours, WINDOW_24H)) {
+                d->projected_24h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
+                break;
+            }
+        }
+    }
+}
+
+static ntr_sample mirrored(ntr_sample s)
+{
+    s.na_mmol_l = -s.na_mmol_l;
+    return s;
+}
+
+/* ---- the 1.0 watcher (ntr_watch; layout fixed) -------------------------- */
+
+static struct ring_pos watch_pos(const ntr_watch *w)
+{
+    struct ring_pos p;
+    p.cap = NTR_WATCH_CAPACITY;
+    p.head = w->head;
+    p.kept = w->kept;
+    p.front24 = w->front24;
+    p.front6 = w->front6;
+    return p;
+}
+
+static void watch_store_pos(ntr_watch *w, const struct ring_pos *p)
+{
+    w->head = p->head;
+    w->kept = p->kept;
+    w->front24 = p->front24;
+    w->front6 = p->front6;
+}
+
+/* The numbers a state's samples and figures may hold: damaged ones (NaN,
+ * infinities, out of range) are refused rather than reported. */
+static int watch_numbers_sound(const ntr_watch *w, const struct ring_pos *p)
+{
+    if (w->seen >= 1u && (!sample_sound(w->first, 1.0) || !sample_sound(w->last, 1.0))) {
+        return 0;
+    }
+    if (w->seen == 2u && !sample_sound(w->prev, 1.0)) {
+        return 0;
+    }
+    return change_sound(w->rise_first_24h) && change_sound(w->max_rise_24h) &&
+           change_sound(w->max_rise_48h) && ring_numbers_sound(w->ring, p, 1.0);
+}
+
+/* Cheap structural checks first, so a damaged or uninitialised state can
+ * never make an index leave the ring. */
 static int watch_sound(const ntr_watch *w)
 {
-    if (w->magic != WATCH_MAGIC || w->head >= NTR_WATCH_CAPACITY ||
-        w->kept > NTR_WATCH_CAPACITY || w->seen > 2u || w->first_open > 1u) {
+    struct ring_pos p;
+    if (w->magic != WATCH_MAGIC || w->seen > 2u || w->first_open > 1u) {
         return 0;
     }
-    if ((w->seen == 0u) != (w->kept == 0u)) {
+    p = watch_pos(w);
+    if (!ring_shape_sound(&p, w->seen) || !limits_sound(&w->limits)) {
         return 0;
     }
-    if (w->kept > 0u &&
-        (w->front24 >= w->kept || w->front6 >= w->kept || w->front6 < w->front24)) {
-        return 0;
-    }
-    return limits_sound(&w->limits);
+    return watch_numbers_sound(w, &p);
 }
 
 int ntr_watch_init(const ntr_limits *lim, ntr_watch *w)
@@ -938,57 +1181,29 @@ int ntr_watch_init(const ntr_limits *lim, ntr_watch *w)
         w->reserved_d[k] = 0.0;
     }
     /* The ring is left as it is: an entry is read only at offsets below
-     * `kept` (ring_at() callers: the drop loops, the fronts, which
-     * watch_sound() keeps below `kept`, and the projection scans), and each
-     * of those was written by the push that kept it. Clearing 2 KB would be
-     * nine tenths of the cost of this call (tests/bench/run-bench.sh); the
-     * header documents that the unused entries' bytes are unspecified. */
+     * `kept`, and each of those was written by the push that kept it.
+     * Clearing 2 KB would be nine tenths of the cost of this call
+     * (tests/bench/run-bench.sh); the header documents that the unused
+     * entries' bytes are unspecified. */
     return NTR_OK;
-}
-
-/* The figures of the series so far, from the state alone. */
-static inline void watch_figures(const ntr_watch *w, struct figures *f)
-{
-    const ntr_sample last = w->last;
-
-    f->up = no_direction;
-    f->down = no_direction;
-    f->up.first_24h = w->rise_first_24h;
-    f->up.max_24h = w->max_rise_24h;
-    f->up.max_48h = w->max_rise_48h;
-    f->elapsed_h = last.hours - w->first.hours;
-    f->up.open_48h = last.na_mmol_l - ring_at(w, 0u)->na_mmol_l;
-    f->up.open_24h = last.na_mmol_l - ring_at(w, w->front24)->na_mmol_l;
-    f->up.open_6h = last.na_mmol_l - ring_at(w, w->front6)->na_mmol_l;
-    last_interval(w->seen == 2u, w->prev, last, f);
-    f->up.moving = has_interval(w->seen == 2u, w->prev, last) &&
-                   last.na_mmol_l > w->prev.na_mmol_l;
-    if (f->up.moving) {
-        const ntr_sample next = projected_next(w->prev, last);
-        unsigned int k;
-        /* The first entry inside the projected window is its minimum. */
-        for (k = 0u; k < w->kept; k++) {
-            if (within(ring_at(w, k)->hours, next.hours, WINDOW_48H)) {
-                f->up.projected_48h = projected_rise(next.na_mmol_l, ring_at(w, k)->na_mmol_l);
-                break;
-            }
-        }
-        for (k = w->front24; k < w->kept; k++) {
-            if (within(ring_at(w, k)->hours, next.hours, WINDOW_24H)) {
-                f->up.projected_24h = projected_rise(next.na_mmol_l, ring_at(w, k)->na_mmol_l);
-                break;
-            }
-        }
-    }
 }
 
 /* The assessment of a sound state that holds at least one sample. */
 static void watch_report(const ntr_watch *w, ntr_correction *out)
 {
     const ntr_course_limits course = course_of(&w->limits);
+    const struct ring_pos p = watch_pos(w);
     struct figures f;
     ntr_course_report r;
-    watch_figures(w, &f);
+
+    f.up = no_direction;
+    f.down = no_direction;
+    f.up.first_24h = w->rise_first_24h;
+    f.up.max_24h = w->max_rise_24h;
+    f.up.max_48h = w->max_rise_48h;
+    f.elapsed_h = w->last.hours - w->first.hours;
+    last_interval(w->seen == 2u, w->prev, w->last, &f);
+    ring_direction(w->ring, &p, w->seen == 2u, w->prev, w->last, &f.up);
     finish(&f, &course, 0u, &r);
     correction_of(&r, out);
 }
@@ -1005,19 +1220,51 @@ int ntr_watch_result(const ntr_watch *w, ntr_correction *out)
     return NTR_OK;
 }
 
-static unsigned int front_after(unsigned int front, unsigned int dropped)
+/* first, prev, last and the change over the first 24 h, after a push of s
+ * (shared by both watchers; fall_first NULL for the 1.0 one). */
+static void track_ends(unsigned int *seen, unsigned int *first_open, ntr_sample *first,
+                       ntr_sample *prev, ntr_sample *last, double *rise_first,
+                       double *fall_first, ntr_sample s)
 {
-    return front >= dropped ? front - dropped : 0u;
+    if (*seen == 0u) {
+        *first = s;
+        *first_open = 1u;
+        *rise_first = 0.0;
+        if (fall_first != NULL) {
+            *fall_first = 0.0;
+        }
+        *last = s;
+        *seen = 1u;
+        return;
+    }
+    if (*first_open) {
+        if (within(first->hours, s.hours, WINDOW_24H)) {
+            if (s.na_mmol_l - first->na_mmol_l > *rise_first) {
+                *rise_first = s.na_mmol_l - first->na_mmol_l;
+            }
+            if (fall_first != NULL && first->na_mmol_l - s.na_mmol_l > *fall_first) {
+                *fall_first = first->na_mmol_l - s.na_mmol_l;
+            }
+        } else {
+            *first_open = 0u;
+        }
+    }
+    if (s.hours > last->hours) {
+        *prev = *last;
+        *seen = 2u;
+    }
+    *last = s;
 }
 
 int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
                    ntr_correction *out)
 {
-    unsigned int drop_front = 0u;
-    unsigned int drop_back = 0u;
-    unsigned int survivors;
+    unsigned int drop_front;
+    unsigned int drop_back;
+    struct ring_pos p;
     ntr_sample s;
-    double open;
+    double at_24h = 0.0; /* the 1.0 state keeps no times */
+    double at_48h = 0.0;
 
     if (w == NULL || out == NULL) {
         return NTR_ERR_NULL;
@@ -1031,80 +1278,236 @@ int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
         return NTR_ERR_ORDER;
     }
 
+    s.hours = hours;
+    s.na_mmol_l = na_mmol_l;
+    p = watch_pos(w);
     /* Work out the new ring before touching anything, so a full ring
-     * leaves the state as it was. */
-    while (drop_front < w->kept &&
-           !within(ring_at(w, drop_front)->hours, hours, WINDOW_48H)) {
-        drop_front++;
-    }
-    while (drop_front + drop_back < w->kept &&
-           ring_at(w, w->kept - 1u - drop_back)->na_mmol_l >= na_mmol_l) {
-        drop_back++;
-    }
-    survivors = w->kept - drop_front - drop_back;
-    if (survivors >= NTR_WATCH_CAPACITY) {
+     * leaves the state as it was (the 1.0 contract: NTR_ERR_CAPACITY). */
+    ring_drops(w->ring, &p, s, &drop_front, &drop_back);
+    if (p.kept - drop_front - drop_back >= NTR_WATCH_CAPACITY) {
         return NTR_ERR_CAPACITY;
+    }
+    ring_drop(&p, drop_front, drop_back);
+    ring_insert(w->ring, &p, s);
+    ring_track(w->ring, &p, s, &w->max_rise_24h, &w->max_rise_48h, &at_24h, &at_48h);
+    watch_store_pos(w, &p);
+    track_ends(&w->seen, &w->first_open, &w->first, &w->prev, &w->last,
+               &w->rise_first_24h, NULL, s);
+    /* The state was sound on entry and a push keeps it so: no need to
+     * check it again as ntr_watch_result() would. */
+    watch_report(w, out);
+    return NTR_OK;
+}
+
+/* ---- the course watcher (ntr_course_watch, both directions) -------------- */
+
+/* Marks an initialised ntr_course_watch ("NTRC"). */
+#define COURSE_WATCH_MAGIC 0x4e545243u
+
+static struct ring_pos course_pos(const ntr_course_watch_ring *r)
+{
+    struct ring_pos p;
+    p.cap = NTR_COURSE_WATCH_CAPACITY;
+    p.head = r->head;
+    p.kept = r->kept;
+    p.front24 = r->front24;
+    p.front6 = r->front6;
+    return p;
+}
+
+static void course_store_pos(ntr_course_watch_ring *r, const struct ring_pos *p)
+{
+    r->head = p->head;
+    r->kept = p->kept;
+    r->front24 = p->front24;
+    r->front6 = p->front6;
+}
+
+static int at_sound(double at)
+{
+    return at == NTR_COURSE_NO_TIME || time_sound(at);
+}
+
+/* A group's span: 0 up to the widest the sodium range allows. */
+static int spans_sound(const ntr_course_watch_ring *r, const struct ring_pos *p)
+{
+    unsigned int k;
+    for (k = 0u; k < p->kept; k++) {
+        if (!change_sound((double)r->span[(p->head + k) % p->cap])) {
+            return 0;
+        }
+    }
+    return 1;
+}
+
+static int course_numbers_sound(const ntr_course_watch *w, const struct ring_pos *low,
+                                const struct ring_pos *high)
+{
+    if (w->seen >= 1u && (!sample_sound(w->first, 1.0) || !sample_sound(w->last, 1.0))) {
+        return 0;
+    }
+    if (w->seen == 2u && !sample_sound(w->prev, 1.0)) {
+        return 0;
+    }
+    return change_sound(w->rise_first_24h) && change_sound(w->fall_first_24h) &&
+           change_sound(w->max_rise_24h) && change_sound(w->max_rise_48h) &&
+           change_sound(w->max_fall_24h) && change_sound(w->max_fall_48h) &&
+           at_sound(w->at_rise_24h) && at_sound(w->at_rise_48h) &&
+           at_sound(w->at_fall_24h) && at_sound(w->at_fall_48h) &&
+           ring_numbers_sound(w->low.entry, low, 1.0) &&
+           ring_numbers_sound(w->high.entry, high, -1.0) &&
+           spans_sound(&w->low, low) && spans_sound(&w->high, high);
+}
+
+static int course_watch_sound(const ntr_course_watch *w)
+{
+    struct ring_pos low;
+    struct ring_pos high;
+    if (w->magic != COURSE_WATCH_MAGIC || w->seen > 2u || w->first_open > 1u ||
+        w->approximate > 1u) {
+        return 0;
+    }
+    low = course_pos(&w->low);
+    high = course_pos(&w->high);
+    if (!ring_shape_sound(&low, w->seen) || !ring_shape_sound(&high, w->seen) ||
+        ntri_course_limits_check(&w->limits) != NTR_OK) {
+        return 0;
+    }
+    return course_numbers_sound(w, &low, &high);
+}
+
+static void course_ring_init(ntr_course_watch_ring *r)
+{
+    r->kept = 0u;
+    r->head = 0u;
+    r->front24 = 0u;
+    r->front6 = 0u;
+    /* Entries left as they are, as in ntr_watch_init(). */
+}
+
+int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch *w)
+{
+    static const ntr_sample zero_sample = {0.0, 0.0};
+    ntr_course_limits limits;
+    if (lim == NULL || w == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(ntri_course_limits_check(lim));
+    limits = *lim; /* lim may point into *w */
+    limits.struct_size = sizeof limits; /* only the 1.1 members are kept */
+    w->magic = COURSE_WATCH_MAGIC;
+    w->seen = 0u;
+    w->first_open = 0u;
+    w->approximate = 0u;
+    w->limits = limits;
+    w->first = zero_sample;
+    w->prev = zero_sample;
+    w->last = zero_sample;
+    w->rise_first_24h = 0.0;
+    w->fall_first_24h = 0.0;
+    w->max_rise_24h = 0.0;
+    w->max_rise_48h = 0.0;
+    w->max_fall_24h = 0.0;
+    w->max_fall_48h = 0.0;
+    w->at_rise_24h = NTR_COURSE_NO_TIME;
+    w->at_rise_48h = NTR_COURSE_NO_TIME;
+    w->at_fall_24h = NTR_COURSE_NO_TIME;
+    w->at_fall_48h = NTR_COURSE_NO_TIME;
+    course_ring_init(&w->low);
+    course_ring_init(&w->high);
+    return NTR_OK;
+}
+
+static void course_watch_report(const ntr_course_watch *w, ntr_course_report *out)
+{
+    const struct ring_pos low = course_pos(&w->low);
+    const struct ring_pos high = course_pos(&w->high);
+    const int has_prev = w->seen == 2u;
+    struct figures f;
+
+    f.up = no_direction;
+    f.down = no_direction;
+    f.up.first_24h = w->rise_first_24h;
+    f.up.max_24h = w->max_rise_24h;
+    f.up.max_48h = w->max_rise_48h;
+    f.up.at_24h = w->at_rise_24h;
+    f.up.at_48h = w->at_rise_48h;
+    f.down.first_24h = w->fall_first_24h;
+    f.down.max_24h = w->max_fall_24h;
+    f.down.max_48h = w->max_fall_48h;
+    f.down.at_24h = w->at_fall_24h;
+    f.down.at_48h = w->at_fall_48h;
+    f.elapsed_h = w->last.hours - w->first.hours;
+    last_interval(has_prev, w->prev, w->last, &f);
+    ring_direction(w->low.entry, &low, has_prev, w->prev, w->last, &f.up);
+    ring_direction(w->high.entry, &high, has_prev, mirrored(w->prev), mirrored(w->last),
+                   &f.down);
+    finish(&f, &w->limits, w->approximate ? NTR_CF_APPROXIMATE : 0u, out);
+}
+
+int ntr_course_watch_result(const ntr_course_watch *w, ntr_course_report *out)
+{
+    if (w == NULL || out == NULL) {
+        return NTR_ERR_NULL;
+    }
+    if (ntri_course_report_check(out) != NTR_OK || !course_watch_sound(w) || w->seen == 0u) {
+        return NTR_ERR_ARG;
+    }
+    course_watch_report(w, out);
+    return NTR_OK;
+}
+
+/* One direction's ring takes the sample (s already in that direction),
+ * compacting first when it is full; returns 1 if it compacted. */
+static int course_ring_push(ntr_course_watch_ring *r, ntr_sample s, double *max_24h,
+                            double *max_48h, double *at_24h, double *at_48h)
+{
+    struct ring_pos p = course_pos(r);
+    unsigned int drop_front;
+    unsigned int drop_back;
+    int compacted = 0;
+    ring_drops(r->entry, &p, s, &drop_front, &drop_back);
+    ring_drop(&p, drop_front, drop_back);
+    if (p.kept >= p.cap) {
+        ring_compact(r->entry, r->span, &p);
+        compacted = 1;
+    }
+    ring_insert(r->entry, &p, s);
+    r->span[(p.head + p.kept - 1u) % p.cap] = 0.0f;
+    ring_track(r->entry, &p, s, max_24h, max_48h, at_24h, at_48h);
+    course_store_pos(r, &p);
+    return compacted;
+}
+
+int ntr_course_watch_push(ntr_course_watch *w, double hours, double na_mmol_l,
+                          ntr_course_report *out)
+{
+    ntr_sample s;
+    int compacted;
+
+    if (w == NULL || out == NULL) {
+        return NTR_ERR_NULL;
+    }
+    if (ntri_course_report_check(out) != NTR_OK || !course_watch_sound(w)) {
+        return NTR_ERR_ARG;
+    }
+    NTR_TRY(ntr_check(hours, -NTR_HOURS_MAX, NTR_HOURS_MAX));
+    NTR_TRY(ntr_check_na(na_mmol_l));
+    if (w->seen != 0u && hours < w->last.hours) {
+        return NTR_ERR_ORDER;
     }
 
     s.hours = hours;
     s.na_mmol_l = na_mmol_l;
-    w->head = (w->head + drop_front) % NTR_WATCH_CAPACITY;
-    w->front24 = front_after(w->front24, drop_front);
-    w->front6 = front_after(w->front6, drop_front);
-    w->kept = survivors + 1u;
-    w->ring[(w->head + survivors) % NTR_WATCH_CAPACITY] = s;
-    /* Entries before a front were already outside its window; if the
-     * front itself was pushed out, the new sample is the first inside. */
-    if (w->front24 > survivors) {
-        w->front24 = survivors;
+    compacted = course_ring_push(&w->low, s, &w->max_rise_24h, &w->max_rise_48h,
+                                 &w->at_rise_24h, &w->at_rise_48h);
+    compacted |= course_ring_push(&w->high, mirrored(s), &w->max_fall_24h,
+                                  &w->max_fall_48h, &w->at_fall_24h, &w->at_fall_48h);
+    if (compacted) {
+        w->approximate = 1u;
     }
-    if (w->front6 > survivors) {
-        w->front6 = survivors;
-    }
-    while (!within(ring_at(w, w->front24)->hours, hours, WINDOW_24H)) {
-        w->front24++;
-    }
-    if (w->front6 < w->front24) {
-        w->front6 = w->front24;
-    }
-    while (!within(ring_at(w, w->front6)->hours, hours, WINDOW_6H)) {
-        w->front6++;
-    }
-
-    open = na_mmol_l - ring_at(w, 0u)->na_mmol_l;
-    if (open > w->max_rise_48h) {
-        w->max_rise_48h = open;
-    }
-    open = na_mmol_l - ring_at(w, w->front24)->na_mmol_l;
-    if (open > w->max_rise_24h) {
-        w->max_rise_24h = open;
-    }
-
-    if (w->seen == 0u) {
-        w->first = s;
-        w->first_open = 1u;
-        w->rise_first_24h = 0.0;
-        w->last = s;
-        w->seen = 1u;
-    } else {
-        if (w->first_open) {
-            if (within(w->first.hours, hours, WINDOW_24H)) {
-                if (na_mmol_l - w->first.na_mmol_l > w->rise_first_24h) {
-                    w->rise_first_24h = na_mmol_l - w->first.na_mmol_l;
-                }
-            } else {
-                w->first_open = 0u;
-            }
-        }
-        if (hours > w->last.hours) {
-            w->prev = w->last;
-            w->seen = 2u;
-        }
-        w->last = s;
-    }
-    /* The state was sound on entry and a push keeps it so (at least one
-     * sample, fronts inside the kept ones, limits untouched): no need to
-     * check it again as ntr_watch_result() would. */
-    watch_report(w, out);
+    track_ends(&w->seen, &w->first_open, &w->first, &w->prev, &w->last,
+               &w->rise_first_24h, &w->fall_first_24h, s);
+    course_watch_report(w, out);
     return NTR_OK;
 }

@@ -1454,6 +1454,379 @@ static void course_assess_rejects_bad_inputs(void **state)
     (void)course_assess(s, 2, &bad);
 }
 
+/* The largest over-report of the course watcher once compacted, as
+ * docs/correction.md states it (measured by the tests below): in mmol/L on
+ * the dense 72 h series, and as a share of the exact 48 h change on the
+ * random dense ones. */
+#define COURSE_WATCH_BOUND 0.3
+#define COURSE_WATCH_SHARE 0.02
+/* ---- 1.1: the course watcher ---------------------------------------------- */
+
+static ntr_course_report watch_push_ok(ntr_course_watch *w, double hours, double na)
+{
+    ntr_course_report r;
+    memset(&r, 0x5a, sizeof r);
+    r.struct_size = sizeof r;
+    assert_int_equal(ntr_course_watch_push(w, hours, na, &r), NTR_OK);
+    assert_int_equal(r.struct_size, sizeof r);
+    return r;
+}
+
+/* The watcher equals ntr_course_assess on every prefix, exactly, while it
+ * has not compacted (short random series never fill its memory). */
+static void course_watcher_equals_assess_on_random_series(void **state)
+{
+    ntr_sample s[60];
+    int round;
+    (void)state;
+    for (round = 0; round < 5000; round++) {
+        size_t n = random_series(s, COUNT(s)), k;
+        ntr_course_limits lim = random_course_limits();
+        ntr_course_watch w;
+        assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+        for (k = 0; k < n; k++) {
+            ntr_course_report streamed = watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+            ntr_course_report batch = course_assess(s, k + 1, &lim);
+            ntr_course_report again = course_untouched();
+            assert_true((streamed.flags & NTR_CF_APPROXIMATE) == 0u);
+            assert_same_course(&streamed, &batch);
+            assert_int_equal(ntr_course_watch_result(&w, &again), NTR_OK);
+            assert_same_course(&again, &batch);
+        }
+    }
+}
+
+/* How far the watcher's window figures are above the exact ones; fails if
+ * any is below, or if an exact-only figure differs. */
+static double over_report(const ntr_course_report *got, const ntr_course_report *exact)
+{
+    const double g[] = {got->max_rise_24h, got->max_rise_48h, got->max_fall_24h,
+                        got->max_fall_48h, got->rise_now_24h, got->fall_now_24h};
+    const double e[] = {exact->max_rise_24h, exact->max_rise_48h, exact->max_fall_24h,
+                        exact->max_fall_48h, exact->rise_now_24h, exact->fall_now_24h};
+    double worst = 0.0;
+    size_t i;
+    for (i = 0; i < COUNT(g); i++) {
+        assert_true(g[i] >= e[i]);
+        if (g[i] - e[i] > worst) {
+            worst = g[i] - e[i];
+        }
+    }
+    assert_true(got->rise_first_24h == exact->rise_first_24h);
+    assert_true(got->fall_first_24h == exact->fall_first_24h);
+    assert_true(got->last_rate_per_h == exact->last_rate_per_h);
+    assert_true(got->elapsed_h == exact->elapsed_h);
+    /* Over-reporting can only add window flags, never remove one. */
+    assert_int_equal(exact->flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_24H |
+                                     NTR_CF_FALL_OVER_48H | NTR_CF_RAPID_6H) &
+                         ~got->flags,
+                     0u);
+    return worst;
+}
+
+/* Largest over-report seen, as a share of the exact 48 h change in the
+ * same direction (the sodium range the memory has to cover). */
+static double worst_share = 0.0;
+
+/* Feeds s[0..n-1] to a watcher, comparing with the exact assessment of each
+ * prefix: identical until the first compaction, never below after.
+ * Returns the largest over-report; *compacted_at is the first prefix
+ * length reported approximate (0 if none). */
+static double watch_against_exact(const ntr_sample *s, size_t n, const ntr_course_limits *lim,
+                                  size_t *compacted_at)
+{
+    ntr_course_watch w;
+    double worst = 0.0;
+    size_t k;
+    *compacted_at = 0;
+    assert_int_equal(ntr_course_watch_init(lim, &w), NTR_OK);
+    for (k = 0; k < n; k++) {
+        ntr_course_report got = watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+        ntr_course_report exact = course_assess(s, k + 1, lim);
+        if ((got.flags & NTR_CF_APPROXIMATE) == 0u) {
+            assert_int_equal(*compacted_at, 0);
+            assert_same_course(&got, &exact);
+        } else {
+            double e = over_report(&got, &exact);
+            double range = exact.max_rise_48h > exact.max_fall_48h ? exact.max_rise_48h
+                                                                   : exact.max_fall_48h;
+            if (range > 0.0 && e / range > worst_share) {
+                worst_share = e / range;
+            }
+            if (*compacted_at == 0) {
+                *compacted_at = k + 1;
+            }
+            if (e > worst) {
+                worst = e;
+            }
+        }
+    }
+    return worst;
+}
+
+/* A 72 h series every `step_h` hours: kind 0 rising 0.375-0.5 mmol/L/h
+ * (issue P1's refused case), 1 falling as fast, 2 noisy (laboratory
+ * scatter of +-2 around a slow rise), 3 adversarial (a rise in
+ * alternating large and tiny steps, so the cheapest merge is never much
+ * cheaper than the rest). Invented series. */
+static size_t make_series(ntr_sample *s, double step_h, int kind)
+{
+    size_t n = (size_t)(72.0 / step_h) + 1, i;
+    double na = kind == 1 ? 165.0 : 112.0;
+    for (i = 0; i < n; i++) {
+        double rate = 0.375 + 0.125 * rng_unit();
+        s[i].hours = (double)i * step_h;
+        switch (kind) {
+        case 0: na += rate * step_h; break;
+        case 1: na -= rate * step_h; break;
+        case 2: na += 0.1 * step_h; break;
+        default: na += (i % 2 == 0 ? 1.9 : 0.1) * rate * step_h; break;
+        }
+        s[i].na_mmol_l = kind == 2 ? na + 4.0 * rng_unit() - 2.0 : na;
+    }
+    return n;
+}
+
+/* Issue P1: 15-minute and 5-minute series over 72 h are never refused;
+ * exact while the memory holds, never below exact after, and the
+ * over-report stays within the bound docs/correction.md states. */
+static void course_watcher_never_refuses_dense_series(void **state)
+{
+    static ntr_sample s[72 * 12 + 1];
+    const double steps[] = {0.25, 5.0 / 60.0};
+    const int presets[] = {NTR_COURSE_HYPO_STANDARD, NTR_COURSE_HYPER_CHRONIC, NTR_COURSE_HOLD};
+    double worst = 0.0;
+    size_t a, kind, p;
+    (void)state;
+    for (a = 0; a < COUNT(steps); a++) {
+        for (kind = 0; kind < 4; kind++) {
+            for (p = 0; p < COUNT(presets); p++) {
+                ntr_course_limits lim = course_preset(presets[p]);
+                size_t n = make_series(s, steps[a], (int)kind), compacted_at;
+                double e = watch_against_exact(s, n, &lim, &compacted_at);
+                /* The steady series fill the memory within 48 h. */
+                if (kind != 2) {
+                    assert_true(compacted_at > 0);
+                }
+                if (e > worst) {
+                    worst = e;
+                }
+            }
+        }
+    }
+    print_message("course watcher, dense 72 h series: largest over-report %.4f mmol/L\n", worst);
+    assert_true(worst <= COURSE_WATCH_BOUND);
+}
+
+/* The same on random dense series: random steps of 5 minutes to 1 hour and
+ * random walks (both directions), including long flat stretches. */
+static void course_watcher_over_report_on_random_series(void **state)
+{
+    static ntr_sample s[1200];
+    double worst = 0.0;
+    int round;
+    (void)state;
+    for (round = 0; round < 24; round++) {
+        size_t n = 400 + rng_below(800), i, compacted_at;
+        double t = 0.0, na = 100.0 + 60.0 * rng_unit();
+        double drift = (rng_unit() - 0.5) * 0.6;
+        ntr_course_limits lim = random_course_limits();
+        for (i = 0; i < n; i++) {
+            s[i].hours = t;
+            s[i].na_mmol_l = na;
+            t += 5.0 / 60.0 + rng_unit() * (round % 2 == 0 ? 0.2 : 1.0);
+            na += drift + (rng_unit() - 0.5) * (round % 3 == 0 ? 0.2 : 1.5);
+            na = na < 81.0 ? 81.0 : (na > 219.0 ? 219.0 : na);
+        }
+        {
+            double e = watch_against_exact(s, n, &lim, &compacted_at);
+            if (e > worst) {
+                worst = e;
+            }
+        }
+    }
+    print_message("course watcher, random dense series: largest over-report %.4f mmol/L, "
+                  "%.4f of the 48 h change\n", worst, worst_share);
+    assert_true(worst_share <= COURSE_WATCH_SHARE);
+}
+
+static void course_watcher_rejects_bad_inputs(void **state)
+{
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_limits bad = lim;
+    ntr_course_watch w, copy, zero;
+    ntr_course_report r = course_untouched();
+    (void)state;
+    memset(&zero, 0, sizeof zero);
+    assert_int_equal(ntr_course_watch_init(NULL, &w), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_init(&lim, NULL), NTR_ERR_NULL);
+    memcpy(&w, &zero, sizeof w);
+    bad.struct_size = 8;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_ARG);
+    bad = lim;
+    bad.goal = 9;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_ARG);
+    bad = lim;
+    bad.max_fall_24h = (double)NAN;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_NONFINITE);
+    bad.max_fall_24h = 60.0;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_RANGE);
+    assert_memory_equal(&w, &zero, sizeof w);
+
+    assert_int_equal(ntr_course_watch_push(&zero, 0.0, 120.0, &r), NTR_ERR_ARG);
+    assert_int_equal(ntr_course_watch_result(&zero, &r), NTR_ERR_ARG);
+    assert_course_untouched(&r);
+    assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+    assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG); /* nothing pushed */
+    assert_int_equal(ntr_course_watch_push(NULL, 0.0, 120.0, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_push(&w, 0.0, 120.0, NULL), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_result(NULL, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_result(&w, NULL), NTR_ERR_NULL);
+    (void)watch_push_ok(&w, 10.0, 120.0);
+    memcpy(&copy, &w, sizeof w);
+    r = course_untouched();
+    assert_int_equal(ntr_course_watch_push(&w, (double)NAN, 120.0, &r), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_course_watch_push(&w, 11.0, HUGE_VAL, &r), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_course_watch_push(&w, 2e6, 120.0, &r), NTR_ERR_RANGE);
+    assert_int_equal(ntr_course_watch_push(&w, 11.0, 221.0, &r), NTR_ERR_RANGE);
+    assert_int_equal(ntr_course_watch_push(&w, 9.0, 121.0, &r), NTR_ERR_ORDER);
+    assert_int_equal(ntr_course_watch_push(&w, 9.0, 79.0, &r), NTR_ERR_RANGE);
+    assert_course_untouched(&r);
+    assert_memory_equal(&w, &copy, sizeof w);
+    /* A report struct smaller than 1.1 is refused before anything else. */
+    r.struct_size = sizeof r - 8;
+    {
+        ntr_course_report ref = r;
+        assert_int_equal(ntr_course_watch_push(&w, 11.0, 121.0, &r), NTR_ERR_ARG);
+        assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG);
+        assert_memory_equal(&r, &ref, sizeof r);
+    }
+    assert_memory_equal(&w, &copy, sizeof w);
+}
+
+/* Issue P1: a state whose counts or numbers were damaged is refused with
+ * NTR_ERR_ARG (never a NaN or infinite figure with NTR_OK). */
+static void course_watcher_refuses_damaged_states(void **state)
+{
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_watch fed, w;
+    ntr_course_report r = course_untouched();
+    const double bad_numbers[] = {(double)NAN, HUGE_VAL, -HUGE_VAL, 1e300};
+    size_t i, k;
+    (void)state;
+    assert_int_equal(ntr_course_watch_init(&lim, &fed), NTR_OK);
+    for (k = 0; k < 6; k++) {
+        (void)watch_push_ok(&fed, 2.0 * (double)k, 160.0 - (double)(k % 3));
+    }
+    for (i = 0; i < COUNT(bad_numbers); i++) {
+        const double x = bad_numbers[i];
+        int mode;
+        for (mode = 0; mode < 12; mode++) {
+            memcpy(&w, &fed, sizeof w);
+            switch (mode) {
+            case 0: w.first.na_mmol_l = x; break;
+            case 1: w.last.hours = x; break;
+            case 2: w.prev.na_mmol_l = x; break;
+            case 3: w.max_rise_24h = x; break;
+            case 4: w.max_fall_48h = x; break;
+            case 5: w.fall_first_24h = x; break;
+            case 6: w.at_fall_24h = x; break;
+            case 7: w.low.entry[(w.low.head + w.low.kept - 1u) % NTR_COURSE_WATCH_CAPACITY].na_mmol_l = x; break;
+            case 8: w.high.entry[w.high.head].hours = x; break;
+            case 9: w.limits.max_fall_24h = x; break;
+            case 10: w.rise_first_24h = x; break;
+            default: w.high.entry[w.high.head].na_mmol_l = x; break;
+            }
+            assert_int_equal(ntr_course_watch_push(&w, 20.0, 150.0, &r), NTR_ERR_ARG);
+            assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG);
+        }
+    }
+    /* Impossible counts and indices. */
+    for (k = 0; k < 8; k++) {
+        memcpy(&w, &fed, sizeof w);
+        switch (k) {
+        case 0: w.low.kept = NTR_COURSE_WATCH_CAPACITY + 1u; break;
+        case 1: w.high.head = NTR_COURSE_WATCH_CAPACITY; break;
+        case 2: w.low.front24 = w.low.kept; break;
+        case 3: w.high.front6 = w.high.front24 - 1u; w.high.front24 = w.high.kept - 1u; break;
+        case 4: w.seen = 3u; break;
+        case 5: w.approximate = 2u; break;
+        case 6: w.high.kept = 0u; break;
+        default: w.magic ^= 1u; break;
+        }
+        assert_int_equal(ntr_course_watch_push(&w, 20.0, 150.0, &r), NTR_ERR_ARG);
+        assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG);
+    }
+    assert_course_untouched(&r);
+    /* The undamaged state still works. */
+    (void)watch_push_ok(&fed, 20.0, 150.0);
+}
+
+/* Issue P1: the 1.0 watcher gets the same number checks. */
+static void watcher_refuses_damaged_numbers(void **state)
+{
+    ntr_limits lim = standard();
+    ntr_watch fed, w;
+    ntr_correction c = untouched();
+    const double bad_numbers[] = {(double)NAN, HUGE_VAL, -HUGE_VAL, -1.0};
+    size_t i, k;
+    (void)state;
+    assert_int_equal(ntr_watch_init(&lim, &fed), NTR_OK);
+    for (k = 0; k < 6; k++) {
+        assert_int_equal(ntr_watch_push(&fed, 2.0 * (double)k, 118.0 + (double)k, &c), NTR_OK);
+    }
+    for (i = 0; i < COUNT(bad_numbers); i++) {
+        const double x = bad_numbers[i];
+        int mode;
+        for (mode = 0; mode < 7; mode++) {
+            memcpy(&w, &fed, sizeof w);
+            switch (mode) {
+            case 0: w.first.na_mmol_l = x; break;
+            case 1: w.last.hours = x == -1.0 ? 2e6 : x; break;
+            case 2: w.prev.na_mmol_l = x; break;
+            case 3: w.max_rise_24h = x; break;
+            case 4: w.max_rise_48h = x; break;
+            case 5: w.rise_first_24h = x; break;
+            default: w.ring[(w.head + w.kept - 1u) % NTR_WATCH_CAPACITY].na_mmol_l = x; break;
+            }
+            c = untouched();
+            assert_int_equal(ntr_watch_push(&w, 20.0, 130.0, &c), NTR_ERR_ARG);
+            assert_int_equal(ntr_watch_result(&w, &c), NTR_ERR_ARG);
+            assert_untouched(&c);
+        }
+    }
+}
+
+/* A stored course watcher (its bytes copied) carries on identically,
+ * through compaction too. */
+static void course_watcher_state_can_be_stored_and_restored(void **state)
+{
+    static ntr_sample s[72 * 4 + 1];
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_watch w, restored;
+    unsigned char bytes[sizeof(ntr_course_watch)];
+    size_t n = make_series(s, 0.25, 0), k;
+    (void)state;
+    /* Documented: 4072 bytes on 64-bit targets, 4064 on 32-bit ones. */
+    assert_true(sizeof(ntr_course_watch) == (sizeof(size_t) == 8 ? 4072u : 4064u));
+    assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+    for (k = 0; k < n / 2; k++) {
+        (void)watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+    }
+    memcpy(bytes, &w, sizeof w);
+    memcpy(&restored, bytes, sizeof restored);
+    for (; k < n; k++) {
+        ntr_course_report a = watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+        ntr_course_report b = watch_push_ok(&restored, s[k].hours, s[k].na_mmol_l);
+        assert_same_course(&a, &b);
+        /* Rising 0.375-0.5 mmol/L/h: 9-12 a day, always over 10 at some point. */
+        if (k + 1 == n) {
+            assert_true((a.flags & NTR_CF_APPROXIMATE) != 0u);
+            assert_true((a.flags & NTR_CF_OVER_24H) != 0u);
+        }
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1504,6 +1877,13 @@ int main(void)
         cmocka_unit_test(course_assess_agrees_with_the_definitions),
         cmocka_unit_test(course_assess_agrees_on_dense_series),
         cmocka_unit_test(course_assess_rejects_bad_inputs),
+        cmocka_unit_test(course_watcher_equals_assess_on_random_series),
+        cmocka_unit_test(course_watcher_never_refuses_dense_series),
+        cmocka_unit_test(course_watcher_over_report_on_random_series),
+        cmocka_unit_test(course_watcher_rejects_bad_inputs),
+        cmocka_unit_test(course_watcher_refuses_damaged_states),
+        cmocka_unit_test(watcher_refuses_damaged_numbers),
+        cmocka_unit_test(course_watcher_state_can_be_stored_and_restored),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
