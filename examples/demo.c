@@ -149,6 +149,7 @@ typedef struct watched {
     const ntr_sample *s;
     size_t n;
     named_limits limits;
+    ntr_course_watch watch; /* the streaming watcher: one result at a time */
     ntr_course_report last;
     double first_over_h; /* when a window first went over, NTR_COURSE_NO_TIME before */
     int over_now[MAX_WATCHED]; /* per result: over a limit now (drawn as a diamond) */
@@ -162,13 +163,14 @@ static void watched_init(watched *w, const ntr_sample *s, size_t n,
     w->n = n;
     w->limits = *l;
     w->first_over_h = NTR_COURSE_NO_TIME;
-    /* TEMPORARY until the course watcher lands: see watched_push. */
+    must(ntr_course_watch_init(&w->limits.lim, &w->watch), "ntr_course_watch_init");
 }
 
 static void watched_push(watched *w, size_t i)
 {
     w->last.struct_size = sizeof w->last;
-    must(ntr_course_assess(w->s, i + 1, &w->limits.lim, &w->last), "ntr_course_assess");
+    must(ntr_course_watch_push(&w->watch, w->s[i].hours, w->s[i].na_mmol_l, &w->last),
+         "ntr_course_watch_push");
 }
 
 static unsigned int over_bits(unsigned int flags)
