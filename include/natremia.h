@@ -623,7 +623,7 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
  */
 NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
 
-#define NTR_TONICITY_HYPOTONIC 1  /**< measured osmolality below 275 mOsm/kg */
+#define NTR_TONICITY_HYPOTONIC 1  /**< osmolality (measured, or effective where a function says so) below 275 mOsm/kg */
 #define NTR_TONICITY_ISOTONIC 2   /**< 275 to 295 mOsm/kg inclusive */
 #define NTR_TONICITY_HYPERTONIC 3 /**< above 295 mOsm/kg */
 
@@ -779,18 +779,18 @@ NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
  * measured); see there why). @p tonicity is ntr_tonicity_class() of E.
  * When Na < 135 mmol/L the flags of ntr_low_na_tonicity() are set with
  * their meanings, judged on E:
- * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS: glucose-corrected sodium >= 135.
- * - @ref NTR_LOW_NA_NOT_HYPOTONIC: E >= 275.
- * - @ref NTR_LOW_NA_TRANSLOCATIONAL: E > 295, or E >= 275 and glucose
+ * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS when glucose-corrected sodium >= 135.
+ * - @ref NTR_LOW_NA_NOT_HYPOTONIC when E >= 275.
+ * - @ref NTR_LOW_NA_TRANSLOCATIONAL when E > 295, or E >= 275 and glucose
  *   explains the sodium.
- * - @ref NTR_LOW_NA_PSEUDO: 275 <= E <= 295 and glucose does not explain
+ * - @ref NTR_LOW_NA_PSEUDO when 275 <= E <= 295 and glucose does not explain
  *   the sodium. Never set when urea and ethanol account for a normal
  *   measured osmolality: then E < 275.
- * - @ref NTR_LOW_NA_DISCORDANT: E < 275, yet glucose would explain the
+ * - @ref NTR_LOW_NA_DISCORDANT when E < 275, yet glucose would explain the
  *   sodium.
  *
  * and, whatever the sodium (it explains the class, not the sodium):
- * - @ref NTR_LOW_NA_INEFFECTIVE_OSMOLES: measured >= 275 but E < 275, a
+ * - @ref NTR_LOW_NA_INEFFECTIVE_OSMOLES when measured >= 275 but E < 275, a
  *   true hypotonic state that the measured value alone would hide.
  *
  * Examples (hand-worked): sodium 125, glucose 5, urea 40 mmol/L, measured
@@ -1027,18 +1027,18 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
 /**
  * @brief Test the findings against the criteria for SIAD.
  *
- * Essential criteria (all must be met; thresholds are strict as in the
- * table): effective serum osmolality < 275 mOsm/kg (the hypotonic edge
+ * Essential criteria (every one must hold; thresholds are strict as in
+ * the table): effective osmolality < 275 mOsm/kg (the hypotonic edge
  * @ref NTR_TONICITY_HYPOTONIC_BELOW, so the criterion is met exactly when
  * ntr_low_na_effective_tonicity() gives @ref NTR_TONICITY_HYPOTONIC for
- * the same value); urine osmolality
- * > 100 mOsm/kg; clinical euvolaemia; urine sodium > 30 mmol/L with normal
- * dietary salt and water intake; no thyroid, adrenal, pituitary or renal
- * insufficiency; no recent diuretic use.
- * Supplemental criteria (support the diagnosis, never decide it): serum
- * uric acid < 0.24 mmol/L; serum urea < 3.6 mmol/L; failure of 0.9% saline
- * to correct the sodium; fractional excretion of sodium > 0.5%, of urea
- * > 55%, of uric acid > 12%; correction by fluid restriction.
+ * the same value); urine osmolality > 100 mOsm/kg; extracellular volume
+ * judged normal at the bedside; urine sodium > 30 mmol/L while salt and
+ * water intake are usual; thyroid, adrenal, pituitary and kidney function
+ * normal; no diuretic taken recently.
+ * Supplemental criteria (add weight, never decide): serum uric acid
+ * < 0.24 mmol/L; serum urea < 3.6 mmol/L; the sodium stays low after 0.9%
+ * saline; fractional excretion of sodium > 0.5%, of urea > 55%, of uric
+ * acid > 12%; fluid restriction brings the sodium up.
  *
  * Each criterion is met, not met, not known (its finding is not known) or
  * not assessable (urine sodium when intake is known not to be normal: a

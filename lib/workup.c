@@ -83,7 +83,8 @@ int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity)
  * patient, samples drawn apart, the errors of several assays adding up).
  * The floor is itself below 275 whenever 2*Na + glucose is, so it never
  * hides a hypotonicity that sodium and glucose show; and with no urea or
- * ethanol the result is the measured value, bit for bit. */
+ * ethanol the result is the measured value, bit for bit. 2*Na + glucose
+ * comes from ntr_osm_effective(), where that formula lives. */
 static int effective_of_checked(double na_mmol_l, double glucose_mmol_l,
                                 double urea_mmol_l, double ethanol_mmol_l,
                                 double measured_osm_mosm_kg, double *mosm_kg)

@@ -5,9 +5,10 @@
  *
  * "Guideline" below is Spasovski G et al. Clinical practice guideline on
  * diagnosis and treatment of hyponatraemia. Eur J Endocrinol
- * 2014;170(3):G1-G47. Its thresholds are quoted from memory (the text was
- * not at hand while writing); docs/workup.md lists them. Every patient
- * below is an invented scenario. */
+ * 2014;170(3):G1-G47. Its severity bands, the 275 mOsm/kg limit, the urine
+ * thresholds and the SIAD table's values are checked against the published
+ * text (/work/shared/sources.md); docs/workup.md lists them and what is
+ * still from memory. Every patient below is an invented scenario. */
 #include <stdarg.h>
 #include <stddef.h>
 #include <setjmp.h>
@@ -39,7 +40,7 @@ static int severity(double na)
 }
 
 /* Source: guideline, classification by biochemical severity: mild
- * 130-135, moderate 125-129, profound < 125 mmol/L (from memory). Each
+ * 130-135, moderate 125-129, profound < 125 mmol/L (checked). Each
  * edge at, just below and just above it; the library's boundary
  * convention puts an edge in the band it starts. */
 static void severity_bands_at_their_edges(void **state)
@@ -119,7 +120,7 @@ static int tonicity(double osm)
     return out;
 }
 
-/* Source: guideline (hypotonic below 275 mOsm/kg, from memory); 295 as the
+/* Source: guideline (hypotonic below 275 mOsm/kg, checked); 295 as the
  * upper end of the usual serum osmolality reference interval (common
  * practice). */
 static void tonicity_class_at_its_edges(void **state)
@@ -732,8 +733,8 @@ static int urine_na_high(double una)
     return out;
 }
 
-/* Source: common practice (urine osmolality <= 100 mOsm/kg is maximally
- * dilute; the guideline uses the same cut-off, from memory). */
+/* Source: guideline (urine osmolality <= 100 mOsm/kg is maximally dilute,
+ * checked). */
 static void urine_dilute_at_its_edge(void **state)
 {
     (void)state;
@@ -746,7 +747,7 @@ static void urine_dilute_at_its_edge(void **state)
 }
 
 /* Source: guideline: urine sodium > 30 mmol/L on normal salt and water
- * intake (from memory). */
+ * intake (checked). */
 static void urine_na_high_at_its_edge(void **state)
 {
     (void)state;
@@ -1055,7 +1056,7 @@ struct value_edge {
     double step; /* a clinically visible step beside the threshold */
 };
 
-/* Source: guideline table of SIAD criteria (from memory): effective
+/* Source: guideline table of SIAD criteria (checked): effective
  * osmolality < 275 mOsm/kg, urine osmolality > 100 mOsm/kg, urine sodium
  * > 30 mmol/L, uric acid < 0.24 mmol/L, urea < 3.6 mmol/L, FE Na > 0.5 %,
  * FE urea > 55 %, FE uric acid > 12 %. Each at, just below and just above

@@ -57,6 +57,8 @@ typedef struct ntrc_outs {
         ntr_siad_findings findings;
         ntr_siad_result siad;
         ntr_watch watch;
+        ntr_course_limits clim;
+        ntr_course_report course;
         struct {
             ntr_correction out[8];
             int status[8];
