@@ -760,7 +760,7 @@ static void a_restriction_step(struct patient_a *p)
         break;
     default:
         printf("  -> ratio above 1: restriction alone is unlikely to raise the "
-               "sodium, even under\n     500 mL a day.\n");
+               "sodium, even\n     under 500 mL a day.\n");
         break;
     }
 }
@@ -923,8 +923,8 @@ static void a_watch_step(struct patient_a *p)
 {
     heading("A10. Watching the measured series");
     printf("  \"now\": each result against the %s limits (%.0f mmol/L in 24 h, "
-           "%.0f in 48 h),\n  counted from the lowest result of the 24 h (48 h) "
-           "before it. \"so far\": when\n  the course first went over a limit, "
+           "%.0f in\n  48 h), counted from the lowest result of the 24 h (48 h) "
+           "before it. \"so far\":\n  when the course first went over a limit, "
            "even if it is within now.\n", p->limits.name, p->limits.lim.max_rise_24h,
            p->limits.lim.max_rise_48h);
     watched_init(&p->series, a_measured, A_MEASURED_COUNT, &p->limits);
@@ -1119,7 +1119,7 @@ static void b_panel_step(struct patient_b *p)
     must(ntr_tonicity_class(p->effective_osm, &tonicity), "ntr_tonicity_class");
     printf("  effective osmolality   measured - urea          %6.1f mOsm/kg\n",
            p->effective_osm);
-    printf("  -> %s: the cells have lost water to the high sodium.\n",
+    printf("  -> %s: the cells have lost water to the high\n     sodium.\n",
            tonicity == NTR_TONICITY_HYPERTONIC ? "hypertonic (above 295 mOsm/kg)"
                                                : "not hypertonic: recheck the panel");
 }
@@ -1192,7 +1192,7 @@ static void b_check_plan(struct patient_b *p, double hours, ntr_sample *course,
                             B_PLAN_STEP_H, course, B_PLAN_POINTS, n_course),
          "ntr_balance_course");
     snprintf(label, sizeof label, "the deficit over %.0f h: 5%% dextrose %.0f mL/h, "
-             "urine %.0f mL/h (Na %.0f, K %.0f mmol/L):", hours, flows[0].rate_ml_h,
+             "urine %.0f mL/h\n  (Na %.0f, K %.0f mmol/L):", hours, flows[0].rate_ml_h,
              B_URINE_ML_H, B_URINE_NA_MMOL_L, B_URINE_K_MMOL_L);
     report_plan(label, &r, now.na_mmol_l, hours);
 }
