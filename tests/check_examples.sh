@@ -156,6 +156,20 @@ check_correction_watch() {
     expect_text "$out" '^48,129,10\.0,19\.0,.*OVER-48H' "watch: 19 in 48 h is over the 48 h limit"
     if grep -q 'OVER-24H' "$out"; then fail "watch: a rise of exactly 10 in 24 h was flagged over"
     else ok "watch: a rise of exactly 10 in 24 h is not over the limit"; fi
+    # Falls (issue P1's case): 165 -> 140 in 24 h is a fall of 25, over the
+    # 10 mmol/L a day of Adrogue & Madias, Hypernatremia, N Engl J Med 2000.
+    watch_series "$out" 1 chronic-high <<< $'0,165\n12,152\n24,140'
+    expect_text "$out" '^24,140,0\.0,0\.0,25\.0,25\.0,0\.0,25\.0,-1\.00,OVER,.*FALL-OVER-24H' "watch chronic-high: 165 -> 140 in 24 h is over the fall limit"
+    # Now versus so far, hand-worked: 165, 160 (6 h), 156 (12 h), 152 (24 h:
+    # 13 below 165, over); at 30 h the highest of the 24 h before is 160,
+    # a fall of exactly 10: within now, while FALL-OVER-24H stays so far.
+    watch_series "$out" 1 chronic-high <<< $'0,165\n6,160\n12,156\n24,152\n30,150'
+    expect_text "$out" '^24,152,0\.0,0\.0,13\.0,13\.0,0\.0,13\.0,-0\.33,OVER,.*FALL-OVER-24H' "watch chronic-high: 13 in 24 h over now"
+    expect_text "$out" '^30,150,0\.0,0\.0,13\.0,15\.0,0\.0,10\.0,-0\.33,within,.*FALL-OVER-24H' "watch chronic-high: within now at 30 h, over so far"
+    # The same fall under the standard (raise) limits is no breach of a
+    # limit: those limits have no fall limit (exit 0).
+    watch_series "$out" 0 <<< $'0,125\n24,121'
+    expect_text "$out" '^24,121,0\.0,0\.0,4\.0,4\.0,0\.0,4\.0,-0\.17,within,' "watch standard: a fall of 4 is reported, no limit breached"
     # Bad input: out of time order, and a line that is not hours,sodium.
     watch_series "$out" 2 <<< $'0,112\n6,116\n4,117'
     expect_text "$out" 'line 3' "watch names the line out of time order"
