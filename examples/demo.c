@@ -1200,10 +1200,13 @@ static void b_check_plan(struct patient_b *p, double hours, ntr_sample *course,
 static void b_plan_step(struct patient_b *p)
 {
     heading("B4. Checking two water plans against the fall limit");
+    printf("  (the fluid is the clinician's choice; these are two plans a team "
+           "might write)\n");
     b_check_plan(p, B_FAST_HOURS, p->fast, &p->n_fast);
     b_check_plan(p, B_SLOW_HOURS, p->slow, &p->n_slow);
-    printf("  -> the prediction counts only the fluids listed; water by mouth or "
-           "less urine\n     than expected makes the fall faster: measure sodium "
+    printf("  -> both plans give the deficit but not the urine, so neither ends at "
+           "140. The\n     prediction counts only the fluids listed; water by mouth "
+           "or less urine than\n     expected makes the fall faster: measure sodium "
            "every few hours.\n");
 }
 
