@@ -2048,8 +2048,8 @@ NTR_API int ntr_course_assess(const ntr_sample *s, size_t n,
 
 /** Candidates an ntr_course_watch keeps per direction (window minima for
  *  rises, maxima for falls): exact for a series rising (or falling)
- *  steadily for 48 h with a sample every 30 minutes or less often. Denser
- *  series are compacted, never refused. */
+ *  steadily, for any length, sampled every 31 minutes or less often.
+ *  Denser series are compacted, never refused. */
 #define NTR_COURSE_WATCH_CAPACITY 96
 
 /** Private part of an ntr_course_watch: one direction's candidates. */

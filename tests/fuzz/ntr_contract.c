@@ -1355,6 +1355,226 @@ static int results_course_limits(const ntrc_case *c, double *v, int max)
     return 6;
 }
 
+/* ---- course watcher (1.1) ---------------------------------------------------------- */
+
+/* en[0] of the course watch entries: 0 an intact state; 1 never
+ * initialised (zeroed); 2 a broken marker; 3 a kept count beyond the ring;
+ * 4 all bytes 0xff; 5-8 one inconsistent private member each; 9-11 a
+ * stored number NaN, infinite or out of range. en[1]: the report's
+ * struct_size (as for the SIAD structs). */
+static void damage_course_watch(ntr_course_watch *w, int mode)
+{
+    switch (mode) {
+    case 0: break;
+    case 1: memset(w, 0, sizeof *w); break;
+    case 2: w->magic ^= 0x10101010u; break;
+    case 3: w->low.kept = NTR_COURSE_WATCH_CAPACITY + 5u; break;
+    case 4: memset(w, 0xff, sizeof *w); break;
+    case 5:
+        if (w->high.kept > 0u) {
+            w->high.front24 = w->high.kept;
+        } else {
+            w->seen = 1u;
+        }
+        break;
+    case 6: w->seen = w->low.kept > 0u ? 0u : 2u; break;
+    case 7: w->limits.goal = 7; break;
+    case 8: w->high.head = NTR_COURSE_WATCH_CAPACITY; break;
+    case 9: w->max_fall_24h = NAN; break;
+    case 10: w->rise_first_24h = HUGE_VAL; break;
+    default: w->limits.max_rise_24h = -1.0; break;
+    }
+}
+
+#define COURSE_WATCH_MODES                                                              \
+    {"watch_state", NTR_ERR_ARG, 1, {0}}, {"report_struct_size", NTR_ERR_ARG, 2, {0, 2}}
+
+static void prime_course_watch(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    ntr_course_report out;
+    size_t i;
+    size_t kept = 0;
+    (void)ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    memset(&c->cwatch, 0, sizeof c->cwatch); /* every byte defined for the comparisons */
+    (void)ntr_course_watch_init(&lim, &c->cwatch);
+    out.struct_size = sizeof out;
+    for (i = 0; i < c->n; i++) {
+        if (ntr_course_watch_push(&c->cwatch, c->samples[i].hours, c->samples[i].na_mmol_l,
+                                  &out) == NTR_OK) {
+            c->samples[kept++] = c->samples[i];
+        }
+    }
+    c->n = kept;
+    c->cwatch_clean = c->cwatch;
+}
+
+static void prepare_course_watch(ntrc_case *c)
+{
+    c->cwatch = c->cwatch_clean;
+    damage_course_watch(&c->cwatch, c->en[0]);
+    c->out.s.course.struct_size = siad_size(c->en[1], sizeof c->out.s.course);
+}
+
+static void base_course_watch(ntrc_case *c)
+{
+    base_samples(c);
+    c->n = 4; /* the pushed sample comes after hour 12 */
+    prime_course_watch(c);
+}
+
+static void fuzz_course_watch(ntrc_case *c, ntrc_source *src)
+{
+    fuzz_samples(c, src);
+    prime_course_watch(c);
+}
+
+static int call_course_watch_init(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    course_limits_from(c, &lim);
+    return ntr_course_watch_init(in_null(c, 0) ? NULL : &lim,
+                                 in_null(c, 1) ? NULL : &c->out.s.cwatch);
+}
+
+static int predict_course_watch_init(const ntrc_fn *f, const ntrc_case *c)
+{
+    int i;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < 2; i++) {
+        if (!ntrc_enum_is_valid(f, i, c->en[i])) {
+            return NTR_ERR_ARG;
+        }
+    }
+    return course_limits_status(c->en[0], c->num);
+}
+
+static const char *ok_course_watch_init(const ntrc_case *c)
+{
+    ntr_course_report r;
+    ntr_course_watch w = c->out.s.cwatch;
+    r.struct_size = sizeof r;
+    return ntr_course_watch_result(&w, &r) == NTR_ERR_ARG ? NULL
+                                                          : "fresh course watcher reports a result";
+}
+
+static int results_course_watch_init(const ntrc_case *c, double *v, int max)
+{
+    static ntrc_case probe; /* large: kept off the stack */
+    ntr_course_watch w = c->out.s.cwatch;
+    probe.out.s.course.struct_size = sizeof probe.out.s.course;
+    if (ntr_course_watch_push(&w, 0.0, 120.0, &probe.out.s.course) != NTR_OK) {
+        return 0;
+    }
+    return results_course_report(&probe, v, max);
+}
+
+static int call_course_watch_push(ntrc_case *c)
+{
+    return ntr_course_watch_push(in_null(c, 0) ? NULL : &c->cwatch, c->num[0], c->num[1],
+                                 in_null(c, 1) ? NULL : &c->out.s.course);
+}
+
+static int predict_course_watch_push(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (!ntrc_enum_is_valid(f, 0, c->en[0]) || !ntrc_enum_is_valid(f, 1, c->en[1])) {
+        return NTR_ERR_ARG;
+    }
+    if ((st = check_value(c->num[0], -1e6, 1e6)) != NTR_OK ||
+        (st = check_value(c->num[1], 80.0, 220.0)) != NTR_OK) {
+        return st;
+    }
+    if (c->n > 0 && c->num[0] < c->samples[c->n - 1].hours) {
+        return NTR_ERR_ORDER;
+    }
+    return NTR_OK;
+}
+
+/* While its memory holds (always, for series this short), the watcher
+ * equals ntr_course_assess over the same samples bit for bit. */
+static const char *same_as_course_assess(const ntr_course_report *got, const ntr_sample *s,
+                                         size_t n)
+{
+    ntr_course_limits lim;
+    ntr_course_report want;
+    (void)ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    want.struct_size = sizeof want;
+    if (ntr_course_assess(s, n, &lim, &want) != NTR_OK) {
+        return "ntr_course_assess rejects the series the course watcher accepted";
+    }
+    if (memcmp(&want, got, sizeof want) != 0) {
+        return "course watcher differs from ntr_course_assess on the same series";
+    }
+    return judge_course(got, s, n, &lim);
+}
+
+static const char *ok_course_watch_push(const ntrc_case *c)
+{
+    ntr_sample s[NTRC_MAX_SERIES + 1];
+    memcpy(s, c->samples, c->n * sizeof s[0]);
+    s[c->n].hours = c->num[0];
+    s[c->n].na_mmol_l = c->num[1];
+    return same_as_course_assess(&c->out.s.course, s, c->n + 1);
+}
+
+static int call_course_watch_result(ntrc_case *c)
+{
+    return ntr_course_watch_result(in_null(c, 0) ? NULL : &c->cwatch,
+                                   in_null(c, 1) ? NULL : &c->out.s.course);
+}
+
+static int predict_course_watch_result(const ntrc_fn *f, const ntrc_case *c)
+{
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (!ntrc_enum_is_valid(f, 0, c->en[0]) || !ntrc_enum_is_valid(f, 1, c->en[1]) ||
+        c->n == 0) {
+        return NTR_ERR_ARG;
+    }
+    return NTR_OK;
+}
+
+static const char *ok_course_watch_result(const ntrc_case *c)
+{
+    return same_as_course_assess(&c->out.s.course, c->samples, c->n);
+}
+
+static void extra_course_watch(const ntrc_fn *f,
+                               void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    int mode;
+    ntrc_baseline(f, &c);
+    c.n = 0;
+    prime_course_watch(&c);
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (mode = 1; mode <= 11; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[0] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+}
+
+static void extra_course_watch_push(const ntrc_fn *f,
+                                    void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    extra_course_watch(f, judge);
+    ntrc_baseline(f, &c);
+    c.num[0] = c.samples[c.n - 1].hours - 0.25;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[0] = c.samples[c.n - 1].hours;
+    judge(f, &c, NTRC_KIND_SERIES);
+}
+
 /* ---- streaming watcher ------------------------------------------------------------ */
 
 /* en[0] of the watch entries: 0 an intact state; 1 never initialised
@@ -2664,6 +2884,26 @@ const ntrc_fn ntrc_functions[] = {
      .fuzz_series = fuzz_samples, .prepare_out = prepare_course,
      .results = results_course_report, .extra_cases = extra_course_series,
      .check_ok = ok_course_assess},
+    {CALL(course_watch_init), .n_enum = 2,
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            {"limits_struct_size", NTR_ERR_ARG, 2, {0, 2}}},
+     .n_num = 5, .num = {COURSE_NUMS}, .n_in_ptr = 2, .statuses = OK_COMMON | ST(ERR_ARG),
+     .base_num = {10.0, 18.0, 10.0, 0.0, 4.0}, .base_en = {NTR_GOAL_RAISE, 0},
+     .predict = predict_course_watch_init, .results = results_course_watch_init,
+     .check_ok = ok_course_watch_init},
+    {CALL(course_watch_push), .n_enum = 2, .en = {COURSE_WATCH_MODES}, .n_num = 2,
+     .num = {{"hours", -1e6, 1e6, 0}, NA}, .n_in_ptr = 2,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER), .base_num = {20.0, 124.5},
+     .base_en = {0, 0}, .predict = predict_course_watch_push, .base_series = base_course_watch,
+     .fuzz_series = fuzz_course_watch, .prepare_out = prepare_course_watch,
+     .mutates_input = 1, .results = results_course_report,
+     .extra_cases = extra_course_watch_push, .check_ok = ok_course_watch_push},
+    {CALL(course_watch_result), .n_enum = 2, .en = {COURSE_WATCH_MODES}, .n_in_ptr = 2,
+     .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {0, 0},
+     .predict = predict_course_watch_result, .base_series = base_course_watch,
+     .fuzz_series = fuzz_course_watch, .prepare_out = prepare_course_watch,
+     .results = results_course_report, .extra_cases = extra_course_watch,
+     .check_ok = ok_course_watch_result},
     /* balance */
     {CALL(balance_predict), .n_num = 2, .num = {NA, TBW}, .n_out_d = 2, .n_in_ptr = 1,
      .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {118.0, 35.0},
