@@ -213,6 +213,32 @@ check_command_lines() {
     else fail "natremia-demo -- -a.svg -b.svg exited $rc or wrote no charts"; fi
     run_expect_status 2 "$out" "$bin/natremia-demo" a.svg b.svg c.svg
     expect_text "$out" 'at most two chart file names' "natremia-demo refuses a third operand"
+    check_cohort_command_line
+}
+
+# The Dask example (argparse) under the same rules; it imports the Python
+# binding first, so it is checked only where numpy is installed.
+check_cohort_command_line() {
+    local src py=/usr/bin/python3 out=$work/cohort.txt rc
+    src=$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)
+    if ! "$py" -c 'import numpy' > /dev/null 2>&1; then
+        echo "SKIP: cohort_dask.py command line (python3-numpy not installed)"
+        return
+    fi
+    export PYTHONPATH=$src/bindings/python NATREMIA_LIBRARY=$bin/../lib/libnatremia.so.1
+    rc=0
+    "$py" "$src/examples/cohort_dask.py" --help > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 0 ]] && grep -q '^usage: ' "$out"; then ok "cohort_dask.py --help prints the usage and exits 0"
+    else fail "cohort_dask.py --help exited $rc: $(head -3 "$out")"; fi
+    rc=0
+    "$py" "$src/examples/cohort_dask.py" --chart-file > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 2 ]] && grep -q -- '--chart-file' "$out"; then ok "cohort_dask.py refuses an unknown option by name (exit 2)"
+    else fail "cohort_dask.py --chart-file exited $rc: $(tail -1 "$out")"; fi
+    rc=0
+    "$py" "$src/examples/cohort_dask.py" --patients many > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 2 ]] && grep -q -- "--patients: invalid int value: 'many'" "$out"; then ok "cohort_dask.py names the argument that is not a number"
+    else fail "cohort_dask.py --patients many exited $rc: $(tail -1 "$out")"; fi
+    unset PYTHONPATH NATREMIA_LIBRARY
 }
 
 check_demo_text() {
