@@ -158,6 +158,11 @@ typedef struct watched {
 static void watched_init(watched *w, const ntr_sample *s, size_t n,
                          const named_limits *l)
 {
+    if (n == 0 || n > MAX_WATCHED) {
+        fprintf(stderr, "natremia-demo: a watched series holds 1 to %d results\n",
+                MAX_WATCHED);
+        exit(1);
+    }
     memset(w, 0, sizeof *w);
     w->s = s;
     w->n = n;
@@ -663,7 +668,7 @@ static const char *criterion_state(const ntr_siad_result *r, int criterion,
 {
     unsigned long bit = 1ul << criterion;
     if (r->met & bit) return clinician_entered ? "reported" : "met";
-    if (r->not_met & bit) return clinician_entered ? "reported NOT so" : "NOT met";
+    if (r->not_met & bit) return clinician_entered ? "NOT met (reported)" : "NOT met";
     if (r->not_assessable & bit) return "cannot be judged";
     return "not recorded";
 }
