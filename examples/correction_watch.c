@@ -31,12 +31,11 @@ int main(int argc, char **argv)
 {
     int preset = NTR_COURSE_HYPO_STANDARD, st, now_over;
     double hours, na;
-    size_t i;
+    size_t i, line_no = 0;
     ntr_course_limits lim;
     ntr_course_watch watch;
     ntr_course_report r = {0};
     char line[256], extra;
-    unsigned long line_no = 0;
     cli cl;
 
     if ((st = cli_start(&cl, "correction_watch", usage, argc, argv)) >= 0) return st;
@@ -56,12 +55,12 @@ int main(int argc, char **argv)
         ++line_no;
         if (line[0] == '#' || strspn(line, " \t\r\n") == strlen(line)) continue;
         if (sscanf(line, "%lf , %lf %c", &hours, &na, &extra) != 2) {
-            fprintf(stderr, "correction_watch: line %lu: expected hours,sodium\n", line_no);
+            fprintf(stderr, "correction_watch: line %zu: expected hours,sodium\n", line_no);
             return 2;
         }
         r.struct_size = sizeof r;
         if ((st = ntr_course_watch_push(&watch, hours, na, &r)) != NTR_OK) {
-            fprintf(stderr, "correction_watch: line %lu (%g,%g) refused: %s\n", line_no,
+            fprintf(stderr, "correction_watch: line %zu (%g,%g) refused: %s\n", line_no,
                     hours, na, ntr_status_message(st));
             return 2;
         }
