@@ -1887,9 +1887,10 @@ typedef struct ntr_course_limits {
 #define NTR_CF_FALL_OVER_24H 0x80u
 /** max_fall_48h exceeds limits.max_fall_48h (a limit above 0). */
 #define NTR_CF_FALL_OVER_48H 0x100u
-/** Moved against the goal. @ref NTR_GOAL_RAISE: max_fall_48h is more than
- *  @ref NTR_CF_WRONG_WAY_MARGIN; @ref NTR_GOAL_LOWER: max_rise_48h is more
- *  than the margin; @ref NTR_GOAL_HOLD: any window is over its limit (any
+/** Moved against the goal. Raising (@ref NTR_GOAL_RAISE), max_fall_48h is
+ *  more than @ref NTR_CF_WRONG_WAY_MARGIN; lowering (@ref NTR_GOAL_LOWER),
+ *  max_rise_48h is more than the margin; holding (@ref NTR_GOAL_HOLD), any
+ *  window is over its limit (any
  *  of the four OVER bits), or, in a direction with no limit at all, the
  *  48 h change in that direction is more than the margin. */
 #define NTR_CF_WRONG_WAY 0x200u
@@ -1984,7 +1985,8 @@ NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
  *
  * For samples s[0..n-1] in non-decreasing time, i <= j meaning "earlier"
  * and "later" (array order breaks ties of time), windows W = 24 and 48 h,
- * two samples within W when t_j - t_i <= W + @ref NTR_CF_TIME_TOLERANCE_H:
+ * and two samples are within W when t_j - t_i <= W +
+ * @ref NTR_CF_TIME_TOLERANCE_H . Then:
  * - max_rise_W = max(0, max over i < j within W of (Na_j - Na_i));
  * - max_fall_W = max(0, max over i < j within W of (Na_i - Na_j)): falls
  *   are counted exactly as rises (the engine reads the series' mirror
