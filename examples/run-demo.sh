@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # The README's demo command: installs any missing build dependency
 # (Debian/Ubuntu, apt-get), builds the library and the demo in build/, and
-# runs the demo on its built-in invented patient.
+# runs the demo on its built-in invented patients.
 #
 #   bash examples/run-demo.sh [demo arguments]
 #

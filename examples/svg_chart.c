@@ -171,6 +171,11 @@ static void draw_legend(FILE *out, const chart *c)
     y += 26.0;
     diamond(out, LEGEND_LEFT + 11.0, y - 4.0);
     text_at(out, LEGEND_LEFT + 30.0, y + 1.0, "start", "", c->points.flagged_label);
+    y += 18.0;
+    for (i = 0; c->notes != NULL && i < c->n_notes; ++i) {
+        y += 18.0;
+        text_at(out, LEGEND_LEFT, y, "start", " font-size=\"13\"", c->notes[i]);
+    }
 }
 
 int chart_write_svg(FILE *out, const chart *c)

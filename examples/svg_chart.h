@@ -5,7 +5,8 @@
  *   - a shaded band (the sodium values the correction limits allow),
  *   - any number of predicted courses as dashed lines,
  *   - measured samples as dots, the flagged ones drawn as diamonds,
- * with labelled axes, a legend and a caption line. */
+ * with labelled axes, a legend, short notes under the legend and a
+ * caption line. */
 #ifndef NTR_EXAMPLE_SVG_CHART_H
 #define NTR_EXAMPLE_SVG_CHART_H
 
@@ -51,6 +52,8 @@ typedef struct chart {
     const chart_line *lines;
     size_t n_lines;
     chart_points points;
+    const char *const *notes;     /* lines of text under the legend; may be NULL */
+    size_t n_notes;
 } chart;
 
 /* Write the chart as a complete SVG document. Returns 0 on success, -1 if

@@ -50,6 +50,11 @@ expect_text() { # file pattern what
     if grep -q -E -- "$2" "$1"; then ok "$3"; else fail "$3: '$2' not found"; fi
 }
 
+expect_no_text() { # file pattern what
+    if grep -q -E -- "$2" "$1"; then fail "$3: found '$(grep -m1 -E -- "$2" "$1")'"
+    else ok "$3"; fi
+}
+
 # run_expect_status status output-file program args...
 run_expect_status() {
     local want=$1 out=$2 rc=0
@@ -85,7 +90,14 @@ check_osmolality_panel() {
     # A unit the analyte does not take, and a value that is not a number.
     run_expect_status 1 "$out" "$bin/osmolality_panel" 140 90 mg/L 14 mg/dL
     expect_text "$out" 'unit' "osmolality_panel refuses mg/L"
-    run_expect_status 1 "$out" "$bin/osmolality_panel" 140 ninety mg/dL 14 mg/dL
+    run_expect_status 2 "$out" "$bin/osmolality_panel" 140 ninety mg/dL 14 mg/dL
+    expect_text "$out" "GLUCOSE 'ninety' is not a number" "osmolality_panel names the argument that is not a number"
+    # Sodium 300 is outside the library's 80-220 mmol/L (docs/ranges.md).
+    run_expect_status 1 "$out" "$bin/osmolality_panel" 300 90 mg/dL 14 mg/dL
+    expect_text "$out" 'SODIUM 300 refused' "osmolality_panel names the refused sodium"
+    # A negative number is a value (refused by range), not an option.
+    run_expect_status 1 "$out" "$bin/osmolality_panel" -5 90 mg/dL 14 mg/dL
+    expect_text "$out" 'SODIUM -5 refused' "osmolality_panel reads -5 as a value, not an option"
 }
 
 check_infusion_plan() {
@@ -97,12 +109,19 @@ check_infusion_plan() {
     # Source: Adrogue & Madias, N Engl J Med 2000, worked example for 3%
     # saline (from memory): (513 - 108) / (30 + 1) = 13.1 mmol/L per litre.
     expect_near "$out" 'change per litre' 13.1 0.05 "infusion_plan Adrogue-Madias per litre"
-    # Source: Furst et al., Am J Med Sci 2000, worked example: sodium 108,
-    # body water 30 L, 292 mL of 3% saline gives about 112 mmol/L.
-    expect_near "$out" 'predicted sodium' 112.0 0.5 "infusion_plan Furst worked example"
+    # The figures of the worked example of Furst et al., Am J Med Sci 2000
+    # (sodium 108, body water 30 L, 292 mL of 3% saline, which the paper
+    # chose by the sodium-deficit step for a wanted rise of 5). Hand-worked
+    # mass balance (Adrogue & Madias 2000): (108 * 30 + 0.292 * 513) /
+    # 30.292 = 111.90 mmol/L, a rise of 3.9: the deficit step under-doses.
+    expect_near "$out" 'predicted sodium' 111.90 0.05 "infusion_plan mass balance on the Furst figures"
     expect_text "$out" 'not orders' "infusion_plan prints the caution"
-    run_expect_status 1 "$out" "$bin/infusion_plan" f 40 60 108 seawater 292
-    run_expect_status 1 "$out" "$bin/infusion_plan" x 40 60 108 saline-3 292
+    run_expect_status 2 "$out" "$bin/infusion_plan" f 40 60 108 seawater 292
+    expect_text "$out" "FLUID 'seawater'" "infusion_plan names the unknown fluid"
+    run_expect_status 2 "$out" "$bin/infusion_plan" x 40 60 108 saline-3 292
+    expect_text "$out" "SEX 'x'" "infusion_plan names the unknown sex"
+    run_expect_status 2 "$out" "$bin/infusion_plan" f 40 sixty 108 saline-3 292
+    expect_text "$out" "WEIGHT_KG 'sixty' is not a number" "infusion_plan names the weight that is not a number"
 }
 
 # watch_series output-file expected-status [high-risk] <<< lines
@@ -137,39 +156,146 @@ check_correction_watch() {
     expect_text "$out" '^48,129,10\.0,19\.0,.*OVER-48H' "watch: 19 in 48 h is over the 48 h limit"
     if grep -q 'OVER-24H' "$out"; then fail "watch: a rise of exactly 10 in 24 h was flagged over"
     else ok "watch: a rise of exactly 10 in 24 h is not over the limit"; fi
+    # Falls (issue P1's case): 165 -> 140 in 24 h is a fall of 25, over the
+    # 10 mmol/L a day of Adrogue & Madias, Hypernatremia, N Engl J Med 2000.
+    watch_series "$out" 1 chronic-high <<< $'0,165\n12,152\n24,140'
+    expect_text "$out" '^24,140,0\.0,0\.0,25\.0,25\.0,0\.0,25\.0,-1\.00,OVER,.*FALL-OVER-24H' "watch chronic-high: 165 -> 140 in 24 h is over the fall limit"
+    # Now versus so far, hand-worked: 165, 160 (6 h), 156 (12 h), 152 (24 h:
+    # 13 below 165, over); at 30 h the highest of the 24 h before is 160,
+    # a fall of exactly 10: within now, while FALL-OVER-24H stays so far.
+    watch_series "$out" 1 chronic-high <<< $'0,165\n6,160\n12,156\n24,152\n30,150'
+    expect_text "$out" '^24,152,0\.0,0\.0,13\.0,13\.0,0\.0,13\.0,-0\.33,OVER,.*FALL-OVER-24H' "watch chronic-high: 13 in 24 h over now"
+    expect_text "$out" '^30,150,0\.0,0\.0,13\.0,15\.0,0\.0,10\.0,-0\.33,within,.*FALL-OVER-24H' "watch chronic-high: within now at 30 h, over so far"
+    # The same fall under the standard (raise) limits is no breach of a
+    # limit: those limits have no fall limit (exit 0).
+    watch_series "$out" 0 <<< $'0,125\n24,121'
+    expect_text "$out" '^24,121,0\.0,0\.0,4\.0,4\.0,0\.0,4\.0,-0\.17,within,' "watch standard: a fall of 4 is reported, no limit breached"
     # Bad input: out of time order, and a line that is not hours,sodium.
     watch_series "$out" 2 <<< $'0,112\n6,116\n4,117'
     expect_text "$out" 'line 3' "watch names the line out of time order"
     watch_series "$out" 2 <<< $'0,112\n6;116'
     watch_series "$out" 2 <<< $'0,112\n6,nan'
     watch_series "$out" 2 bogus <<< $'0,112'
+    expect_text "$out" "LIMITS 'bogus'" "correction_watch names the unknown limits"
+    watch_series "$out" 2 <<< $'0,112\n6,300'
+    expect_text "$out" 'line 2 \(6,300\) refused' "correction_watch names the refused line and its values"
+}
+
+# Every example program: --help and -h print the usage on standard output
+# and exit 0; an unknown option is refused by name with exit 2 and writes
+# no file (the demo's operands are file names).
+check_command_lines() {
+    local prog out=$work/cli.txt err=$work/cli-err.txt dir rc
+    for prog in osmolality_panel infusion_plan correction_watch natremia-demo pkgconfig_consumer; do
+        for opt in --help -h; do
+            rc=0
+            "$bin/$prog" "$opt" > "$out" 2> "$err" < /dev/null || rc=$?
+            if [[ $rc -eq 0 ]] && grep -q '^usage: ' "$out" && [[ ! -s "$err" ]]; then
+                ok "$prog $opt prints the usage and exits 0"
+            else fail "$prog $opt exited $rc, stdout '$(head -1 "$out")', stderr '$(head -1 "$err")'"; fi
+        done
+        dir=$work/cwd-$prog
+        mkdir -p "$dir"
+        rc=0
+        (cd "$dir" && "$bin/$prog" --chart-file > "$out" 2> "$err" < /dev/null) || rc=$?
+        if [[ $rc -eq 2 ]] && grep -q -- "unknown option '--chart-file'" "$err"; then
+            ok "$prog refuses an unknown option by name (exit 2)"
+        else fail "$prog --chart-file exited $rc, stderr '$(head -1 "$err")'"; fi
+        if [[ -z "$(ls -A "$dir")" ]]; then ok "$prog wrote no file after an unknown option"
+        else fail "$prog wrote $(ls -A "$dir" | tr '\n' ' ')after an unknown option"; fi
+    done
+    # "--" ends the options: a chart name starting with "-" is then a file.
+    dir=$work/cwd-dashdash
+    mkdir -p "$dir"
+    rc=0
+    (cd "$dir" && "$bin/natremia-demo" -- -a.svg -b.svg > "$out" 2>&1) || rc=$?
+    if [[ $rc -eq 0 && -s "$dir/-a.svg" && -s "$dir/-b.svg" ]]; then ok "natremia-demo -- -a.svg -b.svg writes both charts"
+    else fail "natremia-demo -- -a.svg -b.svg exited $rc or wrote no charts"; fi
+    run_expect_status 2 "$out" "$bin/natremia-demo" a.svg b.svg c.svg
+    expect_text "$out" 'at most two chart file names' "natremia-demo refuses a third operand"
+    check_cohort_command_line
+}
+
+# The Dask example (argparse) under the same rules; it imports the Python
+# binding first, so it is checked only where numpy is installed.
+check_cohort_command_line() {
+    local src py=/usr/bin/python3 out=$work/cohort.txt rc
+    src=$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)
+    if ! "$py" -c 'import numpy' > /dev/null 2>&1; then
+        echo "SKIP: cohort_dask.py command line (python3-numpy not installed)"
+        return
+    fi
+    export PYTHONPATH=$src/bindings/python NATREMIA_LIBRARY=$bin/../lib/libnatremia.so.1
+    # A sanitizer build of the library cannot be loaded into python3.
+    if ! "$py" -c 'import natremia' > /dev/null 2>&1; then
+        echo "SKIP: cohort_dask.py command line (the binding cannot load this build's library)"
+        unset PYTHONPATH NATREMIA_LIBRARY
+        return
+    fi
+    rc=0
+    "$py" "$src/examples/cohort_dask.py" --help > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 0 ]] && grep -q '^usage: ' "$out"; then ok "cohort_dask.py --help prints the usage and exits 0"
+    else fail "cohort_dask.py --help exited $rc: $(head -3 "$out")"; fi
+    rc=0
+    "$py" "$src/examples/cohort_dask.py" --chart-file > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 2 ]] && grep -q -- '--chart-file' "$out"; then ok "cohort_dask.py refuses an unknown option by name (exit 2)"
+    else fail "cohort_dask.py --chart-file exited $rc: $(tail -1 "$out")"; fi
+    rc=0
+    "$py" "$src/examples/cohort_dask.py" --patients many > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 2 ]] && grep -q -- "--patients: invalid int value: 'many'" "$out"; then ok "cohort_dask.py names the argument that is not a number"
+    else fail "cohort_dask.py --patients many exited $rc: $(tail -1 "$out")"; fi
+    unset PYTHONPATH NATREMIA_LIBRARY
 }
 
 check_demo_text() {
     local out=$work/demo.txt
     (cd "$work" && "$bin/natremia-demo" > "$out" 2>&1) || { fail "natremia-demo failed"; cat "$out"; return; }
     ok "natremia-demo exits 0"
-    expect_text "$out" 'invented' "demo says its patient is invented"
+    expect_text "$out" 'invented' "demo says its patients are invented"
+    expect_text "$out" '^ *Caution: every figure here is an estimate for decision support' "demo opens with the caution"
+    # Units spelled one way; sodium never beyond 0.1 mmol/L.
+    expect_no_text "$out" 'mosm|MOSM|mOsm/L|mosmol' "demo spells the osmolality unit mOsm/kg only"
+    expect_no_text "$out" '(sodium|Na)[^;]*[0-9]\.[0-9]{2,} mmol/L( |$|,|\))' "demo shows no sodium to more than 0.1 mmol/L"
+    expect_no_text "$out" 'safe on its own|is safe' "demo claims no safety the caution does not allow"
+
+    # ---- patient A: low sodium, raised ----
     # Source: conversion of mg/dL with glucose 180.16 g/mol (IUPAC weights):
-    # 162 mg/dL = 8.99 mmol/L; BUN 8 mg/dL over 28.014 g/mol = 2.86 mmol/L.
-    expect_near "$out" '^ *glucose .*->' 8.99 0.005 "demo glucose conversion"
-    # Source: effective osmolality 2*Na + glucose (Spasovski et al. 2014):
-    # 2 * 114 + 8.99 = 237.0.
-    expect_near "$out" 'effective osmolality' 237.0 0.05 "demo effective osmolality"
+    # 162 mg/dL = 8.99 mmol/L, shown to 0.1; BUN 8 mg/dL over 28.014 g/mol
+    # = 2.86 mmol/L of urea, shown 2.9.
+    expect_near "$out" '^ *glucose .*->' 9.0 0.001 "demo glucose conversion, to 0.1 mmol/L"
+    expect_near "$out" '^ *urea nitrogen .*->' 2.9 0.001 "demo urea conversion, to 0.1 mmol/L"
+    # Source: Oster & Singer, Arch Intern Med 1999; Milionis et al., CMAJ
+    # 2002: effective osmolality is measured less urea: 243 - 2.856 = 240.1.
+    expect_near "$out" 'effective osmolality +measured - urea' 240.1 0.05 "demo effective osmolality (measured less urea)"
+    expect_text "$out" 'effective osmolality below 275 mOsm/kg +240\.1 mOsm/kg +met$' "demo SIAD uses the same effective osmolality"
+    # Findings entered by the clinician are passed on, not tested: "reported".
+    expect_text "$out" '^ +clinically euvolaemic +by clinician +reported$' "demo: volume status reads 'reported'"
+    expect_text "$out" '^ +thyroid function normal +by clinician +reported$' "demo: thyroid function reads 'reported'"
+    expect_no_text "$out" '(euvolaemic|thyroid|adrenal|pituitary|kidney|diuretic).* met$' "demo: no clinician finding reads 'met'"
     # Source: Adrogue & Madias 2000: TBW 0.45 * 58 kg for a woman over 65.
     expect_near "$out" 'fraction of weight' 26.1 0.05 "demo body water (fraction)"
     # Source: Furst et al. 2000: (82 + 38) / 114 = 1.05, above 1.
     expect_near "$out" 'urine Na \+ urine K' 1.05 0.005 "demo Furst ratio"
     expect_text "$out" 'profound' "demo severity is profound (Spasovski et al. 2014: below 125)"
     expect_text "$out" 'consistent with SIAD' "demo SIAD verdict"
+    # Risk factors (Verbalis et al. 2013): all asked about and absent.
+    expect_text "$out" 'risk factors for osmotic demyelination: none known' "demo: 'none known' when every factor is known absent"
+    expect_text "$out" 'standard limits, because no risk factor is present or' "demo says why the standard limits apply"
+    expect_text "$out" 'alcohol use disorder: not recorded' "demo: an unknown factor reads 'not recorded'"
+    expect_text "$out" 'high-risk limits, because a risk factor is not recorded' "demo says why the high-risk limits were chosen"
     # Source: Adrogue & Madias 2000 mass balance: 300 mL of 3% saline into
-    # 26.1 L: 114 + 0.3 * (513 - 114) / 26.4 = 118.53 mmol/L.
-    expect_near "$out" 'both boluses' 118.53 0.05 "demo predicted sodium after the boluses"
+    # 26.1 L: 114 + 0.3 * (513 - 114) / 26.4 = 118.53 mmol/L, shown 118.5.
+    expect_near "$out" 'both boluses' 118.5 0.05 "demo predicted sodium after the boluses"
     expect_text "$out" 'boluses alone' "demo checks the plan without a diuresis"
-    expect_text "$out" 'BREACHES the 24 h limit' "demo plan check with a water diuresis breaches the 24 h limit"
-    # Source: Verbalis et al. 2013 / Spasovski et al. 2014: 10 mmol/L in
-    # 24 h; 114 -> 125.5 at 16 h is 11.5, over by 1.5.
-    expect_text "$out" '^ +16\.0 +125\.5 +11\.5 .*OVER 24 h LIMIT' "demo flags the over-rapid rise at 16 h"
+    expect_text "$out" 'predicted to BREACH the 24 h rise limit' "demo plan check with a water diuresis breaches the 24 h limit"
+    # "now" and "so far" (limits: Verbalis et al. 2013 / Spasovski et al.
+    # 2014, 10 mmol/L in 24 h). Hand-worked: 114 -> 125.5 at 16 h is 11.5,
+    # over now; at 30 h the lowest of the past 24 h is 120.5 (8 h), a rise
+    # of 3.5, within now, while the breach at 16 h stays "so far".
+    expect_text "$out" '^ +12\.0 +123\.0 +9\.0 +9\.0 +\+0\.62 +within, near a limit +none$' "demo: 9 in 12 h is near the limit, no breach so far"
+    expect_text "$out" '^ +16\.0 +125\.5 +11\.5 +11\.5 +\+0\.62 +OVER 24 h rise limit +over at 16 h$' "demo flags the over-rapid rise at 16 h, now"
+    expect_text "$out" '^ +30\.0 +124\.0 +3\.5 +10\.0 +\+0\.25 +within the limits +over at 16 h$' "demo: at 30 h within now, over so far"
+    expect_text "$out" '^ +48\.0 +128\.0 +5\.5 +14\.0 +\+0\.25 +within the limits +over at 16 h$' "demo: at 48 h within now (5.5 in 24 h, 14 in 48 h)"
     expect_near "$out" 'exceeds the limit by' 1.5 0.05 "demo excess over the 24 h limit"
     # Source: Adrogue & Madias 2000, the infusate formula solved for volume:
     # lowering 125.5 by 3.5 with 5% dextrose (Na 0) into 26.1 L needs
@@ -177,13 +303,56 @@ check_demo_text() {
     # urine at Na + K 120 mmol/L, nearly the target's 122, which changes
     # the volume by only a few mL: hence the 10 mL tolerance.
     expect_near "$out" '5% dextrose' 749 10 "demo re-lowering volume"
-    expect_text "$out" 'agrees with the streaming watcher' "demo batch and streaming assessments agree"
+    expect_text "$out" 'so far: over a limit from 16 h; the worst window, over the 24 h rise limit' "demo: patient A so far, over from 16 h"
+    if [[ $(grep -c 'agrees with the streaming watcher' "$out") -eq 2 ]]; then ok "demo batch and streaming assessments agree for both patients"
+    else fail "demo: batch and streaming assessments do not agree for both patients"; fi
+
+    # ---- patient B: high sodium, lowered ----
+    # Source: Oster & Singer 1999; Milionis et al. 2002 (effective = measured
+    # less urea): 350 - 16 = 334.0 mOsm/kg, above 295: hypertonic.
+    expect_text "$out" 'effective osmolality +measured - urea +334\.0 mOsm/kg' "demo patient B effective osmolality 334.0"
+    expect_text "$out" 'hypertonic \(above 295 mOsm/kg\)' "demo patient B is hypertonic"
+    # Source: Adrogue & Madias 2000 (from memory): 0.5 * 70 kg for a man
+    # over 65 = 35.0 L. Water deficit, the textbook formula (Adrogue &
+    # Madias, Hypernatremia, N Engl J Med 2000): 35 * (162/140 - 1) = 5.5 L.
+    expect_near "$out" 'fraction of weight \(0\.5 for a man' 35.0 0.05 "demo patient B body water"
+    expect_near "$out" 'water deficit  TBW' 5.5 0.05 "demo patient B water deficit"
+    # Limits: Adrogue & Madias, Hypernatremia, N Engl J Med 2000: chronic
+    # or unknown duration, a fall of at most 10 mmol/L a day.
+    expect_text "$out" 'a fall of at most 10 mmol/L in any 24 h' "demo patient B fall limit"
+    # Hand-worked mass balance, the deficit over 24 h: 5.5 L / 24 h = 229
+    # mL/h of 5% dextrose, urine 50 mL/h at Na + K 70: at 24 h
+    # (162*35 - 1.2*70) / (35 + 5.5 - 1.2) = 142.1 mmol/L; the fall first
+    # exceeds 10 when (5670 - 3.5 t) / (35 + 0.1792 t) < 152, t > 11.39 h:
+    # the first 0.5 h point is 11.5 h.
+    expect_text "$out" 'the deficit over 24 h: 5% dextrose 229 mL/h' "demo patient B 24 h plan rate"
+    expect_text "$out" 'predicted sodium at 24 h: 142\.1 mmol/L \(fall 19\.9 mmol/L\)' "demo patient B 24 h plan: 142.1 at 24 h, a fall of 19.9"
+    expect_text "$out" 'predicted to BREACH the 24 h fall limit from hour 11\.5' "demo patient B: the 24 h water plan breaches the fall limit at 11.5 h"
+    # The deficit over 48 h, 115 mL/h: at 24 h (5670 - 84) / 36.55 = 152.8
+    # (a fall of 9.2, within); at 48 h (5670 - 168) / 38.1 = 144.4.
+    expect_near "$out" 'predicted sodium at 48 h' 144.4 0.05 "demo patient B 48 h plan, sodium at 48 h"
+    expect_text "$out" 'predicted to stay within the limits \(largest fall 9\.2 mmol/L in 24 h\)' "demo patient B: the 48 h water plan stays within"
+    # The measured fall (limit 10 in 24 h, Adrogue & Madias 2000), hand-worked:
+    # 162 -> 152 at 12 h is exactly 10 (at the limit, not over); 150.5 at
+    # 16 h is 11.5, over; at 30 h the highest of the past 24 h is 155 (8 h),
+    # a fall of 6.0: within now, over so far.
+    expect_text "$out" '^ +12\.0 +152\.0 +10\.0 +10\.0 +-0\.75 +within, near a limit +none$' "demo patient B: 10 in 12 h is at the limit, not over"
+    expect_text "$out" '^ +16\.0 +150\.5 +11\.5 +11\.5 +-0\.38 +OVER 24 h fall limit +over at 16 h$' "demo patient B: the too-fast fall flagged at 16 h"
+    expect_text "$out" '^ +30\.0 +149\.0 +6\.0 +13\.0 +-0\.17 +within the limits +over at 16 h$' "demo patient B: at 30 h within now, over so far"
+    expect_text "$out" 'still over: the 162\.0 mmol/L of hour 0 is within the last 24 h' "demo patient B says why 20 h is still over"
+    expect_text "$out" 'too fast a fall: 11\.5 mmol/L in 24 h, over the limit by 1\.5' "demo patient B too-fast fall message"
+    expect_text "$out" 'over the 24 h fall limit$' "demo patient B so far names the fall limit"
+    expect_text "$out" 'by 2\.0 mmol/L, ends at 24 h' "demo patient B worst window: 162 -> 150 by 24 h, 2.0 over"
+    expect_text "$out" 'Patient B \(invented\)' "demo says patient B is invented"
     # Provenance through ntr_method_info: Watson's paper is the source of
     # the anthropometric body water (Watson, Watson & Batt, Am J Clin Nutr 1980).
     expect_text "$out" 'Watson PE, Watson ID, Batt RD' "demo names the source of the Watson equations"
-    expect_text "$out" 'decision support, not an' "demo ends with the caution"
-    if [[ -s "$work/natremia-demo.svg" ]]; then ok "demo writes natremia-demo.svg by default"
-    else fail "demo wrote no natremia-demo.svg in its working directory"; fi
+    if [[ $(grep -c 'Caution: every figure here is an estimate for decision support, not an' "$out") -ge 3 ]]; then
+        ok "demo shows the caution at the start and after each patient"
+    else fail "demo shows the caution fewer than 3 times"; fi
+    if [[ -s "$work/natremia-demo.svg" && -s "$work/natremia-demo-high-sodium.svg" ]]; then
+        ok "demo writes natremia-demo.svg and natremia-demo-high-sodium.svg by default"
+    else fail "demo wrote not both default charts in its working directory"; fi
 }
 
 # The PNG's width and height from its IHDR chunk (bytes 16-23, big-endian).
@@ -200,7 +369,7 @@ check_chart() {
         echo "SKIP: rsvg-convert not found (apt-get install librsvg2-bin)"
         exit 77
     fi
-    "$bin/natremia-demo" "$svg" > "$work/demo.txt" 2>&1 || { fail "natremia-demo $svg failed"; return; }
+    "$bin/natremia-demo" "$svg" "$work/chart2.svg" > "$work/demo.txt" 2>&1 || { fail "natremia-demo $svg failed"; return; }
     if [[ -s "$svg" ]]; then ok "demo writes the chart to the path given"
     else fail "demo wrote nothing to $svg"; return; fi
     expect_text "$svg" '<svg ' "chart is an SVG document"
@@ -208,26 +377,49 @@ check_chart() {
     expect_text "$svg" 'Time since the first sample \(hours\)' "chart labels the time axis with its unit"
     expect_text "$svg" 'not orders.*licensed clinical judgement' "chart carries the caution"
     expect_text "$svg" 'Invented patient' "chart says the patient is invented"
-    # 12 measured samples, one legend entry per marker kind. By the 10 mmol/L
-    # in 24 h limit (Verbalis et al. 2013), only the 16 h result (125.5, 11.5
-    # above the first) makes a rise over the limit worse: 11 dots, 1 diamond.
+    # 12 measured samples, one legend entry per marker kind. A diamond marks
+    # a result over a limit when it was taken, as the table's "now" column
+    # does: by the 10 mmol/L in 24 h limit (Verbalis et al. 2013) only the
+    # 16 h result (125.5, 11.5 above the lowest of the 24 h before it):
+    # 11 dots and 1 diamond, plus one of each in the legend.
     local dots diamonds
     dots=$(grep -c '<circle ' "$svg" || true)
     diamonds=$(grep -c '<polygon fill="#c0392b"' "$svg" || true)
     if [[ "$dots" == 12 && "$diamonds" == 2 ]]; then ok "chart draws 11 measured dots and 1 flagged diamond (plus legend)"
     else fail "chart draws $dots dots and $diamonds diamonds, expected 12 and 2 with the legend"; fi
-    if rsvg-convert -f png -o "$png" "$svg" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders the chart"
-    else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; return; fi
-    if size=$(png_size "$png"); then
-        if [[ "$size" == "960 560" ]]; then ok "chart PNG is valid, 960 x 560 pixels"
-        else fail "chart PNG is $size pixels, expected 960 560"; fi
-    else
-        fail "rsvg-convert output is not a PNG"
-    fi
+    # The chart says what the table's last row says.
+    expect_text "$svg" '>So far: over the 24 h rise limit<' "chart: so far, over the 24 h rise limit"
+    expect_text "$svg" '>first at 16 h; worst 16 h, by 1\.5 mmol/L<' "chart: the breach at 16 h, by 1.5"
+    expect_text "$svg" '>Now \(48 h\): within the limits<' "chart: now within the limits"
+    # Patient B (Adrogue & Madias 2000, a fall of at most 10 in 24 h): 13
+    # results, over now at 16 h (11.5), 20 h (11.5) and 24 h (12.0): 10
+    # dots and 3 diamonds, plus one of each in the legend.
+    local svg2=$work/chart2.svg png2=$work/chart2.png
+    if [[ -s "$svg2" ]]; then ok "demo writes the second chart to the second path"
+    else fail "demo wrote nothing to $svg2"; return; fi
+    dots=$(grep -c '<circle ' "$svg2" || true)
+    diamonds=$(grep -c '<polygon fill="#c0392b"' "$svg2" || true)
+    if [[ "$dots" == 11 && "$diamonds" == 4 ]]; then ok "chart B draws 10 measured dots and 3 flagged diamonds (plus legend)"
+    else fail "chart B draws $dots dots and $diamonds diamonds, expected 11 and 4 with the legend"; fi
+    expect_text "$svg2" 'fall limit' "chart B names the fall limit"
+    expect_text "$svg2" '>So far: over the 24 h fall limit<' "chart B: so far, over the 24 h fall limit"
+    expect_text "$svg2" '>Now \(72 h\): within the limits<' "chart B: now within the limits"
+    expect_text "$svg2" 'not orders.*licensed clinical judgement' "chart B carries the caution"
+    expect_text "$svg2" 'Invented patient' "chart B says the patient is invented"
+    for pair in "$svg:$png" "$svg2:$png2"; do
+        if rsvg-convert -f png -o "${pair#*:}" "${pair%%:*}" 2> "$work/rsvg.txt"; then ok "rsvg-convert renders $(basename "${pair%%:*}")"
+        else fail "rsvg-convert failed: $(cat "$work/rsvg.txt")"; continue; fi
+        if size=$(png_size "${pair#*:}"); then
+            if [[ "$size" == "960 560" ]]; then ok "$(basename "${pair#*:}") is a valid PNG, 960 x 560 pixels"
+            else fail "$(basename "${pair#*:}") is $size pixels, expected 960 560"; fi
+        else
+            fail "rsvg-convert output is not a PNG"
+        fi
+    done
 }
 
 case $mode in
-    examples) check_osmolality_panel; check_infusion_plan; check_correction_watch; check_demo_text ;;
+    examples) check_command_lines; check_osmolality_panel; check_infusion_plan; check_correction_watch; check_demo_text ;;
     chart) check_chart ;;
     *) echo "unknown mode $mode" >&2; exit 1 ;;
 esac
