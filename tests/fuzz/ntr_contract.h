@@ -57,10 +57,19 @@ typedef struct ntrc_outs {
         ntr_siad_findings findings;
         ntr_siad_result siad;
         ntr_watch watch;
+        ntr_course_limits clim;
+        ntr_course_report course;
+        ntr_course_watch cwatch;
         struct {
             ntr_correction out[8];
             int status[8];
         } groups;
+        ntr_course_plan_result course_plan;
+        struct {
+            /* reports at a stride of up to sizeof + 64 bytes */
+            unsigned char out[8 * (sizeof(ntr_course_report) + 64)];
+            int status[8];
+        } course_groups;
     } s;
 } ntrc_outs;
 
@@ -81,6 +90,8 @@ typedef struct ntrc_case {
     ntr_siad_findings findings;
     ntr_watch watch;        /* input state of ntr_watch_push/result */
     ntr_watch watch_clean;  /* the same before any deliberate damage */
+    ntr_course_watch cwatch;       /* input state of ntr_course_watch_push/result */
+    ntr_course_watch cwatch_clean; /* the same before any deliberate damage */
     ntrc_outs out;
 } ntrc_case;
 
