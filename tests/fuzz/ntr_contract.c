@@ -2690,61 +2690,17 @@ static void extra_groups(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_c
 
 /* ---- direction-aware plan check and grouped course assessment ------------------ */
 
-/* Course limits as numbers: rise 24 h, rise 48 h, fall 24 h, fall 48 h,
- * target (each 0 to 50; 0 is "none"), with the goal and the struct_size
- * mode as enumerators. */
-#define COURSE_LIMITS_NUMS                                                             \
-    {"max_rise_24h", 0.0, 50.0, 0}, {"max_rise_48h", 0.0, 50.0, 0},                     \
-    {"max_fall_24h", 0.0, 50.0, 0}, {"max_fall_48h", 0.0, 50.0, 0},                     \
-    {"min_change_24h", 0.0, 50.0, 0}
-#define GOAL_ENUM {"lim.goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}}
-
-/* A struct_size for a mode: 0 the real size, 2 a later, larger header's,
- * 1 one byte short, others far too small (all three refused). */
-static size_t size_for_mode(int mode, size_t real)
+/* Course limits as in ntr_course_assess()'s entry (COURSE_NUMS,
+ * COURSE_ENUMS, course_limits_from, course_limits_status): the plan check
+ * has its limits at num[3..7], after body water, duration and step. */
+static void plan_course_limits(const ntrc_case *c, ntr_course_limits *lim)
 {
-    switch (mode) {
-    case 0: return real;
-    case 2: return real + 64;
-    case 1: return real - 1;
-    default: return mode < 0 ? 0 : sizeof(size_t);
-    }
-}
-
-static void course_limits_from(const double *x, int goal, int size_mode, ntr_course_limits *lim)
-{
-    lim->struct_size = size_for_mode(size_mode, sizeof *lim);
-    lim->goal = goal;
-    lim->max_rise_24h = x[0];
-    lim->max_rise_48h = x[1];
-    lim->max_fall_24h = x[2];
-    lim->max_fall_48h = x[3];
-    lim->min_change_24h = x[4];
-}
-
-/* The values checks of course limits as the header states them: each of
- * the five in order, then the 24 h limit not above the 48 h one where
- * both are set, and the target (0 for hold) not above a limit of the
- * goal's direction. */
-static int course_limits_values_status(const double *x, int goal)
-{
-    int i, st;
-    for (i = 0; i < 5; i++) {
-        if ((st = check_value(x[i], 0.0, 50.0)) != NTR_OK) {
-            return st;
-        }
-    }
-#define LOOSER(a, b) ((a) > 0.0 && (b) > 0.0 && (a) > (b))
-    if (LOOSER(x[0], x[1]) || LOOSER(x[2], x[3])) {
-        return NTR_ERR_RANGE;
-    }
-    if (goal == NTR_GOAL_HOLD ? x[4] > 0.0
-        : goal == NTR_GOAL_RAISE ? (LOOSER(x[4], x[0]) || LOOSER(x[4], x[1]))
-                                 : (LOOSER(x[4], x[2]) || LOOSER(x[4], x[3]))) {
-        return NTR_ERR_RANGE;
-    }
-#undef LOOSER
-    return NTR_OK;
+    course_limits_from(c, lim);
+    lim->max_rise_24h = c->num[3];
+    lim->max_rise_48h = c->num[4];
+    lim->max_fall_24h = c->num[5];
+    lim->max_fall_48h = c->num[6];
+    lim->min_change_24h = c->num[7];
 }
 
 static int size_mode_ok(int mode)
@@ -2752,7 +2708,8 @@ static int size_mode_ok(int mode)
     return mode == 0 || mode == 2;
 }
 
-/* en[0] goal, en[1] limits' size mode, en[2] result's (or report's) size mode. */
+/* en[0] goal, en[1] limits' size mode, en[2] result's (or report's) size
+ * mode, as in COURSE_ENUMS. */
 enum { CP_GOAL, CP_LIM_SIZE, CP_OUT_SIZE };
 
 static void base_course_plan(ntrc_case *c)
@@ -2762,14 +2719,13 @@ static void base_course_plan(ntrc_case *c)
 
 static void prepare_course_plan(ntrc_case *c)
 {
-    c->out.s.course_plan.struct_size =
-        size_for_mode(c->en[CP_OUT_SIZE], sizeof c->out.s.course_plan);
+    c->out.s.course_plan.struct_size = siad_size(c->en[CP_OUT_SIZE], sizeof c->out.s.course_plan);
 }
 
 static int call_course_plan_check(ntrc_case *c)
 {
     ntr_course_limits lim;
-    course_limits_from(&c->num[3], c->en[CP_GOAL], c->en[CP_LIM_SIZE], &lim);
+    plan_course_limits(c, &lim);
     return ntr_course_plan_check(in_null(c, 0) ? NULL : c->samples, c->n, c->num[0],
                                  in_null(c, 1) ? NULL : c->tflows, c->n2, c->num[1], c->num[2],
                                  in_null(c, 2) ? NULL : &lim,
@@ -2792,7 +2748,7 @@ static int predict_course_plan_check(const ntrc_fn *f, const ntrc_case *c)
         (st = check_value(c->num[0], 0.1, 400.0)) != NTR_OK ||
         (st = tflows_status(c->tflows, c->n2)) != NTR_OK ||
         (st = span_status(c->num[1], c->num[2])) != NTR_OK ||
-        (st = course_limits_values_status(&c->num[3], c->en[CP_GOAL])) != NTR_OK) {
+        (st = course_limits_status(c->en[CP_GOAL], &c->num[3])) != NTR_OK) {
         return st;
     }
     if (!samples_sorted(c->samples, c->n) || !tflows_ordered(c->tflows, c->n2)) {
@@ -2953,13 +2909,13 @@ static void extra_course_plan(const ntrc_fn *f, void (*judge)(const ntrc_fn *, n
  * (the stride). */
 static size_t course_report_stride(const ntrc_case *c)
 {
-    return size_for_mode(c->en[CP_OUT_SIZE], sizeof(ntr_course_report));
+    return siad_size(c->en[CP_OUT_SIZE], sizeof(ntr_course_report));
 }
 
 static int call_batch_course_assess(ntrc_case *c)
 {
     ntr_course_limits lim;
-    course_limits_from(c->num, c->en[CP_GOAL], c->en[CP_LIM_SIZE], &lim);
+    course_limits_from(c, &lim);
     return ntr_batch_course_assess(
         c->groups, in_null(c, 0) ? NULL : c->offsets, in_null(c, 1) ? NULL : c->samples,
         c->capacity, in_null(c, 2) ? NULL : &lim, course_report_stride(c),
@@ -2982,7 +2938,7 @@ static int course_groups_call_level(const ntrc_case *c)
 static int course_group_status(const ntrc_case *c, size_t g, ntr_course_report *r)
 {
     ntr_course_limits lim;
-    course_limits_from(c->num, c->en[CP_GOAL], c->en[CP_LIM_SIZE], &lim);
+    course_limits_from(c, &lim);
     r->struct_size = sizeof *r;
     return ntr_course_assess(&c->samples[c->offsets[g]], c->offsets[g + 1] - c->offsets[g], &lim,
                              r);
@@ -3423,10 +3379,11 @@ const ntrc_fn ntrc_functions[] = {
      .fuzz_series = fuzz_groups, .check_err = err_batch_correction, .results = results_groups,
      .extra_cases = extra_groups, .check_ok = ok_batch_correction},
     {CALL(course_plan_check), .n_enum = 3,
-     .en = {GOAL_ENUM, SIZE_MODE("lim.struct_size"), SIZE_MODE("out.struct_size")},
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            SIZE_MODE("limits_struct_size"), SIZE_MODE("result_struct_size")},
      .n_num = 8,
      .num = {TBW, {"duration_h", 0.0, 720.0, 1}, {"step_h", 1.0 / 60.0, 720.0, 0},
-             COURSE_LIMITS_NUMS},
+             COURSE_NUMS},
      .n_in_ptr = 4,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
      .base_num = {35.0, 24.0, 2.0, 10.0, 18.0, 10.0, 0.0, 4.0},
@@ -3435,8 +3392,7 @@ const ntrc_fn ntrc_functions[] = {
      .prepare_out = prepare_course_plan, .results = results_course_plan,
      .extra_cases = extra_course_plan, .check_ok = ok_course_plan_check},
     {CALL(batch_course_assess), .n_enum = 3,
-     .en = {GOAL_ENUM, SIZE_MODE("lim.struct_size"), SIZE_MODE("report_size")},
-     .n_num = 5, .num = {COURSE_LIMITS_NUMS}, .n_in_ptr = 6,
+     .en = {COURSE_ENUMS}, .n_num = 5, .num = {COURSE_NUMS}, .n_in_ptr = 6,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER),
      .base_num = {10.0, 18.0, 10.0, 0.0, 4.0}, .base_en = {NTR_GOAL_RAISE, 0, 0},
      .predict = predict_batch_course, .base_series = base_groups_valid,
