@@ -1535,7 +1535,9 @@ NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
 /* ======================================================================= */
 
 /** @defgroup correction Correction-rate safety limits
- *  Watch a measured sodium series against limits on how fast it may rise.
+ *  Watch a measured sodium series against limits on how fast it may rise
+ *  and, since 1.1 (ntr_course_assess(), ntr_course_watch_push()), on how
+ *  fast it may fall.
  *
  *  The rises that matter are counted over sliding windows: a rise is the
  *  later sample minus the earlier one, for two samples at most 24 h (or
@@ -1705,6 +1707,9 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  *
  * Cost: linear in n, no allocation, O(1) extra memory (a block scheme over
  * the time axis; docs/correction.md). One sample yields zeros and no flag.
+ * Since 1.1 this is ntr_course_assess() with goal raise, no fall limits and
+ * the 1.0 target, its flags limited to @ref NTR_CF_ALL: one engine, the
+ * same results bit for bit. It cannot see falls: use ntr_course_assess().
  *
  * @param s   samples in non-decreasing time; hours finite, -1e6 to 1e6
  *            (any origin, so times before it are negative); sodium 80 to
@@ -1887,9 +1892,10 @@ typedef struct ntr_course_limits {
 #define NTR_CF_FALL_OVER_24H 0x80u
 /** max_fall_48h exceeds limits.max_fall_48h (a limit above 0). */
 #define NTR_CF_FALL_OVER_48H 0x100u
-/** Moved against the goal. @ref NTR_GOAL_RAISE: max_fall_48h is more than
- *  @ref NTR_CF_WRONG_WAY_MARGIN; @ref NTR_GOAL_LOWER: max_rise_48h is more
- *  than the margin; @ref NTR_GOAL_HOLD: any window is over its limit (any
+/** Moved against the goal. Raising (@ref NTR_GOAL_RAISE), max_fall_48h is
+ *  more than @ref NTR_CF_WRONG_WAY_MARGIN; lowering (@ref NTR_GOAL_LOWER),
+ *  max_rise_48h is more than the margin; holding (@ref NTR_GOAL_HOLD), any
+ *  window is over its limit (any
  *  of the four OVER bits), or, in a direction with no limit at all, the
  *  48 h change in that direction is more than the margin. */
 #define NTR_CF_WRONG_WAY 0x200u
@@ -1984,7 +1990,8 @@ NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
  *
  * For samples s[0..n-1] in non-decreasing time, i <= j meaning "earlier"
  * and "later" (array order breaks ties of time), windows W = 24 and 48 h,
- * two samples within W when t_j - t_i <= W + @ref NTR_CF_TIME_TOLERANCE_H:
+ * and two samples are within W when t_j - t_i <= W +
+ * @ref NTR_CF_TIME_TOLERANCE_H . Then:
  * - max_rise_W = max(0, max over i < j within W of (Na_j - Na_i));
  * - max_fall_W = max(0, max over i < j within W of (Na_i - Na_j)): falls
  *   are counted exactly as rises (the engine reads the series' mirror
@@ -2048,8 +2055,8 @@ NTR_API int ntr_course_assess(const ntr_sample *s, size_t n,
 
 /** Candidates an ntr_course_watch keeps per direction (window minima for
  *  rises, maxima for falls): exact for a series rising (or falling)
- *  steadily for 48 h with a sample every 30 minutes or less often. Denser
- *  series are compacted, never refused. */
+ *  steadily, for any length, sampled every 31 minutes or less often.
+ *  Denser series are compacted, never refused. */
 #define NTR_COURSE_WATCH_CAPACITY 96
 
 /** Private part of an ntr_course_watch: one direction's candidates. */
@@ -2347,6 +2354,11 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  * a rise already measured counts against the limits) and reports the first
  * predicted point whose 24 h or 48 h window rise exceeds the limit.
  * No buffer is needed; the cost is O((n_history + points) * n_flows).
+ *
+ * It judges rises only: a plan that lowers sodium too fast (free water in
+ * hypernatraemia, or a hyponatraemia worsening) is not flagged. For
+ * either direction use ntr_course_plan_check() (since 1.1), which gives
+ * these same rise breach times under the same rise limits.
  *
  * @param history   measured samples, as in ntr_correction_assess(); the
  *                  last one is the sodium now.
@@ -2802,6 +2814,9 @@ NTR_API int ntr_fit_reproject(const ntr_sample *history, size_t n,
 
 /**
  * @brief Assess many sodium series at once (one per patient), CSR style.
+ *
+ * Rises only, as ntr_correction_assess(); for falls as well use
+ * ntr_batch_course_assess() (since 1.1).
  *
  * Group g is the series samples[offsets[g]] to samples[offsets[g+1] - 1];
  * out[g] and status[g] are exactly what ntr_correction_assess() returns for

@@ -356,7 +356,6 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
 {
     struct plan_run run;
     ntri_breach breach;
-    ntr_correction course;
 
     if (history == NULL || lim == NULL || out == NULL ||
         (flows == NULL && n_flows > 0)) {
@@ -365,9 +364,10 @@ int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
     /* The 1.0 limits have no ARG stage. */
     NTR_TRY(plan_run_start(&run, history, n_history, tbw_l, flows, n_flows,
                            duration_h, step_h, NTR_OK, ntri_limits_check(lim)));
-    ntri_assess(&run.v, lim, n_history, &course, &breach);
-
-    out->course = course;
+    /* Every check has passed: nothing can fail from here, so the
+     * assessment goes straight into *out (no copy on the stack, which
+     * firmware builds keep small: tests/bench/firmware.py). */
+    ntri_assess(&run.v, lim, n_history, &out->course, &breach);
     out->final_na_mmol_l = run.final_na;
     out->final_tbw_l = run.final_tbw;
     out->breach_24h_h = breach_time(&run.p, breach.first_over_24h);
@@ -424,11 +424,11 @@ static void course_plan_finish(const struct plan_run *run,
                                ntr_course_plan_result *out)
 {
     ntri_course_breach breach;
-    ntr_course_report course;
     size_t first;
     unsigned int flag;
 
-    ntri_course_assess(&run->v, lim, run->p.n_history, &course, &breach);
+    /* Nothing can fail from here: the report is written in place. */
+    ntri_course_assess(&run->v, lim, run->p.n_history, &out->course, &breach);
     first_breach(&breach, &first, &flag);
 
     out->struct_size = sizeof(ntr_course_plan_result);
@@ -443,7 +443,6 @@ static void course_plan_finish(const struct plan_run *run,
     out->first_breach_direction = direction_of(flag);
     out->points = (unsigned int)run->p.grid;
     out->reserved = 0u;
-    out->course = course;
 }
 
 int ntr_course_plan_check(const ntr_sample *history, size_t n_history,

@@ -434,7 +434,8 @@ static unsigned int wrong_way(const struct figures *f, const ntr_course_limits *
 /* Inline (a hint): in the watchers' calls the figures then stay in
  * registers instead of going through memory (tests/bench/run-bench.sh). */
 static inline void finish(const struct figures *f, const ntr_course_limits *lim,
-                          unsigned int extra_flags, ntr_course_report *out)
+                          unsigned int dirs, unsigned int extra_flags,
+                          ntr_course_report *out)
 {
     unsigned int flags = 0u;
     double excess = 0.0;
@@ -445,10 +446,14 @@ static inline void finish(const struct figures *f, const ntr_course_limits *lim,
                  &flags, &excess, &worst_at);
     judge_window(f->up.max_48h, lim->max_rise_48h, f->up.at_48h, NTR_CF_OVER_48H,
                  &flags, &excess, &worst_at);
-    judge_window(f->down.max_24h, lim->max_fall_24h, f->down.at_24h,
-                 NTR_CF_FALL_OVER_24H, &flags, &excess, &worst_at);
-    judge_window(f->down.max_48h, lim->max_fall_48h, f->down.at_48h,
-                 NTR_CF_FALL_OVER_48H, &flags, &excess, &worst_at);
+    /* Rises only (the 1.0 callers, whose flags stop at NTR_CF_ALL): the
+     * fall figures are zeros and no fall bit could survive. */
+    if ((dirs & DIR_FALL) != 0u) {
+        judge_window(f->down.max_24h, lim->max_fall_24h, f->down.at_24h,
+                     NTR_CF_FALL_OVER_24H, &flags, &excess, &worst_at);
+        judge_window(f->down.max_48h, lim->max_fall_48h, f->down.at_48h,
+                     NTR_CF_FALL_OVER_48H, &flags, &excess, &worst_at);
+    }
 
     toward = lim->goal == NTR_GOAL_LOWER ? f->down.first_24h : f->up.first_24h;
     if (lim->min_change_24h > 0.0 && f->elapsed_h >= 24.0 - NTR_CF_TIME_TOLERANCE_H &&
@@ -460,12 +465,14 @@ static inline void finish(const struct figures *f, const ntr_course_limits *lim,
     }
     flags |= trend_flags(&f->up, lim->max_rise_24h, lim->max_rise_48h,
                          NTR_CF_NEAR_LIMIT, NTR_CF_PROJECTED_OVER);
-    flags |= trend_flags(&f->down, lim->max_fall_24h, lim->max_fall_48h,
-                         NTR_CF_FALL_NEAR_LIMIT, NTR_CF_FALL_PROJECTED_OVER);
     if (f->up.open_6h >= NTR_CF_RAPID_RISE - NTR_CF_TOLERANCE) {
         flags |= NTR_CF_RAPID_6H;
     }
-    flags |= wrong_way(f, lim, flags);
+    if ((dirs & DIR_FALL) != 0u) {
+        flags |= trend_flags(&f->down, lim->max_fall_24h, lim->max_fall_48h,
+                             NTR_CF_FALL_NEAR_LIMIT, NTR_CF_FALL_PROJECTED_OVER);
+        flags |= wrong_way(f, lim, flags);
+    }
 
     out->struct_size = sizeof *out;
     out->max_rise_24h = f->up.max_24h;
@@ -791,7 +798,7 @@ static void course_engine(const ntri_series *v, const ntr_course_limits *lim,
     f.elapsed_h = point_at(v, v->n - 1, 0).hours - point_at(v, 0, 0).hours;
     has_prev = previous_time_point(v, 0, &prev);
     last_interval(has_prev, prev, point_at(v, v->n - 1, 0), &f);
-    finish(&f, lim, 0u, out);
+    finish(&f, lim, dirs, 0u, out);
     if (breach != NULL) {
         *breach = b;
     }
@@ -893,10 +900,18 @@ struct ring_pos {
     unsigned int front6;
 };
 
+/* Ring index of offset k (k <= cap, head < cap): a compare instead of a
+ * division, since the capacity is not a constant here. */
+static unsigned int ring_index(const struct ring_pos *p, unsigned int k)
+{
+    const unsigned int i = p->head + k;
+    return i >= p->cap ? i - p->cap : i;
+}
+
 static const ntr_sample *ring_get(const ntr_sample *e, const struct ring_pos *p,
                                   unsigned int k)
 {
-    return &e[(p->head + k) % p->cap];
+    return &e[ring_index(p, k)];
 }
 
 /* Structural checks, so a damaged state can never make an index leave the
@@ -935,15 +950,26 @@ static int change_sound(double x)
     return x >= 0.0 && x <= NTR_NA_MAX - NTR_NA_MIN;
 }
 
-static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, double sign)
+static int stretch_sound(const ntr_sample *e, unsigned int from, unsigned int to,
+                         double sign)
 {
     unsigned int k;
-    for (k = 0u; k < p->kept; k++) {
-        if (!sample_sound(*ring_get(e, p, k), sign)) {
+    for (k = from; k < to; k++) {
+        if (!sample_sound(e[k], sign)) {
             return 0;
         }
     }
     return 1;
+}
+
+/* Every kept entry, as the two contiguous stretches of the ring. */
+static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, double sign)
+{
+    const unsigned int end = p->head + p->kept;
+    if (end <= p->cap) {
+        return stretch_sound(e, p->head, end, sign);
+    }
+    return stretch_sound(e, p->head, p->cap, sign) && stretch_sound(e, 0u, end - p->cap, sign);
 }
 
 /* How many entries a new sample pushes out: from the front, those no
@@ -972,7 +998,7 @@ static unsigned int front_after(unsigned int front, unsigned int dropped)
  * itself was pushed out, the next sample is the first inside. */
 static void ring_drop(struct ring_pos *p, unsigned int drop_front, unsigned int drop_back)
 {
-    p->head = (p->head + drop_front) % p->cap;
+    p->head = ring_index(p, drop_front);
     p->front24 = front_after(p->front24, drop_front);
     p->front6 = front_after(p->front6, drop_front);
     p->kept -= drop_front + drop_back;
@@ -1002,18 +1028,18 @@ static void ring_compact(ntr_sample *e, float *span, struct ring_pos *p)
     double best_span = HUGE_VAL;
     unsigned int k;
     for (k = 0u; k + 1u < p->kept; k++) {
-        const unsigned int b = (p->head + k + 1u) % p->cap;
+        const unsigned int b = ring_index(p, k + 1u);
         double merged = e[b].na_mmol_l + (double)span[b] - ring_get(e, p, k)->na_mmol_l;
         if (merged < best_span) {
             best_span = merged;
             best = k;
         }
     }
-    e[(p->head + best) % p->cap].hours = ring_get(e, p, best + 1u)->hours;
-    span[(p->head + best) % p->cap] = (float)best_span;
+    e[ring_index(p, best)].hours = ring_get(e, p, best + 1u)->hours;
+    span[ring_index(p, best)] = (float)best_span;
     for (k = best + 1u; k + 1u < p->kept; k++) {
-        const unsigned int to = (p->head + k) % p->cap;
-        const unsigned int from = (p->head + k + 1u) % p->cap;
+        const unsigned int to = ring_index(p, k);
+        const unsigned int from = ring_index(p, k + 1u);
         e[to] = e[from];
         span[to] = span[from];
     }
@@ -1030,7 +1056,7 @@ static void ring_compact(ntr_sample *e, float *span, struct ring_pos *p)
  * inside each window ending at it. */
 static void ring_insert(ntr_sample *e, struct ring_pos *p, ntr_sample s)
 {
-    e[(p->head + p->kept) % p->cap] = s;
+    e[ring_index(p, p->kept)] = s;
     p->kept++;
     while (!within(ring_get(e, p, p->front24)->hours, s.hours, WINDOW_24H)) {
         p->front24++;
@@ -1204,7 +1230,7 @@ static void watch_report(const ntr_watch *w, ntr_correction *out)
     f.elapsed_h = w->last.hours - w->first.hours;
     last_interval(w->seen == 2u, w->prev, w->last, &f);
     ring_direction(w->ring, &p, w->seen == 2u, w->prev, w->last, &f.up);
-    finish(&f, &course, 0u, &r);
+    finish(&f, &course, DIR_RISE, 0u, &r);
     correction_of(&r, out);
 }
 
@@ -1333,7 +1359,7 @@ static int spans_sound(const ntr_course_watch_ring *r, const struct ring_pos *p)
 {
     unsigned int k;
     for (k = 0u; k < p->kept; k++) {
-        if (!change_sound((double)r->span[(p->head + k) % p->cap])) {
+        if (!change_sound((double)r->span[ring_index(p, k)])) {
             return 0;
         }
     }
@@ -1442,7 +1468,7 @@ static void course_watch_report(const ntr_course_watch *w, ntr_course_report *ou
     ring_direction(w->low.entry, &low, has_prev, w->prev, w->last, &f.up);
     ring_direction(w->high.entry, &high, has_prev, mirrored(w->prev), mirrored(w->last),
                    &f.down);
-    finish(&f, &w->limits, w->approximate ? NTR_CF_APPROXIMATE : 0u, out);
+    finish(&f, &w->limits, DIR_BOTH, w->approximate ? NTR_CF_APPROXIMATE : 0u, out);
 }
 
 int ntr_course_watch_result(const ntr_course_watch *w, ntr_course_report *out)
@@ -1473,7 +1499,7 @@ static int course_ring_push(ntr_course_watch_ring *r, ntr_sample s, double *max_
         compacted = 1;
     }
     ring_insert(r->entry, &p, s);
-    r->span[(p.head + p.kept - 1u) % p.cap] = 0.0f;
+    r->span[ring_index(&p, p.kept - 1u)] = 0.0f;
     ring_track(r->entry, &p, s, max_24h, max_48h, at_24h, at_48h);
     course_store_pos(r, &p);
     return compacted;

@@ -1650,6 +1650,30 @@ static void course_watcher_over_report_on_random_series(void **state)
     assert_true(worst_share <= COURSE_WATCH_SHARE);
 }
 
+/* The documented capacity: a steady rise sampled every 31 minutes (at most
+ * 93 candidates within 48 h) stays exact for 96 h; every 20 minutes it
+ * compacts (145 within 48 h). Invented series, rising 0.5 mmol/L/h. */
+static void course_watcher_capacity_is_as_documented(void **state)
+{
+    static ntr_sample s[300];
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    size_t n, k, compacted_at;
+    (void)state;
+    assert_int_equal(NTR_COURSE_WATCH_CAPACITY, 96);
+    for (n = 0, k = 0; (double)k * 31.0 / 60.0 <= 96.0; k++, n++) {
+        s[k].hours = (double)k * 31.0 / 60.0;
+        s[k].na_mmol_l = 110.0 + 0.5 * s[k].hours;
+    }
+    (void)watch_against_exact(s, n, &lim, &compacted_at);
+    assert_int_equal(compacted_at, 0);
+    for (n = 0, k = 0; (double)k / 3.0 <= 96.0; k++, n++) {
+        s[k].hours = (double)k / 3.0;
+        s[k].na_mmol_l = 110.0 + 0.5 * s[k].hours;
+    }
+    (void)watch_against_exact(s, n, &lim, &compacted_at);
+    assert_true(compacted_at > 96 && compacted_at <= 146);
+}
+
 static void course_watcher_rejects_bad_inputs(void **state)
 {
     ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
@@ -1880,6 +1904,7 @@ int main(void)
         cmocka_unit_test(course_watcher_equals_assess_on_random_series),
         cmocka_unit_test(course_watcher_never_refuses_dense_series),
         cmocka_unit_test(course_watcher_over_report_on_random_series),
+        cmocka_unit_test(course_watcher_capacity_is_as_documented),
         cmocka_unit_test(course_watcher_rejects_bad_inputs),
         cmocka_unit_test(course_watcher_refuses_damaged_states),
         cmocka_unit_test(watcher_refuses_damaged_numbers),
