@@ -1,6 +1,8 @@
 /* Correction-rate safety: limit presets, risk of osmotic demyelination,
- * assessing a measured sodium series, and a streaming watcher that gives
- * the same answers one result at a time (docs/correction.md). */
+ * assessing a measured sodium series in both directions (one engine: the
+ * 1.0 rise-only functions are wrappers over it), and two streaming
+ * watchers on one ring engine that give the same answers one result at a
+ * time (docs/correction.md). */
 #include "correction_engine.h"
 
 /* Window lengths with the time tolerance folded in: a pair exactly W hours
