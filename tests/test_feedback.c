@@ -414,7 +414,9 @@ static size_t synthetic(double na0, double tbw, double loss_ml_h,
     ntr_timed_flow all[8];
     size_t count;
     assert_true(n_known < COUNT(all));
-    memcpy(all, known, n_known * sizeof *known);
+    if (n_known > 0) {
+        memcpy(all, known, n_known * sizeof *known);
+    }
     all[n_known] = timed(0.0, 720.0, -loss_ml_h, 0.0, 0.0);
     assert_int_equal(ntr_balance_course(na0, tbw, all, n_known + 1, 24.0, step, out,
                                         capacity, &count), NTR_OK);
