@@ -2545,6 +2545,313 @@ NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: feedback (lib/feedback.c, docs/feedback.md) ============= */
+/* ======================================================================= */
+
+/** @defgroup feedback Urine feedback and the fitted prediction
+ *  Closing the loop: measured urine turned into an electrolyte-free water
+ *  balance and a re-projected course, and the patient's apparent body water
+ *  and unmeasured free-water loss fitted to the measured sodium series.
+ *  Everything runs on the library's mass balance (section balance); the
+ *  clock of every flow and interval is hours after the first measured
+ *  sample (history[0]). docs/feedback.md gives the equations, the
+ *  validation and what the model ignores.
+ *
+ *  @warning Estimates for decision support, not orders. Verify with
+ *  measured values; follow local protocols and licensed clinical judgement.
+ *  @{ */
+
+/** A measured urine collection (ABI since 1.1; layout fixed, grows only
+ *  into its reserved fields). */
+typedef struct ntr_urine_interval {
+    double start_h;      /**< Start, 0 to 720 h after history[0]. */
+    double end_h;        /**< End, at least a minute after start_h, at most 720 h. */
+    double volume_ml;    /**< Volume collected, 0 to 30000 mL. */
+    double na_mmol_l;    /**< Urine sodium, 0 to 500 mmol/L. */
+    double k_mmol_l;     /**< Urine potassium, 0 to 300 mmol/L. */
+    double osm_mosm_kg;  /**< Urine osmolality, 10 to 2000 mOsm/kg. */
+    double reserved_d[2];     /**< Must be 0 (room for growth). */
+    unsigned int reserved[2]; /**< Must be 0 (room for growth). */
+} ntr_urine_interval;
+
+/** @name Urine feedback flags (bits of ntr_urine_feedback_result.flags; ABI since 1.1)
+ *  @{ */
+/** The re-projected course passes a limit (either direction) before the horizon ends. */
+#define NTR_FB_LIMIT_AHEAD 0x1u
+/** "Water diuresis under way": the first breach ahead is of a rise limit
+ *  and the latest urine loses electrolyte-free water (its Na + K below the
+ *  serum sodium). */
+#define NTR_FB_WATER_DIURESIS 0x2u
+/** The latest urine is maximally dilute (osmolality 100 mOsm/kg or below). */
+#define NTR_FB_DILUTE_URINE 0x4u
+/** The breach is already behind "now": by the estimate, the urine measured
+ *  since the last sample has carried the sodium past the limit. */
+#define NTR_FB_OVER_NOW 0x8u
+/** The first breach ahead is of a fall limit and the latest urine's
+ *  Na + K exceeds the serum sodium (electrolyte-rich urine lowers it). */
+#define NTR_FB_SALT_LOSS 0x10u
+/** @} */
+
+/**
+ * @brief What ntr_urine_feedback() finds (ABI since 1.1).
+ *
+ * Set @c struct_size to sizeof(ntr_urine_feedback_result) before the call;
+ * on success it is set to the size filled. EFW figures are mL of
+ * electrolyte-free water, positive for water gained (inputs) or lost
+ * (outputs). "Now" is the later of the last sample and the end of the last
+ * interval.
+ */
+typedef struct ntr_urine_feedback_result {
+    size_t struct_size;        /**< sizeof(ntr_urine_feedback_result) as the caller knows it; set on success. */
+    double now_h;              /**< "Now", hours after history[0]. */
+    double na_now_mmol_l;      /**< Sodium estimated now (the last sample carried forward by the balance). */
+    double tbw_now_l;          /**< Body water estimated now, L. */
+    double efw_in_ml;          /**< EFW of the inputs (flows with rate > 0) from the last sample to now. */
+    double efw_out_ml;         /**< EFW of the measured urine and other losses (rate < 0) over the same span. */
+    double efw_balance_ml;     /**< efw_in_ml - efw_out_ml (> 0 lowers the sodium, < 0 raises it). */
+    double urine_ml_h;         /**< Rate of the latest interval, the rate continued over the horizon. */
+    double urine_efw_ml_h;     /**< Its electrolyte-free water clearance, relative to na_now_mmol_l. */
+    double input_efw_ml_h;     /**< EFW rate of the inputs running at now, relative to na_now_mmol_l. */
+    double na_rate_mmol_l_h;   /**< Rate of change of sodium now from the EFW balance rate. */
+    double breach_h;           /**< Hours after now of the first predicted breach (0 if already
+                                    behind now), or NTR_PLAN_NO_BREACH. */
+    unsigned int flags;        /**< NTR_FB_* bits. */
+    unsigned int reserved;     /**< Written as 0. */
+    ntr_course_plan_result plan; /**< The re-projected course checked: from the last sample to now + horizon
+                                      (breach times in it are hours after the last sample). */
+} ntr_urine_feedback_result;
+
+/**
+ * @brief Measured urine into an electrolyte-free water balance and a
+ * re-projected course; warns when the urine would carry the sodium past a
+ * limit within a horizon.
+ *
+ * Electrolyte-free water (EFW) of a volume V of fluid whose sodium +
+ * potassium is c, at serum sodium Na: EFW = V*(1 - c/Na) (Shah & Bhave;
+ * for urine it is the electrolyte-free water clearance, ntr_efwc()).
+ * From the last sample (sodium Na_L, body water @p tbw_l) to now, with the
+ * EFW of the inputs (flows with rate > 0) and of the outputs (the measured
+ * urine, pro rata where an interval straddles the last sample, and flows
+ * with rate < 0) taken relative to Na_L, and the net volume G:
+ *   Na_now = Na_L - Na_L*(EFW_in - EFW_out)/(tbw_l + G),
+ * which is the library's mass balance written in EFW terms (equal to
+ * ntr_balance_predict() of the same volumes). The rate form at now:
+ *   dNa/dt = -Na_now*(EFW rate of inputs - EFW clearance of urine)/TBW_now
+ * (per hour, EFW rates in L/h).
+ * The re-projection continues the latest interval's urine (rate and
+ * Na + K) from now to now + @p horizon_h beside the flows, and checks the
+ * whole course (the history, the estimate up to now, the projection) with
+ * ntr_course_plan_check() under @p lim. Gaps between intervals count as no
+ * urine.
+ *
+ * @param history   measured sodium, time-ordered; history[0] is the clock's origin.
+ * @param n_history at least 1.
+ * @param tbw_l     body water at the last sample, 0.1 to 400 L.
+ * @param flows     inputs given and planned, and losses other than urine
+ *                  (ranges as in ntr_timed_flow; times hours after history[0]; may
+ *                  be NULL when @p n_flows is 0).
+ * @param n_flows   number of flows.
+ * @param urine     measured intervals, in time order, not overlapping.
+ * @param n_urine   at least 1.
+ * @param horizon_h how far past now to look, above 0 and at most 720 h
+ *                  (for example 6 h).
+ * @param step_h    spacing of the predicted points, 1/60 to 720 h.
+ * @param lim       course limits, as in ntr_course_assess().
+ * @param[in,out] out the result; struct_size set by the caller.
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      a pointer is NULL (@p flows only with flows to read).
+ * @retval NTR_ERR_ARG       @p n_history or @p n_urine is 0, a struct_size
+ *                           below the 1.1 size, lim->goal unknown, or a
+ *                           reserved field not 0.
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history, body water,
+ *                           flows, intervals (each in struct order), horizon,
+ *                           step, limits.
+ * @retval NTR_ERR_ORDER     history out of time order, a flow ending before
+ *                           it starts, an interval shorter than a minute or
+ *                           starting before the previous one ends.
+ * @retval NTR_ERR_DOMAIN    the last sample more than 720 h after the first,
+ *                           the horizon ending more than 720 h after the last
+ *                           sample, an interval's rate above 5000 mL/h, or a
+ *                           point leaving the model's range.
+ * Checks run: pointers; counts, the limits' struct_size and goal, the
+ * result's struct_size, reserved fields (flows, then intervals); history,
+ * body water, flows, intervals, horizon, step, limits; order (history,
+ * flows, intervals); domain.
+ *
+ * References: Shah SR, Bhave G. Using electrolyte free water balance to
+ * rationalize and treat dysnatremias. Front Med 2018;5:103 (EFW balance);
+ * Spasovski G et al. Eur J Endocrinol 2014;170:G1-G47 (urine osmolality
+ * 100 mOsm/kg or below: maximally dilute); mass balance as
+ * ntr_balance_predict().
+ * Methods: @ref NTR_METHOD_EFW_BALANCE, @ref NTR_METHOD_URINE_FEEDBACK,
+ * @ref NTR_METHOD_PLAN_CHECK.
+ */
+NTR_API int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
+                               double tbw_l, const ntr_timed_flow *flows,
+                               size_t n_flows, const ntr_urine_interval *urine,
+                               size_t n_urine, double horizon_h, double step_h,
+                               const ntr_course_limits *lim,
+                               ntr_urine_feedback_result *out);
+
+/**
+ * @brief A measured urine interval as a timed loss (since 1.1).
+ *
+ * rate = -volume / (end - start) (mL/h), sodium and potassium the urine's,
+ * over the interval's span: give the intervals to ntr_course_fit() as
+ * flows so the fitted loss is what the measured urine does not explain.
+ *
+ * @param urine     the interval (ranges in ntr_urine_interval).
+ * @param[out] flow the timed flow (reserved fields 0).
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (a reserved field not 0),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (a member, in struct order),
+ *         NTR_ERR_ORDER (shorter than a minute), NTR_ERR_DOMAIN (rate above
+ *         5000 mL/h).
+ *
+ * References: mass balance as ntr_balance_course().
+ * Method: @ref NTR_METHOD_URINE_FEEDBACK.
+ */
+NTR_API int ntr_urine_interval_flow(const ntr_urine_interval *urine,
+                                    ntr_timed_flow *flow);
+
+/** @name Fit flags (bits of ntr_fit.flags; ABI since 1.1)
+ *  @{ */
+#define NTR_FIT_TBW_AT_BOUND 0x1u  /**< tbw_l is at an end of its search range (guess/3 to 3*guess). */
+#define NTR_FIT_LOSS_AT_BOUND 0x2u /**< free_water_loss_ml_h is at -2000 or 2000 mL/h. */
+#define NTR_FIT_NOT_CONVERGED 0x4u /**< The iteration limit ended the search. */
+#define NTR_FIT_EXACT 0x8u         /**< Three samples: as many as parameters, no residual left, no standard errors. */
+#define NTR_FIT_DRIFT 0x10u        /**< The last three residuals average more than 1.5 mmol/L:
+                                        the series is leaving the model (a rate that changed). */
+/** @} */
+
+/**
+ * @brief Apparent body water and unmeasured free-water loss fitted to a
+ * measured series (ABI since 1.1).
+ *
+ * Set @c struct_size to sizeof(ntr_fit) before the call; on success it is
+ * set to the size filled. ntr_fit_reproject() reads struct_size, tbw_l and
+ * free_water_loss_ml_h only, so a caller may fill those to project a plan
+ * with values of its own (for example the guess and 0).
+ */
+typedef struct ntr_fit {
+    size_t struct_size;          /**< sizeof(ntr_fit) as the caller knows it; set on success. */
+    double tbw_l;                /**< Apparent body water at history[0], L. */
+    double free_water_loss_ml_h; /**< Unmeasured free-water loss, mL/h (> 0 loss, < 0 gain). */
+    double rms_residual_mmol_l;  /**< sqrt(mean of (measured - fitted)^2), mmol/L. */
+    unsigned int flags;          /**< NTR_FIT_* bits. */
+    unsigned int iterations;     /**< Iterations used, all starts together. */
+    double na0_mmol_l;           /**< Fitted sodium at history[0] (the first sample is measured too). */
+    double tbw_se_l;             /**< Approximate standard error of tbw_l (0 with NTR_FIT_EXACT). */
+    double free_water_loss_se_ml_h; /**< The same for the loss. */
+    double correlation;          /**< Correlation of the two estimates (the separability measure). */
+    double tbw_last_l;           /**< Body water at the last sample by the fitted model, L. */
+    double na_last_fit_mmol_l;   /**< Fitted sodium at the last sample. */
+    double late_residual_mmol_l; /**< Mean of the last three residuals (measured - fitted). */
+} ntr_fit;
+
+/**
+ * @brief Fit body water and an unmeasured free-water loss to the measured
+ * sodium by least squares under the library's mass balance (since 1.1).
+ *
+ * Model at sample k, t_k = history[k].hours - history[0].hours: the flows
+ * that ran by t_k (volume V_k, Na + K content S_k, as ntr_balance_course())
+ * and a free-water loss L mL/h from t = 0 (a timed flow of rate -L with no
+ * sodium) give, by ntr_balance_predict()'s mass balance,
+ *   Na_k = (Na0*W + S_k) / (W + V_k - L*t_k/1000).
+ * W (body water at history[0]), L and Na0 minimise
+ * sum (measured_k - Na_k)^2. Na0 is fitted too, so the first sample's
+ * error does not bias the other two. Search: Levenberg-Marquardt on the
+ * three, each step clipped to the box W in [guess/3, 3*guess] (within 0.1
+ * to 400 L), L in [-2000, 2000] mL/h, Na0 in [80, 220]; at most 100
+ * iterations from each of two starts (the guess with no loss, and the
+ * solution of the model linearised in 1/W), the better result kept.
+ * Deterministic, no allocation, O(iterations * n * n_flows).
+ *
+ * Separability: from the normal matrix J'J at the solution (J the
+ * derivatives of Na_k by Na0, W, L), scaled to unit diagonal, the
+ * correlation r of the W and L estimates (from its inverse). When
+ * |r| > 0.999, or the scaled matrix is singular, the data cannot tell a
+ * smaller body water from a free-water loss: NTR_ERR_DOMAIN. That happens
+ * without flows (the series then fixes only L/W) and under one steady
+ * infusion from the first sample; a bolus, a stop or a change of rate
+ * separates them. Standard errors: s*sqrt(diag((J'J)^-1)) with
+ * s^2 = sum of squared residuals / (n - 3).
+ *
+ * @param history     measured sodium, at least 3 samples, time-ordered,
+ *                    the last at most 720 h after the first.
+ * @param n           number of samples.
+ * @param tbw_guess_l body water guess at history[0], 0.1 to 400 L (for
+ *                    example ntr_tbw_watson()); it sets the search range.
+ * @param flows       the known flows (infusions, measured urine as
+ *                    ntr_urine_interval_flow() gives it), times hours after
+ *                    history[0]; may be NULL when @p n_flows is 0.
+ * @param n_flows     number of flows.
+ * @param[in,out] out the fit; struct_size set by the caller.
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p history or @p out is NULL, or @p flows with flows to read.
+ * @retval NTR_ERR_ARG       @p n below 3, out->struct_size below the 1.1
+ *                           size, or a flow's reserved field not 0.
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history (each sample:
+ *                           hours, sodium), guess, flows (each in struct order).
+ * @retval NTR_ERR_ORDER     history out of time order, or a flow ending
+ *                           before it starts.
+ * @retval NTR_ERR_DOMAIN    the last sample more than 720 h after the first;
+ *                           the model leaves its range at both starts; or the
+ *                           data cannot separate the two (above).
+ *
+ * References: mass balance as ntr_balance_predict(); Levenberg K. Q Appl
+ * Math 1944;2:164-8 and Marquardt DW. J Soc Ind Appl Math 1963;11:431-41
+ * (the search; cited from memory). Formula predictions that fall short of
+ * the measured rise, mostly through urine water (Mohmand HK et al. Clin J
+ * Am Soc Nephrol 2007; from memory), are what the fitted loss captures.
+ * Methods: @ref NTR_METHOD_COURSE_FIT, @ref NTR_METHOD_FIT_SEPARABILITY,
+ * @ref NTR_METHOD_BALANCE_COURSE.
+ */
+NTR_API int ntr_course_fit(const ntr_sample *history, size_t n,
+                           double tbw_guess_l, const ntr_timed_flow *flows,
+                           size_t n_flows, ntr_fit *out);
+
+/**
+ * @brief Re-project the remaining plan with fitted values and check it
+ * (since 1.1).
+ *
+ * Body water at the last sample: fit->tbw_l carried through the flows and
+ * the fitted loss up to t_last = history[n-1].hours - history[0].hours.
+ * From the last sample, the flows (times hours after history[0]; only what
+ * runs after t_last counts) and the fitted loss as one more timed flow
+ * (rate -free_water_loss_ml_h, no sodium) over @p duration_h, checked by
+ * ntr_course_plan_check() with the measured history in front.
+ *
+ * @param history   measured sodium, time-ordered, at least 1 sample, the
+ *                  last at most 720 h after the first.
+ * @param n         number of samples.
+ * @param fit       the fit (ntr_course_fit()): struct_size, tbw_l 0.1 to
+ *                  400 L, free_water_loss_ml_h -2000 to 2000 are read.
+ * @param flows     given and planned flows, as in ntr_course_fit().
+ * @param n_flows   number of flows.
+ * @param duration_h how far past the last sample, above 0 and at most 720 h.
+ * @param step_h    spacing of the predicted points, 1/60 to 720 h.
+ * @param lim       course limits, as in ntr_course_assess().
+ * @param[in,out] out the verdict, as ntr_course_plan_check()'s (breach times
+ *                  hours after the last sample); struct_size set by the caller.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (@p n 0, a struct_size below
+ *         the 1.1 size, lim->goal unknown, a reserved field not 0),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (history, fit's body water and
+ *         loss, flows, duration, step, limits), NTR_ERR_ORDER,
+ *         NTR_ERR_DOMAIN (the last sample more than 720 h after the first,
+ *         or a point, the body water at the last sample included, leaving
+ *         the model's range).
+ *
+ * References: as ntr_course_plan_check().
+ * Methods: @ref NTR_METHOD_FIT_REPROJECT, @ref NTR_METHOD_PLAN_CHECK.
+ */
+NTR_API int ntr_fit_reproject(const ntr_sample *history, size_t n,
+                              const ntr_fit *fit, const ntr_timed_flow *flows,
+                              size_t n_flows, double duration_h, double step_h,
+                              const ntr_course_limits *lim,
+                              ntr_course_plan_result *out);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: batch correction (lib/batch.c, docs/batch.md) =========== */
 /* ======================================================================= */
 
@@ -2656,7 +2963,8 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 
 /** @defgroup methods Method identifiers
  *  Every published method the library uses has an id (ABI). Ids 1-29 are
- *  the core formulas, 30-49 correction and balance, 50-69 the work-up.
+ *  the core formulas, 30-49 correction and balance, 50-69 the work-up,
+ *  70-89 the therapy areas of issue P2 (83-89: urine feedback and the fit).
  *  @{ */
 #define NTR_METHOD_UNIT_CONVERSION 1       /**< unit conversion by molar mass (IUPAC, UCUM) */
 #define NTR_METHOD_OSM_2NA 2               /**< calculated osmolality, 2*Na formula */
@@ -2703,6 +3011,12 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_SIAD_CRITERIA 56        /**< essential and supplemental SIAD criteria */
 #define NTR_METHOD_EFFECTIVE_OSM_MEASURED 57 /**< measured osmolality less urea and 1.25*ethanol, floored at 2*Na + glucose */
 #define NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY 58 /**< low-sodium flags judged on the effective osmolality */
+/* Urine feedback and the fitted prediction (ids 83-89, issue P2; lib/feedback.c). */
+#define NTR_METHOD_EFW_BALANCE 83          /**< electrolyte-free water balance of inputs and outputs */
+#define NTR_METHOD_URINE_FEEDBACK 84       /**< measured urine continued: limit within a horizon */
+#define NTR_METHOD_COURSE_FIT 85           /**< least-squares fit of body water and free-water loss */
+#define NTR_METHOD_FIT_SEPARABILITY 86     /**< correlation test: can the data tell the two apart */
+#define NTR_METHOD_FIT_REPROJECT 87        /**< remaining plan re-projected with fitted values */
 /** @} */
 
 #ifdef __cplusplus

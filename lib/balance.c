@@ -3,6 +3,7 @@
  * correction limits, and the fluid to re-lower after overcorrection
  * (docs/balance.md). */
 #include "correction_engine.h"
+#include "balance_engine.h"
 
 /* ---- mass balance --------------------------------------------------------- */
 
@@ -10,6 +11,12 @@
  * water after within 0.1 to 400 L) are ntri_mass_balance() in
  * ntr_internal.h: the infusate functions and the re-lowering estimate
  * apply the same rule, so no function predicts a state another refuses. */
+
+int ntri_balance_apply(double na0, double tbw0, double gain_l,
+                       double excess_mmol, double *na1, double *tbw1)
+{
+    return apply_balance(na0, tbw0, gain_l, excess_mmol, na1, tbw1);
+}
 
 static int check_flow(const ntr_flow *f)
 {
@@ -103,6 +110,11 @@ struct plan {
     /* For the plan check: the measured history in front of the points. */
     const ntr_sample *history;
     size_t n_history;
+    /* Flow-clock time of the plan's start (0: flow times are plan times),
+     * and flows described otherwise than by the list (NULL: none). */
+    double shift_h;
+    ntri_flow_source_fn extra;
+    const void *extra_ctx;
 };
 
 /* ceil(duration/step), then nudged so that exactly the offsets j*step with
@@ -140,6 +152,9 @@ static void plan_init(struct plan *p, double na0, double tbw0,
     p->grid = grid_count(duration_h, step_h);
     p->history = history;
     p->n_history = n_history;
+    p->shift_h = 0.0;
+    p->extra = NULL;
+    p->extra_ctx = NULL;
 }
 
 static double plan_offset(const struct plan *p, size_t j)
@@ -147,22 +162,36 @@ static double plan_offset(const struct plan *p, size_t j)
     return j < p->grid ? (double)j * p->step_h : p->duration_h;
 }
 
-/* Sodium and water tau hours into the plan: every flow contributes
- * rate/1000 * (time it has run so far) litres. */
+/* Every flow contributes rate/1000 * (time it has run between from_h and
+ * to_h) litres. With from_h 0 and flows starting at or after 0 the time
+ * run is min(to, end) - start, bit for bit. */
+void ntri_timed_flows_add(const ntr_timed_flow *flows, size_t n, double from_h,
+                          double to_h, double na0, double *gain, double *excess)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        const ntr_timed_flow *f = &flows[i];
+        const double stop = to_h < f->end_h ? to_h : f->end_h;
+        const double begin = f->start_h > from_h ? f->start_h : from_h;
+        const double ran = stop - begin;
+        if (ran > 0.0) {
+            const double v = f->rate_ml_h / 1000.0 * ran;
+            *gain += v;
+            *excess += v * ((f->na_mmol_l + f->k_mmol_l) - na0);
+        }
+    }
+}
+
+/* Sodium and water tau hours into the plan. */
 static int plan_state(const struct plan *p, double tau, double *na, double *tbw)
 {
     double gain = 0.0;
     double excess = 0.0;
-    size_t i;
-    for (i = 0; i < p->n_flows; i++) {
-        const ntr_timed_flow *f = &p->flows[i];
-        const double stop = tau < f->end_h ? tau : f->end_h;
-        const double ran = stop - f->start_h;
-        if (ran > 0.0) {
-            const double v = f->rate_ml_h / 1000.0 * ran;
-            gain += v;
-            excess += v * ((f->na_mmol_l + f->k_mmol_l) - p->na0);
-        }
+    const double to = tau + p->shift_h;
+    ntri_timed_flows_add(p->flows, p->n_flows, p->shift_h, to, p->na0, &gain,
+                         &excess);
+    if (p->extra != NULL) {
+        p->extra(p->extra_ctx, p->shift_h, to, p->na0, &gain, &excess);
     }
     return ntri_mass_balance(p->na0, p->tbw0, gain, excess, na, tbw);
 }
@@ -257,6 +286,15 @@ struct plan_run {
     double final_tbw;
 };
 
+/* The series of a plan run: history, then points computed on demand. */
+static void plan_run_series(struct plan_run *run)
+{
+    run->v.samples = NULL;
+    run->v.point = plan_point;
+    run->v.ctx = &run->p;
+    run->v.n = run->p.n_history + run->p.grid;
+}
+
 /*
  * Everything both plan checks do but the assessment, whose limits differ
  * in type (ntr_limits, ntr_course_limits): the checks in the documented
@@ -289,10 +327,7 @@ static int plan_run_start(struct plan_run *run, const ntr_sample *history,
     plan_init(&run->p, history[n_history - 1].na_mmol_l, tbw_l, flows, n_flows,
               duration_h, step_h, history, n_history);
     NTR_TRY(plan_validate(&run->p, &run->final_na, &run->final_tbw));
-    run->v.samples = NULL;
-    run->v.point = plan_point;
-    run->v.ctx = &run->p;
-    run->v.n = n_history + run->p.grid;
+    plan_run_series(run);
     return NTR_OK;
 }
 
@@ -365,6 +400,33 @@ static int direction_of(unsigned int flag)
                                                              : NTR_PLAN_BREACH_FALL;
 }
 
+/* The assessment and verdict of a started direction-aware plan check. */
+static void course_plan_finish(const struct plan_run *run,
+                               const ntr_course_limits *lim,
+                               ntr_course_plan_result *out)
+{
+    ntri_course_breach breach;
+    size_t first;
+    unsigned int flag;
+
+    /* Nothing can fail from here: the report is written in place. */
+    ntri_course_assess(&run->v, lim, run->p.n_history, &out->course, &breach);
+    first_breach(&breach, &first, &flag);
+
+    out->struct_size = sizeof(ntr_course_plan_result);
+    out->final_na_mmol_l = run->final_na;
+    out->final_tbw_l = run->final_tbw;
+    out->breach_rise_24h_h = breach_time(&run->p, breach.rise_24h);
+    out->breach_rise_48h_h = breach_time(&run->p, breach.rise_48h);
+    out->breach_fall_24h_h = breach_time(&run->p, breach.fall_24h);
+    out->breach_fall_48h_h = breach_time(&run->p, breach.fall_48h);
+    out->first_breach_h = breach_time(&run->p, first);
+    out->first_breach_flag = flag;
+    out->first_breach_direction = direction_of(flag);
+    out->points = (unsigned int)run->p.grid;
+    out->reserved = 0u;
+}
+
 int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
                           double tbw_l, const ntr_timed_flow *flows,
                           size_t n_flows, double duration_h, double step_h,
@@ -372,9 +434,6 @@ int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
                           ntr_course_plan_result *out)
 {
     struct plan_run run;
-    ntri_course_breach breach;
-    size_t first;
-    unsigned int flag;
     int kind;
 
     if (history == NULL || lim == NULL || out == NULL ||
@@ -387,22 +446,24 @@ int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
     NTR_TRY(plan_run_start(&run, history, n_history, tbw_l, flows, n_flows,
                            duration_h, step_h, kind,
                            kind == NTR_OK ? ntri_course_limits_values(lim) : kind));
-    /* As in ntr_plan_check(): nothing can fail from here. */
-    ntri_course_assess(&run.v, lim, n_history, &out->course, &breach);
-    first_breach(&breach, &first, &flag);
+    course_plan_finish(&run, lim, out);
+    return NTR_OK;
+}
 
-    out->struct_size = sizeof(ntr_course_plan_result);
-    out->final_na_mmol_l = run.final_na;
-    out->final_tbw_l = run.final_tbw;
-    out->breach_rise_24h_h = breach_time(&run.p, breach.rise_24h);
-    out->breach_rise_48h_h = breach_time(&run.p, breach.rise_48h);
-    out->breach_fall_24h_h = breach_time(&run.p, breach.fall_24h);
-    out->breach_fall_48h_h = breach_time(&run.p, breach.fall_48h);
-    out->first_breach_h = breach_time(&run.p, first);
-    out->first_breach_flag = flag;
-    out->first_breach_direction = direction_of(flag);
-    out->points = (unsigned int)run.p.grid;
-    out->reserved = 0u;
+int ntri_course_plan_run(const ntri_plan_spec *spec,
+                         const ntr_course_limits *lim,
+                         ntr_course_plan_result *out)
+{
+    struct plan_run run;
+    const ntr_sample *now = &spec->history[spec->n_history - 1];
+    plan_init(&run.p, now->na_mmol_l, spec->tbw_l, spec->flows, spec->n_flows,
+              spec->duration_h, spec->step_h, spec->history, spec->n_history);
+    run.p.shift_h = spec->shift_h;
+    run.p.extra = spec->extra;
+    run.p.extra_ctx = spec->extra_ctx;
+    NTR_TRY(plan_validate(&run.p, &run.final_na, &run.final_tbw));
+    plan_run_series(&run);
+    course_plan_finish(&run, lim, out);
     return NTR_OK;
 }
 

@@ -399,6 +399,60 @@ static int describe(int method, struct ntr_method_info *info)
             REF_HILLIER,
             "adults with a low serum sodium");
 
+    /* ==== urine feedback and the fitted prediction (ids 83-89, issue P2) === */
+    case NTR_METHOD_EFW_BALANCE:
+        return entry(info, method, "Electrolyte-free water balance of inputs and outputs",
+            "EFW of a volume V with sodium + potassium c at serum sodium Na: "
+            "V*(1 - c/Na); balance = EFW in - EFW out; "
+            "Na1 = Na0 - Na0*balance/TBW1 (the mass balance in EFW terms); "
+            "rate form dNa/dt = -Na*(EFW rate in - EFW clearance)/TBW",
+            "Shah SR, Bhave G. Using electrolyte free water balance to "
+            "rationalize and treat dysnatremias. Front Med 2018;5:103",
+            "adults with a low or high sodium whose inputs and urine are measured");
+    case NTR_METHOD_URINE_FEEDBACK:
+        return entry(info, method, "Measured urine continued over a horizon",
+            "the latest collection's rate and Na + K continued from now to "
+            "now + horizon beside the planned flows; the course (history, "
+            "estimate to now, projection) checked against the course limits; "
+            "water diuresis under way when the first breach ahead is a rise "
+            "and the urine's EFW clearance is positive; urine osmolality "
+            "<= 100 mOsm/kg marks it maximally dilute",
+            "Library's own method on the EFW balance (Shah SR, Bhave G. Front "
+            "Med 2018;5:103) and the mass balance; " REF_SPASOVSKI
+            " (maximally dilute urine)",
+            "adults under treatment for a low sodium with urine collected "
+            "hourly or every few hours");
+    case NTR_METHOD_COURSE_FIT:
+        return entry(info, method, "Fitted body water and unmeasured free-water loss",
+            "Na_k = (Na0*W + S_k)/(W + V_k - L*t_k/1000) (V_k, S_k: volume "
+            "and Na + K content of the known flows by t_k); Na0, W, L "
+            "minimise sum (measured - Na_k)^2 by Levenberg-Marquardt, "
+            "W in guess/3..3*guess, |L| <= 2000 mL/h, at most 100 "
+            "iterations from each of two starts",
+            "Library's own method on the mass balance of " REF_ADROGUE_MADIAS_HYPO
+            "; Levenberg K. Q Appl Math 1944;2:164-8; Marquardt DW. J Soc "
+            "Ind Appl Math 1963;11:431-41 (from memory)",
+            "adults with at least 3 measured sodium values and known "
+            "infusions that change rate (a bolus, a stop)");
+    case NTR_METHOD_FIT_SEPARABILITY:
+        return entry(info, method, "Can the data tell body water from a water loss",
+            "r = correlation of the W and L estimates from the inverse of "
+            "J'J scaled to unit diagonal (J: derivatives of Na_k by Na0, W, "
+            "L); not separable when |r| > 0.999 or the scaled matrix is "
+            "singular; standard errors s*sqrt(diag((J'J)^-1)), "
+            "s^2 = SSR/(n - 3)",
+            "Library's own criterion, derived from the least-squares covariance "
+            "(Marquardt DW. J Soc Ind Appl Math 1963;11:431-41; from memory)",
+            "as the fit");
+    case NTR_METHOD_FIT_REPROJECT:
+        return entry(info, method, "Remaining plan re-projected with fitted values",
+            "body water at the last sample = fitted W carried through the "
+            "flows and the fitted loss; from the last measured sodium, the "
+            "flows after it and the fitted loss as a timed flow of rate -L "
+            "without sodium, checked as ntr_course_plan_check()",
+            "Library's own method on the mass balance of " REF_ADROGUE_MADIAS_HYPO,
+            "as the fit");
+
     default:
         return NTR_ERR_ARG;
     }
@@ -420,7 +474,7 @@ int ntr_method_info(int method, struct ntr_method_info *out)
  * ntr_method_next). They must cover exactly the cases of
  * describe(): tests/test_methods.c (info_and_next_agree) checks that over
  * the whole id space, and that the walk finds exactly the ids the header
- * defines. Three runs cost a few comparisons; walking the switch id by id
+ * defines. Four runs cost a few comparisons; walking the switch id by id
  * cost a call per id tried (68 instructions for the next id, about a
  * thousand calls past the last one; tests/bench/run-bench.sh). */
 static const struct {
@@ -429,7 +483,8 @@ static const struct {
 } method_runs[] = {
     {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_COURSE_WATCH},  /* correction, 30-49 */
-    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY}}; /* work-up, 50-69 */
+    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY}, /* work-up, 50-69 */
+    {NTR_METHOD_EFW_BALANCE, NTR_METHOD_FIT_REPROJECT}};    /* feedback, 83-89 */
 
 int ntr_method_next(int after, int *next)
 {

@@ -50,6 +50,14 @@
 #define NTR_PLAN_HOURS_MAX 720.0     /* plan length and flow times, h (30 days) */
 #define NTR_PLAN_STEP_MIN (1.0 / 60.0) /* plan step and re-lowering period, h (one minute) */
 #define NTR_FLOW_VOLUME_MIN (-30.0)  /* a loss in ntr_balance_predict, L (as NTR_URINE_VOLUME_MAX) */
+/* Urine feedback and the fit (lib/feedback.c); docs/ranges.md. */
+#define NTR_URINE_ML_MAX 30000.0     /* one measured urine interval, mL (NTR_URINE_VOLUME_MAX) */
+#define NTR_FIT_TBW_SPAN 3.0         /* fitted body water within guess/3 .. 3*guess */
+#define NTR_FIT_LOSS_MAX 2000.0      /* |fitted free-water loss|, mL/h */
+#define NTR_FIT_ITER_MAX 100         /* iterations from each start */
+#define NTR_FIT_CORR_MAX 0.999       /* |correlation| of the two estimates beyond which they are not separable */
+#define NTR_FIT_DRIFT_MMOL_L 1.5     /* mean of the last three residuals that sets NTR_FIT_DRIFT */
+#define NTR_FIT_MIN_SAMPLES 3u
 
 /* NTR_OK when x is finite and lo <= x <= hi; lo and hi must be finite.
  * The valid case costs one pair of comparisons: NaN fails both and an
@@ -184,6 +192,16 @@ static inline double ntri_glucose_corrected(double na_mmol_l,
     }
     return na_mmol_l + factor_per_100mg_dl *
                            (glucose_mg_dl - NTR_GLUCOSE_REFERENCE_MG_DL) / 100.0;
+}
+
+/* Electrolyte-free water in a volume of fluid whose sodium + potassium is
+ * cation_mmol_l, at serum sodium na_mmol_l: V*(1 - c/Na) (Shah & Bhave
+ * 2018; for urine, the electrolyte-free water clearance). Same unit as the
+ * volume. */
+static inline double ntri_efw(double volume, double cation_mmol_l,
+                              double na_mmol_l)
+{
+    return volume * (1.0 - cation_mmol_l / na_mmol_l);
 }
 
 #endif

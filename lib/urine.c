@@ -44,7 +44,7 @@ int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
     }
     NTR_TRY(ntr_check(urine_volume_l, 0.0, NTR_URINE_VOLUME_MAX));
     NTR_TRY(check_urine(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l));
-    *litres = urine_volume_l *
-              (1.0 - (urine_na_mmol_l + urine_k_mmol_l) / serum_na_mmol_l);
+    *litres = ntri_efw(urine_volume_l, urine_na_mmol_l + urine_k_mmol_l,
+                       serum_na_mmol_l);
     return NTR_OK;
 }

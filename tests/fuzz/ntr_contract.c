@@ -3146,6 +3146,531 @@ static void extra_course_groups(const ntrc_fn *f, void (*judge)(const ntrc_fn *,
 
 
 #define NA {"na_mmol_l", 80.0, 220.0, 0}
+/* ---- urine feedback and the fit (lib/feedback.c) ------------------------------------ */
+
+#define FB_FLAGS_ALL (NTR_FB_LIMIT_AHEAD | NTR_FB_WATER_DIURESIS | NTR_FB_DILUTE_URINE | \
+                      NTR_FB_OVER_NOW | NTR_FB_SALT_LOSS)
+#define FIT_FLAGS_ALL (NTR_FIT_TBW_AT_BOUND | NTR_FIT_LOSS_AT_BOUND | NTR_FIT_NOT_CONVERGED | \
+                       NTR_FIT_EXACT | NTR_FIT_DRIFT)
+
+/* The documented checks of one interval's members, in struct order. */
+static int urine_status(const ntr_urine_interval *u)
+{
+    int st;
+    if ((st = check_value(u->start_h, 0.0, 720.0)) != NTR_OK ||
+        (st = check_value(u->end_h, 0.0, 720.0)) != NTR_OK ||
+        (st = check_value(u->volume_ml, 0.0, 30000.0)) != NTR_OK ||
+        (st = check_value(u->na_mmol_l, 0.0, 500.0)) != NTR_OK ||
+        (st = check_value(u->k_mmol_l, 0.0, 300.0)) != NTR_OK) {
+        return st;
+    }
+    return check_value(u->osm_mosm_kg, 10.0, 2000.0);
+}
+
+static int urine_reserved_ok(const ntr_urine_interval *u)
+{
+    return u->reserved_d[0] == 0.0 && u->reserved_d[1] == 0.0 && u->reserved[0] == 0u &&
+           u->reserved[1] == 0u;
+}
+
+static int urine_long_enough(const ntr_urine_interval *u)
+{
+    return u->end_h - u->start_h >= 1.0 / 60.0;
+}
+
+/* ntr_urine_interval_flow: num[0..5] are the interval's members, en[0]
+ * its first reserved field. */
+static int call_urine_interval_flow(ntrc_case *c)
+{
+    ntr_urine_interval u;
+    memset(&u, 0, sizeof u);
+    u.start_h = c->num[0];
+    u.end_h = c->num[1];
+    u.volume_ml = c->num[2];
+    u.na_mmol_l = c->num[3];
+    u.k_mmol_l = c->num[4];
+    u.osm_mosm_kg = c->num[5];
+    u.reserved[0] = (unsigned int)c->en[0];
+    return ntr_urine_interval_flow(in_null(c, 0) ? NULL : &u,
+                                   in_null(c, 1) ? NULL : &c->out.s.tflow);
+}
+
+static int predict_urine_interval_flow(const ntrc_fn *f, const ntrc_case *c)
+{
+    int i, st;
+    (void)f;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (c->en[0] != 0) {
+        return NTR_ERR_ARG;
+    }
+    for (i = 0; i < 6; i++) {
+        if ((st = check_value(c->num[i], f->num[i].lo, f->num[i].hi)) != NTR_OK) {
+            return st;
+        }
+    }
+    return c->num[1] - c->num[0] >= 1.0 / 60.0 ? NTR_OK : NTR_ERR_ORDER;
+}
+
+static const char *ok_urine_interval_flow(const ntrc_case *c)
+{
+    const ntr_timed_flow *t = &c->out.s.tflow;
+    if (t->start_h != c->num[0] || t->end_h != c->num[1] || t->na_mmol_l != c->num[3] ||
+        t->k_mmol_l != c->num[4] || t->reserved[0] != 0u || t->reserved[1] != 0u) {
+        return "span, composition or reserved fields not copied";
+    }
+    if (!close_to(t->rate_ml_h, -c->num[2] / (c->num[1] - c->num[0]), 1e-12) ||
+        !within(t->rate_ml_h, -5000.0, 0.0)) {
+        return "rate is not -volume/duration within -5000..0 mL/h";
+    }
+    return NULL;
+}
+
+static int results_urine_interval_flow(const ntrc_case *c, double *v, int max)
+{
+    if (max < 3) {
+        return 0;
+    }
+    v[0] = c->out.s.tflow.rate_ml_h;
+    v[1] = c->out.s.tflow.start_h;
+    v[2] = c->out.s.tflow.end_h;
+    return 3;
+}
+
+/* ntr_urine_feedback: the plan check's history, flows and limits (num[0]
+ * body water, num[1] horizon, num[2] step, num[3..7] limits; en as the
+ * plan check's), and two measured intervals after the last sample. */
+static void base_urine(ntrc_case *c)
+{
+    memset(c->urine, 0, sizeof c->urine);
+    c->n3 = 2;
+    c->urine[0].start_h = 6.0;
+    c->urine[0].end_h = 8.0;
+    c->urine[0].volume_ml = 300.0;
+    c->urine[0].na_mmol_l = 40.0;
+    c->urine[0].k_mmol_l = 20.0;
+    c->urine[0].osm_mosm_kg = 300.0;
+    c->urine[1].start_h = 8.0;
+    c->urine[1].end_h = 10.0;
+    c->urine[1].volume_ml = 500.0;
+    c->urine[1].na_mmol_l = 20.0;
+    c->urine[1].k_mmol_l = 10.0;
+    c->urine[1].osm_mosm_kg = 90.0;
+}
+
+static void base_feedback(ntrc_case *c)
+{
+    base_plan(c);
+    base_urine(c);
+}
+
+static void fuzz_feedback(ntrc_case *c, ntrc_source *src)
+{
+    size_t i;
+    double t = src->number(src, 0.0, 24.0);
+    fuzz_plan(c, src);
+    memset(c->urine, 0, sizeof c->urine);
+    c->n3 = src->byte(src) % (NTRC_MAX_FLOWS + 1);
+    for (i = 0; i < c->n3; i++) {
+        c->urine[i].start_h = t;
+        t += src->number(src, 0.0, 6.0);
+        c->urine[i].end_h = t;
+        c->urine[i].volume_ml = src->number(src, 0.0, 3000.0);
+        c->urine[i].na_mmol_l = src->number(src, 0.0, 500.0);
+        c->urine[i].k_mmol_l = src->number(src, 0.0, 300.0);
+        c->urine[i].osm_mosm_kg = src->number(src, 10.0, 2000.0);
+        if (src->byte(src) > 250u) {
+            c->urine[i].reserved_d[src->byte(src) & 1u] = 1.0;
+        }
+    }
+}
+
+static void prepare_feedback(ntrc_case *c)
+{
+    c->out.s.feedback.struct_size = siad_size(c->en[CP_OUT_SIZE], sizeof c->out.s.feedback);
+}
+
+static int call_urine_feedback(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    plan_course_limits(c, &lim);
+    return ntr_urine_feedback(in_null(c, 0) ? NULL : c->samples, c->n, c->num[0],
+                              in_null(c, 1) ? NULL : c->tflows, c->n2,
+                              in_null(c, 2) ? NULL : c->urine, c->n3, c->num[1], c->num[2],
+                              in_null(c, 3) ? NULL : &lim,
+                              in_null(c, 4) ? NULL : &c->out.s.feedback);
+}
+
+static int predict_urine_feedback(const ntrc_fn *f, const ntrc_case *c)
+{
+    size_t i;
+    int st;
+    if (in_null(c, 0) || in_null(c, 2) || in_null(c, 3) || in_null(c, 4) ||
+        (in_null(c, 1) && c->n2 > 0)) {
+        return NTR_ERR_NULL;
+    }
+    if (c->n == 0 || c->n3 == 0 || !size_mode_ok(c->en[CP_LIM_SIZE]) ||
+        !ntrc_enum_is_valid(f, CP_GOAL, c->en[CP_GOAL]) || !size_mode_ok(c->en[CP_OUT_SIZE]) ||
+        !tflows_reserved_ok(c->tflows, c->n2)) {
+        return NTR_ERR_ARG;
+    }
+    for (i = 0; i < c->n3; i++) {
+        if (!urine_reserved_ok(&c->urine[i])) {
+            return NTR_ERR_ARG;
+        }
+    }
+    if ((st = samples_status(c->samples, c->n)) != NTR_OK ||
+        (st = check_value(c->num[0], 0.1, 400.0)) != NTR_OK ||
+        (st = tflows_status(c->tflows, c->n2)) != NTR_OK) {
+        return st;
+    }
+    for (i = 0; i < c->n3; i++) {
+        if ((st = urine_status(&c->urine[i])) != NTR_OK) {
+            return st;
+        }
+    }
+    if ((st = span_status(c->num[1], c->num[2])) != NTR_OK ||
+        (st = course_limits_status(c->en[CP_GOAL], &c->num[3])) != NTR_OK) {
+        return st;
+    }
+    if (!samples_sorted(c->samples, c->n) || !tflows_ordered(c->tflows, c->n2)) {
+        return NTR_ERR_ORDER;
+    }
+    for (i = 0; i < c->n3; i++) {
+        if (!urine_long_enough(&c->urine[i]) ||
+            (i > 0 && c->urine[i].start_h < c->urine[i - 1].end_h)) {
+            return NTR_ERR_ORDER;
+        }
+    }
+    return NTR_OK;
+}
+
+static const char *ok_urine_feedback(const ntrc_case *c)
+{
+    const ntr_urine_feedback_result *r = &c->out.s.feedback;
+    const double horizon = c->num[1];
+    if (r->struct_size != sizeof *r || r->plan.struct_size != sizeof r->plan) {
+        return "struct_size not set to the size filled";
+    }
+    if ((r->flags & ~FB_FLAGS_ALL) != 0u || r->reserved != 0u) {
+        return "undefined flags or reserved field written";
+    }
+    if (!within(r->na_now_mmol_l, 80.0, 220.0) || !(r->tbw_now_l >= 0.1) ||
+        !within(r->plan.final_na_mmol_l, 80.0, 220.0)) {
+        return "estimate outside the model's range";
+    }
+    if (!close_to(r->efw_balance_ml, r->efw_in_ml - r->efw_out_ml, 1e-9) ||
+        !within(r->urine_ml_h, 0.0, 5000.0) || !isfinite(r->na_rate_mmol_l_h)) {
+        return "EFW figures inconsistent or not finite";
+    }
+    if (r->breach_h != NTR_PLAN_NO_BREACH && !(r->breach_h >= 0.0 && r->breach_h <= horizon + 1e-9)) {
+        return "breach time outside the horizon";
+    }
+    if (((r->flags & NTR_FB_LIMIT_AHEAD) != 0u) != (r->breach_h != NTR_PLAN_NO_BREACH)) {
+        return "limit-ahead flag disagrees with the breach time";
+    }
+    if ((r->flags & (NTR_FB_WATER_DIURESIS | NTR_FB_OVER_NOW | NTR_FB_SALT_LOSS)) != 0u &&
+        (r->flags & NTR_FB_LIMIT_AHEAD) == 0u) {
+        return "a breach flag without a breach";
+    }
+    return NULL;
+}
+
+static int results_urine_feedback(const ntrc_case *c, double *v, int max)
+{
+    const ntr_urine_feedback_result *r = &c->out.s.feedback;
+    if (max < 8) {
+        return 0;
+    }
+    v[0] = r->now_h;
+    v[1] = r->na_now_mmol_l;
+    v[2] = r->tbw_now_l;
+    v[3] = r->efw_balance_ml;
+    v[4] = r->na_rate_mmol_l_h;
+    v[5] = r->breach_h;
+    v[6] = r->flags;
+    v[7] = r->plan.final_na_mmol_l;
+    return 8;
+}
+
+static void extra_urine_feedback(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    size_t k;
+    extra_tflows(f, judge, 1);
+    ntrc_baseline(f, &c);
+    c.n = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.n3 = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[1].hours = 100.0; /* history out of order */
+    judge(f, &c, NTRC_KIND_SERIES);
+    c.urine[1].osm_mosm_kg = NAN; /* ... a bad interval wins */
+    judge(f, &c, NTRC_KIND_ORDER);
+    c.urine[0].reserved[1] = 1u; /* ... and a reserved field over both */
+    judge(f, &c, NTRC_KIND_ORDER);
+    for (k = 0; k < 2; k++) {
+        const double bad[] = {NAN, HUGE_VAL, -1.0, 721.0, 30001.0, 501.0, 301.0, 9.0, 2001.0};
+        size_t b;
+        ntrc_baseline(f, &c);
+        c.urine[k].reserved_d[0] = 0.5;
+        judge(f, &c, NTRC_KIND_SERIES);
+        for (b = 0; b < sizeof bad / sizeof bad[0]; b++) {
+            ntrc_baseline(f, &c);
+            switch (b) {
+            case 0: c.urine[k].volume_ml = bad[b]; break;
+            case 1: c.urine[k].end_h = bad[b]; break;
+            case 2: c.urine[k].start_h = bad[b]; break;
+            case 3: c.urine[k].end_h = bad[b]; break;
+            case 4: c.urine[k].volume_ml = bad[b]; break;
+            case 5: c.urine[k].na_mmol_l = bad[b]; break;
+            case 6: c.urine[k].k_mmol_l = bad[b]; break;
+            default: c.urine[k].osm_mosm_kg = bad[b]; break;
+            }
+            judge(f, &c, NTRC_KIND_SERIES);
+        }
+    }
+    /* Overlapping intervals; one shorter than a minute; a rate over
+     * 5000 mL/h (domain); a horizon past 720 h after the last sample. */
+    ntrc_baseline(f, &c);
+    c.urine[1].start_h = 7.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.urine[1].end_h = 8.01;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.urine[1].volume_ml = 12000.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[1] = 719.0;
+    c.num[2] = 1.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (k = 0; k < 4; k++) {
+        ntrc_baseline(f, &c);
+        c.en[k < 2 ? CP_LIM_SIZE : CP_OUT_SIZE] = (k & 1u) ? 1 : -1;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+}
+
+/* ntr_course_fit: a design-A patient (3% saline 250 mL/h over 2 h, hidden
+ * body water 35 L and loss 120 mL/h), 7 exact samples every 2 h; num[0]
+ * the guess, en[0] the fit's struct size mode. */
+static void base_fit(ntrc_case *c)
+{
+    static const double na[] = {120.0, 126.389676687465, 127.255853797830, 128.133985048879,
+                                129.024319629415, 129.927113702624, 130.842630651791};
+    size_t i;
+    c->n = sizeof na / sizeof na[0];
+    for (i = 0; i < c->n; i++) {
+        c->samples[i].hours = 2.0 * (double)i;
+        c->samples[i].na_mmol_l = na[i];
+    }
+    memset(c->tflows, 0, sizeof c->tflows);
+    c->n2 = 1;
+    c->tflows[0].end_h = 2.0;
+    c->tflows[0].rate_ml_h = 250.0;
+    c->tflows[0].na_mmol_l = 513.0;
+}
+
+static void prepare_fit(ntrc_case *c)
+{
+    c->out.s.fit.struct_size = siad_size(c->en[0], sizeof c->out.s.fit);
+}
+
+static int call_course_fit(ntrc_case *c)
+{
+    return ntr_course_fit(in_null(c, 0) ? NULL : c->samples, c->n, c->num[0],
+                          in_null(c, 1) ? NULL : c->tflows, c->n2,
+                          in_null(c, 2) ? NULL : &c->out.s.fit);
+}
+
+static int predict_course_fit(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st;
+    (void)f;
+    if (in_null(c, 0) || in_null(c, 2) || (in_null(c, 1) && c->n2 > 0)) {
+        return NTR_ERR_NULL;
+    }
+    if (c->n < 3 || !size_mode_ok(c->en[0]) || !tflows_reserved_ok(c->tflows, c->n2)) {
+        return NTR_ERR_ARG;
+    }
+    if ((st = samples_status(c->samples, c->n)) != NTR_OK ||
+        (st = check_value(c->num[0], 0.1, 400.0)) != NTR_OK ||
+        (st = tflows_status(c->tflows, c->n2)) != NTR_OK) {
+        return st;
+    }
+    if (!samples_sorted(c->samples, c->n) || !tflows_ordered(c->tflows, c->n2)) {
+        return NTR_ERR_ORDER;
+    }
+    return NTR_OK;
+}
+
+static const char *ok_course_fit(const ntrc_case *c)
+{
+    const ntr_fit *r = &c->out.s.fit;
+    const double lo = c->num[0] / 3.0 > 0.1 ? c->num[0] / 3.0 : 0.1;
+    const double hi = c->num[0] * 3.0 < 400.0 ? c->num[0] * 3.0 : 400.0;
+    if (r->struct_size != sizeof *r) {
+        return "struct_size not set to the size filled";
+    }
+    if ((r->flags & ~FIT_FLAGS_ALL) != 0u) {
+        return "undefined flags written";
+    }
+    if (!within(r->tbw_l, lo * (1.0 - 1e-12), hi * (1.0 + 1e-12)) ||
+        !within(r->free_water_loss_ml_h, -2000.0, 2000.0) ||
+        !within(r->na0_mmol_l, 80.0, 220.0)) {
+        return "a fitted value outside its search range";
+    }
+    if (!within(r->rms_residual_mmol_l, 0.0, 140.0) || !within(r->correlation, -0.999, 0.999) ||
+        !(r->tbw_se_l >= 0.0) || !(r->free_water_loss_se_ml_h >= 0.0) ||
+        !isfinite(r->tbw_se_l) || !isfinite(r->free_water_loss_se_ml_h)) {
+        return "residual, correlation or standard errors out of bounds";
+    }
+    if (r->iterations < 1u || r->iterations > 200u || !(r->tbw_last_l >= 0.1) ||
+        !within(r->na_last_fit_mmol_l, 80.0, 220.0) || !isfinite(r->late_residual_mmol_l)) {
+        return "iterations or the fitted state at the last sample out of bounds";
+    }
+    if (((r->flags & NTR_FIT_EXACT) != 0u) != (c->n == 3)) {
+        return "exact flag disagrees with the sample count";
+    }
+    return NULL;
+}
+
+static int results_course_fit(const ntrc_case *c, double *v, int max)
+{
+    const ntr_fit *r = &c->out.s.fit;
+    if (max < 6) {
+        return 0;
+    }
+    v[0] = r->tbw_l;
+    v[1] = r->free_water_loss_ml_h;
+    v[2] = r->na0_mmol_l;
+    v[3] = r->rms_residual_mmol_l;
+    v[4] = r->correlation;
+    v[5] = r->flags;
+    return 6;
+}
+
+static void extra_course_fit(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    int mode;
+    extra_tflows(f, judge, 1);
+    ntrc_baseline(f, &c);
+    c.n = 2;
+    judge(f, &c, NTRC_KIND_SERIES);
+    c.samples[0].na_mmol_l = NAN; /* the count wins over the numbers */
+    judge(f, &c, NTRC_KIND_ORDER);
+    ntrc_baseline(f, &c);
+    c.n = 3;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[2].hours = 100.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[6].hours = 800.0; /* the span past 720 h: domain */
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.n2 = 0;                     /* nothing separates the two: domain */
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (mode = -1; mode <= 3; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[0] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+}
+
+/* ntr_fit_reproject: the plan check's history, flows and limits; num[0]
+ * the fit's body water, num[8] its loss; en[3] the fit's struct size. */
+static int call_fit_reproject(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    ntr_fit fit;
+    memset(&fit, 0, sizeof fit);
+    fit.struct_size = siad_size(c->en[3], sizeof fit);
+    fit.tbw_l = c->num[0];
+    fit.free_water_loss_ml_h = c->num[8];
+    plan_course_limits(c, &lim);
+    return ntr_fit_reproject(in_null(c, 0) ? NULL : c->samples, c->n,
+                             in_null(c, 4) ? NULL : &fit,
+                             in_null(c, 1) ? NULL : c->tflows, c->n2, c->num[1], c->num[2],
+                             in_null(c, 2) ? NULL : &lim,
+                             in_null(c, 3) ? NULL : &c->out.s.course_plan);
+}
+
+static int predict_fit_reproject(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st;
+    if (in_null(c, 0) || in_null(c, 2) || in_null(c, 3) || in_null(c, 4) ||
+        (in_null(c, 1) && c->n2 > 0)) {
+        return NTR_ERR_NULL;
+    }
+    if (c->n == 0 || !size_mode_ok(c->en[3]) || !size_mode_ok(c->en[CP_LIM_SIZE]) ||
+        !ntrc_enum_is_valid(f, CP_GOAL, c->en[CP_GOAL]) || !size_mode_ok(c->en[CP_OUT_SIZE]) ||
+        !tflows_reserved_ok(c->tflows, c->n2)) {
+        return NTR_ERR_ARG;
+    }
+    if ((st = samples_status(c->samples, c->n)) != NTR_OK ||
+        (st = check_value(c->num[0], 0.1, 400.0)) != NTR_OK ||
+        (st = check_value(c->num[8], -2000.0, 2000.0)) != NTR_OK ||
+        (st = tflows_status(c->tflows, c->n2)) != NTR_OK ||
+        (st = span_status(c->num[1], c->num[2])) != NTR_OK ||
+        (st = course_limits_status(c->en[CP_GOAL], &c->num[3])) != NTR_OK) {
+        return st;
+    }
+    if (!samples_sorted(c->samples, c->n) || !tflows_ordered(c->tflows, c->n2)) {
+        return NTR_ERR_ORDER;
+    }
+    return NTR_OK;
+}
+
+static const char *ok_fit_reproject(const ntrc_case *c)
+{
+    const ntr_course_plan_result *p = &c->out.s.course_plan;
+    size_t need = points_needed(c->num[1], c->num[2]);
+    if (p->struct_size != sizeof *p || p->course.struct_size != sizeof p->course) {
+        return "struct_size not set to the size filled";
+    }
+    if ((p->course.flags & ~NTR_CF_COURSE_ALL) != 0u || p->reserved != 0u) {
+        return "undefined flags or reserved fields written";
+    }
+    if (p->points + 2u < need || p->points > need + 1u) {
+        return "number of predicted points wrong";
+    }
+    if (!within(p->final_na_mmol_l, 80.0, 220.0) || !(p->final_tbw_l >= 0.1)) {
+        return "final state outside the model's range";
+    }
+    if (!breach_time_ok(p->first_breach_h, c->num[1])) {
+        return "breach time outside the plan";
+    }
+    return NULL;
+}
+
+static void extra_fit_reproject(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    int mode;
+    extra_tflows(f, judge, 1);
+    ntrc_baseline(f, &c);
+    c.n = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[1].hours = 100.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[0] = 0.5;   /* a loss that drains the body water: domain */
+    c.num[8] = 2000.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (mode = -1; mode <= 3; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[3] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+}
+
 #define TBW {"tbw_l", 0.1, 400.0, 0}
 #define GLU {"glucose_mmol_l", 0.0, 200.0, 0}
 #define INF_NA {"infusate_na_mmol_l", 0.0, 1100.0, 0}
@@ -3397,6 +3922,49 @@ const ntrc_fn ntrc_functions[] = {
      .base_series = base_course_plan, .fuzz_series = fuzz_plan,
      .prepare_out = prepare_course_plan, .results = results_course_plan,
      .extra_cases = extra_course_plan, .check_ok = ok_course_plan_check},
+    {CALL(urine_interval_flow), .n_enum = 1, .en = {{"reserved", NTR_ERR_ARG, 1, {0}}},
+     .n_num = 6,
+     .num = {{"start_h", 0.0, 720.0, 0}, {"end_h", 0.0, 720.0, 0},
+             {"volume_ml", 0.0, 30000.0, 0}, {"na_mmol_l", 0.0, 500.0, 0},
+             {"k_mmol_l", 0.0, 300.0, 0}, {"osm_mosm_kg", 10.0, 2000.0, 0}},
+     .n_in_ptr = 2, .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
+     .base_num = {2.0, 6.0, 1000.0, 40.0, 20.0, 300.0},
+     .predict = predict_urine_interval_flow, .results = results_urine_interval_flow,
+     .check_ok = ok_urine_interval_flow},
+    {CALL(urine_feedback), .n_enum = 3,
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            SIZE_MODE("limits_struct_size"), SIZE_MODE("result_struct_size")},
+     .n_num = 8,
+     .num = {TBW, {"horizon_h", 0.0, 720.0, 1}, {"step_h", 1.0 / 60.0, 720.0, 0},
+             COURSE_NUMS},
+     .n_in_ptr = 5,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
+     .base_num = {35.0, 6.0, 0.5, 10.0, 18.0, 10.0, 0.0, 4.0},
+     .base_en = {NTR_GOAL_RAISE, 0, 0}, .predict = predict_urine_feedback,
+     .base_series = base_feedback, .fuzz_series = fuzz_feedback,
+     .prepare_out = prepare_feedback, .results = results_urine_feedback,
+     .extra_cases = extra_urine_feedback, .check_ok = ok_urine_feedback},
+    {CALL(course_fit), .n_enum = 1, .en = {SIZE_MODE("fit_struct_size")},
+     .n_num = 1, .num = {{"tbw_guess_l", 0.1, 400.0, 0}}, .n_in_ptr = 3,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
+     .base_num = {40.0}, .predict = predict_course_fit, .base_series = base_fit,
+     .fuzz_series = fuzz_plan, .prepare_out = prepare_fit, .results = results_course_fit,
+     .extra_cases = extra_course_fit, .check_ok = ok_course_fit},
+    {CALL(fit_reproject), .n_enum = 4,
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            SIZE_MODE("limits_struct_size"), SIZE_MODE("result_struct_size"),
+            SIZE_MODE("fit_struct_size")},
+     .n_num = 9,
+     .num = {{"fit_tbw_l", 0.1, 400.0, 0}, {"duration_h", 0.0, 720.0, 1},
+             {"step_h", 1.0 / 60.0, 720.0, 0}, COURSE_NUMS,
+             {"fit_loss_ml_h", -2000.0, 2000.0, 0}},
+     .n_in_ptr = 5,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
+     .base_num = {35.0, 24.0, 2.0, 10.0, 18.0, 10.0, 0.0, 4.0, 50.0},
+     .base_en = {NTR_GOAL_RAISE, 0, 0, 0}, .predict = predict_fit_reproject,
+     .base_series = base_plan, .fuzz_series = fuzz_plan,
+     .prepare_out = prepare_course_plan, .results = results_course_plan,
+     .extra_cases = extra_fit_reproject, .check_ok = ok_fit_reproject},
     {CALL(batch_course_assess), .n_enum = 3,
      .en = {COURSE_ENUMS}, .n_num = 5, .num = {COURSE_NUMS}, .n_in_ptr = 6,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER),

@@ -65,6 +65,9 @@ typedef struct ntrc_outs {
             int status[8];
         } groups;
         ntr_course_plan_result course_plan;
+        ntr_urine_feedback_result feedback;
+        ntr_fit fit;
+        ntr_timed_flow tflow;
         struct {
             /* reports at a stride of up to sizeof + 64 bytes */
             unsigned char out[8 * (sizeof(ntr_course_report) + 64)];
@@ -87,6 +90,8 @@ typedef struct ntrc_case {
     ntr_sample samples[NTRC_MAX_SERIES];
     ntr_flow flows[NTRC_MAX_FLOWS];
     ntr_timed_flow tflows[NTRC_MAX_FLOWS];
+    ntr_urine_interval urine[NTRC_MAX_FLOWS]; /* measured urine of ntr_urine_feedback */
+    size_t n3;              /* intervals in use */
     ntr_siad_findings findings;
     ntr_watch watch;        /* input state of ntr_watch_push/result */
     ntr_watch watch_clean;  /* the same before any deliberate damage */
