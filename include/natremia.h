@@ -1111,6 +1111,111 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  */
 NTR_API int ntr_siad_evaluate(const ntr_siad_findings *findings,
                               ntr_siad_result *result);
+
+/** Classes written by ntr_fe_uric_acid_class(). */
+#define NTR_FE_URIC_ACID_AGAINST_SIAD 1  /**< below 8 %: argues against SIAD */
+#define NTR_FE_URIC_ACID_INDETERMINATE 2 /**< 8 to 12 %, both included: neither */
+#define NTR_FE_URIC_ACID_SUPPORTS_SIAD 3 /**< above 12 %: supports SIAD */
+
+/** A fractional uric acid excretion below this (%) argues against SIAD. */
+#define NTR_FE_URIC_ACID_LOW_BELOW 8.0
+/** A fractional uric acid excretion above this (%) supports SIAD; the
+ *  supplemental criterion @ref NTR_SIAD_FE_URIC_ACID_HIGH uses the same
+ *  edge. */
+#define NTR_FE_URIC_ACID_HIGH_ABOVE 12.0
+
+/**
+ * @brief What a fractional uric acid excretion, measured while the sodium
+ *        is low, says about SIAD.
+ *
+ * - FE < 8 %: @ref NTR_FE_URIC_ACID_AGAINST_SIAD
+ * - 8 % <= FE <= 12 %: @ref NTR_FE_URIC_ACID_INDETERMINATE
+ * - FE > 12 %: @ref NTR_FE_URIC_ACID_SUPPORTS_SIAD
+ *
+ * Both edges are strict as the source states them ("above 12 %", "below
+ * 8 %"), so 8 and 12 themselves are indeterminate, and the class is
+ * @ref NTR_FE_URIC_ACID_SUPPORTS_SIAD exactly when ntr_siad_evaluate()
+ * meets @ref NTR_SIAD_FE_URIC_ACID_HIGH for the same value. The
+ * evaluator's masks cannot say "argues against" (a value of 12 or less is
+ * only "not met"); this function can. It supports a judgement, never
+ * decides one: any drug or tubular disorder that changes urate handling
+ * changes the value.
+ *
+ * Give a percentage: ntr_fractional_excretion() returns one. A fraction
+ * passed by mistake (0.15 for 15 %) reads as 0.15 % and so as "against".
+ *
+ * @param fe_uric_acid_percent fractional uric acid excretion at the low
+ *                             sodium, 0 to 200 %.
+ * @param[out] fe_class        one of NTR_FE_URIC_ACID_*.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7 (both
+ * cut-offs, in hyponatraemic patients);
+ * Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47 (12 % in the
+ * table of SIAD criteria).
+ * Method: @ref NTR_METHOD_FE_URIC_ACID_CLASS.
+ */
+NTR_API int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class);
+
+/** Readings written by ntr_fe_uric_acid_after_correction(). Exactly one
+ *  applies to each pair of measurements. */
+#define NTR_URIC_ACID_COURSE_NOT_CORRECTED 1   /**< sodium at the second measurement below 135 mmol/L: not yet an after-correction reading */
+#define NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE 2 /**< 12 % or less at the low sodium: no high excretion to follow */
+#define NTR_URIC_ACID_COURSE_NORMALISED 3      /**< above 12 % at the low sodium, below 8 % once corrected: the course of SIAD */
+#define NTR_URIC_ACID_COURSE_UNSETTLED 4       /**< above 12 % at the low sodium, 8 to 12 % once corrected: neither pattern */
+#define NTR_URIC_ACID_COURSE_PERSISTENT_HIGH 5 /**< above 12 % at the low sodium and still above 12 % once corrected: points to renal or cerebral salt wasting rather than SIAD */
+
+/**
+ * @brief Read a fractional uric acid excretion measured again after the
+ *        sodium was corrected: normalised (as in SIAD) or still high (as
+ *        in renal or cerebral salt wasting)?
+ *
+ * A low sodium raises uric acid excretion in SIAD and in salt wasting
+ * alike. Once the sodium is corrected the excretion falls back in SIAD but
+ * stays high in salt wasting, where the tubular loss of urate does not
+ * depend on the sodium (Maesaka and colleagues; from memory, see
+ * docs/workup.md). With 135 mmol/L (the end of hyponatraemia,
+ * ntr_na_severity()) as "corrected" and the edges of
+ * ntr_fe_uric_acid_class():
+ *
+ * - @p na_corrected_mmol_l < 135: @ref NTR_URIC_ACID_COURSE_NOT_CORRECTED
+ *   (whatever the two values say);
+ * - otherwise, @p fe_low_na_percent <= 12:
+ *   @ref NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE;
+ * - otherwise, @p fe_corrected_percent > 12:
+ *   @ref NTR_URIC_ACID_COURSE_PERSISTENT_HIGH;
+ * - otherwise, @p fe_corrected_percent < 8:
+ *   @ref NTR_URIC_ACID_COURSE_NORMALISED;
+ * - otherwise (8 to 12 %): @ref NTR_URIC_ACID_COURSE_UNSETTLED.
+ *
+ * Using the hyponatraemic edges for the corrected value is this library's
+ * rule, not the source's: 12 % is kept as "still high", and only a value
+ * below 8 % counts as normalised, so a value between the two settles
+ * nothing. The reading points, never diagnoses: salt wasting also needs
+ * clinical volume depletion and a cause, and the drugs and tubular
+ * disorders that change urate handling change the values.
+ *
+ * Give percentages (ntr_fractional_excretion()).
+ *
+ * @param fe_low_na_percent    fractional uric acid excretion while the
+ *                             sodium was low, 0 to 200 %.
+ * @param fe_corrected_percent fractional uric acid excretion after the
+ *                             correction, 0 to 200 %.
+ * @param na_corrected_mmol_l  serum sodium when the second value was
+ *                             measured, 80 to 220 mmol/L.
+ * @param[out] course          one of NTR_URIC_ACID_COURSE_*.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * References: Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7 (the
+ * 8 % and 12 % edges at a low sodium); Maesaka JK et al., on telling SIAD
+ * from cerebral or renal salt wasting by the fractional urate excretion
+ * after correction (from memory: see docs/workup.md).
+ * Method: @ref NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION.
+ */
+NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
+                                              double fe_corrected_percent,
+                                              double na_corrected_mmol_l,
+                                              int *course);
 /** @} */
 
 /* ======================================================================= */
@@ -3011,6 +3116,8 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_SIAD_CRITERIA 56        /**< essential and supplemental SIAD criteria */
 #define NTR_METHOD_EFFECTIVE_OSM_MEASURED 57 /**< measured osmolality less urea and 1.25*ethanol, floored at 2*Na + glucose */
 #define NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY 58 /**< low-sodium flags judged on the effective osmolality */
+#define NTR_METHOD_FE_URIC_ACID_CLASS 59 /**< fractional uric acid excretion: against SIAD < 8 %, supports > 12 % */
+#define NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION 60 /**< fractional uric acid excretion after correction: normalised or persistently high */
 /* Urine feedback and the fitted prediction (ids 83-89, issue P2; lib/feedback.c). */
 #define NTR_METHOD_EFW_BALANCE 83          /**< electrolyte-free water balance of inputs and outputs */
 #define NTR_METHOD_URINE_FEEDBACK 84       /**< measured urine continued: limit within a horizon */

@@ -47,6 +47,8 @@ static int entry(struct ntr_method_info *info, int method, const char *name,
     "Furst H, Hallows KR, Post J, et al. The urine/plasma electrolyte "      \
     "ratio: a predictive guide to water restriction. Am J Med Sci "          \
     "2000;319:240-4"
+#define REF_FENSKE                                                           \
+    "Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7"
 #define REF_VERBALIS_2013                                                    \
     "Verbalis JG, Goldsmith SR, Greenberg A, et al. Diagnosis, evaluation, " \
     "and treatment of hyponatremia: expert panel recommendations. Am J Med " \
@@ -398,6 +400,24 @@ static int describe(int method, struct ntr_method_info *info)
             " (exclusion of non-hypotonic hyponatraemia); " REF_KATZ "; "
             REF_HILLIER,
             "adults with a low serum sodium");
+    case NTR_METHOD_FE_URIC_ACID_CLASS:
+        return entry(info, method, "Fractional uric acid excretion and SIAD",
+            "FE uric acid < 8%: argues against SIAD; 8-12% (both included): "
+            "indeterminate; > 12%: supports SIAD",
+            REF_FENSKE "; " REF_SPASOVSKI " (12% in the table of SIAD "
+            "criteria)",
+            "adults with hypotonic hyponatraemia, measured at the low sodium");
+    case NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION:
+        return entry(info, method, "Fractional uric acid excretion after correction",
+            "second sodium < 135 mmol/L: not corrected; else FE at the low "
+            "sodium <= 12%: not high before; else FE after > 12%: persistently "
+            "high (points to renal or cerebral salt wasting); < 8%: normalised "
+            "(the course of SIAD); 8-12%: unsettled",
+            REF_FENSKE " (edges at the low sodium); Maesaka JK et al. on "
+            "telling SIAD from cerebral or renal salt wasting (from memory; "
+            "the corrected-value edges are this library's rule)",
+            "adults with hypotonic hyponatraemia, measured again once the "
+            "sodium is corrected");
 
     /* ==== urine feedback and the fitted prediction (ids 83-89, issue P2) === */
     case NTR_METHOD_EFW_BALANCE:
@@ -483,7 +503,7 @@ static const struct {
 } method_runs[] = {
     {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_COURSE_WATCH},  /* correction, 30-49 */
-    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY}, /* work-up, 50-69 */
+    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION}, /* work-up, 50-69 */
     {NTR_METHOD_EFW_BALANCE, NTR_METHOD_FIT_REPROJECT}};    /* feedback, 83-89 */
 
 int ntr_method_next(int after, int *next)

@@ -1,6 +1,8 @@
 /* Work-up of a low sodium: severity, tonicity, urine findings, fractional
- * excretion and the criteria for inappropriate antidiuresis
- * (docs/workup.md). Thresholds: Spasovski et al., Eur J Endocrinol 2014. */
+ * excretion, the criteria for inappropriate antidiuresis and what the
+ * fractional uric acid excretion adds to them (docs/workup.md).
+ * Thresholds: Spasovski et al., Eur J Endocrinol 2014; Fenske et al.,
+ * J Clin Endocrinol Metab 2008. */
 #include "ntr_internal.h"
 
 /* Severity band edges, mmol/L (each band includes its lower edge). */
@@ -17,7 +19,9 @@
 #define SIAD_UREA_BELOW 3.6              /* mmol/L (21.6 mg/dL) */
 #define SIAD_FE_NA_ABOVE 0.5             /* % */
 #define SIAD_FE_UREA_ABOVE 55.0          /* % */
-#define SIAD_FE_URIC_ACID_ABOVE 12.0     /* % */
+/* Fractional uric acid excretion: the public edge, shared with
+ * ntr_fe_uric_acid_class() so the criterion and the class cannot drift. */
+#define SIAD_FE_URIC_ACID_ABOVE NTR_FE_URIC_ACID_HIGH_ABOVE
 
 /* Sizes of the first published layouts. They stay fixed when members are
  * appended later, so a caller built against this header keeps working. */
@@ -484,5 +488,66 @@ int ntr_siad_evaluate(const ntr_siad_findings *findings, ntr_siad_result *result
     result->not_known = t.not_known;
     result->not_assessable = t.not_assessable;
     result->missing = t.missing;
+    return NTR_OK;
+}
+
+/* ---- fractional uric acid excretion (Fenske et al. 2008) ----------------- */
+
+/* The class of an already range-checked percentage. Both edges strict, as
+ * the source writes them. */
+static int fe_uric_acid_class_of(double percent)
+{
+    if (percent > NTR_FE_URIC_ACID_HIGH_ABOVE) {
+        return NTR_FE_URIC_ACID_SUPPORTS_SIAD;
+    }
+    if (percent < NTR_FE_URIC_ACID_LOW_BELOW) {
+        return NTR_FE_URIC_ACID_AGAINST_SIAD;
+    }
+    return NTR_FE_URIC_ACID_INDETERMINATE;
+}
+
+int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class)
+{
+    if (fe_class == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(ntr_check(fe_uric_acid_percent, 0.0, NTR_FE_PERCENT_MAX));
+    *fe_class = fe_uric_acid_class_of(fe_uric_acid_percent);
+    return NTR_OK;
+}
+
+/* The reading of checked inputs. "Corrected" is the end of hyponatraemia
+ * in the severity bands, so the two functions agree on when a sodium is
+ * no longer low. */
+static int uric_acid_course_of(double fe_low_na_percent, double fe_corrected_percent,
+                               double na_corrected_mmol_l)
+{
+    int after;
+    if (na_corrected_mmol_l < SEVERITY_MILD_BELOW) {
+        return NTR_URIC_ACID_COURSE_NOT_CORRECTED;
+    }
+    if (fe_uric_acid_class_of(fe_low_na_percent) != NTR_FE_URIC_ACID_SUPPORTS_SIAD) {
+        return NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE;
+    }
+    after = fe_uric_acid_class_of(fe_corrected_percent);
+    if (after == NTR_FE_URIC_ACID_SUPPORTS_SIAD) {
+        return NTR_URIC_ACID_COURSE_PERSISTENT_HIGH;
+    }
+    return after == NTR_FE_URIC_ACID_AGAINST_SIAD ? NTR_URIC_ACID_COURSE_NORMALISED
+                                                  : NTR_URIC_ACID_COURSE_UNSETTLED;
+}
+
+int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
+                                      double fe_corrected_percent,
+                                      double na_corrected_mmol_l, int *course)
+{
+    if (course == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(ntr_check(fe_low_na_percent, 0.0, NTR_FE_PERCENT_MAX));
+    NTR_TRY(ntr_check(fe_corrected_percent, 0.0, NTR_FE_PERCENT_MAX));
+    NTR_TRY(ntr_check_na(na_corrected_mmol_l));
+    *course = uric_acid_course_of(fe_low_na_percent, fe_corrected_percent,
+                                  na_corrected_mmol_l);
     return NTR_OK;
 }

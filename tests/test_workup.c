@@ -1,7 +1,8 @@
 /* Work-up: ntr_na_severity, ntr_tonicity_class, ntr_low_na_tonicity,
  * ntr_effective_osm_measured, ntr_low_na_effective_tonicity,
  * ntr_urine_maximally_dilute, ntr_urine_na_high, ntr_fractional_excretion,
- * ntr_siad_findings_init, ntr_siad_evaluate (docs/workup.md).
+ * ntr_siad_findings_init, ntr_siad_evaluate, ntr_fe_uric_acid_class,
+ * ntr_fe_uric_acid_after_correction (docs/workup.md).
  *
  * "Guideline" below is Spasovski G et al. Clinical practice guideline on
  * diagnosis and treatment of hyponatraemia. Eur J Endocrinol
@@ -1481,6 +1482,256 @@ static void siad_bad_inputs_leave_result_untouched(void **state)
     assert_int_equal(ntr_siad_evaluate(&f, NULL), NTR_ERR_NULL);
 }
 
+/* ---- fractional uric acid excretion ----------------------------------------
+ *
+ * "Fenske" below is Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7:
+ * in hyponatraemic patients a fractional uric acid excretion above 12 %
+ * supports SIAD and one below 8 % argues against it (checked against the
+ * paper's abstract and its published commentary). The after-
+ * correction reading (normalised in SIAD, still high in renal or cerebral
+ * salt wasting) follows Maesaka and colleagues, from memory; "corrected" as
+ * 135 mmol/L and the reuse of Fenske's edges on the corrected value are
+ * the library's rule (docs/workup.md). */
+
+static int fe_uric_class(double percent)
+{
+    int out = NTR_TEST_SENTINEL_INT;
+    assert_int_equal(ntr_fe_uric_acid_class(percent, &out), NTR_OK);
+    return out;
+}
+
+/* Source: Fenske (> 12 % supports, < 8 % argues against; both strict):
+ * each edge at, one ulp either side, and a clinically visible step. */
+static void fe_uric_acid_class_at_the_fenske_edges(void **state)
+{
+    (void)state;
+    assert_int_equal(fe_uric_class(12.0), NTR_FE_URIC_ACID_INDETERMINATE);
+    assert_int_equal(fe_uric_class(above(12.0)), NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+    assert_int_equal(fe_uric_class(below(12.0)), NTR_FE_URIC_ACID_INDETERMINATE);
+    assert_int_equal(fe_uric_class(8.0), NTR_FE_URIC_ACID_INDETERMINATE);
+    assert_int_equal(fe_uric_class(above(8.0)), NTR_FE_URIC_ACID_INDETERMINATE);
+    assert_int_equal(fe_uric_class(below(8.0)), NTR_FE_URIC_ACID_AGAINST_SIAD);
+    assert_int_equal(fe_uric_class(12.5), NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+    assert_int_equal(fe_uric_class(7.5), NTR_FE_URIC_ACID_AGAINST_SIAD);
+    assert_int_equal(fe_uric_class(10.0), NTR_FE_URIC_ACID_INDETERMINATE);
+    /* The ends of the accepted range. */
+    assert_int_equal(fe_uric_class(0.0), NTR_FE_URIC_ACID_AGAINST_SIAD);
+    assert_int_equal(fe_uric_class(200.0), NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+    /* The public edges are the source's numbers. */
+    assert_true(NTR_FE_URIC_ACID_LOW_BELOW == 8.0);
+    assert_true(NTR_FE_URIC_ACID_HIGH_ABOVE == 12.0);
+}
+
+/* Source: FE = 100 * U_x * P_cr / (P_x * U_cr) (renal physiology), then
+ * Fenske's bands; hand-worked for invented patients, all in umol/L:
+ *   U_urate 3000, P_urate 150, U_cr 6000, P_cr 60:
+ *     100 * 3000 * 60 / (150 * 6000) = 100 * 180000 / 900000 = 20 %: supports;
+ *   U_urate 2400, P_urate 180, U_cr 8000, P_cr 70:
+ *     100 * 168000 / 1440000 = 11.667 %: indeterminate;
+ *   U_urate 1500, P_urate 400, U_cr 10000, P_cr 80:
+ *     100 * 120000 / 4000000 = 3 %: argues against. */
+static void fe_uric_acid_class_hand_worked_from_concentrations(void **state)
+{
+    (void)state;
+    assert_near(fe(3000.0, 150.0, 6000.0, 60.0), 20.0, 1e-12);
+    assert_int_equal(fe_uric_class(fe(3000.0, 150.0, 6000.0, 60.0)),
+                     NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+    assert_near(fe(2400.0, 180.0, 8000.0, 70.0), 11.6667, 5e-5);
+    assert_int_equal(fe_uric_class(fe(2400.0, 180.0, 8000.0, 70.0)),
+                     NTR_FE_URIC_ACID_INDETERMINATE);
+    assert_near(fe(1500.0, 400.0, 10000.0, 80.0), 3.0, 1e-12);
+    assert_int_equal(fe_uric_class(fe(1500.0, 400.0, 10000.0, 80.0)),
+                     NTR_FE_URIC_ACID_AGAINST_SIAD);
+}
+
+/* Property: a larger excretion never gives a class further from SIAD; and
+ * "supports" holds exactly when ntr_siad_evaluate() meets criterion 21
+ * (guideline table: FE uric acid > 12 %) for the same value, so the two
+ * functions cannot disagree. */
+static void fe_uric_acid_class_is_monotone_and_agrees_with_the_criteria(void **state)
+{
+    static const double edges[] = {8.0, 12.0};
+    double percent;
+    int previous = NTR_FE_URIC_ACID_AGAINST_SIAD;
+    size_t i;
+    (void)state;
+    for (percent = 0.0; percent <= 200.0; percent += 0.03125) {
+        int now = fe_uric_class(percent);
+        ntr_siad_findings f = siad_case();
+        ntr_siad_result r;
+        assert_true(now >= previous);
+        previous = now;
+        f.fe_uric_acid_percent = known(percent);
+        r = evaluate(&f);
+        assert_int_equal((r.met & B(NTR_SIAD_FE_URIC_ACID_HIGH)) != 0ul,
+                         now == NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+    }
+    for (i = 0; i < 2; i++) {
+        const double around[3] = {below(edges[i]), edges[i], above(edges[i])};
+        size_t k;
+        for (k = 0; k < 3; k++) {
+            ntr_siad_findings f = siad_case();
+            ntr_siad_result r;
+            f.fe_uric_acid_percent = known(around[k]);
+            r = evaluate(&f);
+            assert_int_equal((r.met & B(NTR_SIAD_FE_URIC_ACID_HIGH)) != 0ul,
+                             fe_uric_class(around[k]) == NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+        }
+    }
+}
+
+/* Documented hazard (docs/workup.md): a fraction passed for a percentage
+ * reads as that many percent. */
+static void fe_uric_acid_class_reads_a_fraction_as_percent(void **state)
+{
+    (void)state;
+    assert_int_equal(fe_uric_class(0.15), NTR_FE_URIC_ACID_AGAINST_SIAD);
+    assert_int_equal(fe_uric_class(15.0), NTR_FE_URIC_ACID_SUPPORTS_SIAD);
+}
+
+static int call_fe_uric_class(const double *a, double *out)
+{
+    int c = NTR_TEST_SENTINEL_INT;
+    int status = ntr_fe_uric_acid_class(a[0], &c);
+    if (status == NTR_OK) {
+        *out = (double)c;
+    } else {
+        assert_int_equal(c, NTR_TEST_SENTINEL_INT);
+    }
+    return status;
+}
+
+static void fe_uric_acid_class_bad_inputs(void **state)
+{
+    const struct ntr_test_inputs in = {call_fe_uric_class, 1, {14.0}, {0.0}, {200.0}};
+    (void)state;
+    ntr_test_bad_inputs(&in);
+    assert_int_equal(ntr_fe_uric_acid_class(14.0, NULL), NTR_ERR_NULL);
+    assert_int_equal(ntr_fe_uric_acid_class((double)NAN, NULL), NTR_ERR_NULL);
+}
+
+static int course(double before, double after, double na)
+{
+    int out = NTR_TEST_SENTINEL_INT;
+    assert_int_equal(ntr_fe_uric_acid_after_correction(before, after, na, &out), NTR_OK);
+    return out;
+}
+
+/* Source: the after-correction pattern (Maesaka and colleagues, from
+ * memory): in SIAD the excretion falls back once the sodium is corrected,
+ * in renal or cerebral salt wasting it stays high. Edges: Fenske (checked);
+ * 135 mmol/L as corrected: guideline severity bands (checked), the
+ * library's rule for "corrected". Invented patients. */
+static void fe_uric_acid_course_scenarios(void **state)
+{
+    (void)state;
+    /* 15 % at a sodium of 124; 6 % at 137 after fluid restriction. */
+    assert_int_equal(course(15.0, 6.0, 137.0), NTR_URIC_ACID_COURSE_NORMALISED);
+    /* 18 % at the low sodium; still 17 % at 136 after saline. */
+    assert_int_equal(course(18.0, 17.0, 136.0), NTR_URIC_ACID_COURSE_PERSISTENT_HIGH);
+    /* 15 % falling to 10 %: neither pattern. */
+    assert_int_equal(course(15.0, 10.0, 138.0), NTR_URIC_ACID_COURSE_UNSETTLED);
+    /* Not high at the low sodium: nothing to follow, whatever comes after. */
+    assert_int_equal(course(6.0, 20.0, 140.0), NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE);
+    assert_int_equal(course(10.0, 4.0, 140.0), NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE);
+    /* Sodium still low at the second measurement: not yet readable. */
+    assert_int_equal(course(18.0, 17.0, 133.0), NTR_URIC_ACID_COURSE_NOT_CORRECTED);
+    assert_int_equal(course(15.0, 6.0, 128.0), NTR_URIC_ACID_COURSE_NOT_CORRECTED);
+}
+
+/* Source: as above. Every edge at and one ulp either side: 135 mmol/L
+ * (corrected from 135 on, the lower edge of "no hyponatraemia" in
+ * ntr_na_severity), 12 % before (strictly above is high), 12 % and 8 %
+ * after. */
+static void fe_uric_acid_course_edges(void **state)
+{
+    (void)state;
+    assert_int_equal(course(15.0, 6.0, 135.0), NTR_URIC_ACID_COURSE_NORMALISED);
+    assert_int_equal(course(15.0, 6.0, below(135.0)), NTR_URIC_ACID_COURSE_NOT_CORRECTED);
+    assert_int_equal(severity(135.0), NTR_SEVERITY_NONE);
+    assert_int_equal(severity(below(135.0)), NTR_SEVERITY_MILD);
+
+    assert_int_equal(course(12.0, 20.0, 140.0), NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE);
+    assert_int_equal(course(above(12.0), 20.0, 140.0), NTR_URIC_ACID_COURSE_PERSISTENT_HIGH);
+
+    assert_int_equal(course(20.0, 12.0, 140.0), NTR_URIC_ACID_COURSE_UNSETTLED);
+    assert_int_equal(course(20.0, above(12.0), 140.0), NTR_URIC_ACID_COURSE_PERSISTENT_HIGH);
+    assert_int_equal(course(20.0, 8.0, 140.0), NTR_URIC_ACID_COURSE_UNSETTLED);
+    assert_int_equal(course(20.0, below(8.0), 140.0), NTR_URIC_ACID_COURSE_NORMALISED);
+}
+
+/* Hand-worked from concentrations (umol/L; FE = 100 U_x P_cr / (P_x U_cr)),
+ * invented patients, both starting at 20 % (3000, 150, 6000, 60; above):
+ *   after correction U_urate 1500, P_urate 250, U_cr 9000, P_cr 70:
+ *     100 * 105000 / 2250000 = 4.667 %: normalised;
+ *   after correction U_urate 2800, P_urate 120, U_cr 7000, P_cr 65:
+ *     100 * 182000 / 840000 = 21.667 %: persistently high. */
+static void fe_uric_acid_course_hand_worked_from_concentrations(void **state)
+{
+    double first = fe(3000.0, 150.0, 6000.0, 60.0);
+    double restricted = fe(1500.0, 250.0, 9000.0, 70.0);
+    double wasting = fe(2800.0, 120.0, 7000.0, 65.0);
+    (void)state;
+    assert_near(restricted, 4.6667, 5e-5);
+    assert_near(wasting, 21.6667, 5e-5);
+    assert_int_equal(course(first, restricted, 138.0), NTR_URIC_ACID_COURSE_NORMALISED);
+    assert_int_equal(course(first, wasting, 138.0), NTR_URIC_ACID_COURSE_PERSISTENT_HIGH);
+}
+
+/* Property over a grid that holds every edge: exactly the documented rule,
+ * read through ntr_fe_uric_acid_class() (one set of edges for both). */
+static void fe_uric_acid_course_follows_the_class_everywhere(void **state)
+{
+    static const double percents[] = {0.0, 4.0, 7.9, 8.0, 10.0, 12.0, 12.1, 30.0, 200.0};
+    static const double sodiums[] = {80.0, 125.0, 134.9, 135.0, 141.0, 220.0};
+    size_t i, j, k;
+    (void)state;
+    for (i = 0; i < sizeof percents / sizeof percents[0]; i++) {
+        for (j = 0; j < sizeof percents / sizeof percents[0]; j++) {
+            for (k = 0; k < sizeof sodiums / sizeof sodiums[0]; k++) {
+                int before = fe_uric_class(percents[i]);
+                int after = fe_uric_class(percents[j]);
+                int want;
+                if (sodiums[k] < 135.0) {
+                    want = NTR_URIC_ACID_COURSE_NOT_CORRECTED;
+                } else if (before != NTR_FE_URIC_ACID_SUPPORTS_SIAD) {
+                    want = NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE;
+                } else if (after == NTR_FE_URIC_ACID_SUPPORTS_SIAD) {
+                    want = NTR_URIC_ACID_COURSE_PERSISTENT_HIGH;
+                } else if (after == NTR_FE_URIC_ACID_AGAINST_SIAD) {
+                    want = NTR_URIC_ACID_COURSE_NORMALISED;
+                } else {
+                    want = NTR_URIC_ACID_COURSE_UNSETTLED;
+                }
+                assert_int_equal(course(percents[i], percents[j], sodiums[k]), want);
+            }
+        }
+    }
+}
+
+static int call_course(const double *a, double *out)
+{
+    int c = NTR_TEST_SENTINEL_INT;
+    int status = ntr_fe_uric_acid_after_correction(a[0], a[1], a[2], &c);
+    if (status == NTR_OK) {
+        *out = (double)c;
+    } else {
+        assert_int_equal(c, NTR_TEST_SENTINEL_INT);
+    }
+    return status;
+}
+
+static void fe_uric_acid_course_bad_inputs(void **state)
+{
+    const struct ntr_test_inputs in = {call_course, 3, {16.0, 15.0, 137.0},
+                                       {0.0, 0.0, 80.0}, {200.0, 200.0, 220.0}};
+    (void)state;
+    ntr_test_bad_inputs(&in);
+    assert_int_equal(ntr_fe_uric_acid_after_correction(16.0, 15.0, 137.0, NULL), NTR_ERR_NULL);
+    assert_int_equal(ntr_fe_uric_acid_after_correction((double)NAN, 15.0, 137.0, NULL),
+                     NTR_ERR_NULL);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1530,6 +1781,16 @@ int main(void)
         cmocka_unit_test(siad_documented_example),
         cmocka_unit_test(siad_uses_the_effective_osmolality),
         cmocka_unit_test(siad_bad_inputs_leave_result_untouched),
+        cmocka_unit_test(fe_uric_acid_class_at_the_fenske_edges),
+        cmocka_unit_test(fe_uric_acid_class_hand_worked_from_concentrations),
+        cmocka_unit_test(fe_uric_acid_class_is_monotone_and_agrees_with_the_criteria),
+        cmocka_unit_test(fe_uric_acid_class_reads_a_fraction_as_percent),
+        cmocka_unit_test(fe_uric_acid_class_bad_inputs),
+        cmocka_unit_test(fe_uric_acid_course_scenarios),
+        cmocka_unit_test(fe_uric_acid_course_edges),
+        cmocka_unit_test(fe_uric_acid_course_hand_worked_from_concentrations),
+        cmocka_unit_test(fe_uric_acid_course_follows_the_class_everywhere),
+        cmocka_unit_test(fe_uric_acid_course_bad_inputs),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -740,6 +740,47 @@ static int results_siad(const ntrc_case *c, double *v, int max)
     return 7;
 }
 
+/* Fractional uric acid excretion: the bands as the header states them
+ * (Fenske et al. 2008), both edges strict. */
+static int fe_uric_acid_band(double percent)
+{
+    return percent > 12.0  ? NTR_FE_URIC_ACID_SUPPORTS_SIAD
+           : percent < 8.0 ? NTR_FE_URIC_ACID_AGAINST_SIAD
+                           : NTR_FE_URIC_ACID_INDETERMINATE;
+}
+
+static int call_fe_uric_acid_class(ntrc_case *c)
+{
+    return ntr_fe_uric_acid_class(c->num[0], oi(c, 0));
+}
+
+static const char *ok_fe_uric_acid_class(const ntrc_case *c)
+{
+    return c->out.i[0] == fe_uric_acid_band(c->num[0]) ? NULL : "class does not match its band";
+}
+
+static int call_fe_uric_acid_after_correction(ntrc_case *c)
+{
+    return ntr_fe_uric_acid_after_correction(c->num[0], c->num[1], c->num[2], oi(c, 0));
+}
+
+static const char *ok_fe_uric_acid_after_correction(const ntrc_case *c)
+{
+    int want;
+    if (c->num[2] < 135.0) {
+        want = NTR_URIC_ACID_COURSE_NOT_CORRECTED;
+    } else if (!(c->num[0] > 12.0)) {
+        want = NTR_URIC_ACID_COURSE_NOT_HIGH_BEFORE;
+    } else if (c->num[1] > 12.0) {
+        want = NTR_URIC_ACID_COURSE_PERSISTENT_HIGH;
+    } else if (c->num[1] < 8.0) {
+        want = NTR_URIC_ACID_COURSE_NORMALISED;
+    } else {
+        want = NTR_URIC_ACID_COURSE_UNSETTLED;
+    }
+    return c->out.i[0] == want ? NULL : "reading does not follow the documented rule";
+}
+
 /* ---- provenance ---------------------------------------------------------------- */
 
 /* Whether the running library knows a method id, by its own iterator. */
@@ -3811,6 +3852,12 @@ const ntrc_fn ntrc_functions[] = {
      .base_en = {0, 0, 1, 1, 1, NTR_VOLUME_EUVOLAEMIC, 2, 2, 2, 2, 2, 1, 1, 0, 1, 1, 1, 1, 1},
      .predict = predict_siad, .prepare_out = prepare_siad,
      .results = results_siad, .extra_cases = extra_siad, .check_ok = ok_siad},
+    {CALL(fe_uric_acid_class), .n_num = 1, .num = {{"fe_uric_acid_percent", 0.0, 200.0, 0}},
+     .n_out_i = 1, .statuses = OK_COMMON, .base_num = {10.0}, .check_ok = ok_fe_uric_acid_class},
+    {CALL(fe_uric_acid_after_correction), .n_num = 3,
+     .num = {{"fe_low_na_percent", 0.0, 200.0, 0}, {"fe_corrected_percent", 0.0, 200.0, 0}, NA},
+     .n_out_i = 1, .statuses = OK_COMMON, .base_num = {16.0, 6.0, 137.0},
+     .check_ok = ok_fe_uric_acid_after_correction},
     /* provenance */
     {CALL(method_info), .n_enum = 1,
      .en = {{"method", NTR_ERR_ARG, 8, {1, 11, 18, 30, 39, 50, 56, 14}}}, .n_in_ptr = 1,
