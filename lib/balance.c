@@ -12,12 +12,6 @@
  * ntr_internal.h: the infusate functions and the re-lowering estimate
  * apply the same rule, so no function predicts a state another refuses. */
 
-int ntri_balance_apply(double na0, double tbw0, double gain_l,
-                       double excess_mmol, double *na1, double *tbw1)
-{
-    return apply_balance(na0, tbw0, gain_l, excess_mmol, na1, tbw1);
-}
-
 static int check_flow(const ntr_flow *f)
 {
     NTR_TRY(ntr_check(f->volume_l, NTR_FLOW_VOLUME_MIN, NTR_INFUSE_VOLUME_MAX));

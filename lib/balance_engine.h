@@ -13,11 +13,8 @@ typedef void (*ntri_flow_source_fn)(const void *ctx, double from_h,
                                     double to_h, double na0, double *gain,
                                     double *excess);
 
-/* The library's mass balance: na1 = na0 + excess/tbw1, tbw1 = tbw0 + gain;
- * NTR_ERR_DOMAIN (nothing written) when tbw1 < 0.1 L or na1 leaves
- * 80..220 mmol/L. */
-int ntri_balance_apply(double na0, double tbw0, double gain_l,
-                       double excess_mmol, double *na1, double *tbw1);
+/* The mass balance itself and its domain are ntri_mass_balance() in
+ * ntr_internal.h, shared with the infusate functions. */
 
 /* Adds the checked timed flows' volume (rate/1000 * time run within
  * [from_h, to_h]) to *gain and their excess over na0 to *excess. */

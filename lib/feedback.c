@@ -288,7 +288,7 @@ int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
     /* The balance from the last sample to now. */
     ntri_timed_flows_add(flows, n_flows, t_last, now, na_last, &gain, &excess);
     urine_add(&src, t_last, now, na_last, &gain, &excess);
-    NTR_TRY(ntri_balance_apply(na_last, tbw_l, gain, excess, &na_now, &tbw_now));
+    NTR_TRY(ntri_mass_balance(na_last, tbw_l, gain, excess, &na_now, &tbw_now));
     for (i = 0; i < n_flows; i++) {
         flow_efw(&flows[i], t_last, now, na_last, &efw_in, &efw_out);
     }
@@ -367,7 +367,7 @@ static int model_at(const struct fit_problem *fp, const double p[NP], double t,
     loss.reserved[1] = 0u;
     ntri_timed_flows_add(fp->flows, fp->n_flows, 0.0, t, p[P_NA0], &gain, &excess);
     ntri_timed_flows_add(&loss, 1, 0.0, t, p[P_NA0], &gain, &excess);
-    return ntri_balance_apply(p[P_NA0], p[P_TBW], gain, excess, m, d);
+    return ntri_mass_balance(p[P_NA0], p[P_TBW], gain, excess, m, d);
 }
 
 /* Sum of squared residuals and, when a is not NULL, the normal matrix
@@ -797,7 +797,7 @@ int ntr_fit_reproject(const ntr_sample *history, size_t n, const ntr_fit *fit,
     ntri_timed_flows_add(flows, n_flows, 0.0, t_last, history[0].na_mmol_l, &gain,
                          &excess);
     loss_add(&loss, 0.0, t_last, history[0].na_mmol_l, &gain, &excess);
-    NTR_TRY(ntri_balance_apply(history[0].na_mmol_l, fit->tbw_l, gain, excess,
+    NTR_TRY(ntri_mass_balance(history[0].na_mmol_l, fit->tbw_l, gain, excess,
                                &na_unused, &tbw_last));
 
     spec.history = history;
