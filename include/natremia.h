@@ -1856,8 +1856,8 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  * Cost: linear in n, no allocation, O(1) extra memory (a block scheme over
  * the time axis; docs/correction.md). One sample yields zeros and no flag.
  * Since 1.1 this is ntr_course_assess() with goal raise, no fall limits and
- * the 1.0 target, its flags limited to @ref NTR_CF_ALL: one engine, the
- * same results bit for bit. It cannot see falls: use ntr_course_assess().
+ * the 1.0 target, its flags limited to those of @ref NTR_CF_ALL (one
+ * engine, the same results bit for bit). It cannot see falls: use ntr_course_assess().
  *
  * @param s   samples in non-decreasing time; hours finite, -1e6 to 1e6
  *            (any origin, so times before it are negative); sodium 80 to
