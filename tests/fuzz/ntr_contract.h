@@ -57,6 +57,7 @@ typedef struct ntrc_outs {
         ntr_siad_findings findings;
         ntr_siad_result siad;
         ntr_watch watch;
+        ntr_outlook outlook;
         struct {
             ntr_correction out[8];
             int status[8];
