@@ -17,6 +17,7 @@
 #include <stdlib.h>
 #include <string.h>
 
+#include "demo_therapy.h"
 #include "example_cli.h"
 #include "svg_chart.h"
 
@@ -770,6 +771,17 @@ static void a_restriction_step(struct patient_a *p)
     }
 }
 
+/* With or without urea: the solute decision (examples/demo_therapy.c). */
+static void a_solute_step(const struct patient_a *p)
+{
+    struct therapy_urine u;
+    u.serum_na_mmol_l = p->si[PANEL_NA];
+    u.urine_na_mmol_l = A_URINE_NA_MMOL_L;
+    u.urine_k_mmol_l = A_URINE_K_MMOL_L;
+    u.urine_osm_mosm_kg = A_URINE_OSM_MOSM_KG;
+    therapy_solute_step("A6a. Restriction with or without urea (fluid allowance)", &u);
+}
+
 /* The risk factors, each in words, and why the limits were chosen. */
 static void describe_risk(unsigned int drivers, unsigned int unknowns, int preset)
 {
@@ -1037,7 +1049,8 @@ static void patient_a(const char *chart_path)
 {
     static const int used[] = {NTR_METHOD_EFFECTIVE_OSM_MEASURED, NTR_METHOD_TBW_WATSON,
                                NTR_METHOD_SIAD_CRITERIA,
-                               NTR_METHOD_FURST, NTR_METHOD_BALANCE_COURSE,
+                               NTR_METHOD_FURST, NTR_METHOD_RESTRICTION_OUTLOOK,
+                               NTR_METHOD_SOLUTE_DOSE, NTR_METHOD_BALANCE_COURSE,
                                NTR_METHOD_PLAN_CHECK, NTR_METHOD_COURSE_WINDOWS,
                                NTR_METHOD_RELOWER};
     static struct patient_a p; /* static: the predicted courses are sizeable */
@@ -1048,6 +1061,7 @@ static void patient_a(const char *chart_path)
     a_body_water_step(&p);
     a_siad_step(&p);
     a_restriction_step(&p);
+    a_solute_step(&p);
     a_limits_step(&p);
     a_bolus_step(&p);
     a_plan_step(&p);

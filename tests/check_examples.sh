@@ -276,6 +276,22 @@ check_demo_text() {
     expect_near "$out" 'fraction of weight' 26.1 0.05 "demo body water (fraction)"
     # Source: Furst et al. 2000: (82 + 38) / 114 = 1.05, above 1.
     expect_near "$out" 'urine Na \+ urine K' 1.05 0.005 "demo Furst ratio"
+    # Solute decision, hand-worked from the published formulas with the
+    # demo's invented 600 mOsm/day, urine 460 mOsm/kg, Na + K 120, serum 114,
+    # net insensible 0.5 L/day. Berl 2008: V = 600 / 460 = 1.304 L/day.
+    expect_near "$out" 'Urine the solute makes' 1.30 0.005 "demo urine volume from solute (Berl 2008)"
+    # EFWC = V (1 - 120/114) = -0.0687 L/day (standard renal physiology).
+    expect_near "$out" 'Its electrolyte-free water clearance' -0.07 0.005 "demo EFWC of that urine"
+    # Allowance = EFWC + insensible = 0.431 L/day: below the 1.0 L/day target.
+    expect_near "$out" 'allowance with the current solute' 0.43 0.005 "demo fluid allowance (hand-worked)"
+    expect_text "$out" 'the target is too much: restrict further, or add solute' "demo outlook: 0 < allowance < target"
+    # Dose for 1.0 L/day: (1.0 - 0.4313) x 460 = 261.6 mOsm/day; urea
+    # 261.6 x 60.056 / 1000 = 15.71 g; NaCl 261.6 x 58.443 / 2000 = 7.64 g
+    # (IUPAC weights; 2 osmoles per mole of NaCl).
+    expect_near "$out" '^ +of urea +' 15.7 0.05 "demo urea dose for a 1 L/day allowance (hand-worked)"
+    expect_near "$out" '^ +or of NaCl tablets +' 7.6 0.05 "demo NaCl dose for a 1 L/day allowance (hand-worked)"
+    # 15 g urea = 249.8 mOsm; allowance 0.4313 + 249.8 / 460 = 0.974 L/day.
+    expect_near "$out" 'With urea 15 g' 0.97 0.005 "demo allowance with 15 g/day urea (hand-worked)"
     expect_text "$out" 'profound' "demo severity is profound (Spasovski et al. 2014: below 125)"
     expect_text "$out" 'consistent with SIAD' "demo SIAD verdict"
     # Risk factors (Verbalis et al. 2013): all asked about and absent.
