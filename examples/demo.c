@@ -936,6 +936,16 @@ static void a_plan_step(struct patient_a *p)
            "and a plan to stop it.\n");
 }
 
+/* Measured urine fed back at each result (examples/demo_therapy.c). */
+static void a_feedback_step(const struct patient_a *p)
+{
+    ntr_timed_flow flows[2];
+    size_t n = a_plan_flows(0, flows);
+    (void)therapy_feedback_step("A9a. Measured urine fed back at each result", a_measured,
+                                A_BEFORE_RELOWER, p->tbw_fraction_l, flows, n,
+                                &p->limits.lim);
+}
+
 static void a_watch_step(struct patient_a *p)
 {
     heading("A10. Watching the measured series");
@@ -1051,6 +1061,7 @@ static void patient_a(const char *chart_path)
                                NTR_METHOD_SIAD_CRITERIA,
                                NTR_METHOD_FURST, NTR_METHOD_RESTRICTION_OUTLOOK,
                                NTR_METHOD_SOLUTE_DOSE, NTR_METHOD_BALANCE_COURSE,
+                               NTR_METHOD_EFW_BALANCE, NTR_METHOD_URINE_FEEDBACK,
                                NTR_METHOD_PLAN_CHECK, NTR_METHOD_COURSE_WINDOWS,
                                NTR_METHOD_RELOWER};
     static struct patient_a p; /* static: the predicted courses are sizeable */
@@ -1065,6 +1076,7 @@ static void patient_a(const char *chart_path)
     a_limits_step(&p);
     a_bolus_step(&p);
     a_plan_step(&p);
+    a_feedback_step(&p);
     a_watch_step(&p);
     a_relower_step(&p);
     a_rest_step(&p);

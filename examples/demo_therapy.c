@@ -78,3 +78,92 @@ void therapy_solute_step(const char *title, const struct therapy_urine *u)
     printf("  Steady state at a fixed urine osmolality: recheck the urine as the sodium\n"
            "  corrects; thirst and adherence are not in the sums.\n");
 }
+
+/* Invented urine collections of patient A: concentrated at first, then,
+ * from hour 6, a water diuresis starting (more urine, little Na + K). */
+static const ntr_urine_interval a_urine[] = {
+    {0.0, 4.0, 320.0, 90.0, 35.0, 420.0, {0.0, 0.0}, {0u, 0u}},
+    {4.0, 6.0, 200.0, 80.0, 30.0, 360.0, {0.0, 0.0}, {0u, 0u}},
+    {6.0, 8.0, 500.0, 30.0, 15.0, 150.0, {0.0, 0.0}, {0u, 0u}},
+};
+#define A_URINE_COUNT (sizeof a_urine / sizeof a_urine[0])
+#define FEEDBACK_HORIZON_H 6.0
+#define FEEDBACK_STEP_H 0.25
+
+/* The intervals that have ended by hour t. */
+static size_t urine_ended_by(double t)
+{
+    size_t k = 0;
+    while (k < A_URINE_COUNT && a_urine[k].end_h <= t) {
+        ++k;
+    }
+    return k;
+}
+
+static void print_alert(const ntr_urine_feedback_result *r)
+{
+    if (r->flags & NTR_FB_LIMIT_AHEAD) {
+        printf("  limit in %.1f h\n", r->breach_h);
+        if (r->flags & NTR_FB_WATER_DIURESIS) {
+            printf("              ALERT: water diuresis under way\n");
+        }
+    } else {
+        printf("  none in %.0f h\n", FEEDBACK_HORIZON_H);
+    }
+}
+
+/* Whether the measured results alone (the first n) are over a limit so far. */
+static int measured_over_by(const ntr_sample *measured, size_t n, const ntr_course_limits *lim)
+{
+    ntr_course_report r;
+    r.struct_size = sizeof r;
+    check(ntr_course_assess(measured, n, lim, &r), "ntr_course_assess");
+    return (r.flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_24H |
+                       NTR_CF_FALL_OVER_48H)) != 0u;
+}
+
+double therapy_feedback_step(const char *title, const ntr_sample *measured, size_t n,
+                             double tbw_l, const ntr_timed_flow *flows, size_t n_flows,
+                             const ntr_course_limits *lim)
+{
+    double first_alert_h = -1.0;
+    size_t i, k;
+    printf("\n== %s ==\n", title);
+    printf("  Invented urine collections (a water diuresis starts at hour 6):\n");
+    printf("    from-to (h)  volume (mL)  rate (mL/h)  Na + K (mmol/L)  osm (mOsm/kg)\n");
+    for (k = 0; k < A_URINE_COUNT; ++k) {
+        const ntr_urine_interval *u = &a_urine[k];
+        printf("    %4.0f-%-4.0f   %8.0f     %8.0f     %8.0f         %6.0f\n", u->start_h,
+               u->end_h, u->volume_ml, u->volume_ml / (u->end_h - u->start_h),
+               u->na_mmol_l + u->k_mmol_l, u->osm_mosm_kg);
+    }
+    printf("  At each result, the latest urine continued for %.0f h (body water %.1f L):\n",
+           FEEDBACK_HORIZON_H, tbw_l);
+    printf("    time (h)  Na (mmol/L)  EFW clearance (mL/h)  Na rate (mmol/L/h)  ahead\n");
+    for (i = 1; i < n; ++i) {
+        ntr_urine_feedback_result r;
+        size_t have = urine_ended_by(measured[i].hours);
+        if (have == 0) {
+            continue;
+        }
+        r.struct_size = sizeof r;
+        check(ntr_urine_feedback(measured, i + 1, tbw_l, flows, n_flows, a_urine, have,
+                                 FEEDBACK_HORIZON_H, FEEDBACK_STEP_H, lim, &r),
+              "ntr_urine_feedback");
+        printf("    %6.0f    %9.1f    %12.0f        %+10.2f    ", measured[i].hours,
+               measured[i].na_mmol_l, r.urine_efw_ml_h, r.na_rate_mmol_l_h);
+        print_alert(&r);
+        if (r.flags & NTR_FB_LIMIT_AHEAD) {
+            first_alert_h = measured[i].hours;
+            break;
+        }
+    }
+    if (first_alert_h >= 0.0) {
+        printf("  -> alert at the %.0f h result; measured results so far: %s.\n"
+               "     Measure sodium within 1 to 2 h and plan how to stop the diuresis.\n",
+               first_alert_h, measured_over_by(measured, i + 1, lim)
+                                  ? "over a limit"
+                                  : "within the limits");
+    }
+    return first_alert_h;
+}

@@ -3,6 +3,9 @@
 #ifndef NATREMIA_DEMO_THERAPY_H
 #define NATREMIA_DEMO_THERAPY_H
 
+#include <natremia.h>
+#include <stddef.h>
+
 /* Patient A's measured urine and serum sodium, as demo.c holds them. */
 struct therapy_urine {
     double serum_na_mmol_l;
@@ -14,5 +17,12 @@ struct therapy_urine {
 /* "Will restriction, with or without urea, work?": the restriction
  * outlook, the allowance with current solute and with a chosen urea dose. */
 void therapy_solute_step(const char *title, const struct therapy_urine *u);
+
+/* Measured urine fed back at each result up to the count given: the
+ * first result at which a limit is ahead within the horizon. Returns the
+ * hour of that result, or -1 if none. */
+double therapy_feedback_step(const char *title, const ntr_sample *measured, size_t n,
+                             double tbw_l, const ntr_timed_flow *flows, size_t n_flows,
+                             const ntr_course_limits *lim);
 
 #endif

@@ -292,6 +292,31 @@ check_demo_text() {
     expect_near "$out" '^ +or of NaCl tablets +' 7.6 0.05 "demo NaCl dose for a 1 L/day allowance (hand-worked)"
     # 15 g urea = 249.8 mOsm; allowance 0.4313 + 249.8 / 460 = 0.974 L/day.
     expect_near "$out" 'With urea 15 g' 0.97 0.005 "demo allowance with 15 g/day urea (hand-worked)"
+    # Urine feedback, hand-worked from the EFW balance (Shah & Bhave, Front
+    # Med 2018): at 8 h, urine 250 mL/h with Na + K 45 at serum 120.5:
+    # EFW clearance 250 (1 - 45/120.5) = 156.6 mL/h; rate of change
+    # 120.5 x 0.1566 / 26.1 = +0.72 mmol/L/h. At 4 h the urine (Na + K 110
+    # at 118.5) clears almost no free water: no alert.
+    expect_text "$out" '^ +4 +118\.5 .* none in 6 h$' "demo feedback: no alert at 4 h"
+    expect_near "$out" '^ +8 +120\.5 +' 157 0.5 "demo feedback EFW clearance at 8 h (hand-worked)"
+    expect_text "$out" '^ +8 +120\.5 +157 +\+0\.72 ' "demo feedback sodium rate at 8 h (hand-worked)"
+    # Limit 114 + 10 = 124 (lowest of the past 24 h plus the standard 10 in
+    # 24 h, Verbalis et al. 2013). Mass balance with the urine continued:
+    # (120.5 x 26.1 - 45 x 0.25 t) / (26.1 - 0.25 t) = 124 at t = 4.63 h;
+    # the 0.25 h grid puts the first point over at 4.75 h (printed 4.8).
+    expect_near "$out" '^ +8 +120\.5 .*limit in' 4.8 0.05 "demo feedback breach ahead (hand-worked, 0.25 h grid)"
+    expect_text "$out" 'ALERT: water diuresis under way' "demo feedback raises the water-diuresis alert"
+    # The alert must come before the measured breach: hour of the alert
+    # result versus the first measured result over the limit in A10.
+    alert_h=$(grep -m1 -E -- '-> alert at the [0-9.]+ h result' "$out" \
+        | sed -E 's/.*alert at the ([0-9.]+) h result.*/\1/' || true)
+    breach_h=$(grep -m1 -E '^ +[0-9.]+ +[0-9.]+ .*OVER 24 h rise limit' "$out" | awk '{print $1}' || true)
+    if [[ -n "$alert_h" && -n "$breach_h" ]] && awk -v a="$alert_h" -v b="$breach_h" 'BEGIN{exit !(a < b)}'; then
+        ok "demo feedback alert at ${alert_h} h comes before the measured breach at ${breach_h} h"
+    else
+        fail "demo feedback alert ('${alert_h}') not before the measured breach ('${breach_h}')"
+    fi
+    expect_text "$out" 'measured results so far: within the limits' "demo feedback: measured results within at the alert"
     expect_text "$out" 'profound' "demo severity is profound (Spasovski et al. 2014: below 125)"
     expect_text "$out" 'consistent with SIAD' "demo SIAD verdict"
     # Risk factors (Verbalis et al. 2013): all asked about and absent.
