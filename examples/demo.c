@@ -532,6 +532,7 @@ static const ntr_sample a_measured[] = {
 };
 #define A_MEASURED_COUNT (sizeof a_measured / sizeof a_measured[0])
 #define A_BEFORE_RELOWER 6
+#define A_FIT_COUNT 4 /* the results up to 8 h, when the urine alert comes */
 
 /* Re-lowering: 5% dextrose over 4 h, to 2 mmol/L under the 24 h limit,
  * with the urine expected once the diuresis is stopped. */
@@ -946,6 +947,17 @@ static void a_feedback_step(const struct patient_a *p)
                                 &p->limits.lim);
 }
 
+/* The fit on the results to the alert, and the re-projection
+ * (examples/demo_therapy.c). */
+static void a_fit_step(const struct patient_a *p)
+{
+    ntr_timed_flow flows[2];
+    size_t n = a_plan_flows(0, flows);
+    therapy_fit_step("A9b. What the results so far say: fitted re-projection", a_measured,
+                     A_FIT_COUNT, A_BEFORE_RELOWER, p->tbw_fraction_l, flows, n,
+                     &p->limits.lim, p->bolus_only, p->n_bolus_only);
+}
+
 static void a_watch_step(struct patient_a *p)
 {
     heading("A10. Watching the measured series");
@@ -1062,6 +1074,7 @@ static void patient_a(const char *chart_path)
                                NTR_METHOD_FURST, NTR_METHOD_RESTRICTION_OUTLOOK,
                                NTR_METHOD_SOLUTE_DOSE, NTR_METHOD_BALANCE_COURSE,
                                NTR_METHOD_EFW_BALANCE, NTR_METHOD_URINE_FEEDBACK,
+                               NTR_METHOD_COURSE_FIT, NTR_METHOD_FIT_REPROJECT,
                                NTR_METHOD_PLAN_CHECK, NTR_METHOD_COURSE_WINDOWS,
                                NTR_METHOD_RELOWER};
     static struct patient_a p; /* static: the predicted courses are sizeable */
@@ -1077,6 +1090,7 @@ static void patient_a(const char *chart_path)
     a_bolus_step(&p);
     a_plan_step(&p);
     a_feedback_step(&p);
+    a_fit_step(&p);
     a_watch_step(&p);
     a_relower_step(&p);
     a_rest_step(&p);

@@ -167,3 +167,61 @@ double therapy_feedback_step(const char *title, const ntr_sample *measured, size
     }
     return first_alert_h;
 }
+
+#define REPROJECT_STEP_H 0.25
+
+/* The original prediction at hour t (NaN-free: -1 when it does not reach t). */
+static double original_at(const ntr_sample *original, size_t n, double t)
+{
+    size_t k;
+    for (k = 0; k < n; ++k) {
+        if (original[k].hours >= t - 1e-9 && original[k].hours <= t + 1e-9) {
+            return original[k].na_mmol_l;
+        }
+    }
+    return -1.0;
+}
+
+void therapy_fit_step(const char *title, const ntr_sample *measured, size_t n_fit,
+                      size_t n_all, double tbw_guess_l, const ntr_timed_flow *flows,
+                      size_t n_flows, const ntr_course_limits *lim,
+                      const ntr_sample *original, size_t n_orig)
+{
+    const double t_last = measured[n_fit - 1].hours;
+    ntr_course_plan_result whole;
+    ntr_fit fit;
+    size_t k;
+    fit.struct_size = sizeof fit;
+    check(ntr_course_fit(measured, n_fit, tbw_guess_l, flows, n_flows, &fit), "ntr_course_fit");
+    printf("\n== %s ==\n", title);
+    printf("  Fitted to the %u results up to %.0f h and the saline given (least squares\n"
+           "  on the mass balance):\n", (unsigned)n_fit, t_last);
+    printf("    apparent body water      %5.1f L     (standard error %.1f; start guess %.1f)\n",
+           fit.tbw_l, fit.tbw_se_l, tbw_guess_l);
+    printf("    unmeasured water loss    %5.0f mL/h  (standard error %.0f)\n",
+           fit.free_water_loss_ml_h, fit.free_water_loss_se_ml_h);
+    printf("    residual (root mean sq.) %5.2f mmol/L\n", fit.rms_residual_mmol_l);
+    printf("  The rest of the plan (no more saline) from the %.0f h result:\n", t_last);
+    printf("    time (h)  original (mmol/L)  re-projected (mmol/L)  measured (mmol/L)\n");
+    for (k = n_fit; k < n_all; ++k) {
+        ntr_course_plan_result r;
+        const double t = measured[k].hours;
+        r.struct_size = sizeof r;
+        check(ntr_fit_reproject(measured, n_fit, &fit, flows, n_flows, t - t_last,
+                                REPROJECT_STEP_H, lim, &r), "ntr_fit_reproject");
+        printf("    %6.0f    %13.1f      %15.1f        %13.1f\n", t,
+               original_at(original, n_orig, t), r.final_na_mmol_l, measured[k].na_mmol_l);
+    }
+    whole.struct_size = sizeof whole;
+    check(ntr_fit_reproject(measured, n_fit, &fit, flows, n_flows,
+                            measured[n_all - 1].hours - t_last, REPROJECT_STEP_H, lim, &whole),
+          "ntr_fit_reproject");
+    if (whole.first_breach_h != NTR_PLAN_NO_BREACH) {
+        printf("  -> re-projected: over a limit at %.1f h (the original plan never was).\n",
+               t_last + whole.first_breach_h);
+    } else {
+        printf("  -> re-projected: within the limits to %.0f h.\n", measured[n_all - 1].hours);
+    }
+    printf("     The fit assumes the loss stays steady; a diuresis that grows outruns\n"
+           "     it. Keep measuring; refit with each result.\n");
+}

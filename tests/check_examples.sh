@@ -317,6 +317,20 @@ check_demo_text() {
         fail "demo feedback alert ('${alert_h}') not before the measured breach ('${breach_h}')"
     fi
     expect_text "$out" 'measured results so far: within the limits' "demo feedback: measured results within at the alert"
+    # Fitted re-projection. The fit itself (least squares) is checked in
+    # tests/test_feedback.c on synthetic patients; here the re-projection is
+    # hand-worked from the printed fit with the mass balance (Adrogue &
+    # Madias 2000): body water at 8 h = 34.6 + 0.3 L saline - 0.106 x 8 =
+    # 34.07 L; Na(12 h) = 120.5 x 34.07 / (34.07 - 0.106 x 4) = 122.0;
+    # Na(16 h) = 120.5 x 34.07 / (34.07 - 0.106 x 8) = 123.6. The original
+    # (boluses alone, TBW 26.1 L): (114 x 26.1 + 0.3 x 513) / 26.4 = 118.5.
+    expect_near "$out" 'apparent body water' 34.6 0.05 "demo fit: apparent body water (printed, used below)"
+    expect_near "$out" 'unmeasured water loss' 106 0.5 "demo fit: unmeasured loss (printed, used below)"
+    expect_text "$out" '^ +12 +118\.5 +122\.0 +123\.0$' "demo re-projection at 12 h beside the original (hand-worked)"
+    expect_text "$out" '^ +16 +118\.5 +123\.6 +125\.5$' "demo re-projection at 16 h beside the original (hand-worked)"
+    # Residual between 0 and 1 mmol/L: within the analytical SD of about
+    # 1 mmol/L (common practice; docs/feedback.md uses the same SD).
+    expect_near "$out" 'residual \(root mean sq\.\)' 0.5 0.5 "demo fit residual within 1 mmol/L"
     expect_text "$out" 'profound' "demo severity is profound (Spasovski et al. 2014: below 125)"
     expect_text "$out" 'consistent with SIAD' "demo SIAD verdict"
     # Risk factors (Verbalis et al. 2013): all asked about and absent.
