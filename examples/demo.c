@@ -552,6 +552,7 @@ struct patient_a {
     /* Predicted courses of the plan, for the chart. */
     ntr_sample bolus_only[PLAN_POINTS], with_diuresis[PLAN_POINTS];
     size_t n_bolus_only, n_with_diuresis;
+    struct therapy_curve refit; /* re-projected with the fit (A9b) */
     watched series;
 };
 
@@ -949,13 +950,13 @@ static void a_feedback_step(const struct patient_a *p)
 
 /* The fit on the results to the alert, and the re-projection
  * (examples/demo_therapy.c). */
-static void a_fit_step(const struct patient_a *p)
+static void a_fit_step(struct patient_a *p)
 {
     ntr_timed_flow flows[2];
     size_t n = a_plan_flows(0, flows);
     therapy_fit_step("A9b. What the results so far say: fitted re-projection", a_measured,
                      A_FIT_COUNT, A_BEFORE_RELOWER, p->tbw_fraction_l, flows, n,
-                     &p->limits.lim, p->bolus_only, p->n_bolus_only);
+                     &p->limits.lim, p->bolus_only, p->n_bolus_only, &p->refit);
 }
 
 static void a_watch_step(struct patient_a *p)
@@ -1007,7 +1008,7 @@ static void a_chart_step(struct patient_a *p, const char *path)
     static band_points band;
     double m_hours[A_MEASURED_COUNT], m_na[A_MEASURED_COUNT];
     double a_hours[PLAN_POINTS], a_na[PLAN_POINTS], d_hours[PLAN_POINTS], d_na[PLAN_POINTS];
-    chart_line lines[2];
+    chart_line lines[3];
     char subtitle[200];
     chart_notes notes;
     chart c;
@@ -1027,6 +1028,11 @@ static void a_chart_step(struct patient_a *p, const char *path)
     lines[1].hours = d_hours;
     lines[1].na_mmol_l = d_na;
     lines[1].n = p->n_with_diuresis;
+    lines[2].label = "Re-projected with the fit (A9b)";
+    lines[2].colour = "#7b3f9e";
+    lines[2].hours = p->refit.hours;
+    lines[2].na_mmol_l = p->refit.na_mmol_l;
+    lines[2].n = p->refit.n;
 
     snprintf(subtitle, sizeof subtitle, "Band: from the lowest result of the past "
              "24 h up to %.0f mmol/L above it (%.0f above the lowest of 48 h); %s "
@@ -1046,7 +1052,7 @@ static void a_chart_step(struct patient_a *p, const char *path)
     c.band.high_mmol_l = band.high;
     c.band.n = band.n;
     c.lines = lines;
-    c.n_lines = 2;
+    c.n_lines = 3;
     c.points.label = "Measured, within the limits";
     c.points.flagged_label = "Measured, over a limit";
     c.points.hours = m_hours;
@@ -1060,8 +1066,8 @@ static void a_chart_step(struct patient_a *p, const char *path)
         fprintf(stderr, "natremia-demo: could not write %s\n", path);
         exit(1);
     }
-    printf("  measured sodium, both predicted courses and the rise the limits "
-           "allow at each\n  moment written to ");
+    printf("  measured sodium, the predicted and re-projected courses and the rise the\n"
+           "  limits allow at each moment written to ");
     print_full_path(path);
     printf("\n  (open it in any web browser); a diamond marks a result over a "
            "limit when it\n  was taken, as in the \"now\" column.\n");

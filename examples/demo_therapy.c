@@ -182,10 +182,32 @@ static double original_at(const ntr_sample *original, size_t n, double t)
     return -1.0;
 }
 
+/* The re-projection hour by hour (each point one ntr_fit_reproject call,
+ * whose end sodium is the point), starting at the last fitted result. */
+static void fill_curve(const ntr_sample *measured, size_t n_fit, const ntr_fit *fit,
+                       const ntr_timed_flow *flows, size_t n_flows,
+                       const ntr_course_limits *lim, double span_h, struct therapy_curve *c)
+{
+    const ntr_sample *last = &measured[n_fit - 1];
+    double d;
+    c->n = 0;
+    c->hours[c->n] = last->hours;
+    c->na_mmol_l[c->n++] = last->na_mmol_l;
+    for (d = 1.0; d <= span_h + 1e-9 && c->n < THERAPY_CURVE_MAX; d += 1.0) {
+        ntr_course_plan_result r;
+        r.struct_size = sizeof r;
+        check(ntr_fit_reproject(measured, n_fit, fit, flows, n_flows, d, REPROJECT_STEP_H, lim,
+                                &r), "ntr_fit_reproject");
+        c->hours[c->n] = last->hours + d;
+        c->na_mmol_l[c->n++] = r.final_na_mmol_l;
+    }
+}
+
 void therapy_fit_step(const char *title, const ntr_sample *measured, size_t n_fit,
                       size_t n_all, double tbw_guess_l, const ntr_timed_flow *flows,
                       size_t n_flows, const ntr_course_limits *lim,
-                      const ntr_sample *original, size_t n_orig)
+                      const ntr_sample *original, size_t n_orig,
+                      struct therapy_curve *curve)
 {
     const double t_last = measured[n_fit - 1].hours;
     ntr_course_plan_result whole;
@@ -222,6 +244,8 @@ void therapy_fit_step(const char *title, const ntr_sample *measured, size_t n_fi
     } else {
         printf("  -> re-projected: within the limits to %.0f h.\n", measured[n_all - 1].hours);
     }
+    fill_curve(measured, n_fit, &fit, flows, n_flows, lim,
+               measured[n_all - 1].hours - t_last, curve);
     printf("     The fit assumes the loss stays steady; a diuresis that grows outruns\n"
            "     it. Keep measuring; refit with each result.\n");
 }

@@ -25,12 +25,21 @@ double therapy_feedback_step(const char *title, const ntr_sample *measured, size
                              double tbw_l, const ntr_timed_flow *flows, size_t n_flows,
                              const ntr_course_limits *lim);
 
+/* The re-projected course, hourly from the last fitted result, for the chart. */
+#define THERAPY_CURVE_MAX 49
+struct therapy_curve {
+    double hours[THERAPY_CURVE_MAX];
+    double na_mmol_l[THERAPY_CURVE_MAX];
+    size_t n;
+};
+
 /* The fit on the first n_fit measured results, and the remaining plan
  * re-projected with it, beside the original prediction (original, n_orig:
  * the predicted course from hour 0) and the later measured results. */
 void therapy_fit_step(const char *title, const ntr_sample *measured, size_t n_fit,
                       size_t n_all, double tbw_guess_l, const ntr_timed_flow *flows,
                       size_t n_flows, const ntr_course_limits *lim,
-                      const ntr_sample *original, size_t n_orig);
+                      const ntr_sample *original, size_t n_orig,
+                      struct therapy_curve *curve);
 
 #endif
