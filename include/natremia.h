@@ -618,6 +618,302 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: solute (lib/solute.c, docs/solute.md) =================== */
+/* ======================================================================= */
+
+/** @defgroup solute Solute, urine volume and fluid restriction
+ *  How much urine the day's solute makes at the urine's fixed osmolality
+ *  (Berl 2008), the most fluid per day that does not lower the sodium, the
+ *  osmoles of urea or salt tablets and the dose that makes a chosen fluid
+ *  allowance hold, and one outlook for "will restriction, with or without
+ *  solute, work?". docs/solute.md lists what the model ignores.
+ *
+ *  Common premises: the urine osmolality stays as measured (in SIAD it is
+ *  fixed by the antidiuretic hormone; when that falls, a water diuresis
+ *  follows and every figure here is too low); a kilogram of urine is taken
+ *  as a litre; the day is in steady state, so solute taken is solute
+ *  excreted.
+ *  @{ */
+
+#define NTR_SOLUTE_UREA 1 /**< urea, CH4N2O: 1 osmole per mole */
+#define NTR_SOLUTE_NACL 2 /**< sodium chloride tablets: 2 osmoles per mole (full dissociation, an idealisation) */
+
+/**
+ * @brief Daily urine volume that a solute load makes at a fixed urine osmolality.
+ *
+ * V = solute / U_osm (Berl): the kidney must excrete the day's osmoles,
+ * and at a urine osmolality it cannot change (as in SIAD) the volume
+ * follows the solute. mOsm/day divided by mOsm/kg gives kg/day, read as
+ * L/day (urine density taken as 1 kg/L; real urine is up to about 3%
+ * denser).
+ *
+ * @param solute_mosm_day    osmoles excreted per day, 0 to 10000 mOsm/day
+ *                           (about 600-900 on a usual diet).
+ * @param urine_osm_mosm_kg  urine osmolality, 10 to 2000 mOsm/kg.
+ * @param[out] urine_l_day   urine volume, L/day.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the volume would exceed 30 L/day, the largest
+ *         urine volume the library accepts anywhere).
+ *
+ * Reference: Berl T. Impact of solute intake on urine flow and water
+ * excretion. J Am Soc Nephrol 2008;19:1076-8.
+ * Method: @ref NTR_METHOD_SOLUTE_URINE_VOLUME.
+ */
+NTR_API int ntr_urine_volume_from_solute(double solute_mosm_day,
+                                         double urine_osm_mosm_kg,
+                                         double *urine_l_day);
+
+/**
+ * @brief The most fluid per day that does not lower the serum sodium.
+ *
+ * intake = V * (1 - (U_Na + U_K) / S_Na) + insensible, with
+ * V = solute / U_osm (ntr_urine_volume_from_solute()). The first term is
+ * the electrolyte-free water clearance of that urine (ntr_efwc()), the
+ * factor in brackets 1 minus the Furst ratio (ntr_furst_ratio()). Drinking
+ * less than the allowance raises the sodium, more lowers it.
+ *
+ * A negative result is returned as it is: restriction alone cannot hold
+ * the sodium, even with nothing to drink (the urine carries more sodium
+ * and potassium per litre than the serum holds, and the insensible loss
+ * does not make up for it). With no insensible loss the result is
+ * negative exactly when the Furst ratio is above 1 (and V > 0).
+ *
+ * The urine composition is read as measured at this solute load: the same
+ * concentrations at another @p solute_mosm_day describe another urine
+ * (more electrolyte excreted), not added solute. For added urea or salt
+ * use ntr_fluid_allowance_with_dose().
+ *
+ * What it ignores: electrolytes eaten or infused (the urine's sodium and
+ * potassium count as lost, as in the clearance, so the figure errs towards
+ * restriction), water in food and the water made by metabolism (fold them
+ * into @p insensible_l_day as a net loss), stool and drain losses.
+ *
+ * @param solute_mosm_day    osmoles excreted per day, 0 to 10000 mOsm/day.
+ * @param urine_osm_mosm_kg  urine osmolality, 10 to 2000 mOsm/kg.
+ * @param urine_na_mmol_l    0 to 500 mmol/L.
+ * @param urine_k_mmol_l     0 to 300 mmol/L.
+ * @param serum_na_mmol_l    80 to 220 mmol/L.
+ * @param insensible_l_day   net insensible loss (skin and breath minus
+ *                           water of metabolism), 0 to 10 L/day.
+ * @param[out] intake_l_day  the allowance, L/day; may be negative.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the urine volume would exceed 30 L/day).
+ *
+ * References: Berl T, J Am Soc Nephrol 2008;19:1076-8 (urine volume from
+ * solute). Furst H et al., Am J Med Sci 2000;319:240-4 (the ratio).
+ * Electrolyte-free water clearance: standard renal physiology (Rose BD,
+ * Post TW. Clinical Physiology of Acid-Base and Electrolyte Disorders,
+ * 5th ed.).
+ * Method: @ref NTR_METHOD_FLUID_ALLOWANCE.
+ */
+NTR_API int ntr_fluid_allowance(double solute_mosm_day,
+                                double urine_osm_mosm_kg,
+                                double urine_na_mmol_l, double urine_k_mmol_l,
+                                double serum_na_mmol_l,
+                                double insensible_l_day,
+                                double *intake_l_day);
+
+/**
+ * @brief Osmoles in a dose of urea or sodium chloride.
+ *
+ * mOsm = 1000 * grams / M * n, M the molar mass from the IUPAC standard
+ * atomic weights (urea CH4N2O 60.056 g/mol; NaCl 58.443 g/mol), n the
+ * osmoles per mole: 1 for urea, 2 for NaCl. Two per mole assumes full
+ * dissociation, an idealisation: the osmotic coefficient of saline is
+ * about 0.93 (from memory), so the true figure is a few per cent lower.
+ * 30 g of urea is about 500 mOsm; 1 g of NaCl about 34 mOsm (and 17 mmol
+ * of sodium).
+ *
+ * @param solute      NTR_SOLUTE_UREA or NTR_SOLUTE_NACL.
+ * @param grams       the dose, 0 to 200 g.
+ * @param[out] mosm   its osmoles, mOsm.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * Reference: IUPAC standard atomic weights (abridged, Commission on
+ * Isotopic Abundances and Atomic Weights); Berl T, J Am Soc Nephrol
+ * 2008;19:1076-8 (urea and salt as solute).
+ * Method: @ref NTR_METHOD_SOLUTE_DOSE.
+ */
+NTR_API int ntr_solute_dose_osmoles(int solute, double grams, double *mosm);
+
+/**
+ * @brief The fluid allowance after a daily dose of urea or salt tablets.
+ *
+ * intake = A0 + D / U_osm, with A0 = ntr_fluid_allowance() of the measured
+ * urine and D = ntr_solute_dose_osmoles() of the daily dose: the added
+ * osmoles leave in extra urine at the same osmolality, and that extra
+ * urine carries no net electrolyte. For urea this is plain (urea is not
+ * an electrolyte); for NaCl the tablets' sodium is taken in and excreted
+ * the same day (steady state), so it cancels in the balance and only the
+ * osmoles remain. The dose therefore helps even when the Furst ratio is
+ * above 1, which restriction alone cannot.
+ *
+ * Also ignores: sodium kept rather than excreted (volume depletion, heart
+ * failure, cirrhosis: salt then raises the sodium directly and loads the
+ * circulation), a fall of urine osmolality as the dose takes effect, and
+ * urea's own effect on thirst and protein intake. Each gram of NaCl is
+ * about 17 mmol of sodium.
+ *
+ * @param solute            NTR_SOLUTE_UREA or NTR_SOLUTE_NACL.
+ * @param grams_day         the daily dose, 0 to 200 g/day.
+ * @param solute_mosm_day   osmoles excreted per day before the dose,
+ *                          0 to 10000 mOsm/day.
+ * @param urine_osm_mosm_kg 10 to 2000 mOsm/kg.
+ * @param urine_na_mmol_l   0 to 500 mmol/L (measured before the dose).
+ * @param urine_k_mmol_l    0 to 300 mmol/L.
+ * @param serum_na_mmol_l   80 to 220 mmol/L.
+ * @param insensible_l_day  0 to 10 L/day.
+ * @param[out] intake_l_day the allowance with the dose, L/day; may be negative.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the urine
+ *         volume, before or with the dose, would exceed 30 L/day).
+ *
+ * References: Berl T, J Am Soc Nephrol 2008;19:1076-8; as
+ * ntr_fluid_allowance().
+ * Method: @ref NTR_METHOD_SOLUTE_FOR_ALLOWANCE.
+ */
+NTR_API int ntr_fluid_allowance_with_dose(int solute, double grams_day,
+                                          double solute_mosm_day,
+                                          double urine_osm_mosm_kg,
+                                          double urine_na_mmol_l,
+                                          double urine_k_mmol_l,
+                                          double serum_na_mmol_l,
+                                          double insensible_l_day,
+                                          double *intake_l_day);
+
+/**
+ * @brief The daily dose of urea or salt that makes a chosen fluid allowance hold.
+ *
+ * The inverse of ntr_fluid_allowance_with_dose(): D = (target - A0) * U_osm
+ * osmoles a day, turned into grams by the molar mass and the osmoles per
+ * mole (ntr_solute_dose_osmoles()). When the measured urine already allows
+ * the target (A0 >= target) the dose is 0. Same premises and omissions as
+ * ntr_fluid_allowance_with_dose().
+ *
+ * @param solute              NTR_SOLUTE_UREA or NTR_SOLUTE_NACL.
+ * @param solute_mosm_day     0 to 10000 mOsm/day (before the dose).
+ * @param urine_osm_mosm_kg   10 to 2000 mOsm/kg.
+ * @param urine_na_mmol_l     0 to 500 mmol/L.
+ * @param urine_k_mmol_l      0 to 300 mmol/L.
+ * @param serum_na_mmol_l     80 to 220 mmol/L.
+ * @param insensible_l_day    0 to 10 L/day.
+ * @param target_intake_l_day the daily fluid intake to allow, above 0 and
+ *                            at most 10 L/day (for example 1).
+ * @param[out] grams_day      the daily dose, g/day (0 when none is needed).
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the dose would
+ *         exceed 200 g/day, or the urine volume 30 L/day).
+ *
+ * @warning An estimate for decision support, not an order: doses are
+ * limited by tolerance and local protocol, and the sodium must be measured.
+ *
+ * References: Berl T, J Am Soc Nephrol 2008;19:1076-8; as
+ * ntr_fluid_allowance().
+ * Method: @ref NTR_METHOD_SOLUTE_FOR_ALLOWANCE.
+ */
+NTR_API int ntr_solute_dose_for_allowance(int solute, double solute_mosm_day,
+                                          double urine_osm_mosm_kg,
+                                          double urine_na_mmol_l,
+                                          double urine_k_mmol_l,
+                                          double serum_na_mmol_l,
+                                          double insensible_l_day,
+                                          double target_intake_l_day,
+                                          double *grams_day);
+
+#define NTR_OUTLOOK_TARGET_HOLDS 1       /**< the allowance reaches the target: restricting to it holds the sodium */
+#define NTR_OUTLOOK_STRICTER_OR_SOLUTE 2 /**< 0 < allowance < target: restrict below the target, or add solute */
+#define NTR_OUTLOOK_RESTRICTION_FAILS 3  /**< allowance <= 0: restriction alone cannot hold the sodium */
+
+#define NTR_OUTLOOK_FURST_ABOVE_ONE 0x1u   /**< Furst ratio above 1, a predictor that restriction fails */
+#define NTR_OUTLOOK_UREA_OUT_OF_RANGE 0x2u /**< no urea dose up to 200 g/day reaches the target */
+#define NTR_OUTLOOK_NACL_OUT_OF_RANGE 0x4u /**< no NaCl dose up to 200 g/day reaches the target */
+
+/** Dose member of ntr_outlook when no dose within range reaches the target. */
+#define NTR_OUTLOOK_NO_DOSE (-1.0)
+
+/**
+ * @brief The answer of ntr_restriction_outlook().
+ *
+ * Growth (ABI): the caller sets @c struct_size to sizeof(ntr_outlook);
+ * members are only appended, and the library writes only members that fit
+ * in the caller's @c struct_size. A @c struct_size below this version's
+ * size gives NTR_ERR_ARG.
+ */
+typedef struct ntr_outlook {
+    size_t struct_size;         /**< sizeof(ntr_outlook) as the caller knows it; read, not written. */
+    int verdict;                /**< NTR_OUTLOOK_TARGET_HOLDS, _STRICTER_OR_SOLUTE or _RESTRICTION_FAILS. */
+    int furst_advice;           /**< NTR_RESTRICT_* band of the Furst ratio (ntr_restriction_from_ratio()). */
+    double furst_ratio;         /**< (U_Na + U_K) / S_Na. */
+    double urine_l_day;         /**< urine volume from the current solute, L/day. */
+    double efwc_l_day;          /**< electrolyte-free water clearance of that urine, L/day. */
+    double allowance_l_day;     /**< the most fluid per day that does not lower the sodium (may be negative). */
+    double target_intake_l_day; /**< the target asked about, L/day. */
+    double urea_g_day;          /**< urea per day that makes the target hold; 0 if none is needed; NTR_OUTLOOK_NO_DOSE. */
+    double nacl_g_day;          /**< the same for NaCl tablets. */
+    unsigned int flags;         /**< NTR_OUTLOOK_* flag bits. */
+    unsigned int reserved;      /**< Written as 0. */
+} ntr_outlook;
+
+/**
+ * @brief Will restriction, with or without solute, hold this patient's sodium?
+ *
+ * Combines, for one measured urine: the Furst ratio and its restriction
+ * band (ntr_furst_ratio(), ntr_restriction_from_ratio()); the urine volume
+ * the day's solute makes (ntr_urine_volume_from_solute()) and its
+ * electrolyte-free water clearance (ntr_efwc()); the fluid allowance
+ * (ntr_fluid_allowance()); and the daily urea and NaCl doses that make
+ * @p target_intake_l_day hold (ntr_solute_dose_for_allowance(); a dose
+ * above 200 g/day, or one that needs more than 30 L/day of urine, is
+ * reported as NTR_OUTLOOK_NO_DOSE with its flag).
+ *
+ * Verdict: allowance <= 0 gives NTR_OUTLOOK_RESTRICTION_FAILS; else
+ * allowance >= target gives NTR_OUTLOOK_TARGET_HOLDS; else
+ * NTR_OUTLOOK_STRICTER_OR_SOLUTE. The Furst band is reported beside it and
+ * can disagree when the insensible loss is large: with no insensible loss,
+ * a ratio above 1 means the allowance is negative.
+ *
+ * What it ignores: everything ntr_fluid_allowance() and
+ * ntr_fluid_allowance_with_dose() ignore; thirst and adherence; that the
+ * urine changes as the sodium corrects (recheck it); diuretics, vaptans
+ * and other treatment; how fast the sodium rises when intake is below the
+ * allowance (use the balance functions with the body water).
+ *
+ * Check order: NULL pointer; @c struct_size (NTR_ERR_ARG); the numbers in
+ * argument order; the domain.
+ *
+ * @param solute_mosm_day     0 to 10000 mOsm/day.
+ * @param urine_osm_mosm_kg   10 to 2000 mOsm/kg.
+ * @param urine_na_mmol_l     0 to 500 mmol/L.
+ * @param urine_k_mmol_l      0 to 300 mmol/L.
+ * @param serum_na_mmol_l     80 to 220 mmol/L.
+ * @param insensible_l_day    0 to 10 L/day.
+ * @param target_intake_l_day above 0 and at most 10 L/day (for example 1).
+ * @param[out] out            the outlook; set out->struct_size first.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (struct_size too small),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the urine
+ *         volume would exceed 30 L/day).
+ *
+ * @warning An estimate for decision support, not an order.
+ *
+ * References: Berl T, J Am Soc Nephrol 2008;19:1076-8. Furst H et al., Am
+ * J Med Sci 2000;319:240-4. Verbalis JG et al., Am J Med 2013;126(10 Suppl
+ * 1):S1-42 (a ratio above 1 predicts failure of restriction).
+ * Methods: @ref NTR_METHOD_RESTRICTION_OUTLOOK, @ref NTR_METHOD_FURST,
+ * @ref NTR_METHOD_EFWC, @ref NTR_METHOD_FLUID_ALLOWANCE,
+ * @ref NTR_METHOD_SOLUTE_FOR_ALLOWANCE.
+ */
+NTR_API int ntr_restriction_outlook(double solute_mosm_day,
+                                    double urine_osm_mosm_kg,
+                                    double urine_na_mmol_l,
+                                    double urine_k_mmol_l,
+                                    double serum_na_mmol_l,
+                                    double insensible_l_day,
+                                    double target_intake_l_day,
+                                    ntr_outlook *out);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: workup (lib/workup.c, docs/workup.md) =================== */
 /* ======================================================================= */
 
@@ -3069,7 +3365,8 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 /** @defgroup methods Method identifiers
  *  Every published method the library uses has an id (ABI). Ids 1-29 are
  *  the core formulas, 30-49 correction and balance, 50-69 the work-up,
- *  70-89 the therapy areas of issue P2 (83-89: urine feedback and the fit).
+ *  70-89 the therapy areas of issue P2 (70-74 solute and restriction,
+ *  75-82 therapy, 83-89 urine feedback and the fit).
  *  @{ */
 #define NTR_METHOD_UNIT_CONVERSION 1       /**< unit conversion by molar mass (IUPAC, UCUM) */
 #define NTR_METHOD_OSM_2NA 2               /**< calculated osmolality, 2*Na formula */
@@ -3118,6 +3415,12 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY 58 /**< low-sodium flags judged on the effective osmolality */
 #define NTR_METHOD_FE_URIC_ACID_CLASS 59 /**< fractional uric acid excretion: against SIAD < 8 %, supports > 12 % */
 #define NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION 60 /**< fractional uric acid excretion after correction: normalised or persistently high */
+/* Therapy (ids 70-89, issue P2); solute and restriction (lib/solute.c). */
+#define NTR_METHOD_SOLUTE_URINE_VOLUME 70  /**< urine volume = solute / urine osmolality (Berl 2008) */
+#define NTR_METHOD_FLUID_ALLOWANCE 71      /**< most fluid per day that holds the sodium: EFWC + insensible */
+#define NTR_METHOD_SOLUTE_DOSE 72          /**< osmoles of a dose of urea or NaCl (IUPAC molar masses) */
+#define NTR_METHOD_SOLUTE_FOR_ALLOWANCE 73 /**< allowance with a solute dose, and the dose for an allowance */
+#define NTR_METHOD_RESTRICTION_OUTLOOK 74  /**< will restriction, with or without solute, hold the sodium */
 /* Urine feedback and the fitted prediction (ids 83-89, issue P2; lib/feedback.c). */
 #define NTR_METHOD_EFW_BALANCE 83          /**< electrolyte-free water balance of inputs and outputs */
 #define NTR_METHOD_URINE_FEEDBACK 84       /**< measured urine continued: limit within a horizon */

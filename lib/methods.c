@@ -49,6 +49,9 @@ static int entry(struct ntr_method_info *info, int method, const char *name,
     "2000;319:240-4"
 #define REF_FENSKE                                                           \
     "Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7"
+#define REF_BERL                                                             \
+    "Berl T. Impact of solute intake on urine flow and water excretion. "    \
+    "J Am Soc Nephrol 2008;19:1076-8"
 #define REF_VERBALIS_2013                                                    \
     "Verbalis JG, Goldsmith SR, Greenberg A, et al. Diagnosis, evaluation, " \
     "and treatment of hyponatremia: expert panel recommendations. Am J Med " \
@@ -473,6 +476,48 @@ static int describe(int method, struct ntr_method_info *info)
             "Library's own method on the mass balance of " REF_ADROGUE_MADIAS_HYPO,
             "as the fit");
 
+    /* ==== therapy (ids 70-89, issue P2): solute and restriction ========= */
+    case NTR_METHOD_SOLUTE_URINE_VOLUME:
+        return entry(info, method, "Urine volume from the solute load",
+            "V (L/day) = solute excreted (mOsm/day) / urine osmolality "
+            "(mOsm/kg), 1 kg of urine read as 1 L",
+            REF_BERL,
+            "any; the urine osmolality must stay fixed (as in SIAD)");
+    case NTR_METHOD_FLUID_ALLOWANCE:
+        return entry(info, method, "Fluid allowance that holds the sodium",
+            "intake (L/day) = V * (1 - (U_Na + U_K) / S_Na) + net insensible "
+            "loss, V = solute / U_osm; negative: restriction alone cannot "
+            "hold the sodium (with no insensible loss, exactly when the Furst "
+            "ratio is above 1)",
+            REF_BERL "; " REF_FURST "; electrolyte-free water clearance: "
+            "standard renal physiology (Rose BD, Post TW, Clinical Physiology "
+            "of Acid-Base and Electrolyte Disorders, 5th ed., 2001)",
+            "adults with a low sodium and a fixed urine osmolality");
+    case NTR_METHOD_SOLUTE_DOSE:
+        return entry(info, method, "Osmoles of a dose of urea or NaCl",
+            "mOsm = 1000 * g / M * n; M from IUPAC standard atomic weights "
+            "(urea CH4N2O 60.056, NaCl 58.443 g/mol); n = 1 for urea, 2 for "
+            "NaCl (full dissociation, an idealisation)",
+            "IUPAC Commission on Isotopic Abundances and Atomic Weights, "
+            "standard atomic weights (abridged, 2013 onwards); " REF_BERL,
+            "any");
+    case NTR_METHOD_SOLUTE_FOR_ALLOWANCE:
+        return entry(info, method, "Solute dose and fluid allowance",
+            "allowance with dose = A0 + D / U_osm, D = osmoles of the daily "
+            "dose, A0 the allowance of the measured urine; inverse: D = "
+            "(target - A0) * U_osm, 0 when A0 >= target; the dose's urine "
+            "carries no net electrolyte (tablet sodium in = out)",
+            REF_BERL,
+            "adults with SIAD-like fixed urine osmolality, in steady state");
+    case NTR_METHOD_RESTRICTION_OUTLOOK:
+        return entry(info, method, "Outlook of fluid restriction with or without solute",
+            "verdict: allowance <= 0 restriction fails; allowance >= target "
+            "target holds; else stricter restriction or solute; with the "
+            "Furst band (ratio > 1 flagged) and the urea and NaCl doses for "
+            "the target",
+            REF_BERL "; " REF_FURST "; " REF_VERBALIS_2013,
+            "adults with a low sodium and a fixed urine osmolality");
+
     default:
         return NTR_ERR_ARG;
     }
@@ -494,7 +539,7 @@ int ntr_method_info(int method, struct ntr_method_info *out)
  * ntr_method_next). They must cover exactly the cases of
  * describe(): tests/test_methods.c (info_and_next_agree) checks that over
  * the whole id space, and that the walk finds exactly the ids the header
- * defines. Four runs cost a few comparisons; walking the switch id by id
+ * defines. A handful of runs cost a few comparisons; walking the switch id by id
  * cost a call per id tried (68 instructions for the next id, about a
  * thousand calls past the last one; tests/bench/run-bench.sh). */
 static const struct {
@@ -504,6 +549,7 @@ static const struct {
     {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_COURSE_WATCH},  /* correction, 30-49 */
     {NTR_METHOD_NA_SEVERITY, NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION}, /* work-up, 50-69 */
+    {NTR_METHOD_SOLUTE_URINE_VOLUME, NTR_METHOD_RESTRICTION_OUTLOOK}, /* solute, 70-74 */
     {NTR_METHOD_EFW_BALANCE, NTR_METHOD_FIT_REPROJECT}};    /* feedback, 83-89 */
 
 int ntr_method_next(int after, int *next)

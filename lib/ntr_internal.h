@@ -59,6 +59,28 @@
 #define NTR_FIT_DRIFT_MMOL_L 1.5     /* mean of the last three residuals that sets NTR_FIT_DRIFT */
 #define NTR_FIT_MIN_SAMPLES 3u
 
+/* Solute and restriction (lib/solute.c); docs/ranges.md. The urine
+ * osmolality uses NTR_URINE_OSM_MIN/MAX above, and the urine volume a
+ * solute makes is held to NTR_URINE_VOLUME_MAX (L/day). */
+#define NTR_SOLUTE_MOSM_DAY_MAX 10000.0 /* osmoles excreted per day, mOsm/day */
+#define NTR_INSENSIBLE_L_DAY_MAX 10.0   /* net insensible loss, L/day */
+#define NTR_SOLUTE_GRAMS_MAX 200.0      /* a daily dose of urea or NaCl, g */
+#define NTR_INTAKE_L_DAY_MAX 10.0       /* a target fluid intake, L/day (above 0) */
+
+/* IUPAC standard atomic weights, g/mol (abridged values), written once for
+ * every molar mass the library uses (lib/units.c, lib/solute.c); the molar
+ * masses built from them are checked against Debian's python3-periodictable
+ * by tests/check_molar_masses.py. */
+#define NTR_AW_H 1.008
+#define NTR_AW_C 12.011
+#define NTR_AW_N 14.007
+#define NTR_AW_O 15.999
+#define NTR_AW_NA 22.98977
+#define NTR_AW_K 39.0983
+#define NTR_AW_CL 35.453
+/* Urea, CH4N2O: converted by lib/units.c, dosed by lib/solute.c. */
+#define NTR_MM_UREA (NTR_AW_C + 4.0 * NTR_AW_H + 2.0 * NTR_AW_N + NTR_AW_O)
+
 /* NTR_OK when x is finite and lo <= x <= hi; lo and hi must be finite.
  * The valid case costs one pair of comparisons: NaN fails both and an
  * infinity fails one, so only a value that is already rejected needs the

@@ -1,22 +1,12 @@
 /* Units: UCUM parsing and analyte conversion (docs/units.md). */
 #include "ntr_internal.h"
 
-/* IUPAC standard atomic weights, g/mol (abridged values; the molar masses
- * built from them are checked against Debian's python3-periodictable by
- * tests/check_molar_masses.py). */
-#define AW_H 1.008
-#define AW_C 12.011
-#define AW_N 14.007
-#define AW_O 15.999
-#define AW_NA 22.98977
-#define AW_K 39.0983
-#define AW_CL 35.453
-
-#define MM_GLUCOSE (6.0 * AW_C + 12.0 * AW_H + 6.0 * AW_O)
-#define MM_UREA (AW_C + 4.0 * AW_H + 2.0 * AW_N + AW_O)
-#define MM_UREA_NITROGEN (2.0 * AW_N)
-#define MM_CREATININE (4.0 * AW_C + 7.0 * AW_H + 3.0 * AW_N + AW_O)
-#define MM_ETHANOL (2.0 * AW_C + 6.0 * AW_H + AW_O)
+/* Molar masses from the IUPAC atomic weights in ntr_internal.h (urea's,
+ * NTR_MM_UREA, is there too: lib/solute.c doses it). */
+#define MM_GLUCOSE (6.0 * NTR_AW_C + 12.0 * NTR_AW_H + 6.0 * NTR_AW_O)
+#define MM_UREA_NITROGEN (2.0 * NTR_AW_N)
+#define MM_CREATININE (4.0 * NTR_AW_C + 7.0 * NTR_AW_H + 3.0 * NTR_AW_N + NTR_AW_O)
+#define MM_ETHANOL (2.0 * NTR_AW_C + 6.0 * NTR_AW_H + NTR_AW_O)
 
 #define UBIT(u) (1u << (u))
 #define IONS (UBIT(NTR_UNIT_MMOL_L) | UBIT(NTR_UNIT_MEQ_L) | UBIT(NTR_UNIT_MG_DL) | UBIT(NTR_UNIT_UMOL_L))
@@ -30,11 +20,11 @@ struct analyte {
 /* Indexed by NTR_ANALYTE_*; entry 0 is unused. */
 static const struct analyte analytes[] = {
     {0.0, 0u},
-    {AW_NA, IONS},
-    {AW_K, IONS},
-    {AW_CL, IONS},
+    {NTR_AW_NA, IONS},
+    {NTR_AW_K, IONS},
+    {NTR_AW_CL, IONS},
     {MM_GLUCOSE, SOLUTES},
-    {MM_UREA, SOLUTES},
+    {NTR_MM_UREA, SOLUTES},
     {MM_UREA_NITROGEN, SOLUTES},
     {MM_CREATININE, SOLUTES},
     {MM_ETHANOL, SOLUTES},

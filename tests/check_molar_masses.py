@@ -17,6 +17,11 @@ Usage: check_molar_masses.py LIBNATREMIA_SO NATREMIA_H
    one hydrogen atom too many or too few in the heaviest molecule
    (creatinine, 113 g/mol) is 8.9e-3, ninety times the tolerance.
 
+   The solute doses (issue P2) are checked the same way:
+   ntr_solute_dose_osmoles(solute, 1 g) returns 1000 n / M mOsm, n the
+   osmoles per mole (urea 1; NaCl 2, full dissociation), and M is compared
+   with periodictable's CH4N2O and NaCl.
+
 2. Enumerators. Every NTR_* value that issue P1 fixes as ABI is read from
    the public header and compared with the issue's table; the library's
    parser and its status messages are checked to agree with the header.
@@ -72,6 +77,15 @@ RELEASED = {
     "NTR_METHOD_FLUID_PRESETS": 13, "NTR_METHOD_ADROGUE_MADIAS": 14,
     "NTR_METHOD_INFUSATE_MASS_BALANCE": 15, "NTR_METHOD_INFUSATE_VOLUME": 16,
     "NTR_METHOD_FURST": 17, "NTR_METHOD_EFWC": 18,
+}
+
+# Added with 1.1 (issue P2, solute area): ABI from then on.
+SOLUTE_ENUMS = {"NTR_SOLUTE_UREA": 1, "NTR_SOLUTE_NACL": 2}
+
+# Solute enumerator -> (name, formula for periodictable, osmoles per mole).
+SOLUTES = {
+    1: ("urea", "CH4N2O", 1.0),
+    2: ("sodium chloride", "NaCl", 2.0),
 }
 
 # Analyte id -> (name, formula for periodictable, accepts g/L).
@@ -152,8 +166,28 @@ def main():
             check(status == FIXED["NTR_ERR_UNIT"],
                   "%s: g/L is not a unit for an ion (status %d)" % (name, status))
 
+    print("# solute doses: ntr_solute_dose_osmoles(solute, 1 g) = 1000 n / M")
+    lib.ntr_solute_dose_osmoles.argtypes = [ctypes.c_int, ctypes.c_double,
+                                            ctypes.POINTER(ctypes.c_double)]
+    lib.ntr_solute_dose_osmoles.restype = ctypes.c_int
+    for solute, (name, formula, per_mole) in sorted(SOLUTES.items()):
+        reference = periodictable.formula(formula).mass
+        out = ctypes.c_double(float("nan"))
+        status = lib.ntr_solute_dose_osmoles(solute, 1.0, ctypes.byref(out))
+        check(status == ok, "%s: dose osmoles status %d" % (name, status))
+        if status == ok:
+            implied = 1000.0 * per_mole / out.value
+            rel = abs(implied - reference) / reference
+            check(rel <= RELATIVE_TOLERANCE,
+                  "%s (%s, %g osmol/mol): library %.5f g/mol, periodictable %.5f g/mol, "
+                  "rel diff %.2e" % (name, formula, per_mole, implied, reference, rel))
+    out = ctypes.c_double(float("nan"))
+    status = lib.ntr_solute_dose_osmoles(30, 1.0, ctypes.byref(out))
+    check(status == FIXED["NTR_ERR_ARG"], "unknown solute 30 gives NTR_ERR_ARG (%d)" % status)
+
     print("# enumerator values in the header")
-    for table, label in ((FIXED, "fixed by issue P1"), (RELEASED, "released with P1")):
+    for table, label in ((FIXED, "fixed by issue P1"), (RELEASED, "released with P1"),
+                         (SOLUTE_ENUMS, "added with 1.1, solute area")):
         for name, value in table.items():
             check(defines.get(name) == value,
                   "%s = %s (%s: %d)" % (name, defines.get(name), label, value))

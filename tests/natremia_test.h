@@ -16,8 +16,9 @@
 #define NTR_TEST_SENTINEL (-7777.25)
 #define NTR_TEST_SENTINEL_INT (-7777)
 
-/* The largest number of numeric inputs any P1 function takes. */
-#define NTR_TEST_MAX_ARGS 6
+/* The largest number of numeric inputs the walker takes (the solute
+ * area's dose and outlook functions take seven). */
+#define NTR_TEST_MAX_ARGS 8
 
 /* Calls the function under test with args[0..n-1] (and any fixed
  * enumerator the adapter chooses) and writes its single double output. */

@@ -56,6 +56,7 @@
 static ntr_limits g_limits;
 static ntr_siad_findings g_siad;
 static ntr_siad_result g_siad_result;
+static ntr_outlook g_outlook;
 static ntr_watch g_watch_fresh;
 static ntr_watch g_watch;
 static ntr_correction g_correction;
@@ -104,6 +105,7 @@ static void setup(void)
     g_siad.fe_urea_percent = known(60.0);
     g_siad.fe_uric_acid_percent = known(14.0);
     g_siad_result.struct_size = sizeof g_siad_result;
+    g_outlook.struct_size = sizeof g_outlook;
     ntr_watch_init(&g_limits, &g_watch);
     /* Twelve results over 44 h, rising about 8 mmol/L a day. */
     for (k = 0; k < 12; k++) {
@@ -221,6 +223,23 @@ PAIR(ntr_watch_init, ntr_watch_init(&g_limits, &g_watch_fresh),
      stub_pp(&g_limits, &g_watch_fresh))
 PAIR(ntr_watch_result, ntr_watch_result(&g_watch, &g_correction),
      stub_pp(&g_watch, &g_correction))
+PAIR(ntr_urine_volume_from_solute, ntr_urine_volume_from_solute(600.0, 600.0, &d),
+     stub_dd_p(600.0, 600.0, &d))
+PAIR(ntr_fluid_allowance, ntr_fluid_allowance(900.0, 450.0, 60.0, 20.0, 128.0, 0.5, &d),
+     stub_d6_p(900.0, 450.0, 60.0, 20.0, 128.0, 0.5, &d))
+PAIR(ntr_solute_dose_osmoles, ntr_solute_dose_osmoles(NTR_SOLUTE_UREA, 30.0, &d),
+     stub_id_p(NTR_SOLUTE_UREA, 30.0, &d))
+PAIR(ntr_fluid_allowance_with_dose,
+     ntr_fluid_allowance_with_dose(NTR_SOLUTE_UREA, 30.0, 600.0, 500.0, 150.0, 60.0, 125.0,
+                                   0.4, &d),
+     stub_id7_p(NTR_SOLUTE_UREA, 30.0, 600.0, 500.0, 150.0, 60.0, 125.0, 0.4, &d))
+PAIR(ntr_solute_dose_for_allowance,
+     ntr_solute_dose_for_allowance(NTR_SOLUTE_NACL, 600.0, 500.0, 150.0, 60.0, 125.0, 0.4,
+                                   1.0, &d),
+     stub_id7_p(NTR_SOLUTE_NACL, 600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0, &d))
+PAIR(ntr_restriction_outlook,
+     ntr_restriction_outlook(600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0, &g_outlook),
+     stub_d7_vp(600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0, &g_outlook))
 PAIR(ntr_relower_estimate,
      ntr_relower_estimate(131.0, 30.0, 0.0, 0.0, 3.0, 6.0, 100.0, 40.0, 20.0,
                           &d, &d2),
@@ -325,6 +344,12 @@ static const struct pair pairs[] = {
     ENTRY(ntr_watch_init),
     ENTRY(ntr_watch_push),
     ENTRY(ntr_watch_result),
+    ENTRY(ntr_urine_volume_from_solute),
+    ENTRY(ntr_fluid_allowance),
+    ENTRY(ntr_solute_dose_osmoles),
+    ENTRY(ntr_fluid_allowance_with_dose),
+    ENTRY(ntr_solute_dose_for_allowance),
+    ENTRY(ntr_restriction_outlook),
     ENTRY(ntr_relower_estimate),
     ENTRY(ntr_correction_assess),
     ENTRY(ntr_balance_predict),

@@ -115,3 +115,29 @@ int stub_pzdpzddp_p(const void *h, size_t nh, double a, const void *f,
     (void)lim; (void)out;
     return 0;
 }
+
+/* Solute area (lib/solute.c). */
+int stub_id_p(int a, double b, double *out)
+{
+    (void)a; (void)b; (void)out;
+    return 0;
+}
+int stub_d6_p(double a, double b, double c, double d, double e, double f,
+              double *out)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)e; (void)f; (void)out;
+    return 0;
+}
+int stub_id7_p(int a, double b, double c, double d, double e, double f,
+               double g, double h, double *out)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)e; (void)f; (void)g; (void)h;
+    (void)out;
+    return 0;
+}
+int stub_d7_vp(double a, double b, double c, double d, double e, double f,
+               double g, void *out)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)e; (void)f; (void)g; (void)out;
+    return 0;
+}

@@ -43,4 +43,13 @@ int stub_ddpzdd_pzp(double a, double b, const void *p, size_t n, double c,
 int stub_pzdpzddp_p(const void *h, size_t nh, double a, const void *f,
                     size_t nf, double b, double c, const void *lim, void *out);
 
+/* Solute area (lib/solute.c). */
+int stub_id_p(int a, double b, double *out);
+int stub_d6_p(double a, double b, double c, double d, double e, double f,
+              double *out);
+int stub_id7_p(int a, double b, double c, double d, double e, double f,
+               double g, double h, double *out);
+int stub_d7_vp(double a, double b, double c, double d, double e, double f,
+               double g, void *out);
+
 #endif

@@ -781,6 +781,176 @@ static const char *ok_fe_uric_acid_after_correction(const ntrc_case *c)
     return c->out.i[0] == want ? NULL : "reading does not follow the documented rule";
 }
 
+/* ---- solute ------------------------------------------------------------------- */
+
+/* The header's figures: urea 60.056 g/mol, NaCl 58.443 g/mol (2 osmoles per
+ * mole); the tolerance below allows for the rounding of those figures. */
+static double mosm_per_gram_doc(int solute)
+{
+    return solute == NTR_SOLUTE_UREA ? 1000.0 / 60.056 : 2000.0 / 58.443;
+}
+
+/* V*(1 - (U_Na + U_K)/S_Na) + insensible from the documented equation. */
+static double allowance_doc(const double *x)
+{
+    return x[0] / x[1] * (1.0 - (x[2] + x[3]) / x[4]) + x[5];
+}
+
+static int call_urine_volume_from_solute(ntrc_case *c)
+{
+    return ntr_urine_volume_from_solute(c->num[0], c->num[1], od(c, 0));
+}
+
+static const char *ok_urine_volume_from_solute(const ntrc_case *c)
+{
+    if (!within(c->out.d[0], 0.0, 30.0)) {
+        return "urine volume outside [0, 30] L/day";
+    }
+    return close_to(c->out.d[0], c->num[0] / c->num[1], 1e-14) ? NULL : "off solute / U_osm";
+}
+
+static int call_fluid_allowance(ntrc_case *c)
+{
+    return ntr_fluid_allowance(c->num[0], c->num[1], c->num[2], c->num[3], c->num[4], c->num[5],
+                               od(c, 0));
+}
+
+static const char *ok_fluid_allowance(const ntrc_case *c)
+{
+    /* V <= 30 L/day, 1 - ratio in [-9, 1], insensible 0 to 10. */
+    if (!within(c->out.d[0], -270.0, 40.0)) {
+        return "allowance outside [-270, 40] L/day";
+    }
+    return close_to(c->out.d[0], allowance_doc(c->num), 1e-12) ? NULL
+                                                              : "off V(1 - ratio) + insensible";
+}
+
+static int call_solute_dose_osmoles(ntrc_case *c)
+{
+    return ntr_solute_dose_osmoles(c->en[0], c->num[0], od(c, 0));
+}
+
+static const char *ok_solute_dose_osmoles(const ntrc_case *c)
+{
+    if (!within(c->out.d[0], 0.0, 200.0 * 34.23)) {
+        return "osmoles outside [0, 6846] mOsm";
+    }
+    return close_to(c->out.d[0], c->num[0] * mosm_per_gram_doc(c->en[0]), 1e-4)
+               ? NULL
+               : "off 1000 g n / M";
+}
+
+static int call_fluid_allowance_with_dose(ntrc_case *c)
+{
+    return ntr_fluid_allowance_with_dose(c->en[0], c->num[0], c->num[1], c->num[2], c->num[3],
+                                         c->num[4], c->num[5], c->num[6], od(c, 0));
+}
+
+static const char *ok_fluid_allowance_with_dose(const ntrc_case *c)
+{
+    const double *x = c->num;
+    double expect = allowance_doc(x + 1) + x[0] * mosm_per_gram_doc(c->en[0]) / x[2];
+    if (!within(c->out.d[0], -270.0, 40.0)) {
+        return "allowance outside [-270, 40] L/day";
+    }
+    return close_to(c->out.d[0], expect, 1e-4) ? NULL : "off A0 + dose osmoles / U_osm";
+}
+
+static int call_solute_dose_for_allowance(ntrc_case *c)
+{
+    return ntr_solute_dose_for_allowance(c->en[0], c->num[0], c->num[1], c->num[2], c->num[3],
+                                         c->num[4], c->num[5], c->num[6], od(c, 0));
+}
+
+static const char *ok_solute_dose_for_allowance(const ntrc_case *c)
+{
+    const double *x = c->num;
+    double a;
+    if (!within(c->out.d[0], 0.0, 200.0)) {
+        return "dose outside [0, 200] g/day";
+    }
+    if (c->out.d[0] == 0.0) {
+        return allowance_doc(x) >= x[6] - 1e-12 * (1.0 + fabs(x[6])) ? NULL
+                                                                     : "no dose but target not met";
+    }
+    if (ntr_fluid_allowance_with_dose(c->en[0], c->out.d[0], x[0], x[1], x[2], x[3], x[4], x[5],
+                                      &a) != NTR_OK) {
+        return "the dose is rejected by the forward function";
+    }
+    return close_to(a, x[6], 1e-9) ? NULL : "dose does not reproduce the target allowance";
+}
+
+static void prepare_outlook(ntrc_case *c)
+{
+    c->out.s.outlook.struct_size = siad_size(c->en[0], sizeof c->out.s.outlook);
+}
+
+static int call_restriction_outlook(ntrc_case *c)
+{
+    return ntr_restriction_outlook(c->num[0], c->num[1], c->num[2], c->num[3], c->num[4],
+                                   c->num[5], c->num[6],
+                                   in_null(c, 0) ? NULL : &c->out.s.outlook);
+}
+
+static const char *ok_outlook_dose(double g, unsigned int flags, unsigned int flag)
+{
+    if (g == NTR_OUTLOOK_NO_DOSE) {
+        return (flags & flag) != 0u ? NULL : "no dose without its flag";
+    }
+    if ((flags & flag) != 0u) {
+        return "out-of-range flag with a dose";
+    }
+    return within(g, 0.0, 200.0) ? NULL : "dose outside [0, 200] g/day";
+}
+
+static const char *ok_restriction_outlook(const ntrc_case *c)
+{
+    const ntr_outlook *o = &c->out.s.outlook;
+    const double *x = c->num;
+    int want;
+    const char *why;
+    if (o->struct_size != siad_size(c->en[0], sizeof *o)) {
+        return "struct_size of the outlook was written";
+    }
+    if (!close_to(o->allowance_l_day, allowance_doc(x), 1e-12) ||
+        !close_to(o->urine_l_day, x[0] / x[1], 1e-14) ||
+        !close_to(o->furst_ratio, (x[2] + x[3]) / x[4], 1e-14) ||
+        !close_to(o->efwc_l_day, o->allowance_l_day - x[5], 1e-12)) {
+        return "outlook figures off their equations";
+    }
+    want = o->allowance_l_day <= 0.0     ? NTR_OUTLOOK_RESTRICTION_FAILS
+           : o->allowance_l_day >= x[6] ? NTR_OUTLOOK_TARGET_HOLDS
+                                        : NTR_OUTLOOK_STRICTER_OR_SOLUTE;
+    if (o->verdict != want || o->target_intake_l_day != x[6]) {
+        return "verdict does not follow the allowance";
+    }
+    if (((o->flags & NTR_OUTLOOK_FURST_ABOVE_ONE) != 0u) != (o->furst_ratio > 1.0) ||
+        (o->flags & ~0x7u) != 0u || o->reserved != 0u) {
+        return "flags or reserved wrong";
+    }
+    why = ok_outlook_dose(o->urea_g_day, o->flags, NTR_OUTLOOK_UREA_OUT_OF_RANGE);
+    return why != NULL ? why : ok_outlook_dose(o->nacl_g_day, o->flags, NTR_OUTLOOK_NACL_OUT_OF_RANGE);
+}
+
+static int results_outlook(const ntrc_case *c, double *v, int max)
+{
+    const ntr_outlook *o = &c->out.s.outlook;
+    if (max < 10) {
+        return 0;
+    }
+    v[0] = o->verdict;
+    v[1] = o->furst_advice;
+    v[2] = o->furst_ratio;
+    v[3] = o->urine_l_day;
+    v[4] = o->efwc_l_day;
+    v[5] = o->allowance_l_day;
+    v[6] = o->target_intake_l_day;
+    v[7] = o->urea_g_day;
+    v[8] = o->nacl_g_day;
+    v[9] = (double)o->flags;
+    return 10;
+}
+
 /* ---- provenance ---------------------------------------------------------------- */
 
 /* Whether the running library knows a method id, by its own iterator. */
@@ -3726,6 +3896,11 @@ static void extra_fit_reproject(const ntrc_fn *f, void (*judge)(const ntrc_fn *,
 #define KNOWN(nm) {nm, NTR_ERR_ARG, 2, {1, 0}}
 #define SIZE_MODE(nm) {nm, NTR_ERR_ARG, 2, {0, 2}}
 #define WATCH_MODE {"watch_state", NTR_ERR_ARG, 1, {0}}
+#define SOLUTE_DAY {"solute_mosm_day", 0.0, 10000.0, 0}
+#define U_OSM {"urine_osm_mosm_kg", 10.0, 2000.0, 0}
+#define INSENSIBLE {"insensible_l_day", 0.0, 10.0, 0}
+#define TARGET_INTAKE {"target_intake_l_day", 0.0, 10.0, 1}
+#define SOLUTE_KIND {"solute", NTR_ERR_ARG, 2, {NTR_SOLUTE_UREA, NTR_SOLUTE_NACL}}
 #define ST(x) BIT(NTR_##x)
 #define OK_COMMON (ST(OK) | COMMON_ERR)
 #define CALL(fn) .name = "ntr_" #fn, .call = call_##fn
@@ -3858,9 +4033,35 @@ const ntrc_fn ntrc_functions[] = {
      .num = {{"fe_low_na_percent", 0.0, 200.0, 0}, {"fe_corrected_percent", 0.0, 200.0, 0}, NA},
      .n_out_i = 1, .statuses = OK_COMMON, .base_num = {16.0, 6.0, 137.0},
      .check_ok = ok_fe_uric_acid_after_correction},
+    /* solute */
+    {CALL(urine_volume_from_solute), .n_num = 2, .num = {SOLUTE_DAY, U_OSM}, .n_out_d = 1,
+     .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {600.0, 600.0},
+     .check_ok = ok_urine_volume_from_solute},
+    {CALL(fluid_allowance), .n_num = 6, .num = {SOLUTE_DAY, U_OSM, U_NA, U_K, S_NA, INSENSIBLE},
+     .n_out_d = 1, .statuses = OK_COMMON | ST(ERR_DOMAIN),
+     .base_num = {900.0, 450.0, 60.0, 20.0, 128.0, 0.5}, .check_ok = ok_fluid_allowance},
+    {CALL(solute_dose_osmoles), .n_enum = 1, .en = {SOLUTE_KIND}, .n_num = 1,
+     .num = {{"grams", 0.0, 200.0, 0}}, .n_out_d = 1, .statuses = OK_COMMON | ST(ERR_ARG),
+     .base_num = {30.0}, .base_en = {NTR_SOLUTE_UREA}, .check_ok = ok_solute_dose_osmoles},
+    {CALL(fluid_allowance_with_dose), .n_enum = 1, .en = {SOLUTE_KIND}, .n_num = 7,
+     .num = {{"grams_day", 0.0, 200.0, 0}, SOLUTE_DAY, U_OSM, U_NA, U_K, S_NA, INSENSIBLE},
+     .n_out_d = 1, .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_DOMAIN),
+     .base_num = {30.0, 600.0, 600.0, 80.0, 40.0, 120.0, 0.5}, .base_en = {NTR_SOLUTE_UREA},
+     .check_ok = ok_fluid_allowance_with_dose},
+    {CALL(solute_dose_for_allowance), .n_enum = 1, .en = {SOLUTE_KIND}, .n_num = 7,
+     .num = {SOLUTE_DAY, U_OSM, U_NA, U_K, S_NA, INSENSIBLE, TARGET_INTAKE}, .n_out_d = 1,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_DOMAIN),
+     .base_num = {600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0}, .base_en = {NTR_SOLUTE_NACL},
+     .check_ok = ok_solute_dose_for_allowance},
+    {CALL(restriction_outlook), .n_enum = 1, .en = {SIZE_MODE("out.struct_size")}, .n_num = 7,
+     .num = {SOLUTE_DAY, U_OSM, U_NA, U_K, S_NA, INSENSIBLE, TARGET_INTAKE}, .n_in_ptr = 1,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_DOMAIN),
+     .base_num = {600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0}, .base_en = {0},
+     .prepare_out = prepare_outlook, .results = results_outlook,
+     .check_ok = ok_restriction_outlook},
     /* provenance */
     {CALL(method_info), .n_enum = 1,
-     .en = {{"method", NTR_ERR_ARG, 8, {1, 11, 18, 30, 39, 50, 56, 14}}}, .n_in_ptr = 1,
+     .en = {{"method", NTR_ERR_ARG, 10, {1, 11, 18, 30, 39, 50, 56, 14, 70, 74}}}, .n_in_ptr = 1,
      .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {NTR_METHOD_TBW_WATSON},
      .predict = predict_method_info, .check_ok = ok_method_info},
     {CALL(method_next), .n_enum = 1,

@@ -60,6 +60,7 @@ typedef struct ntrc_outs {
         ntr_course_limits clim;
         ntr_course_report course;
         ntr_course_watch cwatch;
+        ntr_outlook outlook;
         struct {
             ntr_correction out[8];
             int status[8];
