@@ -1578,7 +1578,9 @@ NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
 /* ======================================================================= */
 
 /** @defgroup correction Correction-rate safety limits
- *  Watch a measured sodium series against limits on how fast it may rise.
+ *  Watch a measured sodium series against limits on how fast it may rise
+ *  and, since 1.1 (ntr_course_assess(), ntr_course_watch_push()), on how
+ *  fast it may fall.
  *
  *  The rises that matter are counted over sliding windows: a rise is the
  *  later sample minus the earlier one, for two samples at most 24 h (or
@@ -1748,6 +1750,9 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  *
  * Cost: linear in n, no allocation, O(1) extra memory (a block scheme over
  * the time axis; docs/correction.md). One sample yields zeros and no flag.
+ * Since 1.1 this is ntr_course_assess() with goal raise, no fall limits and
+ * the 1.0 target, its flags limited to @ref NTR_CF_ALL: one engine, the
+ * same results bit for bit. It cannot see falls: use ntr_course_assess().
  *
  * @param s   samples in non-decreasing time; hours finite, -1e6 to 1e6
  *            (any origin, so times before it are negative); sodium 80 to
@@ -1844,7 +1849,9 @@ NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  * @param[out] out  the assessment of the series so far.
  * @retval NTR_OK
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
- * @retval NTR_ERR_ARG       @p w was not initialised, or is damaged.
+ * @retval NTR_ERR_ARG       @p w was not initialised, or is damaged (an
+ *         impossible count or index, or, since 1.1, a stored number that is
+ *         NaN, infinite or out of its range).
  * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  * @retval NTR_ERR_CAPACITY  the series rises so steadily and densely that
@@ -1864,7 +1871,8 @@ NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
  * @param w        a state from ntr_watch_init() with at least one result.
  * @param[out] out the assessment (as the last ntr_watch_push() returned).
  * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (not initialised, damaged, or no result pushed yet).
+ *         NTR_ERR_ARG (not initialised, damaged as for ntr_watch_push(), or
+ *         no result pushed yet).
  *
  * References: as ntr_correction_assess().
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
@@ -1886,13 +1894,25 @@ NTR_API int ntr_watch_result(const ntr_watch *w, ntr_correction *out);
 #define NTR_COURSE_HYPO_STANDARD 1  /**< raise; rises at most 10 in 24 h, 18 in 48 h */
 #define NTR_COURSE_HYPO_HIGH_RISK 2 /**< raise; rises at most 8 in 24 h, 16 in 48 h */
 #define NTR_COURSE_HYPER_CHRONIC 3  /**< lower; falls at most 10 in any 24 h */
+#define NTR_COURSE_HYPER_ACUTE 4    /**< lower; falls at most 24 in any 24 h (1 mmol/L/h) */
+#define NTR_COURSE_HOLD 5           /**< hold; rises and falls at most 4 in any 24 h */
 /** @} */
 
 /**
  * @brief Limits on a sodium course in both directions (ABI since 1.1).
  *
  * Set @c struct_size to sizeof(ntr_course_limits) (ntr_course_limits_preset()
- * does). A limit of 0 means no limit in that direction.
+ * does). Every function taking limits refuses, with NTR_ERR_ARG, a
+ * struct_size smaller than the 1.1 size (sizeof(ntr_course_limits) in this
+ * header); a larger one (a caller built against a later header) is
+ * accepted and only the members listed here are read.
+ *
+ * A limit of 0 means no limit in that direction over that window. Each
+ * limit is 0 to 50 mmol/L; where both windows of a direction have a limit,
+ * the 24 h one may not exceed the 48 h one (any 24 h lies inside a 48 h
+ * window). @c min_change_24h is 0 (no target) for @ref NTR_GOAL_HOLD and
+ * may not exceed a limit of the goal's direction (a target above the
+ * ceiling could never be met safely).
  */
 typedef struct ntr_course_limits {
     size_t struct_size;    /**< sizeof(ntr_course_limits) as the caller knows it. */
@@ -1905,34 +1925,306 @@ typedef struct ntr_course_limits {
 } ntr_course_limits;
 
 /** @name Course flags added in 1.1 (bits of ntr_course_report.flags; ABI)
- *  Bits 1-64 keep their 1.0 meaning (rises); see NTR_CF_OVER_24H and on.
+ *  Bits 1-64 keep their 1.0 meaning, for rises (NTR_CF_OVER_24H to
+ *  NTR_CF_RAPID_6H; a rise limit of 0 sets none of the rise-limit bits).
+ *  The fall bits mirror them for falls. There is no fall counterpart of
+ *  NTR_CF_RAPID_6H: no published short-window stop point for a fall was
+ *  found (docs/correction.md).
  *  @{ */
-#define NTR_CF_FALL_OVER_24H 0x80u  /**< max_fall_24h exceeds the fall limit. */
-#define NTR_CF_FALL_OVER_48H 0x100u /**< max_fall_48h exceeds the fall limit. */
-#define NTR_CF_WRONG_WAY 0x200u     /**< Moved against the goal by more than the library's margin. */
-#define NTR_CF_APPROXIMATE 0x400u   /**< A watcher compacted its memory: figures are upper bounds. */
+/** max_fall_24h exceeds limits.max_fall_24h (a limit above 0). */
+#define NTR_CF_FALL_OVER_24H 0x80u
+/** max_fall_48h exceeds limits.max_fall_48h (a limit above 0). */
+#define NTR_CF_FALL_OVER_48H 0x100u
+/** Moved against the goal. Raising (@ref NTR_GOAL_RAISE), max_fall_48h is
+ *  more than @ref NTR_CF_WRONG_WAY_MARGIN; lowering (@ref NTR_GOAL_LOWER),
+ *  max_rise_48h is more than the margin; holding (@ref NTR_GOAL_HOLD), any
+ *  window is over its limit (any
+ *  of the four OVER bits), or, in a direction with no limit at all, the
+ *  48 h change in that direction is more than the margin. */
+#define NTR_CF_WRONG_WAY 0x200u
+/** A watcher compacted its memory: the window figures (and the flags read
+ *  from them) are upper bounds of the exact ones (ntr_course_watch_push()). */
+#define NTR_CF_APPROXIMATE 0x400u
+/** Fall near a limit: the fall into the last sample, over the 24 h or 48 h
+ *  ending at it, is above 0, within @ref NTR_CF_NEAR_MARGIN of that
+ *  window's fall limit (above 0) and not above it. */
+#define NTR_CF_FALL_NEAR_LIMIT 0x800u
+/** Fall projected over: the last interval falls, and if the next sample,
+ *  due after the same interval, fell by the same amount again, the 24 h or
+ *  48 h window ending at it would exceed its fall limit. */
+#define NTR_CF_FALL_PROJECTED_OVER 0x1000u
+/** Every flag ntr_course_assess() and the course watcher can set. */
+#define NTR_CF_COURSE_ALL 0x1fffu
+/** mmol/L: the change against the goal that sets @ref NTR_CF_WRONG_WAY.
+ *  Two sodium results of an unchanged patient can differ by about this
+ *  much through analytical error alone (an analytical coefficient of
+ *  variation near 1 %, and the +-4 mmol/L allowable error of US
+ *  proficiency testing, both from memory; docs/correction.md), so a
+ *  smaller move is not evidence of a wrong direction. */
+#define NTR_CF_WRONG_WAY_MARGIN 4.0
+/** hours: ntr_course_report.worst_at_h when no window is over its limit
+ *  (outside every accepted sample time). */
+#define NTR_COURSE_NO_TIME (-1.0e9)
 /** @} */
 
 /**
  * @brief What ntr_course_assess() finds in a series (ABI since 1.1).
  *
- * Set @c struct_size to sizeof(ntr_course_report) before the call.
+ * Set @c struct_size to sizeof(ntr_course_report) before the call: a
+ * smaller value (an older or wrong size) is refused with NTR_ERR_ARG and
+ * nothing is written. On success @c struct_size is set to the size this
+ * library fills (sizeof(ntr_course_report) of 1.1), so a caller built
+ * against a later, larger struct knows which members were written.
+ *
+ * The maxima are "so far" (any window of the course); rise_now_24h and
+ * fall_now_24h are "now" (the 24 h ending at the last sample), so a
+ * screen can tell a past breach from a current one.
  */
 typedef struct ntr_course_report {
-    size_t struct_size;     /**< sizeof(ntr_course_report) as the caller knows it. */
+    size_t struct_size;     /**< sizeof(ntr_course_report) as the caller knows it; set on success. */
     double max_rise_24h;    /**< Largest rise between two samples at most 24 h apart (>= 0). */
     double max_rise_48h;    /**< Largest rise between two samples at most 48 h apart (>= 0). */
     double max_fall_24h;    /**< Largest fall between two samples at most 24 h apart (>= 0). */
     double max_fall_48h;    /**< Largest fall between two samples at most 48 h apart (>= 0). */
     double excess_mmol_l;   /**< The worst window's excess over its limit, either direction (0 if none). */
     unsigned int flags;     /**< NTR_CF_* bits. */
+    unsigned int reserved;  /**< Written as 0. */
+    double rise_first_24h;  /**< Highest sodium within 24 h of the first sample minus the first (>= 0). */
+    double fall_first_24h;  /**< The first sample minus the lowest within 24 h of it (>= 0). */
+    double rise_now_24h;    /**< The last sample minus the lowest in the 24 h ending at it (>= 0). */
+    double fall_now_24h;    /**< The highest in the 24 h ending at the last sample minus the last (>= 0). */
+    double last_rate_per_h; /**< Change per hour over the last interval, mmol/L/h (0 without one). */
+    double elapsed_h;       /**< Last sample's time minus the first's, hours. */
+    double worst_at_h;      /**< Time of the later sample of the worst window (the one excess_mmol_l
+                                 measures), hours; @ref NTR_COURSE_NO_TIME when none is over. */
 } ntr_course_report;
 
+/**
+ * @brief Preset limits for a sodium course, in both directions.
+ *
+ * | preset | goal | rise 24 h / 48 h | fall 24 h / 48 h | source |
+ * |---|---|---|---|---|
+ * | @ref NTR_COURSE_HYPO_STANDARD  | raise | 10 / 18 | none | Verbalis 2013; Spasovski 2014 |
+ * | @ref NTR_COURSE_HYPO_HIGH_RISK | raise | 8 / 16  | none | Verbalis 2013 (16 = 2 x 8, the library's choice) |
+ * | @ref NTR_COURSE_HYPER_CHRONIC  | lower | none    | 10 / none | Adrogue & Madias 2000 (about 10 per day, 0.5 per hour) |
+ * | @ref NTR_COURSE_HYPER_ACUTE    | lower | none    | 24 / none | Adrogue & Madias 2000 (hours-old: about 1 per hour; 24 in 24 h is the library's arithmetic) |
+ * | @ref NTR_COURSE_HOLD           | hold  | 4 / none | 4 / none | library's choice: the analytical margin @ref NTR_CF_WRONG_WAY_MARGIN |
+ *
+ * min_change_24h is 0 in every preset: a target is the caller's choice.
+ * The European guideline's "10 in the first 24 h, then 8 in each later
+ * 24 h" cannot be written as limits on any window and gets no preset of
+ * its own; its 18 over 48 h is what @ref NTR_COURSE_HYPO_STANDARD checks.
+ *
+ * @param preset   NTR_COURSE_*.
+ * @param[out] out the limits, struct_size set.
+ * @retval NTR_OK, NTR_ERR_NULL (@p out), NTR_ERR_ARG (unknown preset).
+ *
+ * References: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42;
+ * Spasovski G et al., Eur J Endocrinol 2014;170:G1-47; Adrogue HJ, Madias
+ * NE. Hypernatremia. N Engl J Med 2000;342:1493-9.
+ * Methods: @ref NTR_METHOD_LIMITS_STANDARD, @ref NTR_METHOD_LIMITS_HIGH_RISK,
+ * @ref NTR_METHOD_COURSE_HYPER_CHRONIC, @ref NTR_METHOD_COURSE_HYPER_ACUTE,
+ * @ref NTR_METHOD_COURSE_HOLD.
+ */
 NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
 
+/**
+ * @brief Assess a sodium series against limits in both directions.
+ *
+ * For samples s[0..n-1] in non-decreasing time, i <= j meaning "earlier"
+ * and "later" (array order breaks ties of time), windows W = 24 and 48 h,
+ * and two samples are within W when t_j - t_i <= W +
+ * @ref NTR_CF_TIME_TOLERANCE_H . Then:
+ * - max_rise_W = max(0, max over i < j within W of (Na_j - Na_i));
+ * - max_fall_W = max(0, max over i < j within W of (Na_i - Na_j)): falls
+ *   are counted exactly as rises (the engine reads the series' mirror
+ *   image, every sodium negated, with the same operations);
+ * - rise_first_24h, fall_first_24h: max over j within 24 h of s[0] of
+ *   (Na_j - Na_0), and of (Na_0 - Na_j), at least 0;
+ * - rise_now_24h, fall_now_24h: the same against the last sample, over the
+ *   samples within 24 h before it;
+ * - last_rate_per_h, the projection of the next sample and @ref
+ *   NTR_CF_FALLING, @ref NTR_CF_NEAR_LIMIT, @ref NTR_CF_PROJECTED_OVER and
+ *   @ref NTR_CF_RAPID_6H as in ntr_correction_assess() (a rise limit of 0
+ *   sets no rise-limit bit); @ref NTR_CF_FALL_NEAR_LIMIT and @ref
+ *   NTR_CF_FALL_PROJECTED_OVER their mirror images for falls;
+ * - a window is over when its figure exceeds its limit (above 0) by more
+ *   than @ref NTR_CF_TOLERANCE (@ref NTR_CF_OVER_24H, @ref NTR_CF_OVER_48H,
+ *   @ref NTR_CF_FALL_OVER_24H, @ref NTR_CF_FALL_OVER_48H);
+ *   excess_mmol_l = the largest figure minus limit among the windows over
+ *   (ties: rise 24 h, rise 48 h, fall 24 h, fall 48 h), 0 if none;
+ *   worst_at_h = the time of the smallest j of a pair reaching that
+ *   window's figure;
+ * - @ref NTR_CF_WRONG_WAY as defined with the flag;
+ * - @ref NTR_CF_BELOW_TARGET only when min_change_24h > 0, at least 24 h
+ *   passed (elapsed_h >= 24 - @ref NTR_CF_TIME_TOLERANCE_H) and the first
+ *   24 h change in the goal's direction (rise_first_24h for raise,
+ *   fall_first_24h for lower) is below min_change_24h by more than
+ *   @ref NTR_CF_TOLERANCE.
+ *
+ * ntr_correction_assess() is this function with goal raise, no fall
+ * limits and its flags limited to @ref NTR_CF_ALL. Cost: linear in n, no
+ * allocation, O(1) extra memory (docs/correction.md).
+ *
+ * @param s   samples in non-decreasing time; hours finite, -1e6 to 1e6;
+ *            sodium 80 to 220 mmol/L.
+ * @param n   number of samples, at least 1.
+ * @param lim limits (see ntr_course_limits for the accepted values).
+ * @param[in,out] out the assessment; struct_size set by the caller.
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p s, @p lim or @p out is NULL.
+ * @retval NTR_ERR_ARG       @p n is 0, lim->struct_size or out->struct_size
+ *                           is smaller than the 1.1 size, or lim->goal is
+ *                           not an NTR_GOAL_* value.
+ * @retval NTR_ERR_NONFINITE a sample or limit is NaN or infinite.
+ * @retval NTR_ERR_RANGE     a sample or limit is out of range, or the
+ *                           limits contradict each other.
+ * @retval NTR_ERR_ORDER     a sample is earlier than the one before it.
+ * Checks run: pointers, n, lim->struct_size, lim->goal, out->struct_size,
+ * samples (each: hours, sodium) in index order, limits (rise 24 h,
+ * rise 48 h, fall 24 h, fall 48 h, target, then their consistency), then
+ * time order.
+ *
+ * References: Verbalis JG et al., Am J Med 2013; Spasovski G et al., Eur J
+ * Endocrinol 2014; Adrogue HJ, Madias NE, N Engl J Med 2000;342:1493-9
+ * (falls in hypernatraemia); Sterns RH, Hix JK, Silver S, Am J Kidney Dis
+ * 2010;56:774-9 (the 6-in-6-hours stop point; cited from memory).
+ * Methods: @ref NTR_METHOD_COURSE_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES, @ref NTR_METHOD_COURSE_WRONG_WAY.
+ */
 NTR_API int ntr_course_assess(const ntr_sample *s, size_t n,
                               const ntr_course_limits *lim,
                               ntr_course_report *out);
+
+/** Candidates an ntr_course_watch keeps per direction (window minima for
+ *  rises, maxima for falls): exact for a series rising (or falling)
+ *  steadily, for any length, sampled every 31 minutes or less often.
+ *  Denser series are compacted, never refused. */
+#define NTR_COURSE_WATCH_CAPACITY 96
+
+/** Private part of an ntr_course_watch: one direction's candidates. */
+typedef struct ntr_course_watch_ring {
+    unsigned int kept;    /**< private: candidates kept */
+    unsigned int head;    /**< private: index of the oldest */
+    unsigned int front24; /**< private: first candidate in the last 24 h (offset) */
+    unsigned int front6;  /**< private: first candidate in the last 6 h (offset) */
+    ntr_sample entry[NTR_COURSE_WATCH_CAPACITY]; /**< private */
+    float span[NTR_COURSE_WATCH_CAPACITY];       /**< private: over-report bound of each entry */
+} ntr_course_watch_ring;
+
+/**
+ * @brief State of a streaming course watcher (caller-owned; since 1.1).
+ *
+ * Fill it with ntr_course_watch_init(), then feed results one at a time
+ * with ntr_course_watch_push(). Fixed size, no pointers: it may be copied,
+ * stored as bytes and restored on the same platform. The members are
+ * private. Size: about 4 KiB (4072 bytes on common 64-bit targets, 4064
+ * on 32-bit ones); every call is allocation-free with a
+ * small, fixed stack. As with ntr_watch, ntr_course_watch_init() leaves
+ * unused candidate entries uncleared (memset the struct first to compare
+ * states byte by byte).
+ */
+typedef struct ntr_course_watch {
+    unsigned int magic;       /**< private: marks an initialised state */
+    unsigned int seen;        /**< private: 0 none, 1 one time point, 2 two or more */
+    unsigned int first_open;  /**< private: still within 24 h of the first sample */
+    unsigned int approximate; /**< private: 1 once memory was compacted */
+    ntr_course_limits limits; /**< private: the limits given to ntr_course_watch_init() */
+    ntr_sample first;         /**< private */
+    ntr_sample prev;          /**< private: latest sample before the last one's time */
+    ntr_sample last;          /**< private */
+    double rise_first_24h;    /**< private */
+    double fall_first_24h;    /**< private */
+    double max_rise_24h;      /**< private */
+    double max_rise_48h;      /**< private */
+    double max_fall_24h;      /**< private */
+    double max_fall_48h;      /**< private */
+    double at_rise_24h;       /**< private: time the largest 24 h rise was reached */
+    double at_rise_48h;       /**< private */
+    double at_fall_24h;       /**< private */
+    double at_fall_48h;       /**< private */
+    ntr_course_watch_ring low;  /**< private: candidate minima (rises) */
+    ntr_course_watch_ring high; /**< private: candidate maxima, stored negated (falls) */
+} ntr_course_watch;
+
+/**
+ * @brief Start a streaming course watcher with the given limits.
+ *
+ * @param lim    limits, checked as in ntr_course_assess().
+ * @param[out] w the state to initialise.
+ * @retval NTR_OK, NTR_ERR_NULL,
+ *         NTR_ERR_ARG (lim->struct_size below the 1.1 size, or an unknown
+ *         goal), NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * References: as ntr_course_assess().
+ * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
+ */
+NTR_API int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch *w);
+
+/**
+ * @brief Add one result to a course watcher and return the assessment so far.
+ *
+ * While each direction has kept at most @ref NTR_COURSE_WATCH_CAPACITY
+ * candidates, the report equals, field for field and bit for bit, what
+ * ntr_course_assess() returns for all the samples pushed so far. A
+ * candidate is a sample that can still be the lowest (highest) point of a
+ * 48 h window ending at a later sample: a series rising steadily keeps
+ * every sample of the last 48 h as a rise candidate.
+ *
+ * When a direction's memory is full, the watcher compacts it instead of
+ * refusing: of the adjacent candidate pairs (t_k, m_k), (t_k+1, m_k+1)
+ * it merges the one with the smallest |m_k+1 - m_k| into one candidate
+ * with the later time t_k+1 and the more extreme sodium m_k. Every window
+ * that holds the later time then sees a sodium at least as extreme as the
+ * true one, so max_rise_24h, max_rise_48h, max_fall_24h, max_fall_48h,
+ * rise_now_24h, fall_now_24h and the flags read from them are never
+ * smaller than the exact ones; the state keeps @ref NTR_CF_APPROXIMATE
+ * set from then on. rise_first_24h, fall_first_24h, last_rate_per_h and
+ * elapsed_h stay exact. Each merged entry remembers how far it can
+ * over-report (its span), and the merge chosen is the one whose merged
+ * span is smallest. Measured over-report (tests/test_correction.c,
+ * docs/correction.md): at most 0.29 mmol/L on 5- and 15-minute series over
+ * 72 h rising or falling 0.375-0.5 mmol/L/h, noisy and adversarial; on
+ * random dense series at most 1.4 % of the exact 48 h change.
+ *
+ * Cost: O(1) amortised, plus at most O(@ref NTR_COURSE_WATCH_CAPACITY) for
+ * the state check, the projection and a compaction; no allocation.
+ *
+ * @param w         a state from ntr_course_watch_init() (updated on success only).
+ * @param hours     time of the result, -1e6 to 1e6, not before the last one.
+ * @param na_mmol_l serum sodium, 80 to 220 mmol/L.
+ * @param[in,out] out the assessment of the series so far; struct_size set
+ *                  by the caller, as for ntr_course_assess().
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p w or @p out is NULL.
+ * @retval NTR_ERR_ARG       out->struct_size below the 1.1 size, or @p w
+ *         was not initialised or is damaged (an impossible count or index,
+ *         or a stored number that is NaN, infinite or out of its range).
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
+ * @retval NTR_ERR_ORDER     @p hours is before the previous result.
+ *
+ * References: as ntr_course_assess().
+ * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS,
+ * @ref NTR_METHOD_CORRECTION_TREND, @ref NTR_METHOD_RULE_OF_SIXES,
+ * @ref NTR_METHOD_COURSE_WRONG_WAY.
+ */
+NTR_API int ntr_course_watch_push(ntr_course_watch *w, double hours,
+                                  double na_mmol_l, ntr_course_report *out);
+
+/**
+ * @brief The current assessment of a course watcher, without adding a result.
+ *
+ * @param w        a state from ntr_course_watch_init() with at least one result.
+ * @param[in,out] out the assessment (as the last ntr_course_watch_push()
+ *                 returned); struct_size set by the caller.
+ * @retval NTR_OK, NTR_ERR_NULL,
+ *         NTR_ERR_ARG (out->struct_size below the 1.1 size; @p w not
+ *         initialised, damaged, or with no result pushed yet).
+ *
+ * References: as ntr_course_assess().
+ * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
+ */
+NTR_API int ntr_course_watch_result(const ntr_course_watch *w, ntr_course_report *out);
 /** @} */
 
 /* ======================================================================= */
@@ -2235,6 +2527,12 @@ NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_BALANCE_COURSE 37       /**< time course under steady rates */
 #define NTR_METHOD_PLAN_CHECK 38           /**< predicted course against the limits */
 #define NTR_METHOD_RELOWER 39              /**< fluid to re-lower after overcorrection */
+#define NTR_METHOD_COURSE_HYPER_CHRONIC 40 /**< falls at most 10/24 h in chronic hypernatraemia */
+#define NTR_METHOD_COURSE_HYPER_ACUTE 41   /**< falls at most 24/24 h (1/h) in hours-old hypernatraemia */
+#define NTR_METHOD_COURSE_HOLD 42          /**< hold: rises and falls at most 4/24 h */
+#define NTR_METHOD_COURSE_WINDOWS 43       /**< largest rise and fall within 24 h and 48 h windows */
+#define NTR_METHOD_COURSE_WRONG_WAY 44     /**< moved against the goal beyond analytical error */
+#define NTR_METHOD_COURSE_WATCH 45         /**< streaming watcher with bounded memory (upper bounds) */
 /* Work-up (ids 50-69, issue P3; lib/workup.c). */
 #define NTR_METHOD_NA_SEVERITY 50          /**< severity bands of a low sodium */
 #define NTR_METHOD_TONICITY_CLASS 51       /**< hypo-, iso-, hypertonic by measured osmolality */

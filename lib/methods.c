@@ -265,6 +265,64 @@ static int describe(int method, struct ntr_method_info *info)
             "advised by Sterns RH, Hix JK. Overcorrection of hyponatremia is "
             "a medical emergency. Kidney Int 2009;76:587-9",
             "adults whose sodium rose faster than the limits");
+    /* ---- course limits in both directions (ids 40-45, issue P1) ------- */
+#define REF_ADROGUE_MADIAS_HYPER                                             \
+    "Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med 2000;342:1493-9"
+    case NTR_METHOD_COURSE_HYPER_CHRONIC:
+        return entry(info, method, "Lowering limit, chronic hypernatraemia",
+            "fall <= 10 mmol/L in any 24 h (about 0.5 mmol/L/h); no 48 h "
+            "limit (10 in every 24 h bounds it); no target by default",
+            REF_ADROGUE_MADIAS_HYPER,
+            "adults with hypernatraemia of more than a day's or unknown "
+            "duration");
+    case NTR_METHOD_COURSE_HYPER_ACUTE:
+        return entry(info, method, "Lowering limit, hypernatraemia of hours",
+            "fall <= 24 mmol/L in any 24 h: about 1 mmol/L/h kept for a day "
+            "(the 24 h figure is the library's arithmetic)",
+            REF_ADROGUE_MADIAS_HYPER,
+            "adults whose hypernatraemia developed over hours (for example "
+            "salt loading)");
+    case NTR_METHOD_COURSE_HOLD:
+        return entry(info, method, "Holding limits: neither direction wanted",
+            "rise <= 4 and fall <= 4 mmol/L in any 24 h: the analytical "
+            "margin of the wrong-way flag used as the limit (library's own "
+            "choice)",
+            "Library's own choice, derived from the margin of the wrong-way "
+            "method (US proficiency-testing allowance for sodium, CLIA 1988, "
+            "42 CFR 493.931)",
+            "patients held at a sodium level (target reached, desmopressin "
+            "clamp, neurosurgical care)");
+    case NTR_METHOD_COURSE_WINDOWS:
+        return entry(info, method, "Largest rise and fall within sliding 24 h and 48 h windows",
+            "max_rise_W = max over earlier i, later j with t_j - t_i <= W of "
+            "(Na_j - Na_i); max_fall_W the same for (Na_i - Na_j), computed "
+            "as the rise of the series with every sodium negated; W = 24 and "
+            "48 h; a limit of 0 is no limit; over when a figure exceeds its "
+            "limit by more than 1e-6 mmol/L",
+            REF_VERBALIS_2013 "; " REF_SPASOVSKI "; " REF_ADROGUE_MADIAS_HYPER,
+            "any measured or predicted serum sodium series");
+    case NTR_METHOD_COURSE_WRONG_WAY:
+        return entry(info, method, "Moved against the goal",
+            "raise: largest fall within 48 h > 4 mmol/L; lower: largest rise "
+            "within 48 h > 4 mmol/L; hold: any window over its limit (or, "
+            "with no limit in a direction, > 4 mmol/L); 4 mmol/L is about "
+            "the difference analytical error alone can make between two "
+            "results (library's own margin)",
+            "Library's own rule; margin from the allowable error for sodium "
+            "in US proficiency testing (Clinical Laboratory Improvement Amendments of 1988, 42 CFR 493.931)",
+            "any serum sodium series under a stated goal");
+    case NTR_METHOD_COURSE_WATCH:
+        return entry(info, method, "Streaming course watcher with bounded memory",
+            "keeps the candidate window minima and maxima of the last 48 h; "
+            "when its memory is full it merges the two adjacent candidates "
+            "whose sodium differs least into one with the later time and the "
+            "more extreme sodium, so every reported rise and fall is at "
+            "least the exact one (then marked approximate)",
+            "Library's own method, derived from the sliding-window maxima of "
+            "the course windows method; docs/correction.md gives its "
+            "measured error",
+            "any measured serum sodium series, sampled as often as every 5 min");
+#undef REF_ADROGUE_MADIAS_HYPER
 
     /* ==== work-up (ids 50-69, issue P3) ================================= */
     case NTR_METHOD_NA_SEVERITY:
@@ -370,7 +428,7 @@ static const struct {
     int last;
 } method_runs[] = {
     {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
-    {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_RELOWER},       /* correction, 30-49 */
+    {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_COURSE_WATCH},  /* correction, 30-49 */
     {NTR_METHOD_NA_SEVERITY, NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY}}; /* work-up, 50-69 */
 
 int ntr_method_next(int after, int *next)

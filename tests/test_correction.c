@@ -995,6 +995,862 @@ static void watcher_state_can_be_stored_and_restored(void **state)
     assert_true(a.max_rise_24h == 10.5);
 }
 
+/* ---- 1.1: course limits and assessment in both directions --------------- */
+
+static ntr_course_limits course_preset(int preset)
+{
+    ntr_course_limits lim;
+    memset(&lim, 0x5a, sizeof lim);
+    assert_int_equal(ntr_course_limits_preset(preset, &lim), NTR_OK);
+    assert_int_equal(lim.struct_size, sizeof lim);
+    return lim;
+}
+
+static ntr_course_limits course_limits(int goal, double rise24, double rise48,
+                                       double fall24, double fall48, double target)
+{
+    ntr_course_limits lim;
+    lim.struct_size = sizeof lim;
+    lim.goal = goal;
+    lim.max_rise_24h = rise24;
+    lim.max_rise_48h = rise48;
+    lim.max_fall_24h = fall24;
+    lim.max_fall_48h = fall48;
+    lim.min_change_24h = target;
+    return lim;
+}
+
+static ntr_course_report course_assess(const ntr_sample *s, size_t n, const ntr_course_limits *lim)
+{
+    ntr_course_report r;
+    memset(&r, 0x5a, sizeof r);
+    r.struct_size = sizeof r;
+    assert_int_equal(ntr_course_assess(s, n, lim, &r), NTR_OK);
+    assert_int_equal(r.struct_size, sizeof r);
+    assert_int_equal(r.reserved, 0);
+    return r;
+}
+
+static ntr_course_report course_untouched(void)
+{
+    ntr_course_report r;
+    memset(&r, 0xa5, sizeof r);
+    r.struct_size = sizeof r;
+    return r;
+}
+
+static void assert_course_untouched(const ntr_course_report *r)
+{
+    ntr_course_report ref = course_untouched();
+    assert_memory_equal(r, &ref, sizeof ref);
+}
+
+static void assert_same_course(const ntr_course_report *a, const ntr_course_report *b)
+{
+    assert_int_equal(a->struct_size, b->struct_size);
+    assert_true(a->max_rise_24h == b->max_rise_24h);
+    assert_true(a->max_rise_48h == b->max_rise_48h);
+    assert_true(a->max_fall_24h == b->max_fall_24h);
+    assert_true(a->max_fall_48h == b->max_fall_48h);
+    assert_true(a->excess_mmol_l == b->excess_mmol_l);
+    assert_int_equal(a->flags, b->flags);
+    assert_int_equal(a->reserved, b->reserved);
+    assert_true(a->rise_first_24h == b->rise_first_24h);
+    assert_true(a->fall_first_24h == b->fall_first_24h);
+    assert_true(a->rise_now_24h == b->rise_now_24h);
+    assert_true(a->fall_now_24h == b->fall_now_24h);
+    assert_true(a->last_rate_per_h == b->last_rate_per_h);
+    assert_true(a->elapsed_h == b->elapsed_h);
+    assert_true(a->worst_at_h == b->worst_at_h);
+}
+
+static void course_values_are_fixed(void **state)
+{
+    (void)state;
+    /* Fixed by issue P1 (ABI). */
+    assert_int_equal(NTR_GOAL_RAISE, 1);
+    assert_int_equal(NTR_GOAL_LOWER, 2);
+    assert_int_equal(NTR_GOAL_HOLD, 3);
+    assert_int_equal(NTR_COURSE_HYPO_STANDARD, 1);
+    assert_int_equal(NTR_COURSE_HYPO_HIGH_RISK, 2);
+    assert_int_equal(NTR_COURSE_HYPER_CHRONIC, 3);
+    assert_int_equal(NTR_COURSE_HYPER_ACUTE, 4);
+    assert_int_equal(NTR_COURSE_HOLD, 5);
+    assert_int_equal(NTR_CF_FALL_OVER_24H, 0x80u);
+    assert_int_equal(NTR_CF_FALL_OVER_48H, 0x100u);
+    assert_int_equal(NTR_CF_WRONG_WAY, 0x200u);
+    assert_int_equal(NTR_CF_APPROXIMATE, 0x400u);
+    assert_int_equal(NTR_CF_FALL_NEAR_LIMIT, 0x800u);
+    assert_int_equal(NTR_CF_FALL_PROJECTED_OVER, 0x1000u);
+    assert_int_equal(NTR_CF_COURSE_ALL, 0x1fffu);
+    assert_int_equal(NTR_CF_ALL & NTR_CF_FALL_OVER_24H, 0u);
+}
+
+/* Sources: Verbalis 2013 and Spasovski 2014 (the hyponatraemia presets, as
+ * the 1.0 presets above); Adrogue HJ, Madias NE, N Engl J Med
+ * 2000;342:1493-9 (chronic hypernatraemia about 10 mmol/L per day; hours-old
+ * about 1 mmol/L/h, so 24 in 24 h: hand-worked); the hold preset is the
+ * library's own choice (the analytical margin). Issue P1: min_change_24h
+ * is 0 in every preset. */
+static void course_presets_match_their_sources(void **state)
+{
+    ntr_course_limits lim;
+    ntr_limits old;
+    (void)state;
+    lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    old = standard();
+    assert_int_equal(lim.goal, NTR_GOAL_RAISE);
+    assert_true(lim.max_rise_24h == old.max_rise_24h && lim.max_rise_48h == old.max_rise_48h);
+    assert_true(lim.max_fall_24h == 0.0 && lim.max_fall_48h == 0.0 && lim.min_change_24h == 0.0);
+    lim = course_preset(NTR_COURSE_HYPO_HIGH_RISK);
+    old = high_risk();
+    assert_int_equal(lim.goal, NTR_GOAL_RAISE);
+    assert_true(lim.max_rise_24h == old.max_rise_24h && lim.max_rise_48h == old.max_rise_48h);
+    assert_true(lim.max_fall_24h == 0.0 && lim.max_fall_48h == 0.0 && lim.min_change_24h == 0.0);
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    assert_int_equal(lim.goal, NTR_GOAL_LOWER);
+    assert_true(lim.max_fall_24h == 10.0 && lim.max_fall_48h == 0.0);
+    assert_true(lim.max_rise_24h == 0.0 && lim.max_rise_48h == 0.0 && lim.min_change_24h == 0.0);
+    lim = course_preset(NTR_COURSE_HYPER_ACUTE);
+    assert_int_equal(lim.goal, NTR_GOAL_LOWER);
+    assert_true(lim.max_fall_24h == 24.0 && lim.max_fall_48h == 0.0 && lim.min_change_24h == 0.0);
+    lim = course_preset(NTR_COURSE_HOLD);
+    assert_int_equal(lim.goal, NTR_GOAL_HOLD);
+    assert_true(lim.max_rise_24h == NTR_CF_WRONG_WAY_MARGIN);
+    assert_true(lim.max_fall_24h == NTR_CF_WRONG_WAY_MARGIN);
+    assert_true(lim.max_rise_48h == 0.0 && lim.max_fall_48h == 0.0 && lim.min_change_24h == 0.0);
+}
+
+static void course_presets_reject_bad_arguments(void **state)
+{
+    const int bad[] = {0, 6, -1, 100};
+    ntr_course_limits lim, ref;
+    size_t i;
+    (void)state;
+    assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HOLD, NULL), NTR_ERR_NULL);
+    memset(&ref, 0xa5, sizeof ref);
+    for (i = 0; i < COUNT(bad); i++) {
+        memcpy(&lim, &ref, sizeof lim);
+        assert_int_equal(ntr_course_limits_preset(bad[i], &lim), NTR_ERR_ARG);
+        assert_memory_equal(&lim, &ref, sizeof lim);
+    }
+    /* Every preset is accepted by the assessment. */
+    for (i = 1; i <= 5; i++) {
+        const ntr_sample s[] = {{0.0, 140.0}};
+        ntr_course_limits p = course_preset((int)i);
+        (void)course_assess(s, 1, &p);
+    }
+}
+
+/* Issue P1, hand-worked: hypernatraemia corrected from 165 to 140 mmol/L in
+ * 24 h is a fall of 25, over the chronic limit of 10 per day (Adrogue &
+ * Madias 2000) by 15. It is not "too slow": no target is set. */
+static void hypernatraemia_fall_of_25_in_24h_is_flagged(void **state)
+{
+    const ntr_sample s[] = {{0.0, 165.0}, {6.0, 159.0}, {12.0, 152.0}, {18.0, 146.0}, {24.0, 140.0}};
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_report r = course_assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(r.max_fall_24h == 25.0);
+    assert_true(r.max_fall_48h == 25.0);
+    assert_true(r.fall_first_24h == 25.0);
+    assert_true(r.max_rise_24h == 0.0);
+    assert_true(r.excess_mmol_l == 15.0);
+    assert_true(r.worst_at_h == 24.0);
+    assert_true(r.elapsed_h == 24.0);
+    assert_true((r.flags & NTR_CF_FALL_OVER_24H) != 0u);
+    assert_true((r.flags & NTR_CF_BELOW_TARGET) == 0u);
+    assert_true((r.flags & NTR_CF_FALLING) != 0u);
+    /* Lowering is the goal: not the wrong way. */
+    assert_true((r.flags & NTR_CF_WRONG_WAY) == 0u);
+    /* Falling 6 per 6 h: the next sample, 134, would be 31 below 165. */
+    assert_true((r.flags & NTR_CF_FALL_PROJECTED_OVER) != 0u);
+    assert_true((r.flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_48H)) == 0u);
+}
+
+/* Issue P1, hand-worked: 170 -> 148 in 12 h is a fall of 22 (12 over the
+ * 10 per day of Adrogue & Madias 2000), even under the hours-old limit of
+ * 24 per day it is near (22 >= 24 - 2). */
+static void hypernatraemia_fall_of_22_in_12h_is_flagged(void **state)
+{
+    const ntr_sample s[] = {{0.0, 170.0}, {4.0, 163.0}, {8.0, 155.0}, {12.0, 148.0}};
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_report r = course_assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(r.max_fall_24h == 22.0);
+    assert_true(r.fall_now_24h == 22.0);
+    assert_true(r.excess_mmol_l == 12.0);
+    assert_true(r.worst_at_h == 12.0);
+    assert_true((r.flags & NTR_CF_FALL_OVER_24H) != 0u);
+    assert_true((r.flags & NTR_CF_BELOW_TARGET) == 0u);
+    lim = course_preset(NTR_COURSE_HYPER_ACUTE);
+    r = course_assess(s, COUNT(s), &lim);
+    assert_true((r.flags & NTR_CF_FALL_OVER_24H) == 0u);
+    assert_true((r.flags & NTR_CF_FALL_NEAR_LIMIT) != 0u);
+    assert_true((r.flags & NTR_CF_FALL_PROJECTED_OVER) != 0u); /* 141 next: 29 below 170 */
+    assert_true(r.excess_mmol_l == 0.0);
+    assert_true(r.worst_at_h == NTR_COURSE_NO_TIME);
+}
+
+/* Issue P1, hand-worked: worsening hyponatraemia 124 -> 112 in 12 h under
+ * the standard hyponatraemia limits is a fall of 12 against the goal,
+ * beyond the 4 mmol/L analytical margin. */
+static void worsening_hyponatraemia_is_the_wrong_way(void **state)
+{
+    const ntr_sample s[] = {{0.0, 124.0}, {6.0, 118.0}, {12.0, 112.0}};
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_report r = course_assess(s, COUNT(s), &lim);
+    (void)state;
+    assert_true(r.max_fall_24h == 12.0);
+    assert_true((r.flags & NTR_CF_WRONG_WAY) != 0u);
+    assert_true((r.flags & NTR_CF_FALLING) != 0u);
+    /* No fall limit in the preset: no fall-limit bit, no excess. */
+    assert_true((r.flags & (NTR_CF_FALL_OVER_24H | NTR_CF_FALL_OVER_48H |
+                            NTR_CF_FALL_NEAR_LIMIT | NTR_CF_FALL_PROJECTED_OVER)) == 0u);
+    assert_true(r.excess_mmol_l == 0.0);
+}
+
+/* Hand-worked at the margin (NTR_CF_WRONG_WAY_MARGIN, 4 mmol/L): a fall of
+ * exactly 4 (within analytical error) is not the wrong way, 4.1 is; the
+ * 48 h window counts (a slow drift of 5 over 40 h). Under the lowering goal
+ * a rise is the wrong way. */
+static void wrong_way_margin_edges(void **state)
+{
+    const ntr_sample four[] = {{0.0, 124.1}, {12.0, 120.1}};
+    const ntr_sample more[] = {{0.0, 124.0}, {12.0, 119.9}};
+    const ntr_sample drift[] = {{0.0, 124.0}, {20.0, 121.5}, {40.0, 119.0}};
+    const ntr_sample up[] = {{0.0, 160.0}, {8.0, 164.5}};
+    ntr_course_limits raise = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_limits lower = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    (void)state;
+    assert_true((course_assess(four, 2, &raise).flags & NTR_CF_WRONG_WAY) == 0u);
+    assert_true((course_assess(more, 2, &raise).flags & NTR_CF_WRONG_WAY) != 0u);
+    assert_true((course_assess(drift, 3, &raise).flags & NTR_CF_WRONG_WAY) != 0u);
+    assert_true((course_assess(drift, 3, &lower).flags & NTR_CF_WRONG_WAY) == 0u);
+    assert_true((course_assess(up, 2, &lower).flags & NTR_CF_WRONG_WAY) != 0u);
+    assert_true((course_assess(up, 2, &raise).flags & NTR_CF_WRONG_WAY) == 0u);
+}
+
+/* Hold (hand-worked against the hold preset, 4 each way in 24 h): a move
+ * past either limit is the wrong way; within it, nothing. Hold limits of 0
+ * in a direction fall back on the margin for the wrong-way flag only. */
+static void hold_cases(void **state)
+{
+    const ntr_sample steady[] = {{0.0, 138.0}, {12.0, 140.0}, {24.0, 137.0}};
+    const ntr_sample rise[] = {{0.0, 138.0}, {12.0, 143.0}};
+    const ntr_sample fall[] = {{0.0, 138.0}, {12.0, 133.0}};
+    ntr_course_limits hold = course_preset(NTR_COURSE_HOLD);
+    ntr_course_limits open = course_limits(NTR_GOAL_HOLD, 0.0, 0.0, 0.0, 0.0, 0.0);
+    ntr_course_limits rise_only = course_limits(NTR_GOAL_HOLD, 6.0, 0.0, 0.0, 0.0, 0.0);
+    ntr_course_report r;
+    (void)state;
+    r = course_assess(steady, COUNT(steady), &hold);
+    assert_true((r.flags & (NTR_CF_WRONG_WAY | NTR_CF_OVER_24H | NTR_CF_FALL_OVER_24H)) == 0u);
+    assert_true(r.max_fall_24h == 3.0 && r.max_rise_24h == 2.0);
+    r = course_assess(rise, COUNT(rise), &hold);
+    assert_int_equal(r.flags & (NTR_CF_WRONG_WAY | NTR_CF_OVER_24H | NTR_CF_FALL_OVER_24H),
+                     NTR_CF_WRONG_WAY | NTR_CF_OVER_24H);
+    assert_true(r.excess_mmol_l == 1.0);
+    assert_true(r.worst_at_h == 12.0);
+    r = course_assess(fall, COUNT(fall), &hold);
+    assert_int_equal(r.flags & (NTR_CF_WRONG_WAY | NTR_CF_OVER_24H | NTR_CF_FALL_OVER_24H),
+                     NTR_CF_WRONG_WAY | NTR_CF_FALL_OVER_24H);
+    /* No limits at all: the margin decides, in both directions. */
+    assert_true((course_assess(rise, 2, &open).flags & NTR_CF_WRONG_WAY) != 0u);
+    assert_true((course_assess(fall, 2, &open).flags & NTR_CF_WRONG_WAY) != 0u);
+    assert_true((course_assess(steady, 3, &open).flags & NTR_CF_WRONG_WAY) == 0u);
+    /* A rise limit of 6 allows the rise of 5; the unlimited fall of 5 is past the margin. */
+    assert_true((course_assess(rise, 2, &rise_only).flags & NTR_CF_WRONG_WAY) == 0u);
+    assert_true((course_assess(fall, 2, &rise_only).flags & NTR_CF_WRONG_WAY) != 0u);
+}
+
+/* The target is the caller's (issue P1). Hand-worked: lowering 160 by 3 in
+ * 24 h against a wanted 5 is below target; with no target it never is;
+ * before 24 h have passed it is not yet. */
+static void course_target_only_when_asked(void **state)
+{
+    const ntr_sample s[] = {{0.0, 160.0}, {12.0, 158.0}, {24.0, 157.0}};
+    ntr_course_limits none = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_limits want = none;
+    ntr_course_limits raise = course_limits(NTR_GOAL_RAISE, 10.0, 18.0, 0.0, 0.0, 4.0);
+    const ntr_sample hypo[] = {{0.0, 118.0}, {24.0, 121.0}};
+    (void)state;
+    want.min_change_24h = 5.0;
+    assert_true((course_assess(s, 3, &none).flags & NTR_CF_BELOW_TARGET) == 0u);
+    assert_true((course_assess(s, 3, &want).flags & NTR_CF_BELOW_TARGET) != 0u);
+    assert_true((course_assess(s, 2, &want).flags & NTR_CF_BELOW_TARGET) == 0u);
+    want.min_change_24h = 3.0;
+    assert_true((course_assess(s, 3, &want).flags & NTR_CF_BELOW_TARGET) == 0u);
+    assert_true((course_assess(hypo, 2, &raise).flags & NTR_CF_BELOW_TARGET) != 0u);
+}
+
+/* The 1.0 function is the course engine with goal raise and no fall
+ * limits, its flags limited to the 1.0 bits: identical field for field on
+ * random series (the 1.0 tests above and tests/refvectors/expected.txt
+ * pin the 1.0 results themselves). */
+static void correction_assess_is_the_course_engine(void **state)
+{
+    ntr_sample s[40];
+    int round;
+    (void)state;
+    for (round = 0; round < 5000; round++) {
+        size_t n = random_series(s, COUNT(s));
+        ntr_limits lim = random_limits();
+        ntr_course_limits c = course_limits(NTR_GOAL_RAISE, lim.max_rise_24h, lim.max_rise_48h,
+                                            0.0, 0.0, lim.min_rise_24h);
+        ntr_correction old = assess(s, n, &lim);
+        ntr_course_report r = course_assess(s, n, &c);
+        assert_true(old.rise_first_24h == r.rise_first_24h);
+        assert_true(old.max_rise_24h == r.max_rise_24h);
+        assert_true(old.max_rise_48h == r.max_rise_48h);
+        assert_true(old.last_rate_per_h == r.last_rate_per_h);
+        assert_true(old.excess_mmol_l == r.excess_mmol_l);
+        assert_int_equal(old.flags, r.flags & NTR_CF_ALL);
+    }
+}
+
+static ntr_course_limits random_course_limits(void)
+{
+    static const int presets[] = {NTR_COURSE_HYPO_STANDARD, NTR_COURSE_HYPO_HIGH_RISK,
+                                  NTR_COURSE_HYPER_CHRONIC, NTR_COURSE_HYPER_ACUTE,
+                                  NTR_COURSE_HOLD};
+    ntr_course_limits lim;
+    unsigned int pick = rng_below(8);
+    if (pick < 5) {
+        return course_preset(presets[pick]);
+    }
+    lim.struct_size = sizeof lim;
+    lim.goal = 1 + (int)rng_below(3);
+    /* Each limit 0 (none) a quarter of the time. */
+    lim.max_rise_24h = rng_below(4) == 0 ? 0.0 : 1.0 + (double)rng_below(120) / 10.0;
+    lim.max_rise_48h = rng_below(4) == 0 ? 0.0 : lim.max_rise_24h + (double)rng_below(100) / 10.0;
+    lim.max_fall_24h = rng_below(4) == 0 ? 0.0 : 1.0 + (double)rng_below(120) / 10.0;
+    lim.max_fall_48h = rng_below(4) == 0 ? 0.0 : lim.max_fall_24h + (double)rng_below(100) / 10.0;
+    lim.min_change_24h = 0.0;
+    if (lim.goal != NTR_GOAL_HOLD && rng_below(2) == 0) {
+        double c24 = lim.goal == NTR_GOAL_RAISE ? lim.max_rise_24h : lim.max_fall_24h;
+        double c48 = lim.goal == NTR_GOAL_RAISE ? lim.max_rise_48h : lim.max_fall_48h;
+        double ceiling = c24 > 0.0 ? c24 : (c48 > 0.0 ? c48 : 8.0);
+        lim.min_change_24h = rng_unit() * ceiling;
+    }
+    return lim;
+}
+
+/* Property: on random series, both directions, every goal, limits with
+ * and without zeros, the linear engine agrees exactly with the pairwise
+ * definitions (tests/correction_oracle.h). */
+static void course_assess_agrees_with_the_definitions(void **state)
+{
+    ntr_sample s[40];
+    int round;
+    (void)state;
+    for (round = 0; round < 20000; round++) {
+        size_t n = random_series(s, COUNT(s));
+        ntr_course_limits lim = random_course_limits();
+        ntr_course_report got = course_assess(s, n, &lim);
+        ntr_course_report want = course_oracle(s, n, &lim);
+        assert_same_course(&got, &want);
+    }
+}
+
+/* The same on dense series, rising and falling, up to 1500 samples. */
+static void course_assess_agrees_on_dense_series(void **state)
+{
+    static ntr_sample s[1500];
+    int round;
+    (void)state;
+    for (round = 0; round < 30; round++) {
+        size_t n = 1 + rng_below(1500), i;
+        double t = 0.0, na = round % 2 == 0 ? 120.0 : 170.0;
+        double drift = round % 2 == 0 ? -0.9 : -1.1;
+        ntr_course_limits lim = random_course_limits();
+        for (i = 0; i < n; i++) {
+            s[i].hours = t;
+            s[i].na_mmol_l = na;
+            t += rng_unit() * (round % 3 == 0 ? 0.2 : 3.0);
+            na += rng_unit() * 2.0 + drift;
+            na = na < 81.0 ? 81.0 : (na > 219.0 ? 219.0 : na);
+        }
+        {
+            ntr_course_report got = course_assess(s, n, &lim);
+            ntr_course_report want = course_oracle(s, n, &lim);
+            assert_same_course(&got, &want);
+        }
+    }
+}
+
+static void course_expect(const ntr_sample *s, size_t n, const ntr_course_limits *lim, int status)
+{
+    ntr_course_report r = course_untouched();
+    assert_int_equal(ntr_course_assess(s, n, lim, &r), status);
+    assert_course_untouched(&r);
+}
+
+static void course_assess_rejects_bad_inputs(void **state)
+{
+    const ntr_sample s[] = {{0.0, 120.0}, {10.0, 125.0}};
+    const ntr_sample late[] = {{10.0, 120.0}, {0.0, 125.0}};
+    const ntr_sample bad_na[] = {{10.0, 79.0}, {0.0, 125.0}};
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_limits bad = lim;
+    ntr_course_report r = course_untouched();
+    (void)state;
+    assert_int_equal(ntr_course_assess(NULL, 2, &lim, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_assess(s, 2, NULL, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_assess(s, 2, &lim, NULL), NTR_ERR_NULL);
+    assert_course_untouched(&r);
+    course_expect(s, 0, &lim, NTR_ERR_ARG);
+    /* Sizes: a struct older or smaller than 1.1 is refused; larger is read. */
+    bad.struct_size = sizeof bad - 1;
+    course_expect(s, 2, &bad, NTR_ERR_ARG);
+    bad.struct_size = 0;
+    course_expect(s, 2, &bad, NTR_ERR_ARG);
+    bad.struct_size = sizeof bad + 64;
+    {
+        ntr_course_report big = course_assess(s, 2, &bad);
+        assert_true(big.max_rise_24h == 5.0);
+    }
+    r.struct_size = sizeof r - 1;
+    {
+        ntr_course_report ref = r;
+        assert_int_equal(ntr_course_assess(s, 2, &lim, &r), NTR_ERR_ARG);
+        assert_memory_equal(&r, &ref, sizeof r);
+    }
+    bad = lim;
+    bad.goal = 0;
+    course_expect(s, 2, &bad, NTR_ERR_ARG);
+    bad.goal = 4;
+    course_expect(s, 2, &bad, NTR_ERR_ARG);
+    /* The goal is checked before the numbers, the numbers before the order. */
+    bad.max_rise_24h = (double)NAN;
+    course_expect(s, 2, &bad, NTR_ERR_ARG);
+    course_expect(bad_na, 2, &lim, NTR_ERR_RANGE);
+    course_expect(late, 2, &lim, NTR_ERR_ORDER);
+    bad = lim;
+    bad.max_fall_24h = (double)NAN;
+    course_expect(late, 2, &bad, NTR_ERR_NONFINITE);
+    bad.max_fall_24h = HUGE_VAL;
+    course_expect(s, 2, &bad, NTR_ERR_NONFINITE);
+    bad.max_fall_24h = -0.5;
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    bad.max_fall_24h = 50.5;
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    /* Contradictions: 24 h looser than 48 h in a direction, a target above
+     * its ceiling, a target on a hold. */
+    bad = course_limits(NTR_GOAL_LOWER, 0.0, 0.0, 12.0, 10.0, 0.0);
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    bad = course_limits(NTR_GOAL_RAISE, 12.0, 10.0, 0.0, 0.0, 0.0);
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    bad = course_limits(NTR_GOAL_LOWER, 0.0, 0.0, 10.0, 0.0, 11.0);
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    bad = course_limits(NTR_GOAL_LOWER, 0.0, 0.0, 0.0, 8.0, 9.0);
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    bad = course_limits(NTR_GOAL_HOLD, 4.0, 0.0, 4.0, 0.0, 1.0);
+    course_expect(s, 2, &bad, NTR_ERR_RANGE);
+    /* Accepted edge cases: only a 48 h limit; a 24 h limit equal to the 48 h. */
+    bad = course_limits(NTR_GOAL_LOWER, 0.0, 0.0, 0.0, 10.0, 0.0);
+    (void)course_assess(s, 2, &bad);
+    bad = course_limits(NTR_GOAL_RAISE, 10.0, 10.0, 10.0, 10.0, 10.0);
+    (void)course_assess(s, 2, &bad);
+}
+
+/* The largest over-report of the course watcher once compacted, as
+ * docs/correction.md states it (measured by the tests below): in mmol/L on
+ * the dense 72 h series, and as a share of the exact 48 h change on the
+ * random dense ones. */
+#define COURSE_WATCH_BOUND 0.3
+#define COURSE_WATCH_SHARE 0.02
+/* ---- 1.1: the course watcher ---------------------------------------------- */
+
+static ntr_course_report watch_push_ok(ntr_course_watch *w, double hours, double na)
+{
+    ntr_course_report r;
+    memset(&r, 0x5a, sizeof r);
+    r.struct_size = sizeof r;
+    assert_int_equal(ntr_course_watch_push(w, hours, na, &r), NTR_OK);
+    assert_int_equal(r.struct_size, sizeof r);
+    return r;
+}
+
+/* The watcher equals ntr_course_assess on every prefix, exactly, while it
+ * has not compacted (short random series never fill its memory). */
+static void course_watcher_equals_assess_on_random_series(void **state)
+{
+    ntr_sample s[60];
+    int round;
+    (void)state;
+    for (round = 0; round < 5000; round++) {
+        size_t n = random_series(s, COUNT(s)), k;
+        ntr_course_limits lim = random_course_limits();
+        ntr_course_watch w;
+        assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+        for (k = 0; k < n; k++) {
+            ntr_course_report streamed = watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+            ntr_course_report batch = course_assess(s, k + 1, &lim);
+            ntr_course_report again = course_untouched();
+            assert_true((streamed.flags & NTR_CF_APPROXIMATE) == 0u);
+            assert_same_course(&streamed, &batch);
+            assert_int_equal(ntr_course_watch_result(&w, &again), NTR_OK);
+            assert_same_course(&again, &batch);
+        }
+    }
+}
+
+/* How far the watcher's window figures are above the exact ones; fails if
+ * any is below, or if an exact-only figure differs. */
+static double over_report(const ntr_course_report *got, const ntr_course_report *exact)
+{
+    const double g[] = {got->max_rise_24h, got->max_rise_48h, got->max_fall_24h,
+                        got->max_fall_48h, got->rise_now_24h, got->fall_now_24h};
+    const double e[] = {exact->max_rise_24h, exact->max_rise_48h, exact->max_fall_24h,
+                        exact->max_fall_48h, exact->rise_now_24h, exact->fall_now_24h};
+    double worst = 0.0;
+    size_t i;
+    for (i = 0; i < COUNT(g); i++) {
+        assert_true(g[i] >= e[i]);
+        if (g[i] - e[i] > worst) {
+            worst = g[i] - e[i];
+        }
+    }
+    assert_true(got->rise_first_24h == exact->rise_first_24h);
+    assert_true(got->fall_first_24h == exact->fall_first_24h);
+    assert_true(got->last_rate_per_h == exact->last_rate_per_h);
+    assert_true(got->elapsed_h == exact->elapsed_h);
+    /* Over-reporting can only add window flags, never remove one. */
+    assert_int_equal(exact->flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_24H |
+                                     NTR_CF_FALL_OVER_48H | NTR_CF_RAPID_6H) &
+                         ~got->flags,
+                     0u);
+    return worst;
+}
+
+/* Largest over-report seen, as a share of the exact 48 h change in the
+ * same direction (the sodium range the memory has to cover). */
+static double worst_share = 0.0;
+
+/* Feeds s[0..n-1] to a watcher, comparing with the exact assessment of each
+ * prefix: identical until the first compaction, never below after.
+ * Returns the largest over-report; *compacted_at is the first prefix
+ * length reported approximate (0 if none). */
+static double watch_against_exact(const ntr_sample *s, size_t n, const ntr_course_limits *lim,
+                                  size_t *compacted_at)
+{
+    ntr_course_watch w;
+    double worst = 0.0;
+    size_t k;
+    *compacted_at = 0;
+    assert_int_equal(ntr_course_watch_init(lim, &w), NTR_OK);
+    for (k = 0; k < n; k++) {
+        ntr_course_report got = watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+        ntr_course_report exact = course_assess(s, k + 1, lim);
+        if ((got.flags & NTR_CF_APPROXIMATE) == 0u) {
+            assert_int_equal(*compacted_at, 0);
+            assert_same_course(&got, &exact);
+        } else {
+            double e = over_report(&got, &exact);
+            double range = exact.max_rise_48h > exact.max_fall_48h ? exact.max_rise_48h
+                                                                   : exact.max_fall_48h;
+            if (range > 0.0 && e / range > worst_share) {
+                worst_share = e / range;
+            }
+            if (*compacted_at == 0) {
+                *compacted_at = k + 1;
+            }
+            if (e > worst) {
+                worst = e;
+            }
+        }
+    }
+    return worst;
+}
+
+/* A 72 h series every `step_h` hours: kind 0 rising 0.375-0.5 mmol/L/h
+ * (issue P1's refused case), 1 falling as fast, 2 noisy (laboratory
+ * scatter of +-2 around a slow rise), 3 adversarial (a rise in
+ * alternating large and tiny steps, so the cheapest merge is never much
+ * cheaper than the rest). Invented series. */
+static size_t make_series(ntr_sample *s, double step_h, int kind)
+{
+    size_t n = (size_t)(72.0 / step_h) + 1, i;
+    double na = kind == 1 ? 165.0 : 112.0;
+    for (i = 0; i < n; i++) {
+        double rate = 0.375 + 0.125 * rng_unit();
+        s[i].hours = (double)i * step_h;
+        switch (kind) {
+        case 0: na += rate * step_h; break;
+        case 1: na -= rate * step_h; break;
+        case 2: na += 0.1 * step_h; break;
+        default: na += (i % 2 == 0 ? 1.9 : 0.1) * rate * step_h; break;
+        }
+        s[i].na_mmol_l = kind == 2 ? na + 4.0 * rng_unit() - 2.0 : na;
+    }
+    return n;
+}
+
+/* Issue P1: 15-minute and 5-minute series over 72 h are never refused;
+ * exact while the memory holds, never below exact after, and the
+ * over-report stays within the bound docs/correction.md states. */
+static void course_watcher_never_refuses_dense_series(void **state)
+{
+    static ntr_sample s[72 * 12 + 1];
+    const double steps[] = {0.25, 5.0 / 60.0};
+    const int presets[] = {NTR_COURSE_HYPO_STANDARD, NTR_COURSE_HYPER_CHRONIC, NTR_COURSE_HOLD};
+    double worst = 0.0;
+    size_t a, kind, p;
+    (void)state;
+    for (a = 0; a < COUNT(steps); a++) {
+        for (kind = 0; kind < 4; kind++) {
+            for (p = 0; p < COUNT(presets); p++) {
+                ntr_course_limits lim = course_preset(presets[p]);
+                size_t n = make_series(s, steps[a], (int)kind), compacted_at;
+                double e = watch_against_exact(s, n, &lim, &compacted_at);
+                /* The steady series fill the memory within 48 h. */
+                if (kind != 2) {
+                    assert_true(compacted_at > 0);
+                }
+                if (e > worst) {
+                    worst = e;
+                }
+            }
+        }
+    }
+    print_message("course watcher, dense 72 h series: largest over-report %.4f mmol/L\n", worst);
+    assert_true(worst <= COURSE_WATCH_BOUND);
+}
+
+/* The same on random dense series: random steps of 5 minutes to 1 hour and
+ * random walks (both directions), including long flat stretches. */
+static void course_watcher_over_report_on_random_series(void **state)
+{
+    static ntr_sample s[1200];
+    double worst = 0.0;
+    int round;
+    (void)state;
+    for (round = 0; round < 24; round++) {
+        size_t n = 400 + rng_below(800), i, compacted_at;
+        double t = 0.0, na = 100.0 + 60.0 * rng_unit();
+        double drift = (rng_unit() - 0.5) * 0.6;
+        ntr_course_limits lim = random_course_limits();
+        for (i = 0; i < n; i++) {
+            s[i].hours = t;
+            s[i].na_mmol_l = na;
+            t += 5.0 / 60.0 + rng_unit() * (round % 2 == 0 ? 0.2 : 1.0);
+            na += drift + (rng_unit() - 0.5) * (round % 3 == 0 ? 0.2 : 1.5);
+            na = na < 81.0 ? 81.0 : (na > 219.0 ? 219.0 : na);
+        }
+        {
+            double e = watch_against_exact(s, n, &lim, &compacted_at);
+            if (e > worst) {
+                worst = e;
+            }
+        }
+    }
+    print_message("course watcher, random dense series: largest over-report %.4f mmol/L, "
+                  "%.4f of the 48 h change\n", worst, worst_share);
+    assert_true(worst_share <= COURSE_WATCH_SHARE);
+}
+
+/* The documented capacity: a steady rise sampled every 31 minutes (at most
+ * 93 candidates within 48 h) stays exact for 96 h; every 20 minutes it
+ * compacts (145 within 48 h). Invented series, rising 0.5 mmol/L/h. */
+static void course_watcher_capacity_is_as_documented(void **state)
+{
+    static ntr_sample s[300];
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    size_t n, k, compacted_at;
+    (void)state;
+    assert_int_equal(NTR_COURSE_WATCH_CAPACITY, 96);
+    for (n = 0, k = 0; (double)k * 31.0 / 60.0 <= 96.0; k++, n++) {
+        s[k].hours = (double)k * 31.0 / 60.0;
+        s[k].na_mmol_l = 110.0 + 0.5 * s[k].hours;
+    }
+    (void)watch_against_exact(s, n, &lim, &compacted_at);
+    assert_int_equal(compacted_at, 0);
+    for (n = 0, k = 0; (double)k / 3.0 <= 96.0; k++, n++) {
+        s[k].hours = (double)k / 3.0;
+        s[k].na_mmol_l = 110.0 + 0.5 * s[k].hours;
+    }
+    (void)watch_against_exact(s, n, &lim, &compacted_at);
+    assert_true(compacted_at > 96 && compacted_at <= 146);
+}
+
+static void course_watcher_rejects_bad_inputs(void **state)
+{
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_limits bad = lim;
+    ntr_course_watch w, copy, zero;
+    ntr_course_report r = course_untouched();
+    (void)state;
+    memset(&zero, 0, sizeof zero);
+    assert_int_equal(ntr_course_watch_init(NULL, &w), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_init(&lim, NULL), NTR_ERR_NULL);
+    memcpy(&w, &zero, sizeof w);
+    bad.struct_size = 8;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_ARG);
+    bad = lim;
+    bad.goal = 9;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_ARG);
+    bad = lim;
+    bad.max_fall_24h = (double)NAN;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_NONFINITE);
+    bad.max_fall_24h = 60.0;
+    assert_int_equal(ntr_course_watch_init(&bad, &w), NTR_ERR_RANGE);
+    assert_memory_equal(&w, &zero, sizeof w);
+
+    assert_int_equal(ntr_course_watch_push(&zero, 0.0, 120.0, &r), NTR_ERR_ARG);
+    assert_int_equal(ntr_course_watch_result(&zero, &r), NTR_ERR_ARG);
+    assert_course_untouched(&r);
+    assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+    assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG); /* nothing pushed */
+    assert_int_equal(ntr_course_watch_push(NULL, 0.0, 120.0, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_push(&w, 0.0, 120.0, NULL), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_result(NULL, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_watch_result(&w, NULL), NTR_ERR_NULL);
+    (void)watch_push_ok(&w, 10.0, 120.0);
+    memcpy(&copy, &w, sizeof w);
+    r = course_untouched();
+    assert_int_equal(ntr_course_watch_push(&w, (double)NAN, 120.0, &r), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_course_watch_push(&w, 11.0, HUGE_VAL, &r), NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_course_watch_push(&w, 2e6, 120.0, &r), NTR_ERR_RANGE);
+    assert_int_equal(ntr_course_watch_push(&w, 11.0, 221.0, &r), NTR_ERR_RANGE);
+    assert_int_equal(ntr_course_watch_push(&w, 9.0, 121.0, &r), NTR_ERR_ORDER);
+    assert_int_equal(ntr_course_watch_push(&w, 9.0, 79.0, &r), NTR_ERR_RANGE);
+    assert_course_untouched(&r);
+    assert_memory_equal(&w, &copy, sizeof w);
+    /* A report struct smaller than 1.1 is refused before anything else. */
+    r.struct_size = sizeof r - 8;
+    {
+        ntr_course_report ref = r;
+        assert_int_equal(ntr_course_watch_push(&w, 11.0, 121.0, &r), NTR_ERR_ARG);
+        assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG);
+        assert_memory_equal(&r, &ref, sizeof r);
+    }
+    assert_memory_equal(&w, &copy, sizeof w);
+}
+
+/* Issue P1: a state whose counts or numbers were damaged is refused with
+ * NTR_ERR_ARG (never a NaN or infinite figure with NTR_OK). */
+static void course_watcher_refuses_damaged_states(void **state)
+{
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_watch fed, w;
+    ntr_course_report r = course_untouched();
+    const double bad_numbers[] = {(double)NAN, HUGE_VAL, -HUGE_VAL, 1e300};
+    size_t i, k;
+    (void)state;
+    assert_int_equal(ntr_course_watch_init(&lim, &fed), NTR_OK);
+    for (k = 0; k < 6; k++) {
+        (void)watch_push_ok(&fed, 2.0 * (double)k, 160.0 - (double)(k % 3));
+    }
+    for (i = 0; i < COUNT(bad_numbers); i++) {
+        const double x = bad_numbers[i];
+        int mode;
+        for (mode = 0; mode < 12; mode++) {
+            memcpy(&w, &fed, sizeof w);
+            switch (mode) {
+            case 0: w.first.na_mmol_l = x; break;
+            case 1: w.last.hours = x; break;
+            case 2: w.prev.na_mmol_l = x; break;
+            case 3: w.max_rise_24h = x; break;
+            case 4: w.max_fall_48h = x; break;
+            case 5: w.fall_first_24h = x; break;
+            case 6: w.at_fall_24h = x; break;
+            case 7: w.low.entry[(w.low.head + w.low.kept - 1u) % NTR_COURSE_WATCH_CAPACITY].na_mmol_l = x; break;
+            case 8: w.high.entry[w.high.head].hours = x; break;
+            case 9: w.limits.max_fall_24h = x; break;
+            case 10: w.rise_first_24h = x; break;
+            default: w.high.entry[w.high.head].na_mmol_l = x; break;
+            }
+            assert_int_equal(ntr_course_watch_push(&w, 20.0, 150.0, &r), NTR_ERR_ARG);
+            assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG);
+        }
+    }
+    /* Impossible counts and indices. */
+    for (k = 0; k < 8; k++) {
+        memcpy(&w, &fed, sizeof w);
+        switch (k) {
+        case 0: w.low.kept = NTR_COURSE_WATCH_CAPACITY + 1u; break;
+        case 1: w.high.head = NTR_COURSE_WATCH_CAPACITY; break;
+        case 2: w.low.front24 = w.low.kept; break;
+        case 3: w.high.front6 = w.high.front24 - 1u; w.high.front24 = w.high.kept - 1u; break;
+        case 4: w.seen = 3u; break;
+        case 5: w.approximate = 2u; break;
+        case 6: w.high.kept = 0u; break;
+        default: w.magic ^= 1u; break;
+        }
+        assert_int_equal(ntr_course_watch_push(&w, 20.0, 150.0, &r), NTR_ERR_ARG);
+        assert_int_equal(ntr_course_watch_result(&w, &r), NTR_ERR_ARG);
+    }
+    assert_course_untouched(&r);
+    /* The undamaged state still works. */
+    (void)watch_push_ok(&fed, 20.0, 150.0);
+}
+
+/* Issue P1: the 1.0 watcher gets the same number checks. */
+static void watcher_refuses_damaged_numbers(void **state)
+{
+    ntr_limits lim = standard();
+    ntr_watch fed, w;
+    ntr_correction c = untouched();
+    const double bad_numbers[] = {(double)NAN, HUGE_VAL, -HUGE_VAL, -1.0};
+    size_t i, k;
+    (void)state;
+    assert_int_equal(ntr_watch_init(&lim, &fed), NTR_OK);
+    for (k = 0; k < 6; k++) {
+        assert_int_equal(ntr_watch_push(&fed, 2.0 * (double)k, 118.0 + (double)k, &c), NTR_OK);
+    }
+    for (i = 0; i < COUNT(bad_numbers); i++) {
+        const double x = bad_numbers[i];
+        int mode;
+        for (mode = 0; mode < 7; mode++) {
+            memcpy(&w, &fed, sizeof w);
+            switch (mode) {
+            case 0: w.first.na_mmol_l = x; break;
+            case 1: w.last.hours = x == -1.0 ? 2e6 : x; break;
+            case 2: w.prev.na_mmol_l = x; break;
+            case 3: w.max_rise_24h = x; break;
+            case 4: w.max_rise_48h = x; break;
+            case 5: w.rise_first_24h = x; break;
+            default: w.ring[(w.head + w.kept - 1u) % NTR_WATCH_CAPACITY].na_mmol_l = x; break;
+            }
+            c = untouched();
+            assert_int_equal(ntr_watch_push(&w, 20.0, 130.0, &c), NTR_ERR_ARG);
+            assert_int_equal(ntr_watch_result(&w, &c), NTR_ERR_ARG);
+            assert_untouched(&c);
+        }
+    }
+}
+
+/* A stored course watcher (its bytes copied) carries on identically,
+ * through compaction too. */
+static void course_watcher_state_can_be_stored_and_restored(void **state)
+{
+    static ntr_sample s[72 * 4 + 1];
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_watch w, restored;
+    unsigned char bytes[sizeof(ntr_course_watch)];
+    size_t n = make_series(s, 0.25, 0), k;
+    (void)state;
+    /* Documented: 4072 bytes on 64-bit targets, 4064 on 32-bit ones. */
+    assert_true(sizeof(ntr_course_watch) == (sizeof(size_t) == 8 ? 4072u : 4064u));
+    assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+    for (k = 0; k < n / 2; k++) {
+        (void)watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+    }
+    memcpy(bytes, &w, sizeof w);
+    memcpy(&restored, bytes, sizeof restored);
+    for (; k < n; k++) {
+        ntr_course_report a = watch_push_ok(&w, s[k].hours, s[k].na_mmol_l);
+        ntr_course_report b = watch_push_ok(&restored, s[k].hours, s[k].na_mmol_l);
+        assert_same_course(&a, &b);
+        /* Rising 0.375-0.5 mmol/L/h: 9-12 a day, always over 10 at some point. */
+        if (k + 1 == n) {
+            assert_true((a.flags & NTR_CF_APPROXIMATE) != 0u);
+            assert_true((a.flags & NTR_CF_OVER_24H) != 0u);
+        }
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1032,6 +1888,27 @@ int main(void)
         cmocka_unit_test(watcher_rejects_bad_inputs),
         cmocka_unit_test(watcher_state_can_be_stored_and_restored),
         cmocka_unit_test(watcher_refuses_exactly_the_limits_init_refuses),
+        cmocka_unit_test(course_values_are_fixed),
+        cmocka_unit_test(course_presets_match_their_sources),
+        cmocka_unit_test(course_presets_reject_bad_arguments),
+        cmocka_unit_test(hypernatraemia_fall_of_25_in_24h_is_flagged),
+        cmocka_unit_test(hypernatraemia_fall_of_22_in_12h_is_flagged),
+        cmocka_unit_test(worsening_hyponatraemia_is_the_wrong_way),
+        cmocka_unit_test(wrong_way_margin_edges),
+        cmocka_unit_test(hold_cases),
+        cmocka_unit_test(course_target_only_when_asked),
+        cmocka_unit_test(correction_assess_is_the_course_engine),
+        cmocka_unit_test(course_assess_agrees_with_the_definitions),
+        cmocka_unit_test(course_assess_agrees_on_dense_series),
+        cmocka_unit_test(course_assess_rejects_bad_inputs),
+        cmocka_unit_test(course_watcher_equals_assess_on_random_series),
+        cmocka_unit_test(course_watcher_never_refuses_dense_series),
+        cmocka_unit_test(course_watcher_over_report_on_random_series),
+        cmocka_unit_test(course_watcher_capacity_is_as_documented),
+        cmocka_unit_test(course_watcher_rejects_bad_inputs),
+        cmocka_unit_test(course_watcher_refuses_damaged_states),
+        cmocka_unit_test(watcher_refuses_damaged_numbers),
+        cmocka_unit_test(course_watcher_state_can_be_stored_and_restored),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -7,11 +7,18 @@
  *            correction_oracle from tests/correction_oracle.h, the same
  *            code the unit test uses as its oracle
  *   watcher  ntr_watch_init + ntr_watch_push per sample (O(n) amortised)
- * Each round checks that the three agree, so the timing is of correct work.
+ * and, since 1.1, the direction-aware engine under the same limits (goal
+ * raise, no fall limit):
+ *   course   ntr_course_assess (both directions: about twice the work)
+ *   cwatch   ntr_course_watch_init + ntr_course_watch_push per sample
+ * The checks outside the timed loops confirm that they agree (the course
+ * watcher exactly while it has not compacted, never below after), so the
+ * timing is of correct work.
  *
  * Usage: bench_correction [rounds]   (default 5)
  * Prints, per series length, nanoseconds per series for each way and the
- * ratios pairwise/linear and watcher/linear (medians over the rounds).
+ * ratios pairwise/linear and watcher/linear (medians over the rounds), then
+ * course/linear and cwatch/linear.
  * Only the ratios mean anything across machines. */
 #define _POSIX_C_SOURCE 199309L
 #include <math.h>
@@ -65,6 +72,17 @@ static int same(const ntr_correction *a, const ntr_correction *b)
            a->excess_mmol_l == b->excess_mmol_l && a->flags == b->flags;
 }
 
+/* The course report against the exact one: equal unless the watcher
+ * compacted, then never below. */
+static int course_agrees(const ntr_course_report *exact, const ntr_course_report *w)
+{
+    if ((w->flags & NTR_CF_APPROXIMATE) == 0u) {
+        return memcmp(exact, w, sizeof *w) == 0;
+    }
+    return w->max_rise_24h >= exact->max_rise_24h && w->max_rise_48h >= exact->max_rise_48h &&
+           w->max_fall_24h >= exact->max_fall_24h && w->max_fall_48h >= exact->max_fall_48h;
+}
+
 static int cmp(const void *a, const void *b)
 {
     double x = *(const double *)a, y = *(const double *)b;
@@ -82,13 +100,17 @@ static int run(size_t n, size_t patients, double spacing_h, int rounds)
 {
     ntr_sample *s = malloc(sizeof *s * n * patients);
     ntr_limits lim;
+    ntr_course_limits clim;
     double t_lin[32], t_pair[32], t_watch[32], r_pair[32], r_watch[32];
+    double r_course[32], r_cwatch[32];
     volatile unsigned int sink = 0;
     int bad = 0;
     if (s == NULL) {
         return 1;
     }
     ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+    ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &clim);
+    clim.min_change_24h = lim.min_rise_24h; /* the 1.0 preset's target, so flags compare */
     make_series(s, patients, n, spacing_h);
     for (int r = 0; r < rounds; r++) {
         double t0 = now_ns();
@@ -113,6 +135,27 @@ static int run(size_t n, size_t patients, double spacing_h, int rounds)
             sink += c.flags;
         }
         double t3 = now_ns();
+        for (size_t p = 0; p < patients; p++) {
+            ntr_course_report c;
+            c.struct_size = sizeof c;
+            bad |= ntr_course_assess(s + p * n, n, &clim, &c) != NTR_OK;
+            sink += c.flags;
+        }
+        double t4 = now_ns();
+        for (size_t p = 0; p < patients; p++) {
+            ntr_course_watch w;
+            ntr_course_report c;
+            c.struct_size = sizeof c;
+            ntr_course_watch_init(&clim, &w);
+            for (size_t i = 0; i < n; i++) {
+                bad |= ntr_course_watch_push(&w, s[p * n + i].hours, s[p * n + i].na_mmol_l,
+                                             &c) != NTR_OK;
+            }
+            sink += c.flags;
+        }
+        double t5 = now_ns();
+        r_course[r] = (t4 - t3) / (t1 - t0);
+        r_cwatch[r] = (t5 - t4) / (t1 - t0);
         t_lin[r] = (t1 - t0) / (double)patients;
         t_pair[r] = (t2 - t1) / (double)patients;
         t_watch[r] = (t3 - t2) / (double)patients;
@@ -129,10 +172,24 @@ static int run(size_t n, size_t patients, double spacing_h, int rounds)
             ntr_watch_push(&w, s[p * n + i].hours, s[p * n + i].na_mmol_l, &c);
         }
         bad |= !same(&a, &b) || !same(&a, &c);
+        {
+            ntr_course_report exact, streamed;
+            ntr_course_watch cw;
+            exact.struct_size = sizeof exact;
+            streamed.struct_size = sizeof streamed;
+            ntr_course_assess(s + p * n, n, &clim, &exact);
+            ntr_course_watch_init(&clim, &cw);
+            for (size_t i = 0; i < n; i++) {
+                ntr_course_watch_push(&cw, s[p * n + i].hours, s[p * n + i].na_mmol_l, &streamed);
+            }
+            bad |= exact.max_rise_24h != a.max_rise_24h || exact.max_rise_48h != a.max_rise_48h ||
+                   (exact.flags & NTR_CF_ALL) != a.flags || !course_agrees(&exact, &streamed);
+        }
     }
-    printf("%7zu %9zu %12.1f %12.1f %12.1f %10.2f %10.2f%s\n", n, patients,
+    printf("%7zu %9zu %12.1f %12.1f %12.1f %10.2f %10.2f %11.2f %11.2f%s\n", n, patients,
            median(t_lin, rounds), median(t_pair, rounds), median(t_watch, rounds),
-           median(r_pair, rounds), median(r_watch, rounds), bad ? "  DISAGREE" : "");
+           median(r_pair, rounds), median(r_watch, rounds), median(r_course, rounds),
+           median(r_cwatch, rounds), bad ? "  DISAGREE" : "");
     free(s);
     (void)sink;
     return bad;
@@ -147,7 +204,8 @@ int main(int argc, char **argv)
         return 2;
     }
     printf("# ns per series (median of %d rounds); ratios are per-round medians\n", rounds);
-    printf("#     n  patients       linear     pairwise      watcher  pair/lin  watch/lin\n");
+    printf("#     n  patients       linear     pairwise      watcher  pair/lin  watch/lin"
+           " course/lin cwatch/lin\n");
     /* A cohort: a dozen results per admission, a few hours apart. */
     bad |= run(12, 200000, 6.0, rounds);
     bad |= run(48, 50000, 2.0, rounds);

@@ -1115,6 +1115,472 @@ static void extra_series(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_c
     judge(f, &c, NTRC_KIND_SERIES);
 }
 
+/* ---- course limits and assessment (1.1, both directions) ---------------------------- */
+
+#define COURSE_NUMS                                                                     \
+    {"max_rise_24h", 0.0, 50.0, 0}, {"max_rise_48h", 0.0, 50.0, 0},                     \
+    {"max_fall_24h", 0.0, 50.0, 0}, {"max_fall_48h", 0.0, 50.0, 0},                     \
+    {"min_change_24h", 0.0, 50.0, 0}
+/* en[] of ntr_course_assess: the goal, then the two struct sizes (as for
+ * the SIAD structs: 0 right, 2 larger, 1 one byte short, -1 zero). */
+#define COURSE_ENUMS                                                                    \
+    {"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},          \
+    {"limits_struct_size", NTR_ERR_ARG, 2, {0, 2}},                                     \
+    {"report_struct_size", NTR_ERR_ARG, 2, {0, 2}}
+
+static void course_limits_from(const ntrc_case *c, ntr_course_limits *lim)
+{
+    lim->struct_size = siad_size(c->en[1], sizeof *lim);
+    lim->goal = c->en[0];
+    lim->max_rise_24h = c->num[0];
+    lim->max_rise_48h = c->num[1];
+    lim->max_fall_24h = c->num[2];
+    lim->max_fall_48h = c->num[3];
+    lim->min_change_24h = c->num[4];
+}
+
+static int course_pair_ok(double a24, double a48)
+{
+    return a24 <= 0.0 || a48 <= 0.0 || a24 <= a48;
+}
+
+/* The numeric checks of course limits, as the header documents them. */
+static int course_limits_status(int goal, const double *x)
+{
+    int i, st;
+    for (i = 0; i < 5; i++) {
+        if ((st = check_value(x[i], 0.0, 50.0)) != NTR_OK) {
+            return st;
+        }
+    }
+    if (!course_pair_ok(x[0], x[1]) || !course_pair_ok(x[2], x[3])) {
+        return NTR_ERR_RANGE;
+    }
+    if (goal == NTR_GOAL_HOLD) {
+        return x[4] > 0.0 ? NTR_ERR_RANGE : NTR_OK;
+    }
+    i = goal == NTR_GOAL_RAISE ? 0 : 2;
+    return course_pair_ok(x[4], x[i]) && course_pair_ok(x[4], x[i + 1]) ? NTR_OK : NTR_ERR_RANGE;
+}
+
+static void prepare_course(ntrc_case *c)
+{
+    c->out.s.course.struct_size = siad_size(c->en[2], sizeof c->out.s.course);
+}
+
+static int call_course_assess(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    course_limits_from(c, &lim);
+    return ntr_course_assess(in_null(c, 0) ? NULL : c->samples, c->n,
+                             in_null(c, 1) ? NULL : &lim,
+                             in_null(c, 2) ? NULL : &c->out.s.course);
+}
+
+static int predict_course_assess(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st, i;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (c->n == 0) {
+        return NTR_ERR_ARG;
+    }
+    for (i = 0; i < 3; i++) {
+        if (!ntrc_enum_is_valid(f, i, c->en[i])) {
+            return NTR_ERR_ARG;
+        }
+    }
+    if ((st = samples_status(c->samples, c->n)) != NTR_OK ||
+        (st = course_limits_status(c->en[0], c->num)) != NTR_OK) {
+        return st;
+    }
+    return samples_sorted(c->samples, c->n) ? NTR_OK : NTR_ERR_ORDER;
+}
+
+/* Largest fall over pairs i < j at most w hours apart, by brute force. */
+static double brute_fall(const ntr_sample *s, size_t n, double w)
+{
+    double best = 0.0;
+    size_t i;
+    size_t j;
+    for (i = 0; i < n; i++) {
+        for (j = i + 1; j < n; j++) {
+            if (s[j].hours - s[i].hours <= w && s[i].na_mmol_l - s[j].na_mmol_l > best) {
+                best = s[i].na_mmol_l - s[j].na_mmol_l;
+            }
+        }
+    }
+    return best;
+}
+
+static int fall_ok(double got, const ntr_sample *s, size_t n, double w)
+{
+    return got >= brute_fall(s, n, w - 1e-5) && got <= brute_fall(s, n, w + 1e-5);
+}
+
+static const char *judge_course(const ntr_course_report *r, const ntr_sample *s, size_t n,
+                                const ntr_course_limits *lim)
+{
+    const double v[] = {r->max_rise_24h, r->max_rise_48h, r->max_fall_24h, r->max_fall_48h,
+                        r->excess_mmol_l, r->rise_first_24h, r->fall_first_24h,
+                        r->rise_now_24h, r->fall_now_24h};
+    size_t i;
+    for (i = 0; i < sizeof v / sizeof v[0]; i++) {
+        if (!within(v[i], 0.0, 140.0)) {
+            return "a change outside [0, 140] or not finite";
+        }
+    }
+    if (!isfinite(r->last_rate_per_h) || !isfinite(r->elapsed_h) || !isfinite(r->worst_at_h)) {
+        return "a non-finite field";
+    }
+    if ((r->flags & ~NTR_CF_COURSE_ALL) != 0u || r->reserved != 0u ||
+        r->struct_size != sizeof *r) {
+        return "undefined flag bits, reserved field or struct_size wrong";
+    }
+    if (!rise_ok(r->max_rise_24h, s, n, 24.0, 0) || !rise_ok(r->max_rise_48h, s, n, 48.0, 0) ||
+        !fall_ok(r->max_fall_24h, s, n, 24.0) || !fall_ok(r->max_fall_48h, s, n, 48.0)) {
+        return "window change differs from the brute-force maximum";
+    }
+    if (((r->flags & NTR_CF_FALL_OVER_24H) != 0u) !=
+        (lim->max_fall_24h > 0.0 && r->max_fall_24h > lim->max_fall_24h + NTR_CF_TOLERANCE)) {
+        return "24 h fall flag disagrees with the fall";
+    }
+    if (((r->flags & NTR_CF_OVER_24H) != 0u) !=
+        (lim->max_rise_24h > 0.0 && r->max_rise_24h > lim->max_rise_24h + NTR_CF_TOLERANCE)) {
+        return "24 h rise flag disagrees with the rise";
+    }
+    if ((r->excess_mmol_l > 0.0) != (r->worst_at_h != NTR_COURSE_NO_TIME)) {
+        return "worst window time without an excess, or an excess without it";
+    }
+    if ((r->flags & NTR_CF_APPROXIMATE) != 0u) {
+        return "an assessment of a whole series marked approximate";
+    }
+    return NULL;
+}
+
+static const char *ok_course_assess(const ntrc_case *c)
+{
+    ntr_course_limits lim;
+    course_limits_from(c, &lim);
+    return judge_course(&c->out.s.course, c->samples, c->n, &lim);
+}
+
+static int results_course_report(const ntrc_case *c, double *v, int max)
+{
+    const ntr_course_report *r = &c->out.s.course;
+    if (max < 14) {
+        return 0;
+    }
+    v[0] = r->max_rise_24h;
+    v[1] = r->max_rise_48h;
+    v[2] = r->max_fall_24h;
+    v[3] = r->max_fall_48h;
+    v[4] = r->excess_mmol_l;
+    v[5] = r->flags;
+    v[6] = r->rise_first_24h;
+    v[7] = r->fall_first_24h;
+    v[8] = r->rise_now_24h;
+    v[9] = r->fall_now_24h;
+    v[10] = r->last_rate_per_h;
+    v[11] = r->elapsed_h;
+    v[12] = r->worst_at_h;
+    v[13] = (double)r->struct_size;
+    return 14;
+}
+
+static void extra_course_series(const ntrc_fn *f,
+                                void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    /* n = 0; one sample; a falling series over the fall limit. */
+    ntrc_baseline(f, &c);
+    c.n = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.n = 1;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[3].na_mmol_l = 100.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    /* Contradicting limits: 24 h above 48 h per direction; targets above a
+     * ceiling; a target on a hold. */
+    ntrc_baseline(f, &c);
+    c.num[0] = 20.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[2] = 30.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[4] = 11.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.en[0] = NTR_GOAL_HOLD;
+    c.num[4] = 1.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    /* Unsorted, with a bad limit (which must win). */
+    ntrc_baseline(f, &c);
+    c.samples[1].hours = 50.0;
+    judge(f, &c, NTRC_KIND_ORDER);
+    c.num[3] = NAN;
+    judge(f, &c, NTRC_KIND_ORDER);
+}
+
+static int call_course_limits_preset(ntrc_case *c)
+{
+    return ntr_course_limits_preset(c->en[0], in_null(c, 0) ? NULL : &c->out.s.clim);
+}
+
+static const char *ok_course_limits_preset(const ntrc_case *c)
+{
+    const ntr_course_limits *l = &c->out.s.clim;
+    double x[5];
+    x[0] = l->max_rise_24h;
+    x[1] = l->max_rise_48h;
+    x[2] = l->max_fall_24h;
+    x[3] = l->max_fall_48h;
+    x[4] = l->min_change_24h;
+    if (l->struct_size != sizeof *l || l->min_change_24h != 0.0) {
+        return "struct_size not set or a target in a preset";
+    }
+    return course_limits_status(l->goal, x) == NTR_OK ? NULL : "preset limits are not valid";
+}
+
+static int results_course_limits(const ntrc_case *c, double *v, int max)
+{
+    const ntr_course_limits *l = &c->out.s.clim;
+    if (max < 6) {
+        return 0;
+    }
+    v[0] = l->goal;
+    v[1] = l->max_rise_24h;
+    v[2] = l->max_rise_48h;
+    v[3] = l->max_fall_24h;
+    v[4] = l->max_fall_48h;
+    v[5] = l->min_change_24h;
+    return 6;
+}
+
+/* ---- course watcher (1.1) ---------------------------------------------------------- */
+
+/* en[0] of the course watch entries: 0 an intact state; 1 never
+ * initialised (zeroed); 2 a broken marker; 3 a kept count beyond the ring;
+ * 4 all bytes 0xff; 5-8 one inconsistent private member each; 9-11 a
+ * stored number NaN, infinite or out of range. en[1]: the report's
+ * struct_size (as for the SIAD structs). */
+static void damage_course_watch(ntr_course_watch *w, int mode)
+{
+    switch (mode) {
+    case 0: break;
+    case 1: memset(w, 0, sizeof *w); break;
+    case 2: w->magic ^= 0x10101010u; break;
+    case 3: w->low.kept = NTR_COURSE_WATCH_CAPACITY + 5u; break;
+    case 4: memset(w, 0xff, sizeof *w); break;
+    case 5:
+        if (w->high.kept > 0u) {
+            w->high.front24 = w->high.kept;
+        } else {
+            w->seen = 1u;
+        }
+        break;
+    case 6: w->seen = w->low.kept > 0u ? 0u : 2u; break;
+    case 7: w->limits.goal = 7; break;
+    case 8: w->high.head = NTR_COURSE_WATCH_CAPACITY; break;
+    case 9: w->max_fall_24h = NAN; break;
+    case 10: w->rise_first_24h = HUGE_VAL; break;
+    default: w->limits.max_rise_24h = -1.0; break;
+    }
+}
+
+#define COURSE_WATCH_MODES                                                              \
+    {"watch_state", NTR_ERR_ARG, 1, {0}}, {"report_struct_size", NTR_ERR_ARG, 2, {0, 2}}
+
+static void prime_course_watch(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    ntr_course_report out;
+    size_t i;
+    size_t kept = 0;
+    (void)ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    memset(&c->cwatch, 0, sizeof c->cwatch); /* every byte defined for the comparisons */
+    (void)ntr_course_watch_init(&lim, &c->cwatch);
+    out.struct_size = sizeof out;
+    for (i = 0; i < c->n; i++) {
+        if (ntr_course_watch_push(&c->cwatch, c->samples[i].hours, c->samples[i].na_mmol_l,
+                                  &out) == NTR_OK) {
+            c->samples[kept++] = c->samples[i];
+        }
+    }
+    c->n = kept;
+    c->cwatch_clean = c->cwatch;
+}
+
+static void prepare_course_watch(ntrc_case *c)
+{
+    c->cwatch = c->cwatch_clean;
+    damage_course_watch(&c->cwatch, c->en[0]);
+    c->out.s.course.struct_size = siad_size(c->en[1], sizeof c->out.s.course);
+}
+
+static void base_course_watch(ntrc_case *c)
+{
+    base_samples(c);
+    c->n = 4; /* the pushed sample comes after hour 12 */
+    prime_course_watch(c);
+}
+
+static void fuzz_course_watch(ntrc_case *c, ntrc_source *src)
+{
+    fuzz_samples(c, src);
+    prime_course_watch(c);
+}
+
+static int call_course_watch_init(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    course_limits_from(c, &lim);
+    return ntr_course_watch_init(in_null(c, 0) ? NULL : &lim,
+                                 in_null(c, 1) ? NULL : &c->out.s.cwatch);
+}
+
+static int predict_course_watch_init(const ntrc_fn *f, const ntrc_case *c)
+{
+    int i;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    for (i = 0; i < 2; i++) {
+        if (!ntrc_enum_is_valid(f, i, c->en[i])) {
+            return NTR_ERR_ARG;
+        }
+    }
+    return course_limits_status(c->en[0], c->num);
+}
+
+static const char *ok_course_watch_init(const ntrc_case *c)
+{
+    ntr_course_report r;
+    ntr_course_watch w = c->out.s.cwatch;
+    r.struct_size = sizeof r;
+    return ntr_course_watch_result(&w, &r) == NTR_ERR_ARG ? NULL
+                                                          : "fresh course watcher reports a result";
+}
+
+static int results_course_watch_init(const ntrc_case *c, double *v, int max)
+{
+    static ntrc_case probe; /* large: kept off the stack */
+    ntr_course_watch w = c->out.s.cwatch;
+    probe.out.s.course.struct_size = sizeof probe.out.s.course;
+    if (ntr_course_watch_push(&w, 0.0, 120.0, &probe.out.s.course) != NTR_OK) {
+        return 0;
+    }
+    return results_course_report(&probe, v, max);
+}
+
+static int call_course_watch_push(ntrc_case *c)
+{
+    return ntr_course_watch_push(in_null(c, 0) ? NULL : &c->cwatch, c->num[0], c->num[1],
+                                 in_null(c, 1) ? NULL : &c->out.s.course);
+}
+
+static int predict_course_watch_push(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (!ntrc_enum_is_valid(f, 0, c->en[0]) || !ntrc_enum_is_valid(f, 1, c->en[1])) {
+        return NTR_ERR_ARG;
+    }
+    if ((st = check_value(c->num[0], -1e6, 1e6)) != NTR_OK ||
+        (st = check_value(c->num[1], 80.0, 220.0)) != NTR_OK) {
+        return st;
+    }
+    if (c->n > 0 && c->num[0] < c->samples[c->n - 1].hours) {
+        return NTR_ERR_ORDER;
+    }
+    return NTR_OK;
+}
+
+/* While its memory holds (always, for series this short), the watcher
+ * equals ntr_course_assess over the same samples bit for bit. */
+static const char *same_as_course_assess(const ntr_course_report *got, const ntr_sample *s,
+                                         size_t n)
+{
+    ntr_course_limits lim;
+    ntr_course_report want;
+    (void)ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    want.struct_size = sizeof want;
+    if (ntr_course_assess(s, n, &lim, &want) != NTR_OK) {
+        return "ntr_course_assess rejects the series the course watcher accepted";
+    }
+    if (memcmp(&want, got, sizeof want) != 0) {
+        return "course watcher differs from ntr_course_assess on the same series";
+    }
+    return judge_course(got, s, n, &lim);
+}
+
+static const char *ok_course_watch_push(const ntrc_case *c)
+{
+    ntr_sample s[NTRC_MAX_SERIES + 1];
+    memcpy(s, c->samples, c->n * sizeof s[0]);
+    s[c->n].hours = c->num[0];
+    s[c->n].na_mmol_l = c->num[1];
+    return same_as_course_assess(&c->out.s.course, s, c->n + 1);
+}
+
+static int call_course_watch_result(ntrc_case *c)
+{
+    return ntr_course_watch_result(in_null(c, 0) ? NULL : &c->cwatch,
+                                   in_null(c, 1) ? NULL : &c->out.s.course);
+}
+
+static int predict_course_watch_result(const ntrc_fn *f, const ntrc_case *c)
+{
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (!ntrc_enum_is_valid(f, 0, c->en[0]) || !ntrc_enum_is_valid(f, 1, c->en[1]) ||
+        c->n == 0) {
+        return NTR_ERR_ARG;
+    }
+    return NTR_OK;
+}
+
+static const char *ok_course_watch_result(const ntrc_case *c)
+{
+    return same_as_course_assess(&c->out.s.course, c->samples, c->n);
+}
+
+static void extra_course_watch(const ntrc_fn *f,
+                               void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    int mode;
+    ntrc_baseline(f, &c);
+    c.n = 0;
+    prime_course_watch(&c);
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (mode = 1; mode <= 11; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[0] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+}
+
+static void extra_course_watch_push(const ntrc_fn *f,
+                                    void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    extra_course_watch(f, judge);
+    ntrc_baseline(f, &c);
+    c.num[0] = c.samples[c.n - 1].hours - 0.25;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[0] = c.samples[c.n - 1].hours;
+    judge(f, &c, NTRC_KIND_SERIES);
+}
+
 /* ---- streaming watcher ------------------------------------------------------------ */
 
 /* en[0] of the watch entries: 0 an intact state; 1 never initialised
@@ -2413,6 +2879,37 @@ const ntrc_fn ntrc_functions[] = {
      .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {0},
      .predict = predict_watch_result, .base_series = base_watch, .fuzz_series = fuzz_watch,
      .prepare_out = prepare_watch, .results = results_correction, .extra_cases = extra_watch, .check_ok = ok_watch_result},
+    {CALL(course_limits_preset), .n_enum = 1,
+     .en = {{"preset", NTR_ERR_ARG, 5, {1, 2, 3, 4, 5}}}, .n_in_ptr = 1,
+     .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {NTR_COURSE_HYPER_CHRONIC},
+     .results = results_course_limits, .check_ok = ok_course_limits_preset},
+    {CALL(course_assess), .n_enum = 3, .en = {COURSE_ENUMS}, .n_num = 5, .num = {COURSE_NUMS},
+     .n_in_ptr = 3, .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER),
+     .base_num = {10.0, 18.0, 10.0, 0.0, 4.0}, .base_en = {NTR_GOAL_RAISE, 0, 0},
+     .predict = predict_course_assess, .base_series = base_samples,
+     .fuzz_series = fuzz_samples, .prepare_out = prepare_course,
+     .results = results_course_report, .extra_cases = extra_course_series,
+     .check_ok = ok_course_assess},
+    {CALL(course_watch_init), .n_enum = 2,
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            {"limits_struct_size", NTR_ERR_ARG, 2, {0, 2}}},
+     .n_num = 5, .num = {COURSE_NUMS}, .n_in_ptr = 2, .statuses = OK_COMMON | ST(ERR_ARG),
+     .base_num = {10.0, 18.0, 10.0, 0.0, 4.0}, .base_en = {NTR_GOAL_RAISE, 0},
+     .predict = predict_course_watch_init, .results = results_course_watch_init,
+     .check_ok = ok_course_watch_init},
+    {CALL(course_watch_push), .n_enum = 2, .en = {COURSE_WATCH_MODES}, .n_num = 2,
+     .num = {{"hours", -1e6, 1e6, 0}, NA}, .n_in_ptr = 2,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER), .base_num = {20.0, 124.5},
+     .base_en = {0, 0}, .predict = predict_course_watch_push, .base_series = base_course_watch,
+     .fuzz_series = fuzz_course_watch, .prepare_out = prepare_course_watch,
+     .mutates_input = 1, .results = results_course_report,
+     .extra_cases = extra_course_watch_push, .check_ok = ok_course_watch_push},
+    {CALL(course_watch_result), .n_enum = 2, .en = {COURSE_WATCH_MODES}, .n_in_ptr = 2,
+     .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {0, 0},
+     .predict = predict_course_watch_result, .base_series = base_course_watch,
+     .fuzz_series = fuzz_course_watch, .prepare_out = prepare_course_watch,
+     .results = results_course_report, .extra_cases = extra_course_watch,
+     .check_ok = ok_course_watch_result},
     /* balance */
     {CALL(balance_predict), .n_num = 2, .num = {NA, TBW}, .n_out_d = 2, .n_in_ptr = 1,
      .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {118.0, 35.0},

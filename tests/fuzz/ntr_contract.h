@@ -57,6 +57,9 @@ typedef struct ntrc_outs {
         ntr_siad_findings findings;
         ntr_siad_result siad;
         ntr_watch watch;
+        ntr_course_limits clim;
+        ntr_course_report course;
+        ntr_course_watch cwatch;
         struct {
             ntr_correction out[8];
             int status[8];
@@ -81,6 +84,8 @@ typedef struct ntrc_case {
     ntr_siad_findings findings;
     ntr_watch watch;        /* input state of ntr_watch_push/result */
     ntr_watch watch_clean;  /* the same before any deliberate damage */
+    ntr_course_watch cwatch;       /* input state of ntr_course_watch_push/result */
+    ntr_course_watch cwatch_clean; /* the same before any deliberate damage */
     ntrc_outs out;
 } ntrc_case;
 
