@@ -2273,6 +2273,46 @@ typedef struct ntr_plan_result {
     unsigned int reserved;  /**< Written as 0. */
 } ntr_plan_result;
 
+/** @name Direction of a predicted breach (ntr_course_plan_result; ABI, since 1.1)
+ *  @{ */
+#define NTR_PLAN_BREACH_NONE 0 /**< No predicted point is over any limit. */
+#define NTR_PLAN_BREACH_RISE 1 /**< The first breach is of a rise limit (24 h or 48 h). */
+#define NTR_PLAN_BREACH_FALL 2 /**< The first breach is of a fall limit (24 h or 48 h). */
+/** @} */
+
+/**
+ * @brief Verdict of ntr_course_plan_check() (ABI since 1.1).
+ *
+ * Set @c struct_size to sizeof(ntr_course_plan_result) before the call: a
+ * smaller value is refused with NTR_ERR_ARG and nothing is written; on
+ * success it is set to the size this library fills (the 1.1 size). The
+ * report @c course is the last member so that a later, larger
+ * ntr_course_report only lengthens this struct at its end: the members
+ * before it keep their offsets in every 1.x.
+ *
+ * Breach times are hours after the plan starts (plan time 0 is the last
+ * measured sample) of the first predicted point whose window ending at it
+ * is over that limit; @ref NTR_PLAN_NO_BREACH when none is, and always for
+ * a limit of 0 (no limit).
+ */
+typedef struct ntr_course_plan_result {
+    size_t struct_size;         /**< sizeof(ntr_course_plan_result) as the caller knows it; set on success. */
+    double final_na_mmol_l;     /**< Predicted sodium at the end of the plan, mmol/L. */
+    double final_tbw_l;         /**< Predicted body water at the end of the plan, L. */
+    double breach_rise_24h_h;   /**< First predicted point over the 24 h rise limit, or NTR_PLAN_NO_BREACH. */
+    double breach_rise_48h_h;   /**< The same for the 48 h rise limit. */
+    double breach_fall_24h_h;   /**< The same for the 24 h fall limit. */
+    double breach_fall_48h_h;   /**< The same for the 48 h fall limit. */
+    double first_breach_h;      /**< The earliest of the four, or NTR_PLAN_NO_BREACH. */
+    unsigned int first_breach_flag; /**< The limit breached first, as its flag: NTR_CF_OVER_24H,
+                                         NTR_CF_OVER_48H, NTR_CF_FALL_OVER_24H or
+                                         NTR_CF_FALL_OVER_48H (ties in that order); 0 for none. */
+    int first_breach_direction; /**< NTR_PLAN_BREACH_NONE, _RISE or _FALL (of first_breach_flag). */
+    unsigned int points;        /**< Predicted points checked (the history not counted). */
+    unsigned int reserved;      /**< Written as 0. */
+    ntr_course_report course;   /**< ntr_course_assess() of history + predicted series (struct_size set). */
+} ntr_course_plan_result;
+
 /**
  * @brief Sodium and body water after a set of fluid gains and losses.
  *
@@ -2360,6 +2400,11 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  * predicted point whose 24 h or 48 h window rise exceeds the limit.
  * No buffer is needed; the cost is O((n_history + points) * n_flows).
  *
+ * It judges rises only: a plan that lowers sodium too fast (free water in
+ * hypernatraemia, or a hyponatraemia worsening) is not flagged. For
+ * either direction use ntr_course_plan_check() (since 1.1), which gives
+ * these same rise breach times under the same rise limits.
+ *
  * @param history   measured samples, as in ntr_correction_assess(); the
  *                  last one is the sodium now.
  * @param n_history at least 1.
@@ -2387,6 +2432,66 @@ NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
                            double tbw_l, const ntr_timed_flow *flows,
                            size_t n_flows, double duration_h, double step_h,
                            const ntr_limits *lim, ntr_plan_result *out);
+
+/**
+ * @brief Check a fluid plan against limits in both directions (since 1.1).
+ *
+ * The direction-aware ntr_plan_check(): the same series (the measured
+ * history, whose last sample is "now", plan time 0, then the points of
+ * ntr_balance_course() after time 0 placed at t_last + tau) assessed with
+ * ntr_course_assess() under @p lim, so a rise or fall already measured
+ * counts against the limits. For each of the four limits it reports the
+ * first predicted point whose window ending at it is over that limit (the
+ * window's figure exceeds the limit by more than @ref NTR_CF_TOLERANCE,
+ * as for the flags), and the earliest of those with its direction. Use it
+ * for hypernatraemia (a water plan against the fall limits, for example
+ * @ref NTR_COURSE_HYPER_CHRONIC), hyponatraemia (as ntr_plan_check(), and
+ * a plan that lowers sodium is caught too) and holding a sodium steady
+ * (@ref NTR_GOAL_HOLD). With the 1.0 limits written as course limits
+ * (goal raise, the same rise limits, no fall limit) the rise breach times
+ * equal ntr_plan_check()'s breach_24h_h and breach_48h_h (tested).
+ * No buffer is needed; the cost is O((n_history + points) * n_flows).
+ *
+ * @param history   measured samples, as in ntr_course_assess(); the last
+ *                  one is the sodium now.
+ * @param n_history at least 1.
+ * @param tbw_l     body water now, 0.1 to 400 L.
+ * @param flows     the plan, as in ntr_balance_course() (times are hours
+ *                  after now; may be NULL when @p n_flows is 0).
+ * @param n_flows   number of flows.
+ * @param duration_h how far ahead to predict, above 0 and at most 720 h.
+ * @param step_h    spacing of the predicted points, 1/60 to 720 h.
+ * @param lim       course limits, as in ntr_course_assess().
+ * @param[in,out] out the verdict; struct_size set by the caller.
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p history, @p lim or @p out is NULL, or
+ *                           @p flows with flows to read.
+ * @retval NTR_ERR_ARG       @p n_history is 0, lim->struct_size or
+ *                           out->struct_size is below the 1.1 size,
+ *                           lim->goal is not an NTR_GOAL_* value, or a
+ *                           flow's reserved field is not 0.
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history (each sample:
+ *                           hours, sodium), body water, flows (each in
+ *                           struct order), duration, step, then the limits
+ *                           (as in ntr_course_assess()).
+ * @retval NTR_ERR_ORDER     history out of time order, or a flow ending
+ *                           before it starts.
+ * @retval NTR_ERR_DOMAIN    a predicted point leaves the model's range (as
+ *                           in ntr_balance_course()).
+ * Checks run: pointers; n_history, lim->struct_size, lim->goal,
+ * out->struct_size, reserved fields; history, body water, flows, duration,
+ * step, limits; time order; domain.
+ *
+ * References: as ntr_balance_predict() and ntr_course_assess() (Adrogue HJ,
+ * Madias NE. Hypernatremia. N Engl J Med 2000;342:1493-9 for the falls).
+ * Methods: @ref NTR_METHOD_PLAN_CHECK, @ref NTR_METHOD_BALANCE_COURSE,
+ * @ref NTR_METHOD_COURSE_WINDOWS.
+ */
+NTR_API int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
+                                  double tbw_l, const ntr_timed_flow *flows,
+                                  size_t n_flows, double duration_h,
+                                  double step_h, const ntr_course_limits *lim,
+                                  ntr_course_plan_result *out);
 
 /**
  * @brief Fluid needed to bring sodium back down after overcorrection.
@@ -2452,6 +2557,9 @@ NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
 /**
  * @brief Assess many sodium series at once (one per patient), CSR style.
  *
+ * Rises only, as ntr_correction_assess(); for falls as well use
+ * ntr_batch_course_assess() (since 1.1).
+ *
  * Group g is the series samples[offsets[g]] to samples[offsets[g+1] - 1];
  * out[g] and status[g] are exactly what ntr_correction_assess() returns for
  * it (see that function for the equations, flags and per-series checks).
@@ -2488,6 +2596,58 @@ NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
                                         size_t n_samples, const ntr_limits *lim,
                                         ntr_correction *out, int *status,
                                         size_t *failed);
+
+/**
+ * @brief Assess many sodium series at once against course limits, CSR
+ *        style (since 1.1).
+ *
+ * The direction-aware ntr_batch_correction_assess(). Group g is the series
+ * samples[offsets[g]] to samples[offsets[g+1] - 1]; its report and
+ * status[g] are exactly what ntr_course_assess() returns for it (see that
+ * function for the equations, flags and per-series checks). A group whose
+ * status is not NTR_OK gets NaN in every double member of its report, 0 in
+ * flags and reserved. An empty group gets @ref NTR_ERR_ARG, as n == 0 does
+ * in the scalar call; limits that the scalar call refuses (struct_size,
+ * goal, values) fail every group with that status.
+ *
+ * Reports are written @p report_size bytes apart: pass
+ * sizeof(ntr_course_report). A caller built against a later header with a
+ * larger report passes its own size, and the array is then still walked
+ * correctly; each written report has struct_size set to the size this
+ * library fills (the 1.1 size), as in ntr_course_assess().
+ *
+ * @param groups      number of series.
+ * @param offsets     groups + 1 indices into @p samples, non-decreasing, the
+ *                    last at most @p n_samples (offsets[0] need not be 0).
+ * @param samples     all series back to back, each in non-decreasing time;
+ *                    hours -1e6 to 1e6, sodium 80 to 220 mmol/L.
+ * @param n_samples   number of elements of @p samples (a bound for offsets).
+ * @param lim         limits for every series, as in ntr_course_assess().
+ * @param report_size bytes from one report to the next: at least the 1.1
+ *                    sizeof(ntr_course_report) and a multiple of its
+ *                    alignment.
+ * @param[out] out     @p groups reports, @p report_size bytes apart.
+ * @param[out] status  @p groups statuses: NTR_OK, NTR_ERR_ARG (empty group,
+ *                     or the limits' struct_size or goal), NTR_ERR_NONFINITE,
+ *                     NTR_ERR_RANGE (a sample or the limits), NTR_ERR_ORDER.
+ * @param[out] failed  optional (may be NULL): number of failed groups.
+ * @return NTR_OK; NTR_ERR_NULL (a required pointer is NULL, checked even
+ *         when @p groups is 0); NTR_ERR_ARG (@p report_size too small or
+ *         misaligned, or offsets decrease or pass @p n_samples: nothing is
+ *         written); otherwise the status of the first failed group.
+ *
+ * Cost: linear in the number of samples; no allocation.
+ *
+ * References: as ntr_course_assess().
+ * Methods: @ref NTR_METHOD_COURSE_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
+ * @ref NTR_METHOD_RULE_OF_SIXES, @ref NTR_METHOD_COURSE_WRONG_WAY.
+ */
+NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
+                                    const ntr_sample *samples,
+                                    size_t n_samples,
+                                    const ntr_course_limits *lim,
+                                    size_t report_size, ntr_course_report *out,
+                                    int *status, size_t *failed);
 /** @} */
 
 /* ======================================================================= */

@@ -220,9 +220,9 @@ int ntr_balance_course(double na_mmol_l, double tbw_l,
     return NTR_OK;
 }
 
-/* ---- plan check ------------------------------------------------------------- */
+/* ---- plan checks ------------------------------------------------------------ */
 
-/* The series the plan check assesses: the history, then the points of the
+/* The series a plan check assesses: the history, then the points of the
  * plan after its start, placed after the last measured sample. */
 static ntr_sample plan_point(const void *ctx, size_t i)
 {
@@ -248,52 +248,160 @@ static double breach_time(const struct plan *p, size_t index)
     return plan_offset(p, index - p->n_history + 1);
 }
 
-int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
-                   const ntr_timed_flow *flows, size_t n_flows,
-                   double duration_h, double step_h, const ntr_limits *lim,
-                   ntr_plan_result *out)
-{
+/* A plan ready to be assessed: the plan, the series of history and
+ * predicted points, and the state at its end. */
+struct plan_run {
     struct plan p;
     ntri_series v;
-    ntri_breach breach;
-    ntr_correction course;
-    double final_na, final_tbw;
-    int history_order;
+    double final_na;
+    double final_tbw;
+};
 
-    if (history == NULL || lim == NULL || out == NULL ||
-        (flows == NULL && n_flows > 0)) {
-        return NTR_ERR_NULL;
-    }
+/*
+ * Everything both plan checks do but the assessment, whose limits differ
+ * in type (ntr_limits, ntr_course_limits): the checks in the documented
+ * order, the prediction and the series. The caller checks its own limits
+ * and output first, since the checks are pure, and passes the verdicts:
+ * kind_status (NTR_ERR_ARG checks) in the counts stage, values_status
+ * (numeric limit checks) after the plan's numbers. Pointers are checked
+ * by the caller.
+ */
+static int plan_run_start(struct plan_run *run, const ntr_sample *history,
+                          size_t n_history, double tbw_l,
+                          const ntr_timed_flow *flows, size_t n_flows,
+                          double duration_h, double step_h, int kind_status,
+                          int values_status)
+{
+    int history_order;
     if (n_history == 0) {
         return NTR_ERR_ARG;
     }
+    NTR_TRY(kind_status);
     NTR_TRY(check_timed_flows_reserved(flows, n_flows));
     NTR_TRY(ntri_samples_check(history, n_history, &history_order));
     NTR_TRY(ntr_check_tbw(tbw_l));
     NTR_TRY(check_timed_flows(flows, n_flows));
     NTR_TRY(check_span(duration_h, step_h));
-    NTR_TRY(ntri_limits_check(lim));
+    NTR_TRY(values_status);
     NTR_TRY(history_order);
     NTR_TRY(timed_flows_order(flows, n_flows));
 
-    plan_init(&p, history[n_history - 1].na_mmol_l, tbw_l, flows, n_flows,
+    plan_init(&run->p, history[n_history - 1].na_mmol_l, tbw_l, flows, n_flows,
               duration_h, step_h, history, n_history);
-    NTR_TRY(plan_validate(&p, &final_na, &final_tbw));
+    NTR_TRY(plan_validate(&run->p, &run->final_na, &run->final_tbw));
+    run->v.samples = NULL;
+    run->v.point = plan_point;
+    run->v.ctx = &run->p;
+    run->v.n = n_history + run->p.grid;
+    return NTR_OK;
+}
 
-    v.samples = NULL;
-    v.point = plan_point;
-    v.ctx = &p;
-    v.n = n_history + p.grid;
-    ntri_assess(&v, lim, n_history, &course, &breach);
+int ntr_plan_check(const ntr_sample *history, size_t n_history, double tbw_l,
+                   const ntr_timed_flow *flows, size_t n_flows,
+                   double duration_h, double step_h, const ntr_limits *lim,
+                   ntr_plan_result *out)
+{
+    struct plan_run run;
+    ntri_breach breach;
 
-    out->course = course;
-    out->final_na_mmol_l = final_na;
-    out->final_tbw_l = final_tbw;
-    out->breach_24h_h = breach_time(&p, breach.first_over_24h);
-    out->breach_48h_h = breach_time(&p, breach.first_over_48h);
+    if (history == NULL || lim == NULL || out == NULL ||
+        (flows == NULL && n_flows > 0)) {
+        return NTR_ERR_NULL;
+    }
+    /* The 1.0 limits have no ARG stage. */
+    NTR_TRY(plan_run_start(&run, history, n_history, tbw_l, flows, n_flows,
+                           duration_h, step_h, NTR_OK, ntri_limits_check(lim)));
+    /* Every check has passed: nothing can fail from here, so the
+     * assessment goes straight into *out (no copy on the stack, which
+     * firmware builds keep small: tests/bench/firmware.py). */
+    ntri_assess(&run.v, lim, n_history, &out->course, &breach);
+    out->final_na_mmol_l = run.final_na;
+    out->final_tbw_l = run.final_tbw;
+    out->breach_24h_h = breach_time(&run.p, breach.first_over_24h);
+    out->breach_48h_h = breach_time(&run.p, breach.first_over_48h);
     out->reserved_d[0] = 0.0;
     out->reserved_d[1] = 0.0;
-    out->points = (unsigned int)p.grid;
+    out->points = (unsigned int)run.p.grid;
+    out->reserved = 0u;
+    return NTR_OK;
+}
+
+/* The NTR_ERR_ARG checks of the direction-aware check, in order: limits'
+ * struct_size and goal, then the result's struct_size. */
+static int course_plan_kind(const ntr_course_limits *lim,
+                            const ntr_course_plan_result *out)
+{
+    NTR_TRY(ntri_course_limits_kind(lim));
+    return out->struct_size < sizeof(ntr_course_plan_result) ? NTR_ERR_ARG : NTR_OK;
+}
+
+/* Which limit a predicted point breaches first. Indices grow with time, so
+ * the smallest index is the earliest breach; on a tie the earlier entry of
+ * the list wins (rise before fall, 24 h before 48 h). */
+static void first_breach(const ntri_course_breach *b, size_t *index,
+                         unsigned int *flag)
+{
+    const size_t at[4] = {b->rise_24h, b->rise_48h, b->fall_24h, b->fall_48h};
+    static const unsigned int bits[4] = {NTR_CF_OVER_24H, NTR_CF_OVER_48H,
+                                         NTR_CF_FALL_OVER_24H,
+                                         NTR_CF_FALL_OVER_48H};
+    size_t k;
+    *index = NTRI_NONE;
+    *flag = 0u;
+    for (k = 0; k < 4; k++) {
+        if (at[k] < *index) { /* NTRI_NONE is the largest size_t */
+            *index = at[k];
+            *flag = bits[k];
+        }
+    }
+}
+
+static int direction_of(unsigned int flag)
+{
+    if (flag == 0u) {
+        return NTR_PLAN_BREACH_NONE;
+    }
+    return (flag & (NTR_CF_OVER_24H | NTR_CF_OVER_48H)) != 0u ? NTR_PLAN_BREACH_RISE
+                                                             : NTR_PLAN_BREACH_FALL;
+}
+
+int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
+                          double tbw_l, const ntr_timed_flow *flows,
+                          size_t n_flows, double duration_h, double step_h,
+                          const ntr_course_limits *lim,
+                          ntr_course_plan_result *out)
+{
+    struct plan_run run;
+    ntri_course_breach breach;
+    size_t first;
+    unsigned int flag;
+    int kind;
+
+    if (history == NULL || lim == NULL || out == NULL ||
+        (flows == NULL && n_flows > 0)) {
+        return NTR_ERR_NULL;
+    }
+    kind = course_plan_kind(lim, out);
+    /* The values are read only when their kind is right (the struct may be
+     * shorter than this header's). */
+    NTR_TRY(plan_run_start(&run, history, n_history, tbw_l, flows, n_flows,
+                           duration_h, step_h, kind,
+                           kind == NTR_OK ? ntri_course_limits_values(lim) : kind));
+    /* As in ntr_plan_check(): nothing can fail from here. */
+    ntri_course_assess(&run.v, lim, n_history, &out->course, &breach);
+    first_breach(&breach, &first, &flag);
+
+    out->struct_size = sizeof(ntr_course_plan_result);
+    out->final_na_mmol_l = run.final_na;
+    out->final_tbw_l = run.final_tbw;
+    out->breach_rise_24h_h = breach_time(&run.p, breach.rise_24h);
+    out->breach_rise_48h_h = breach_time(&run.p, breach.rise_48h);
+    out->breach_fall_24h_h = breach_time(&run.p, breach.fall_24h);
+    out->breach_fall_48h_h = breach_time(&run.p, breach.fall_48h);
+    out->first_breach_h = breach_time(&run.p, first);
+    out->first_breach_flag = flag;
+    out->first_breach_direction = direction_of(flag);
+    out->points = (unsigned int)run.p.grid;
     out->reserved = 0u;
     return NTR_OK;
 }

@@ -1718,20 +1718,10 @@ int ntr_batch_efwc(size_t n, const double *urine_volume_l,
 
 /* ---- correction assessment of many series ---------------------------- */
 
-/* What a failed group's assessment holds: no figure can be mistaken for a
- * result, and no flag is raised. */
-static ntr_correction failed_correction(void)
-{
-    ntr_correction c;
-    c.rise_first_24h = FAILED_ROW;
-    c.max_rise_24h = FAILED_ROW;
-    c.max_rise_48h = FAILED_ROW;
-    c.last_rate_per_h = FAILED_ROW;
-    c.excess_mmol_l = FAILED_ROW;
-    c.flags = 0u;
-    c.reserved = 0u;
-    return c;
-}
+/* One group's assessment: reads its series, writes its result (or the
+ * failed-group values) into its slot of the caller's array, returns its
+ * status. ctx holds what the entry point was given. */
+typedef int (*group_fn)(const void *ctx, size_t g, const ntr_sample *s, size_t n);
 
 /* Offsets must not decrease and must stay within the samples: checked
  * before anything is written, so a bad index array cannot make the library
@@ -1747,13 +1737,58 @@ static int offsets_valid(size_t groups, const size_t *offsets, size_t n_samples)
     return offsets[groups] <= n_samples;
 }
 
+/* The loop both grouped entry points share, after their call-level checks:
+ * every group through `one`, statuses stored and counted. */
+static int assess_groups(size_t groups, const size_t *offsets,
+                         const ntr_sample *samples, const void *ctx,
+                         group_fn one, int *status, size_t *failed)
+{
+    size_t g;
+    size_t bad = 0;
+    for (g = 0; g < groups; g++) {
+        const size_t first = offsets[g];
+        const int st = one(ctx, g, samples + first, offsets[g + 1] - first);
+        status[g] = st;
+        bad += (st != NTR_OK);
+    }
+    return finish(groups, status, bad, failed);
+}
+
+/* What a failed group's assessment holds: no figure can be mistaken for a
+ * result, and no flag is raised. */
+static ntr_correction failed_correction(void)
+{
+    ntr_correction c;
+    c.rise_first_24h = FAILED_ROW;
+    c.max_rise_24h = FAILED_ROW;
+    c.max_rise_48h = FAILED_ROW;
+    c.last_rate_per_h = FAILED_ROW;
+    c.excess_mmol_l = FAILED_ROW;
+    c.flags = 0u;
+    c.reserved = 0u;
+    return c;
+}
+
+struct correction_groups {
+    const ntr_limits *lim;
+    ntr_correction *out;
+};
+
+static int correction_group(const void *ctx, size_t g, const ntr_sample *s, size_t n)
+{
+    const struct correction_groups *c = (const struct correction_groups *)ctx;
+    ntr_correction result;
+    const int st = ntr_correction_assess(s, n, c->lim, &result);
+    c->out[g] = st == NTR_OK ? result : failed_correction();
+    return st;
+}
+
 int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
                                 const ntr_sample *samples, size_t n_samples,
                                 const ntr_limits *lim, ntr_correction *out,
                                 int *status, size_t *failed)
 {
-    size_t g;
-    size_t bad = 0;
+    struct correction_groups ctx;
     if (offsets == NULL || samples == NULL || lim == NULL || out == NULL ||
         status == NULL) {
         return NTR_ERR_NULL;
@@ -1761,14 +1796,92 @@ int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
     if (!offsets_valid(groups, offsets, n_samples)) {
         return NTR_ERR_ARG;
     }
-    for (g = 0; g < groups; g++) {
-        size_t first = offsets[g];
-        ntr_correction result;
-        int st = ntr_correction_assess(samples + first, offsets[g + 1] - first,
-                                       lim, &result);
-        out[g] = st == NTR_OK ? result : failed_correction();
-        status[g] = st;
-        bad += (st != NTR_OK);
+    ctx.lim = lim;
+    ctx.out = out;
+    return assess_groups(groups, offsets, samples, &ctx, correction_group,
+                         status, failed);
+}
+
+/* ---- course assessment of many series (both directions) --------------- */
+
+/* The alignment of a report, as the offset of one after a char (C99 has
+ * no alignof). The members are read only through offsetof, which cppcheck
+ * does not count as a use. */
+struct report_alignment {
+    /* cppcheck-suppress unusedStructMember */
+    char c;
+    /* cppcheck-suppress unusedStructMember */
+    ntr_course_report r;
+};
+#define REPORT_ALIGN offsetof(struct report_alignment, r)
+
+/* A report stride the array can be walked with: at least the 1.1 size, a
+ * whole number of alignments, and no group past the end of memory. */
+static int report_size_valid(size_t groups, size_t report_size)
+{
+    return report_size >= sizeof(ntr_course_report) &&
+           report_size % REPORT_ALIGN == 0 &&
+           (groups == 0 || groups <= ((size_t)-1) / report_size);
+}
+
+static ntr_course_report failed_report(void)
+{
+    ntr_course_report r;
+    r.struct_size = sizeof r;
+    r.max_rise_24h = FAILED_ROW;
+    r.max_rise_48h = FAILED_ROW;
+    r.max_fall_24h = FAILED_ROW;
+    r.max_fall_48h = FAILED_ROW;
+    r.excess_mmol_l = FAILED_ROW;
+    r.flags = 0u;
+    r.reserved = 0u;
+    r.rise_first_24h = FAILED_ROW;
+    r.fall_first_24h = FAILED_ROW;
+    r.rise_now_24h = FAILED_ROW;
+    r.fall_now_24h = FAILED_ROW;
+    r.last_rate_per_h = FAILED_ROW;
+    r.elapsed_h = FAILED_ROW;
+    r.worst_at_h = FAILED_ROW;
+    return r;
+}
+
+struct course_groups {
+    const ntr_course_limits *lim;
+    unsigned char *out; /* reports, report_size bytes apart */
+    size_t report_size;
+};
+
+static int course_group(const void *ctx, size_t g, const ntr_sample *s, size_t n)
+{
+    const struct course_groups *c = (const struct course_groups *)ctx;
+    ntr_course_report result;
+    int st;
+    result.struct_size = sizeof result;
+    st = ntr_course_assess(s, n, c->lim, &result);
+    /* The stride is a multiple of the alignment: the slot is aligned. Only
+     * the 1.1 members are written; a later header's tail is left alone. */
+    *(ntr_course_report *)(void *)(c->out + g * c->report_size) =
+        st == NTR_OK ? result : failed_report();
+    return st;
+}
+
+int ntr_batch_course_assess(size_t groups, const size_t *offsets,
+                            const ntr_sample *samples, size_t n_samples,
+                            const ntr_course_limits *lim, size_t report_size,
+                            ntr_course_report *out, int *status, size_t *failed)
+{
+    struct course_groups ctx;
+    if (offsets == NULL || samples == NULL || lim == NULL || out == NULL ||
+        status == NULL) {
+        return NTR_ERR_NULL;
     }
-    return finish(groups, status, bad, failed);
+    if (!report_size_valid(groups, report_size) ||
+        !offsets_valid(groups, offsets, n_samples)) {
+        return NTR_ERR_ARG;
+    }
+    ctx.lim = lim;
+    ctx.out = (unsigned char *)out;
+    ctx.report_size = report_size;
+    return assess_groups(groups, offsets, samples, &ctx, course_group, status,
+                         failed);
 }

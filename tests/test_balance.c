@@ -572,6 +572,512 @@ static void plan_check_rejects_bad_inputs(void **state)
     assert_memory_equal(&r, &ref, sizeof r);
 }
 
+/* ---- ntr_course_plan_check (both directions) ---------------------------- */
+
+/* Same bits in every member of two course reports (padding not compared). */
+static int same_bits(double a, double b)
+{
+    return memcmp(&a, &b, sizeof a) == 0;
+}
+
+static void assert_same_report(const ntr_course_report *a, const ntr_course_report *b)
+{
+    assert_int_equal(a->struct_size, b->struct_size);
+    assert_true(same_bits(a->max_rise_24h, b->max_rise_24h));
+    assert_true(same_bits(a->max_rise_48h, b->max_rise_48h));
+    assert_true(same_bits(a->max_fall_24h, b->max_fall_24h));
+    assert_true(same_bits(a->max_fall_48h, b->max_fall_48h));
+    assert_true(same_bits(a->excess_mmol_l, b->excess_mmol_l));
+    assert_int_equal(a->flags, b->flags);
+    assert_int_equal(a->reserved, b->reserved);
+    assert_true(same_bits(a->rise_first_24h, b->rise_first_24h));
+    assert_true(same_bits(a->fall_first_24h, b->fall_first_24h));
+    assert_true(same_bits(a->rise_now_24h, b->rise_now_24h));
+    assert_true(same_bits(a->fall_now_24h, b->fall_now_24h));
+    assert_true(same_bits(a->last_rate_per_h, b->last_rate_per_h));
+    assert_true(same_bits(a->elapsed_h, b->elapsed_h));
+    assert_true(same_bits(a->worst_at_h, b->worst_at_h));
+}
+
+
+static ntr_course_limits course_preset(int preset)
+{
+    ntr_course_limits lim;
+    memset(&lim, 0, sizeof lim);
+    assert_int_equal(ntr_course_limits_preset(preset, &lim), NTR_OK);
+    return lim;
+}
+
+static ntr_course_limits course_limits(int goal, double rise24, double rise48,
+                                       double fall24, double fall48, double min_change)
+{
+    ntr_course_limits lim;
+    memset(&lim, 0, sizeof lim);
+    lim.struct_size = sizeof lim;
+    lim.goal = goal;
+    lim.max_rise_24h = rise24;
+    lim.max_rise_48h = rise48;
+    lim.max_fall_24h = fall24;
+    lim.max_fall_48h = fall48;
+    lim.min_change_24h = min_change;
+    return lim;
+}
+
+/* The 1.0 limits as course limits: raise, the same rise limits and target,
+ * no fall limit. */
+static ntr_course_limits course_from_1_0(const ntr_limits *old)
+{
+    return course_limits(NTR_GOAL_RAISE, old->max_rise_24h, old->max_rise_48h, 0.0, 0.0,
+                         old->min_rise_24h);
+}
+
+/* A result struct filled with a byte pattern, its struct_size set. */
+static ntr_course_plan_result course_plan_blank(void)
+{
+    ntr_course_plan_result r;
+    memset(&r, 0x5a, sizeof r);
+    r.struct_size = sizeof r;
+    return r;
+}
+
+static int course_plan(const ntr_sample *history, size_t n_history, double tbw,
+                       const ntr_timed_flow *flows, size_t n_flows, double duration,
+                       double step, const ntr_course_limits *lim,
+                       ntr_course_plan_result *r)
+{
+    *r = course_plan_blank();
+    return ntr_course_plan_check(history, n_history, tbw, flows, n_flows, duration, step,
+                                 lim, r);
+}
+
+/* The report is the last member, so a later, larger ntr_course_report
+ * only lengthens the struct; a caller's larger struct_size (a later
+ * header) is accepted, the tail past the 1.1 size left alone, and
+ * struct_size comes back as the size filled. */
+static void course_plan_result_layout(void **state)
+{
+    union {
+        ntr_course_plan_result r;
+        unsigned char bytes[sizeof(ntr_course_plan_result) + 64];
+    } big;
+    const ntr_sample now = {0.0, 150.0};
+    const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    size_t i;
+    (void)state;
+    assert_int_equal(offsetof(ntr_course_plan_result, struct_size), 0);
+    assert_int_equal(offsetof(ntr_course_plan_result, course) + sizeof(ntr_course_report),
+                     sizeof(ntr_course_plan_result));
+    memset(&big, 0x5a, sizeof big);
+    big.r.struct_size = sizeof big;
+    assert_int_equal(ntr_course_plan_check(&now, 1, 40.0, NULL, 0, 6.0, 1.0, &lim, &big.r), NTR_OK);
+    assert_int_equal(big.r.struct_size, sizeof(ntr_course_plan_result));
+    assert_int_equal(big.r.course.struct_size, sizeof(ntr_course_report));
+    assert_int_equal(big.r.reserved, 0u);
+    for (i = sizeof(ntr_course_plan_result); i < sizeof big; i++) {
+        assert_int_equal(big.bytes[i], 0x5a);
+    }
+}
+
+/* The issue's hypernatraemia plan (invented patient): sodium 165 mmol/L,
+ * body water 34 L, 5% dextrose (Na 0, counted as water) at 500 mL/h for
+ * 24 h, half-hour grid, chronic hypernatraemia: falls at most 10 mmol/L in
+ * any 24 h (Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med
+ * 2000;342:1493-9; ../shared/sources.md).
+ *
+ * Hand-worked mass balance: after t hours 0.5 t L of water has been added
+ * and no cation, so Na(t) = 165 x 34 / (34 + 0.5 t) = 5610 / (34 + 0.5 t).
+ *   24 h: 5610 / 46 = 121.957 (the "about 122" of the issue), a fall of
+ *         43.043, 33.043 over the limit.
+ * The series only falls, so the largest 24 h fall into the point at t is
+ * 165 - Na(t); it exceeds 10 when Na(t) < 155, i.e. 34 + 0.5 t > 5610/155
+ * = 36.1935, t > 4.387 h. On the half-hour grid the first point over is
+ * 4.5 h (5610 / 36.25 = 154.759, fall 10.241); at 4.0 h 5610 / 36 =
+ * 155.833, fall 9.167. */
+static void hypernatraemia_dextrose_plan_breaches_the_fall_limit(void **state)
+{
+    const ntr_sample now = {0.0, 165.0};
+    const ntr_timed_flow plan = timed(0.0, 24.0, 500.0, 0.0, 0.0);
+    const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_plan_result r;
+    (void)state;
+    assert_int_equal(lim.goal, NTR_GOAL_LOWER);
+    assert_true(lim.max_fall_24h == 10.0);
+    assert_int_equal(course_plan(&now, 1, 34.0, &plan, 1, 24.0, 0.5, &lim, &r), NTR_OK);
+    assert_int_equal(r.struct_size, sizeof r);
+    assert_near(r.final_na_mmol_l, 5610.0 / 46.0, 1e-9);
+    assert_near(r.final_na_mmol_l, 122.0, 0.05);
+    assert_near(r.final_tbw_l, 46.0, 1e-12);
+    assert_int_equal(r.points, 48);
+
+    assert_true(r.breach_fall_24h_h == 4.5);
+    assert_true(r.breach_rise_24h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.breach_rise_48h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.first_breach_h == 4.5);
+    assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_FALL);
+    assert_int_equal(r.first_breach_flag, NTR_CF_FALL_OVER_24H);
+
+    assert_near(r.course.max_fall_24h, 165.0 - 5610.0 / 46.0, 1e-9);
+    assert_near(r.course.max_rise_24h, 0.0, 0.0);
+    assert_near(r.course.excess_mmol_l, 165.0 - 5610.0 / 46.0 - 10.0, 1e-9);
+    assert_int_equal(r.course.flags & NTR_CF_FALL_OVER_24H, NTR_CF_FALL_OVER_24H);
+    assert_int_equal(r.course.flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_WRONG_WAY), 0u);
+
+    /* The 48 h fall limit of the preset, whatever its value, is judged on
+     * the same monotone series: the first point with 165 - Na > limit. */
+    if (lim.max_fall_48h > 0.0) {
+        double expect = NTR_PLAN_NO_BREACH;
+        int j;
+        for (j = 1; j <= 48; j++) {
+            const double t = 0.5 * j;
+            if (165.0 - 5610.0 / (34.0 + 0.5 * t) > lim.max_fall_48h + 1e-6) {
+                expect = t;
+                break;
+            }
+        }
+        assert_true(r.breach_fall_48h_h == expect);
+    } else {
+        assert_true(r.breach_fall_48h_h == NTR_PLAN_NO_BREACH);
+    }
+
+    /* The same plan at a tenth of the rate (50 mL/h, 1.2 L in 24 h):
+     * 5610 / 35.2 = 159.375, a fall of 5.625: within the limit. */
+    {
+        const ntr_timed_flow slow = timed(0.0, 24.0, 50.0, 0.0, 0.0);
+        assert_int_equal(course_plan(&now, 1, 34.0, &slow, 1, 24.0, 0.5, &lim, &r), NTR_OK);
+        assert_near(r.final_na_mmol_l, 5610.0 / 35.2, 1e-9);
+        assert_true(r.breach_fall_24h_h == NTR_PLAN_NO_BREACH);
+        assert_true(r.first_breach_h == NTR_PLAN_NO_BREACH);
+        assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_NONE);
+        assert_int_equal(r.first_breach_flag, 0u);
+        assert_int_equal(r.course.flags & (NTR_CF_FALL_OVER_24H | NTR_CF_FALL_OVER_48H), 0u);
+    }
+}
+
+/* A fall already measured counts: 170 at -12 h, 165 now, the same plan.
+ * The 24 h window of a point tau hours ahead reaches the 170 while
+ * tau <= 12; a fall over 10 from 170 needs Na < 160: 34 + 0.5 t > 35.0625,
+ * t > 2.125 h, so 2.5 h on the grid (5610 / 35.25 = 159.149, 10.851 below
+ * 170; at 2.0 h 5610 / 35 = 160.286, 9.714). Hand-worked. */
+static void measured_fall_counts_against_the_plan(void **state)
+{
+    const ntr_sample history[2] = {{-12.0, 170.0}, {0.0, 165.0}};
+    const ntr_timed_flow plan = timed(0.0, 24.0, 500.0, 0.0, 0.0);
+    const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_plan_result r;
+    (void)state;
+    assert_int_equal(course_plan(history, 2, 34.0, &plan, 1, 24.0, 0.5, &lim, &r), NTR_OK);
+    assert_true(r.breach_fall_24h_h == 2.5);
+    assert_true(r.first_breach_h == 2.5);
+    assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_FALL);
+    /* 170 at -12 h to 121.957 at 24 h is 36 h apart: outside 24 h; the
+     * largest 24 h fall is still 165 -> 121.957 from time 0, or from 170
+     * at -12 h to Na(12) = 5610/40 = 140.25 (29.75): the former wins. */
+    assert_near(r.course.max_fall_24h, 165.0 - 5610.0 / 46.0, 1e-9);
+}
+
+/* The hyponatraemia plan of bolus_safe_alone_breaches_with_diuresis()
+ * (standard limits: 10 in 24 h, 18 in 48 h; Verbalis 2013, Spasovski
+ * 2014): the rise breach at 17.5 h (hand-worked there), the same as the
+ * 1.0 ntr_plan_check reports; and 12.0 h with the measured rise from 112. */
+static void hyponatraemia_plan_breaches_the_rise_limit_as_in_1_0(void **state)
+{
+    const ntr_sample now = {0.0, 115.0};
+    const ntr_sample history[2] = {{-12.0, 112.0}, {0.0, 115.0}};
+    const ntr_timed_flow plan[2] = {
+        timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
+        timed(4.0, 24.0, -250.0, 30.0, 10.0),
+    };
+    const ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    const ntr_limits old = standard();
+    ntr_course_plan_result r;
+    ntr_plan_result p;
+    (void)state;
+    assert_int_equal(course_plan(&now, 1, 40.0, plan, 2, 24.0, 0.5, &lim, &r), NTR_OK);
+    assert_int_equal(ntr_plan_check(&now, 1, 40.0, plan, 2, 24.0, 0.5, &old, &p), NTR_OK);
+    assert_true(r.breach_rise_24h_h == 17.5);
+    assert_true(r.breach_rise_24h_h == p.breach_24h_h);
+    assert_true(r.breach_rise_48h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.breach_fall_24h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.breach_fall_48h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.first_breach_h == 17.5);
+    assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_RISE);
+    assert_int_equal(r.first_breach_flag, NTR_CF_OVER_24H);
+    assert_near(r.course.max_rise_24h, 494.4 / 35.3, 1e-9);
+    assert_near(r.course.excess_mmol_l, 494.4 / 35.3 - 10.0, 1e-9);
+    assert_true(r.final_na_mmol_l == p.final_na_mmol_l);
+    assert_true(r.final_tbw_l == p.final_tbw_l);
+    assert_int_equal(r.points, p.points);
+
+    assert_int_equal(course_plan(history, 2, 40.0, plan, 2, 24.0, 0.5, &lim, &r), NTR_OK);
+    assert_true(r.breach_rise_24h_h == 12.0);
+    assert_true(r.first_breach_h == 12.0);
+
+    /* A tie: with 10 in 24 h and 10 in 48 h (invented limits) the 24 h
+     * plan breaches both at the same point, 17.5 h; the 24 h limit is
+     * reported first, as documented. */
+    {
+        const ntr_course_limits tie = course_limits(NTR_GOAL_RAISE, 10.0, 10.0, 0.0, 0.0, 0.0);
+        assert_int_equal(course_plan(&now, 1, 40.0, plan, 2, 24.0, 0.5, &tie, &r), NTR_OK);
+        assert_true(r.breach_rise_24h_h == 17.5);
+        assert_true(r.breach_rise_48h_h == 17.5);
+        assert_true(r.first_breach_h == 17.5);
+        assert_int_equal(r.first_breach_flag, NTR_CF_OVER_24H);
+    }
+}
+
+/* Goal HOLD with limits of 6 mmol/L per 24 h and 12 per 48 h in both
+ * directions (invented limits for the test). Invented patient: sodium
+ * 140, body water 40 L. Hand-worked mass balance on a 1 h grid:
+ * - 3% saline (513) at 100 mL/h: Na = 140 + 37.3 t / (40 + 0.1 t); over 6
+ *   when 36.7 t > 240, t > 6.54: 7 h (6.415; at 6 h 5.512).
+ * - 5% dextrose at 500 mL/h: Na = 5600 / (40 + 0.5 t); a fall over 6 when
+ *   Na < 134, t > 3.58: 4 h (fall 6.667; at 3 h 5.060).
+ * - dextrose 500 mL/h for 6 h, then 3% saline at 400 mL/h: the fall as
+ *   above to 5600/43 = 130.233 at 6 h (9.767: under 12, no 48 h fall
+ *   breach); x hours into the saline Na = (5600 + 205.2 x)/(43 + 0.4 x),
+ *   its rise over the 130.233: 6.991 at 8 h (3.528 at 7 h), 13.732 at 10 h
+ *   (10.392 at 9 h). So rise 24 h at 8 h, rise 48 h at 10 h, fall 24 h at
+ *   4 h: the first breach is the fall. */
+static void hold_goal_breaches_either_way(void **state)
+{
+    const ntr_sample now = {0.0, 140.0};
+    const ntr_course_limits lim = course_limits(NTR_GOAL_HOLD, 6.0, 12.0, 6.0, 12.0, 0.0);
+    const ntr_timed_flow saline = timed(0.0, 12.0, 100.0, 513.0, 0.0);
+    const ntr_timed_flow water = timed(0.0, 12.0, 500.0, 0.0, 0.0);
+    const ntr_timed_flow both[2] = {
+        timed(0.0, 6.0, 500.0, 0.0, 0.0),
+        timed(6.0, 12.0, 400.0, 513.0, 0.0),
+    };
+    ntr_course_plan_result r;
+    (void)state;
+
+    assert_int_equal(course_plan(&now, 1, 40.0, &saline, 1, 12.0, 1.0, &lim, &r), NTR_OK);
+    assert_true(r.breach_rise_24h_h == 7.0);
+    assert_true(r.breach_fall_24h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.first_breach_h == 7.0);
+    assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_RISE);
+    assert_int_equal(r.first_breach_flag, NTR_CF_OVER_24H);
+    assert_near(r.final_na_mmol_l, 140.0 + 37.3 * 12.0 / 41.2, 1e-9);
+    assert_int_equal(r.course.flags & NTR_CF_OVER_24H, NTR_CF_OVER_24H);
+
+    assert_int_equal(course_plan(&now, 1, 40.0, &water, 1, 12.0, 1.0, &lim, &r), NTR_OK);
+    assert_true(r.breach_fall_24h_h == 4.0);
+    assert_true(r.breach_rise_24h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.first_breach_h == 4.0);
+    assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_FALL);
+    assert_int_equal(r.first_breach_flag, NTR_CF_FALL_OVER_24H);
+    assert_int_equal(r.course.flags & NTR_CF_FALL_OVER_24H, NTR_CF_FALL_OVER_24H);
+
+    assert_int_equal(course_plan(&now, 1, 40.0, both, 2, 12.0, 1.0, &lim, &r), NTR_OK);
+    assert_true(r.breach_fall_24h_h == 4.0);
+    assert_true(r.breach_fall_48h_h == NTR_PLAN_NO_BREACH);
+    assert_true(r.breach_rise_24h_h == 8.0);
+    assert_true(r.breach_rise_48h_h == 10.0);
+    assert_true(r.first_breach_h == 4.0);
+    assert_int_equal(r.first_breach_direction, NTR_PLAN_BREACH_FALL);
+    assert_int_equal(r.first_breach_flag, NTR_CF_FALL_OVER_24H);
+    assert_near(r.course.max_fall_24h, 140.0 - 5600.0 / 43.0, 1e-9);
+    assert_int_equal(r.course.flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_24H),
+                     NTR_CF_OVER_24H | NTR_CF_OVER_48H | NTR_CF_FALL_OVER_24H);
+    assert_int_equal(r.course.flags & NTR_CF_FALL_OVER_48H, 0u);
+}
+
+/* Property: the direction-aware check's report is exactly
+ * ntr_course_assess() of the series ntr_balance_course() writes; each
+ * breach time is the first point whose prefix assessment carries that
+ * limit's flag; the first breach is the earliest of the four; and under
+ * the 1.0 limits (raise, no fall limit) the rise breach times equal the
+ * 1.0 ntr_plan_check's. Random plans that raise or lower sodium, under a
+ * preset or random limits of either goal. */
+static void course_plan_equals_course_then_assess(void **state)
+{
+    static const unsigned int bits[4] = {NTR_CF_OVER_24H, NTR_CF_OVER_48H,
+                                         NTR_CF_FALL_OVER_24H, NTR_CF_FALL_OVER_48H};
+    int round, rises = 0, falls = 0, clean = 0;
+    (void)state;
+    for (round = 0; round < 400; round++) {
+        static ntr_sample s[400];
+        const int hyper = round % 2;
+        const ntr_sample now = {0.0, hyper ? rng_in(150.0, 175.0) : rng_in(108.0, 130.0)};
+        const double tbw = rng_in(25.0, 50.0);
+        ntr_timed_flow plan[3];
+        ntr_course_limits lim;
+        ntr_course_plan_result r;
+        ntr_course_report c;
+        double first[4] = {NTR_PLAN_NO_BREACH, NTR_PLAN_NO_BREACH, NTR_PLAN_NO_BREACH,
+                           NTR_PLAN_NO_BREACH};
+        double times[4];
+        double earliest = NTR_PLAN_NO_BREACH;
+        unsigned int earliest_bit = 0u;
+        size_t count = 0, k;
+        int b;
+        if (hyper) {
+            plan[0] = timed(0.0, 48.0, rng_in(0.0, 600.0), 0.0, 0.0);
+            plan[1] = timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 200.0), rng_in(10.0, 60.0), 10.0);
+            plan[2] = timed(0.0, rng_in(0.0, 48.0), rng_in(0.0, 150.0), 77.0, 0.0);
+            lim = round % 4 == 1 ? course_preset(NTR_COURSE_HYPER_CHRONIC)
+                                 : course_limits(NTR_GOAL_LOWER, 0.0, 0.0, rng_in(6.0, 12.0),
+                                                 0.0, 0.0);
+            if (round % 8 == 3) {
+                lim = course_limits(NTR_GOAL_HOLD, 4.0, 8.0, 6.0, 12.0, 0.0);
+            }
+        } else {
+            plan[0] = timed(0.0, rng_in(0.1, 3.0), rng_in(0.0, 500.0), 513.0, 0.0);
+            plan[1] = timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 300.0), rng_in(10.0, 60.0), 10.0);
+            plan[2] = timed(0.0, 48.0, rng_in(0.0, 80.0), round % 3 == 0 ? 0.0 : 154.0, 0.0);
+            lim = round % 4 == 0 ? course_preset(NTR_COURSE_HYPO_STANDARD)
+                                 : course_limits(NTR_GOAL_RAISE, 8.0, 16.0, rng_in(3.0, 8.0),
+                                                 0.0, 0.0);
+        }
+        assert_int_equal(course_plan(&now, 1, tbw, plan, 3, 48.0, 0.25, &lim, &r), NTR_OK);
+        assert_int_equal(ntr_balance_course(now.na_mmol_l, tbw, plan, 3, 48.0, 0.25, s,
+                                            COUNT(s), &count), NTR_OK);
+        memset(&c, 0x5a, sizeof c);
+        c.struct_size = sizeof c;
+        assert_int_equal(ntr_course_assess(s, count, &lim, &c), NTR_OK);
+        assert_same_report(&r.course, &c);
+        assert_int_equal(r.points, count - 1);
+        assert_true(r.final_na_mmol_l == s[count - 1].na_mmol_l);
+        for (k = 2; k <= count; k++) {
+            ntr_course_report pc;
+            memset(&pc, 0, sizeof pc);
+            pc.struct_size = sizeof pc;
+            assert_int_equal(ntr_course_assess(s, k, &lim, &pc), NTR_OK);
+            for (b = 0; b < 4; b++) {
+                if ((pc.flags & bits[b]) && first[b] == NTR_PLAN_NO_BREACH) {
+                    first[b] = s[k - 1].hours;
+                }
+            }
+        }
+        times[0] = r.breach_rise_24h_h;
+        times[1] = r.breach_rise_48h_h;
+        times[2] = r.breach_fall_24h_h;
+        times[3] = r.breach_fall_48h_h;
+        for (b = 0; b < 4; b++) {
+            assert_true(times[b] == first[b]);
+            if (first[b] != NTR_PLAN_NO_BREACH &&
+                (earliest == NTR_PLAN_NO_BREACH || first[b] < earliest)) {
+                earliest = first[b];
+                earliest_bit = bits[b];
+            }
+        }
+        assert_true(r.first_breach_h == earliest);
+        assert_int_equal(r.first_breach_flag, earliest_bit);
+        assert_int_equal(r.first_breach_direction,
+                         earliest_bit == 0u ? NTR_PLAN_BREACH_NONE
+                         : earliest_bit <= NTR_CF_OVER_48H ? NTR_PLAN_BREACH_RISE
+                                                           : NTR_PLAN_BREACH_FALL);
+        rises += earliest_bit == NTR_CF_OVER_24H || earliest_bit == NTR_CF_OVER_48H;
+        falls += earliest_bit == NTR_CF_FALL_OVER_24H || earliest_bit == NTR_CF_FALL_OVER_48H;
+        clean += earliest_bit == 0u;
+
+        if (!hyper) {
+            /* The 1.0 check on the 1.0 limits: the same rise breaches. */
+            const ntr_limits old = standard();
+            const ntr_course_limits same = course_from_1_0(&old);
+            ntr_plan_result p;
+            assert_int_equal(ntr_plan_check(&now, 1, tbw, plan, 3, 48.0, 0.25, &old, &p), NTR_OK);
+            assert_int_equal(course_plan(&now, 1, tbw, plan, 3, 48.0, 0.25, &same, &r), NTR_OK);
+            assert_true(r.breach_rise_24h_h == p.breach_24h_h);
+            assert_true(r.breach_rise_48h_h == p.breach_48h_h);
+            assert_true(r.breach_fall_24h_h == NTR_PLAN_NO_BREACH);
+            assert_true(r.final_na_mmol_l == p.final_na_mmol_l);
+            assert_true(r.course.max_rise_24h == p.course.max_rise_24h);
+            assert_true(r.course.max_rise_48h == p.course.max_rise_48h);
+            assert_int_equal(r.course.flags & 0x7fu & ~(unsigned int)NTR_CF_BELOW_TARGET,
+                             p.course.flags & ~(unsigned int)NTR_CF_BELOW_TARGET);
+        }
+    }
+    /* The random plans breach up, breach down, and stay within. */
+    assert_true(rises > 20);
+    assert_true(falls > 20);
+    assert_true(clean > 20);
+}
+
+static void course_plan_rejects_bad_inputs(void **state)
+{
+    const ntr_sample now[2] = {{-2.0, 160.0}, {0.0, 158.0}};
+    const ntr_timed_flow plan = timed(0.0, 2.0, 100.0, 0.0, 0.0);
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_plan_result r = course_plan_blank(), ref;
+    (void)state;
+    memcpy(&ref, &r, sizeof r);
+    assert_int_equal(ntr_course_plan_check(NULL, 1, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, NULL, 1, 24.0, 1.0, &lim, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, NULL, &r), NTR_ERR_NULL);
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, NULL), NTR_ERR_NULL);
+    /* No flows is a plan (nothing given): fine with flows NULL. */
+    {
+        ntr_course_plan_result ok = course_plan_blank();
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, NULL, 0, 24.0, 1.0, &lim, &ok), NTR_OK);
+        assert_true(ok.final_na_mmol_l == 158.0);
+        assert_true(ok.first_breach_h == NTR_PLAN_NO_BREACH);
+    }
+    assert_int_equal(ntr_course_plan_check(now, 0, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ARG);
+    {
+        ntr_timed_flow f = plan;
+        f.reserved[1] = 3u;
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ARG);
+    }
+    /* The result's struct_size must be one the library knows. */
+    {
+        ntr_course_plan_result small = r;
+        small.struct_size = sizeof small - 1;
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &small),
+                         NTR_ERR_ARG);
+        assert_true(small.struct_size == sizeof small - 1);
+        small.struct_size = 0;
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &small),
+                         NTR_ERR_ARG);
+    }
+    /* Limits: an unknown goal, a wrong struct_size, a non-finite limit. */
+    lim.goal = 7;
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ARG);
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    lim.struct_size = 3;
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ARG);
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    lim.max_fall_24h = (double)NAN;
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r),
+                     NTR_ERR_NONFINITE);
+    lim.max_fall_24h = -1.0;
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_RANGE);
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    {
+        ntr_sample h[2] = {{-2.0, 160.0}, {0.0, HUGE_VAL}};
+        assert_int_equal(ntr_course_plan_check(h, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r),
+                         NTR_ERR_NONFINITE);
+        h[1].na_mmol_l = 230.0;
+        assert_int_equal(ntr_course_plan_check(h, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_RANGE);
+        h[1].na_mmol_l = 158.0;
+        h[1].hours = -3.0;
+        assert_int_equal(ntr_course_plan_check(h, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ORDER);
+        /* Every numeric error outranks the time order. */
+        assert_int_equal(ntr_course_plan_check(h, 2, (double)NAN, &plan, 1, 24.0, 1.0, &lim, &r),
+                         NTR_ERR_NONFINITE);
+    }
+    assert_int_equal(ntr_course_plan_check(now, 2, 0.05, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_RANGE);
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, -HUGE_VAL, 1.0, &lim, &r),
+                     NTR_ERR_NONFINITE);
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 0.0, 1.0, &lim, &r), NTR_ERR_RANGE);
+    assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &plan, 1, 24.0, 0.001, &lim, &r), NTR_ERR_RANGE);
+    {
+        ntr_timed_flow f = plan;
+        f.rate_ml_h = (double)NAN;
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r),
+                         NTR_ERR_NONFINITE);
+        f = timed(4.0, 3.0, 100.0, 0.0, 0.0);
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ORDER);
+        /* Domain: 5 L/h of urine for 10 h empties a 40 L body. */
+        f = timed(0.0, 10.0, -5000.0, 50.0, 0.0);
+        assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_DOMAIN);
+        /* Domain: 3% saline at 5 L/h for 12 h into 10 L passes 220. */
+        f = timed(0.0, 12.0, 5000.0, 513.0, 0.0);
+        assert_int_equal(ntr_course_plan_check(now, 2, 10.0, &f, 1, 12.0, 1.0, &lim, &r), NTR_ERR_DOMAIN);
+    }
+    assert_memory_equal(&r, &ref, sizeof r);
+}
+
 /* ---- ntr_relower_estimate ---------------------------------------------------------- */
 
 /* Overcorrected to 131 mmol/L, TBW 40 L, lower by 3 (target 128) with 5%
@@ -741,6 +1247,13 @@ int main(void)
         cmocka_unit_test(measured_history_counts_against_the_plan),
         cmocka_unit_test(plan_check_equals_course_then_assess),
         cmocka_unit_test(plan_check_rejects_bad_inputs),
+        cmocka_unit_test(course_plan_result_layout),
+        cmocka_unit_test(hypernatraemia_dextrose_plan_breaches_the_fall_limit),
+        cmocka_unit_test(measured_fall_counts_against_the_plan),
+        cmocka_unit_test(hyponatraemia_plan_breaches_the_rise_limit_as_in_1_0),
+        cmocka_unit_test(hold_goal_breaches_either_way),
+        cmocka_unit_test(course_plan_equals_course_then_assess),
+        cmocka_unit_test(course_plan_rejects_bad_inputs),
         cmocka_unit_test(relower_hand_worked),
         cmocka_unit_test(relower_one_litre_of_dextrose),
         cmocka_unit_test(relower_round_trip),

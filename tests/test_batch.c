@@ -812,6 +812,281 @@ static void correction_groups_equal_scalar(void **state)
     check_summary(ret, failed, series_status, SERIES_GROUPS, bad);
 }
 
+/* ---- course assessment of many series (both directions) -------------- */
+
+static ntr_course_limits course_preset(int preset)
+{
+    ntr_course_limits lim;
+    memset(&lim, 0, sizeof lim);
+    assert_int_equal(ntr_course_limits_preset(preset, &lim), NTR_OK);
+    return lim;
+}
+
+/* Same bits in every member (NaN equal to NaN). */
+static int same_report(const ntr_course_report *a, const ntr_course_report *b)
+{
+    return a->struct_size == b->struct_size &&
+           same_double(a->max_rise_24h, b->max_rise_24h) &&
+           same_double(a->max_rise_48h, b->max_rise_48h) &&
+           same_double(a->max_fall_24h, b->max_fall_24h) &&
+           same_double(a->max_fall_48h, b->max_fall_48h) &&
+           same_double(a->excess_mmol_l, b->excess_mmol_l) &&
+           a->flags == b->flags && a->reserved == b->reserved &&
+           same_double(a->rise_first_24h, b->rise_first_24h) &&
+           same_double(a->fall_first_24h, b->fall_first_24h) &&
+           same_double(a->rise_now_24h, b->rise_now_24h) &&
+           same_double(a->fall_now_24h, b->fall_now_24h) &&
+           same_double(a->last_rate_per_h, b->last_rate_per_h) &&
+           same_double(a->elapsed_h, b->elapsed_h) &&
+           same_double(a->worst_at_h, b->worst_at_h);
+}
+
+/* A failed group: every double NaN, no flag, the 1.1 size. */
+static int failed_report_values(const ntr_course_report *r)
+{
+    return r->struct_size == sizeof(ntr_course_report) && isnan(r->max_rise_24h) &&
+           isnan(r->max_rise_48h) && isnan(r->max_fall_24h) && isnan(r->max_fall_48h) &&
+           isnan(r->excess_mmol_l) && r->flags == 0u && r->reserved == 0u &&
+           isnan(r->rise_first_24h) && isnan(r->fall_first_24h) && isnan(r->rise_now_24h) &&
+           isnan(r->fall_now_24h) && isnan(r->last_rate_per_h) && isnan(r->elapsed_h) &&
+           isnan(r->worst_at_h);
+}
+
+static void course_groups_published(void **state)
+{
+    /* Chronic hypernatraemia limits: falls at most 10 in any 24 h
+     * (Adrogue & Madias, Hypernatremia, N Engl J Med 2000;342:1493-9).
+     * Invented series, worked by hand:
+     * group 0: 165, 158, 150 at 0, 8, 20 h: largest 24 h fall 165 - 150 =
+     *   15 > 10, excess 5, at 20 h; last rate -8/12 per hour;
+     * group 1: 110, 116, 122, 124 at 0, 6, 12, 24 h, a low sodium rising
+     *   under a lowering goal: a 48 h rise of 14, over the 4 mmol/L margin
+     *   of NTR_CF_WRONG_WAY; no fall limit is touched;
+     * group 2: empty (NTR_ERR_ARG); group 3: one sample, all zero. */
+    const ntr_sample s[8] = {{0, 165}, {8, 158}, {20, 150},
+                             {0, 110}, {6, 116}, {12, 122}, {24, 124},
+                             {5, 150}};
+    const size_t offsets[5] = {0, 3, 7, 7, 8};
+    const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_report c[4];
+    int st[4];
+    size_t failed = 0;
+    (void)state;
+    memset(c, 0x5a, sizeof c);
+    assert_int_equal(ntr_batch_course_assess(4, offsets, s, 8, &lim, sizeof c[0], c, st,
+                                             &failed), NTR_ERR_ARG);
+    assert_int_equal(failed, 1);
+    assert_int_equal(st[0], NTR_OK);
+    assert_int_equal(c[0].struct_size, sizeof c[0]);
+    assert_close(c[0].max_fall_24h, 15.0, 1e-12);
+    assert_close(c[0].excess_mmol_l, 5.0, 1e-12);
+    assert_close(c[0].worst_at_h, 20.0, 0.0);
+    assert_close(c[0].last_rate_per_h, -8.0 / 12.0, 1e-15);
+    assert_close(c[0].max_rise_48h, 0.0, 0.0);
+    assert_int_equal(c[0].flags & NTR_CF_FALL_OVER_24H, NTR_CF_FALL_OVER_24H);
+    assert_int_equal(c[0].flags & (NTR_CF_WRONG_WAY | NTR_CF_OVER_24H), 0u);
+    assert_int_equal(st[1], NTR_OK);
+    assert_close(c[1].max_rise_48h, 14.0, 1e-12);
+    assert_int_equal(c[1].flags & NTR_CF_WRONG_WAY, NTR_CF_WRONG_WAY);
+    assert_int_equal(c[1].flags & (NTR_CF_FALL_OVER_24H | NTR_CF_FALL_OVER_48H), 0u);
+    assert_int_equal(st[2], NTR_ERR_ARG);
+    assert_true(failed_report_values(&c[2]));
+    assert_int_equal(st[3], NTR_OK);
+    assert_close(c[3].max_fall_48h, 0.0, 0.0);
+    assert_close(c[3].max_rise_48h, 0.0, 0.0);
+    assert_int_equal(c[3].flags, 0u);
+
+    /* Offsets need not start at 0: group 1 alone gives the same report. */
+    {
+        const size_t tail[2] = {3, 7};
+        ntr_course_report c2;
+        int st2;
+        assert_int_equal(ntr_batch_course_assess(1, tail, s, 8, &lim, sizeof c2, &c2, &st2,
+                                                 NULL), NTR_OK);
+        assert_true(same_report(&c2, &c[1]));
+    }
+}
+
+/* A stride larger than the 1.1 report (a caller built against a later,
+ * longer struct): each report lands at its stride, the bytes between are
+ * left alone. */
+static void course_groups_stride(void **state)
+{
+    enum { STRIDE = sizeof(ntr_course_report) + 4 * sizeof(double) };
+    static unsigned char buf[3 * STRIDE];
+    const ntr_sample s[4] = {{0, 160}, {24, 148}, {0, 120}, {10, 126}};
+    const size_t offsets[4] = {0, 2, 2, 4};
+    const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    int st[3];
+    size_t g, i;
+    (void)state;
+    memset(buf, 0x5a, sizeof buf);
+    assert_int_equal(ntr_batch_course_assess(3, offsets, s, 4, &lim, STRIDE,
+                                             (ntr_course_report *)(void *)buf, st, NULL),
+                     NTR_ERR_ARG);
+    for (g = 0; g < 3; g++) {
+        ntr_course_report got, want;
+        memcpy(&got, buf + g * STRIDE, sizeof got);
+        memset(&want, 0, sizeof want);
+        want.struct_size = sizeof want;
+        assert_int_equal(st[g], ntr_course_assess(s + offsets[g], offsets[g + 1] - offsets[g],
+                                                  &lim, &want));
+        if (st[g] == NTR_OK) {
+            assert_true(same_report(&got, &want));
+        } else {
+            assert_true(failed_report_values(&got));
+        }
+        for (i = sizeof(ntr_course_report); i < STRIDE; i++) {
+            assert_int_equal(buf[g * STRIDE + i], 0x5a);
+        }
+    }
+    /* 160 -> 148 in exactly 24 h: a fall of 12, over 10 (hand-worked). */
+    assert_int_equal(st[0], NTR_OK);
+    assert_int_equal(st[1], NTR_ERR_ARG);
+    assert_int_equal(st[2], NTR_OK);
+}
+
+static void course_groups_contract(void **state)
+{
+    const ntr_sample s[3] = {{0, 160}, {6, 156}, {12, 153}};
+    const size_t decreasing[3] = {0, 2, 1};
+    const size_t beyond[3] = {0, 2, 4};
+    const size_t fine[3] = {0, 2, 3};
+    const size_t size = sizeof(ntr_course_report);
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_course_report c[2], ref[2];
+    int st[2] = {-1, -1};
+    size_t failed = 77;
+    (void)state;
+    memset(c, 0x5a, sizeof c);
+    memcpy(ref, c, sizeof c);
+    assert_int_equal(ntr_batch_course_assess(2, NULL, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_course_assess(2, fine, NULL, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, NULL, size, c, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_course_assess(0, fine, s, 3, &lim, size, NULL, st, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size, c, NULL, &failed),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_batch_course_assess(2, decreasing, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, beyond, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_ARG);
+    /* Report sizes: too small, not a multiple of the alignment, so large
+     * that groups x size does not fit in a size_t (no caller can own such
+     * an array). */
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size - sizeof(double), c, st,
+                                             &failed), NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size + 1, c, st, &failed),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, 0, c, st, &failed),
+                     NTR_ERR_ARG);
+    {
+        const size_t three[4] = {0, 1, 2, 3};
+        assert_int_equal(ntr_batch_course_assess(3, three, s, 3, &lim,
+                                                 ((size_t)-1) / 2 - ((size_t)-1) / 2 % 8, c, st,
+                                                 &failed), NTR_ERR_ARG);
+    }
+    assert_memory_equal(c, ref, sizeof c);
+    assert_int_equal(st[0], -1);
+    assert_int_equal(failed, 77);
+    /* No groups: fine, nothing written but the counter. */
+    assert_int_equal(ntr_batch_course_assess(0, fine, s, 0, &lim, size, c, st, &failed), NTR_OK);
+    assert_int_equal(failed, 0);
+    assert_int_equal(st[0], -1);
+    assert_memory_equal(c, ref, sizeof c);
+    /* Limits the scalar call refuses fail every group with its status. */
+    lim.max_fall_24h = (double)NAN;
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_NONFINITE);
+    assert_int_equal(failed, 2);
+    assert_int_equal(st[0], NTR_ERR_NONFINITE);
+    assert_int_equal(st[1], NTR_ERR_NONFINITE);
+    assert_true(failed_report_values(&c[0]) && failed_report_values(&c[1]));
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    lim.goal = 0;
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_ARG);
+    assert_int_equal(failed, 2);
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    lim.struct_size = sizeof lim - 1;
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_ARG);
+    assert_int_equal(st[1], NTR_ERR_ARG);
+    /* Good limits: both groups OK (160 -> 153: a fall of 7, within 10). */
+    lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
+    assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size, c, st, &failed), NTR_OK);
+    assert_int_equal(failed, 0);
+    assert_close(c[0].max_fall_24h, 4.0, 1e-12);
+}
+
+static ntr_course_report course_out[SERIES_GROUPS];
+
+/* Random cohorts, rising and falling, with bad values and out-of-order
+ * times, under every preset and a HOLD with a target-free random limit:
+ * every group equals the scalar ntr_course_assess() bit for bit. */
+static void course_groups_equal_scalar(void **state)
+{
+    static const int presets[5] = {NTR_COURSE_HYPO_STANDARD, NTR_COURSE_HYPO_HIGH_RISK,
+                                   NTR_COURSE_HYPER_CHRONIC, NTR_COURSE_HYPER_ACUTE,
+                                   NTR_COURSE_HOLD};
+    size_t round;
+    size_t flagged_fall = 0, flagged_rise = 0;
+    (void)state;
+    for (round = 0; round < 6; round++) {
+        size_t g, i = 0, failed, bad = 0;
+        int ret;
+        ntr_course_limits lim = round < 5 ? course_preset(presets[round])
+                                          : course_preset(NTR_COURSE_HOLD);
+        if (round == 5) {
+            lim.max_rise_48h = 6.0 + 6.0 * uniform01();
+            lim.max_fall_48h = 6.0 + 6.0 * uniform01();
+        }
+        for (g = 0; g < SERIES_GROUPS; g++) {
+            size_t k, len = (size_t)(uniform01() * 10.0);
+            const int down = uniform01() < 0.5;
+            double t = -24.0 + 48.0 * uniform01();
+            double na = down ? 150.0 + 20.0 * uniform01() : 105.0 + 20.0 * uniform01();
+            series_offsets[g] = i;
+            for (k = 0; k < len && i < SERIES_SAMPLES; k++, i++) {
+                double u = uniform01();
+                t += u < 0.02 ? -1.0 : 24.0 * uniform01();
+                na += down ? 2.0 - 8.0 * uniform01() : -2.0 + 8.0 * uniform01();
+                series[i].hours = t;
+                series[i].na_mmol_l = u > 0.99 ? (double)NAN : u > 0.98 ? 300.0 : na;
+            }
+        }
+        series_offsets[SERIES_GROUPS] = i;
+        memset(course_out, 0x5a, sizeof course_out);
+        ret = ntr_batch_course_assess(SERIES_GROUPS, series_offsets, series, i, &lim,
+                                      sizeof course_out[0], course_out, series_status, &failed);
+        for (g = 0; g < SERIES_GROUPS; g++) {
+            ntr_course_report expected;
+            size_t n = series_offsets[g + 1] - series_offsets[g];
+            int st;
+            memset(&expected, 0, sizeof expected);
+            expected.struct_size = sizeof expected;
+            st = ntr_course_assess(series + series_offsets[g], n, &lim, &expected);
+            assert_int_equal(st, series_status[g]);
+            if (st == NTR_OK) {
+                assert_true(same_report(&expected, &course_out[g]));
+                flagged_fall += (course_out[g].flags &
+                                 (NTR_CF_FALL_OVER_24H | NTR_CF_FALL_OVER_48H)) != 0u;
+                flagged_rise += (course_out[g].flags & (NTR_CF_OVER_24H | NTR_CF_OVER_48H)) != 0u;
+            } else {
+                assert_true(failed_report_values(&course_out[g]));
+                bad++;
+            }
+        }
+        assert_true(bad > 0 && bad < SERIES_GROUPS);
+        check_summary(ret, failed, series_status, SERIES_GROUPS, bad);
+    }
+    assert_true(flagged_fall > 0);
+    assert_true(flagged_rise > 0);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -828,6 +1103,10 @@ int main(void)
         cmocka_unit_test(correction_groups_published),
         cmocka_unit_test(correction_groups_contract),
         cmocka_unit_test(correction_groups_equal_scalar),
+        cmocka_unit_test(course_groups_published),
+        cmocka_unit_test(course_groups_stride),
+        cmocka_unit_test(course_groups_contract),
+        cmocka_unit_test(course_groups_equal_scalar),
     };
     return cmocka_run_group_tests_name("batch", tests, NULL, NULL);
 }

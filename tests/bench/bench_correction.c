@@ -14,6 +14,10 @@
  * The checks outside the timed loops confirm that they agree (the course
  * watcher exactly while it has not compacted, never below after), so the
  * timing is of correct work.
+ * Then the grouped and plan entry points of 1.1: ntr_course_assess per
+ * series against ntr_batch_course_assess over the same cohort (which must
+ * agree bit for bit), and ntr_course_plan_check against the rise-only
+ * ntr_plan_check on the same plan.
  *
  * Usage: bench_correction [rounds]   (default 5)
  * Prints, per series length, nanoseconds per series for each way and the
@@ -195,6 +199,115 @@ static int run(size_t n, size_t patients, double spacing_h, int rounds)
     return bad;
 }
 
+/* ---- both directions (1.1) ---------------------------------------------- */
+
+static int same_report(const ntr_course_report *a, const ntr_course_report *b)
+{
+    return memcmp(&a->max_rise_24h, &b->max_rise_24h, 5 * sizeof(double)) == 0 &&
+           a->flags == b->flags &&
+           memcmp(&a->rise_first_24h, &b->rise_first_24h, 7 * sizeof(double)) == 0;
+}
+
+/* ns per series: the scalar course assessment in a loop, and the grouped
+ * call over the same cohort; returns 0 when every group agreed. */
+static int run_course(size_t n, size_t patients, double spacing_h, int rounds)
+{
+    ntr_sample *s = malloc(sizeof *s * n * patients);
+    size_t *offsets = malloc(sizeof *offsets * (patients + 1));
+    ntr_course_report *grouped = malloc(sizeof *grouped * patients);
+    int *status = malloc(sizeof *status * patients);
+    ntr_course_limits lim;
+    double t_one[32], t_batch[32];
+    volatile unsigned int sink = 0;
+    int bad = 0;
+    if (s == NULL || offsets == NULL || grouped == NULL || status == NULL) {
+        return 1;
+    }
+    ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    make_series(s, patients, n, spacing_h);
+    /* Touch the output pages before timing: the first writes to freshly
+     * mapped memory would otherwise be charged to the grouped call. */
+    memset(grouped, 0, sizeof *grouped * patients);
+    memset(status, 0, sizeof *status * patients);
+    for (size_t p = 0; p <= patients; p++) {
+        offsets[p] = p * n;
+    }
+    for (int r = 0; r < rounds; r++) {
+        double t0 = now_ns();
+        for (size_t p = 0; p < patients; p++) {
+            ntr_course_report c;
+            c.struct_size = sizeof c;
+            bad |= ntr_course_assess(s + p * n, n, &lim, &c) != NTR_OK;
+            sink += c.flags;
+        }
+        double t1 = now_ns();
+        bad |= ntr_batch_course_assess(patients, offsets, s, n * patients, &lim, sizeof grouped[0],
+                                       grouped, status, NULL) != NTR_OK;
+        double t2 = now_ns();
+        t_one[r] = (t1 - t0) / (double)patients;
+        t_batch[r] = (t2 - t1) / (double)patients;
+    }
+    for (size_t p = 0; p < patients; p++) {
+        ntr_course_report c;
+        c.struct_size = sizeof c;
+        ntr_course_assess(s + p * n, n, &lim, &c);
+        bad |= !same_report(&c, &grouped[p]);
+    }
+    printf("%7zu %9zu %12.1f %12.1f%s\n", n, patients, median(t_one, rounds),
+           median(t_batch, rounds), bad ? "  DISAGREE" : "");
+    free(s);
+    free(offsets);
+    free(grouped);
+    free(status);
+    (void)sink;
+    return bad;
+}
+
+/* ns per call of the two plan checks on an invented plan: 3% saline
+ * 150 mL twice over 40 min and a water diuresis from 4 h, 24 h at
+ * 0.5 h steps, three samples of history. */
+static int run_plans(int rounds)
+{
+    const ntr_sample history[3] = {{-12.0, 112.0}, {-6.0, 113.5}, {0.0, 115.0}};
+    ntr_timed_flow plan[2];
+    ntr_limits lim;
+    ntr_course_limits course;
+    double t_old[32], t_new[32];
+    const int calls = 2000;
+    int bad = 0;
+    memset(plan, 0, sizeof plan);
+    plan[0].end_h = 2.0 / 3.0;
+    plan[0].rate_ml_h = 450.0;
+    plan[0].na_mmol_l = 513.0;
+    plan[1].start_h = 4.0;
+    plan[1].end_h = 24.0;
+    plan[1].rate_ml_h = -250.0;
+    plan[1].na_mmol_l = 30.0;
+    plan[1].k_mmol_l = 10.0;
+    ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+    ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &course);
+    for (int r = 0; r < rounds; r++) {
+        ntr_plan_result a;
+        ntr_course_plan_result b;
+        double t0 = now_ns();
+        for (int k = 0; k < calls; k++) {
+            bad |= ntr_plan_check(history, 3, 40.0, plan, 2, 24.0, 0.5, &lim, &a) != NTR_OK;
+        }
+        double t1 = now_ns();
+        for (int k = 0; k < calls; k++) {
+            b.struct_size = sizeof b;
+            bad |= ntr_course_plan_check(history, 3, 40.0, plan, 2, 24.0, 0.5, &course, &b) != NTR_OK;
+        }
+        double t2 = now_ns();
+        bad |= a.breach_24h_h != b.breach_rise_24h_h;
+        t_old[r] = (t1 - t0) / calls;
+        t_new[r] = (t2 - t1) / calls;
+    }
+    printf("# plan check, ns per call: ntr_plan_check %.1f, ntr_course_plan_check %.1f%s\n",
+           median(t_old, rounds), median(t_new, rounds), bad ? "  DISAGREE" : "");
+    return bad;
+}
+
 int main(int argc, char **argv)
 {
     int rounds = argc > 1 ? atoi(argv[1]) : 5;
@@ -212,5 +325,10 @@ int main(int argc, char **argv)
     /* Long, dense series (monitoring): where O(n^2) hurts. */
     bad |= run(1000, 200, 0.5, rounds);
     bad |= run(10000, 4, 0.5, rounds);
+    printf("# both directions (1.1), ns per series (median of %d rounds)\n", rounds);
+    printf("#     n  patients  course_assess  batch_course\n");
+    bad |= run_course(12, 200000, 6.0, rounds);
+    bad |= run_course(1000, 200, 0.5, rounds);
+    bad |= run_plans(rounds);
     return bad;
 }

@@ -68,6 +68,8 @@ static ntr_sample g_course[32];
 static size_t g_count;
 static ntr_sample g_history[3];
 static ntr_plan_result g_plan;
+static ntr_course_limits g_course_limits;
+static ntr_course_plan_result g_course_plan;
 
 static ntr_finding_value known(double value)
 {
@@ -130,6 +132,8 @@ static void setup(void)
         g_history[k].hours = 3.0 * (double)k;
         g_history[k].na_mmol_l = 114.0 + 0.5 * (double)k;
     }
+    ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &g_course_limits);
+    g_course_plan.struct_size = sizeof g_course_plan;
 }
 
 /* Invented, clinically plausible inputs that take the full computing path
@@ -268,6 +272,12 @@ PAIR(ntr_plan_check,
      stub_pzdpzddp_p(g_history, 3, 30.0, g_plan_flows, 2, 24.0, 1.0,
                      &g_limits, &g_plan))
 
+PAIR(ntr_course_plan_check,
+     ntr_course_plan_check(g_history, 3, 30.0, g_plan_flows, 2, 24.0, 1.0,
+                           &g_course_limits, &g_course_plan),
+     stub_pzdpzddp_p(g_history, 3, 30.0, g_plan_flows, 2, 24.0, 1.0,
+                     &g_course_limits, &g_course_plan))
+
 struct pair {
     const char *name;
     long (*loop)(long);
@@ -320,6 +330,7 @@ static const struct pair pairs[] = {
     ENTRY(ntr_balance_predict),
     ENTRY(ntr_balance_course),
     ENTRY(ntr_plan_check),
+    ENTRY(ntr_course_plan_check),
 };
 
 int main(int argc, char **argv)

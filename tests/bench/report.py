@@ -29,6 +29,7 @@ SERIES = {
     "ntr_balance_predict": "2 flows",
     "ntr_balance_course": "2 flows, 25 points",
     "ntr_plan_check": "3 samples of history, 2 flows, 24 points",
+    "ntr_course_plan_check": "3 samples of history, 2 flows, 24 points, both directions",
 }
 
 

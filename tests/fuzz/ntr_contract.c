@@ -2694,6 +2694,454 @@ static void extra_groups(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_c
     judge(f, &c, NTRC_KIND_SERIES);
 }
 
+/* ---- direction-aware plan check and grouped course assessment ------------------ */
+
+/* Course limits as in ntr_course_assess()'s entry (COURSE_NUMS,
+ * COURSE_ENUMS, course_limits_from, course_limits_status): the plan check
+ * has its limits at num[3..7], after body water, duration and step. */
+static void plan_course_limits(const ntrc_case *c, ntr_course_limits *lim)
+{
+    course_limits_from(c, lim);
+    lim->max_rise_24h = c->num[3];
+    lim->max_rise_48h = c->num[4];
+    lim->max_fall_24h = c->num[5];
+    lim->max_fall_48h = c->num[6];
+    lim->min_change_24h = c->num[7];
+}
+
+static int size_mode_ok(int mode)
+{
+    return mode == 0 || mode == 2;
+}
+
+/* en[0] goal, en[1] limits' size mode, en[2] result's (or report's) size
+ * mode, as in COURSE_ENUMS. */
+enum { CP_GOAL, CP_LIM_SIZE, CP_OUT_SIZE };
+
+static void base_course_plan(ntrc_case *c)
+{
+    base_plan(c);
+}
+
+static void prepare_course_plan(ntrc_case *c)
+{
+    c->out.s.course_plan.struct_size = siad_size(c->en[CP_OUT_SIZE], sizeof c->out.s.course_plan);
+}
+
+static int call_course_plan_check(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    plan_course_limits(c, &lim);
+    return ntr_course_plan_check(in_null(c, 0) ? NULL : c->samples, c->n, c->num[0],
+                                 in_null(c, 1) ? NULL : c->tflows, c->n2, c->num[1], c->num[2],
+                                 in_null(c, 2) ? NULL : &lim,
+                                 in_null(c, 3) ? NULL : &c->out.s.course_plan);
+}
+
+static int predict_course_plan_check(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st;
+    (void)f;
+    if (in_null(c, 0) || in_null(c, 2) || in_null(c, 3) || (in_null(c, 1) && c->n2 > 0)) {
+        return NTR_ERR_NULL;
+    }
+    if (c->n == 0 || !size_mode_ok(c->en[CP_LIM_SIZE]) ||
+        !ntrc_enum_is_valid(f, CP_GOAL, c->en[CP_GOAL]) || !size_mode_ok(c->en[CP_OUT_SIZE]) ||
+        !tflows_reserved_ok(c->tflows, c->n2)) {
+        return NTR_ERR_ARG;
+    }
+    if ((st = samples_status(c->samples, c->n)) != NTR_OK ||
+        (st = check_value(c->num[0], 0.1, 400.0)) != NTR_OK ||
+        (st = tflows_status(c->tflows, c->n2)) != NTR_OK ||
+        (st = span_status(c->num[1], c->num[2])) != NTR_OK ||
+        (st = course_limits_status(c->en[CP_GOAL], &c->num[3])) != NTR_OK) {
+        return st;
+    }
+    if (!samples_sorted(c->samples, c->n) || !tflows_ordered(c->tflows, c->n2)) {
+        return NTR_ERR_ORDER;
+    }
+    return NTR_OK;
+}
+
+static int breach_time_ok(double t, double duration)
+{
+    return t == NTR_PLAN_NO_BREACH || (t > 0.0 && t <= duration + 1e-9);
+}
+
+static const char *ok_course_plan_check(const ntrc_case *c)
+{
+    static const unsigned int bits[4] = {NTR_CF_OVER_24H, NTR_CF_OVER_48H,
+                                         NTR_CF_FALL_OVER_24H, NTR_CF_FALL_OVER_48H};
+    const ntr_course_plan_result *p = &c->out.s.course_plan;
+    const double t[4] = {p->breach_rise_24h_h, p->breach_rise_48h_h, p->breach_fall_24h_h,
+                         p->breach_fall_48h_h};
+    double first = NTR_PLAN_NO_BREACH;
+    unsigned int first_bit = 0u;
+    size_t need = points_needed(c->num[1], c->num[2]);
+    double na_end, tbw_end;
+    int k;
+    if (p->struct_size != sizeof *p || p->course.struct_size != sizeof p->course) {
+        return "struct_size not set to the size filled";
+    }
+    if ((p->course.flags & ~NTR_CF_COURSE_ALL) != 0u || p->reserved != 0u ||
+        p->course.reserved != 0u) {
+        return "undefined flags or reserved fields written";
+    }
+    if (p->points + 2u < need || p->points > need + 1u) {
+        return "number of predicted points wrong";
+    }
+    if (!within(p->final_na_mmol_l, 80.0, 220.0) || !(p->final_tbw_l >= 0.1)) {
+        return "final state outside the model's range";
+    }
+    for (k = 0; k < 4; k++) {
+        if (!breach_time_ok(t[k], c->num[1])) {
+            return "breach time outside the plan";
+        }
+        if (t[k] != NTR_PLAN_NO_BREACH && (p->course.flags & bits[k]) == 0u) {
+            return "a breach time without its limit's flag";
+        }
+        if (t[k] != NTR_PLAN_NO_BREACH && c->num[3 + k] == 0.0) {
+            return "a breach of a limit of 0 (no limit)";
+        }
+        if (t[k] != NTR_PLAN_NO_BREACH && (first == NTR_PLAN_NO_BREACH || t[k] < first)) {
+            first = t[k];
+            first_bit = bits[k];
+        }
+    }
+    if (p->first_breach_h != first || p->first_breach_flag != first_bit) {
+        return "first breach is not the earliest of the four";
+    }
+    if (p->first_breach_direction !=
+        (first_bit == 0u ? NTR_PLAN_BREACH_NONE
+         : (first_bit & (NTR_CF_OVER_24H | NTR_CF_OVER_48H)) ? NTR_PLAN_BREACH_RISE
+                                                           : NTR_PLAN_BREACH_FALL)) {
+        return "direction differs from the first breach's limit";
+    }
+    if (state_at(c->samples[c->n - 1].na_mmol_l, c->num[0], c->tflows, c->n2, c->num[1],
+                 &na_end, &tbw_end) == NTR_OK &&
+        (!close_to(p->final_na_mmol_l, na_end, 1e-9) || !close_to(p->final_tbw_l, tbw_end, 1e-9))) {
+        return "final state differs from the mass balance of the volumes given";
+    }
+    if (!within(p->course.max_rise_24h, 0.0, 140.0) || !within(p->course.max_fall_24h, 0.0, 140.0) ||
+        p->course.max_rise_48h < p->course.max_rise_24h ||
+        p->course.max_fall_48h < p->course.max_fall_24h) {
+        return "course figures not finite, negative or out of order";
+    }
+    return NULL;
+}
+
+static int results_course_plan(const ntrc_case *c, double *v, int max)
+{
+    const ntr_course_plan_result *p = &c->out.s.course_plan;
+    if (max < 12) {
+        return 0;
+    }
+    v[0] = p->final_na_mmol_l;
+    v[1] = p->final_tbw_l;
+    v[2] = p->breach_rise_24h_h;
+    v[3] = p->breach_rise_48h_h;
+    v[4] = p->breach_fall_24h_h;
+    v[5] = p->breach_fall_48h_h;
+    v[6] = p->first_breach_h;
+    v[7] = p->first_breach_flag;
+    v[8] = p->first_breach_direction;
+    v[9] = p->points;
+    v[10] = p->course.max_fall_24h;
+    v[11] = p->course.flags;
+    return 12;
+}
+
+static void extra_course_plan(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    int mode;
+    extra_tflows(f, judge, 1);
+    ntrc_baseline(f, &c);
+    c.n = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[1].hours = 100.0; /* history out of order */
+    judge(f, &c, NTRC_KIND_SERIES);
+    c.num[5] = NAN;             /* ... a bad limit wins */
+    judge(f, &c, NTRC_KIND_ORDER);
+    c.en[CP_GOAL] = 9;          /* ... and an unknown goal wins over both */
+    judge(f, &c, NTRC_KIND_ORDER);
+    ntrc_baseline(f, &c);
+    c.samples[0].na_mmol_l = HUGE_VAL;
+    judge(f, &c, NTRC_KIND_SERIES);
+    c.en[CP_OUT_SIZE] = 1;      /* a short result struct wins over the numbers */
+    judge(f, &c, NTRC_KIND_ORDER);
+    for (mode = -1; mode <= 3; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[CP_LIM_SIZE] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+        ntrc_baseline(f, &c);
+        c.en[CP_OUT_SIZE] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+    /* Contradicting limits: a 24 h limit looser than the 48 h one, a
+     * target above the goal's ceiling, a target under hold. */
+    ntrc_baseline(f, &c);
+    c.num[3] = 20.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[7] = 12.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.en[CP_GOAL] = NTR_GOAL_HOLD;
+    c.num[7] = 1.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    /* Plans that breach: a fast rise; a fast fall (5% dextrose) under each
+     * goal; no limits at all. */
+    ntrc_baseline(f, &c);
+    c.tflows[0].rate_ml_h = 400.0;
+    c.tflows[0].end_h = 24.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (mode = NTR_GOAL_RAISE; mode <= NTR_GOAL_HOLD; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[CP_GOAL] = mode;
+        c.num[7] = 0.0;
+        c.tflows[0].rate_ml_h = 300.0; /* 121 falls to about 99 by 24 h */
+        c.tflows[0].na_mmol_l = 0.0;
+        c.tflows[0].end_h = 24.0;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+    ntrc_baseline(f, &c);
+    c.num[3] = c.num[4] = c.num[5] = c.num[6] = c.num[7] = 0.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+}
+
+/* Grouped: en[0] goal, en[1] limits' size mode, en[2] report size mode
+ * (the stride). */
+static size_t course_report_stride(const ntrc_case *c)
+{
+    return siad_size(c->en[CP_OUT_SIZE], sizeof(ntr_course_report));
+}
+
+static int call_batch_course_assess(ntrc_case *c)
+{
+    ntr_course_limits lim;
+    course_limits_from(c, &lim);
+    return ntr_batch_course_assess(
+        c->groups, in_null(c, 0) ? NULL : c->offsets, in_null(c, 1) ? NULL : c->samples,
+        c->capacity, in_null(c, 2) ? NULL : &lim, course_report_stride(c),
+        in_null(c, 3) ? NULL : (ntr_course_report *)(void *)c->out.s.course_groups.out,
+        in_null(c, 4) ? NULL : c->out.s.course_groups.status, in_null(c, 5) ? NULL : &c->out.z[1]);
+}
+
+/* The call-level status: NULL pointers, the stride, the offsets. */
+static int course_groups_call_level(const ntrc_case *c)
+{
+    if ((c->out_null & ~NTRC_NULL_IN(5)) != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (!size_mode_ok(c->en[CP_OUT_SIZE])) {
+        return NTR_ERR_ARG;
+    }
+    return groups_call_level(c);
+}
+
+static int course_group_status(const ntrc_case *c, size_t g, ntr_course_report *r)
+{
+    ntr_course_limits lim;
+    course_limits_from(c, &lim);
+    r->struct_size = sizeof *r;
+    return ntr_course_assess(&c->samples[c->offsets[g]], c->offsets[g + 1] - c->offsets[g], &lim,
+                             r);
+}
+
+static int predict_batch_course(const ntrc_fn *f, const ntrc_case *c)
+{
+    size_t g;
+    int st = course_groups_call_level(c);
+    (void)f;
+    if (st != NTR_OK) {
+        return st;
+    }
+    for (g = 0; g < c->groups; g++) {
+        ntr_course_report r;
+        st = course_group_status(c, g, &r);
+        if (st != NTR_OK) {
+            return st;
+        }
+    }
+    return NTR_OK;
+}
+
+static int same_double_bits(double a, double b)
+{
+    return memcmp(&a, &b, sizeof a) == 0;
+}
+
+/* Every group equals the scalar call (member by member, bits); failed
+ * groups NaN with zero flags; the bytes between reports and the groups
+ * past the last untouched. */
+static const char *judge_course_groups(const ntrc_case *c, const ntrc_outs *before)
+{
+    const size_t stride = course_report_stride(c);
+    const unsigned char *now = c->out.s.course_groups.out;
+    const unsigned char *was = before->s.course_groups.out;
+    size_t g;
+    size_t bad = 0;
+    for (g = 0; g < 8; g++) {
+        ntr_course_report o, want;
+        const double *od_, *wd_;
+        int st;
+        size_t k;
+        if (g >= c->groups) {
+            if (memcmp(now + g * stride, was + g * stride, sizeof o) != 0 ||
+                c->out.s.course_groups.status[g] != before->s.course_groups.status[g]) {
+                return "a group past the last was written";
+            }
+            continue;
+        }
+        if (memcmp(now + g * stride + sizeof o, was + g * stride + sizeof o, stride - sizeof o) !=
+            0) {
+            return "bytes past a report's 1.1 size were written";
+        }
+        memcpy(&o, now + g * stride, sizeof o);
+        st = course_group_status(c, g, &want);
+        if (c->out.s.course_groups.status[g] != st) {
+            return "group status differs from ntr_course_assess";
+        }
+        if (o.struct_size != sizeof o || o.reserved != 0u) {
+            return "group report's struct_size or reserved wrong";
+        }
+        if (st == NTR_OK) {
+            if (!same_double_bits(o.max_rise_24h, want.max_rise_24h) ||
+                !same_double_bits(o.max_rise_48h, want.max_rise_48h) ||
+                !same_double_bits(o.max_fall_24h, want.max_fall_24h) ||
+                !same_double_bits(o.max_fall_48h, want.max_fall_48h) ||
+                !same_double_bits(o.excess_mmol_l, want.excess_mmol_l) || o.flags != want.flags ||
+                !same_double_bits(o.rise_first_24h, want.rise_first_24h) ||
+                !same_double_bits(o.fall_first_24h, want.fall_first_24h) ||
+                !same_double_bits(o.rise_now_24h, want.rise_now_24h) ||
+                !same_double_bits(o.fall_now_24h, want.fall_now_24h) ||
+                !same_double_bits(o.last_rate_per_h, want.last_rate_per_h) ||
+                !same_double_bits(o.elapsed_h, want.elapsed_h) ||
+                !same_double_bits(o.worst_at_h, want.worst_at_h)) {
+                return "group report differs (bits) from ntr_course_assess";
+            }
+            continue;
+        }
+        bad++;
+        od_ = &o.max_rise_24h;
+        wd_ = &o.rise_first_24h;
+        for (k = 0; k < 5; k++) {
+            if (!isnan(od_[k])) {
+                return "failed group not NaN";
+            }
+        }
+        for (k = 0; k < 7; k++) {
+            if (!isnan(wd_[k])) {
+                return "failed group not NaN";
+            }
+        }
+        if (o.flags != 0u) {
+            return "failed group with flags";
+        }
+    }
+    if (!in_null(c, 5) && c->out.z[1] != bad) {
+        return "failed count wrong";
+    }
+    return NULL;
+}
+
+static const char *ok_batch_course(const ntrc_case *c)
+{
+    ntrc_outs before;
+    memset(&before, SENTINEL_BYTE, sizeof before);
+    return judge_course_groups(c, &before);
+}
+
+static const char *err_batch_course(const ntrc_case *c, const ntrc_outs *before, int status)
+{
+    (void)status;
+    if (course_groups_call_level(c) != NTR_OK) {
+        return memcmp(&c->out, before, sizeof *before) == 0
+                   ? NULL
+                   : "something was written on a call-level error";
+    }
+    return judge_course_groups(c, before);
+}
+
+static int results_course_groups(const ntrc_case *c, double *v, int max)
+{
+    const size_t stride = course_report_stride(c);
+    int k = 0;
+    size_t g;
+    for (g = 0; g < c->groups && k + 4 <= max; g++) {
+        ntr_course_report o;
+        memcpy(&o, c->out.s.course_groups.out + g * stride, sizeof o);
+        v[k++] = c->out.s.course_groups.status[g];
+        v[k++] = o.max_rise_24h;
+        v[k++] = o.max_fall_24h;
+        v[k++] = o.flags;
+    }
+    return k;
+}
+
+static void extra_course_groups(const ntrc_fn *f, void (*judge)(const ntrc_fn *, ntrc_case *, int))
+{
+    ntrc_case c;
+    unsigned int k;
+    int mode;
+    /* An empty group; groups = 0 (with and without NULLs). */
+    ntrc_baseline(f, &c);
+    base_groups(&c);
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.groups = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (k = 0; k < 6; k++) {
+        ntrc_baseline(f, &c);
+        c.groups = 0;
+        c.out_null = NTRC_NULL_IN(k);
+        judge(f, &c, NTRC_KIND_NULL);
+    }
+    /* Offsets that decrease, or run past n_samples; strides of every mode
+     * (a bad stride wins over bad offsets: both are call-level ARG). */
+    ntrc_baseline(f, &c);
+    c.offsets[1] = 5;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.capacity = 5;
+    judge(f, &c, NTRC_KIND_SERIES);
+    for (mode = -1; mode <= 3; mode++) {
+        ntrc_baseline(f, &c);
+        c.en[CP_OUT_SIZE] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+        ntrc_baseline(f, &c);
+        c.en[CP_LIM_SIZE] = mode;
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+    /* A bad sample in one group only; an unsorted group; bad limits; an
+     * unknown goal (every group fails with it). */
+    ntrc_baseline(f, &c);
+    c.samples[3].na_mmol_l = NAN;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.samples[5].hours = 1.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.num[0] = 40.0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    ntrc_baseline(f, &c);
+    c.en[CP_GOAL] = 0;
+    judge(f, &c, NTRC_KIND_SERIES);
+    /* A falling cohort under each goal. */
+    for (mode = NTR_GOAL_RAISE; mode <= NTR_GOAL_HOLD; mode++) {
+        size_t i;
+        ntrc_baseline(f, &c);
+        c.en[CP_GOAL] = mode;
+        c.num[4] = 0.0;
+        for (i = 0; i < c.n; i++) {
+            c.samples[i].na_mmol_l = 170.0 - 4.0 * (double)i;
+        }
+        judge(f, &c, NTRC_KIND_SERIES);
+    }
+}
+
 /* ---- the table --------------------------------------------------------------- */
 
 
@@ -2936,6 +3384,27 @@ const ntrc_fn ntrc_functions[] = {
      .predict = predict_batch_correction, .base_series = base_groups_valid,
      .fuzz_series = fuzz_groups, .check_err = err_batch_correction, .results = results_groups,
      .extra_cases = extra_groups, .check_ok = ok_batch_correction},
+    {CALL(course_plan_check), .n_enum = 3,
+     .en = {{"goal", NTR_ERR_ARG, 3, {NTR_GOAL_RAISE, NTR_GOAL_LOWER, NTR_GOAL_HOLD}},
+            SIZE_MODE("limits_struct_size"), SIZE_MODE("result_struct_size")},
+     .n_num = 8,
+     .num = {TBW, {"duration_h", 0.0, 720.0, 1}, {"step_h", 1.0 / 60.0, 720.0, 0},
+             COURSE_NUMS},
+     .n_in_ptr = 4,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER) | ST(ERR_DOMAIN),
+     .base_num = {35.0, 24.0, 2.0, 10.0, 18.0, 10.0, 0.0, 4.0},
+     .base_en = {NTR_GOAL_RAISE, 0, 0}, .predict = predict_course_plan_check,
+     .base_series = base_course_plan, .fuzz_series = fuzz_plan,
+     .prepare_out = prepare_course_plan, .results = results_course_plan,
+     .extra_cases = extra_course_plan, .check_ok = ok_course_plan_check},
+    {CALL(batch_course_assess), .n_enum = 3,
+     .en = {COURSE_ENUMS}, .n_num = 5, .num = {COURSE_NUMS}, .n_in_ptr = 6,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER),
+     .base_num = {10.0, 18.0, 10.0, 0.0, 4.0}, .base_en = {NTR_GOAL_RAISE, 0, 0},
+     .predict = predict_batch_course, .base_series = base_groups_valid,
+     .fuzz_series = fuzz_groups, .check_err = err_batch_course,
+     .results = results_course_groups, .extra_cases = extra_course_groups,
+     .check_ok = ok_batch_course},
     {CALL(relower_estimate), .n_num = 9,
      .num = {NA, TBW, {"fluid_na_mmol_l", 0.0, 1100.0, 0}, {"fluid_k_mmol_l", 0.0, 400.0, 0},
              {"lower_by_mmol_l", 0.0, 50.0, 1}, {"hours", 1.0 / 60.0, 720.0, 0},

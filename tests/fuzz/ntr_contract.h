@@ -64,6 +64,12 @@ typedef struct ntrc_outs {
             ntr_correction out[8];
             int status[8];
         } groups;
+        ntr_course_plan_result course_plan;
+        struct {
+            /* reports at a stride of up to sizeof + 64 bytes */
+            unsigned char out[8 * (sizeof(ntr_course_report) + 64)];
+            int status[8];
+        } course_groups;
     } s;
 } ntrc_outs;
 
