@@ -50,6 +50,10 @@
 #define NTR_PLAN_HOURS_MAX 720.0     /* plan length and flow times, h (30 days) */
 #define NTR_PLAN_STEP_MIN (1.0 / 60.0) /* plan step and re-lowering period, h (one minute) */
 #define NTR_FLOW_VOLUME_MIN (-30.0)  /* a loss in ntr_balance_predict, L (as NTR_URINE_VOLUME_MAX) */
+/* Therapy (lib/therapy.c); docs/ranges.md. */
+#define NTR_RELOWER_MARGIN_MAX 10.0  /* margin below a limit when re-lowering, mmol/L */
+#define NTR_INSENSIBLE_MAX 500.0     /* insensible water loss, mL/h (12 L/day) */
+#define NTR_HYPER_CHECK_POINTS 48.0  /* predicted points the lowering plan is checked at */
 
 /* NTR_OK when x is finite and lo <= x <= hi; lo and hi must be finite.
  * The valid case costs one pair of comparisons: NaN fails both and an
