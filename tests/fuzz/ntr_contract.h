@@ -65,6 +65,7 @@ typedef struct ntrc_outs {
             int status[8];
         } groups;
         ntr_course_plan_result course_plan;
+        ntr_vaptan_watch vaptan;
         struct {
             /* reports at a stride of up to sizeof + 64 bytes */
             unsigned char out[8 * (sizeof(ntr_course_report) + 64)];
