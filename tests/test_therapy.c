@@ -435,6 +435,27 @@ static void hyper_lower_checked_against_limits(void **state)
                                           &rate, &v, &breach), NTR_ERR_DOMAIN);
 }
 
+static void hyper_lower_losses_alone(void **state)
+{
+    double rate = NTR_TEST_SENTINEL, v = NTR_TEST_SENTINEL, breach = NTR_TEST_SENTINEL;
+    (void)state;
+    /* Hand-worked: Na 160, TBW 40 L, urine 100 mL/h at Na+K 300 for 24 h:
+     * 160 - 2.4*(300 - 160) / 37.6 = 151.06, already a fall of more than 5:
+     * no fluid; the fall of 8.9 is within the chronic 10 per day. */
+    assert_int_equal(ntr_hyper_lower_plan(160.0, 40.0, NTR_FLUID_DEXTROSE_5,
+                                          NTR_COURSE_HYPER_CHRONIC, 5.0, 24.0, 100.0, 300.0,
+                                          0.0, &rate, &v, &breach), NTR_OK);
+    assert_true(v == 0.0 && rate == 0.0);
+    assert_true(breach == NTR_PLAN_NO_BREACH);
+    /* At 150 mL/h the same urine alone lowers by 13.9 in 24 h: the check
+     * reports the breach of the chronic limit although no fluid is given. */
+    assert_int_equal(ntr_hyper_lower_plan(160.0, 40.0, NTR_FLUID_DEXTROSE_5,
+                                          NTR_COURSE_HYPER_CHRONIC, 5.0, 24.0, 150.0, 300.0,
+                                          0.0, &rate, &v, &breach), NTR_OK);
+    assert_true(v == 0.0);
+    assert_true(breach > 0.0 && breach < 24.0);
+}
+
 static void hyper_lower_properties(void **state)
 {
     double prev = -1.0, rate, v, breach, u, i;
@@ -583,6 +604,7 @@ int main(void)
         cmocka_unit_test(vaptan_bad_inputs),
         cmocka_unit_test(hyper_lower_hand_worked),
         cmocka_unit_test(hyper_lower_checked_against_limits),
+        cmocka_unit_test(hyper_lower_losses_alone),
         cmocka_unit_test(hyper_lower_properties),
         cmocka_unit_test(hyper_lower_bad_inputs),
         cmocka_unit_test(bolus_hand_worked),
