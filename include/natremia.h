@@ -2663,7 +2663,8 @@ NTR_API int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
  * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L.
  * @param stop_rise_mmol_l   rise d at which to stop, above 0 and at most 50.
  * @param[out] rise_24h_mmol_l predicted change over 24 h (negative if it falls).
- * @param[out] stop_h          hours until the rise reaches d, or NTR_THERAPY_NEVER.
+ * @param[out] stop_h          hours until the rise reaches d (0 to 720), or
+ *                             NTR_THERAPY_NEVER.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
  *         NTR_ERR_DOMAIN (the 24 h course or the state at the stop hour
  *         leaves the model's range, as in ntr_balance_course()).

@@ -3203,7 +3203,8 @@ static const char *ok_dda_clamp(const ntrc_case *c)
     if (!within(c->out.d[0], -140.0, 140.0)) {
         return "24 h change outside the model's range";
     }
-    if (c->out.d[1] != NTR_THERAPY_NEVER && !(c->out.d[1] > 0.0 && c->out.d[1] <= 720.0)) {
+    /* A stop rise of a denormal reaches its hour at 0 (the product underflows). */
+    if (c->out.d[1] != NTR_THERAPY_NEVER && !(c->out.d[1] >= 0.0 && c->out.d[1] <= 720.0)) {
         return "stop hour neither never nor within 720 h";
     }
     return NULL;
