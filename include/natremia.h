@@ -3250,6 +3250,9 @@ NTR_API int ntr_fit_reproject(const ntr_sample *history, size_t n,
                               size_t n_flows, double duration_h, double step_h,
                               const ntr_course_limits *lim,
                               ntr_course_plan_result *out);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: therapy (lib/therapy.c, docs/therapy.md) ================ */
 /* ======================================================================= */
 
