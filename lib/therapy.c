@@ -245,6 +245,12 @@ int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
         return NTR_ERR_DOMAIN;
     }
     loss_c = loss_ml_h > 0.0 ? urine_ml_h * urine_na_k_mmol_l / loss_ml_h : 0.0;
+    /* The pooled concentration is at most the urine's; rounding can put it
+     * a hair above (urine at the range's top, no insensible loss), where
+     * ntr_relower_estimate() would refuse it as out of range. */
+    if (loss_c > urine_na_k_mmol_l) {
+        loss_c = urine_na_k_mmol_l;
+    }
     NTR_TRY(ntr_relower_estimate(na_mmol_l, tbw_l, fluid_na, fluid_k,
                                  fall_mmol_l, hours, loss_ml_h, loss_c, 0.0,
                                  &volume, &rate));

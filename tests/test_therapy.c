@@ -456,6 +456,28 @@ static void hyper_lower_losses_alone(void **state)
     assert_true(breach > 0.0 && breach < 24.0);
 }
 
+/* Found by fuzz-short: urine Na+K at the top of its range (500 mmol/L) with
+ * no insensible loss pooled to 500.00000000000006 and was refused as out of
+ * range. The pooled value equals the urine's (hand-worked: u*c/u = c), and
+ * the call must give the same answer as with the urine given straight to
+ * ntr_relower_estimate(). */
+static void hyper_lower_urine_at_range_top(void **state)
+{
+    const double na = 0x1.3d507d507d508p+7, tbw = 0x1.932fb062e396p+6;
+    const double fall = 0x1.52eef2eef2eefp+4, hours = 0x1.68438a2167ff4p+4;
+    const double urine = 0x1.3881388138814p+4;
+    double rate = NTR_TEST_SENTINEL, v = NTR_TEST_SENTINEL, breach = NTR_TEST_SENTINEL;
+    double fluid_na, fluid_k, v_direct, rate_direct;
+    (void)state;
+    assert_int_equal(ntr_fluid_preset(NTR_FLUID_NACL_0_2_DEXTROSE_5, &fluid_na, &fluid_k), NTR_OK);
+    assert_int_equal(ntr_relower_estimate(na, tbw, fluid_na, fluid_k, fall, hours, urine,
+                                          500.0, 0.0, &v_direct, &rate_direct), NTR_OK);
+    assert_int_equal(ntr_hyper_lower_plan(na, tbw, NTR_FLUID_NACL_0_2_DEXTROSE_5, NTR_COURSE_HYPER_ACUTE,
+                                          fall, hours, urine, 500.0, 0.0, &rate, &v, &breach),
+                     NTR_OK);
+    assert_true(v == v_direct && rate == rate_direct);
+}
+
 static void hyper_lower_properties(void **state)
 {
     double prev = -1.0, rate, v, breach, u, i;
@@ -605,6 +627,7 @@ int main(void)
         cmocka_unit_test(hyper_lower_hand_worked),
         cmocka_unit_test(hyper_lower_checked_against_limits),
         cmocka_unit_test(hyper_lower_losses_alone),
+        cmocka_unit_test(hyper_lower_urine_at_range_top),
         cmocka_unit_test(hyper_lower_properties),
         cmocka_unit_test(hyper_lower_bad_inputs),
         cmocka_unit_test(bolus_hand_worked),
