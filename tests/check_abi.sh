@@ -7,7 +7,8 @@
 #   check_abi.sh <libnatremia.so> <baseline-dir> <include-dir>           check
 #   check_abi.sh --update <libnatremia.so> <baseline-dir> <include-dir>  rewrite
 #
-# Two baselines are kept:
+# Two baselines are kept (and a frozen copy of the 1.0.0 pair in
+# tests/abi/1.0.0/, against which only additions are allowed):
 #   natremia.abi     abidw's description of the exported functions and the
 #                    public types they use (only types declared in
 #                    include/ count, through --headers-dir). abidiff compares
@@ -102,6 +103,37 @@ if ! diff -u "$baseline_dir/natremia.macros" "$work/natremia.macros" > "$work/ma
     status=1
 else
     echo "OK: $(wc -l < "$work/natremia.macros") public NTR_* macros unchanged"
+fi
+
+# ---- against the first release: additions only -------------------------
+# tests/abi/1.0.0/ is frozen. Every 1.0.0 function and type must be there
+# unchanged (abidiff with added symbols ignored finds nothing), and every
+# 1.0.0 macro keeps its value; only the version numbers may move on.
+released=$baseline_dir/1.0.0
+if [[ -d "$released" ]]; then
+    rel_rc=0
+    abidiff --no-added-syms "$released/natremia.abi" "$work/natremia.abi" \
+        > "$work/released.txt" 2>&1 || rel_rc=$?
+    if [[ $rel_rc -ne 0 ]]; then
+        echo "FAIL: against 1.0.0, something other than an addition changed (exit status $rel_rc):"
+        cat "$work/released.txt"
+        status=1
+    else
+        added=$(abidiff --added-fns "$released/natremia.abi" "$work/natremia.abi" 2>/dev/null \
+                | grep -cE "^  \[A\] 'function" || true)
+        echo "OK: against 1.0.0, additions only ($added functions added)"
+    fi
+    # The version macros are the only 1.0.0 macros allowed to change value.
+    version_macro='^#define NTR_VERSION_(MINOR|PATCH) '
+    missing=$(LC_ALL=C comm -23 <(grep -vE "$version_macro" "$released/natremia.macros") \
+                                 "$work/natremia.macros")
+    if [[ -n "$missing" ]]; then
+        echo "FAIL: 1.0.0 macros removed or changed in value:"
+        echo "$missing"
+        status=1
+    else
+        echo "OK: all $(grep -cvE "$version_macro" "$released/natremia.macros") 1.0.0 macros keep their values"
+    fi
 fi
 
 if [[ $status -ne 0 ]]; then

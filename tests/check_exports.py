@@ -4,7 +4,9 @@
 Usage: check_exports.py <libnatremia.so> <libnatremia.a>
 
 1. Exports: `nm -D --defined-only` on the shared library lists only ntr_*
-   code or read-only data at version NATREMIA_1, plus the version node.
+   code or read-only data: the 1.0.0 functions (read from the frozen ABI
+   baseline tests/abi/1.0.0/natremia.abi) at version NATREMIA_1, every
+   later one at NATREMIA_1.1, plus the two version nodes.
 2. Imports: `nm -D --undefined-only` lists nothing but the allow-lists
    below. Allocator, stdio, locale and errno imports get a named failure.
 3. No mutable state: the library's own object files (the members of the
@@ -25,7 +27,18 @@ import re
 import subprocess
 import sys
 
+import os
+
 VERSION_NODE = "NATREMIA_1"
+VERSION_NODE_1_1 = "NATREMIA_1.1"
+RELEASED_ABI = os.path.join(os.path.dirname(os.path.abspath(__file__)),
+                            "abi", "1.0.0", "natremia.abi")
+
+
+def released_functions():
+    """Names of the functions exported by 1.0.0, from the frozen baseline."""
+    with open(RELEASED_ABI, encoding="utf-8") as f:
+        return frozenset(re.findall(r"<elf-symbol name='(ntr_[a-z0-9_]+)'", f.read()))
 
 # libm functions the library may import. Keep this list short: add a
 # function only when a formula truly needs it, and say which one.
@@ -88,27 +101,31 @@ def run(argv):
 
 
 def check_defined(so_path):
-    """Every defined dynamic symbol is ntr_*@@NATREMIA_1 or the version node."""
+    """Every defined dynamic symbol is ntr_* at its node, or a version node."""
     problems = []
     exports = []
+    released = released_functions()
     for line in run(["nm", "-D", "--defined-only", so_path]).splitlines():
         fields = line.split()
         if len(fields) < 2:
             continue
         kind, name = fields[-2], fields[-1]
-        if kind == "A" and name == VERSION_NODE:
+        if kind == "A" and name in (VERSION_NODE, VERSION_NODE_1_1):
             continue
         base, _, version = name.partition("@@")
         if not base.startswith("ntr_"):
             problems.append(f"exported symbol without ntr_ prefix: {name}")
-        elif version != VERSION_NODE:
-            problems.append(f"{base} is not at default version {VERSION_NODE}: {name}")
+        elif version != (VERSION_NODE if base in released else VERSION_NODE_1_1):
+            want = VERSION_NODE if base in released else VERSION_NODE_1_1
+            problems.append(f"{base} is not at default version {want}: {name}")
         elif kind not in ("T", "R"):
             # Exported writable data (D, B) would be shared mutable state.
             problems.append(f"{base} is exported with nm type {kind}, not code or read-only data")
         exports.append(base)
     if not exports:
         problems.append("no ntr_* symbols exported at all")
+    for gone in sorted(released - set(exports)):
+        problems.append(f"{gone} was exported by 1.0.0 and is missing")
     return problems, sorted(exports)
 
 
@@ -208,7 +225,9 @@ def main(argv):
     undefined_problems, imports = check_undefined(so_path)
     state_problems = check_no_mutable_state(archive_path)
 
-    print(f"{len(exports)} exports at {VERSION_NODE}:")
+    released = released_functions()
+    print(f"{len(exports)} exports ({len(released)} at {VERSION_NODE}, "
+          f"{len(set(exports) - released)} at {VERSION_NODE_1_1}):")
     for name in exports:
         print(f"  {name}")
     print(f"{len(imports)} imports:" + ("" if imports else " none"))
