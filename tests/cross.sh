@@ -37,10 +37,8 @@ need=(meson ninja-build pkg-config)
 want_arch() { # Debian multiarch: the target's libcmocka-dev needs its architecture
   if ! dpkg --print-foreign-architectures | grep -qx "$1" && [ "$(dpkg --print-architecture)" != "$1" ]; then
     apt_as_root dpkg --add-architecture "$1"
-    arch_added=1
   fi
 }
-arch_added=0
 declare -A arch_need
 for a in "${archs[@]}"; do
   case "$a" in
@@ -52,34 +50,57 @@ for a in "${archs[@]}"; do
     *) echo "cross.sh: unknown architecture $a" >&2; exit 2 ;;
   esac
 done
-# An architecture just added has no package lists yet: update them before
-# asking which packages the mirror has.
-if [ $arch_added -eq 1 ]; then
-  apt_as_root env DEBIAN_FRONTEND=noninteractive apt-get update -qq >/dev/null || true
-fi
-# A target whose packages this release's mirror does not carry is skipped,
-# said so, and counted as skipped (exit 77 when nothing else ran), never
-# as passed.
+# The tools every target needs.
+apt_missing --quiet "${need[@]}"
+# A target whose packages this release's mirror does not carry (not in the
+# package lists, or listed but not downloadable, as when a mirror holds
+# fewer architectures than its lists announce) is skipped, said so, and
+# counted as skipped (exit 77 when nothing else ran), never as passed. Any
+# other failure to install is a failure.
+lists_updated=0
 skipped=()
+failed=()
 run_archs=()
 for a in "${archs[@]}"; do
-  absent=()
+  missing=()
   for p in ${arch_need[$a]}; do
-    apt_installed "$p" || deb_known "$p" || absent+=("$p")
+    apt_installed "$p" || missing+=("$p")
+  done
+  if [ ${#missing[@]} -eq 0 ]; then
+    run_archs+=("$a")
+    continue
+  fi
+  # (an architecture just added has no package lists yet)
+  if [ $lists_updated -eq 0 ]; then
+    apt_as_root env DEBIAN_FRONTEND=noninteractive apt-get update -qq >/dev/null || true
+    lists_updated=1
+  fi
+  absent=()
+  for p in "${missing[@]}"; do
+    deb_known "$p" || absent+=("$p")
   done
   if [ ${#absent[@]} -gt 0 ]; then
     echo "cross.sh: $a SKIPPED: the package mirror has no ${absent[*]}"
     skipped+=("$a")
-  else
-    run_archs+=("$a")
-    read -r -a pkgs <<< "${arch_need[$a]}"
-    need+=("${pkgs[@]}")
+    continue
   fi
+  echo "cross.sh: installing for $a: ${missing[*]}"
+  apt_log=$(mktemp)
+  if apt_as_root env DEBIAN_FRONTEND=noninteractive \
+       apt-get install -y -qq --no-install-recommends "${missing[@]}" >"$apt_log" 2>&1; then
+    run_archs+=("$a")
+  elif grep -q '^E: Failed to fetch .* 404 ' "$apt_log"; then
+    echo "cross.sh: $a SKIPPED: the package mirror lists but cannot deliver" \
+      "$(sed -n 's|^E: Failed to fetch [^ ]*/\([^/ ]*\.deb\) .*|\1|p' "$apt_log" | sed 's/%2[bB]/+/g' | tr '\n' ' ')"
+    skipped+=("$a")
+  else
+    cat "$apt_log"
+    echo "cross.sh: $a FAILED: its packages did not install"
+    failed+=("$a")
+  fi
+  rm -f "$apt_log"
 done
-archs=("${run_archs[@]}")
-# (an architecture just added leaves its libcmocka-dev missing, so the
-# package lists are always updated after it)
-apt_missing --quiet "${need[@]}"
+archs=(${run_archs[@]+"${run_archs[@]}"})
 
 setup() { # builddir crossfile (or "native": the host at -Os)
   if [ "$2" = native ]; then
@@ -90,7 +111,6 @@ setup() { # builddir crossfile (or "native": the host at -Os)
 }
 
 passed=()
-failed=()
 for a in ${archs[@]+"${archs[@]}"}; do
   start=$SECONDS
   dir="$prefix-$a"
@@ -167,7 +187,8 @@ for a in ${archs[@]+"${archs[@]}"}; do
     failed+=("$a")
   fi
 done
-echo "cross.sh: ${#passed[@]} passed, ${#failed[@]} failed, ${#skipped[@]} skipped (${passed[*]:-}${failed[*]:+; failed: ${failed[*]}}${skipped[*]:+; skipped: ${skipped[*]}})"
+echo "cross.sh: ${#passed[@]} passed, ${#failed[@]} failed, ${#skipped[@]} skipped" \
+  "(${passed[*]:+passed: ${passed[*]}}${failed[*]:+ failed: ${failed[*]}}${skipped[*]:+ skipped: ${skipped[*]}})"
 [ ${#failed[@]} -eq 0 ] || exit 1
 # only skipped targets (none ran): meson counts the test as skipped
 [ ${#passed[@]} -gt 0 ] || exit 77
