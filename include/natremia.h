@@ -282,7 +282,8 @@ NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
  *
  * @param na_mmol_l            80 to 220 mmol/L.
  * @param glucose_mmol_l       0 to 200 mmol/L.
- * @param factor_per_100mg_dl  0 to 5 (published factors lie between 1.6 and 2.4).
+ * @param factor_per_100mg_dl  0 to 5 (published factors: 1.6 and 2.4, and
+ *                             about 4.0 above 400 mg/dL, Hillier 1999).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
  *
@@ -299,6 +300,12 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  *
  * deficit = TBW * (target - Na), in mmol.
  *
+ * It ignores the water the sodium is given in, so giving the deficit as a
+ * saline falls short of the target: 300 mmol (TBW 30 L, 120 to 130) as
+ * 0.585 L of 3% saline reaches 127.5 by mass balance, not 130. To size a
+ * fluid for a target use ntr_infusate_volume_for_change(), which solves
+ * the mass balance exactly.
+ *
  * @param tbw_l               total body water, 0.1 to 400 L.
  * @param na_mmol_l           current serum sodium, 80 to 220 mmol/L.
  * @param target_na_mmol_l    target serum sodium, 80 to 220 mmol/L.
@@ -307,7 +314,7 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  *         NTR_ERR_DOMAIN (target below the current sodium).
  *
  * Reference: common practice (the sodium-deficit formula of general
- * medical texts). It ignores ongoing losses; see ntr_balance_predict().
+ * medical texts). It ignores ongoing losses too; see ntr_balance_predict().
  * Method: @ref NTR_METHOD_NA_DEFICIT.
  */
 NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
@@ -326,16 +333,19 @@ NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
 /**
  * @brief Total body water as a fraction of body weight.
  *
- * TBW = f * weight, with f = 0.6 for children (age below 18 years),
+ * TBW = f * weight, with f = 0.6 for children (1 year to below 18 years),
  * 0.6 for men 18 to 64, 0.5 for women 18 to 64, 0.5 for men 65 and over,
  * 0.45 for women 65 and over. The child boundary is the age of majority
  * used by paediatric services; 65 is the conventional start of "elderly"
  * in the geriatric literature (both common practice; the paper does not
- * state ages). Neonates hold more water (about 0.7 to 0.8) than this
- * fraction: use a measured or paediatric estimate for them.
+ * state ages). Infants under 1 year are refused (NTR_ERR_RANGE): a
+ * newborn holds about 0.75 to 0.8 of its weight as water, falling to about
+ * 0.6 over the first year, so 0.6 would under-read a neonate by a fifth;
+ * use a measured or paediatric estimate for them (docs/water.md). Since
+ * 1.1; 1.0 gave 0.6 from age 0.
  *
  * @param sex         @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE.
- * @param age_years   0 to 130.
+ * @param age_years   1 to 130.
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
@@ -355,6 +365,15 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  *
  * with age in years, height in cm, weight in kg, TBW in litres.
  *
+ * The equations are regressions on adults of ordinary build; far outside
+ * it they give numbers no body holds. A result below 20% or above 80% of
+ * the weight is refused (adult body water is about 40 to 75% of weight,
+ * lower in severe obesity, and lean tissue itself is about 73% water;
+ * docs/water.md), and so is one below 0.1 L, which no function taking a
+ * body water accepts. Adults 145 to 210 cm tall with a body-mass index
+ * of 17 to 80 keep the 1.0 result (tested); a very light, short young man
+ * (BMI 15 to 16, under 160 cm) can exceed 80% and is refused.
+ *
  * @param sex         @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE.
  * @param age_years   18 to 130 (adults only: the equations were derived
  *                    in adults; younger ages give NTR_ERR_RANGE).
@@ -362,7 +381,8 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE,
- *         NTR_ERR_RANGE, NTR_ERR_DOMAIN (the equation gives 0 L or less).
+ *         NTR_ERR_RANGE, NTR_ERR_DOMAIN (the result is below 20% or above
+ *         80% of the weight, or below 0.1 L; 1.0 refused only 0 L or less).
  *
  * Reference: Watson PE, Watson ID, Batt RD. Total body water volumes for
  * adult males and females estimated from simple anthropometric
@@ -434,7 +454,10 @@ NTR_API int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
  * @param infusate_na_mmol_l 0 to 1100 mmol/L.
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param[out] delta_mmol_l  expected change, mmol/L (negative: a fall).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the sodium after, Na + delta, would lie outside
+ *         80 to 220 mmol/L, or the body water after, TBW + 1, above 400 L:
+ *         the rule ntr_balance_predict() applies to the same 1 L; since 1.1).
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9.
@@ -460,7 +483,12 @@ NTR_API int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param volume_l           volume given, 0 to 20 L.
  * @param[out] delta_mmol_l  expected change, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the sodium after would lie outside 80 to
+ *         220 mmol/L, or the body water after outside 0.1 to 400 L:
+ *         exactly what ntr_balance_predict() refuses for the same flow;
+ *         since 1.1, where 1.0 answered, e.g. 264 mmol/L for 20 L of 3%
+ *         saline on 140 and 40 L).
  *
  * Reference: derived from the Adrogue-Madias mass balance
  * (N Engl J Med 2000;342:1581-9).
@@ -484,11 +512,20 @@ NTR_API int ntr_infusate_change(double na_mmol_l, double tbw_l,
  * @param target_delta_mmol_l wanted change, -50 to 50 mmol/L.
  * @param[out] volume_l      volume needed, L (0 when the target is 0).
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the infusate cannot move sodium that far in
- *         that direction, or the volume would exceed 20 L).
+ *         NTR_ERR_DOMAIN (the target sodium Na + delta lies outside 80 to
+ *         220 mmol/L, as ntr_relower_estimate() refuses a target below 80;
+ *         the infusate cannot move sodium that far in that direction; the
+ *         volume would exceed 20 L; or ntr_infusate_change() would refuse
+ *         the volume found. The first and last since 1.1).
  *
- * Reference: derived from Adrogue & Madias 2000; Furst H et al., Am J Med
- * Sci 2000;319:240-4 uses the same relation for its worked example.
+ * Unlike the sodium-deficit step (ntr_na_deficit() divided by the
+ * infusate's sodium), this counts the water the infusate brings: on the
+ * inputs of the Furst et al. example (Na 108, TBW 30 L, 3% saline, a rise
+ * of 5) it gives 150/400 = 0.375 L, where the deficit step's 292 mL
+ * reaches only about 112.
+ *
+ * Reference: derived from the Adrogue & Madias 2000 mass balance (exact
+ * inverse of ntr_infusate_change()).
  * Method: @ref NTR_METHOD_INFUSATE_VOLUME.
  */
 NTR_API int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
@@ -623,7 +660,7 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
  */
 NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
 
-#define NTR_TONICITY_HYPOTONIC 1  /**< measured osmolality below 275 mOsm/kg */
+#define NTR_TONICITY_HYPOTONIC 1  /**< osmolality (measured, or effective where a function says so) below 275 mOsm/kg */
 #define NTR_TONICITY_ISOTONIC 2   /**< 275 to 295 mOsm/kg inclusive */
 #define NTR_TONICITY_HYPERTONIC 3 /**< above 295 mOsm/kg */
 
@@ -652,15 +689,33 @@ NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
  */
 NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
 
-/** Flag bits written by ntr_low_na_tonicity(). */
-#define NTR_LOW_NA_NOT_HYPOTONIC 0x01u    /**< low sodium, measured osmolality 275 or more */
+/** Flag bits written by ntr_low_na_tonicity() and
+ *  ntr_low_na_effective_tonicity(). "Osmolality" is the measured value for
+ *  the first, the effective one (ntr_effective_osm_measured()) for the
+ *  second. */
+#define NTR_LOW_NA_NOT_HYPOTONIC 0x01u    /**< low sodium, osmolality 275 or more */
 #define NTR_LOW_NA_PSEUDO 0x02u           /**< isotonic and not explained by glucose: suspect pseudohyponatraemia */
 #define NTR_LOW_NA_TRANSLOCATIONAL 0x04u  /**< hypertonic, or glucose explains the sodium */
 #define NTR_LOW_NA_GLUCOSE_EXPLAINS 0x08u /**< glucose-corrected sodium is 135 or more */
 #define NTR_LOW_NA_DISCORDANT 0x10u       /**< hypotonic, yet glucose alone would explain the sodium: recheck */
+#define NTR_LOW_NA_INEFFECTIVE_OSMOLES 0x20u /**< measured osmolality 275 or more, effective below 275: urea or ethanol hide a hypotonic state */
 
 /**
- * @brief Is a low sodium hypotonic, pseudo- or translocational?
+ * @brief Is a low sodium hypotonic, pseudo- or translocational? Measured
+ *        osmolality only: prefer ntr_low_na_effective_tonicity().
+ *
+ * The same as ntr_low_na_effective_tonicity() with urea and ethanol 0, so
+ * it classifies the **measured** osmolality as it stands. It cannot see
+ * the ineffective osmoles: urea and ethanol raise the measured value
+ * without holding water outside cells, so uraemia or ethanol intoxication
+ * with a truly hypotonic plasma can read here as isotonic with
+ * @ref NTR_LOW_NA_PSEUDO, or as hypertonic with
+ * @ref NTR_LOW_NA_TRANSLOCATIONAL (sodium 125, glucose 5, urea 40,
+ * measured 295: isotonic and "pseudo", while the effective osmolality is
+ * 255). A normal measured osmolality does not exclude hypotonicity (Oster
+ * and Singer 1999); call ntr_low_na_effective_tonicity() with the urea and
+ * ethanol results. Kept unchanged for 1.0 callers: it never sets
+ * @ref NTR_LOW_NA_INEFFECTIVE_OSMOLES.
  *
  * Writes the tonicity class of ntr_tonicity_class() and, when
  * Na < 135 mmol/L, flags (0 when Na >= 135: there is no low sodium to
@@ -689,7 +744,8 @@ NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
  * (exclusion of non-hypotonic hyponatraemia); Katz 1973; Hillier et al.
- * 1999.
+ * 1999; Oster JR, Singer I. Arch Intern Med 1999;159:333-6 (what the
+ * measured value cannot show).
  * Methods: @ref NTR_METHOD_LOW_NA_TONICITY, @ref NTR_METHOD_TONICITY_CLASS,
  * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
@@ -697,6 +753,117 @@ NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
                                 double measured_osm_mosm_kg,
                                 int glucose_method, int *tonicity,
                                 unsigned int *flags);
+
+/**
+ * @brief Effective serum osmolality from a measured one: the measured value
+ *        less the ineffective osmoles urea and ethanol.
+ *
+ * Urea and ethanol cross cell membranes freely: they raise the measured
+ * osmolality but hold no water outside cells, so they do not count towards
+ * tonicity.
+ *
+ *     subtracted = measured - urea - 1.25 * ethanol
+ *     floor      = min(2*Na + glucose, measured)
+ *     effective  = max(subtracted, floor)
+ *
+ * - Ethanol coefficient 1.25 mOsm/kg per mmol/L: the empirical value of
+ *   Purssell et al. for freezing-point osmometry (ethanol 4.6 mg/dL is
+ *   1 mmol/L). A vapour-pressure osmometer does not detect ethanol, which
+ *   is volatile: then pass @p ethanol_mmol_l = 0.
+ * - Floor: the subtraction stops at the calculated effective osmolality
+ *   2*Na + glucose (ntr_osm_effective()). Sodium salts and glucose are
+ *   effective osmoles measured in the same sample; a value below what they
+ *   supply means more was subtracted than the sample held (an osmometer
+ *   that does not see ethanol, a coefficient too high for this patient,
+ *   samples drawn at different times, assay errors adding up). The floor
+ *   is below 275 whenever 2*Na + glucose is, so it never hides a
+ *   hypotonicity that sodium and glucose show. It never exceeds the
+ *   measured value: with urea and ethanol 0 the result is exactly the
+ *   measured osmolality.
+ *
+ * The result lies in 150 to 600 mOsm/kg, the range of an osmolality input,
+ * so it can be passed as the effective osmolality of ntr_siad_findings.
+ *
+ * @param na_mmol_l            serum sodium, 80 to 220 mmol/L.
+ * @param glucose_mmol_l       serum glucose, 0 to 200 mmol/L.
+ * @param urea_mmol_l          serum urea, 0 to 200 mmol/L (BUN mg/dL / 2.8).
+ * @param ethanol_mmol_l       serum ethanol, 0 to 400 mmol/L (mg/dL / 4.6);
+ *                             0 when not measured or when the osmometer
+ *                             uses vapour pressure.
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg,
+ *                             from the same sample.
+ * @param[out] mosm_kg         effective osmolality, mOsm/kg.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6 and
+ * Milionis HJ et al. CMAJ 2002;166:1056-62 (a normal measured osmolality
+ * does not exclude hypotonicity; effective osmolality is the measured
+ * value less urea); Purssell RA et al. Ann Emerg Med 2001 (ethanol
+ * coefficient; docs/workup.md says how sure it is).
+ * Method: @ref NTR_METHOD_EFFECTIVE_OSM_MEASURED.
+ */
+NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
+                                       double urea_mmol_l, double ethanol_mmol_l,
+                                       double measured_osm_mosm_kg,
+                                       double *mosm_kg);
+
+/**
+ * @brief Is a low sodium hypotonic, pseudo- or translocational, judged on
+ *        the effective osmolality (urea and ethanol taken out)?
+ *
+ * Classifies the effective osmolality E of ntr_effective_osm_measured()
+ * (measured - urea - 1.25*ethanol, floored at min(2*Na + glucose,
+ * measured); see there why). @p tonicity is ntr_tonicity_class() of E.
+ * When Na < 135 mmol/L the flags of ntr_low_na_tonicity() are set with
+ * their meanings, judged on E:
+ * - @ref NTR_LOW_NA_GLUCOSE_EXPLAINS when glucose-corrected sodium >= 135.
+ * - @ref NTR_LOW_NA_NOT_HYPOTONIC when E >= 275.
+ * - @ref NTR_LOW_NA_TRANSLOCATIONAL when E > 295, or E >= 275 and glucose
+ *   explains the sodium.
+ * - @ref NTR_LOW_NA_PSEUDO when 275 <= E <= 295 and glucose does not explain
+ *   the sodium. Never set when urea and ethanol account for a normal
+ *   measured osmolality: then E < 275.
+ * - @ref NTR_LOW_NA_DISCORDANT when E < 275, yet glucose would explain the
+ *   sodium.
+ *
+ * and, whatever the sodium (it explains the class, not the sodium):
+ * - @ref NTR_LOW_NA_INEFFECTIVE_OSMOLES when measured >= 275 but E < 275, a
+ *   true hypotonic state that the measured value alone would hide.
+ *
+ * Examples (hand-worked): sodium 125, glucose 5, urea 40 mmol/L, measured
+ * 295 mOsm/kg: E = 255, hypotonic, INEFFECTIVE_OSMOLES. Sodium 118,
+ * glucose 5, ethanol 45 mmol/L, measured 295: 295 - 56.25 = 238.75 is
+ * floored at 2*118 + 5 = 241; hypotonic, INEFFECTIVE_OSMOLES.
+ *
+ * Check order: NULL pointers, @p glucose_method, then the numbers in
+ * argument order (non-finite, then out of range). With @p urea_mmol_l and
+ * @p ethanol_mmol_l 0 the results equal ntr_low_na_tonicity() bit for bit.
+ *
+ * @param na_mmol_l            serum sodium, 80 to 220 mmol/L.
+ * @param glucose_mmol_l       serum glucose, 0 to 200 mmol/L.
+ * @param urea_mmol_l          serum urea, 0 to 200 mmol/L.
+ * @param ethanol_mmol_l       serum ethanol, 0 to 400 mmol/L (0 when not
+ *                             measured or with a vapour-pressure osmometer).
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg.
+ * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
+ * @param[out] tonicity        one of NTR_TONICITY_*, of the effective value.
+ * @param[out] flags           a combination of NTR_LOW_NA_* bits.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ *
+ * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6;
+ * Milionis HJ et al. CMAJ 2002;166:1056-62; Spasovski G et al. Eur J
+ * Endocrinol 2014;170(3):G1-G47; Katz 1973; Hillier et al. 1999;
+ * Purssell RA et al. Ann Emerg Med 2001.
+ * Methods: @ref NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY,
+ * @ref NTR_METHOD_EFFECTIVE_OSM_MEASURED, @ref NTR_METHOD_TONICITY_CLASS,
+ * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
+ */
+NTR_API int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_l,
+                                          double urea_mmol_l, double ethanol_mmol_l,
+                                          double measured_osm_mosm_kg,
+                                          int glucose_method, int *tonicity,
+                                          unsigned int *flags);
 
 /** Urine osmolality at or below this (mOsm/kg) is maximally dilute. */
 #define NTR_URINE_OSM_DILUTE_MAX 100.0
@@ -836,7 +1003,7 @@ typedef struct ntr_finding_value {
 typedef struct ntr_siad_findings {
     size_t struct_size; /**< sizeof(ntr_siad_findings) as the caller knows it. */
     /* Essential findings. */
-    ntr_finding_value effective_osm_mosm_kg; /**< 2*Na + glucose (or measured minus urea), 150 to 600 mOsm/kg. */
+    ntr_finding_value effective_osm_mosm_kg; /**< effective (not measured) osmolality, 150 to 600 mOsm/kg: ntr_effective_osm_measured() (measured less urea and ethanol), or ntr_osm_effective() (2*Na + glucose) when none was measured. */
     ntr_finding_value urine_osm_mosm_kg;     /**< urine osmolality, 10 to 2000 mOsm/kg. */
     ntr_finding_value urine_na_mmol_l;       /**< urine sodium, 0 to 500 mmol/L. */
     int volume_status;            /**< NTR_VOLUME_*. */
@@ -897,15 +1064,18 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
 /**
  * @brief Test the findings against the criteria for SIAD.
  *
- * Essential criteria (all must be met; thresholds are strict as in the
- * table): effective serum osmolality < 275 mOsm/kg; urine osmolality
- * > 100 mOsm/kg; clinical euvolaemia; urine sodium > 30 mmol/L with normal
- * dietary salt and water intake; no thyroid, adrenal, pituitary or renal
- * insufficiency; no recent diuretic use.
- * Supplemental criteria (support the diagnosis, never decide it): serum
- * uric acid < 0.24 mmol/L; serum urea < 3.6 mmol/L; failure of 0.9% saline
- * to correct the sodium; fractional excretion of sodium > 0.5%, of urea
- * > 55%, of uric acid > 12%; correction by fluid restriction.
+ * Essential criteria (every one must hold; thresholds are strict as in
+ * the table): effective osmolality < 275 mOsm/kg (the hypotonic edge
+ * @ref NTR_TONICITY_HYPOTONIC_BELOW, so the criterion is met exactly when
+ * ntr_low_na_effective_tonicity() gives @ref NTR_TONICITY_HYPOTONIC for
+ * the same value); urine osmolality > 100 mOsm/kg; extracellular volume
+ * judged normal at the bedside; urine sodium > 30 mmol/L while salt and
+ * water intake are usual; thyroid, adrenal, pituitary and kidney function
+ * normal; no diuretic taken recently.
+ * Supplemental criteria (add weight, never decide): serum uric acid
+ * < 0.24 mmol/L; serum urea < 3.6 mmol/L; the sodium stays low after 0.9%
+ * saline; fractional excretion of sodium > 0.5%, of urea > 55%, of uric
+ * acid > 12%; fluid restriction brings the sodium up.
  *
  * Each criterion is met, not met, not known (its finding is not known) or
  * not assessable (urine sodium when intake is known not to be normal: a
@@ -913,6 +1083,13 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  * any essential criterion not met gives NTR_SIAD_NOT_CONSISTENT; else all
  * met gives NTR_SIAD_CONSISTENT; else NTR_SIAD_INCOMPLETE, and @c missing
  * says which findings to obtain.
+ *
+ * The evaluator takes the effective osmolality as given and does not
+ * derive it: the caller passes the value of ntr_effective_osm_measured()
+ * (measured less urea and ethanol) or of ntr_osm_effective(), never the
+ * measured osmolality itself, which urea or ethanol can hold at 275 or
+ * more in a hypotonic patient (the 1.0 layout has no room for a measured
+ * value and an ethanol result).
  *
  * Check order: NULL pointers; then @c struct_size of both structs, the
  * @c known flags and the enumerators (NTR_ERR_ARG); then the known values
@@ -1141,12 +1318,13 @@ NTR_API int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
  * @brief Total body water as a fraction of weight for @p n rows
  *        (see ntr_tbw_fraction()).
  *
- * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (under 18 years),
- * 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and over).
+ * out[i] = f(sex[i], age_years[i]) * weight_kg[i], f = 0.6 (1 to below 18
+ * years), 0.6 / 0.5 (men / women 18 to 64), 0.5 / 0.45 (men / women 65 and
+ * over). Infants under 1 year are refused, as by ntr_tbw_fraction().
  *
  * @param n number of rows.
  * @param sex @ref NTR_SEX_MALE or @ref NTR_SEX_FEMALE per row.
- * @param age_years age, years, 0 to 130.
+ * @param age_years age, years, 1 to 130.
  * @param weight_kg body weight, kg, 0.3 to 650.
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
@@ -1176,7 +1354,8 @@ NTR_API int ntr_batch_tbw_fraction(size_t n, const int *sex,
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_ARG (unknown sex),
  *                     NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN
- *                     (the equation gives 0 L or less).
+ *                     (the result is below 20% or above 80% of the
+ *                     weight, or below 0.1 L, as ntr_tbw_watson()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1244,7 +1423,8 @@ NTR_API int ntr_batch_na_deficit(size_t n, const double *tbw_l,
  * @param infusate_na_mmol_l infusate sodium, mmol/L, 0 to 1100.
  * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
  * @param[out] out     n changes, mmol/L (NaN in failed rows).
- * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *                     NTR_ERR_DOMAIN (as ntr_infusate_change_per_litre()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1273,7 +1453,8 @@ NTR_API int ntr_batch_infusate_change_per_litre(size_t n,
  * @param infusate_k_mmol_l infusate potassium, mmol/L, 0 to 400.
  * @param volume_l volume given, L, 0 to 20.
  * @param[out] out     n changes, mmol/L (NaN in failed rows).
- * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *                     NTR_ERR_DOMAIN (as ntr_infusate_change()).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1303,8 +1484,10 @@ NTR_API int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
  * @param target_delta_mmol_l wanted change, mmol/L, -50 to 50.
  * @param[out] out     n volumes, L (NaN in failed rows).
  * @param[out] status  n row statuses: NTR_OK, NTR_ERR_NONFINITE,
- *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (unreachable target or
- *                     more than 20 L).
+ *                     NTR_ERR_RANGE, NTR_ERR_DOMAIN (as
+ *                     ntr_infusate_volume_for_change(): target sodium
+ *                     outside 80 to 220, unreachable target, more than
+ *                     20 L, or a volume ntr_infusate_change() refuses).
  * @param[out] failed  optional: number of failed rows.
  * @return NTR_OK, NTR_ERR_NULL, or the status of the first failed row.
  *
@@ -1816,8 +1999,10 @@ typedef struct ntr_plan_result {
  * @param[out] na_out  sodium after, mmol/L.
  * @param[out] tbw_out body water after, L.
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (body water after below 0.1 L, or sodium after
- *         outside 80 to 220 mmol/L: the model no longer applies).
+ *         NTR_ERR_DOMAIN (body water after outside 0.1 to 400 L, or sodium
+ *         after outside 80 to 220 mmol/L: the model no longer applies, and
+ *         no function would take that state as input. The infusate and
+ *         re-lowering functions apply the same rule; 400 L since 1.1).
  *
  * References: Edelman IS, Leibman J, O'Meara MP, Birkenfeld LW. Interrelations
  * between serum sodium concentration, serum osmolarity and total
@@ -1940,7 +2125,11 @@ NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
  * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
  *         NTR_ERR_DOMAIN (the fluid's sodium + potassium is not below the
  *         target, the target is below 80 mmol/L, the volume would exceed
- *         20 L, or body water would fall below 0.1 L).
+ *         20 L, the rate would exceed 5000 mL/h (what a timed flow takes),
+ *         or the plan's end state is one ntr_balance_predict() refuses:
+ *         body water outside 0.1 to 400 L, or, when the losses alone
+ *         overshoot, sodium below 80. The rate and end-state rules since
+ *         1.1).
  *
  * @warning An estimate for decision support, not an order: re-lowering
  * needs frequent measured sodium and specialist judgement.
@@ -2054,6 +2243,8 @@ NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_URINE_NA_HIGH 54        /**< urine sodium > 30 mmol/L */
 #define NTR_METHOD_FRACTIONAL_EXCRETION 55 /**< fractional excretion of a solute */
 #define NTR_METHOD_SIAD_CRITERIA 56        /**< essential and supplemental SIAD criteria */
+#define NTR_METHOD_EFFECTIVE_OSM_MEASURED 57 /**< measured osmolality less urea and 1.25*ethanol, floored at 2*Na + glucose */
+#define NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY 58 /**< low-sodium flags judged on the effective osmolality */
 /** @} */
 
 #ifdef __cplusplus

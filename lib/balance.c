@@ -6,28 +6,10 @@
 
 /* ---- mass balance --------------------------------------------------------- */
 
-/* Sodium and water after a net volume gain_l whose cation content exceeds
- * that of the same volume of serum by excess_mmol (sum of v*(c - Na0)).
- * Written as Na0 + excess/TBW1, the mass balance
- * (Na0*TBW0 + sum v*c)/(TBW0 + sum v) without cancellation of Na0. */
-static int apply_balance(double na0, double tbw0, double gain_l,
-                         double excess_mmol, double *na1, double *tbw1)
-{
-    const double tbw = tbw0 + gain_l;
-    double na;
-    if (!(tbw >= NTR_TBW_MIN)) {
-        return NTR_ERR_DOMAIN;
-    }
-    na = na0 + excess_mmol / tbw;
-    /* Outside the plausible range the model (and the patient) are beyond
-     * what these estimates are for. */
-    if (!(na >= NTR_NA_MIN && na <= NTR_NA_MAX)) {
-        return NTR_ERR_DOMAIN;
-    }
-    *na1 = na;
-    *tbw1 = tbw;
-    return NTR_OK;
-}
+/* The mass balance and its domain (sodium after within 80 to 220, body
+ * water after within 0.1 to 400 L) are ntri_mass_balance() in
+ * ntr_internal.h: the infusate functions and the re-lowering estimate
+ * apply the same rule, so no function predicts a state another refuses. */
 
 static int check_flow(const ntr_flow *f)
 {
@@ -56,7 +38,7 @@ int ntr_balance_predict(double na_mmol_l, double tbw_l, const ntr_flow *flows,
         gain += v;
         excess += v * ((flows[i].na_mmol_l + flows[i].k_mmol_l) - na_mmol_l);
     }
-    return apply_balance(na_mmol_l, tbw_l, gain, excess, na_out, tbw_out);
+    return ntri_mass_balance(na_mmol_l, tbw_l, gain, excess, na_out, tbw_out);
 }
 
 /* ---- course over time ------------------------------------------------------ */
@@ -182,7 +164,7 @@ static int plan_state(const struct plan *p, double tau, double *na, double *tbw)
             excess += v * ((f->na_mmol_l + f->k_mmol_l) - p->na0);
         }
     }
-    return apply_balance(p->na0, p->tbw0, gain, excess, na, tbw);
+    return ntri_mass_balance(p->na0, p->tbw0, gain, excess, na, tbw);
 }
 
 /* Every point of the plan (j = 0 .. grid) inside the model's range?
@@ -324,7 +306,7 @@ int ntr_relower_estimate(double na_mmol_l, double tbw_l, double fluid_na_mmol_l,
                          double urine_na_mmol_l, double urine_k_mmol_l,
                          double *volume_l, double *rate_ml_h)
 {
-    double target, fluid_c, urine_c, urine_l, volume;
+    double target, fluid_c, urine_c, urine_l, volume, rate, end_na, end_tbw;
 
     if (volume_l == NULL || rate_ml_h == NULL) {
         return NTR_ERR_NULL;
@@ -344,9 +326,7 @@ int ntr_relower_estimate(double na_mmol_l, double tbw_l, double fluid_na_mmol_l,
     NTR_TRY(ntr_check(urine_k_mmol_l, 0.0, NTR_URINE_K_MAX));
 
     target = na_mmol_l - lower_by_mmol_l;
-    if (target < NTR_NA_MIN) {
-        return NTR_ERR_DOMAIN;
-    }
+    NTR_TRY(ntri_model_na(target));
     fluid_c = fluid_na_mmol_l + fluid_k_mmol_l;
     urine_c = urine_na_mmol_l + urine_k_mmol_l;
     /* Only a fluid weaker than the target can bring sodium down to it. */
@@ -361,10 +341,25 @@ int ntr_relower_estimate(double na_mmol_l, double tbw_l, double fluid_na_mmol_l,
         /* The losses alone already lower sodium by at least that much. */
         volume = 0.0;
     }
-    if (volume > NTR_INFUSE_VOLUME_MAX || tbw_l + volume - urine_l < NTR_TBW_MIN) {
+    if (volume > NTR_INFUSE_VOLUME_MAX) {
+        return NTR_ERR_DOMAIN;
+    }
+    /* The state the plan ends in, by the rule ntr_balance_predict() and the
+     * course apply: refused here when they would refuse it (body water
+     * outside 0.1 to 400 L, or, when the losses alone overshoot, a sodium
+     * below 80). Sodium moves monotonically between the start and this end under
+     * steady rates, so the course in between is inside too. */
+    NTR_TRY(ntri_mass_balance(na_mmol_l, tbw_l, volume - urine_l,
+                              volume * (fluid_c - na_mmol_l) -
+                                  urine_l * (urine_c - na_mmol_l),
+                              &end_na, &end_tbw));
+    rate = volume / hours * 1000.0;
+    /* A rate a timed flow would refuse (ntr_balance_course(),
+     * ntr_plan_check()) is no plan. */
+    if (rate > NTR_FLOW_RATE_MAX) {
         return NTR_ERR_DOMAIN;
     }
     *volume_l = volume;
-    *rate_ml_h = volume / hours * 1000.0;
+    *rate_ml_h = rate;
     return NTR_OK;
 }

@@ -969,7 +969,8 @@ static inline int pair_tbw_fraction(const int *sex, const double *age,
                     pair_select(pair_and(adult, pair_or(female, elderly)), grown,
                                 pair_splat(water_fractions[0])),
                     zero);
-    if (!pair_all(pair_and3(pair_gt(fraction, zero), pair_in(y, 0.0, NTR_AGE_MAX),
+    if (!pair_all(pair_and3(pair_gt(fraction, zero),
+                            pair_in(y, NTR_TBW_FRACTION_AGE_MIN, NTR_AGE_MAX),
                             pair_in(w, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX)))) {
         return 0;
     }
@@ -992,7 +993,7 @@ static NTR_ROWS size_t rows_tbw_fraction(size_t from, size_t to,
         double age = age_years[i];
         double weight = weight_kg[i];
         int st = sex_status(s);
-        st = first_error(st, ntr_check(age, 0.0, NTR_AGE_MAX));
+        st = first_error(st, ntr_check(age, NTR_TBW_FRACTION_AGE_MIN, NTR_AGE_MAX));
         st = first_error(st, ntr_check(weight, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX));
         out[i] = row_value(st, water_fraction(s, age) * weight);
         status[i] = st;
@@ -1046,7 +1047,11 @@ static inline int pair_tbw_watson(const int *sex, const double *age,
     ntr_mask measures = pair_and3(pair_in(y, NTR_ADULT_AGE, NTR_AGE_MAX),
                                   pair_in(h, NTR_HEIGHT_MIN, NTR_HEIGHT_MAX),
                                   pair_in(w, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX));
-    if (!pair_all(pair_and3(known, measures, pair_gt(tbw, pair_splat(0.0))))) {
+    /* ntri_tbw_share() and ntri_model_tbw() lane by lane. */
+    ntr_mask share = pair_and(pair_ge(tbw, pair_splat(NTR_TBW_SHARE_MIN) * w),
+                              pair_le(tbw, pair_splat(NTR_TBW_SHARE_MAX) * w));
+    if (!pair_all(pair_and4(known, measures, share,
+                            pair_in(tbw, NTR_TBW_MIN, NTR_TBW_MAX)))) {
         return 0;
     }
     pair_store(out + i, tbw);
@@ -1077,7 +1082,8 @@ static NTR_ROWS size_t rows_tbw_watson(size_t from, size_t to, const int *sex,
         st = first_error(st, ntr_check(age, NTR_ADULT_AGE, NTR_AGE_MAX));
         st = first_error(st, ntr_check(height, NTR_HEIGHT_MIN, NTR_HEIGHT_MAX));
         st = first_error(st, ntr_check(weight, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX));
-        st = first_error(st, tbw > 0.0 ? NTR_OK : NTR_ERR_DOMAIN);
+        st = first_error(st, ntri_tbw_share(tbw, weight));
+        st = first_error(st, ntri_model_tbw(tbw));
         out[i] = row_value(st, tbw);
         status[i] = st;
         bad += (st != NTR_OK);
@@ -1184,7 +1190,26 @@ static inline int infusate_status(double na, double tbw, double infusate_na,
     return first_error(st, ntr_check(infusate_k, 0.0, NTR_INFUSATE_K_MAX));
 }
 
+/* The domain of a prediction after volume v, by the rule of
+ * ntr_balance_predict() (ntri_mass_balance), as lib/infusion.c applies it. */
+static inline int prediction_status(double na, double tbw, double volume,
+                                    double excess)
+{
+    double na_after, tbw_after;
+    return ntri_mass_balance(na, tbw, volume, excess, &na_after, &tbw_after);
+}
+
 #if NTR_PAIRS
+/* ntri_mass_balance()'s domain lane by lane: sodium na + excess/(tbw + v)
+ * within 80 to 220, body water tbw + v within 0.1 to 400. */
+static inline ntr_mask pair_prediction_in(ntr_pair na, ntr_pair tbw,
+                                          ntr_pair volume, ntr_pair excess)
+{
+    ntr_pair tbw_after = tbw + volume;
+    return pair_and(pair_in(tbw_after, NTR_TBW_MIN, NTR_TBW_MAX),
+                    pair_in(na + excess / tbw_after, NTR_NA_MIN, NTR_NA_MAX));
+}
+
 static inline ntr_mask pair_infusate_in(ntr_pair na, ntr_pair tbw,
                                         ntr_pair infusate_na,
                                         ntr_pair infusate_k)
@@ -1204,10 +1229,12 @@ static inline int pair_infusate_change_per_litre(const double *na,
 {
     ntr_pair a = pair_load(na + i), w = pair_load(tbw + i);
     ntr_pair c = pair_load(infusate_na + i), k = pair_load(infusate_k + i);
-    if (!pair_all(pair_infusate_in(a, w, c, k))) {
+    ntr_pair one = pair_splat(1.0);
+    if (!pair_all(pair_and(pair_infusate_in(a, w, c, k),
+                           pair_prediction_in(a, w, one, c + k - a)))) {
         return 0;
     }
-    pair_store(out + i, (c + k - a) / (w + pair_splat(1.0)));
+    pair_store(out + i, (c + k - a) / (w + one));
     pair_ok(status + i);
     return 1;
 }
@@ -1221,11 +1248,13 @@ static inline int pair_infusate_change(const double *na, const double *tbw,
     ntr_pair a = pair_load(na + i), w = pair_load(tbw + i);
     ntr_pair c = pair_load(infusate_na + i), k = pair_load(infusate_k + i);
     ntr_pair v = pair_load(volume + i);
-    if (!pair_all(pair_and(pair_infusate_in(a, w, c, k),
-                           pair_in(v, 0.0, NTR_INFUSE_VOLUME_MAX)))) {
+    ntr_pair excess = v * (c + k - a);
+    if (!pair_all(pair_and3(pair_infusate_in(a, w, c, k),
+                            pair_in(v, 0.0, NTR_INFUSE_VOLUME_MAX),
+                            pair_prediction_in(a, w, v, excess)))) {
         return 0;
     }
-    pair_store(out + i, v * (c + k - a) / (w + v));
+    pair_store(out + i, excess / (w + v));
     pair_ok(status + i);
     return 1;
 }
@@ -1249,9 +1278,15 @@ static inline int pair_infusate_volume(const double *na, const double *tbw,
         pair_or(pair_and(pair_gt(d, zero), pair_gt(headroom, zero)),
                 pair_and(pair_lt(d, zero), pair_lt(headroom, zero)));
     ntr_pair volume_max = pair_splat(NTR_INFUSE_VOLUME_MAX);
-    if (!pair_all(pair_and4(pair_infusate_in(a, w, c, k),
-                            pair_in(d, -NTR_DELTA_MAX, NTR_DELTA_MAX),
-                            reaches, pair_le(volume, volume_max)))) {
+    /* The target sodium (ntri_model_na) and the forward prediction of the
+     * volume found (ntri_mass_balance), as in lib/infusion.c. */
+    ntr_mask coherent =
+        pair_and(pair_in(a + d, NTR_NA_MIN, NTR_NA_MAX),
+                 pair_prediction_in(a, w, volume, volume * (c + k - a)));
+    if (!pair_all(pair_and(pair_and4(pair_infusate_in(a, w, c, k),
+                                     pair_in(d, -NTR_DELTA_MAX, NTR_DELTA_MAX),
+                                     reaches, pair_le(volume, volume_max)),
+                           coherent))) {
         return 0;
     }
     pair_store(out + i, volume);
@@ -1275,6 +1310,8 @@ rows_infusate_change_per_litre(size_t from, size_t to, const double *na_mmol_l,
         double infusate_na = infusate_na_mmol_l[i];
         double infusate_k = infusate_k_mmol_l[i];
         int st = infusate_status(na, tbw, infusate_na, infusate_k);
+        st = first_error(st, prediction_status(na, tbw, 1.0,
+                                               infusate_na + infusate_k - na));
         out[i] = row_value(st, (infusate_na + infusate_k - na) / (tbw + 1.0));
         status[i] = st;
         bad += (st != NTR_OK);
@@ -1332,10 +1369,11 @@ static NTR_ROWS size_t rows_infusate_change(size_t from, size_t to,
         double infusate_na = infusate_na_mmol_l[i];
         double infusate_k = infusate_k_mmol_l[i];
         double volume = volume_l[i];
+        double excess = volume * (infusate_na + infusate_k - na);
         int st = infusate_status(na, tbw, infusate_na, infusate_k);
         st = first_error(st, ntr_check(volume, 0.0, NTR_INFUSE_VOLUME_MAX));
-        out[i] = row_value(st, volume * (infusate_na + infusate_k - na) /
-                                   (tbw + volume));
+        st = first_error(st, prediction_status(na, tbw, volume, excess));
+        out[i] = row_value(st, excess / (tbw + volume));
         status[i] = st;
         bad += (st != NTR_OK);
     }
@@ -1406,7 +1444,13 @@ rows_infusate_volume_for_change(size_t from, size_t to, const double *na_mmol_l,
                          : NTR_ERR_DOMAIN;
         int st = infusate_status(na, tbw, infusate_na, infusate_k);
         st = first_error(st, ntr_check(delta, -NTR_DELTA_MAX, NTR_DELTA_MAX));
+        st = first_error(st, ntri_model_na(na + delta));
         st = first_error(st, domain);
+        if (delta != 0.0) {
+            st = first_error(st, prediction_status(
+                                     na, tbw, volume,
+                                     volume * (infusate_na + infusate_k - na)));
+        }
         out[i] = row_value(st, volume);
         status[i] = st;
         bad += (st != NTR_OK);

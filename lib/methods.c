@@ -33,6 +33,10 @@ static int entry(struct ntr_method_info *info, int method, const char *name,
     "Endocrinol 2014;170(3):G1-G47"
 #define REF_ADROGUE_MADIAS_HYPO                                              \
     "Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med 2000;342:1581-9"
+#define REF_OSTER_SINGER                                                     \
+    "Oster JR, Singer I. Arch Intern Med 1999;159:333-6"
+#define REF_MILIONIS                                                         \
+    "Milionis HJ et al. CMAJ 2002;166:1056-62"
 #define REF_KATZ                                                             \
     "Katz MA. Hyperglycemia-induced hyponatremia: calculation of expected "  \
     "serum sodium depression. N Engl J Med 1973;289:843-4"
@@ -112,13 +116,14 @@ static int describe(int method, struct ntr_method_info *info)
         return entry(info, method, "Sodium deficit",
             "deficit (mmol) = TBW * (target Na - Na)",
             "Common practice (sodium-deficit formula of general medical texts)",
-            "low serum sodium; ignores ongoing losses");
+            "low serum sodium; ignores ongoing losses and the water the sodium "
+            "is given in, so a saline dosed by it falls short of the target");
     case NTR_METHOD_TBW_FRACTION:
         return entry(info, method, "Total body water as a fraction of weight",
-            "TBW = f * weight; f = 0.6 children (< 18 y), 0.6 men, 0.5 women, "
-            "0.5 men >= 65 y, 0.45 women >= 65 y",
+            "TBW = f * weight; f = 0.6 children (1 to < 18 y), 0.6 men, 0.5 "
+            "women, 0.5 men >= 65 y, 0.45 women >= 65 y",
             REF_ADROGUE_MADIAS_HYPO,
-            "children and adults; not neonates");
+            "children from 1 year and adults; infants under 1 year refused");
     case NTR_METHOD_TBW_WATSON:
         return entry(info, method, "Watson total body water",
             "men: TBW = 2.447 - 0.09516*age + 0.1074*height + 0.3362*weight; "
@@ -127,7 +132,8 @@ static int describe(int method, struct ntr_method_info *info)
             "Watson PE, Watson ID, Batt RD. Total body water volumes for adult "
             "males and females estimated from simple anthropometric "
             "measurements. Am J Clin Nutr 1980;33:27-39",
-            "adults (18 years and over)");
+            "adults (18 years and over); a result outside 20% to 80% of the "
+            "weight, or below 0.1 L, is refused");
     case NTR_METHOD_FREE_WATER_DEFICIT:
         return entry(info, method, "Free-water deficit",
             "deficit (L) = TBW * (Na/140 - 1)",
@@ -151,13 +157,15 @@ static int describe(int method, struct ntr_method_info *info)
         return entry(info, method, "Infusate effect by mass balance",
             "delta Na = V * (Na_inf + K_inf - Na) / (TBW + V); equals the "
             "Adrogue-Madias formula at V = 1 L",
-            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO,
+            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO
+            "; the same forward step checks the dose in the worked example of "
+            REF_FURST,
             "any (body water estimated separately; no losses)");
     case NTR_METHOD_INFUSATE_VOLUME:
         return entry(info, method, "Infusate volume for a wanted change",
             "V = delta * TBW / (Na_inf + K_inf - Na - delta)",
-            "Derived from the mass balance of " REF_ADROGUE_MADIAS_HYPO
-            "; used in the worked example of " REF_FURST,
+            "Exact inverse of the mass balance of " REF_ADROGUE_MADIAS_HYPO
+            " (counts the water given, unlike the sodium-deficit step)",
             "any (body water estimated separately; no losses)");
     case NTR_METHOD_FURST:
         return entry(info, method, "Furst urine/serum electrolyte ratio",
@@ -221,7 +229,7 @@ static int describe(int method, struct ntr_method_info *info)
             "symptoms is usually stopped for the day",
             "Sterns RH, Hix JK, Silver S. Treating profound hyponatremia: a "
             "strategy for controlled correction. Am J Kidney Dis "
-            "2010;56:774-9 (cited from memory)",
+            "2010;56:774-9",
             "adults given hypertonic saline for severe symptoms");
     case NTR_METHOD_BALANCE_MASS:
         return entry(info, method, "Mass balance of fluids (Edelman-based)",
@@ -255,7 +263,7 @@ static int describe(int method, struct ntr_method_info *info)
             "Na + K; 0 when losses alone lower sodium by d",
             "Mass balance of " REF_ADROGUE_MADIAS_HYPO "; re-lowering as "
             "advised by Sterns RH, Hix JK. Overcorrection of hyponatremia is "
-            "a medical emergency. Kidney Int 2009;76:587-9 (cited from memory)",
+            "a medical emergency. Kidney Int 2009;76:587-9",
             "adults whose sodium rose faster than the limits");
 
     /* ==== work-up (ids 50-69, issue P3) ================================= */
@@ -314,6 +322,24 @@ static int describe(int method, struct ntr_method_info *info)
             "WB, Bennett W, Curelop S, Bartter FC. Am J Med 1957;23:529-42 and "
             "Bartter FC, Schwartz WB. Am J Med 1967;42:790-806",
             "adults with hypotonic hyponatraemia");
+    case NTR_METHOD_EFFECTIVE_OSM_MEASURED:
+        return entry(info, method, "Effective osmolality from a measured osmolality",
+            "E = max(measured - urea - 1.25*ethanol, min(2*Na + glucose, "
+            "measured)) (mOsm/kg; urea, ethanol, Na, glucose in mmol/L; "
+            "ethanol 0 with a vapour-pressure osmometer)",
+            REF_OSTER_SINGER "; " REF_MILIONIS " (urea and ethanol are "
+            "ineffective osmoles); Purssell RA et al. Ann Emerg Med 2001 "
+            "(ethanol coefficient, freezing-point osmometry)",
+            "any; measured osmolality, urea and ethanol from one sample");
+    case NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY:
+        return entry(info, method, "Low sodium judged on the effective osmolality",
+            "as the pseudo- or translocational flags, with the effective "
+            "osmolality E in place of the measured one; ineffective osmoles "
+            "if measured Osm >= 275 and E < 275",
+            REF_OSTER_SINGER "; " REF_MILIONIS "; " REF_SPASOVSKI
+            " (exclusion of non-hypotonic hyponatraemia); " REF_KATZ "; "
+            REF_HILLIER,
+            "adults with a low serum sodium");
 
     default:
         return NTR_ERR_ARG;
@@ -345,7 +371,7 @@ static const struct {
 } method_runs[] = {
     {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_RELOWER},       /* correction, 30-49 */
-    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_SIAD_CRITERIA}};    /* work-up, 50-69 */
+    {NTR_METHOD_NA_SEVERITY, NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY}}; /* work-up, 50-69 */
 
 int ntr_method_next(int after, int *next)
 {

@@ -23,6 +23,9 @@
 #define NTR_WEIGHT_MAX 650.0
 #define NTR_TBW_MIN 0.1            /* L */
 #define NTR_TBW_MAX 400.0
+#define NTR_TBW_FRACTION_AGE_MIN 1.0 /* years: ntr_tbw_fraction() refuses infants */
+#define NTR_TBW_SHARE_MIN 0.20     /* Watson body water / weight accepted */
+#define NTR_TBW_SHARE_MAX 0.80
 #define NTR_INFUSATE_NA_MAX 1100.0 /* mmol/L; 8.4% NaHCO3 is 1000 */
 #define NTR_INFUSATE_K_MAX 400.0   /* mmol/L */
 #define NTR_INFUSE_VOLUME_MAX 20.0 /* L in one plan step */
@@ -84,6 +87,69 @@ static inline int ntr_check_tbw(double tbw_l)
     return ntr_check(tbw_l, NTR_TBW_MIN, NTR_TBW_MAX);
 }
 
+/* Evaluate a check and return its status from the caller if it failed. */
+#define NTR_TRY(expr)                     \
+    do {                                  \
+        int ntr_try_status_ = (expr);     \
+        if (ntr_try_status_ != NTR_OK) {  \
+            return ntr_try_status_;       \
+        }                                 \
+    } while (0)
+
+/* ---- coherent results ---------------------------------------------------
+ *
+ * A result that another function would refuse as an input is refused where
+ * it is made (docs/ranges.md, "Coherent results"). Every function that
+ * predicts a sodium by mass balance or aims at one goes through these, so
+ * the rule is written once: a sodium predicted or aimed at lies within the
+ * input range NTR_NA_MIN..NTR_NA_MAX and body water after a mix within
+ * NTR_TBW_MIN..NTR_TBW_MAX; outside, the status is NTR_ERR_DOMAIN (the
+ * inputs were each in range, the model is not defined there).
+ * lib/batch.c tests the same bounds two rows at a time with vector
+ * comparisons before it falls back to its row kernels, which call these. */
+static inline int ntri_model_na(double na_mmol_l)
+{
+    return (na_mmol_l >= NTR_NA_MIN && na_mmol_l <= NTR_NA_MAX) ? NTR_OK
+                                                                : NTR_ERR_DOMAIN;
+}
+
+static inline int ntri_model_tbw(double tbw_l)
+{
+    return (tbw_l >= NTR_TBW_MIN && tbw_l <= NTR_TBW_MAX) ? NTR_OK
+                                                          : NTR_ERR_DOMAIN;
+}
+
+/* Sodium and water after a net volume gain_l whose cation content exceeds
+ * that of the same volume of serum by excess_mmol (sum of v*(c - Na0)).
+ * Written as Na0 + excess/TBW1, the mass balance
+ * (Na0*TBW0 + sum v*c)/(TBW0 + sum v) without cancellation of Na0. Water
+ * is checked before the division, so it never divides by 0. Used by
+ * ntr_balance_predict() and the course (lib/balance.c), the infusate
+ * functions (lib/infusion.c) and the re-lowering estimate. */
+static inline int ntri_mass_balance(double na0, double tbw0, double gain_l,
+                                    double excess_mmol, double *na1,
+                                    double *tbw1)
+{
+    const double tbw = tbw0 + gain_l;
+    double na;
+    NTR_TRY(ntri_model_tbw(tbw));
+    na = na0 + excess_mmol / tbw;
+    NTR_TRY(ntri_model_na(na));
+    *na1 = na;
+    *tbw1 = tbw;
+    return NTR_OK;
+}
+
+/* Watson's equations are regressions; outside a plausible share of body
+ * weight their result is not a body water (docs/water.md). */
+static inline int ntri_tbw_share(double tbw_l, double weight_kg)
+{
+    return (tbw_l >= NTR_TBW_SHARE_MIN * weight_kg &&
+            tbw_l <= NTR_TBW_SHARE_MAX * weight_kg)
+               ? NTR_OK
+               : NTR_ERR_DOMAIN;
+}
+
 /* Glucose-corrected sodium (Katz, Hillier, or a caller's factor per
  * 100 mg/dL) of inputs already checked: ntr_na_corrected_glucose_factor()
  * and the work-up's ntr_low_na_tonicity() share it, so both give the same
@@ -119,14 +185,5 @@ static inline double ntri_glucose_corrected(double na_mmol_l,
     return na_mmol_l + factor_per_100mg_dl *
                            (glucose_mg_dl - NTR_GLUCOSE_REFERENCE_MG_DL) / 100.0;
 }
-
-/* Evaluate a check and return its status from the caller if it failed. */
-#define NTR_TRY(expr)                     \
-    do {                                  \
-        int ntr_try_status_ = (expr);     \
-        if (ntr_try_status_ != NTR_OK) {  \
-            return ntr_try_status_;       \
-        }                                 \
-    } while (0)
 
 #endif

@@ -8,8 +8,9 @@
 #define SEVERITY_MODERATE_BELOW 130.0
 #define SEVERITY_PROFOUND_BELOW 125.0
 
-/* SIAD table thresholds (all strict inequalities in the table). */
-#define SIAD_EFFECTIVE_OSM_BELOW 275.0   /* mOsm/kg */
+/* SIAD table thresholds (all strict inequalities in the table). The
+ * effective osmolality criterion uses the hypotonic edge of the header,
+ * NTR_TONICITY_HYPOTONIC_BELOW, so it agrees with the tonicity class. */
 #define SIAD_URINE_OSM_ABOVE 100.0       /* mOsm/kg */
 #define SIAD_URINE_NA_ABOVE 30.0         /* mmol/L */
 #define SIAD_URIC_ACID_BELOW 0.24        /* mmol/L (4 mg/dL) */
@@ -65,47 +66,125 @@ int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity)
     return NTR_OK;
 }
 
-int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
-                        double measured_osm_mosm_kg, int glucose_method,
-                        int *tonicity, unsigned int *flags)
+/* Ethanol's share of a freezing-point osmolality, mOsm/kg per mmol/L:
+ * the empirical coefficient of Purssell et al., Ann Emerg Med 2001 (from
+ * memory; docs/workup.md). Above the ideal 1.0 that ntr_osm_calculated()
+ * uses: there the smaller value leaves the osmolal gap conservative, here
+ * the larger one does, since it is subtracted and the floor below stops
+ * any excess. */
+#define ETHANOL_MOSM_PER_MMOL_L 1.25
+
+/* The effective osmolality of checked inputs: measured minus urea and
+ * ethanol, never below the calculated effective osmolality 2*Na + glucose
+ * and never above the measured value. Sodium salts and glucose are
+ * effective osmoles measured in the same sample, so a subtraction that
+ * lands below what they supply removed more than the sample held (an
+ * osmometer that does not see ethanol, a coefficient too high for this
+ * patient, samples drawn apart, the errors of several assays adding up).
+ * The floor is itself below 275 whenever 2*Na + glucose is, so it never
+ * hides a hypotonicity that sodium and glucose show; and with no urea or
+ * ethanol the result is the measured value, bit for bit. 2*Na + glucose
+ * comes from ntr_osm_effective(), where that formula lives. */
+static int effective_of_checked(double na_mmol_l, double glucose_mmol_l,
+                                double urea_mmol_l, double ethanol_mmol_l,
+                                double measured_osm_mosm_kg, double *mosm_kg)
+{
+    double calculated;
+    double floor_mosm_kg;
+    double subtracted;
+    NTR_TRY(ntr_osm_effective(na_mmol_l, glucose_mmol_l, &calculated));
+    floor_mosm_kg = calculated < measured_osm_mosm_kg ? calculated : measured_osm_mosm_kg;
+    subtracted = measured_osm_mosm_kg -
+                 (urea_mmol_l + ETHANOL_MOSM_PER_MMOL_L * ethanol_mmol_l);
+    *mosm_kg = subtracted > floor_mosm_kg ? subtracted : floor_mosm_kg;
+    return NTR_OK;
+}
+
+/* The numeric checks both effective-osmolality functions share, in
+ * argument order. */
+static int check_effective_inputs(double na_mmol_l, double glucose_mmol_l,
+                                  double urea_mmol_l, double ethanol_mmol_l,
+                                  double measured_osm_mosm_kg)
+{
+    NTR_TRY(ntr_check_na(na_mmol_l));
+    NTR_TRY(ntr_check(glucose_mmol_l, 0.0, NTR_GLUCOSE_MAX));
+    NTR_TRY(ntr_check(urea_mmol_l, 0.0, NTR_UREA_MAX));
+    NTR_TRY(ntr_check(ethanol_mmol_l, 0.0, NTR_ETHANOL_MAX));
+    return ntr_check(measured_osm_mosm_kg, NTR_OSM_MIN, NTR_OSM_MAX);
+}
+
+int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
+                               double urea_mmol_l, double ethanol_mmol_l,
+                               double measured_osm_mosm_kg, double *mosm_kg)
+{
+    if (mosm_kg == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(check_effective_inputs(na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                                   ethanol_mmol_l, measured_osm_mosm_kg));
+    return effective_of_checked(na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                                ethanol_mmol_l, measured_osm_mosm_kg, mosm_kg);
+}
+
+/* The flags that explain a low sodium, judged on the effective class. */
+static unsigned int low_na_flags(int effective_class, int glucose_explains)
+{
+    unsigned int found = glucose_explains ? NTR_LOW_NA_GLUCOSE_EXPLAINS : 0u;
+    if (effective_class == NTR_TONICITY_HYPOTONIC) {
+        return glucose_explains ? found | NTR_LOW_NA_DISCORDANT : found;
+    }
+    found |= NTR_LOW_NA_NOT_HYPOTONIC;
+    if (effective_class == NTR_TONICITY_HYPERTONIC || glucose_explains) {
+        return found | NTR_LOW_NA_TRANSLOCATIONAL;
+    }
+    return found | NTR_LOW_NA_PSEUDO;
+}
+
+int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_l,
+                                  double urea_mmol_l, double ethanol_mmol_l,
+                                  double measured_osm_mosm_kg, int glucose_method,
+                                  int *tonicity, unsigned int *flags)
 {
     double factor;
-    double na_corrected;
-    int measured_class;
+    double effective;
+    int effective_class;
     unsigned int found = 0u;
     if (tonicity == NULL || flags == NULL) {
         return NTR_ERR_NULL;
     }
     NTR_TRY(ntri_glucose_factor(glucose_method, &factor));
-    NTR_TRY(ntr_check_na(na_mmol_l));
-    NTR_TRY(ntr_check(glucose_mmol_l, 0.0, NTR_GLUCOSE_MAX));
-    NTR_TRY(ntr_check(measured_osm_mosm_kg, NTR_OSM_MIN, NTR_OSM_MAX));
-    /* The inputs are checked: the same correction as
-     * ntr_na_corrected_glucose() gives, without checking them again. */
-    na_corrected = ntri_glucose_corrected(na_mmol_l, glucose_mmol_l, factor);
-    measured_class = tonicity_of(measured_osm_mosm_kg);
+    NTR_TRY(check_effective_inputs(na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                                   ethanol_mmol_l, measured_osm_mosm_kg));
+    NTR_TRY(effective_of_checked(na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                                 ethanol_mmol_l, measured_osm_mosm_kg, &effective));
+    effective_class = tonicity_of(effective);
 
     if (na_mmol_l < SEVERITY_MILD_BELOW) {
-        int glucose_explains = na_corrected >= SEVERITY_MILD_BELOW;
-        if (glucose_explains) {
-            found |= NTR_LOW_NA_GLUCOSE_EXPLAINS;
-        }
-        if (measured_class == NTR_TONICITY_HYPOTONIC) {
-            if (glucose_explains) {
-                found |= NTR_LOW_NA_DISCORDANT;
-            }
-        } else {
-            found |= NTR_LOW_NA_NOT_HYPOTONIC;
-            if (measured_class == NTR_TONICITY_HYPERTONIC || glucose_explains) {
-                found |= NTR_LOW_NA_TRANSLOCATIONAL;
-            } else {
-                found |= NTR_LOW_NA_PSEUDO;
-            }
-        }
+        /* The inputs are checked: the same correction as
+         * ntr_na_corrected_glucose() gives, without checking them again. */
+        double na_corrected = ntri_glucose_corrected(na_mmol_l, glucose_mmol_l, factor);
+        found = low_na_flags(effective_class, na_corrected >= SEVERITY_MILD_BELOW);
     }
-    *tonicity = measured_class;
+    /* About the osmolality, not the sodium: set whatever the sodium, so a
+     * hypotonic class beside a normal measured value is always explained. */
+    if (measured_osm_mosm_kg >= NTR_TONICITY_HYPOTONIC_BELOW &&
+        effective_class == NTR_TONICITY_HYPOTONIC) {
+        found |= NTR_LOW_NA_INEFFECTIVE_OSMOLES;
+    }
+    *tonicity = effective_class;
     *flags = found;
     return NTR_OK;
+}
+
+int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
+                        double measured_osm_mosm_kg, int glucose_method,
+                        int *tonicity, unsigned int *flags)
+{
+    /* Without urea and ethanol the effective value is the measured one, so
+     * this gives the 1.0 results bit for bit (tests/refvectors). */
+    return ntr_low_na_effective_tonicity(na_mmol_l, glucose_mmol_l, 0.0, 0.0,
+                                         measured_osm_mosm_kg, glucose_method,
+                                         tonicity, flags);
 }
 
 int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute)
@@ -364,7 +443,7 @@ int ntr_siad_evaluate(const ntr_siad_findings *findings, ntr_siad_result *result
 
     /* Essential criteria. */
     value_criterion(&t, NTR_SIAD_OSM_LOW, &findings->effective_osm_mosm_kg,
-                    SIAD_EFFECTIVE_OSM_BELOW, 1);
+                    NTR_TONICITY_HYPOTONIC_BELOW, 1);
     value_criterion(&t, NTR_SIAD_URINE_CONCENTRATED, &findings->urine_osm_mosm_kg,
                     SIAD_URINE_OSM_ABOVE, 0);
     volume_criterion(&t, findings->volume_status);

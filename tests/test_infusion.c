@@ -138,33 +138,96 @@ static void per_litre_bad_inputs_leave_output_untouched(void **state)
 
 /* ---- ntr_infusate_change --------------------------------------------------- */
 
-/* Source: Furst H et al., Am J Med Sci 2000;319:240-4, worked example:
- * sodium 108, body water 30 L, 292 mL of 3% saline gives about 112.
- * "About" is taken as within 0.5 mmol/L. */
+/* Source: Furst H et al., Am J Med Sci 2000;319:240-4, worked example
+ * (checked against the paper), the forward step only: the paper
+ * wanted a rise of 5 from 108 in a body water of 30 L and sized the dose
+ * by the sodium-deficit step, 5 x 30 = 150 mmol / 513 mmol/L = 292 mL of
+ * 3% saline; its own mass-balance check then gives about 112, a rise of
+ * about 3.9. Hand-worked: 0.29240 x 405 / 30.29240 = 3.9093. "About 112"
+ * is taken as within 0.5 mmol/L. */
 static void change_furst_worked_example(void **state)
 {
+    double deficit = NTR_TEST_SENTINEL;
+    double dose_l;
     (void)state;
-    assert_near(108.0 + change(108.0, 30.0, 513.0, 0.0, 0.292), 112.0, 0.5);
+    assert_int_equal(ntr_na_deficit(30.0, 108.0, 113.0, &deficit), NTR_OK);
+    assert_near(deficit, 150.0, 1e-12);
+    dose_l = deficit / 513.0;
+    assert_near(dose_l, 0.292, 0.0005);
+    assert_near(change(108.0, 30.0, 513.0, 0.0, dose_l), 3.9093, 0.0001);
+    assert_near(108.0 + change(108.0, 30.0, 513.0, 0.0, dose_l), 112.0, 0.5);
+    /* The deficit step under-doses: it ignores the water given with the
+     * salt, so the rise falls short of the 5 wanted. */
+    assert_true(change(108.0, 30.0, 513.0, 0.0, dose_l) < 5.0 - 1.0);
 }
 
 /* Property: at V = 1 L the mass balance equals Adrogue-Madias per litre
- * (two separately written expressions), over a grid. */
+ * (two separately written expressions), over a grid; where the predicted
+ * sodium leaves 80 to 220, or body water after leaves 0.1 to 400 L, both
+ * refuse it (NTR_ERR_DOMAIN), as ntr_balance_predict() refuses the same
+ * 1 L flow. */
 static void change_at_one_litre_equals_per_litre(void **state)
 {
     static const double na[] = {80.0, 108.0, 125.0, 160.0, 220.0};
     static const double tbw[] = {0.1, 5.0, 30.0, 42.0, 400.0};
     static const double inf_na[] = {0.0, 34.0, 154.0, 513.0, 1100.0};
-    size_t i, j, k;
+    size_t i, j, k, refused = 0;
     (void)state;
     for (i = 0; i < 5; i++) {
         for (j = 0; j < 5; j++) {
             for (k = 0; k < 5; k++) {
-                double a = change(na[i], tbw[j], inf_na[k], 4.0, 1.0);
-                double b = per_litre(na[i], tbw[j], inf_na[k], 4.0);
-                assert_near(a, b, 1e-12 * (1.0 + fabs(b)));
+                double a = NTR_TEST_SENTINEL, b = NTR_TEST_SENTINEL;
+                double na1 = NTR_TEST_SENTINEL, tbw1 = NTR_TEST_SENTINEL;
+                ntr_flow flow;
+                int sa = ntr_infusate_change(na[i], tbw[j], inf_na[k], 4.0, 1.0, &a);
+                int sb = ntr_infusate_change_per_litre(na[i], tbw[j], inf_na[k], 4.0, &b);
+                /* The mass balance, written out. */
+                double predicted = (na[i] * tbw[j] + (inf_na[k] + 4.0)) / (tbw[j] + 1.0);
+                int inside = predicted >= 80.0 && predicted <= 220.0 && tbw[j] + 1.0 <= 400.0;
+                flow.volume_l = 1.0;
+                flow.na_mmol_l = inf_na[k];
+                flow.k_mmol_l = 4.0;
+                assert_int_equal(sa, sb);
+                assert_int_equal(sa,
+                                 ntr_balance_predict(na[i], tbw[j], &flow, 1, &na1, &tbw1));
+                if (sa == NTR_OK) {
+                    assert_true(inside);
+                    assert_near(a, b, 1e-12 * (1.0 + fabs(b)));
+                } else {
+                    assert_int_equal(sa, NTR_ERR_DOMAIN);
+                    assert_false(inside);
+                    assert_true(a == NTR_TEST_SENTINEL && b == NTR_TEST_SENTINEL);
+                    refused++;
+                }
             }
         }
     }
+    /* The grid reaches both sides: e.g. Na 80, TBW 0.1 L, 1 L of water
+     * (about 7) and Na 220, TBW 42 L, 1100 + 4 (about 240). */
+    assert_true(refused > 0);
+}
+
+/* ntr_infusate_change refuses what ntr_balance_predict refuses: 20 L of 3%
+ * saline on Na 140 and TBW 40 L predicts 140 + 20 x 373 / 60 = 264.3
+ * (hand-worked), above 220; 1 L of 5% dextrose on Na 85 and TBW 1 L
+ * predicts 42.5. Both functions give NTR_ERR_DOMAIN; the outputs stay. */
+static void change_refuses_what_balance_refuses(void **state)
+{
+    double out = NTR_TEST_SENTINEL, na1 = NTR_TEST_SENTINEL, tbw1 = NTR_TEST_SENTINEL;
+    ntr_flow saline = {20.0, 513.0, 0.0};
+    ntr_flow water = {1.0, 0.0, 0.0};
+    (void)state;
+    assert_int_equal(ntr_infusate_change(140.0, 40.0, 513.0, 0.0, 20.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_balance_predict(140.0, 40.0, &saline, 1, &na1, &tbw1), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_infusate_change(85.0, 1.0, 0.0, 0.0, 1.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_infusate_change_per_litre(85.0, 1.0, 0.0, 0.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_balance_predict(85.0, 1.0, &water, 1, &na1, &tbw1), NTR_ERR_DOMAIN);
+    assert_true(out == NTR_TEST_SENTINEL && na1 == NTR_TEST_SENTINEL);
+    /* At exactly 220 both accept: 10 L of 3% on Na 140, TBW 40 gives
+     * 140 + 10 x 373 / 50 = 214.6; Na 200, TBW 10, 1 L of Na 420 gives
+     * 200 + 220/11 = 220 exactly (hand-worked). */
+    assert_near(140.0 + change(140.0, 40.0, 513.0, 0.0, 10.0), 214.6, 1e-9);
+    assert_true(200.0 + change(200.0, 10.0, 420.0, 0.0, 1.0) == 220.0);
 }
 
 /* Property: the library's cancellation-free form equals the mass balance as
@@ -182,19 +245,29 @@ static void change_equals_the_mass_balance(void **state)
 }
 
 /* Property: the change grows with volume, has the sign of
- * (infusate - serum) and never overshoots the infusate's own value. */
+ * (infusate - serum) and never overshoots the infusate's own value. 3%
+ * saline on Na 115 and TBW 25 L passes 220 beyond 2625/293 = 8.96 L
+ * (hand-worked: 115 + v x 398 / (25 + v) = 220); from there on every
+ * volume is refused. Water on Na 165 stays above 80 up to 20 L. */
 static void change_is_monotone_and_bounded(void **state)
 {
     double previous_up = 0.0, previous_down = 0.0, vol;
     (void)state;
     for (vol = 0.0; vol <= 20.0; vol += 0.25) {
-        double up = change(115.0, 25.0, 513.0, 0.0, vol);
+        double up = NTR_TEST_SENTINEL;
         double down = change(165.0, 25.0, 0.0, 0.0, vol);
-        assert_true(up >= previous_up);
+        int st = ntr_infusate_change(115.0, 25.0, 513.0, 0.0, vol, &up);
+        if (vol <= 8.75) {
+            assert_int_equal(st, NTR_OK);
+            assert_true(up >= previous_up);
+            assert_true(115.0 + up <= 220.0);
+            previous_up = up;
+        } else {
+            assert_int_equal(st, NTR_ERR_DOMAIN);
+            assert_true(up == NTR_TEST_SENTINEL);
+        }
         assert_true(down <= previous_down);
-        assert_true(115.0 + up <= 513.0);
-        assert_true(165.0 + down >= 0.0);
-        previous_up = up;
+        assert_true(165.0 + down >= 80.0);
         previous_down = down;
     }
     assert_true(change(140.0, 25.0, 140.0, 0.0, 3.0) == 0.0);
@@ -218,13 +291,20 @@ static void change_bad_inputs_leave_output_untouched(void **state)
 
 /* ---- ntr_infusate_volume_for_change --------------------------------------- */
 
-/* Source: Furst et al. 2000 worked example (sodium 108, body water 30 L,
- * raise by 4 to 112 with 3% saline: 292 mL). The exact mass balance gives
- * 120/401 L = 299 mL; 10 mL covers the paper's rounding. */
+/* The exact inverse on the inputs of the Furst et al. 2000 example
+ * (hand-worked): a rise of 5 from 108 in 30 L of
+ * body water needs 5 x 30 / (513 - 108 - 5) = 150/400 = 0.375 L of 3%
+ * saline, not the 292 mL the paper's sodium-deficit step gave (that dose
+ * reaches about 112, test change_furst_worked_example). The 375 mL
+ * returns the rise of 5 through ntr_infusate_change. */
 static void volume_furst_worked_example(void **state)
 {
+    double v;
     (void)state;
-    assert_near(volume_for(108.0, 30.0, 513.0, 0.0, 4.0), 0.292, 0.010);
+    v = volume_for(108.0, 30.0, 513.0, 0.0, 5.0);
+    assert_near(v, 0.375, 1e-12);
+    assert_near(change(108.0, 30.0, 513.0, 0.0, v), 5.0, 1e-12);
+    assert_true(v > 150.0 / 513.0 + 0.08);
 }
 
 /* Property: round trips volume -> change -> volume and change -> volume ->
@@ -272,6 +352,32 @@ static void volume_unreachable_targets(void **state)
     assert_true(out == NTR_TEST_SENTINEL);
 }
 
+/* A target sodium outside 80 to 220 is refused, by the rule
+ * ntr_relower_estimate() applies: 90 lowered by 15 with water (75) is
+ * refused by both; 215 raised by 10 with 5% saline (225) is refused.
+ * Exactly 80 is accepted by both with the same volume (hand-worked:
+ * 10 x 30 / 80 = 3.75 L, and back: 90 - 3.75 x 90 / 33.75 = 80). */
+static void volume_target_outside_the_sodium_range(void **state)
+{
+    double out = NTR_TEST_SENTINEL, rate = NTR_TEST_SENTINEL, relower = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_infusate_volume_for_change(90.0, 30.0, 0.0, 0.0, -15.0, &out),
+                     NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_relower_estimate(90.0, 30.0, 0.0, 0.0, 15.0, 6.0, 0.0, 0.0, 0.0,
+                                          &relower, &rate),
+                     NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_infusate_volume_for_change(215.0, 30.0, 855.0, 0.0, 10.0, &out),
+                     NTR_ERR_DOMAIN);
+    assert_true(out == NTR_TEST_SENTINEL && relower == NTR_TEST_SENTINEL);
+    out = volume_for(90.0, 30.0, 0.0, 0.0, -10.0);
+    assert_true(out == 3.75);
+    assert_int_equal(ntr_relower_estimate(90.0, 30.0, 0.0, 0.0, 10.0, 6.0, 0.0, 0.0, 0.0,
+                                          &relower, &rate),
+                     NTR_OK);
+    assert_true(relower == out);
+    assert_true(90.0 + change(90.0, 30.0, 0.0, 0.0, out) == 80.0);
+}
+
 static int call_volume(const double *a, double *out)
 {
     return ntr_infusate_volume_for_change(a[0], a[1], a[2], a[3], a[4], out);
@@ -300,12 +406,14 @@ int main(void)
         cmocka_unit_test(per_litre_bad_inputs_leave_output_untouched),
         cmocka_unit_test(change_furst_worked_example),
         cmocka_unit_test(change_at_one_litre_equals_per_litre),
+        cmocka_unit_test(change_refuses_what_balance_refuses),
         cmocka_unit_test(change_equals_the_mass_balance),
         cmocka_unit_test(change_is_monotone_and_bounded),
         cmocka_unit_test(change_bad_inputs_leave_output_untouched),
         cmocka_unit_test(volume_furst_worked_example),
         cmocka_unit_test(volume_round_trips),
         cmocka_unit_test(volume_unreachable_targets),
+        cmocka_unit_test(volume_target_outside_the_sodium_range),
         cmocka_unit_test(volume_bad_inputs_leave_output_untouched),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);

@@ -291,7 +291,7 @@ static void glucose_entries_quote_the_published_factors(void **state)
 }
 
 /* Source: Spasovski G et al., Eur J Endocrinol 2014, table of SIAD
- * criteria (from memory), itself from Schwartz et al. 1957 and Bartter &
+ * criteria (checked against the published table), itself from Schwartz et al. 1957 and Bartter &
  * Schwartz 1967: the entry states every threshold and cites all three. */
 static void siad_entry_quotes_the_table(void **state)
 {

@@ -33,7 +33,8 @@ static double corrected_factor(double na, double glucose_mmol_l, double factor)
 
 /* Source: Katz MA, N Engl J Med 1973;289:843-4: sodium falls 1.6 mmol/L per
  * 100 mg/dL of glucose above 100 mg/dL. Hillier TA et al., Am J Med
- * 1999;106:399-403: 2.4 per 100 mg/dL. Hand-worked from those factors:
+ * 1999;106:399-403: 2.4 per 100 mg/dL (both factors checked against
+ * Hillier's published abstract). Hand-worked from them:
  * Na 130 with glucose 600 mg/dL -> Katz 130 + 1.6*5 = 138.0,
  * Hillier 130 + 2.4*5 = 142.0; glucose 400 mg/dL -> +4.8 and +7.2. */
 static void corrected_glucose_katz_and_hillier_worked(void **state)
@@ -163,6 +164,24 @@ static void deficit_worked_example(void **state)
     assert_near(mmol / na3, 0.585, 0.001);
 }
 
+/* The deficit ignores the water the sodium comes in. Hand-worked by mass
+ * balance: 300 mmol as 0.585 L of 3% saline on Na 120 and TBW 30 L gives
+ * (120 x 30 + 0.585 x 513) / 30.585 = 3900.105 / 30.585 = 127.52, not the
+ * 130 aimed at; with the unrounded 300/513 L, 3900 / 30.5848 = 127.51. The
+ * same shortfall as the Furst example (tests/test_infusion.c). */
+static void deficit_ignores_the_water_given(void **state)
+{
+    double mmol = NTR_TEST_SENTINEL, delta = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_na_deficit(30.0, 120.0, 130.0, &mmol), NTR_OK);
+    assert_int_equal(ntr_infusate_change(120.0, 30.0, 513.0, 0.0, 0.585, &delta), NTR_OK);
+    assert_near(120.0 + delta, 127.52, 0.005);
+    assert_int_equal(ntr_infusate_change(120.0, 30.0, 513.0, 0.0, mmol / 513.0, &delta),
+                     NTR_OK);
+    assert_near(120.0 + delta, 127.51, 0.005);
+    assert_true(120.0 + delta < 130.0 - 2.0);
+}
+
 /* Property: deficits add along a path (a -> b -> c equals a -> c), scale
  * with TBW, and are zero when the target is the current value. */
 static void deficit_is_additive_and_proportional(void **state)
@@ -207,6 +226,7 @@ int main(void)
         cmocka_unit_test(corrected_glucose_monotone_and_consistent),
         cmocka_unit_test(corrected_glucose_bad_inputs_leave_output_untouched),
         cmocka_unit_test(deficit_worked_example),
+        cmocka_unit_test(deficit_ignores_the_water_given),
         cmocka_unit_test(deficit_is_additive_and_proportional),
         cmocka_unit_test(deficit_bad_inputs_leave_output_untouched),
     };

@@ -63,12 +63,12 @@ static void fraction_proportional_and_monotone(void **state)
 {
     double age;
     (void)state;
-    for (age = 0.0; age <= 130.0; age += 0.5) {
+    for (age = 1.0; age <= 130.0; age += 0.5) {
         double m = fraction_tbw(NTR_SEX_MALE, age, 50.0);
         double f = fraction_tbw(NTR_SEX_FEMALE, age, 50.0);
         assert_near(fraction_tbw(NTR_SEX_MALE, age, 100.0), 2.0 * m, 1e-12);
         assert_true(f <= m);
-        if (age >= 0.5) {
+        if (age >= 1.5) {
             assert_true(m <= fraction_tbw(NTR_SEX_MALE, age - 0.5, 50.0));
             assert_true(f <= fraction_tbw(NTR_SEX_FEMALE, age - 0.5, 50.0));
         }
@@ -85,10 +85,29 @@ static int call_fraction_female(const double *a, double *out)
     return ntr_tbw_fraction(NTR_SEX_FEMALE, a[0], a[1], out);
 }
 
+/* Infants are refused (docs/water.md): newborns hold about 0.75 to 0.8 of
+ * their weight as water, falling to about 0.6 by one year (from memory; a
+ * paediatric body-composition reference, not the adult rule's source),
+ * so 0.6 under-reads a neonate by a fifth. A 3.2 kg term neonate, a
+ * 6-month-old and the last double below 1 year give NTR_ERR_RANGE; from 1
+ * year the child fraction 0.6 applies: 10 kg at 1 year -> 6 L
+ * (hand-worked). */
+static void fraction_refuses_infants(void **state)
+{
+    double out = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_tbw_fraction(NTR_SEX_MALE, 0.0, 3.2, &out), NTR_ERR_RANGE);
+    assert_int_equal(ntr_tbw_fraction(NTR_SEX_FEMALE, 0.5, 7.5, &out), NTR_ERR_RANGE);
+    assert_int_equal(ntr_tbw_fraction(NTR_SEX_FEMALE, nextafter(1.0, 0.0), 10.0, &out),
+                     NTR_ERR_RANGE);
+    assert_true(out == NTR_TEST_SENTINEL);
+    assert_near(fraction_tbw(NTR_SEX_FEMALE, 1.0, 10.0), 6.0, 1e-12);
+}
+
 static void fraction_bad_inputs_leave_output_untouched(void **state)
 {
-    /* Ranges: age 0-130 years, weight 0.3-650 kg. */
-    struct ntr_test_inputs in = {call_fraction_male, 2, {50.0, 70.0}, {0.0, 0.3}, {130.0, 650.0}};
+    /* Ranges: age 1-130 years, weight 0.3-650 kg. */
+    struct ntr_test_inputs in = {call_fraction_male, 2, {50.0, 70.0}, {1.0, 0.3}, {130.0, 650.0}};
     double out = NTR_TEST_SENTINEL;
     (void)state;
     ntr_test_bad_inputs(&in);
@@ -105,7 +124,7 @@ static void fraction_bad_inputs_leave_output_untouched(void **state)
 /* ---- ntr_tbw_watson ------------------------------------------------------ */
 
 /* Source: Watson PE, Watson ID, Batt RD, Am J Clin Nutr 1980;33:27-39
- * (coefficients from memory; the paper was not at hand):
+ * (coefficients checked against the published abstract):
  *   men   2.447 - 0.09516*age + 0.1074*height + 0.3362*weight
  *   women -2.097 + 0.1069*height + 0.2466*weight.
  * Hand-worked: man 40 y, 175 cm, 75 kg:
@@ -180,6 +199,60 @@ static void watson_bad_inputs_leave_output_untouched(void **state)
     assert_true(out == NTR_TEST_SENTINEL);
 }
 
+/* The share of weight Watson may give: 20% to 80% (docs/water.md: adult
+ * body water is roughly 40 to 75% of weight, lower in severe obesity,
+ * from memory; lean tissue itself holds about 73%, from memory).
+ * Hand-worked:
+ *   woman 150 cm, 10 kg: -2.097 + 16.035 + 2.466 = 16.404 L, 164%: refused;
+ *   man 130 y, 30 cm, 20 kg: 2.447 - 12.3708 + 3.222 + 6.724 = 0.0222 L,
+ *     0.1%: refused;
+ *   woman 40 y, 150 cm, 25.5 kg: 20.2263 L, 79.3%: accepted;
+ *   woman 150 cm, 24.5 kg: 19.9797 L, 81.6%: refused;
+ *   man 130 y, 30 cm, 50 kg: -6.7018 + 16.81 = 10.1082 L, 20.2%: accepted;
+ *   man 130 y, 30 cm, 48 kg: -6.7018 + 16.1376 = 9.4358 L, 19.7%: refused;
+ *   man 60 y, 30 cm, 0.3 kg: -0.0406 + 0.10086 = 0.0603 L, 20.1% but below
+ *     the 0.1 L every function taking a body water needs: refused. */
+static void watson_refuses_implausible_shares(void **state)
+{
+    double out = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_tbw_watson(NTR_SEX_FEMALE, 40.0, 150.0, 10.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_tbw_watson(NTR_SEX_MALE, 130.0, 30.0, 20.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_tbw_watson(NTR_SEX_FEMALE, 40.0, 150.0, 24.5, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_tbw_watson(NTR_SEX_MALE, 130.0, 30.0, 48.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_tbw_watson(NTR_SEX_MALE, 60.0, 30.0, 0.3, &out), NTR_ERR_DOMAIN);
+    assert_true(out == NTR_TEST_SENTINEL);
+    assert_near(watson(NTR_SEX_FEMALE, 40.0, 150.0, 25.5), 20.2263, 1e-9);
+    assert_near(watson(NTR_SEX_MALE, 130.0, 30.0, 50.0), 10.1082, 1e-9);
+}
+
+/* Property: every adult of ordinary build keeps the 1.0 result. Over
+ * heights 145 to 210 cm, body-mass index 17 to 80 kg/m2 and ages 18 to
+ * 110, both sexes, Watson answers, with the published equation's value
+ * (recomputed here) at 30 to 80% of weight. */
+static void watson_accepts_ordinary_adults(void **state)
+{
+    int h, b, a, sex;
+    (void)state;
+    for (sex = NTR_SEX_MALE; sex <= NTR_SEX_FEMALE; sex++) {
+        for (h = 145; h <= 210; h += 5) {
+            for (b = 17; b <= 80; b += 3) {
+                for (a = 18; a <= 110; a += 4) {
+                    double height = (double)h, age = (double)a;
+                    double weight = (double)b * height * height / 10000.0;
+                    double expected = sex == NTR_SEX_MALE
+                                          ? 2.447 - 0.09516 * age + 0.1074 * height +
+                                                0.3362 * weight
+                                          : -2.097 + 0.1069 * height + 0.2466 * weight;
+                    double tbw = watson(sex, age, height, weight);
+                    assert_true(tbw == expected);
+                    assert_true(tbw >= 0.30 * weight && tbw <= 0.80 * weight);
+                }
+            }
+        }
+    }
+}
+
 /* ---- ntr_free_water_deficit ---------------------------------------------- */
 
 /* Source: the textbook water-deficit formula TBW*(Na/140 - 1) (common
@@ -239,11 +312,14 @@ int main(void)
         cmocka_unit_test(fraction_published_fractions),
         cmocka_unit_test(fraction_age_band_edges),
         cmocka_unit_test(fraction_proportional_and_monotone),
+        cmocka_unit_test(fraction_refuses_infants),
         cmocka_unit_test(fraction_bad_inputs_leave_output_untouched),
         cmocka_unit_test(watson_published_equations),
         cmocka_unit_test(watson_agrees_roughly_with_the_fraction_rule),
         cmocka_unit_test(watson_slopes),
         cmocka_unit_test(watson_bad_inputs_leave_output_untouched),
+        cmocka_unit_test(watson_refuses_implausible_shares),
+        cmocka_unit_test(watson_accepts_ordinary_adults),
         cmocka_unit_test(deficit_worked_examples),
         cmocka_unit_test(deficit_volume_of_water_restores_140),
         cmocka_unit_test(deficit_bad_inputs_leave_output_untouched),

@@ -1,12 +1,14 @@
 /* Work-up: ntr_na_severity, ntr_tonicity_class, ntr_low_na_tonicity,
+ * ntr_effective_osm_measured, ntr_low_na_effective_tonicity,
  * ntr_urine_maximally_dilute, ntr_urine_na_high, ntr_fractional_excretion,
  * ntr_siad_findings_init, ntr_siad_evaluate (docs/workup.md).
  *
  * "Guideline" below is Spasovski G et al. Clinical practice guideline on
  * diagnosis and treatment of hyponatraemia. Eur J Endocrinol
- * 2014;170(3):G1-G47. Its thresholds are quoted from memory (the text was
- * not at hand while writing); docs/workup.md lists them. Every patient
- * below is an invented scenario. */
+ * 2014;170(3):G1-G47. Its severity bands, the 275 mOsm/kg limit, the urine
+ * thresholds and the SIAD table's values are checked against the published
+ * text (/work/shared/sources.md); docs/workup.md lists them and what is
+ * still from memory. Every patient below is an invented scenario. */
 #include <stdarg.h>
 #include <stddef.h>
 #include <setjmp.h>
@@ -38,7 +40,7 @@ static int severity(double na)
 }
 
 /* Source: guideline, classification by biochemical severity: mild
- * 130-135, moderate 125-129, profound < 125 mmol/L (from memory). Each
+ * 130-135, moderate 125-129, profound < 125 mmol/L (checked). Each
  * edge at, just below and just above it; the library's boundary
  * convention puts an edge in the band it starts. */
 static void severity_bands_at_their_edges(void **state)
@@ -118,7 +120,7 @@ static int tonicity(double osm)
     return out;
 }
 
-/* Source: guideline (hypotonic below 275 mOsm/kg, from memory); 295 as the
+/* Source: guideline (hypotonic below 275 mOsm/kg, checked); 295 as the
  * upper end of the usual serum osmolality reference interval (common
  * practice). */
 static void tonicity_class_at_its_edges(void **state)
@@ -364,6 +366,357 @@ static void low_na_tonicity_bad_inputs(void **state)
     assert_int_equal(f, 0xDEADu);
 }
 
+/* ---- ntr_effective_osm_measured, ntr_low_na_effective_tonicity ----------
+ *
+ * Sources: Oster JR, Singer I. Arch Intern Med 1999;159:333-6 and Milionis
+ * HJ et al. CMAJ 2002;166:1056-62 (checked, /work/shared/sources.md): urea
+ * and ethanol are ineffective osmoles, so a normal or high measured
+ * osmolality does not exclude hypotonicity, and the effective osmolality
+ * is the measured value less urea. The ethanol coefficient 1.25 mOsm/kg
+ * per mmol/L is Purssell et al., Ann Emerg Med 2001, from memory (not yet
+ * checked). The floor at 2*Na + glucose is the library's rule
+ * (docs/workup.md). Every patient is an invented scenario. */
+
+static double effective_osm(double na, double glucose, double urea, double ethanol, double osm)
+{
+    double out = NTR_TEST_SENTINEL;
+    assert_int_equal(ntr_effective_osm_measured(na, glucose, urea, ethanol, osm, &out), NTR_OK);
+    return out;
+}
+
+static struct low_na low_na_effective(double na, double glucose, double urea, double ethanol,
+                                      double osm, int method)
+{
+    struct low_na r = {NTR_TEST_SENTINEL_INT, 0xDEADu};
+    assert_int_equal(ntr_low_na_effective_tonicity(na, glucose, urea, ethanol, osm, method,
+                                                   &r.tonicity, &r.flags),
+                     NTR_OK);
+    return r;
+}
+
+/* Uraemia: Na 125, glucose 5, urea 40 mmol/L, measured 295 mOsm/kg.
+ * Hand-worked: 295 - 40 = 255 (above the floor 2*125 + 5 = 255, equal to
+ * it here), below 275: hypotonic (Oster & Singer 1999; Milionis et al.
+ * 2002). Glucose 5 mmol/L is 90 mg/dL, under the 100 mg/dL where the
+ * correction starts, so glucose explains nothing. The measured value alone
+ * reads isotonic and "pseudo": that is what the 1.0 function says. */
+static void uraemia_is_hypotonic_behind_a_normal_measured_osmolality(void **state)
+{
+    struct low_na r;
+    (void)state;
+    assert_near(effective_osm(125.0, 5.0, 40.0, 0.0, 295.0), 255.0, 1e-12);
+    r = low_na_effective(125.0, 5.0, 40.0, 0.0, 295.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+    r = low_na(125.0, 5.0, 295.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.tonicity, NTR_TONICITY_ISOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_PSEUDO);
+}
+
+/* Ethanol intoxication: Na 118, glucose 5, urea 5, ethanol 45 mmol/L
+ * (207 mg/dL), measured 295. Hand-worked with the coefficient 1.25
+ * (Purssell et al. 2001, from memory): 295 - 5 - 1.25 * 45 = 233.75, below
+ * the floor 2*118 + 5 = 241, so the effective osmolality is 241:
+ * hypotonic (Oster & Singer 1999; Milionis et al. 2002). With a measured
+ * 320 the floor does not bind: 320 - 5 - 56.25 = 258.75. */
+static void ethanol_is_hypotonic_behind_a_normal_measured_osmolality(void **state)
+{
+    struct low_na r;
+    (void)state;
+    assert_near(effective_osm(118.0, 5.0, 5.0, 45.0, 295.0), 241.0, 1e-12);
+    assert_near(effective_osm(118.0, 5.0, 0.0, 45.0, 295.0), 241.0, 1e-12);
+    assert_near(effective_osm(118.0, 5.0, 5.0, 45.0, 320.0), 258.75, 1e-12);
+    r = low_na_effective(118.0, 5.0, 5.0, 45.0, 295.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+    r = low_na_effective(118.0, 5.0, 5.0, 45.0, 320.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+    /* Hand-worked: the coefficient shows where the floor is far: Na 130,
+     * glucose 5 (floor 265), ethanol 20, measured 300: 300 - 25 = 275,
+     * isotonic at the edge; ethanol 21: 273.75, hypotonic. */
+    assert_near(effective_osm(130.0, 5.0, 0.0, 20.0, 300.0), 275.0, 1e-12);
+    assert_near(effective_osm(130.0, 5.0, 0.0, 21.0, 300.0), 273.75, 1e-12);
+    r = low_na_effective(130.0, 5.0, 0.0, 20.0, 300.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_ISOTONIC);
+    r = low_na_effective(130.0, 5.0, 0.0, 21.0, 300.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+}
+
+/* Severe uraemia: Na 125, glucose 5, urea 50, measured 307 (hypertonic as
+ * measured). Hand-worked: 307 - 50 = 257 (floor 255): hypotonic, so not
+ * translocational and not hypertonic (Oster & Singer 1999). The 1.0
+ * function, seeing 307 only, calls it hypertonic and translocational. */
+static void uraemia_with_a_high_measured_osmolality_is_not_translocational(void **state)
+{
+    struct low_na r;
+    (void)state;
+    assert_near(effective_osm(125.0, 5.0, 50.0, 0.0, 307.0), 257.0, 1e-12);
+    r = low_na_effective(125.0, 5.0, 50.0, 0.0, 307.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+    assert_true((r.flags & (NTR_LOW_NA_TRANSLOCATIONAL | NTR_LOW_NA_PSEUDO |
+                            NTR_LOW_NA_NOT_HYPOTONIC)) == 0u);
+    r = low_na(125.0, 5.0, 307.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPERTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_TRANSLOCATIONAL);
+}
+
+/* True pseudohyponatraemia (guideline: a low sodium with a normal
+ * osmolality and normal glucose suggests a laboratory artefact): Na 124,
+ * glucose 5, urea 5, no ethanol, measured 290. Hand-worked: 290 - 5 = 285,
+ * isotonic: still PSEUDO, and no ineffective osmoles to blame. */
+static void true_pseudohyponatraemia_stays_pseudo(void **state)
+{
+    struct low_na r;
+    (void)state;
+    assert_near(effective_osm(124.0, 5.0, 5.0, 0.0, 290.0), 285.0, 1e-12);
+    r = low_na_effective(124.0, 5.0, 5.0, 0.0, 290.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.tonicity, NTR_TONICITY_ISOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_PSEUDO);
+    /* The 1.0 case (Na 124, glucose 5, measured 288) without urea is the
+     * same answer through the new function. */
+    r = low_na_effective(124.0, 5.0, 0.0, 0.0, 288.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_PSEUDO);
+}
+
+/* Hyperglycaemia: Na 125, glucose 50 mmol/L, urea 6, measured 326.
+ * Hand-worked: 326 - 6 = 320 (floor 2*125 + 50 = 300): hypertonic; Katz
+ * (N Engl J Med 1973) corrects the sodium to 137.8 >= 135: translocational,
+ * as in the 1.0 function's test with measured 320 and no urea. */
+static void hyperglycaemia_stays_translocational(void **state)
+{
+    struct low_na r;
+    (void)state;
+    assert_near(effective_osm(125.0, 50.0, 6.0, 0.0, 326.0), 320.0, 1e-12);
+    r = low_na_effective(125.0, 50.0, 6.0, 0.0, 326.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPERTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_TRANSLOCATIONAL |
+                                  NTR_LOW_NA_GLUCOSE_EXPLAINS);
+    /* Glucose and urea together (Na 128, glucose 40, urea 30, measured
+     * 330): 330 - 30 = 300 (floor 296): still hypertonic, translocational. */
+    r = low_na_effective(128.0, 40.0, 30.0, 0.0, 330.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPERTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_TRANSLOCATIONAL |
+                                  NTR_LOW_NA_GLUCOSE_EXPLAINS);
+}
+
+/* The floor (library rule, hand-worked): the subtraction stops at
+ * 2*Na + glucose and the result never exceeds the measured value. */
+static void the_floor_stops_the_subtraction(void **state)
+{
+    struct low_na r;
+    (void)state;
+    /* Na 118, glucose 5, urea 30, measured 250: 220 would be below what
+     * sodium and glucose supply (241). */
+    assert_near(effective_osm(118.0, 5.0, 30.0, 0.0, 250.0), 241.0, 1e-12);
+    /* Measured 280 below 2*140 + 5 = 285: the measured value stands. */
+    assert_true(effective_osm(140.0, 5.0, 0.0, 0.0, 280.0) == 280.0);
+    assert_true(effective_osm(140.0, 5.0, 10.0, 0.0, 280.0) == 280.0);
+    /* Na 130, glucose 20 (floor 280), urea 30, measured 300: 270 is below
+     * the floor, so 280, isotonic; Hillier corrects the sodium to 136.2
+     * (hand-worked, 130 + 2.4 * 2.603): translocational, and no
+     * ineffective-osmoles flag since the effective value is not below 275. */
+    assert_near(effective_osm(130.0, 20.0, 30.0, 0.0, 300.0), 280.0, 1e-12);
+    r = low_na_effective(130.0, 20.0, 30.0, 0.0, 300.0, NTR_GLUCOSE_HILLIER);
+    assert_int_equal(r.tonicity, NTR_TONICITY_ISOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_TRANSLOCATIONAL |
+                                  NTR_LOW_NA_GLUCOSE_EXPLAINS);
+    /* The extremes of the ranges stay inside 150..600. */
+    assert_true(effective_osm(80.0, 0.0, 200.0, 400.0, 150.0) == 150.0);
+    assert_true(effective_osm(80.0, 0.0, 200.0, 400.0, 600.0) == 160.0);
+    assert_true(effective_osm(220.0, 200.0, 0.0, 0.0, 600.0) == 600.0);
+}
+
+/* Edges of the new flag: measured exactly 275 with the effective value one
+ * double below 275 sets it; measured one double below 275 does not (the
+ * value was hypotonic as measured). Sodium 135 or more: the low-sodium
+ * flags stay 0 but the class is still explained (Na 136, glucose 2: floor
+ * 274; measured 290, urea 30). */
+static void ineffective_osmoles_flag_edges(void **state)
+{
+    struct low_na r;
+    (void)state;
+    r = low_na_effective(120.0, 5.0, 0.0, 0.0, 275.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.flags, NTR_LOW_NA_NOT_HYPOTONIC | NTR_LOW_NA_PSEUDO);
+    r = low_na_effective(120.0, 5.0, 275.0 - below(275.0), 0.0, 275.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+    r = low_na_effective(120.0, 5.0, 10.0, 0.0, below(275.0), NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, 0u);
+    r = low_na_effective(136.0, 2.0, 30.0, 0.0, 290.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_HYPOTONIC);
+    assert_int_equal(r.flags, NTR_LOW_NA_INEFFECTIVE_OSMOLES);
+    r = low_na_effective(140.0, 5.0, 30.0, 0.0, 310.0, NTR_GLUCOSE_KATZ);
+    assert_int_equal(r.tonicity, NTR_TONICITY_ISOTONIC);
+    assert_int_equal(r.flags, 0u);
+}
+
+/* The 1.0 function is the new one with urea and ethanol 0, bit for bit:
+ * over the grid of the coherence property and the range edges. */
+static void the_wrapper_equals_the_engine_without_urea_or_ethanol(void **state)
+{
+    static const double na[] = {80.0, 100.0, 118.0, 126.0, 134.9, 135.0, 150.0, 220.0};
+    static const double glucose[] = {0.0, 5.0, 15.0, 30.0, 60.0, 120.0, 200.0};
+    static const double osm[] = {150.0, 230.0, 274.9, 275.0, 288.0, 295.0, 295.1, 340.0, 600.0};
+    size_t i, j, k;
+    int m;
+    (void)state;
+    for (m = NTR_GLUCOSE_KATZ; m <= NTR_GLUCOSE_HILLIER; m++) {
+        for (i = 0; i < sizeof na / sizeof na[0]; i++) {
+            for (j = 0; j < sizeof glucose / sizeof glucose[0]; j++) {
+                for (k = 0; k < sizeof osm / sizeof osm[0]; k++) {
+                    struct low_na a = low_na(na[i], glucose[j], osm[k], m);
+                    struct low_na b = low_na_effective(na[i], glucose[j], 0.0, 0.0, osm[k], m);
+                    double e = effective_osm(na[i], glucose[j], 0.0, 0.0, osm[k]);
+                    assert_int_equal(a.tonicity, b.tonicity);
+                    assert_int_equal(a.flags, b.flags);
+                    assert_true((a.flags & NTR_LOW_NA_INEFFECTIVE_OSMOLES) == 0u);
+                    assert_memory_equal(&e, &osm[k], sizeof e);
+                }
+            }
+        }
+    }
+}
+
+/* A small deterministic generator (Knuth's MMIX LCG constants), so the
+ * property runs the same everywhere. */
+static double uniform(uint64_t *seed, double lo, double hi)
+{
+    *seed = *seed * 6364136223846793005ull + 1442695040888963407ull;
+    return lo + (hi - lo) * ((double)(*seed >> 11) / 9007199254740992.0);
+}
+
+/* Property over random valid inputs: more urea or more ethanol never makes
+ * the class less hypotonic nor the effective value larger; the effective
+ * value lies between min(measured, 2*Na + glucose) and measured; the class
+ * is ntr_tonicity_class() of ntr_effective_osm_measured(); the new flag is
+ * set exactly when measured >= 275 > effective, and never with PSEUDO;
+ * the SIAD criterion on that value agrees with the class. */
+static void more_ineffective_osmoles_never_make_it_less_hypotonic(void **state)
+{
+    uint64_t seed = 20261201u;
+    int n;
+    (void)state;
+    for (n = 0; n < 20000; n++) {
+        double na = uniform(&seed, 80.0, 220.0);
+        double glucose = uniform(&seed, 0.0, n % 4 == 0 ? 200.0 : 30.0);
+        double urea = uniform(&seed, 0.0, n % 3 == 0 ? 200.0 : 60.0);
+        double ethanol = n % 2 == 0 ? 0.0 : uniform(&seed, 0.0, n % 5 == 1 ? 400.0 : 80.0);
+        double osm = uniform(&seed, 150.0, 600.0);
+        double more_urea = urea + uniform(&seed, 0.0, 200.0 - urea);
+        double more_ethanol = ethanol + uniform(&seed, 0.0, 400.0 - ethanol);
+        int m = n % 2 == 0 ? NTR_GLUCOSE_KATZ : NTR_GLUCOSE_HILLIER;
+        double calculated = 0.0;
+        double e = effective_osm(na, glucose, urea, ethanol, osm);
+        struct low_na r = low_na_effective(na, glucose, urea, ethanol, osm, m);
+        struct low_na ru = low_na_effective(na, glucose, more_urea, ethanol, osm, m);
+        struct low_na re = low_na_effective(na, glucose, urea, more_ethanol, osm, m);
+        assert_int_equal(ntr_osm_effective(na, glucose, &calculated), NTR_OK);
+        assert_true(e <= osm);
+        assert_true(e >= (calculated < osm ? calculated : osm));
+        assert_true(effective_osm(na, glucose, more_urea, ethanol, osm) <= e);
+        assert_true(effective_osm(na, glucose, urea, more_ethanol, osm) <= e);
+        assert_true(ru.tonicity <= r.tonicity);
+        assert_true(re.tonicity <= r.tonicity);
+        assert_int_equal(r.tonicity, tonicity(e));
+        assert_int_equal((r.flags & NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u,
+                         osm >= 275.0 && e < 275.0);
+        assert_false((r.flags & NTR_LOW_NA_INEFFECTIVE_OSMOLES) &&
+                     (r.flags & NTR_LOW_NA_PSEUDO));
+        if (na >= 135.0) {
+            assert_int_equal(r.flags & ~NTR_LOW_NA_INEFFECTIVE_OSMOLES, 0u);
+        }
+        {
+            ntr_siad_findings f;
+            ntr_siad_result s;
+            assert_int_equal(ntr_siad_findings_init(&f), NTR_OK);
+            f.effective_osm_mosm_kg.known = 1;
+            f.effective_osm_mosm_kg.value = e;
+            s.struct_size = sizeof s;
+            assert_int_equal(ntr_siad_evaluate(&f, &s), NTR_OK);
+            assert_int_equal((s.met & (1ul << NTR_SIAD_OSM_LOW)) != 0ul,
+                             r.tonicity == NTR_TONICITY_HYPOTONIC);
+        }
+    }
+}
+
+static int call_effective_osm(const double *a, double *out)
+{
+    return ntr_effective_osm_measured(a[0], a[1], a[2], a[3], a[4], out);
+}
+
+static int call_low_na_effective(const double *a, double *out)
+{
+    int t = NTR_TEST_SENTINEL_INT;
+    unsigned int f = 0xDEADu;
+    int status = ntr_low_na_effective_tonicity(a[0], a[1], a[2], a[3], a[4], NTR_GLUCOSE_KATZ,
+                                               &t, &f);
+    if (status == NTR_OK) {
+        *out = (double)t;
+    } else {
+        assert_int_equal(t, NTR_TEST_SENTINEL_INT);
+        assert_int_equal(f, 0xDEADu);
+    }
+    return status;
+}
+
+/* NULL, NaN, infinities, out of range (argument order), unknown method:
+ * the documented status, outputs untouched. */
+static void effective_tonicity_bad_inputs(void **state)
+{
+    const struct ntr_test_inputs osm_in = {call_effective_osm, 5, {125.0, 5.0, 40.0, 10.0, 295.0},
+                                           {80.0, 0.0, 0.0, 0.0, 150.0},
+                                           {220.0, 200.0, 200.0, 400.0, 600.0}};
+    const struct ntr_test_inputs class_in = {call_low_na_effective, 5,
+                                             {125.0, 5.0, 40.0, 10.0, 295.0},
+                                             {80.0, 0.0, 0.0, 0.0, 150.0},
+                                             {220.0, 200.0, 200.0, 400.0, 600.0}};
+    int t = NTR_TEST_SENTINEL_INT;
+    unsigned int f = 0xDEADu;
+    (void)state;
+    ntr_test_bad_inputs(&osm_in);
+    ntr_test_bad_inputs(&class_in);
+    assert_int_equal(ntr_effective_osm_measured(125.0, 5.0, 40.0, 0.0, 295.0, NULL),
+                     NTR_ERR_NULL);
+    assert_int_equal(ntr_effective_osm_measured((double)NAN, 5.0, 40.0, 0.0, 295.0, NULL),
+                     NTR_ERR_NULL);
+    assert_int_equal(
+        ntr_low_na_effective_tonicity(125.0, 5.0, 40.0, 0.0, 295.0, NTR_GLUCOSE_KATZ, NULL, &f),
+        NTR_ERR_NULL);
+    assert_int_equal(
+        ntr_low_na_effective_tonicity(125.0, 5.0, 40.0, 0.0, 295.0, NTR_GLUCOSE_KATZ, &t, NULL),
+        NTR_ERR_NULL);
+    /* Unknown method: NTR_ERR_ARG, after NULL and before any number. */
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, 40.0, 0.0, 295.0, 0, &t, &f),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, 40.0, 0.0, 295.0, 3, &t, &f),
+                     NTR_ERR_ARG);
+    assert_int_equal(
+        ntr_low_na_effective_tonicity(125.0, 5.0, (double)NAN, -1.0, 295.0, 99, &t, &f),
+        NTR_ERR_ARG);
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, 40.0, 0.0, 295.0, 99, NULL, &f),
+                     NTR_ERR_NULL);
+    /* Urea and ethanol beyond their ranges (unit slips: urea in mg/dL,
+     * ethanol in mg/dL) are refused, not subtracted. */
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, 240.0, 0.0, 295.0,
+                                                   NTR_GLUCOSE_KATZ, &t, &f),
+                     NTR_ERR_RANGE);
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, 5.0, 450.0, 295.0,
+                                                   NTR_GLUCOSE_KATZ, &t, &f),
+                     NTR_ERR_RANGE);
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, -0.5, 0.0, 295.0,
+                                                   NTR_GLUCOSE_KATZ, &t, &f),
+                     NTR_ERR_RANGE);
+    assert_int_equal(ntr_low_na_effective_tonicity(125.0, 5.0, 5.0, -HUGE_VAL, 295.0,
+                                                   NTR_GLUCOSE_KATZ, &t, &f),
+                     NTR_ERR_NONFINITE);
+    assert_int_equal(t, NTR_TEST_SENTINEL_INT);
+    assert_int_equal(f, 0xDEADu);
+}
+
 /* ---- urine findings ----------------------------------------------------- */
 
 static int dilute(double uosm)
@@ -380,8 +733,8 @@ static int urine_na_high(double una)
     return out;
 }
 
-/* Source: common practice (urine osmolality <= 100 mOsm/kg is maximally
- * dilute; the guideline uses the same cut-off, from memory). */
+/* Source: guideline (urine osmolality <= 100 mOsm/kg is maximally dilute,
+ * checked). */
 static void urine_dilute_at_its_edge(void **state)
 {
     (void)state;
@@ -394,7 +747,7 @@ static void urine_dilute_at_its_edge(void **state)
 }
 
 /* Source: guideline: urine sodium > 30 mmol/L on normal salt and water
- * intake (from memory). */
+ * intake (checked). */
 static void urine_na_high_at_its_edge(void **state)
 {
     (void)state;
@@ -703,7 +1056,7 @@ struct value_edge {
     double step; /* a clinically visible step beside the threshold */
 };
 
-/* Source: guideline table of SIAD criteria (from memory): effective
+/* Source: guideline table of SIAD criteria (checked): effective
  * osmolality < 275 mOsm/kg, urine osmolality > 100 mOsm/kg, urine sodium
  * > 30 mmol/L, uric acid < 0.24 mmol/L, urea < 3.6 mmol/L, FE Na > 0.5 %,
  * FE urea > 55 %, FE uric acid > 12 %. Each at, just below and just above
@@ -980,6 +1333,34 @@ static void siad_documented_example(void **state)
     assert_int_equal(r.missing & NTR_SIAD_SUPPLEMENTAL_BITS, SUPPLEMENTAL);
 }
 
+/* SIAD on the effective osmolality: the uraemia patient (Na 125, glucose
+ * 5, urea 40, measured 295; Oster & Singer 1999) meets the low-effective-
+ * osmolality criterion when the value of ntr_effective_osm_measured() is
+ * passed (255, hand-worked), and fails it if the measured value is passed
+ * by mistake: the evaluator takes what it is given, as documented. */
+static void siad_uses_the_effective_osmolality(void **state)
+{
+    ntr_siad_findings f = siad_case();
+    ntr_siad_result r;
+    double effective = 0.0;
+    (void)state;
+    assert_int_equal(ntr_effective_osm_measured(125.0, 5.0, 40.0, 0.0, 295.0, &effective), NTR_OK);
+    assert_near(effective, 255.0, 1e-12);
+    f.effective_osm_mosm_kg = known(effective);
+    r = evaluate(&f);
+    assert_result_coherent(&r);
+    assert_int_equal(r.verdict, NTR_SIAD_CONSISTENT);
+    assert_true((r.met & B(NTR_SIAD_OSM_LOW)) != 0ul);
+    f.effective_osm_mosm_kg = known(295.0);
+    r = evaluate(&f);
+    assert_int_equal(r.not_met & ESSENTIAL, B(NTR_SIAD_OSM_LOW));
+    /* The edge is the hypotonic edge of the tonicity class. */
+    f.effective_osm_mosm_kg = known(NTR_TONICITY_HYPOTONIC_BELOW);
+    r = evaluate(&f);
+    assert_true((r.not_met & B(NTR_SIAD_OSM_LOW)) != 0ul);
+    assert_int_equal(tonicity(NTR_TONICITY_HYPOTONIC_BELOW), NTR_TONICITY_ISOTONIC);
+}
+
 /* On error nothing is written; checks run in the documented order. */
 static void expect_siad_error(const ntr_siad_findings *f, int expected)
 {
@@ -1118,6 +1499,16 @@ int main(void)
         cmocka_unit_test(low_na_tonicity_edges),
         cmocka_unit_test(low_na_flags_are_coherent),
         cmocka_unit_test(low_na_tonicity_bad_inputs),
+        cmocka_unit_test(uraemia_is_hypotonic_behind_a_normal_measured_osmolality),
+        cmocka_unit_test(ethanol_is_hypotonic_behind_a_normal_measured_osmolality),
+        cmocka_unit_test(uraemia_with_a_high_measured_osmolality_is_not_translocational),
+        cmocka_unit_test(true_pseudohyponatraemia_stays_pseudo),
+        cmocka_unit_test(hyperglycaemia_stays_translocational),
+        cmocka_unit_test(the_floor_stops_the_subtraction),
+        cmocka_unit_test(ineffective_osmoles_flag_edges),
+        cmocka_unit_test(the_wrapper_equals_the_engine_without_urea_or_ethanol),
+        cmocka_unit_test(more_ineffective_osmoles_never_make_it_less_hypotonic),
+        cmocka_unit_test(effective_tonicity_bad_inputs),
         cmocka_unit_test(urine_dilute_at_its_edge),
         cmocka_unit_test(urine_na_high_at_its_edge),
         cmocka_unit_test(urine_findings_step_once),
@@ -1137,6 +1528,7 @@ int main(void)
         cmocka_unit_test(siad_zero_means_unknown),
         cmocka_unit_test(siad_results_are_always_coherent),
         cmocka_unit_test(siad_documented_example),
+        cmocka_unit_test(siad_uses_the_effective_osmolality),
         cmocka_unit_test(siad_bad_inputs_leave_result_untouched),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);

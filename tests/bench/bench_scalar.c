@@ -185,6 +185,13 @@ PAIR(ntr_tonicity_class, ntr_tonicity_class(265.0, &i), stub_d_ip(265.0, &i))
 PAIR(ntr_low_na_tonicity,
      ntr_low_na_tonicity(122.0, 30.0, 290.0, NTR_GLUCOSE_HILLIER, &i, &g_u1),
      stub_dddi_pp(122.0, 30.0, 290.0, NTR_GLUCOSE_HILLIER, &i, &g_u1))
+PAIR(ntr_effective_osm_measured,
+     ntr_effective_osm_measured(125.0, 5.0, 40.0, 10.0, 295.0, &d),
+     stub_ddddd_p(125.0, 5.0, 40.0, 10.0, 295.0, &d))
+PAIR(ntr_low_na_effective_tonicity,
+     ntr_low_na_effective_tonicity(122.0, 30.0, 20.0, 10.0, 310.0, NTR_GLUCOSE_HILLIER, &i,
+                                   &g_u1),
+     stub_dddddi_pp(122.0, 30.0, 20.0, 10.0, 310.0, NTR_GLUCOSE_HILLIER, &i, &g_u1))
 PAIR(ntr_urine_maximally_dilute, ntr_urine_maximally_dilute(80.0, &i),
      stub_d_ip(80.0, &i))
 PAIR(ntr_urine_na_high, ntr_urine_na_high(45.0, &i), stub_d_ip(45.0, &i))
@@ -294,6 +301,8 @@ static const struct pair pairs[] = {
     ENTRY(ntr_na_severity),
     ENTRY(ntr_tonicity_class),
     ENTRY(ntr_low_na_tonicity),
+    ENTRY(ntr_effective_osm_measured),
+    ENTRY(ntr_low_na_effective_tonicity),
     ENTRY(ntr_urine_maximally_dilute),
     ENTRY(ntr_urine_na_high),
     ENTRY(ntr_fractional_excretion),

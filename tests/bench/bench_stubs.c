@@ -73,6 +73,12 @@ int stub_dddi_pp(double a, double b, double c, int d, int *out1,
     (void)a; (void)b; (void)c; (void)d; (void)out1; (void)out2;
     return 0;
 }
+int stub_dddddi_pp(double a, double b, double c, double d, double e, int f,
+                   int *out1, unsigned int *out2)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)e; (void)f; (void)out1; (void)out2;
+    return 0;
+}
 int stub_v_p(void *out) { (void)out; return 0; }
 int stub_pp(const void *in, void *out) { (void)in; (void)out; return 0; }
 int stub_diiii_ppp(double a, int b, int c, int d, int e, int *out1,

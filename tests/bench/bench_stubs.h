@@ -28,6 +28,8 @@ int stub_pz_pp(const void *a, size_t n, const void *b, void *out);
 int stub_pdd_p(void *state, double a, double b, void *out);
 int stub_dddi_pp(double a, double b, double c, int d, int *out1,
                  unsigned int *out2);
+int stub_dddddi_pp(double a, double b, double c, double d, double e, int f,
+                   int *out1, unsigned int *out2);
 int stub_v_p(void *out);
 int stub_pp(const void *in, void *out);
 int stub_diiii_ppp(double a, int b, int c, int d, int e, int *out1,

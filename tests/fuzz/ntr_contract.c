@@ -257,11 +257,14 @@ static int call_tbw_watson(ntrc_case *c)
 
 static const char *ok_tbw_watson(const ntrc_case *c)
 {
-    /* Positive, and below the male equation at the youngest adult age and
-     * the largest height and weight. */
+    /* A usable body water (0.1 to 400 L) between 20% and 80% of the
+     * weight (docs/water.md), and below the male equation at the youngest
+     * adult age and the largest height and weight. */
     double most = 2.447 - 0.09516 * 18.0 + 0.1074 * 275.0 + 0.3362 * 650.0;
-    return (c->out.d[0] > 0.0 && within(c->out.d[0], 0.0, most)) ? NULL
-                                                                 : "Watson TBW outside (0, 250]";
+    double w = c->num[2];
+    return (within(c->out.d[0], 0.1, most) && within(c->out.d[0], 0.2 * w, 0.8 * w))
+               ? NULL
+               : "Watson TBW outside [0.1, 250] L or outside 20-80% of weight";
 }
 
 static int call_free_water_deficit(ntrc_case *c)
@@ -317,6 +320,9 @@ static int call_infusate_change(ntrc_case *c)
 static const char *ok_infusate_change(const ntrc_case *c)
 {
     double gap = c->num[2] + c->num[3] - c->num[0];
+    if (!within(c->num[0] + c->out.d[0], 80.0, 220.0)) {
+        return "predicted sodium outside 80 to 220 (ntr_balance_predict refuses it)";
+    }
     return delta_between(c->out.d[0], gap) ? NULL
                                            : "change outside [0, infusate - serum]";
 }
@@ -435,6 +441,70 @@ static const char *ok_low_na_tonicity(const ntrc_case *c)
     }
     if ((flags & NTR_LOW_NA_NOT_HYPOTONIC) && c->num[2] < NTR_TONICITY_HYPOTONIC_BELOW) {
         return "not-hypotonic flag on a hypotonic osmolality";
+    }
+    return NULL;
+}
+
+/* The effective osmolality as the header states it (measured less urea
+ * and 1.25 * ethanol, floored at min(2*Na + glucose, measured)); the
+ * subtraction is grouped as the library groups it, so the class edge at
+ * 275 is judged on the same double. */
+static double effective_expected(const double *x)
+{
+    double calculated = 2.0 * x[0] + x[1];
+    double floor_osm = calculated < x[4] ? calculated : x[4];
+    double subtracted = x[4] - (x[2] + 1.25 * x[3]);
+    return subtracted > floor_osm ? subtracted : floor_osm;
+}
+
+static int call_effective_osm_measured(ntrc_case *c)
+{
+    return ntr_effective_osm_measured(c->num[0], c->num[1], c->num[2], c->num[3], c->num[4],
+                                      od(c, 0));
+}
+
+static const char *ok_effective_osm_measured(const ntrc_case *c)
+{
+    double e = c->out.d[0];
+    if (!within(e, 150.0, 600.0)) {
+        return "effective osmolality outside [150, 600]";
+    }
+    if (e > c->num[4]) {
+        return "effective osmolality above the measured one";
+    }
+    return close_to(e, effective_expected(c->num), 1e-14) ? NULL
+                                                         : "effective osmolality off its equation";
+}
+
+static int call_low_na_effective_tonicity(ntrc_case *c)
+{
+    return ntr_low_na_effective_tonicity(
+        c->num[0], c->num[1], c->num[2], c->num[3], c->num[4], c->en[0], oi(c, 0),
+        (c->out_null & NTRC_NULL_I(1)) ? NULL : (unsigned int *)&c->out.i[1]);
+}
+
+static const char *ok_low_na_effective_tonicity(const ntrc_case *c)
+{
+    unsigned int flags = (unsigned int)c->out.i[1];
+    double e = effective_expected(c->num);
+    int hidden = c->num[4] >= NTR_TONICITY_HYPOTONIC_BELOW && e < NTR_TONICITY_HYPOTONIC_BELOW;
+    if (c->out.i[0] != tonicity_of(e)) {
+        return "tonicity does not match the band of the effective osmolality";
+    }
+    if ((flags & ~0x3fu) != 0u) {
+        return "undefined flag bits";
+    }
+    if (c->num[0] >= 135.0 && (flags & ~NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u) {
+        return "low-sodium flags set although sodium is not low";
+    }
+    if (((flags & NTR_LOW_NA_INEFFECTIVE_OSMOLES) != 0u) != hidden) {
+        return "ineffective-osmoles flag not set exactly when measured >= 275 > effective";
+    }
+    if ((flags & NTR_LOW_NA_PSEUDO) && e < NTR_TONICITY_HYPOTONIC_BELOW) {
+        return "pseudo flag on a hypotonic effective osmolality";
+    }
+    if ((flags & NTR_LOW_NA_NOT_HYPOTONIC) && e < NTR_TONICITY_HYPOTONIC_BELOW) {
+        return "not-hypotonic flag on a hypotonic effective osmolality";
     }
     return NULL;
 }
@@ -2215,7 +2285,7 @@ const ntrc_fn ntrc_functions[] = {
      .check_ok = ok_na_deficit},
     /* water */
     {CALL(tbw_fraction), .n_enum = 1, .en = {SEX}, .n_num = 2,
-     .num = {{"age_years", 0.0, 130.0, 0}, {"weight_kg", 0.3, 650.0, 0}}, .n_out_d = 1,
+     .num = {{"age_years", 1.0, 130.0, 0}, {"weight_kg", 0.3, 650.0, 0}}, .n_out_d = 1,
      .statuses = OK_COMMON | ST(ERR_ARG), .base_num = {70.0, 60.0},
      .base_en = {NTR_SEX_FEMALE}, .check_ok = ok_tbw_fraction},
     {CALL(tbw_watson), .n_enum = 1, .en = {SEX}, .n_num = 3,
@@ -2231,11 +2301,11 @@ const ntrc_fn ntrc_functions[] = {
      .n_out_d = 2, .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG),
      .base_en = {NTR_FLUID_NACL_3}, .check_ok = ok_fluid_preset},
     {CALL(infusate_change_per_litre), .n_num = 4, .num = {NA, TBW, INF_NA, INF_K},
-     .n_out_d = 1, .statuses = OK_COMMON, .base_num = {112.0, 30.0, 513.0, 0.0},
+     .n_out_d = 1, .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {112.0, 30.0, 513.0, 0.0},
      .check_ok = ok_infusate_change_per_litre},
     {CALL(infusate_change), .n_num = 5,
      .num = {NA, TBW, INF_NA, INF_K, {"volume_l", 0.0, 20.0, 0}}, .n_out_d = 1,
-     .statuses = OK_COMMON, .base_num = {108.0, 30.0, 513.0, 0.0, 0.292},
+     .statuses = OK_COMMON | ST(ERR_DOMAIN), .base_num = {108.0, 30.0, 513.0, 0.0, 0.292},
      .check_ok = ok_infusate_change},
     {CALL(infusate_volume_for_change), .n_num = 5,
      .num = {NA, TBW, INF_NA, INF_K, {"target_delta_mmol_l", -50.0, 50.0, 0}}, .n_out_d = 1,
@@ -2259,6 +2329,19 @@ const ntrc_fn ntrc_functions[] = {
      .n_num = 3, .num = {NA, GLU, OSM("measured_osm_mosm_kg")}, .n_out_i = 2,
      .statuses = OK_COMMON | ST(ERR_ARG), .base_num = {126.0, 30.0, 290.0},
      .base_en = {NTR_GLUCOSE_HILLIER}, .check_ok = ok_low_na_tonicity},
+    {CALL(effective_osm_measured), .n_num = 5,
+     .num = {NA, GLU, {"urea_mmol_l", 0.0, 200.0, 0}, {"ethanol_mmol_l", 0.0, 400.0, 0},
+             OSM("measured_osm_mosm_kg")},
+     .n_out_d = 1, .statuses = OK_COMMON, .base_num = {125.0, 5.0, 40.0, 0.0, 295.0},
+     .check_ok = ok_effective_osm_measured},
+    {CALL(low_na_effective_tonicity), .n_enum = 1,
+     .en = {{"glucose_method", NTR_ERR_ARG, 2, {NTR_GLUCOSE_KATZ, NTR_GLUCOSE_HILLIER}}},
+     .n_num = 5,
+     .num = {NA, GLU, {"urea_mmol_l", 0.0, 200.0, 0}, {"ethanol_mmol_l", 0.0, 400.0, 0},
+             OSM("measured_osm_mosm_kg")},
+     .n_out_i = 2, .statuses = OK_COMMON | ST(ERR_ARG),
+     .base_num = {118.0, 5.0, 5.0, 45.0, 295.0}, .base_en = {NTR_GLUCOSE_HILLIER},
+     .check_ok = ok_low_na_effective_tonicity},
     {CALL(urine_maximally_dilute), .n_num = 1, .num = {{"urine_osm_mosm_kg", 10.0, 2000.0, 0}},
      .n_out_i = 1, .statuses = OK_COMMON, .base_num = {80.0},
      .check_ok = ok_urine_maximally_dilute},

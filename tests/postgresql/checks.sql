@@ -78,8 +78,10 @@ SELECT pg_temp.near('ringer K', ntr_fluid_k('ringer_lactate'), 4, 0);
 -- 2.447 - 0.09516*40 + 0.1074*180 + 0.3362*80 = 44.8686 L.
 SELECT pg_temp.near('watson', ntr_tbw_watson('male', 40, 180, 80), 44.8686, 1e-9);
 
--- Source: Furst et al., Am J Med Sci 2000;319:240-4, worked example: Na 108,
--- TBW 30 L, 3% saline; about 0.3 L raises Na by 4 to about 112.
+-- Hand-worked exact inverse of the mass balance on the inputs of the Furst
+-- et al. (Am J Med Sci 2000;319:240-4) example: Na 108, TBW 30 L, 3% saline;
+-- a rise of 4 needs 4*30/(513 - 108 - 4) = 120/401 = 0.299 L. (The paper
+-- dosed a rise of 5 by the sodium-deficit step, 292 mL, reaching about 112.)
 SELECT pg_temp.near('furst volume',
     ntr_infusate_volume_for_change(108, 30, 513, 0, 4), 0.3, 0.01);
 SELECT pg_temp.near('volume round trip',
