@@ -187,8 +187,11 @@ for a in ${archs[@]+"${archs[@]}"}; do
     failed+=("$a")
   fi
 done
-echo "cross.sh: ${#passed[@]} passed, ${#failed[@]} failed, ${#skipped[@]} skipped" \
-  "(${passed[*]:+passed: ${passed[*]}}${failed[*]:+ failed: ${failed[*]}}${skipped[*]:+ skipped: ${skipped[*]}})"
+names=()
+[ ${#passed[@]} -eq 0 ] || names+=("passed: ${passed[*]}")
+[ ${#failed[@]} -eq 0 ] || names+=("failed: ${failed[*]}")
+[ ${#skipped[@]} -eq 0 ] || names+=("skipped: ${skipped[*]}")
+echo "cross.sh: ${#passed[@]} passed, ${#failed[@]} failed, ${#skipped[@]} skipped ($(IFS=';'; echo "${names[*]}" | sed 's/;/; /g'))"
 [ ${#failed[@]} -eq 0 ] || exit 1
 # only skipped targets (none ran): meson counts the test as skipped
 [ ${#passed[@]} -gt 0 ] || exit 77
