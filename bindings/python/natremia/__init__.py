@@ -35,6 +35,8 @@ from ._core import (  # noqa: F401
     Flow, TimedFlow, BalanceResult, balance_predict, balance_course,
     PlanResult, plan_check, RelowerEstimate, relower_estimate,
     low_na_effective_tonicity, effective_osm_measured,
+    Solute, urine_volume_from_solute, fluid_allowance, solute_dose_osmoles,
+    FeUricAcidClass, fe_uric_acid_class,
 )
 from ._course import (  # noqa: F401
     Goal, CoursePreset, CourseFlag, FLAG_LABELS, flag_labels, CourseLimits,
