@@ -43,6 +43,9 @@ from ._course import (  # noqa: F401
     CourseReport, course_limits_preset, course_preset_names, course_assess,
     BreachDirection, CoursePlanResult, course_plan_check, CourseWatch,
 )
+from ._fit import (  # noqa: F401
+    FitFlag, FIT_FLAG_LABELS, CourseFit, course_fit, fit_reproject,
+)
 
 __version__ = "1.1.0"
 
