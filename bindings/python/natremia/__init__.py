@@ -45,6 +45,8 @@ from ._course import (  # noqa: F401
 )
 from ._fit import (  # noqa: F401
     FitFlag, FIT_FLAG_LABELS, CourseFit, course_fit, fit_reproject,
+    FeedbackFlag, FEEDBACK_FLAG_LABELS, UrineFeedback, urine_feedback,
+    urine_interval_flow,
 )
 
 __version__ = "1.1.0"
