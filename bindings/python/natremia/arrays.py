@@ -4,7 +4,9 @@ Arguments are keyword-only, as in the scalar API, and broadcast against
 each other (a scalar infusate against a column of patients, say). The
 result has the broadcast shape. No Python loop runs per row: the inputs are
 made contiguous float64 (int32 for sex), handed to an ntr_batch_* function,
-and its output array is returned.
+and its output array is returned. The exceptions are the 1.1 solute
+functions at the end (no batch entry point in the library): they call the
+scalar C function once per row.
 
 Errors: with ``errors="raise"`` (the default) any failing row raises
 NatremiaError naming the first failing row (flattened index) and the
