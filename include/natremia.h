@@ -3253,6 +3253,283 @@ NTR_API int ntr_fit_reproject(const ntr_sample *history, size_t n,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: therapy (lib/therapy.c, docs/therapy.md) ================ */
+/* ======================================================================= */
+
+/** @defgroup therapy Whole-therapy helpers (since 1.1)
+ *  A loop diuretic, the desmopressin clamp, vaptan monitoring, lowering a
+ *  high sodium with hypotonic fluid and the symptom-driven 3% saline
+ *  boluses, each predicted through the balance functions. Every result is
+ *  an estimate for decision support, not an order: verify with measured
+ *  values, follow local protocols and licensed clinical judgement.
+ *  @{ */
+
+/** mmol/L: urine sodium + potassium commonly assumed after a loop
+ *  diuretic, about half of isotonic (common practice; no published value
+ *  checked). Pass a measured value when there is one. */
+#define NTR_LOOP_URINE_NA_K 75.0
+/** hours: a stop hour that is never reached within 720 h (ntr_dda_clamp()). */
+#define NTR_THERAPY_NEVER (-1.0)
+/** mL of 3% saline per bolus for severe symptoms (Spasovski 2014; from memory). */
+#define NTR_BOLUS_VOLUME_ML 150.0
+/** minutes over which each bolus runs before the recheck (Spasovski 2014; from memory). */
+#define NTR_BOLUS_MINUTES 20.0
+/** mmol/L: the rise the boluses aim at (Spasovski 2014; from memory). */
+#define NTR_BOLUS_AIM_MMOL_L 5.0
+/** Most boluses ntr_bolus_plan() plans before it reports the aim out of reach. */
+#define NTR_BOLUS_COUNT_MAX 10
+/** hours: projection horizon while a vaptan acts (common practice). */
+#define NTR_VAPTAN_HORIZON_H 6.0
+/** hours: recommended interval between sodium results on a vaptan in the
+ *  first day (common practice). */
+#define NTR_VAPTAN_RESAMPLE_H 6.0
+
+/** @name Vaptan cautions (ntr_vaptan_watch.cautions; ABI, since 1.1)
+ *  @{ */
+/** No fluid restriction during the first 24 h of a vaptan: with the
+ *  water diuresis it adds, restriction risks overcorrection (tolvaptan
+ *  prescribing information; from memory). Always set. */
+#define NTR_VAPTAN_NO_RESTRICTION_24H 0x1u
+/** Liver disease: tolvaptan is to be avoided (liver injury; US FDA drug
+ *  safety communication 2013, from memory), and liver disease is a risk
+ *  factor for osmotic demyelination (Verbalis 2013). */
+#define NTR_VAPTAN_LIVER_DISEASE 0x2u
+/** The high-risk limits (@ref NTR_COURSE_HYPO_HIGH_RISK) were chosen. */
+#define NTR_VAPTAN_HIGH_RISK_LIMITS 0x4u
+/** Every caution bit ntr_vaptan_watch_preset() can set. */
+#define NTR_VAPTAN_CAUTION_ALL 0x7u
+/** @} */
+
+/**
+ * @brief Monitoring plan while a vaptan acts (ABI since 1.1).
+ *
+ * Set @c struct_size to sizeof(ntr_vaptan_watch) before the call: a
+ * smaller value is refused with NTR_ERR_ARG; on success it is set to the
+ * size this library fills.
+ */
+typedef struct ntr_vaptan_watch {
+    size_t struct_size;       /**< sizeof(ntr_vaptan_watch) as the caller knows it; set on success. */
+    ntr_course_limits limits; /**< Course limits to watch with (goal raise). */
+    double horizon_h;         /**< How far ahead to project a plan, hours. */
+    double resample_h;        /**< Recommended hours between sodium results. */
+    unsigned int cautions;    /**< NTR_VAPTAN_* bits. */
+    unsigned int reserved;    /**< Written as 0. */
+} ntr_vaptan_watch;
+
+/**
+ * @brief Sodium after a loop diuretic, with and without salt replacement.
+ *
+ * The urine lost after a loop diuretic is about half-isotonic
+ * (@ref NTR_LOOP_URINE_NA_K, common practice), so losing it raises the
+ * sodium; replacing its salt and not its water raises it further. Through
+ * ntr_balance_predict():
+ * na_without = balance of the flow {-U, c_u};
+ * na_with = balance of {-U, c_u} and {+R, c_r}, where
+ * balance = Na0 + sum v*(c - Na0) / (TBW0 + sum v).
+ *
+ * @param na_mmol_l          sodium before, 80 to 220 mmol/L.
+ * @param tbw_l              body water before, 0.1 to 400 L.
+ * @param urine_l            urine volume over the period, 0 to 30 L.
+ * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L
+ *                           (measured, or @ref NTR_LOOP_URINE_NA_K).
+ * @param replace_l          replacement fluid given, 0 to 20 L (0: none).
+ * @param replace_na_mmol_l  its sodium, 0 to 1100 mmol/L (0.9%: 154).
+ * @param[out] na_without_mmol_l sodium after the urine loss alone.
+ * @param[out] na_with_mmol_l    sodium after the loss and the replacement.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE (inputs
+ *         in argument order), NTR_ERR_DOMAIN (a state ntr_balance_predict()
+ *         refuses: body water outside 0.1 to 400 L or sodium outside 80 to
+ *         220 mmol/L).
+ *
+ * References: mass balance of Edelman 1958 and Adrogue HJ, Madias NE,
+ * N Engl J Med 2000;342:1581-9; urine composition common practice.
+ * Method: @ref NTR_METHOD_LOOP_DIURETIC.
+ */
+NTR_API int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
+                              double urine_na_k_mmol_l, double replace_l,
+                              double replace_na_mmol_l,
+                              double *na_without_mmol_l,
+                              double *na_with_mmol_l);
+
+/**
+ * @brief Desmopressin clamp: rise per day and the hour to stop.
+ *
+ * Saline at a steady rate r (L/h, concentration c_s) with the urine held
+ * low by desmopressin (rate u, cation c_u). The rise over 24 h is
+ * ntr_balance_course() of the two flows. The stop hour is the same mass
+ * balance, Na(t) = Na0 + t*A / (TBW0 + t*B) with A = r*(c_s - Na0) -
+ * u*(c_u - Na0) and B = r - u, solved for Na(t) = Na0 + d:
+ * t = d*TBW0 / (A - d*B); @ref NTR_THERAPY_NEVER when A - d*B <= 0 or
+ * t > 720 h. Pass d = the target rise, or the 24 h limit to learn when the
+ * infusion must stop at the latest.
+ *
+ * @param na_mmol_l          sodium now, 80 to 220 mmol/L.
+ * @param tbw_l              body water now, 0.1 to 400 L.
+ * @param saline_ml_h        saline rate, 0 to 5000 mL/h.
+ * @param saline_na_mmol_l   saline sodium, 0 to 1100 mmol/L (3%: 513).
+ * @param urine_ml_h         expected urine rate under desmopressin, 0 to 5000 mL/h.
+ * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L.
+ * @param stop_rise_mmol_l   rise d at which to stop, above 0 and at most 50.
+ * @param[out] rise_24h_mmol_l predicted change over 24 h (negative if it falls).
+ * @param[out] stop_h          hours until the rise reaches d (0 to 720), or
+ *                             NTR_THERAPY_NEVER.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (the 24 h course or the state at the stop hour
+ *         leaves the model's range, as in ntr_balance_course()).
+ *
+ * References: mass balance as ntr_balance_course(); the clamp as described
+ * by Sood L, Sterns RH, Hix JK, Silver SM, Chen L. Am J Kidney Dis
+ * 2013;61:571-8 (from memory).
+ * Method: @ref NTR_METHOD_DDAVP_CLAMP.
+ */
+NTR_API int ntr_dda_clamp(double na_mmol_l, double tbw_l, double saline_ml_h,
+                          double saline_na_mmol_l, double urine_ml_h,
+                          double urine_na_k_mmol_l, double stop_rise_mmol_l,
+                          double *rise_24h_mmol_l, double *stop_h);
+
+/**
+ * @brief Re-lowering after a breach, aimed at or below the limit.
+ *
+ * Lowers by d = excess + margin with 5% dextrose (ntr_fluid_preset())
+ * through ntr_relower_estimate() (potassium of the urine counted in
+ * @p urine_na_k_mmol_l). Pass ntr_course_report.excess_mmol_l as the
+ * excess; a margin of 0 aims at the limit, a margin above 0 that much
+ * below it. An excess of 0 (no window over) gives 0 volume and rate,
+ * whatever the margin.
+ *
+ * @param na_mmol_l          sodium now, 80 to 220 mmol/L.
+ * @param tbw_l              body water now, 0.1 to 400 L.
+ * @param excess_mmol_l      ntr_course_report.excess_mmol_l, 0 to 50.
+ * @param margin_mmol_l      how far below the limit to aim, 0 to 10 mmol/L.
+ * @param hours              time over which to give it, 1/60 to 720 h.
+ * @param urine_ml_h         expected urine rate (under desmopressin), 0 to 5000 mL/h.
+ * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L.
+ * @param[out] volume_l      5% dextrose to give over @p hours, L.
+ * @param[out] rate_ml_h     the same as a rate, mL/h.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (excess + margin above 50, or as
+ *         ntr_relower_estimate()).
+ *
+ * References: as ntr_relower_estimate(); Sterns RH, Hix JK, Kidney Int
+ * 2009;76:587-9 (cited from memory).
+ * Methods: @ref NTR_METHOD_DDAVP_RELOWER, @ref NTR_METHOD_RELOWER.
+ */
+NTR_API int ntr_dda_relower(double na_mmol_l, double tbw_l,
+                            double excess_mmol_l, double margin_mmol_l,
+                            double hours, double urine_ml_h,
+                            double urine_na_k_mmol_l, double *volume_l,
+                            double *rate_ml_h);
+
+/**
+ * @brief Limits, projection horizon, resample interval and cautions while a
+ *        vaptan acts.
+ *
+ * Limits: @ref NTR_COURSE_HYPO_HIGH_RISK when @p high_risk or
+ * @p liver_disease (liver disease is a risk factor for osmotic
+ * demyelination), else @ref NTR_COURSE_HYPO_STANDARD. Horizon
+ * @ref NTR_VAPTAN_HORIZON_H and resample @ref NTR_VAPTAN_RESAMPLE_H (6 h
+ * each, common practice: a vaptan's water diuresis can move the sodium
+ * within hours). Cautions: @ref NTR_VAPTAN_NO_RESTRICTION_24H always,
+ * @ref NTR_VAPTAN_LIVER_DISEASE, @ref NTR_VAPTAN_HIGH_RISK_LIMITS.
+ *
+ * @param high_risk     1 when risk factors for osmotic demyelination are
+ *                      present (ntr_ods_risk()), else 0.
+ * @param liver_disease 1 with liver disease, else 0.
+ * @param[in,out] out   the plan; struct_size set by the caller.
+ * @retval NTR_OK, NTR_ERR_NULL (@p out),
+ *         NTR_ERR_ARG (a flag not 0 or 1, or out->struct_size too small).
+ *
+ * References: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42
+ * (limits, risk factors); tolvaptan prescribing information and US FDA
+ * drug safety communication 2013 (no restriction in the first 24 h; liver
+ * injury; from memory).
+ * Method: @ref NTR_METHOD_VAPTAN_WATCH.
+ */
+NTR_API int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
+                                    ntr_vaptan_watch *out);
+
+/**
+ * @brief Rate of a hypotonic fluid that lowers a high sodium by a wanted
+ *        fall, counting urine and insensible losses, checked against the
+ *        fall limits.
+ *
+ * With fluid (c_f from ntr_fluid_preset()), urine u (cation c_u) and
+ * insensible loss i (cation 0) over T hours, the rate solves the mass
+ * balance for Na(T) = Na0 - d (ntr_relower_estimate(), with the two losses
+ * pooled: rate u + i, cation u*c_u/(u + i)):
+ * V = (d*TBW0 + L*(Na1 - c_L)) / (Na1 - c_f), L = (u + i)*T; 0 when the
+ * losses alone lower the sodium that far. The plan (fluid, urine,
+ * insensible) is then checked with ntr_course_plan_check() under the
+ * preset's fall limit; @p first_breach_h is its breach_fall_24h_h.
+ *
+ * @param na_mmol_l          sodium now, 80 to 220 mmol/L.
+ * @param tbw_l              body water now, 0.1 to 400 L.
+ * @param fluid              NTR_FLUID_* (5% dextrose, 0.45% saline, ...).
+ * @param limits_preset      @ref NTR_COURSE_HYPER_CHRONIC or @ref NTR_COURSE_HYPER_ACUTE.
+ * @param fall_mmol_l        wanted fall d, above 0 and at most 50.
+ * @param hours              span T, 1/60 to 720 h.
+ * @param urine_ml_h         urine rate, 0 to 5000 mL/h.
+ * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L.
+ * @param insensible_ml_h    insensible water loss, 0 to 500 mL/h.
+ * @param[out] rate_ml_h       fluid rate, mL/h.
+ * @param[out] volume_l        fluid volume over @p hours, L.
+ * @param[out] first_breach_h  hours until the plan passes the 24 h fall
+ *                             limit, or @ref NTR_PLAN_NO_BREACH.
+ * @retval NTR_OK, NTR_ERR_NULL,
+ *         NTR_ERR_ARG (unknown fluid, or a preset other than the two),
+ *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (inputs in argument order),
+ *         NTR_ERR_DOMAIN (urine + insensible above 5000 mL/h; the fluid not
+ *         below the target; or as ntr_relower_estimate() and
+ *         ntr_course_plan_check()).
+ *
+ * References: Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med
+ * 2000;342:1493-9 (the fluids, counting ongoing losses, the pace).
+ * Methods: @ref NTR_METHOD_HYPER_LOWER, @ref NTR_METHOD_RELOWER,
+ * @ref NTR_METHOD_PLAN_CHECK.
+ */
+NTR_API int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
+                                 int limits_preset, double fall_mmol_l,
+                                 double hours, double urine_ml_h,
+                                 double urine_na_k_mmol_l,
+                                 double insensible_ml_h, double *rate_ml_h,
+                                 double *volume_l, double *first_breach_h);
+
+/**
+ * @brief Number of 3% saline boluses for severe symptoms, held within a
+ *        limit.
+ *
+ * The European guideline for severe symptoms: 150 mL of 3% saline over
+ * 20 min, recheck, repeat, until the sodium has risen by about 5 mmol/L
+ * (@ref NTR_BOLUS_VOLUME_ML, @ref NTR_BOLUS_MINUTES,
+ * @ref NTR_BOLUS_AIM_MMOL_L; from memory). The rise after k boluses is
+ * ntr_balance_predict() of k*0.15 L of 513 mmol/L (urine ignored). The
+ * plan is the smallest k whose rise reaches @p aim_rise_mmol_l; if a bolus
+ * would pass @p max_rise_mmol_l the plan stops before it and
+ * @p held_by_limit is 1. Each bolus takes @ref NTR_BOLUS_MINUTES.
+ *
+ * @param na_mmol_l         sodium now, 80 to 220 mmol/L.
+ * @param tbw_l             body water, 0.1 to 400 L.
+ * @param aim_rise_mmol_l   rise aimed at, above 0 and at most 50 (guideline: 5).
+ * @param max_rise_mmol_l   rise not to pass (the 24 h limit), above 0 and at most 50.
+ * @param[out] boluses        boluses planned, 1 to @ref NTR_BOLUS_COUNT_MAX.
+ * @param[out] rise_mmol_l    predicted rise after them.
+ * @param[out] held_by_limit  1 when the limit stopped the plan short of the aim, else 0.
+ * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
+ *         NTR_ERR_DOMAIN (aim above the limit; one bolus already passes
+ *         the limit; the aim not reached within NTR_BOLUS_COUNT_MAX
+ *         boluses; or a state ntr_balance_predict() refuses).
+ *
+ * References: Spasovski G et al. Eur J Endocrinol 2014;170:G1-G47
+ * (bolus regimen, from memory); mass balance as ntr_balance_predict().
+ * Methods: @ref NTR_METHOD_BOLUS_PLAN, @ref NTR_METHOD_BALANCE_MASS.
+ */
+NTR_API int ntr_bolus_plan(double na_mmol_l, double tbw_l,
+                           double aim_rise_mmol_l, double max_rise_mmol_l,
+                           int *boluses, double *rise_mmol_l,
+                           int *held_by_limit);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: batch correction (lib/batch.c, docs/batch.md) =========== */
 /* ======================================================================= */
 
@@ -3365,8 +3642,8 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 /** @defgroup methods Method identifiers
  *  Every published method the library uses has an id (ABI). Ids 1-29 are
  *  the core formulas, 30-49 correction and balance, 50-69 the work-up,
- *  70-89 the therapy areas of issue P2 (70-74: solute and restriction;
- *        83-89: urine feedback and the fit).
+ *  70-89 the therapy areas of issue P2 (70-74 solute and restriction,
+ *  75-82 therapy, 83-89 urine feedback and the fit).
  *  @{ */
 #define NTR_METHOD_UNIT_CONVERSION 1       /**< unit conversion by molar mass (IUPAC, UCUM) */
 #define NTR_METHOD_OSM_2NA 2               /**< calculated osmolality, 2*Na formula */
@@ -3415,18 +3692,25 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_LOW_NA_EFFECTIVE_TONICITY 58 /**< low-sodium flags judged on the effective osmolality */
 #define NTR_METHOD_FE_URIC_ACID_CLASS 59 /**< fractional uric acid excretion: against SIAD < 8 %, supports > 12 % */
 #define NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION 60 /**< fractional uric acid excretion after correction: normalised or persistently high */
-/* Urine feedback and the fitted prediction (ids 83-89, issue P2; lib/feedback.c). */
-#define NTR_METHOD_EFW_BALANCE 83          /**< electrolyte-free water balance of inputs and outputs */
-#define NTR_METHOD_URINE_FEEDBACK 84       /**< measured urine continued: limit within a horizon */
-#define NTR_METHOD_COURSE_FIT 85           /**< least-squares fit of body water and free-water loss */
-#define NTR_METHOD_FIT_SEPARABILITY 86     /**< correlation test: can the data tell the two apart */
-#define NTR_METHOD_FIT_REPROJECT 87        /**< remaining plan re-projected with fitted values */
 /* Therapy (ids 70-89, issue P2); solute and restriction (lib/solute.c). */
 #define NTR_METHOD_SOLUTE_URINE_VOLUME 70  /**< urine volume = solute / urine osmolality (Berl 2008) */
 #define NTR_METHOD_FLUID_ALLOWANCE 71      /**< most fluid per day that holds the sodium: EFWC + insensible */
 #define NTR_METHOD_SOLUTE_DOSE 72          /**< osmoles of a dose of urea or NaCl (IUPAC molar masses) */
 #define NTR_METHOD_SOLUTE_FOR_ALLOWANCE 73 /**< allowance with a solute dose, and the dose for an allowance */
 #define NTR_METHOD_RESTRICTION_OUTLOOK 74  /**< will restriction, with or without solute, hold the sodium */
+/* Urine feedback and the fitted prediction (ids 83-89, issue P2; lib/feedback.c). */
+#define NTR_METHOD_EFW_BALANCE 83          /**< electrolyte-free water balance of inputs and outputs */
+#define NTR_METHOD_URINE_FEEDBACK 84       /**< measured urine continued: limit within a horizon */
+#define NTR_METHOD_COURSE_FIT 85           /**< least-squares fit of body water and free-water loss */
+#define NTR_METHOD_FIT_SEPARABILITY 86     /**< correlation test: can the data tell the two apart */
+#define NTR_METHOD_FIT_REPROJECT 87        /**< remaining plan re-projected with fitted values */
+/* Therapy (ids 75-82, issue P2; lib/therapy.c). */
+#define NTR_METHOD_LOOP_DIURETIC 75        /**< loop diuretic: half-isotonic urine lost, with or without salt */
+#define NTR_METHOD_DDAVP_CLAMP 76          /**< desmopressin clamp: rise per day and stop hour */
+#define NTR_METHOD_DDAVP_RELOWER 77        /**< re-lowering by the excess over the limit plus a margin */
+#define NTR_METHOD_VAPTAN_WATCH 78         /**< vaptan monitoring: limits, horizon, resample, cautions */
+#define NTR_METHOD_HYPER_LOWER 79          /**< hypotonic fluid rate to lower a high sodium, losses counted */
+#define NTR_METHOD_BOLUS_PLAN 80           /**< 3% saline boluses for severe symptoms */
 /** @} */
 
 #ifdef __cplusplus

@@ -45,7 +45,7 @@ int ntr_balance_predict(double na_mmol_l, double tbw_l, const ntr_flow *flows,
 /* ---- course over time ------------------------------------------------------ */
 
 /* Reserved fields, then numbers in struct order. */
-static int check_timed_flows_reserved(const ntr_timed_flow *flows, size_t n)
+int ntri_timed_flows_reserved(const ntr_timed_flow *flows, size_t n)
 {
     size_t i;
     for (i = 0; i < n; i++) {
@@ -56,7 +56,7 @@ static int check_timed_flows_reserved(const ntr_timed_flow *flows, size_t n)
     return NTR_OK;
 }
 
-static int check_timed_flows(const ntr_timed_flow *flows, size_t n)
+int ntri_timed_flows_values(const ntr_timed_flow *flows, size_t n)
 {
     size_t i;
     for (i = 0; i < n; i++) {
@@ -70,7 +70,7 @@ static int check_timed_flows(const ntr_timed_flow *flows, size_t n)
     return NTR_OK;
 }
 
-static int timed_flows_order(const ntr_timed_flow *flows, size_t n)
+int ntri_timed_flows_order(const ntr_timed_flow *flows, size_t n)
 {
     size_t i;
     for (i = 0; i < n; i++) {
@@ -81,7 +81,7 @@ static int timed_flows_order(const ntr_timed_flow *flows, size_t n)
     return NTR_OK;
 }
 
-static int check_span(double duration_h, double step_h)
+int ntri_plan_span_check(double duration_h, double step_h)
 {
     NTR_TRY(ntr_check(duration_h, 0.0, NTR_PLAN_HOURS_MAX));
     if (!(duration_h > 0.0)) {
@@ -218,12 +218,12 @@ int ntr_balance_course(double na_mmol_l, double tbw_l,
         (flows == NULL && n_flows > 0)) {
         return NTR_ERR_NULL;
     }
-    NTR_TRY(check_timed_flows_reserved(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_reserved(flows, n_flows));
     NTR_TRY(ntr_check_na(na_mmol_l));
     NTR_TRY(ntr_check_tbw(tbw_l));
-    NTR_TRY(check_timed_flows(flows, n_flows));
-    NTR_TRY(check_span(duration_h, step_h));
-    NTR_TRY(timed_flows_order(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_values(flows, n_flows));
+    NTR_TRY(ntri_plan_span_check(duration_h, step_h));
+    NTR_TRY(ntri_timed_flows_order(flows, n_flows));
 
     plan_init(&p, na_mmol_l, tbw_l, flows, n_flows, duration_h, step_h,
               NULL, 0);
@@ -309,14 +309,14 @@ static int plan_run_start(struct plan_run *run, const ntr_sample *history,
         return NTR_ERR_ARG;
     }
     NTR_TRY(kind_status);
-    NTR_TRY(check_timed_flows_reserved(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_reserved(flows, n_flows));
     NTR_TRY(ntri_samples_check(history, n_history, &history_order));
     NTR_TRY(ntr_check_tbw(tbw_l));
-    NTR_TRY(check_timed_flows(flows, n_flows));
-    NTR_TRY(check_span(duration_h, step_h));
+    NTR_TRY(ntri_timed_flows_values(flows, n_flows));
+    NTR_TRY(ntri_plan_span_check(duration_h, step_h));
     NTR_TRY(values_status);
     NTR_TRY(history_order);
-    NTR_TRY(timed_flows_order(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_order(flows, n_flows));
 
     plan_init(&run->p, history[n_history - 1].na_mmol_l, tbw_l, flows, n_flows,
               duration_h, step_h, history, n_history);

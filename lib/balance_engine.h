@@ -13,6 +13,16 @@ typedef void (*ntri_flow_source_fn)(const void *ctx, double from_h,
                                     double to_h, double na0, double *gain,
                                     double *excess);
 
+/* Checks of a plan's timed flows, shared by every function that takes
+ * them, in the documented order: reserved fields (NTR_ERR_ARG), numbers in
+ * struct order (NTR_ERR_NONFINITE, NTR_ERR_RANGE), then each flow's end not
+ * before its start (NTR_ERR_ORDER). */
+int ntri_timed_flows_reserved(const ntr_timed_flow *flows, size_t n);
+int ntri_timed_flows_values(const ntr_timed_flow *flows, size_t n);
+int ntri_timed_flows_order(const ntr_timed_flow *flows, size_t n);
+/* A plan's length (above 0, at most 720 h) and step (1 min to 720 h). */
+int ntri_plan_span_check(double duration_h, double step_h);
+
 /* The mass balance itself and its domain are ntri_mass_balance() in
  * ntr_internal.h, shared with the infusate functions. */
 

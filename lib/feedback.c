@@ -6,52 +6,7 @@
 #include "balance_engine.h"
 #include "correction_engine.h"
 
-/* ---- shared checks ------------------------------------------------------------ */
-
-static int flows_reserved(const ntr_timed_flow *flows, size_t n)
-{
-    size_t i;
-    for (i = 0; i < n; i++) {
-        if (flows[i].reserved[0] != 0u || flows[i].reserved[1] != 0u) {
-            return NTR_ERR_ARG;
-        }
-    }
-    return NTR_OK;
-}
-
-static int flows_values(const ntr_timed_flow *flows, size_t n)
-{
-    size_t i;
-    for (i = 0; i < n; i++) {
-        const ntr_timed_flow *f = &flows[i];
-        NTR_TRY(ntr_check(f->start_h, 0.0, NTR_PLAN_HOURS_MAX));
-        NTR_TRY(ntr_check(f->end_h, 0.0, NTR_PLAN_HOURS_MAX));
-        NTR_TRY(ntr_check(f->rate_ml_h, -NTR_FLOW_RATE_MAX, NTR_FLOW_RATE_MAX));
-        NTR_TRY(ntr_check(f->na_mmol_l, 0.0, NTR_INFUSATE_NA_MAX));
-        NTR_TRY(ntr_check(f->k_mmol_l, 0.0, NTR_INFUSATE_K_MAX));
-    }
-    return NTR_OK;
-}
-
-static int flows_order(const ntr_timed_flow *flows, size_t n)
-{
-    size_t i;
-    for (i = 0; i < n; i++) {
-        if (flows[i].end_h < flows[i].start_h) {
-            return NTR_ERR_ORDER;
-        }
-    }
-    return NTR_OK;
-}
-
-static int span_values(double duration_h, double step_h)
-{
-    NTR_TRY(ntr_check(duration_h, 0.0, NTR_PLAN_HOURS_MAX));
-    if (!(duration_h > 0.0)) {
-        return NTR_ERR_RANGE;
-    }
-    return ntr_check(step_h, NTR_PLAN_STEP_MIN, NTR_PLAN_HOURS_MAX);
-}
+/* ---- the clock -------------------------------------------------------------- */
 
 /* Hours of sample i after the first: the clock of flows and intervals. */
 static double clock_h(const ntr_sample *history, size_t i)
@@ -256,16 +211,16 @@ int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
         return NTR_ERR_NULL;
     }
     NTR_TRY(feedback_kind(n_history, n_urine, lim, out));
-    NTR_TRY(flows_reserved(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_reserved(flows, n_flows));
     NTR_TRY(intervals_check(urine, n_urine, 0));
     NTR_TRY(ntri_samples_check(history, n_history, &order));
     NTR_TRY(ntr_check_tbw(tbw_l));
-    NTR_TRY(flows_values(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_values(flows, n_flows));
     NTR_TRY(intervals_check(urine, n_urine, 1));
-    NTR_TRY(span_values(horizon_h, step_h));
+    NTR_TRY(ntri_plan_span_check(horizon_h, step_h));
     NTR_TRY(ntri_course_limits_values(lim));
     NTR_TRY(order);
-    NTR_TRY(flows_order(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_order(flows, n_flows));
     NTR_TRY(intervals_check(urine, n_urine, 2));
     NTR_TRY(history_span(history, n_history));
     NTR_TRY(intervals_check(urine, n_urine, 3));
@@ -662,12 +617,12 @@ int ntr_course_fit(const ntr_sample *history, size_t n, double tbw_guess_l,
     if (n < NTR_FIT_MIN_SAMPLES || out->struct_size < sizeof(ntr_fit)) {
         return NTR_ERR_ARG;
     }
-    NTR_TRY(flows_reserved(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_reserved(flows, n_flows));
     NTR_TRY(ntri_samples_check(history, n, &order));
     NTR_TRY(ntr_check_tbw(tbw_guess_l));
-    NTR_TRY(flows_values(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_values(flows, n_flows));
     NTR_TRY(order);
-    NTR_TRY(flows_order(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_order(flows, n_flows));
     NTR_TRY(history_span(history, n));
 
     fp.history = history;
@@ -773,15 +728,15 @@ int ntr_fit_reproject(const ntr_sample *history, size_t n, const ntr_fit *fit,
     if (out->struct_size < sizeof(ntr_course_plan_result)) {
         return NTR_ERR_ARG;
     }
-    NTR_TRY(flows_reserved(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_reserved(flows, n_flows));
     NTR_TRY(ntri_samples_check(history, n, &order));
     NTR_TRY(ntr_check_tbw(fit->tbw_l));
     NTR_TRY(ntr_check(fit->free_water_loss_ml_h, -NTR_FIT_LOSS_MAX, NTR_FIT_LOSS_MAX));
-    NTR_TRY(flows_values(flows, n_flows));
-    NTR_TRY(span_values(duration_h, step_h));
+    NTR_TRY(ntri_timed_flows_values(flows, n_flows));
+    NTR_TRY(ntri_plan_span_check(duration_h, step_h));
     NTR_TRY(ntri_course_limits_values(lim));
     NTR_TRY(order);
-    NTR_TRY(flows_order(flows, n_flows));
+    NTR_TRY(ntri_timed_flows_order(flows, n_flows));
     NTR_TRY(history_span(history, n));
 
     t_last = clock_h(history, n - 1);

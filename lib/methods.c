@@ -518,6 +518,56 @@ static int describe(int method, struct ntr_method_info *info)
             REF_BERL "; " REF_FURST "; " REF_VERBALIS_2013,
             "adults with a low sodium and a fixed urine osmolality");
 
+    /* ==== therapy (ids 75-82, issue P2) ================================= */
+#define REF_ADROGUE_MADIAS_HYPER_T                                           \
+    "Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med 2000;342:1493-9"
+    case NTR_METHOD_LOOP_DIURETIC:
+        return entry(info, method, "Loop diuretic: urine lost with and without salt replacement",
+            "Na1 = Na0 + sum v*(c - Na0) / (TBW0 + sum v) over the flows "
+            "{-U, c_u} (and {+R, c_r} with replacement); c_u about 75 mmol/L "
+            "(Na + K, half-isotonic) unless measured",
+            "Mass balance of " REF_ADROGUE_MADIAS_HYPO "; urine composition "
+            "after a loop diuretic: common practice",
+            "adults given a loop diuretic for a concentrated urine");
+    case NTR_METHOD_DDAVP_CLAMP:
+        return entry(info, method, "Desmopressin clamp: rise per day and stop hour",
+            "rise_24h by mass balance of saline (r, c_s) and urine (u, c_u); "
+            "stop t = d*TBW0 / (A - d*B), A = r*(c_s - Na0) - u*(c_u - Na0), "
+            "B = r - u; never when A - d*B <= 0",
+            "Mass balance of " REF_ADROGUE_MADIAS_HYPO "; clamp strategy: "
+            "Sood L et al. Am J Kidney Dis 2013;61:571-8 (from memory)",
+            "adults with hyponatraemia on desmopressin and hypertonic saline");
+    case NTR_METHOD_DDAVP_RELOWER:
+        return entry(info, method, "Re-lowering by the excess over a limit plus a margin",
+            "d = excess + margin; 5% dextrose volume from the re-lowering "
+            "mass balance; 0 when no window is over",
+            "Sterns RH, Hix JK. Kidney Int 2009;76:587-9 (from memory); "
+            "margin: library's option",
+            "adults whose sodium rose faster than the limits");
+    case NTR_METHOD_VAPTAN_WATCH:
+        return entry(info, method, "Monitoring while a vaptan acts",
+            "high-risk limits (8/24 h, 16/48 h) with risk factors or liver "
+            "disease, else standard; horizon 6 h, resample every 6 h (common "
+            "practice); cautions: no fluid restriction in the first 24 h, "
+            "liver disease",
+            REF_VERBALIS_2013 "; tolvaptan prescribing information and US "
+            "FDA drug safety communication 2013 (from memory)",
+            "adults with hyponatraemia starting a vaptan");
+    case NTR_METHOD_HYPER_LOWER:
+        return entry(info, method, "Hypotonic fluid rate to lower a high sodium",
+            "V = (d*TBW0 + L*(Na1 - c_L)) / (Na1 - c_f), L = (urine + "
+            "insensible) * T, c_L = urine*c_u / (urine + insensible); rate = "
+            "V / T; plan checked against the fall limits",
+            REF_ADROGUE_MADIAS_HYPER_T,
+            "adults with hypernatraemia");
+    case NTR_METHOD_BOLUS_PLAN:
+        return entry(info, method, "3% saline boluses for severe symptoms",
+            "smallest k with Na(k*0.15 L of 513 mmol/L) - Na0 >= aim "
+            "(about 5), stopping before a bolus that passes the limit",
+            REF_SPASOVSKI " (bolus regimen, from memory)",
+            "adults with severely symptomatic hyponatraemia");
+#undef REF_ADROGUE_MADIAS_HYPER_T
+
     default:
         return NTR_ERR_ARG;
     }
@@ -550,6 +600,7 @@ static const struct {
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_COURSE_WATCH},  /* correction, 30-49 */
     {NTR_METHOD_NA_SEVERITY, NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION}, /* work-up, 50-69 */
     {NTR_METHOD_SOLUTE_URINE_VOLUME, NTR_METHOD_RESTRICTION_OUTLOOK}, /* solute, 70-74 */
+    {NTR_METHOD_LOOP_DIURETIC, NTR_METHOD_BOLUS_PLAN},     /* therapy, 75-82 */
     {NTR_METHOD_EFW_BALANCE, NTR_METHOD_FIT_REPROJECT}};    /* feedback, 83-89 */
 
 int ntr_method_next(int after, int *next)

@@ -80,6 +80,10 @@
 #define NTR_AW_CL 35.453
 /* Urea, CH4N2O: converted by lib/units.c, dosed by lib/solute.c. */
 #define NTR_MM_UREA (NTR_AW_C + 4.0 * NTR_AW_H + 2.0 * NTR_AW_N + NTR_AW_O)
+/* Therapy (lib/therapy.c); docs/ranges.md. */
+#define NTR_RELOWER_MARGIN_MAX 10.0  /* margin below a limit when re-lowering, mmol/L */
+#define NTR_INSENSIBLE_MAX 500.0     /* insensible water loss, mL/h (12 L/day) */
+#define NTR_HYPER_CHECK_POINTS 48.0  /* predicted points the lowering plan is checked at */
 
 /* NTR_OK when x is finite and lo <= x <= hi; lo and hi must be finite.
  * The valid case costs one pair of comparisons: NaN fails both and an

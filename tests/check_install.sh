@@ -1,16 +1,23 @@
 #!/usr/bin/env bash
-# Install test: installs the built library into a temporary staging
-# directory, then builds examples/pkgconfig_consumer.c against the INSTALLED
-# copy using nothing but `pkg-config --cflags --libs natremia`, runs it and
-# checks what it prints.
+# Install test: runs the README's install recipe ("Install the library ...",
+# taken out of README.md so the two cannot drift) the way a newcomer would,
+# except that `meson install` goes into a temporary staging directory
+# instead of the system (no sudo, no ldconfig here). Then checks that the
+# files land where the README says and where Debian's pkg-config and loader
+# look without help (the recipe once installed into /usr/local/lib64 on a
+# machine without dpkg-dev, found by neither), builds
+# examples/pkgconfig_consumer.c against the INSTALLED copy using nothing
+# but `pkg-config --cflags --libs natremia`, runs it and checks what it
+# prints.
 #
 #   check_install.sh <build-dir> <source-dir>
 #
-# `meson install --destdir` keeps the configured prefix inside the staging
-# directory; PKG_CONFIG_SYSROOT_DIR makes pkg-config put the staging
-# directory in front of the -I and -L paths it prints, and
-# PKG_CONFIG_LIBDIR hides any natremia.pc installed on the machine itself.
-# The compiler is $CC (meson passes its own), else cc.
+# <build-dir> is only where the scratch build lives (the recipe's own build
+# directory is made inside it). `meson install --destdir` keeps the
+# configured prefix inside the staging directory; PKG_CONFIG_SYSROOT_DIR
+# makes pkg-config put the staging directory in front of the -I and -L
+# paths it prints, and PKG_CONFIG_LIBDIR hides any natremia.pc installed on
+# the machine itself. The compiler is $CC (meson passes its own), else cc.
 set -euo pipefail
 
 if [[ $# -ne 2 ]]; then
@@ -20,43 +27,91 @@ fi
 builddir=$(cd "$1" && pwd)
 srcdir=$(cd "$2" && pwd)
 read -r -a cc_cmd <<< "${CC:-cc}"
+ldconfig_cmd=$(command -v ldconfig || echo /sbin/ldconfig)
 
-for tool in meson pkg-config readelf ldd; do
+for tool in meson ninja pkg-config readelf ldd "$ldconfig_cmd"; do
     command -v "$tool" >/dev/null 2>&1 || { echo "check_install: $tool not found" >&2; exit 1; }
 done
+source "$srcdir/tests/lib/readme-blocks.sh"
 
-work=$(mktemp -d)
+work=$(mktemp -d "$builddir/check-install.XXXXXX")
 trap 'rm -rf "$work"' EXIT
 stage=$work/stage
 failures=0
 fail() { echo "FAIL: $*"; failures=$((failures + 1)); }
 ok() { echo "OK: $*"; }
 
-# Only the library's own files: runtime (.so) and devel (header, .a, .pc).
-meson install -C "$builddir" --destdir "$stage" --tags runtime,devel >"$work/install.log" 2>&1 || {
-    cat "$work/install.log"
-    echo "FAIL: meson install"
+# ---- the README's recipe: its `meson setup` line as written (in a scratch
+# directory), its build, its install (staged)
+recipe=$(readme_block "$srcdir/README.md" "Install the library" sh)
+echo "README recipe:"
+sed 's/^/    /' <<< "$recipe"
+mapfile -t setup_lines < <(grep -E '^meson setup ' <<< "$recipe" || true)
+if [[ ${#setup_lines[@]} -ne 1 ]]; then
+    echo "FAIL: the README recipe should have one 'meson setup' line, has ${#setup_lines[@]}"
     exit 1
-}
+fi
+read -r -a setup_words <<< "${setup_lines[0]}"
+[[ ${setup_words[2]:-} != -* ]] || { echo "FAIL: 'meson setup' names no build directory first"; exit 1; }
+recipe_build=$work/${setup_words[2]}
+if ! (cd "$srcdir" && meson setup "$recipe_build" "${setup_words[@]:3}") >"$work/setup.log" 2>&1; then
+    cat "$work/setup.log"
+    echo "FAIL: the README's meson setup line"
+    exit 1
+fi
+grep -Eq '(^|[ &;])sudo ldconfig($|[ &;])' <<< "$recipe" \
+    && ok "the recipe refreshes the loader's cache (ldconfig)" \
+    || fail "the recipe does not run ldconfig after installing"
 
-mapfile -t pcs < <(find "$stage" -name natremia.pc)
-if [[ ${#pcs[@]} -ne 1 ]]; then
-    echo "FAIL: expected one installed natremia.pc, found ${#pcs[@]}:"
+# Only the library's own files: runtime (.so) and devel (header, .a, .pc).
+if ! { ninja -C "$recipe_build" && meson install -C "$recipe_build" --no-rebuild \
+        --destdir "$stage" --tags runtime,devel; } >"$work/install.log" 2>&1; then
+    cat "$work/install.log"
+    echo "FAIL: building and installing as the recipe does"
+    exit 1
+fi
+
+# ---- where the recipe's options put the files
+option() {
+    meson introspect --buildoptions "$recipe_build" | /usr/bin/env python3 -c '
+import json, sys
+print(next(o["value"] for o in json.load(sys.stdin) if o["name"] == sys.argv[1]))' "$1"
+}
+prefix=$(option prefix)
+libdir_opt=$(option libdir)
+[[ $libdir_opt == /* ]] && sys_libdir=$libdir_opt || sys_libdir=$prefix/$libdir_opt
+echo "the recipe installs under prefix $prefix, libraries in $sys_libdir"
+
+grep -Fq "\`$sys_libdir\`" "$srcdir/README.md" \
+    && ok "README names $sys_libdir, where the recipe installs" \
+    || fail "README does not say the library goes to $sys_libdir"
+pc_default=$(pkg-config --variable pc_path pkg-config)
+[[ ":$pc_default:" == *":$sys_libdir/pkgconfig:"* ]] \
+    && ok "$sys_libdir/pkgconfig is on pkg-config's default path" \
+    || fail "pkg-config does not look in $sys_libdir/pkgconfig (its path: $pc_default)"
+loader_dirs=$("$ldconfig_cmd" -N -X -v 2>/dev/null | sed -n 's|^\(/[^:]*\):.*|\1|p')
+grep -Fxq "$sys_libdir" <<< "$loader_dirs" \
+    && ok "$sys_libdir is among the loader's directories (ldconfig)" \
+    || fail "the loader does not look in $sys_libdir (it looks in: $(tr '\n' ' ' <<< "$loader_dirs"))"
+
+pcdir=$stage$sys_libdir/pkgconfig
+libdir=$stage$sys_libdir
+if [[ ! -f $pcdir/natremia.pc ]]; then
+    echo "FAIL: natremia.pc not installed in $sys_libdir/pkgconfig; installed files:"
     find "$stage" | sed 's/^/  /'
     exit 1
 fi
-pcdir=$(dirname "${pcs[0]}")
-libdir=$(dirname "$pcdir")
 export PKG_CONFIG_LIBDIR=$pcdir
 export PKG_CONFIG_PATH=$pcdir
 export PKG_CONFIG_SYSROOT_DIR=$stage
 
 # pkgconf also puts the sysroot in front of variables; older pkg-config
 # does not. Strip it so both give the configured prefix.
-prefix=$(pkg-config --variable=prefix natremia)
-prefix=${prefix#"$stage"}
+pc_prefix=$(pkg-config --variable=prefix natremia)
+pc_prefix=${pc_prefix#"$stage"}
+[[ $pc_prefix == "$prefix" ]] && ok "natremia.pc has prefix $prefix" \
+    || fail "natremia.pc has prefix '$pc_prefix', not $prefix"
 includedir=$stage${prefix}/include
-echo "installed under prefix $prefix, libraries in ${libdir#"$stage"}"
 
 # Installed files.
 if cmp -s "$srcdir/include/natremia.h" "$includedir/natremia.h"; then

@@ -8,7 +8,9 @@
 set -euo pipefail
 
 # Every Debian package the build and the tests use. Extend this list when a
-# test starts using a new tool or library.
+# test starts using a new tool or library. Names that carry a release's
+# version (PostgreSQL's major version, the clang runtime) are not written
+# here: they are found on the machine below (tests/lib/debian-names.sh).
 packages=(
     meson
     ninja-build
@@ -28,17 +30,17 @@ packages=(
     python3-pip
     python3-venv
     python3-dask
+    python3-pandas
     python3-distributed
     make
-    postgresql-15
-    postgresql-server-dev-15
+    # + postgresql-N and postgresql-server-dev-N (found below)
     doxygen
     librsvg2-bin
     # reliability (P6): short fuzzing (suite 'fuzz') and the s390x cross
     # test (suite 'cross'; tests/cross.sh adds the s390x architecture and
     # its libcmocka-dev itself)
     clang
-    libclang-rt-14-dev
+    # + clang's runtime with libFuzzer, libclang-rt-N-dev (found below)
     gcc-s390x-linux-gnu
     libc6-dev-s390x-cross
     qemu-user
@@ -49,6 +51,21 @@ builddir=build-test
 
 # ---- dependencies: apt-get only when something is missing
 source tests/lib/apt-missing.sh
+source tests/lib/debian-names.sh
+pg_major=$(deb_pg_major)
+if [[ -n $pg_major ]]; then
+    packages+=("postgresql-$pg_major" "postgresql-server-dev-$pg_major")
+else
+    echo "run-all.sh: no PostgreSQL server package known to apt: the extension test will be skipped"
+fi
+clang_major=$(deb_clang_major)
+clang_rt=${clang_major:+$(deb_clang_rt_package "$clang_major")}
+if [[ -n $clang_rt ]]; then
+    packages+=("$clang_rt")
+else
+    echo "run-all.sh: no runtime package for clang ${clang_major:-?} known to apt: fuzzing will be skipped"
+fi
+echo "run-all.sh: PostgreSQL ${pg_major:-none}, clang ${clang_major:-none} (${clang_rt:-no runtime package})"
 apt_missing "${packages[@]}"
 
 # ---- configure (debugoptimized: the ABI check needs -g), build, test

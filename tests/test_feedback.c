@@ -20,15 +20,6 @@
 
 #define COUNT(a) (sizeof(a) / sizeof((a)[0]))
 
-/* |a - b| <= tol, with both values printed when it fails. */
-#define assert_double_equal(a, b, tol) fb_check_near((a), (b), (tol), __LINE__)
-static void fb_check_near(double a, double b, double tol, int line)
-{
-    if (!(fabs(a - b) <= tol)) {
-        print_error("line %d: %.17g differs from %.17g by more than %.3g\n", line, a, b, tol);
-    }
-    assert_true(fabs(a - b) <= tol);
-}
 
 static ntr_timed_flow timed(double start, double end, double rate, double na, double k)
 {
@@ -108,22 +99,22 @@ static void feedback_water_diuresis_hand_worked(void **state)
     (void)state;
     assert_int_equal(ntr_urine_feedback(h, 1, 40.0, NULL, 0, u, 1, 6.0, 0.25, &lim, &r), NTR_OK);
     assert_true(r.struct_size == sizeof r);
-    assert_double_equal(r.now_h, 4.0, 1e-12);
-    assert_double_equal(r.efw_out_ml, 2000.0 * (1.0 - 20.0 / 120.0), 1e-9);
-    assert_double_equal(r.efw_in_ml, 0.0, 0.0);
-    assert_double_equal(r.efw_balance_ml, -2000.0 * (1.0 - 20.0 / 120.0), 1e-9);
-    assert_double_equal(r.tbw_now_l, 38.0, 1e-12);
-    assert_double_equal(r.na_now_mmol_l, 120.0 + 200.0 / 38.0, 1e-9);
-    assert_double_equal(r.urine_ml_h, 500.0, 1e-12);
-    assert_double_equal(r.urine_efw_ml_h, 500.0 * (1.0 - 20.0 / r.na_now_mmol_l), 1e-9);
+    assert_near(r.now_h, 4.0, 1e-12);
+    assert_near(r.efw_out_ml, 2000.0 * (1.0 - 20.0 / 120.0), 1e-9);
+    assert_near(r.efw_in_ml, 0.0, 0.0);
+    assert_near(r.efw_balance_ml, -2000.0 * (1.0 - 20.0 / 120.0), 1e-9);
+    assert_near(r.tbw_now_l, 38.0, 1e-12);
+    assert_near(r.na_now_mmol_l, 120.0 + 200.0 / 38.0, 1e-9);
+    assert_near(r.urine_ml_h, 500.0, 1e-12);
+    assert_near(r.urine_efw_ml_h, 500.0 * (1.0 - 20.0 / r.na_now_mmol_l), 1e-9);
     /* Rate form: dNa/dt = Na*EFWC/TBW = 125.263*0.41684/38 = 1.374 mmol/L/h. */
-    assert_double_equal(r.na_rate_mmol_l_h,
+    assert_near(r.na_rate_mmol_l_h,
                         r.na_now_mmol_l * (r.urine_efw_ml_h / 1000.0) / 38.0, 1e-12);
-    assert_double_equal(r.breach_h, 3.5, 1e-9);
+    assert_near(r.breach_h, 3.5, 1e-9);
     assert_true(r.flags == (NTR_FB_LIMIT_AHEAD | NTR_FB_WATER_DIURESIS | NTR_FB_DILUTE_URINE));
     assert_true(r.plan.first_breach_flag == NTR_CF_OVER_24H);
     /* The hand-worked projection at now + 6 h: V = 5 L, 120 + 500/35. */
-    assert_double_equal(r.plan.final_na_mmol_l, 120.0 + 500.0 / 35.0, 1e-9);
+    assert_near(r.plan.final_na_mmol_l, 120.0 + 500.0 / 35.0, 1e-9);
     assert_true(r.reserved == 0u);
 
     /* A horizon of 1 h ends before the breach: no alert, still dilute. */
@@ -132,7 +123,7 @@ static void feedback_water_diuresis_hand_worked(void **state)
     assert_true(r.flags == NTR_FB_DILUTE_URINE);
     assert_true(r.breach_h == NTR_PLAN_NO_BREACH);
     /* Hand-worked at 5 h: V = 2.5 L, 120 + 250/37.5 = 126.667. */
-    assert_double_equal(r.plan.final_na_mmol_l, 120.0 + 250.0 / 37.5, 1e-9);
+    assert_near(r.plan.final_na_mmol_l, 120.0 + 250.0 / 37.5, 1e-9);
 }
 
 /* The alert comes before the measured breach: the same patient measured
@@ -148,10 +139,10 @@ static void feedback_over_now(void **state)
     ntr_urine_feedback_result r = fresh_feedback();
     (void)state;
     assert_int_equal(ntr_urine_feedback(h, 1, 40.0, NULL, 0, u, 1, 6.0, 0.25, &lim, &r), NTR_OK);
-    assert_double_equal(r.na_now_mmol_l, 120.0 + 400.0 / 36.0, 1e-9);
+    assert_near(r.na_now_mmol_l, 120.0 + 400.0 / 36.0, 1e-9);
     assert_true((r.flags & NTR_FB_OVER_NOW) != 0u);
     assert_true((r.flags & NTR_FB_WATER_DIURESIS) != 0u);
-    assert_double_equal(r.breach_h, 0.0, 0.0);
+    assert_near(r.breach_h, 0.0, 0.0);
 }
 
 /* Identity (hand-derived from the mass balance): with flows and several
@@ -176,18 +167,18 @@ static void feedback_efw_identity(void **state)
     double na_b, tbw_b, in, out;
     (void)state;
     assert_int_equal(ntr_urine_feedback(h, 2, 30.0, f, 2, u, 2, 6.0, 0.5, &lim, &r), NTR_OK);
-    assert_double_equal(r.now_h, 5.0, 0.0);
+    assert_near(r.now_h, 5.0, 0.0);
     assert_int_equal(ntr_balance_predict(121.0, 30.0, same, 4, &na_b, &tbw_b), NTR_OK);
-    assert_double_equal(r.na_now_mmol_l, na_b, 1e-9);
-    assert_double_equal(r.tbw_now_l, tbw_b, 1e-12);
+    assert_near(r.na_now_mmol_l, na_b, 1e-9);
+    assert_near(r.tbw_now_l, tbw_b, 1e-12);
     in = 120.0 * (1.0 - 513.0 / 121.0) + 40.0;
     out = 150.0 * (1.0 - 90.0 / 121.0) + 250.0 * (1.0 - 35.0 / 121.0);
-    assert_double_equal(r.efw_in_ml, in, 1e-9);
-    assert_double_equal(r.efw_out_ml, out, 1e-9);
-    assert_double_equal(r.na_now_mmol_l,
+    assert_near(r.efw_in_ml, in, 1e-9);
+    assert_near(r.efw_out_ml, out, 1e-9);
+    assert_near(r.na_now_mmol_l,
                         121.0 - 121.0 * (r.efw_balance_ml / 1000.0) / r.tbw_now_l, 1e-9);
     /* At now (5 h) both inputs run: their EFW rate relative to Na now. */
-    assert_double_equal(r.input_efw_ml_h,
+    assert_near(r.input_efw_ml_h,
                         60.0 * (1.0 - 513.0 / r.na_now_mmol_l) + 20.0, 1e-9);
     /* Electrolyte-poor urine (35 < Na): it loses free water. */
     assert_true(r.urine_efw_ml_h > 0.0);
@@ -210,12 +201,12 @@ static void feedback_equals_plan_check(void **state)
     (void)state;
     assert_int_equal(ntr_urine_feedback(h, 2, 35.0, f, 1, u, 1, 8.0, 0.5, &lim, &r), NTR_OK);
     assert_int_equal(ntr_course_plan_check(h, 2, 35.0, shifted, 2, 8.0, 0.5, &lim, &p), NTR_OK);
-    assert_double_equal(r.plan.final_na_mmol_l, p.final_na_mmol_l, 1e-12);
-    assert_double_equal(r.plan.final_tbw_l, p.final_tbw_l, 1e-12);
+    assert_near(r.plan.final_na_mmol_l, p.final_na_mmol_l, 1e-12);
+    assert_near(r.plan.final_tbw_l, p.final_tbw_l, 1e-12);
     assert_true(r.plan.points == p.points);
     assert_true(r.plan.first_breach_h == p.first_breach_h);
     assert_true(r.plan.course.flags == p.course.flags);
-    assert_double_equal(r.plan.course.max_rise_24h, p.course.max_rise_24h, 1e-12);
+    assert_near(r.plan.course.max_rise_24h, p.course.max_rise_24h, 1e-12);
 }
 
 /* Electrolyte-rich urine lowering sodium in hypernatraemia treatment
@@ -234,9 +225,9 @@ static void feedback_salt_loss(void **state)
     double na_b, tbw_b;
     (void)state;
     assert_int_equal(ntr_urine_feedback(h, 1, 30.0, f, 1, u, 1, 6.0, 0.25, &lim, &r), NTR_OK);
-    assert_double_equal(r.efw_out_ml, -625.0, 1e-9);
+    assert_near(r.efw_out_ml, -625.0, 1e-9);
     assert_int_equal(ntr_balance_predict(160.0, 30.0, same, 2, &na_b, &tbw_b), NTR_OK);
-    assert_double_equal(r.na_now_mmol_l, na_b, 1e-9);
+    assert_near(r.na_now_mmol_l, na_b, 1e-9);
     assert_true(r.urine_efw_ml_h < 0.0);
     assert_true((r.flags & NTR_FB_LIMIT_AHEAD) != 0u);
     assert_true((r.flags & NTR_FB_SALT_LOSS) != 0u);
@@ -359,11 +350,11 @@ static void interval_flow(void **state)
     (void)state;
     assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_OK);
     /* Hand-worked: 1000 mL over 4 h is a loss of 250 mL/h. */
-    assert_double_equal(f.rate_ml_h, -250.0, 0.0);
-    assert_double_equal(f.start_h, 2.0, 0.0);
-    assert_double_equal(f.end_h, 6.0, 0.0);
-    assert_double_equal(f.na_mmol_l, 40.0, 0.0);
-    assert_double_equal(f.k_mmol_l, 20.0, 0.0);
+    assert_near(f.rate_ml_h, -250.0, 0.0);
+    assert_near(f.start_h, 2.0, 0.0);
+    assert_near(f.end_h, 6.0, 0.0);
+    assert_near(f.na_mmol_l, 40.0, 0.0);
+    assert_near(f.k_mmol_l, 20.0, 0.0);
     assert_true(f.reserved[0] == 0u && f.reserved[1] == 0u);
     memset(&before, 0x5A, sizeof before);
     f = before;
@@ -457,14 +448,14 @@ static void fit_recovers_exact_truth(void **state)
         ntr_fit f = fresh_fit();
         assert_int_equal(ntr_course_fit(h, n, cases[i].guess, known, nk, &f), NTR_OK);
         assert_true(f.struct_size == sizeof f);
-        assert_double_equal(f.tbw_l, cases[i].tbw, 1e-6 * cases[i].tbw);
-        assert_double_equal(f.free_water_loss_ml_h, cases[i].loss, 1e-4);
-        assert_double_equal(f.na0_mmol_l, cases[i].na0, 1e-6);
+        assert_near(f.tbw_l, cases[i].tbw, 1e-6 * cases[i].tbw);
+        assert_near(f.free_water_loss_ml_h, cases[i].loss, 1e-4);
+        assert_near(f.na0_mmol_l, cases[i].na0, 1e-6);
         assert_true(f.rms_residual_mmol_l < 1e-6);
         assert_true(f.flags == 0u);
         assert_true(f.iterations > 0u && f.iterations <= 2u * 100u);
         assert_true(f.correlation > -0.999 && f.correlation < 0.999);
-        assert_double_equal(f.na_last_fit_mmol_l, h[n - 1].na_mmol_l, 1e-6);
+        assert_near(f.na_last_fit_mmol_l, h[n - 1].na_mmol_l, 1e-6);
         /* Body water at 24 h: the hidden one carried through the flows. */
         {
             ntr_timed_flow all[4];
@@ -489,8 +480,8 @@ static void fit_recovers_exact_truth(void **state)
                 na_end = p.final_na_mmol_l;
                 tbw_end = p.final_tbw_l;
             }
-            assert_double_equal(f.tbw_last_l, tbw_end, 1e-5);
-            assert_double_equal(na_end, h[n - 1].na_mmol_l, 1e-9);
+            assert_near(f.tbw_last_l, tbw_end, 1e-5);
+            assert_near(na_end, h[n - 1].na_mmol_l, 1e-9);
         }
     }
 }
@@ -508,9 +499,9 @@ static void fit_three_samples_exact(void **state)
     h[2] = all[6];
     assert_int_equal(ntr_course_fit(h, 3, 40.0, design_a, 1, &f), NTR_OK);
     assert_true((f.flags & NTR_FIT_EXACT) != 0u);
-    assert_double_equal(f.tbw_l, 35.0, 1e-5);
-    assert_double_equal(f.free_water_loss_ml_h, 120.0, 1e-3);
-    assert_double_equal(f.tbw_se_l, 0.0, 0.0);
+    assert_near(f.tbw_l, 35.0, 1e-5);
+    assert_near(f.free_water_loss_ml_h, 120.0, 1e-3);
+    assert_near(f.tbw_se_l, 0.0, 0.0);
     f = before;
     assert_int_equal(ntr_course_fit(h, 2, 40.0, design_a, 1, &f), NTR_ERR_ARG);
     assert_memory_equal(&f, &before, sizeof f);
@@ -642,8 +633,8 @@ static void fit_when_the_model_is_wrong(void **state)
 
     f = fresh_fit();
     assert_int_equal(ntr_course_fit(h, n, 40.0, known, 3, &f), NTR_OK);
-    assert_double_equal(f.tbw_l, 35.0, 1e-6 * 35.0);
-    assert_double_equal(f.free_water_loss_ml_h, 40.0, 1e-4);
+    assert_near(f.tbw_l, 35.0, 1e-6 * 35.0);
+    assert_near(f.free_water_loss_ml_h, 40.0, 1e-4);
 
     /* A late, large step. */
     all[1] = timed(0.0, 18.0, -100.0, 30.0, 10.0);
@@ -675,8 +666,8 @@ static void fit_properties(void **state)
     }
     assert_int_equal(ntr_course_fit(h, n, 40.0, design_b, COUNT(design_b), &a), NTR_OK);
     assert_int_equal(ntr_course_fit(moved, n, 40.0, design_b, COUNT(design_b), &b), NTR_OK);
-    assert_double_equal(a.tbw_l, b.tbw_l, 1e-9 * a.tbw_l);
-    assert_double_equal(a.free_water_loss_ml_h, b.free_water_loss_ml_h, 1e-6);
+    assert_near(a.tbw_l, b.tbw_l, 1e-9 * a.tbw_l);
+    assert_near(a.free_water_loss_ml_h, b.free_water_loss_ml_h, 1e-6);
     for (loss = -200.0; loss <= 400.0; loss += 50.0) {
         ntr_fit f = fresh_fit();
         n = synthetic(121.0, 33.0, loss, design_a, 1, 2.0, h, COUNT(h));
@@ -714,7 +705,7 @@ static void fit_flags_a_bound(void **state)
     (void)state;
     assert_int_equal(ntr_course_fit(h, n, 200.0, design_a, 1, &f), NTR_OK);
     assert_true((f.flags & NTR_FIT_TBW_AT_BOUND) != 0u);
-    assert_double_equal(f.tbw_l, 200.0 / 3.0, 1e-6);
+    assert_near(f.tbw_l, 200.0 / 3.0, 1e-6);
 }
 
 static void fit_bad_inputs(void **state)
@@ -797,8 +788,8 @@ static void reproject_hand_worked(void **state)
     fit.tbw_l = 36.0;
     fit.free_water_loss_ml_h = 100.0;
     assert_int_equal(ntr_fit_reproject(h, 2, &fit, NULL, 0, 12.0, 1.0, &lim, &p), NTR_OK);
-    assert_double_equal(p.final_tbw_l, 33.6, 1e-12);
-    assert_double_equal(p.final_na_mmol_l, 124.0 * 34.8 / 33.6, 1e-9);
+    assert_near(p.final_tbw_l, 33.6, 1e-12);
+    assert_near(p.final_na_mmol_l, 124.0 * 34.8 / 33.6, 1e-9);
     assert_true(p.first_breach_h == NTR_PLAN_NO_BREACH);
     /* Bad inputs leave the verdict untouched. */
     before = fresh_plan();
@@ -851,7 +842,7 @@ static void reproject_finds_the_breach_the_plan_missed(void **state)
     assert_true(p.first_breach_h != NTR_PLAN_NO_BREACH);
     assert_true(p.first_breach_flag == NTR_CF_OVER_24H);
     /* The fitted projection is the hidden truth's. */
-    assert_double_equal(p.final_na_mmol_l, h[m - 1 + 6].na_mmol_l, 1e-6);
+    assert_near(p.final_na_mmol_l, h[m - 1 + 6].na_mmol_l, 1e-6);
 }
 
 int main(void)

@@ -1,5 +1,6 @@
--- natremia 1.0 -> 1.1: the sodium course in both directions, and tonicity
--- judged on the effective osmolality. Everything of 1.0 stays as it was
+-- natremia 1.0 -> 1.1: the sodium course in both directions, tonicity
+-- judged on the effective osmolality, solute and restriction, and the
+-- fractional urate excretion. Everything of 1.0 stays as it was
 -- (ntr_correction_assess and its type keep their meaning for existing
 -- queries); this script only adds. A fresh CREATE EXTENSION natremia runs
 -- natremia--1.1.sql, which the Makefile builds as natremia--1.0.sql
@@ -149,3 +150,47 @@ RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_effective_osm_measured_checked'
 LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
 COMMENT ON FUNCTION ntr_effective_osm_measured(float8, float8, float8, float8, float8) IS
 'Effective serum osmolality from a measured one, mOsm/kg: measured less urea and 1.25 x ethanol, not below min(2*Na + glucose, measured). NULL for invalid input.';
+
+-- ------------------------------------------------- solute and restriction
+CREATE FUNCTION ntr_urine_volume_from_solute(solute_mosm_day float8,
+                                             urine_osm_mosm_kg float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_urine_volume_from_solute'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_urine_volume_from_solute_checked(solute_mosm_day float8,
+                                                     urine_osm_mosm_kg float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_urine_volume_from_solute_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_urine_volume_from_solute(float8, float8) IS
+'Daily urine volume, L/day, that a solute load makes at a fixed urine osmolality: solute / U_osm (Berl 2008). NULL for invalid input.';
+
+CREATE FUNCTION ntr_fluid_allowance(solute_mosm_day float8, urine_osm_mosm_kg float8,
+                                    urine_na_mmol_l float8, urine_k_mmol_l float8,
+                                    serum_na_mmol_l float8, insensible_l_day float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_fluid_allowance'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_fluid_allowance_checked(solute_mosm_day float8, urine_osm_mosm_kg float8,
+                                            urine_na_mmol_l float8, urine_k_mmol_l float8,
+                                            serum_na_mmol_l float8, insensible_l_day float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_fluid_allowance_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_fluid_allowance(float8, float8, float8, float8, float8, float8) IS
+'The most fluid per day, L/day, that does not lower the serum sodium: V * (1 - (U_Na + U_K)/S_Na) + insensible, V = solute / U_osm. Negative: restriction alone cannot hold the sodium. NULL for invalid input.';
+
+CREATE FUNCTION ntr_solute_dose_osmoles(solute text, grams float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_solute_dose_osmoles'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_solute_dose_osmoles_checked(solute text, grams float8)
+RETURNS float8 AS 'MODULE_PATHNAME', 'ntrpg_solute_dose_osmoles_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_solute_dose_osmoles(text, float8) IS
+'Osmoles, mOsm, of a dose in grams of urea (1 per mole) or nacl tablets (2 per mole), IUPAC molar masses. NULL for invalid input or an unknown solute.';
+
+-- ------------------------------------------- fractional urate excretion
+CREATE FUNCTION ntr_fe_uric_acid_class(fe_uric_acid_percent float8)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_fe_uric_acid_class'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_fe_uric_acid_class_checked(fe_uric_acid_percent float8)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_fe_uric_acid_class_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_fe_uric_acid_class(float8) IS
+'Fractional uric acid excretion at the low sodium: against_siad (below 8 %), indeterminate (8 to 12 %), supports_siad (above 12 %) (Fenske 2008). NULL for invalid input.';

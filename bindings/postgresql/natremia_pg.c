@@ -1488,3 +1488,69 @@ effective_osm_measured_impl(FunctionCallInfo fcinfo, bool checked)
 	RETURN_DOUBLE(f, checked, st, out);
 }
 NTRPG_PAIR(effective_osm_measured)
+
+/* ---------------------------------------------------------------------
+ * Solute and restriction; fractional urate excretion (since 1.1)
+ * --------------------------------------------------------------------- */
+
+static const named_value solutes[] = {
+	{"urea", NTR_SOLUTE_UREA}, {"nacl", NTR_SOLUTE_NACL}, {NULL, 0}
+};
+
+static Datum
+urine_volume_from_solute_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_urine_volume_from_solute_checked"
+		: "ntr_urine_volume_from_solute";
+	double		out = 0.0;
+	int			st = ntr_urine_volume_from_solute(PG_GETARG_FLOAT8(0),
+												  PG_GETARG_FLOAT8(1), &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(urine_volume_from_solute)
+
+static Datum
+fluid_allowance_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_fluid_allowance_checked" : "ntr_fluid_allowance";
+	double		out = 0.0;
+	int			st = ntr_fluid_allowance(PG_GETARG_FLOAT8(0), PG_GETARG_FLOAT8(1),
+										 PG_GETARG_FLOAT8(2), PG_GETARG_FLOAT8(3),
+										 PG_GETARG_FLOAT8(4), PG_GETARG_FLOAT8(5),
+										 &out);
+
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(fluid_allowance)
+
+static Datum
+solute_dose_osmoles_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_solute_dose_osmoles_checked"
+		: "ntr_solute_dose_osmoles";
+	double		out = 0.0;
+	int			solute;
+	int			st;
+
+	LOOKUP_OR_NULL(0, solutes, "solute", f, checked, solute);
+	st = ntr_solute_dose_osmoles(solute, PG_GETARG_FLOAT8(1), &out);
+	RETURN_DOUBLE(f, checked, st, out);
+}
+NTRPG_PAIR(solute_dose_osmoles)
+
+static Datum
+fe_uric_acid_class_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	static const char *const words[] = {"", "against_siad", "indeterminate",
+	"supports_siad"};
+	const char *f = checked ? "ntr_fe_uric_acid_class_checked"
+		: "ntr_fe_uric_acid_class";
+	int			fe_class = 0;
+	int			st = ntr_fe_uric_acid_class(PG_GETARG_FLOAT8(0), &fe_class);
+
+	if (st == NTR_OK && (fe_class < 1 || fe_class >= (int) lengthof(words)))
+		st = NTR_ERR_ARG;		/* a newer library with a new class */
+	RETURN_WORD(f, checked, st, words[st == NTR_OK ? fe_class : 0]);
+}
+NTRPG_PAIR(fe_uric_acid_class)

@@ -3905,6 +3905,147 @@ static void extra_fit_reproject(const ntrc_fn *f, void (*judge)(const ntrc_fn *,
 #define OK_COMMON (ST(OK) | COMMON_ERR)
 #define CALL(fn) .name = "ntr_" #fn, .call = call_##fn
 
+/* ---- therapy (1.1) ------------------------------------------------------------------ */
+
+static int call_loop_diuretic(ntrc_case *c)
+{
+    const double *x = c->num;
+    return ntr_loop_diuretic(x[0], x[1], x[2], x[3], x[4], x[5], od(c, 0), od(c, 1));
+}
+
+static const char *ok_loop_diuretic(const ntrc_case *c)
+{
+    const double *x = c->num;
+    ntr_flow fl[2];
+    double na, tbw;
+    fl[0].volume_l = -x[2];
+    fl[0].na_mmol_l = x[3];
+    fl[0].k_mmol_l = 0.0;
+    fl[1].volume_l = x[4];
+    fl[1].na_mmol_l = x[5];
+    fl[1].k_mmol_l = 0.0;
+    if (ntr_balance_predict(x[0], x[1], fl, 1, &na, &tbw) != NTR_OK || na != c->out.d[0]) {
+        return "sodium without replacement differs from the mass balance";
+    }
+    if (ntr_balance_predict(x[0], x[1], fl, 2, &na, &tbw) != NTR_OK || na != c->out.d[1]) {
+        return "sodium with replacement differs from the mass balance";
+    }
+    return NULL;
+}
+
+static int call_dda_clamp(ntrc_case *c)
+{
+    const double *x = c->num;
+    return ntr_dda_clamp(x[0], x[1], x[2], x[3], x[4], x[5], x[6], od(c, 0), od(c, 1));
+}
+
+static const char *ok_dda_clamp(const ntrc_case *c)
+{
+    if (!within(c->out.d[0], -140.0, 140.0)) {
+        return "24 h change outside the model's range";
+    }
+    /* A stop rise of a denormal reaches its hour at 0 (the product underflows). */
+    if (c->out.d[1] != NTR_THERAPY_NEVER && !(c->out.d[1] >= 0.0 && c->out.d[1] <= 720.0)) {
+        return "stop hour neither never nor within 720 h";
+    }
+    return NULL;
+}
+
+static int call_dda_relower(ntrc_case *c)
+{
+    const double *x = c->num;
+    return ntr_dda_relower(x[0], x[1], x[2], x[3], x[4], x[5], x[6], od(c, 0), od(c, 1));
+}
+
+static const char *ok_dda_relower(const ntrc_case *c)
+{
+    if (!within(c->out.d[0], 0.0, 20.0) || !within(c->out.d[1], 0.0, 5000.0)) {
+        return "volume or rate outside what a plan takes";
+    }
+    if (c->num[2] == 0.0 && (c->out.d[0] != 0.0 || c->out.d[1] != 0.0)) {
+        return "fluid given with no excess";
+    }
+    return NULL;
+}
+
+static void prepare_vaptan(ntrc_case *c)
+{
+    c->out.s.vaptan.struct_size = siad_size(c->en[2], sizeof c->out.s.vaptan);
+}
+
+static int call_vaptan_watch_preset(ntrc_case *c)
+{
+    return ntr_vaptan_watch_preset(c->en[0], c->en[1], in_null(c, 0) ? NULL : &c->out.s.vaptan);
+}
+
+static const char *ok_vaptan_watch_preset(const ntrc_case *c)
+{
+    const ntr_vaptan_watch *w = &c->out.s.vaptan;
+    if (w->struct_size != sizeof *w || w->limits.struct_size != sizeof w->limits ||
+        w->reserved != 0u || (w->cautions & ~NTR_VAPTAN_CAUTION_ALL) != 0u ||
+        (w->cautions & NTR_VAPTAN_NO_RESTRICTION_24H) == 0u) {
+        return "sizes, reserved field or caution bits wrong";
+    }
+    if (w->limits.goal != NTR_GOAL_RAISE || !within(w->horizon_h, 0.5, 24.0) ||
+        !within(w->resample_h, 0.5, 24.0)) {
+        return "goal, horizon or resample interval out of bounds";
+    }
+    return NULL;
+}
+
+static int results_vaptan(const ntrc_case *c, double *v, int max)
+{
+    const ntr_vaptan_watch *w = &c->out.s.vaptan;
+    if (max < 5) {
+        return 0;
+    }
+    v[0] = w->limits.max_rise_24h;
+    v[1] = w->limits.max_rise_48h;
+    v[2] = w->horizon_h;
+    v[3] = w->resample_h;
+    v[4] = w->cautions;
+    return 5;
+}
+
+static int call_hyper_lower_plan(ntrc_case *c)
+{
+    const double *x = c->num;
+    return ntr_hyper_lower_plan(x[0], x[1], c->en[0], c->en[1], x[2], x[3], x[4], x[5], x[6],
+                                od(c, 0), od(c, 1), od(c, 2));
+}
+
+static const char *ok_hyper_lower_plan(const ntrc_case *c)
+{
+    if (!within(c->out.d[1], 0.0, 20.0) || !within(c->out.d[0], 0.0, 5000.0) ||
+        !close_to(c->out.d[0], c->out.d[1] * 1000.0 / c->num[3], 1e-12)) {
+        return "volume or rate outside a plan, or rate not volume / hours";
+    }
+    if (c->out.d[2] != NTR_PLAN_NO_BREACH &&
+        !(c->out.d[2] > 0.0 && c->out.d[2] <= c->num[3] + 1e-9)) {
+        return "breach time outside the plan";
+    }
+    return NULL;
+}
+
+static int call_bolus_plan(ntrc_case *c)
+{
+    const double *x = c->num;
+    return ntr_bolus_plan(x[0], x[1], x[2], x[3], oi(c, 0), od(c, 0), oi(c, 1));
+}
+
+static const char *ok_bolus_plan(const ntrc_case *c)
+{
+    if (c->out.i[0] < 1 || c->out.i[0] > NTR_BOLUS_COUNT_MAX ||
+        (c->out.i[1] != 0 && c->out.i[1] != 1)) {
+        return "bolus count or held flag out of bounds";
+    }
+    if (!within(c->out.d[0], 0.0, c->num[3] + 1e-6) ||
+        (c->out.i[1] == 0 && c->out.d[0] < c->num[2] - 1e-6)) {
+        return "rise past the limit, or short of the aim without being held";
+    }
+    return NULL;
+}
+
 const ntrc_fn ntrc_functions[] = {
     /* units */
     {CALL(unit_parse), .n_enum = 1, .en = {{"ucum", NTR_ERR_UNIT, 6, {0, 1, 2, 3, 4, 5}}},
@@ -4228,6 +4369,48 @@ const ntrc_fn ntrc_functions[] = {
      .n_out_d = 2, .statuses = OK_COMMON | ST(ERR_DOMAIN),
      .base_num = {131.0, 35.0, 0.0, 0.0, 3.0, 6.0, 100.0, 40.0, 20.0},
      .results = results_two, .check_ok = ok_relower_estimate},
+    /* therapy */
+    {CALL(loop_diuretic), .n_num = 6,
+     .num = {NA, TBW, {"urine_l", 0.0, 30.0, 0}, {"urine_na_k_mmol_l", 0.0, 500.0, 0},
+             {"replace_l", 0.0, 20.0, 0}, {"replace_na_mmol_l", 0.0, 1100.0, 0}},
+     .n_out_d = 2, .statuses = OK_COMMON | ST(ERR_DOMAIN),
+     .base_num = {120.0, 40.0, 2.0, 75.0, 1.0, 154.0}, .results = results_two,
+     .check_ok = ok_loop_diuretic},
+    {CALL(dda_clamp), .n_num = 7,
+     .num = {NA, TBW, {"saline_ml_h", 0.0, 5000.0, 0}, {"saline_na_mmol_l", 0.0, 1100.0, 0},
+             {"urine_ml_h", 0.0, 5000.0, 0}, {"urine_na_k_mmol_l", 0.0, 500.0, 0},
+             {"stop_rise_mmol_l", 0.0, 50.0, 1}},
+     .n_out_d = 2, .statuses = OK_COMMON | ST(ERR_DOMAIN),
+     .base_num = {115.0, 40.0, 30.0, 513.0, 30.0, 100.0, 6.0}, .results = results_two,
+     .check_ok = ok_dda_clamp},
+    {CALL(dda_relower), .n_num = 7,
+     .num = {NA, TBW, {"excess_mmol_l", 0.0, 50.0, 0}, {"margin_mmol_l", 0.0, 10.0, 0},
+             {"hours", 1.0 / 60.0, 720.0, 0}, {"urine_ml_h", 0.0, 5000.0, 0},
+             {"urine_na_k_mmol_l", 0.0, 500.0, 0}},
+     .n_out_d = 2, .statuses = OK_COMMON | ST(ERR_DOMAIN),
+     .base_num = {131.0, 35.0, 3.0, 1.0, 6.0, 100.0, 60.0}, .results = results_two,
+     .check_ok = ok_dda_relower},
+    {CALL(vaptan_watch_preset), .n_enum = 3,
+     .en = {{"high_risk", NTR_ERR_ARG, 2, {0, 1}}, {"liver_disease", NTR_ERR_ARG, 2, {0, 1}},
+            SIZE_MODE("result_struct_size")},
+     .n_in_ptr = 1, .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {0, 1, 0},
+     .prepare_out = prepare_vaptan, .results = results_vaptan,
+     .check_ok = ok_vaptan_watch_preset},
+    {CALL(hyper_lower_plan), .n_enum = 2,
+     .en = {{"fluid", NTR_ERR_ARG, 7, {1, 2, 3, 4, 5, 6, 7}},
+            {"limits_preset", NTR_ERR_ARG, 2, {NTR_COURSE_HYPER_CHRONIC, NTR_COURSE_HYPER_ACUTE}}},
+     .n_num = 7,
+     .num = {NA, TBW, {"fall_mmol_l", 0.0, 50.0, 1}, {"hours", 1.0 / 60.0, 720.0, 0},
+             {"urine_ml_h", 0.0, 5000.0, 0}, {"urine_na_k_mmol_l", 0.0, 500.0, 0},
+             {"insensible_ml_h", 0.0, 500.0, 0}},
+     .n_out_d = 3, .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_DOMAIN),
+     .base_num = {160.0, 40.0, 10.0, 24.0, 50.0, 40.0, 40.0},
+     .base_en = {NTR_FLUID_DEXTROSE_5, NTR_COURSE_HYPER_CHRONIC},
+     .check_ok = ok_hyper_lower_plan},
+    {CALL(bolus_plan), .n_num = 4,
+     .num = {NA, TBW, {"aim_rise_mmol_l", 0.0, 50.0, 1}, {"max_rise_mmol_l", 0.0, 50.0, 1}},
+     .n_out_d = 1, .n_out_i = 2, .statuses = OK_COMMON | ST(ERR_DOMAIN),
+     .base_num = {118.0, 30.0, 5.0, 10.0}, .check_ok = ok_bolus_plan},
 };
 
 const size_t ntrc_n_functions = sizeof ntrc_functions / sizeof ntrc_functions[0];

@@ -69,6 +69,7 @@ typedef struct ntrc_outs {
         ntr_urine_feedback_result feedback;
         ntr_fit fit;
         ntr_timed_flow tflow;
+        ntr_vaptan_watch vaptan;
         struct {
             /* reports at a stride of up to sizeof + 64 bytes */
             unsigned char out[8 * (sizeof(ntr_course_report) + 64)];

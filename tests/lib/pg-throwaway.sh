@@ -1,4 +1,4 @@
-# A throwaway PostgreSQL 15 server with the natremia extension, for
+# A throwaway PostgreSQL server with the natremia extension, for
 # tests/postgresql/run.sh and tests/bench/pg-bench.sh. Sourced, not run.
 #
 # Nothing is installed system-wide. The extension is built out of tree and
@@ -11,7 +11,7 @@
 # postgresql-common package), or "nobody" when that user does not exist.
 #
 #   pg_require
-#       Exits 77 (skipped), with a note on stderr, when PostgreSQL 15's
+#       Exits 77 (skipped), with a note on stderr, when the PostgreSQL
 #       server, psql, PGXS or make is missing.
 #   pg_throwaway_start SOURCE_ROOT NAME SUPERUSER [SERVER_OPTION...]
 #       Makes a temporary directory /tmp/NAME.XXXXXX, builds and stages the
@@ -21,21 +21,42 @@
 #       and removes the directory on exit. Sets:
 #         pg_tmp     the temporary directory (server.log is in it)
 #         pg_socket  the socket directory, for psql -h
-#   pg_bin is PostgreSQL 15's program directory (psql, postgres, ...).
+#   pg_config is the pg_config used: $PG_CONFIG when set, else that of the
+#   newest PostgreSQL under /usr/lib/postgresql/N whose server is installed
+#   (Debian 12: 15, Debian 13: 17), else pg_config on the PATH.
+#   pg_bin is that PostgreSQL's program directory (psql, postgres, ...),
+#   from pg_config --bindir.
 
-pg_bin=/usr/lib/postgresql/15/bin
-pg_config=$pg_bin/pg_config
+pg_find_config() {
+    local dir major newest=""
+    for dir in /usr/lib/postgresql/*/bin; do
+        major=${dir#/usr/lib/postgresql/}
+        major=${major%/bin}
+        [[ $major =~ ^[0-9]+$ && -x $dir/pg_config && -x $dir/postgres ]] || continue
+        if [[ -z $newest || $major -gt $newest ]]; then
+            newest=$major
+        fi
+    done
+    if [[ -n $newest ]]; then
+        echo "/usr/lib/postgresql/$newest/bin/pg_config"
+    else
+        command -v pg_config || echo pg_config
+    fi
+}
+
+pg_config=${PG_CONFIG:-$(pg_find_config)}
+pg_bin=$("$pg_config" --bindir 2>/dev/null || echo "(pg_config not found)")
 
 pg_require() {
     local tool
     for tool in "$pg_config" "$pg_bin/initdb" "$pg_bin/pg_ctl" "$pg_bin/postgres" "$pg_bin/psql"; do
         if [[ ! -x $tool ]]; then
-            echo "skipped: $tool not found (apt-get install postgresql-15 postgresql-server-dev-15)" >&2
+            echo "skipped: $tool not found (apt-get install postgresql-N postgresql-server-dev-N, N the major version your Debian ships: 15 on Debian 12, 17 on Debian 13)" >&2
             exit 77
         fi
     done
     if ! command -v make >/dev/null || [[ ! -f $("$pg_config" --pgxs) ]]; then
-        echo "skipped: make or PGXS missing (apt-get install make postgresql-server-dev-15)" >&2
+        echo "skipped: make or PGXS missing (apt-get install make postgresql-server-dev-N)" >&2
         exit 77
     fi
 }

@@ -473,6 +473,38 @@ SELECT pg_describe_object(classid, objid, objsubid) AS object
 FROM pg_depend
 WHERE refclassid = 'pg_extension'::regclass AND deptype = 'e'
   AND refobjid = (SELECT oid FROM pg_extension WHERE extname = 'natremia');
+-- Solute and restriction (1.1). Berl T, J Am Soc Nephrol 2008;19:1076-8:
+-- V = solute / U_osm; Furst H et al. 2000: the allowance is
+-- V * (1 - (U_Na + U_K)/S_Na) + insensible. Values hand-worked.
+SELECT pg_temp.near('Berl 600/600 (hand-worked)', ntr_urine_volume_from_solute(600, 600), 1.0, 1e-12);
+SELECT pg_temp.near('Berl 600/100 (hand-worked)', ntr_urine_volume_from_solute(600, 100), 6.0, 1e-12);
+SELECT pg_temp.same('urine volume, invalid osmolality gives NULL',
+    ntr_urine_volume_from_solute(600, -5), NULL::float8);
+SELECT pg_temp.raises('urine volume range', 'SELECT ntr_urine_volume_from_solute_checked(600, -5)', '22003');
+-- 1.2 L at ratio 170/125: 1.2 * (1 - 1.36) = -0.432 (hand-worked)
+SELECT pg_temp.near('allowance negative (hand-worked)',
+    ntr_fluid_allowance(600, 500, 130, 40, 125, 0), -0.432, 1e-12);
+-- 2 L at ratio 75/125: 2 * 0.4 + 0.5 = 1.3 (hand-worked)
+SELECT pg_temp.near('allowance with insensible (hand-worked)',
+    ntr_fluid_allowance_checked(800, 400, 50, 25, 125, 0.5), 1.3, 1e-12);
+SELECT pg_temp.raises('allowance serum range',
+    'SELECT ntr_fluid_allowance_checked(600, 500, 130, 40, 5, 0)', '22003');
+-- IUPAC molar masses: urea CH4N2O 60.056 g/mol, NaCl 58.443 g/mol
+-- (2 osmoles per mole); 30 g urea = 30000/60.056 mOsm (hand-worked).
+SELECT pg_temp.near('urea 30 g (IUPAC, hand-worked)',
+    ntr_solute_dose_osmoles('urea', 30), 30000.0 / 60.056, 0.05);
+SELECT pg_temp.near('NaCl 1 g (IUPAC, hand-worked)',
+    ntr_solute_dose_osmoles_checked('NaCl', 1), 2000.0 / 58.443, 0.01);
+SELECT pg_temp.same('unknown solute gives NULL', ntr_solute_dose_osmoles('sugar', 1), NULL::float8);
+SELECT pg_temp.raises('unknown solute', $q$SELECT ntr_solute_dose_osmoles_checked('sugar', 1)$q$, '22023');
+-- Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7: FEurate below 8 %
+-- against SIAD, above 12 % supports it.
+SELECT pg_temp.same('FEurate 5 %', ntr_fe_uric_acid_class(5), 'against_siad');
+SELECT pg_temp.same('FEurate 10 %', ntr_fe_uric_acid_class(10), 'indeterminate');
+SELECT pg_temp.same('FEurate 12 %', ntr_fe_uric_acid_class(12), 'indeterminate');
+SELECT pg_temp.same('FEurate 15 %', ntr_fe_uric_acid_class_checked(15), 'supports_siad');
+SELECT pg_temp.raises('FEurate NaN', $q$SELECT ntr_fe_uric_acid_class_checked('NaN')$q$, '22023');
+
 DROP EXTENSION natremia;
 CREATE EXTENSION natremia VERSION '1.0';
 SELECT pg_temp.same('1.0 installed',
@@ -502,7 +534,8 @@ SELECT pg_temp.same('fresh 1.1 objects listed',
         'function ntr_course_assess(double precision,double precision,text)',
         'type ntr_course_report', 'type ntr_low_na_tonicity',
         'function ntr_correction_assess(double precision,double precision)',
-        'function ntr_osm_effective(double precision,double precision)')), 5::bigint);
+        'function ntr_osm_effective(double precision,double precision)',
+        'function ntr_fluid_allowance(double precision,double precision,double precision,double precision,double precision,double precision)')), 6::bigint);
 SELECT pg_temp.same('1.0 aggregate after update', (SELECT count(*) FROM (
     SELECT patient, (ntr_correction_assess(hours, na)).* FROM lab GROUP BY patient
     EXCEPT SELECT * FROM assessed) x), 0::bigint);

@@ -8,9 +8,11 @@
 # Nothing is installed system-wide; the server and its staging tree are
 # described in tests/lib/pg-throwaway.sh.
 #
-# Exit 77 (skipped) only when PostgreSQL 15's server or its development
-# files are not installed (apt-get install postgresql-15
-# postgresql-server-dev-15 make).
+# Exit 77 (skipped) only when a PostgreSQL server or its development files
+# are not installed (apt-get install postgresql-N postgresql-server-dev-N
+# make, N the major version the release ships: 15 on Debian 12, 17 on
+# Debian 13; tests/run-all.sh finds N). Which PostgreSQL is used:
+# tests/lib/pg-throwaway.sh.
 set -euo pipefail
 
 src=$(cd "$1" && pwd)
@@ -26,4 +28,4 @@ if ! "$pg_bin/psql" -X -q -v ON_ERROR_STOP=1 -h "$pg_socket" -U natremia_test \
     tail -n 30 "$pg_tmp/server.log"
     exit 1
 fi
-echo "postgresql extension: ok"
+echo "postgresql extension: ok ($("$pg_bin/postgres" --version))"

@@ -35,11 +35,18 @@ from ._core import (  # noqa: F401
     Flow, TimedFlow, BalanceResult, balance_predict, balance_course,
     PlanResult, plan_check, RelowerEstimate, relower_estimate,
     low_na_effective_tonicity, effective_osm_measured,
+    Solute, urine_volume_from_solute, fluid_allowance, solute_dose_osmoles,
+    FeUricAcidClass, fe_uric_acid_class,
 )
 from ._course import (  # noqa: F401
     Goal, CoursePreset, CourseFlag, FLAG_LABELS, flag_labels, CourseLimits,
     CourseReport, course_limits_preset, course_preset_names, course_assess,
     BreachDirection, CoursePlanResult, course_plan_check, CourseWatch,
+)
+from ._fit import (  # noqa: F401
+    FitFlag, FIT_FLAG_LABELS, CourseFit, course_fit, fit_reproject,
+    FeedbackFlag, FEEDBACK_FLAG_LABELS, UrineFeedback, urine_feedback,
+    urine_interval_flow,
 )
 
 __version__ = "1.1.0"

@@ -169,6 +169,14 @@ _ARGUMENTS = {
                               "fluid_k_mmol_l", "lower_by_mmol_l", "hours",
                               "urine_ml_h", "urine_na_mmol_l", "urine_k_mmol_l"),
                              (125.5, 26.1, 0.0, 0.0, 3.5, 6.0, 0.0, 0.0, 0.0)),
+    "ntr_urine_volume_from_solute": (("solute_mosm_day", "urine_osm_mosm_kg"),
+                                     (600.0, 300.0)),
+    "ntr_fluid_allowance": (("solute_mosm_day", "urine_osm_mosm_kg",
+                             "urine_na_mmol_l", "urine_k_mmol_l",
+                             "serum_na_mmol_l", "insensible_l_day"),
+                            (600.0, 300.0, 60.0, 20.0, 125.0, 0.5)),
+    "ntr_solute_dose_osmoles": (("solute", "grams"), (None, 15.0)),
+    "ntr_fe_uric_acid_class": (("fe_uric_acid_percent",), (10.0,)),
 }
 
 _VALUE_STATUSES = (ERR_NONFINITE, ERR_RANGE)
@@ -328,6 +336,10 @@ _PROTOTYPES = {
                                _P(LimitsStruct), _P(PlanResultStruct)]),
     "ntr_relower_estimate": (c_int, [_D, _D, _D, _D, _D, _D, _D, _D, _D, _PD,
                                      _PD]),
+    "ntr_urine_volume_from_solute": (c_int, [_D, _D, _PD]),
+    "ntr_fluid_allowance": (c_int, [_D, _D, _D, _D, _D, _D, _PD]),
+    "ntr_solute_dose_osmoles": (c_int, [c_int, _D, _PD]),
+    "ntr_fe_uric_acid_class": (c_int, [_D, _PI]),
 }
 
 _declared = {}
@@ -976,3 +988,53 @@ def relower_estimate(*, na_mmol_l, tbw_l, fluid_na_mmol_l, lower_by_mmol_l,
           (na_mmol_l, tbw_l, fluid_na_mmol_l, fluid_k_mmol_l, lower_by_mmol_l,
            hours, urine_ml_h, urine_na_mmol_l, urine_k_mmol_l), [volume, rate])
     return RelowerEstimate(volume.value, rate.value)
+
+
+# ---------------------------------------------------------------------------
+# Solute and fluid restriction (since 1.1)
+# ---------------------------------------------------------------------------
+
+class Solute(enum.IntEnum):
+    """A solute given by mouth (NTR_SOLUTE_*)."""
+    UREA = 1
+    NACL = 2
+
+
+def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg):
+    """Daily urine volume, L/day, that a solute load makes at a fixed urine
+    osmolality: V = solute / U_osm (Berl 2008)."""
+    return _double_result("ntr_urine_volume_from_solute",
+                          "urine_volume_from_solute", solute_mosm_day,
+                          urine_osm_mosm_kg)
+
+
+def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
+                    urine_k_mmol_l, serum_na_mmol_l, insensible_l_day=0.0):
+    """The most fluid per day, L/day, that does not lower the sodium:
+    V * (1 - (U_Na + U_K) / S_Na) + insensible, V from the solute. A
+    negative result means restriction alone cannot hold the sodium."""
+    return _double_result("ntr_fluid_allowance", "fluid_allowance",
+                          solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
+                          urine_k_mmol_l, serum_na_mmol_l, insensible_l_day)
+
+
+def solute_dose_osmoles(*, solute, grams):
+    """Osmoles, mOsm, in a dose of urea (1 per mole) or NaCl (2 per mole),
+    molar masses from the IUPAC atomic weights."""
+    return _double_result("ntr_solute_dose_osmoles", "solute_dose_osmoles",
+                          _enum(Solute, solute, "solute", "solute_dose_osmoles"), grams)
+
+
+class FeUricAcidClass(enum.IntEnum):
+    """Reading of the fractional uric acid excretion (NTR_FE_URIC_ACID_*)."""
+    AGAINST_SIAD = 1
+    INDETERMINATE = 2
+    SUPPORTS_SIAD = 3
+
+
+def fe_uric_acid_class(*, fe_uric_acid_percent):
+    """Fractional uric acid excretion at the low sodium: below 8 % argues
+    against SIAD, above 12 % supports it (Fenske 2008)."""
+    return FeUricAcidClass(_int_result("ntr_fe_uric_acid_class",
+                                       "fe_uric_acid_class",
+                                       fe_uric_acid_percent))

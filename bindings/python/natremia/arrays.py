@@ -4,7 +4,9 @@ Arguments are keyword-only, as in the scalar API, and broadcast against
 each other (a scalar infusate against a column of patients, say). The
 result has the broadcast shape. No Python loop runs per row: the inputs are
 made contiguous float64 (int32 for sex), handed to an ntr_batch_* function,
-and its output array is returned.
+and its output array is returned. The exceptions are the 1.1 solute
+functions at the end (no batch entry point in the library): they call the
+scalar C function once per row.
 
 Errors: with ``errors="raise"`` (the default) any failing row raises
 NatremiaError naming the first failing row (flattened index) and the
@@ -544,3 +546,61 @@ __all__ = [
     "course_assess_groups", "course_assess_table", "course_assess_frame",
     "CoursePreset",
 ]
+
+
+# ---------------------------------------------------------------------------
+# Solute and restriction (since 1.1). The library has no batch entry point
+# for these, so they loop over the rows in Python, one C call each; errors,
+# broadcasting and with_status behave as for the batch functions above.
+# ---------------------------------------------------------------------------
+
+def _loop(function, cname, inputs, lead=(), errors="raise", with_status=False):
+    _check_errors_choice(errors)
+    arrays = np.broadcast_arrays(*[np.asarray(v, dtype=np.float64)
+                                   for v in inputs])
+    shape = arrays[0].shape
+    columns = [np.ascontiguousarray(a).ravel() for a in arrays]
+    n = columns[0].size
+    out = np.full(n, np.nan)
+    status = np.zeros(n, dtype=np.intc)
+    fn = _core._fn(cname)
+    value = ctypes.c_double()
+    for i in range(n):
+        code = fn(*lead, *[float(c[i]) for c in columns], ctypes.byref(value))
+        status[i] = code
+        if code == _core.OK:
+            out[i] = value.value
+    failed = int(np.count_nonzero(status))
+    if failed and errors == "raise":
+        row = int(np.flatnonzero(status)[0])
+        raise NatremiaError(int(status[row]), function, row=row, failed=failed)
+    out = out.reshape(shape)
+    if with_status:
+        return out, status.reshape(shape)
+    return out
+
+
+def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg,
+                             errors="raise", with_status=False):
+    """Daily urine volume, L/day: solute / U_osm (Berl 2008), per row."""
+    return _loop("urine_volume_from_solute", "ntr_urine_volume_from_solute",
+                 [solute_mosm_day, urine_osm_mosm_kg], errors=errors,
+                 with_status=with_status)
+
+
+def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
+                    urine_k_mmol_l, serum_na_mmol_l, insensible_l_day=0.0,
+                    errors="raise", with_status=False):
+    """The most fluid per day that does not lower the sodium, L/day, per
+    row (negative: restriction alone cannot hold it)."""
+    return _loop("fluid_allowance", "ntr_fluid_allowance",
+                 [solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
+                  urine_k_mmol_l, serum_na_mmol_l, insensible_l_day],
+                 errors=errors, with_status=with_status)
+
+
+def solute_dose_osmoles(*, solute, grams, errors="raise", with_status=False):
+    """Osmoles, mOsm, of doses of one solute (urea or NaCl), per row."""
+    code = _enum(_core.Solute, solute, "solute", "solute_dose_osmoles")
+    return _loop("solute_dose_osmoles", "ntr_solute_dose_osmoles", [grams],
+                 lead=(code,), errors=errors, with_status=with_status)

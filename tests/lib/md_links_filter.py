@@ -1,0 +1,57 @@
+#!/usr/bin/env python3
+"""Doxygen input filter for the Markdown pages (FILTER_PATTERNS in
+docs/Doxyfile.in).
+
+The pages link to each other the way a repository browser needs,
+[ranges](docs/ranges.md). Doxygen 1.9.4 (Debian 12) turns such a link into
+a reference to the page; Doxygen 1.9.8 (Debian 13) cannot resolve it when
+the target page carries its own label ("# Input ranges {#ranges}") and
+fails the warning-free build. This filter hands Doxygen the label instead,
+[ranges](@ref ranges), which every Doxygen version resolves, and leaves the
+files themselves as they are. Links to pages without a label, to anchors
+and to anything else pass through unchanged; every line keeps its number,
+so Doxygen's warnings still point at the right line.
+
+    md_links_filter.py FILE.md     (the filtered text on standard output)
+"""
+import os
+import re
+import sys
+
+LABEL = re.compile(r"^#\s.*\{#(?P<label>[A-Za-z_][\w-]*)\}\s*$")
+# ](target.md) with a relative path and no anchor or title
+LINK = re.compile(r"\]\((?P<target>[^()\s#:]+\.md)\)")
+
+
+def page_label(path):
+    """The explicit label on the page's first heading, or None."""
+    try:
+        with open(path, encoding="utf-8") as page:
+            for line in page:
+                if line.strip():
+                    match = LABEL.match(line.strip())
+                    return match.group("label") if match else None
+    except OSError:
+        return None
+    return None
+
+
+def main():
+    source = sys.argv[1]
+    here = os.path.dirname(os.path.abspath(source))
+    labels = {}
+
+    def replace(match):
+        target = os.path.normpath(os.path.join(here, match.group("target")))
+        if target not in labels:
+            labels[target] = page_label(target)
+        label = labels[target]
+        return "](@ref %s)" % label if label else match.group(0)
+
+    with open(source, encoding="utf-8") as text:
+        for line in text:
+            sys.stdout.write(LINK.sub(replace, line))
+
+
+if __name__ == "__main__":
+    main()
