@@ -2613,6 +2613,48 @@ NTR_API int ntr_course_watch_push(ntr_course_watch *w, double hours,
                                   double na_mmol_l, ntr_course_report *out);
 
 /**
+ * @brief Add one result to a course watcher on the glucose-corrected sodium (since 1.1).
+ *
+ * Corrects @p na_mmol_l for glucose exactly as ntr_na_corrected_glucose()
+ * does (the same code, so bit for bit the same value):
+ * Na_corr = Na + f * (G * 18.0156 - 100) / 100, G in mmol/L, f = 1.6
+ * (Katz) or 2.4 (Hillier) mmol/L per 100 mg/dL; a glucose at or below
+ * 100 mg/dL (5.55 mmol/L), including 0, gives no correction. Then pushes
+ * Na_corr as ntr_course_watch_push() does, so hyperglycaemic states are
+ * watched on the sodium the water balance acts on.
+ *
+ * Consistency is the caller's part: the state does not record whether
+ * its results were corrected (the 1.1 layout has no spare member), so a
+ * series mixing this call with ntr_course_watch_push() (or two methods)
+ * is accepted and is a mixed series whose rises and falls are wrong.
+ * Push every result of one watcher through the same call and method. A
+ * missing glucose is not a 0: NaN is refused (NTR_ERR_NONFINITE).
+ *
+ * @param w              as ntr_course_watch_push() (updated on success only).
+ * @param hours          as ntr_course_watch_push().
+ * @param na_mmol_l      measured serum sodium, 80 to 220 mmol/L.
+ * @param glucose_mmol_l plasma glucose of the same sample, 0 to 200 mmol/L.
+ * @param glucose_method @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
+ * @param[in,out] out    as ntr_course_watch_push().
+ * @retval NTR_OK
+ * @retval NTR_ERR_NULL      @p w or @p out is NULL.
+ * @retval NTR_ERR_ARG       unknown @p glucose_method, then as
+ *         ntr_course_watch_push() (out->struct_size, state not sound).
+ * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours, @p na_mmol_l,
+ *         @p glucose_mmol_l in that order; NTR_ERR_RANGE also when the
+ *         corrected sodium is above 220 mmol/L.
+ * @retval NTR_ERR_ORDER     @p hours is before the previous result.
+ *
+ * References: Katz MA, N Engl J Med 1973;289:843-4; Hillier TA et al.,
+ * Am J Med 1999;106:399-403; the rest as ntr_course_assess().
+ * Methods: as ntr_course_watch_push(), with @ref NTR_METHOD_GLUCOSE_KATZ
+ * or @ref NTR_METHOD_GLUCOSE_HILLIER.
+ */
+NTR_API int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours,
+                                          double na_mmol_l, double glucose_mmol_l,
+                                          int glucose_method, ntr_course_report *out);
+
+/**
  * @brief The current assessment of a course watcher, without adding a result.
  *
  * @param w        a state from ntr_course_watch_init() with at least one result.

@@ -1539,3 +1539,30 @@ int ntr_course_watch_push(ntr_course_watch *w, double hours, double na_mmol_l,
     course_watch_report(w, out);
     return NTR_OK;
 }
+
+/* The glucose-corrected push: the library's one correction
+ * (ntri_glucose_corrected, as ntr_na_corrected_glucose), then the ordinary
+ * push. The state keeps no mode (the 1.1 layout has no spare member), so
+ * keeping the series consistently corrected is the caller's part. */
+int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours, double na_mmol_l,
+                                  double glucose_mmol_l, int glucose_method,
+                                  ntr_course_report *out)
+{
+    double factor;
+    double corrected;
+
+    if (w == NULL || out == NULL) {
+        return NTR_ERR_NULL;
+    }
+    NTR_TRY(ntri_glucose_factor(glucose_method, &factor));
+    if (ntri_course_report_check(out) != NTR_OK || !course_watch_sound(w)) {
+        return NTR_ERR_ARG;
+    }
+    NTR_TRY(ntr_check(hours, -NTR_HOURS_MAX, NTR_HOURS_MAX));
+    NTR_TRY(ntr_check_na(na_mmol_l));
+    NTR_TRY(ntr_check(glucose_mmol_l, 0.0, NTR_GLUCOSE_MAX));
+    corrected = ntri_glucose_corrected(na_mmol_l, glucose_mmol_l, factor);
+    /* A corrected sodium above the watcher's range is refused by the push
+     * (NTR_ERR_RANGE), with the state and report untouched. */
+    return ntr_course_watch_push(w, hours, corrected, out);
+}

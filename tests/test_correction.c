@@ -1851,6 +1851,127 @@ static void course_watcher_state_can_be_stored_and_restored(void **state)
     }
 }
 
+/* A hyperglycaemic course (invented): measured sodium 124 -> 136 mmol/L in
+ * 12 h only because glucose falls 40 -> 10 mmol/L. Hand-worked from the
+ * published Hillier factor (2.4 per 100 mg/dL above 100 mg/dL; Hillier
+ * 1999, /work/shared/sources.md; 18.0156 mg/dL per mmol/L):
+ * t=0: 124 + 2.4*(720.624-100)/100 = 138.894976;
+ * t=12: 136 + 2.4*(180.156-100)/100 = 137.923744.
+ * Uncorrected: a rise of 12 in 12 h, over the 10/24 h limit. Corrected: no
+ * rise at all (a fall of 0.971232). */
+static void glucose_push_unmasks_a_rise_that_is_only_glucose(void **state)
+{
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_watch plain;
+    ntr_course_watch corr;
+    ntr_course_report r;
+    (void)state;
+    r.struct_size = sizeof r;
+    assert_int_equal(ntr_course_watch_init(&lim, &plain), NTR_OK);
+    assert_int_equal(ntr_course_watch_init(&lim, &corr), NTR_OK);
+    assert_int_equal(ntr_course_watch_push(&plain, 0.0, 124.0, &r), NTR_OK);
+    assert_int_equal(ntr_course_watch_push(&plain, 12.0, 136.0, &r), NTR_OK);
+    assert_near(r.max_rise_24h, 12.0, 1e-12);
+    assert_true((r.flags & NTR_CF_OVER_24H) != 0u);
+    assert_int_equal(ntr_course_watch_push_glucose(&corr, 0.0, 124.0, 40.0,
+                                                   NTR_GLUCOSE_HILLIER, &r), NTR_OK);
+    assert_int_equal(ntr_course_watch_push_glucose(&corr, 12.0, 136.0, 10.0,
+                                                   NTR_GLUCOSE_HILLIER, &r), NTR_OK);
+    assert_near(r.max_rise_24h, 0.0, 0.0);
+    assert_near(r.max_fall_24h, 138.894976 - 137.923744, 1e-9);
+    assert_true((r.flags & NTR_CF_OVER_24H) == 0u);
+}
+
+/* Katz (1.6; Katz 1973 via Hillier 1999, /work/shared/sources.md): the
+ * glucose push equals pushing ntr_na_corrected_glucose() by hand, bit for
+ * bit, state and report; glucose 0 and at the reference give no
+ * correction, as ntr_na_corrected_glucose does. */
+static void glucose_push_equals_corrected_by_hand(void **state)
+{
+    static const double t[] = {0.0, 4.0, 8.0, 12.0, 20.0, 30.0};
+    static const double na[] = {121.0, 123.5, 126.0, 128.0, 129.0, 131.0};
+    static const double g[] = {33.0, 25.0, 5.0, 0.0, 100.0 / 18.0156, 7.5};
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_watch a;
+    ntr_course_watch b;
+    ntr_course_report ra;
+    ntr_course_report rb;
+    size_t i;
+    int m;
+    (void)state;
+    for (m = NTR_GLUCOSE_KATZ; m <= NTR_GLUCOSE_HILLIER; m++) {
+        memset(&a, 0, sizeof a);
+        memset(&b, 0, sizeof b);
+        memset(&ra, 0, sizeof ra);
+        memset(&rb, 0, sizeof rb);
+        ra.struct_size = sizeof ra;
+        rb.struct_size = sizeof rb;
+        assert_int_equal(ntr_course_watch_init(&lim, &a), NTR_OK);
+        assert_int_equal(ntr_course_watch_init(&lim, &b), NTR_OK);
+        for (i = 0; i < sizeof t / sizeof t[0]; i++) {
+            double c;
+            assert_int_equal(ntr_na_corrected_glucose(na[i], g[i], m, &c), NTR_OK);
+            assert_int_equal(ntr_course_watch_push(&a, t[i], c, &ra), NTR_OK);
+            assert_int_equal(ntr_course_watch_push_glucose(&b, t[i], na[i], g[i], m, &rb),
+                             NTR_OK);
+            assert_memory_equal(&ra, &rb, sizeof ra);
+            assert_memory_equal(&a, &b, sizeof a);
+        }
+    }
+    /* Katz at 33 mmol/L, hand-worked: 121 + 1.6*(594.5148-100)/100. */
+    {
+        double c;
+        assert_int_equal(ntr_na_corrected_glucose(121.0, 33.0, NTR_GLUCOSE_KATZ, &c), NTR_OK);
+        assert_near(c, 121.0 + 1.6 * (33.0 * 18.0156 - 100.0) / 100.0, 1e-12);
+    }
+}
+
+static void glucose_push_rejects_bad_inputs(void **state)
+{
+    ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_course_watch w;
+    ntr_course_watch w0;
+    ntr_course_report r;
+    ntr_course_report r0;
+    (void)state;
+    memset(&w, 0, sizeof w);
+    memset(&r, 0x5a, sizeof r);
+    r.struct_size = sizeof r;
+    assert_int_equal(ntr_course_watch_init(&lim, &w), NTR_OK);
+    assert_int_equal(ntr_course_watch_push_glucose(&w, 0.0, 125.0, 20.0, NTR_GLUCOSE_KATZ, &r),
+                     NTR_OK);
+    memset(&r, 0x5a, sizeof r);
+    r.struct_size = sizeof r;
+    w0 = w;
+    r0 = r;
+#define EXPECT_REFUSED(call, st)                  \
+    do {                                          \
+        assert_int_equal((call), (st));           \
+        assert_memory_equal(&w, &w0, sizeof w);   \
+        assert_memory_equal(&r, &r0, sizeof r);   \
+    } while (0)
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(NULL, 1.0, 125.0, 20.0, 1, &r), NTR_ERR_NULL);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, 20.0, 1, NULL), NTR_ERR_NULL);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, 20.0, 0, &r), NTR_ERR_ARG);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, 20.0, 3, &r), NTR_ERR_ARG);
+    /* the unknown method is found before the bad number */
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, NAN, 3, &r), NTR_ERR_ARG);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, NAN, 125.0, 20.0, 1, &r),
+                   NTR_ERR_NONFINITE);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 300.0, NAN, 1, &r), NTR_ERR_RANGE);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, NAN, 1, &r),
+                   NTR_ERR_NONFINITE);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, -0.5, 1, &r), NTR_ERR_RANGE);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, 250.0, 1, &r), NTR_ERR_RANGE);
+    /* corrected above 220: 215 + 2.4*(200*18.0156-100)/100 = 299.1 */
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 215.0, 200.0, 2, &r), NTR_ERR_RANGE);
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, -1.0, 125.0, 20.0, 1, &r), NTR_ERR_ORDER);
+    w.magic ^= 1u;
+    w0 = w;
+    EXPECT_REFUSED(ntr_course_watch_push_glucose(&w, 1.0, 125.0, NAN, 1, &r), NTR_ERR_ARG);
+#undef EXPECT_REFUSED
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1909,6 +2030,9 @@ int main(void)
         cmocka_unit_test(course_watcher_refuses_damaged_states),
         cmocka_unit_test(watcher_refuses_damaged_numbers),
         cmocka_unit_test(course_watcher_state_can_be_stored_and_restored),
+        cmocka_unit_test(glucose_push_unmasks_a_rise_that_is_only_glucose),
+        cmocka_unit_test(glucose_push_equals_corrected_by_hand),
+        cmocka_unit_test(glucose_push_rejects_bad_inputs),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

@@ -1740,6 +1740,58 @@ static const char *ok_course_watch_push(const ntrc_case *c)
     return same_as_course_assess(&c->out.s.course, s, c->n + 1);
 }
 
+static int call_course_watch_push_glucose(ntrc_case *c)
+{
+    return ntr_course_watch_push_glucose(in_null(c, 0) ? NULL : &c->cwatch, c->num[0],
+                                         c->num[1], c->num[2], c->en[2],
+                                         in_null(c, 1) ? NULL : &c->out.s.course);
+}
+
+/* As the plain push, with the glucose third; the corrected sodium must
+ * still be a watchable one (80-220), checked before the order. */
+static int predict_course_watch_push_glucose(const ntrc_fn *f, const ntrc_case *c)
+{
+    int st;
+    double corrected;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (!ntrc_enum_is_valid(f, 0, c->en[0]) || !ntrc_enum_is_valid(f, 1, c->en[1]) ||
+        !ntrc_enum_is_valid(f, 2, c->en[2])) {
+        return NTR_ERR_ARG;
+    }
+    if ((st = check_value(c->num[0], -1e6, 1e6)) != NTR_OK ||
+        (st = check_value(c->num[1], 80.0, 220.0)) != NTR_OK ||
+        (st = check_value(c->num[2], 0.0, 200.0)) != NTR_OK) {
+        return st;
+    }
+    if (ntr_na_corrected_glucose(c->num[1], c->num[2], c->en[2], &corrected) != NTR_OK) {
+        return NTR_ERR_ARG; /* cannot happen after the checks above */
+    }
+    if (corrected > 220.0) {
+        return NTR_ERR_RANGE;
+    }
+    if (c->n > 0 && c->num[0] < c->samples[c->n - 1].hours) {
+        return NTR_ERR_ORDER;
+    }
+    return NTR_OK;
+}
+
+/* The glucose push equals the plain push of ntr_na_corrected_glucose()'s
+ * value, so the series with the corrected last sample is the oracle. */
+static const char *ok_course_watch_push_glucose(const ntrc_case *c)
+{
+    ntr_sample s[NTRC_MAX_SERIES + 1];
+    double corrected;
+    if (ntr_na_corrected_glucose(c->num[1], c->num[2], c->en[2], &corrected) != NTR_OK) {
+        return "ntr_na_corrected_glucose rejects what the glucose push accepted";
+    }
+    memcpy(s, c->samples, c->n * sizeof s[0]);
+    s[c->n].hours = c->num[0];
+    s[c->n].na_mmol_l = corrected;
+    return same_as_course_assess(&c->out.s.course, s, c->n + 1);
+}
+
 static int call_course_watch_result(ntrc_case *c)
 {
     return ntr_course_watch_result(in_null(c, 0) ? NULL : &c->cwatch,
@@ -4266,6 +4318,16 @@ const ntrc_fn ntrc_functions[] = {
      .fuzz_series = fuzz_course_watch, .prepare_out = prepare_course_watch,
      .mutates_input = 1, .results = results_course_report,
      .extra_cases = extra_course_watch_push, .check_ok = ok_course_watch_push},
+    {CALL(course_watch_push_glucose), .n_enum = 3,
+     .en = {COURSE_WATCH_MODES,
+            {"glucose_method", NTR_ERR_ARG, 2, {NTR_GLUCOSE_KATZ, NTR_GLUCOSE_HILLIER}}},
+     .n_num = 3, .num = {{"hours", -1e6, 1e6, 0}, NA, GLU}, .n_in_ptr = 2,
+     .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_ORDER), .base_num = {20.0, 124.5, 30.0},
+     .base_en = {0, 0, NTR_GLUCOSE_HILLIER}, .predict = predict_course_watch_push_glucose,
+     .base_series = base_course_watch, .fuzz_series = fuzz_course_watch,
+     .prepare_out = prepare_course_watch, .mutates_input = 1,
+     .results = results_course_report, .extra_cases = extra_course_watch_push,
+     .check_ok = ok_course_watch_push_glucose},
     {CALL(course_watch_result), .n_enum = 2, .en = {COURSE_WATCH_MODES}, .n_in_ptr = 2,
      .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {0, 0},
      .predict = predict_course_watch_result, .base_series = base_course_watch,
