@@ -1069,37 +1069,51 @@ float8_elements(ArrayType *array, Datum **values, int *n)
 	return true;
 }
 
+/* The series of arguments 0 (hours) and 1 (sodium) as samples, for the
+ * series functions of both versions: NTR_ERR_ARG when either array has a
+ * NULL element or more than one dimension, the two differ in length, or
+ * they are empty. */
+static int
+samples_from_arrays(FunctionCallInfo fcinfo, ntr_sample **samples, int *n)
+{
+	Datum	   *hours;
+	Datum	   *na;
+	int			n_hours;
+	int			n_na;
+	int			i;
+
+	if (!float8_elements(PG_GETARG_ARRAYTYPE_P(0), &hours, &n_hours) ||
+		!float8_elements(PG_GETARG_ARRAYTYPE_P(1), &na, &n_na) ||
+		n_hours != n_na || n_hours == 0)
+		return NTR_ERR_ARG;
+	*samples = palloc(sizeof(ntr_sample) * (size_t) n_hours);
+	for (i = 0; i < n_hours; i++)
+	{
+		(*samples)[i].hours = DatumGetFloat8(hours[i]);
+		(*samples)[i].na_mmol_l = DatumGetFloat8(na[i]);
+	}
+	*n = n_hours;
+	return NTR_OK;
+}
+
 static Datum
 series_impl(FunctionCallInfo fcinfo, bool checked)
 {
 	const char *f = checked ? "ntr_correction_assess_series_checked"
 		: "ntr_correction_assess_series";
-	Datum	   *hours;
-	Datum	   *na;
 	int			n_hours;
-	int			n_na;
 	ntr_limits	lim;
-	ntr_sample *samples;
+	ntr_sample *samples = NULL;
 	int			st;
-	int			i;
 
 	st = preset_limits(PG_GETARG_TEXT_PP(2), &lim);
-	if (st == NTR_OK &&
-		(!float8_elements(PG_GETARG_ARRAYTYPE_P(0), &hours, &n_hours) ||
-		 !float8_elements(PG_GETARG_ARRAYTYPE_P(1), &na, &n_na) ||
-		 n_hours != n_na || n_hours == 0))
-		st = NTR_ERR_ARG;
+	if (st == NTR_OK)
+		st = samples_from_arrays(fcinfo, &samples, &n_hours);
 	if (st != NTR_OK)
 	{
 		if (checked)
 			report_status(f, st);
 		PG_RETURN_NULL();
-	}
-	samples = palloc(sizeof(ntr_sample) * (size_t) n_hours);
-	for (i = 0; i < n_hours; i++)
-	{
-		samples[i].hours = DatumGetFloat8(hours[i]);
-		samples[i].na_mmol_l = DatumGetFloat8(na[i]);
 	}
 	return assess_samples(fcinfo, samples, (size_t) n_hours, &lim, NTR_OK,
 						  checked, f);
@@ -1342,32 +1356,19 @@ course_series_impl(FunctionCallInfo fcinfo, bool checked)
 {
 	const char *f = checked ? "ntr_course_assess_series_checked"
 		: "ntr_course_assess_series";
-	Datum	   *hours;
-	Datum	   *na;
 	int			n_hours;
-	int			n_na;
 	ntr_course_limits lim;
-	ntr_sample *samples;
+	ntr_sample *samples = NULL;
 	int			st;
-	int			i;
 
 	st = course_preset_limits(PG_GETARG_TEXT_PP(2), &lim);
-	if (st == NTR_OK &&
-		(!float8_elements(PG_GETARG_ARRAYTYPE_P(0), &hours, &n_hours) ||
-		 !float8_elements(PG_GETARG_ARRAYTYPE_P(1), &na, &n_na) ||
-		 n_hours != n_na || n_hours == 0))
-		st = NTR_ERR_ARG;
+	if (st == NTR_OK)
+		st = samples_from_arrays(fcinfo, &samples, &n_hours);
 	if (st != NTR_OK)
 	{
 		if (checked)
 			report_status(f, st);
 		PG_RETURN_NULL();
-	}
-	samples = palloc(sizeof(ntr_sample) * (size_t) n_hours);
-	for (i = 0; i < n_hours; i++)
-	{
-		samples[i].hours = DatumGetFloat8(hours[i]);
-		samples[i].na_mmol_l = DatumGetFloat8(na[i]);
 	}
 	return course_samples(fcinfo, samples, (size_t) n_hours, &lim, NTR_OK,
 						  checked, f);
