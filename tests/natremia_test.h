@@ -124,4 +124,21 @@ static inline int ntr_test_rel_close(double a, double b, double rel)
     return fabs(a - b) <= rel * fmax(fabs(a), fabs(b));
 }
 
+/* A timed flow with its reserved fields zero, for the plan and feedback
+ * tests. */
+static inline ntr_timed_flow ntr_test_timed(double start_h, double end_h,
+                                            double rate_ml_h, double na_mmol_l,
+                                            double k_mmol_l)
+{
+    ntr_timed_flow f;
+    f.start_h = start_h;
+    f.end_h = end_h;
+    f.rate_ml_h = rate_ml_h;
+    f.na_mmol_l = na_mmol_l;
+    f.k_mmol_l = k_mmol_l;
+    f.reserved[0] = 0u;
+    f.reserved[1] = 0u;
+    return f;
+}
+
 #endif

@@ -27,18 +27,6 @@ static double predict_na(double na, double tbw, const ntr_flow *f, size_t n)
     return na_out;
 }
 
-static ntr_timed_flow timed(double start, double end, double rate, double na, double k)
-{
-    ntr_timed_flow f;
-    memset(&f, 0, sizeof f);
-    f.start_h = start;
-    f.end_h = end;
-    f.rate_ml_h = rate;
-    f.na_mmol_l = na;
-    f.k_mmol_l = k;
-    return f;
-}
-
 /* xorshift64*: deterministic random inputs. */
 static uint64_t rng_state = 0x2545f4914f6cdd1du;
 static double rng_unit(void)
@@ -251,7 +239,7 @@ static void balance_rejects_bad_inputs(void **state)
  * (Adrogue-Madias mass balance, Adrogue & Madias 2000.) */
 static void course_hand_worked(void **state)
 {
-    const ntr_timed_flow f = timed(0.0, 3.0, 100.0, 513.0, 0.0);
+    const ntr_timed_flow f = ntr_test_timed(0.0, 3.0, 100.0, 513.0, 0.0);
     ntr_sample s[4];
     size_t count = 0;
     (void)state;
@@ -322,11 +310,11 @@ static void course_end_equals_balance(void **state)
         const double na0 = rng_in(110.0, 150.0), tbw0 = rng_in(30.0, 50.0);
         double na1, tbw1;
         /* Rates kept so every point stays within 80-220 mmol/L. */
-        f[0] = timed(rng_in(0.0, 10.0), 0.0, rng_in(0.0, 30.0), 513.0, 0.0);
+        f[0] = ntr_test_timed(rng_in(0.0, 10.0), 0.0, rng_in(0.0, 30.0), 513.0, 0.0);
         f[0].end_h = f[0].start_h + rng_in(0.0, 40.0);
-        f[1] = timed(rng_in(0.0, 5.0), 0.0, -rng_in(0.0, 100.0), rng_in(10.0, 100.0), rng_in(0.0, 40.0));
+        f[1] = ntr_test_timed(rng_in(0.0, 5.0), 0.0, -rng_in(0.0, 100.0), rng_in(10.0, 100.0), rng_in(0.0, 40.0));
         f[1].end_h = f[1].start_h + rng_in(0.0, 50.0);
-        f[2] = timed(0.0, rng_in(0.0, 60.0), rng_in(0.0, 100.0), 0.0, 0.0);
+        f[2] = ntr_test_timed(0.0, rng_in(0.0, 60.0), rng_in(0.0, 100.0), 0.0, 0.0);
         for (i = 0; i < 3; i++) {
             double stop = f[i].end_h < duration ? f[i].end_h : duration;
             double ran = stop - f[i].start_h;
@@ -342,7 +330,7 @@ static void course_end_equals_balance(void **state)
 
 static void course_capacity_and_bad_inputs(void **state)
 {
-    const ntr_timed_flow good = timed(0.0, 3.0, 100.0, 513.0, 0.0);
+    const ntr_timed_flow good = ntr_test_timed(0.0, 3.0, 100.0, 513.0, 0.0);
     ntr_sample s[3];
     ntr_sample ref[3];
     size_t count = 12345;
@@ -400,10 +388,10 @@ static void course_capacity_and_bad_inputs(void **state)
     assert_int_equal(ntr_balance_course(115.0, 40.0, &good, 1, 720.5, 1.0, s, 3, &count), NTR_ERR_RANGE);
     assert_int_equal(ntr_balance_course(115.0, 40.0, &good, 1, 3.0, 0.01, s, 3, &count), NTR_ERR_RANGE);
     {
-        ntr_timed_flow f = timed(5.0, 4.0, 100.0, 513.0, 0.0);
+        ntr_timed_flow f = ntr_test_timed(5.0, 4.0, 100.0, 513.0, 0.0);
         assert_int_equal(ntr_balance_course(115.0, 40.0, &f, 1, 3.0, 1.0, s, 3, &count), NTR_ERR_ORDER);
         /* Domain: 5 L/h of urine for 10 h empties a 40 L body. */
-        f = timed(0.0, 10.0, -5000.0, 50.0, 0.0);
+        f = ntr_test_timed(0.0, 10.0, -5000.0, 50.0, 0.0);
         assert_int_equal(ntr_balance_course(115.0, 40.0, &f, 1, 10.0, 5.0, s, 3, &count), NTR_ERR_DOMAIN);
     }
     assert_int_equal(count, 12345);
@@ -432,8 +420,8 @@ static void bolus_safe_alone_breaches_with_diuresis(void **state)
 {
     const ntr_sample now = {0.0, 115.0};
     const ntr_timed_flow plan[2] = {
-        timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
-        timed(4.0, 24.0, -250.0, 30.0, 10.0),
+        ntr_test_timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
+        ntr_test_timed(4.0, 24.0, -250.0, 30.0, 10.0),
     };
     ntr_limits lim = standard();
     ntr_plan_result r;
@@ -471,8 +459,8 @@ static void measured_history_counts_against_the_plan(void **state)
 {
     const ntr_sample history[2] = {{-12.0, 112.0}, {0.0, 115.0}};
     const ntr_timed_flow plan[2] = {
-        timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
-        timed(4.0, 24.0, -250.0, 30.0, 10.0),
+        ntr_test_timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
+        ntr_test_timed(4.0, 24.0, -250.0, 30.0, 10.0),
     };
     ntr_limits lim = standard();
     ntr_plan_result r;
@@ -501,9 +489,9 @@ static void plan_check_equals_course_then_assess(void **state)
         size_t count = 0, k;
         double first_breach = NTR_PLAN_NO_BREACH;
         double first_breach_48 = NTR_PLAN_NO_BREACH;
-        plan[0] = timed(0.0, rng_in(0.1, 3.0), rng_in(0.0, 500.0), 513.0, 0.0);
-        plan[1] = timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 300.0), rng_in(10.0, 60.0), 10.0);
-        plan[2] = timed(0.0, 48.0, rng_in(0.0, 80.0), 154.0, 0.0);
+        plan[0] = ntr_test_timed(0.0, rng_in(0.1, 3.0), rng_in(0.0, 500.0), 513.0, 0.0);
+        plan[1] = ntr_test_timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 300.0), rng_in(10.0, 60.0), 10.0);
+        plan[2] = ntr_test_timed(0.0, 48.0, rng_in(0.0, 80.0), 154.0, 0.0);
         assert_int_equal(ntr_plan_check(&now, 1, tbw, plan, 3, 48.0, 0.25, &lim, &r), NTR_OK);
         assert_int_equal(ntr_balance_course(now.na_mmol_l, tbw, plan, 3, 48.0, 0.25, s, COUNT(s), &count),
                          NTR_OK);
@@ -534,7 +522,7 @@ static void plan_check_equals_course_then_assess(void **state)
 static void plan_check_rejects_bad_inputs(void **state)
 {
     const ntr_sample now[2] = {{-2.0, 118.0}, {0.0, 119.0}};
-    const ntr_timed_flow plan = timed(0.0, 2.0, 100.0, 513.0, 0.0);
+    const ntr_timed_flow plan = ntr_test_timed(0.0, 2.0, 100.0, 513.0, 0.0);
     ntr_limits lim = standard();
     ntr_plan_result r, ref;
     (void)state;
@@ -564,9 +552,9 @@ static void plan_check_rejects_bad_inputs(void **state)
     assert_int_equal(ntr_plan_check(now, 2, 40.0, &plan, 1, 24.0, 1.0, &lim, &r), NTR_ERR_RANGE);
     lim = standard();
     {
-        ntr_timed_flow f = timed(0.0, 20.0, -3000.0, 50.0, 0.0);
+        ntr_timed_flow f = ntr_test_timed(0.0, 20.0, -3000.0, 50.0, 0.0);
         assert_int_equal(ntr_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_DOMAIN);
-        f = timed(3.0, 2.0, 100.0, 513.0, 0.0);
+        f = ntr_test_timed(3.0, 2.0, 100.0, 513.0, 0.0);
         assert_int_equal(ntr_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ORDER);
     }
     assert_memory_equal(&r, &ref, sizeof r);
@@ -696,7 +684,7 @@ static void course_plan_result_layout(void **state)
 static void hypernatraemia_dextrose_plan_breaches_the_fall_limit(void **state)
 {
     const ntr_sample now = {0.0, 165.0};
-    const ntr_timed_flow plan = timed(0.0, 24.0, 500.0, 0.0, 0.0);
+    const ntr_timed_flow plan = ntr_test_timed(0.0, 24.0, 500.0, 0.0, 0.0);
     const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
     ntr_course_plan_result r;
     (void)state;
@@ -742,7 +730,7 @@ static void hypernatraemia_dextrose_plan_breaches_the_fall_limit(void **state)
     /* The same plan at a tenth of the rate (50 mL/h, 1.2 L in 24 h):
      * 5610 / 35.2 = 159.375, a fall of 5.625: within the limit. */
     {
-        const ntr_timed_flow slow = timed(0.0, 24.0, 50.0, 0.0, 0.0);
+        const ntr_timed_flow slow = ntr_test_timed(0.0, 24.0, 50.0, 0.0, 0.0);
         assert_int_equal(course_plan(&now, 1, 34.0, &slow, 1, 24.0, 0.5, &lim, &r), NTR_OK);
         assert_near(r.final_na_mmol_l, 5610.0 / 35.2, 1e-9);
         assert_true(r.breach_fall_24h_h == NTR_PLAN_NO_BREACH);
@@ -761,7 +749,7 @@ static void hypernatraemia_dextrose_plan_breaches_the_fall_limit(void **state)
 static void measured_fall_counts_against_the_plan(void **state)
 {
     const ntr_sample history[2] = {{-12.0, 170.0}, {0.0, 165.0}};
-    const ntr_timed_flow plan = timed(0.0, 24.0, 500.0, 0.0, 0.0);
+    const ntr_timed_flow plan = ntr_test_timed(0.0, 24.0, 500.0, 0.0, 0.0);
     const ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
     ntr_course_plan_result r;
     (void)state;
@@ -784,8 +772,8 @@ static void hyponatraemia_plan_breaches_the_rise_limit_as_in_1_0(void **state)
     const ntr_sample now = {0.0, 115.0};
     const ntr_sample history[2] = {{-12.0, 112.0}, {0.0, 115.0}};
     const ntr_timed_flow plan[2] = {
-        timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
-        timed(4.0, 24.0, -250.0, 30.0, 10.0),
+        ntr_test_timed(0.0, 2.0 / 3.0, 450.0, 513.0, 0.0),
+        ntr_test_timed(4.0, 24.0, -250.0, 30.0, 10.0),
     };
     const ntr_course_limits lim = course_preset(NTR_COURSE_HYPO_STANDARD);
     const ntr_limits old = standard();
@@ -842,11 +830,11 @@ static void hold_goal_breaches_either_way(void **state)
 {
     const ntr_sample now = {0.0, 140.0};
     const ntr_course_limits lim = course_limits(NTR_GOAL_HOLD, 6.0, 12.0, 6.0, 12.0, 0.0);
-    const ntr_timed_flow saline = timed(0.0, 12.0, 100.0, 513.0, 0.0);
-    const ntr_timed_flow water = timed(0.0, 12.0, 500.0, 0.0, 0.0);
+    const ntr_timed_flow saline = ntr_test_timed(0.0, 12.0, 100.0, 513.0, 0.0);
+    const ntr_timed_flow water = ntr_test_timed(0.0, 12.0, 500.0, 0.0, 0.0);
     const ntr_timed_flow both[2] = {
-        timed(0.0, 6.0, 500.0, 0.0, 0.0),
-        timed(6.0, 12.0, 400.0, 513.0, 0.0),
+        ntr_test_timed(0.0, 6.0, 500.0, 0.0, 0.0),
+        ntr_test_timed(6.0, 12.0, 400.0, 513.0, 0.0),
     };
     ntr_course_plan_result r;
     (void)state;
@@ -912,9 +900,9 @@ static void course_plan_equals_course_then_assess(void **state)
         size_t count = 0, k;
         int b;
         if (hyper) {
-            plan[0] = timed(0.0, 48.0, rng_in(0.0, 600.0), 0.0, 0.0);
-            plan[1] = timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 200.0), rng_in(10.0, 60.0), 10.0);
-            plan[2] = timed(0.0, rng_in(0.0, 48.0), rng_in(0.0, 150.0), 77.0, 0.0);
+            plan[0] = ntr_test_timed(0.0, 48.0, rng_in(0.0, 600.0), 0.0, 0.0);
+            plan[1] = ntr_test_timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 200.0), rng_in(10.0, 60.0), 10.0);
+            plan[2] = ntr_test_timed(0.0, rng_in(0.0, 48.0), rng_in(0.0, 150.0), 77.0, 0.0);
             lim = round % 4 == 1 ? course_preset(NTR_COURSE_HYPER_CHRONIC)
                                  : course_limits(NTR_GOAL_LOWER, 0.0, 0.0, rng_in(6.0, 12.0),
                                                  0.0, 0.0);
@@ -922,9 +910,9 @@ static void course_plan_equals_course_then_assess(void **state)
                 lim = course_limits(NTR_GOAL_HOLD, 4.0, 8.0, 6.0, 12.0, 0.0);
             }
         } else {
-            plan[0] = timed(0.0, rng_in(0.1, 3.0), rng_in(0.0, 500.0), 513.0, 0.0);
-            plan[1] = timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 300.0), rng_in(10.0, 60.0), 10.0);
-            plan[2] = timed(0.0, 48.0, rng_in(0.0, 80.0), round % 3 == 0 ? 0.0 : 154.0, 0.0);
+            plan[0] = ntr_test_timed(0.0, rng_in(0.1, 3.0), rng_in(0.0, 500.0), 513.0, 0.0);
+            plan[1] = ntr_test_timed(rng_in(0.0, 10.0), 48.0, -rng_in(0.0, 300.0), rng_in(10.0, 60.0), 10.0);
+            plan[2] = ntr_test_timed(0.0, 48.0, rng_in(0.0, 80.0), round % 3 == 0 ? 0.0 : 154.0, 0.0);
             lim = round % 4 == 0 ? course_preset(NTR_COURSE_HYPO_STANDARD)
                                  : course_limits(NTR_GOAL_RAISE, 8.0, 16.0, rng_in(3.0, 8.0),
                                                  0.0, 0.0);
@@ -997,7 +985,7 @@ static void course_plan_equals_course_then_assess(void **state)
 static void course_plan_rejects_bad_inputs(void **state)
 {
     const ntr_sample now[2] = {{-2.0, 160.0}, {0.0, 158.0}};
-    const ntr_timed_flow plan = timed(0.0, 2.0, 100.0, 0.0, 0.0);
+    const ntr_timed_flow plan = ntr_test_timed(0.0, 2.0, 100.0, 0.0, 0.0);
     ntr_course_limits lim = course_preset(NTR_COURSE_HYPER_CHRONIC);
     ntr_course_plan_result r = course_plan_blank(), ref;
     (void)state;
@@ -1066,13 +1054,13 @@ static void course_plan_rejects_bad_inputs(void **state)
         f.rate_ml_h = (double)NAN;
         assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r),
                          NTR_ERR_NONFINITE);
-        f = timed(4.0, 3.0, 100.0, 0.0, 0.0);
+        f = ntr_test_timed(4.0, 3.0, 100.0, 0.0, 0.0);
         assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_ORDER);
         /* Domain: 5 L/h of urine for 10 h empties a 40 L body. */
-        f = timed(0.0, 10.0, -5000.0, 50.0, 0.0);
+        f = ntr_test_timed(0.0, 10.0, -5000.0, 50.0, 0.0);
         assert_int_equal(ntr_course_plan_check(now, 2, 40.0, &f, 1, 24.0, 1.0, &lim, &r), NTR_ERR_DOMAIN);
         /* Domain: 3% saline at 5 L/h for 12 h into 10 L passes 220. */
-        f = timed(0.0, 12.0, 5000.0, 513.0, 0.0);
+        f = ntr_test_timed(0.0, 12.0, 5000.0, 513.0, 0.0);
         assert_int_equal(ntr_course_plan_check(now, 2, 10.0, &f, 1, 12.0, 1.0, &lim, &r), NTR_ERR_DOMAIN);
     }
     assert_memory_equal(&r, &ref, sizeof r);

@@ -21,18 +21,6 @@
 #define COUNT(a) (sizeof(a) / sizeof((a)[0]))
 
 
-static ntr_timed_flow timed(double start, double end, double rate, double na, double k)
-{
-    ntr_timed_flow f;
-    memset(&f, 0, sizeof f);
-    f.start_h = start;
-    f.end_h = end;
-    f.rate_ml_h = rate;
-    f.na_mmol_l = na;
-    f.k_mmol_l = k;
-    return f;
-}
-
 static ntr_urine_interval interval(double start, double end, double ml, double na,
                                    double k, double osm)
 {
@@ -154,8 +142,8 @@ static void feedback_over_now(void **state)
 static void feedback_efw_identity(void **state)
 {
     const ntr_sample h[] = {{10.0, 118.0}, {13.0, 121.0}};
-    const ntr_timed_flow f[] = {timed(0.0, 6.0, 60.0, 513.0, 0.0),
-                                timed(0.0, 48.0, 20.0, 0.0, 0.0)};
+    const ntr_timed_flow f[] = {ntr_test_timed(0.0, 6.0, 60.0, 513.0, 0.0),
+                                ntr_test_timed(0.0, 48.0, 20.0, 0.0, 0.0)};
     const ntr_urine_interval u[] = {interval(2.0, 4.0, 300.0, 60.0, 30.0, 500.0),
                                     interval(4.0, 5.0, 250.0, 20.0, 15.0, 180.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_STANDARD);
@@ -191,10 +179,10 @@ static void feedback_efw_identity(void **state)
 static void feedback_equals_plan_check(void **state)
 {
     const ntr_sample h[] = {{0.0, 125.0}, {6.0, 127.0}};
-    const ntr_timed_flow f[] = {timed(4.0, 10.0, 100.0, 154.0, 0.0)};
+    const ntr_timed_flow f[] = {ntr_test_timed(4.0, 10.0, 100.0, 154.0, 0.0)};
     const ntr_urine_interval u[] = {interval(3.0, 6.0, 600.0, 40.0, 20.0, 250.0)};
-    const ntr_timed_flow shifted[] = {timed(0.0, 4.0, 100.0, 154.0, 0.0),
-                                      timed(0.0, 8.0, -200.0, 40.0, 20.0)};
+    const ntr_timed_flow shifted[] = {ntr_test_timed(0.0, 4.0, 100.0, 154.0, 0.0),
+                                      ntr_test_timed(0.0, 8.0, -200.0, 40.0, 20.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_HIGH_RISK);
     ntr_urine_feedback_result r = fresh_feedback();
     ntr_course_plan_result p = fresh_plan();
@@ -217,7 +205,7 @@ static void feedback_equals_plan_check(void **state)
 static void feedback_salt_loss(void **state)
 {
     const ntr_sample h[] = {{0.0, 160.0}};
-    const ntr_timed_flow f[] = {timed(0.0, 24.0, 400.0, 0.0, 0.0)};
+    const ntr_timed_flow f[] = {ntr_test_timed(0.0, 24.0, 400.0, 0.0, 0.0)};
     const ntr_urine_interval u[] = {interval(0.0, 2.0, 1000.0, 200.0, 60.0, 700.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPER_CHRONIC);
     ntr_urine_feedback_result r = fresh_feedback();
@@ -263,7 +251,7 @@ static void feedback_monotonic_in_urine(void **state)
 static void feedback_bad_inputs(void **state)
 {
     const ntr_sample h[] = {{0.0, 120.0}, {2.0, 121.0}};
-    const ntr_timed_flow f[] = {timed(0.0, 4.0, 100.0, 513.0, 0.0)};
+    const ntr_timed_flow f[] = {ntr_test_timed(0.0, 4.0, 100.0, 513.0, 0.0)};
     ntr_urine_interval u[] = {interval(0.0, 2.0, 300.0, 20.0, 10.0, 150.0),
                               interval(2.0, 3.0, 200.0, 20.0, 10.0, 150.0)};
     ntr_course_limits lim = preset(NTR_COURSE_HYPO_STANDARD);
@@ -324,7 +312,7 @@ static void feedback_bad_inputs(void **state)
     bad_h[0] = h[1];
     bad_h[1] = h[0];
     FB_EXPECT(NTR_ERR_ORDER, bad_h, 2, 35.0, f, 1, u, 2, 6.0, 0.5, &lim, &r);
-    bad_f[0] = timed(4.0, 3.0, 100.0, 513.0, 0.0);
+    bad_f[0] = ntr_test_timed(4.0, 3.0, 100.0, 513.0, 0.0);
     FB_EXPECT(NTR_ERR_ORDER, h, 2, 35.0, bad_f, 1, u, 2, 6.0, 0.5, &lim, &r);
     u[1].start_h = 1.5;
     FB_EXPECT(NTR_ERR_ORDER, h, 2, 35.0, f, 1, u, 2, 6.0, 0.5, &lim, &r);
@@ -408,7 +396,7 @@ static size_t synthetic(double na0, double tbw, double loss_ml_h,
     if (n_known > 0) {
         memcpy(all, known, n_known * sizeof *known);
     }
-    all[n_known] = timed(0.0, 720.0, -loss_ml_h, 0.0, 0.0);
+    all[n_known] = ntr_test_timed(0.0, 720.0, -loss_ml_h, 0.0, 0.0);
     assert_int_equal(ntr_balance_course(na0, tbw, all, n_known + 1, 24.0, step, out,
                                         capacity, &count), NTR_OK);
     return count;
@@ -467,7 +455,7 @@ static void fit_recovers_exact_truth(void **state)
             (void)c;
             (void)unused;
             memcpy(all, known, nk * sizeof *known);
-            all[nk] = timed(0.0, 720.0, -cases[i].loss, 0.0, 0.0);
+            all[nk] = ntr_test_timed(0.0, 720.0, -cases[i].loss, 0.0, 0.0);
             {
                 const ntr_sample one[] = {{0.0, cases[i].na0}};
                 ntr_course_plan_result p = fresh_plan();
@@ -535,7 +523,7 @@ static void fit_recovers_truth_under_noise(void **state)
     (void)state;
     /* The true rise from 24 h to 36 h. */
     all[0] = design_a[0];
-    all[1] = timed(0.0, 720.0, -120.0, 0.0, 0.0);
+    all[1] = ntr_test_timed(0.0, 720.0, -120.0, 0.0, 0.0);
     assert_int_equal(ntr_balance_course(120.0, 35.0, all, 2, 36.0, 12.0, ahead, 4, &c), NTR_OK);
     true_rise = ahead[c - 1].na_mmol_l - ahead[c - 2].na_mmol_l;
     for (r = 0; r < REPS; r++) {
@@ -619,7 +607,7 @@ static void fit_when_the_model_is_wrong(void **state)
     assert_int_equal(ntr_urine_interval_flow(&u[0], &known[1]), NTR_OK);
     assert_int_equal(ntr_urine_interval_flow(&u[1], &known[2]), NTR_OK);
     memcpy(all, known, sizeof known);
-    all[3] = timed(0.0, 720.0, -40.0, 0.0, 0.0);
+    all[3] = ntr_test_timed(0.0, 720.0, -40.0, 0.0, 0.0);
     assert_int_equal(ntr_balance_course(120.0, 35.0, all, 4, 24.0, 2.0, h, COUNT(h), &n), NTR_OK);
 
     assert_int_equal(ntr_course_fit(h, n, 40.0, design_a, 1, &f), NTR_OK);
@@ -637,8 +625,8 @@ static void fit_when_the_model_is_wrong(void **state)
     assert_near(f.free_water_loss_ml_h, 40.0, 1e-4);
 
     /* A late, large step. */
-    all[1] = timed(0.0, 18.0, -100.0, 30.0, 10.0);
-    all[2] = timed(18.0, 720.0, -600.0, 15.0, 5.0);
+    all[1] = ntr_test_timed(0.0, 18.0, -100.0, 30.0, 10.0);
+    all[2] = ntr_test_timed(18.0, 720.0, -600.0, 15.0, 5.0);
     assert_int_equal(ntr_balance_course(120.0, 35.0, all, 4, 24.0, 2.0, h, COUNT(h), &c), NTR_OK);
     f = fresh_fit();
     assert_int_equal(ntr_course_fit(h, c, 40.0, design_a, 1, &f), NTR_OK);
@@ -747,7 +735,7 @@ static void fit_bad_inputs(void **state)
     bad[3].hours = 100.0;
     FIT_EXPECT(NTR_ERR_ORDER, bad, n, 40.0, design_a, 1);
     bad[3] = h[3];
-    fl[0] = timed(2.0, 1.0, 250.0, 513.0, 0.0);
+    fl[0] = ntr_test_timed(2.0, 1.0, 250.0, 513.0, 0.0);
     FIT_EXPECT(NTR_ERR_ORDER, h, n, 40.0, fl, 1);
     bad[n - 1].hours = 800.0;
     FIT_EXPECT(NTR_ERR_DOMAIN, bad, n, 40.0, design_a, 1);
@@ -761,8 +749,8 @@ static void fit_bad_inputs(void **state)
 static void reproject_equals_plan_check(void **state)
 {
     const ntr_sample h[] = {{7.0, 119.0}};
-    const ntr_timed_flow f[] = {timed(0.0, 3.0, 100.0, 513.0, 0.0),
-                                timed(2.0, 30.0, 60.0, 77.0, 20.0)};
+    const ntr_timed_flow f[] = {ntr_test_timed(0.0, 3.0, 100.0, 513.0, 0.0),
+                                ntr_test_timed(2.0, 30.0, 60.0, 77.0, 20.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_HIGH_RISK);
     ntr_fit fit = fresh_fit();
     ntr_course_plan_result a = fresh_plan(), b = fresh_plan();
