@@ -20,7 +20,7 @@ import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
 import { load } from '../natremia.mjs';
 import { api } from '../natremia_api.mjs';
-import { formatHex, parseHex } from './hexdouble.mjs';
+import { formatHex, parseHex } from '../testsupport/hexdouble.mjs';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const expectedPath = process.env.NATREMIA_REFVECTORS ||
