@@ -212,6 +212,23 @@ function roles(fn) {
   return out;
 }
 
+/**
+ * How the JavaScript method of a C function takes and returns its values:
+ * { inputs: [{ name, role, type }], outputs: [{ name, role, type }] }, from
+ * the parameters' C types (used by gen_api.mjs for natremia.d.ts).
+ */
+export function signature(cName) {
+  const fn = api.functions.find((f) => f.name === cName);
+  if (!fn) throw new Error(`natremia: unknown function ${cName}`);
+  const rs = roles(fn);
+  const pick = (r) => ({ name: r.p.name, role: r.role, type: r.p.type });
+  return {
+    inputs: rs.filter((r) => INPUT_ROLES.has(r.role)).map(pick),
+    outputs: rs.filter((r) => OUTPUT_ROLES.has(r.role)).map(pick),
+    ret: fn.ret,
+  };
+}
+
 const TYPED = {
   double: Float64Array,
   int: Int32Array,
@@ -219,6 +236,7 @@ const TYPED = {
 };
 
 const INPUT_ROLES = new Set(['string', 'stateIn', 'arrayIn', 'structIn', 'column', 'in']);
+const OUTPUT_ROLES = new Set(['out', 'structOut', 'stateOut', 'seriesOut', 'columnOut', 'rowsOut']);
 
 // ---- method construction -----------------------------------------------------
 
@@ -437,7 +455,7 @@ function makeMethod(lib, fn) {
   const fail = (status, args) => {
     throw new NatremiaError(status, lib.statusMessage(status), short, failedArgument(status, args));
   };
-  const outs = rs.filter((r) => ['out', 'structOut', 'stateOut', 'seriesOut', 'columnOut', 'rowsOut'].includes(r.role));
+  const outs = rs.filter((r) => OUTPUT_ROLES.has(r.role));
   const hasSeries = rs.some((r) => r.role === 'seriesOut');
 
   const method = function (...args) {

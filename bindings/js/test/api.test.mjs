@@ -9,6 +9,7 @@ import { dirname, join } from 'node:path';
 import { load, NatremiaError, layout } from '../natremia.mjs';
 import { api } from '../natremia_api.mjs';
 import { render } from '../gen_api.mjs';
+import { renderDts } from '../gen_dts.mjs';
 import { parseHex } from '../testsupport/hexdouble.mjs';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -19,6 +20,10 @@ const C = n.constants;
 
 test('natremia_api.mjs is what gen_api.mjs makes of the header', () => {
   assert.equal(readFileSync(join(here, '..', 'natremia_api.mjs'), 'utf8'), render(header));
+});
+
+test('natremia.d.ts is what gen_dts.mjs makes of the description', () => {
+  assert.equal(readFileSync(join(here, '..', 'natremia.d.ts'), 'utf8'), renderDts());
 });
 
 test('one method per public C function, named without ntr_', () => {

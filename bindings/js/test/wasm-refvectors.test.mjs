@@ -28,7 +28,9 @@ test('the C reference-vector program under node writes expected.txt exactly',
     try {
       const wasi = new WASI({ version: 'preview1', args: ['refvectors'], env: {}, stdout: fd, returnOnExit: true });
       const mod = await WebAssembly.compile(readFileSync(programPath));
-      const inst = await WebAssembly.instantiate(mod, wasi.getImportObject());
+      // getImportObject() since node 19.8; node 18 takes wasiImport.
+      const imports = wasi.getImportObject ? wasi.getImportObject() : { wasi_snapshot_preview1: wasi.wasiImport };
+      const inst = await WebAssembly.instantiate(mod, imports);
       assert.equal(wasi.start(inst), 0);
     } finally {
       closeSync(fd);
