@@ -7,9 +7,9 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync, existsSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
 import { dirname, join } from 'node:path';
-import { WASI } from 'node:wasi';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const expectedPath = process.env.NATREMIA_REFVECTORS ||
@@ -19,29 +19,18 @@ const required = process.env.NATREMIA_JS_REQUIRE_ALL === '1';
 
 test('the C reference-vector program under node writes expected.txt exactly',
   { skip: !existsSync(programPath) && !required && 'refvectors.wasm not built (needs wasi-libc; sh build.sh)' },
-  async () => {
-    const { mkdtempSync, openSync, closeSync, rmSync } = await import('node:fs');
-    const { tmpdir } = await import('node:os');
-    const dir = mkdtempSync(join(tmpdir(), 'natremia-rv-'));
-    const outPath = join(dir, 'vectors.txt');
-    const fd = openSync(outPath, 'w');
-    try {
-      const wasi = new WASI({ version: 'preview1', args: ['refvectors'], env: {}, stdout: fd, returnOnExit: true });
-      const mod = await WebAssembly.compile(readFileSync(programPath));
-      // getImportObject() since node 19.8; node 18 takes wasiImport.
-      const imports = wasi.getImportObject ? wasi.getImportObject() : { wasi_snapshot_preview1: wasi.wasiImport };
-      const inst = await WebAssembly.instantiate(mod, imports);
-      assert.equal(wasi.start(inst), 0);
-    } finally {
-      closeSync(fd);
-    }
-    const got = readFileSync(outPath, 'utf8').split('\n');
-    rmSync(dir, { recursive: true, force: true });
+  () => {
+    const major = Number(process.versions.node.split('.')[0]);
+    const flags = major < 20 ? ['--experimental-wasi-unstable-preview1'] : [];
+    const text = execFileSync(process.execPath,
+      [...flags, '--no-warnings', join(here, '..', 'testsupport', 'run-wasi.mjs'), programPath],
+      { encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
+    const got = text.split('\n');
     const want = readFileSync(expectedPath, 'utf8').split('\n');
     assert.ok(want.length > 1000);
     const differ = [];
     for (let i = 0; i < Math.max(got.length, want.length); i++) {
       if (got[i] !== want[i]) differ.push(`line ${i + 1}\n  expected: ${want[i]}\n  computed: ${got[i]}`);
     }
-    assert.equal(differ.length, 0, differ.slice(0, 5).join('\n'));
+    assert.equal(differ.length, 0, `${differ.length} lines differ:\n${differ.slice(0, 5).join('\n')}`);
   });
