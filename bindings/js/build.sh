@@ -48,11 +48,17 @@ echo "built $outdir/natremia.wasm"
 # linked with wasi-libc (WASI has no tmpfile(); only --check needs it).
 if [ "${NATREMIA_REFVECTORS:-yes}" = no ]; then
     :
-elif [ -e /usr/lib/wasm32-wasi/libc.a ] || [ -n "${WASI_SYSROOT:-}" ]; then
+elif [ -e /usr/lib/wasm32-wasi/libc.a ] || [ -e /usr/lib/wasm32-wasip1/libc.a ] || [ -n "${WASI_SYSROOT:-}" ]; then
     sysroot="${WASI_SYSROOT:-/usr}"
+    # Debian 12's wasi-libc is laid out for wasm32-wasi; newer ones may use
+    # the preview-1 name.
+    triple=wasm32-wasi
+    if [ ! -e "$sysroot/lib/wasm32-wasi/libc.a" ] && [ -e "$sysroot/lib/wasm32-wasip1/libc.a" ]; then
+        triple=wasm32-wasip1
+    fi
     tflags="-std=c99 -O2 -ffp-contract=off --sysroot=$sysroot -I$root/include -I$root/tests/fuzz"
     # shellcheck disable=SC2086
-    "$cc" --target=wasm32-wasi $tflags -Wno-deprecated-declarations \
+    "$cc" --target=$triple $tflags -Wno-deprecated-declarations \
         -Dtmpfile=refvectors_wasi_tmpfile -o "$outdir/refvectors.wasm.tmp" \
         "$root/tests/refvectors/refvectors.c" "$root/tests/fuzz/ntr_contract.c" \
         "$here/testsupport/wasi_tmpfile.c" $objs

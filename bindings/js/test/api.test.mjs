@@ -198,3 +198,42 @@ test('urine intervals, fit and therapy helpers are reachable', () => {
   const out = n.restriction_outlook(600, 500, 150, 60, 125, 0.4, 1.0);
   assert.ok([C.NTR_OUTLOOK_TARGET_HOLDS, C.NTR_OUTLOOK_STRICTER_OR_SOLUTE, C.NTR_OUTLOOK_RESTRICTION_FAILS].includes(out.verdict));
 });
+
+test('fit, re-projection, urine feedback and the 1.0 calls marshal their structs', () => {
+  const lim = n.course_limits_preset(C.NTR_COURSE_HYPO_STANDARD);
+  // An invented series made by the model itself: 40 L, 3% saline 60 mL/h
+  // for 12 h, then 5% dextrose 250 mL/h (two phases, so body water and an
+  // unmeasured loss can be told apart): the fit must find 40 L and no loss.
+  const flows = [{ start_h: 0, end_h: 12, rate_ml_h: 60, na_mmol_l: 513, k_mmol_l: 0 },
+    { start_h: 12, end_h: 24, rate_ml_h: 250, na_mmol_l: 0, k_mmol_l: 0 }];
+  const made = n.balance_course(118, 40, flows, 24, 3);
+  const fit = n.course_fit(made, 30, flows);
+  assert.equal(fit.struct_size, layout('ntr_fit').size);
+  assert.ok(Math.abs(fit.tbw_l - 40) < 1e-3, `tbw ${fit.tbw_l}`);
+  assert.ok(Math.abs(fit.free_water_loss_ml_h) < 0.1, `loss ${fit.free_water_loss_ml_h}`);
+  // Flows are hours after history[0] here, hours after now in the plan check.
+  const later = [{ start_h: 24, end_h: 48, rate_ml_h: 30, na_mmol_l: 513, k_mmol_l: 0 }];
+  const re = n.fit_reproject(made, fit, [...flows, ...later], 24, 4, lim);
+  assert.equal(re.struct_size, layout('ntr_course_plan_result').size);
+  assert.equal(re.course.struct_size, layout('ntr_course_report').size);
+  // With no loss fitted, re-projecting is the plan check from the last sample.
+  const direct = n.course_plan_check(made, fit.tbw_last_l, [{ ...later[0], start_h: 0, end_h: 24 }], 24, 4, lim);
+  assert.ok(Math.abs(re.final_na_mmol_l - direct.final_na_mmol_l) < 1e-6);
+  const urine = [{ start_h: 0, end_h: 6, volume_ml: 600, na_mmol_l: 40, k_mmol_l: 20, osm_mosm_kg: 300 }];
+  const fb = n.urine_feedback(made.slice(0, 2), 40, flows, urine, 12, 1, lim);
+  assert.equal(fb.struct_size, layout('ntr_urine_feedback_result').size);
+  assert.equal(fb.plan.struct_size, layout('ntr_course_plan_result').size);
+  assert.ok(Number.isFinite(fb.na_now_mmol_l) && Number.isFinite(fb.urine_ml_h));
+  assert.equal(fb.urine_ml_h, 100);
+  // 1.0: correction_assess equals the grouped form, plan_check runs.
+  const lim10 = n.limits_preset(C.NTR_LIMITS_STANDARD);
+  const s = [{ hours: 0, na_mmol_l: 118 }, { hours: 20, na_mmol_l: 128.5 }];
+  const one = n.correction_assess(s, lim10);
+  assert.ok(one.flags & C.NTR_CF_OVER_24H);
+  assert.deepEqual(n.batch_correction_assess([0, 2], s, lim10).out[0], one);
+  const p = n.plan_check(s, 40, flows, 12, 1, lim10);
+  assert.equal(p.points, 12);
+  assert.equal(typeof p.course.max_rise_24h, 'number');
+  const rl = n.relower_estimate(130, 40, 0, 0, 2, 6, 0, 0, 0);
+  assert.ok(rl.volume_l > 0 && rl.rate_ml_h > 0);
+});
