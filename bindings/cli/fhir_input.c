@@ -35,6 +35,7 @@ nc_fhir *nc_fhir_new(nc_table *t)
     }
     f->doc.cap = NC_FHIR_NODES;
     f->t = t;
+    t->timed = 1; /* effectiveDateTime: hours counted from each patient's first */
     return f;
 }
 
