@@ -170,9 +170,12 @@ int nc_fhir_line(nc_fhir *f, const char *line, size_t len, size_t line_no)
 
 void nc_fhir_report(const nc_fhir *f, FILE *to)
 {
-    if (f->not_observation + f->other_code + f->withdrawn == 0) return;
-    fprintf(to, "%s: %s: skipped %zu line(s): %zu not an Observation, %zu not LOINC 2951-2 or "
-            "2947-0, %zu entered-in-error or cancelled\n", NC_PROGRAM, f->t->source,
-            f->not_observation + f->other_code + f->withdrawn, f->not_observation,
-            f->other_code, f->withdrawn);
+    const char *sep = "";
+    size_t all = f->not_observation + f->other_code + f->withdrawn;
+    if (all == 0) return;
+    fprintf(to, "%s: %s: skipped %zu line(s):", NC_PROGRAM, f->t->source, all);
+    if (f->not_observation) fprintf(to, " %zu not an Observation", f->not_observation), sep = ",";
+    if (f->other_code) fprintf(to, "%s %zu not LOINC 2951-2 or 2947-0", sep, f->other_code), sep = ",";
+    if (f->withdrawn) fprintf(to, "%s %zu entered-in-error or cancelled", sep, f->withdrawn);
+    fputc('\n', to);
 }
