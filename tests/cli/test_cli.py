@@ -3,7 +3,7 @@
 """Test of natremia-course, the command-line program (bindings/cli,
 docs/cli.md).
 
-    test_cli.py <path of natremia-course>
+    test_cli.py <path of natremia-course> <docs/cli.md> [--update-docs]
 
 with the Python binding importable (PYTHONPATH=bindings/python) and
 NATREMIA_LIBRARY naming the built library, as meson sets them.
@@ -16,6 +16,9 @@ NATREMIA_LIBRARY naming the built library, as meson sets them.
 3. Bad input: every refusal names the line and column, with the exit
    status docs/cli.md documents.
 4. The caution on every output.
+5. The examples of docs/cli.md: each command is run again on the page's
+   own input files and its output compared with the page's text
+   (--update-docs writes the program's output into the page instead).
 
 All patients and results below are invented for this test.
 """
@@ -24,13 +27,18 @@ import csv
 import io
 import json
 import math
+import os
+import re
 import subprocess
 import sys
+import tempfile
 from datetime import datetime
 
 import natremia
 
-PROGRAM = sys.argv[1]
+PROGRAM = os.path.abspath(sys.argv[1])
+DOCS_PAGE = sys.argv[2]
+UPDATE_DOCS = "--update-docs" in sys.argv[3:]
 CAUTION = ("estimates for decision support, not orders; verify with measured "
            "values; follow local protocols and licensed clinical judgement")
 FIGURES = ("elapsed_h", "max_rise_24h", "max_rise_48h", "max_fall_24h",
@@ -231,22 +239,22 @@ def one(preset, series):
 
 # A rise of more than 10 mmol/L within 24 h is over the limit of the
 # European guideline (Spasovski G et al. Eur J Endocrinol 2014;170:G1-G47,
-# as summarised in George JC et al. Clin J Am Soc Nephrol 2018;
-# /work/shared/sources.md "correction limits"); exactly 10 is not.
+# as summarised in George JC et al. Clin J Am Soc Nephrol 2018; checked
+# in the project's shared source list, "correction limits"); exactly 10 is not.
 rc, flags = one("hypo_standard", [(0, 110.0), (24, 121.0)])
 check("rise_over_24h" in flags, "110 -> 121 in 24 h flagged rise_over_24h (Spasovski 2014)")
 rc, flags = one("hypo_standard", [(0, 110.0), (24, 120.0)])
 check("rise_over_24h" not in flags, "110 -> 120 in 24 h (10, the limit) not flagged (Spasovski 2014)")
 # US panel at high risk of osmotic demyelination: at most 8 in any 24 h
 # (Verbalis JG et al. Am J Med 2013;126 Suppl 1, as summarised in George
-# 2018; sources.md "correction limits").
+# 2018; shared source list, "correction limits").
 rc, flags = one("hypo_high_risk", [(0, 110.0), (12, 114.0), (24, 119.0)])
 check("rise_over_24h" in flags, "a rise of 9 in 24 h flagged at high risk (Verbalis 2013)")
 rc, flags = one("hypo_standard", [(0, 110.0), (12, 114.0), (24, 119.0)])
 check("rise_over_24h" not in flags, "the same rise of 9 within the standard limit of 10")
 # Chronic hypernatraemia: lower by at most about 10 mmol/L a day; hours-old
 # faster, about 1 mmol/L/h (Adrogue HJ, Madias NE. N Engl J Med
-# 2000;342:1493-9; sources.md "hypernatraemia pace").
+# 2000;342:1493-9; shared source list, "hypernatraemia pace").
 rc, flags = one("hyper_chronic", [(0, 160.0), (12, 154.0), (24, 148.0)])
 check("fall_over_24h" in flags, "160 -> 148 in 24 h flagged fall_over_24h, chronic (Adrogue 2000)")
 rc, flags = one("hyper_acute", [(0, 160.0), (12, 154.0), (24, 148.0)])
@@ -334,6 +342,60 @@ check(rc == 0 and CAUTION in out and csv_rows(out) == [], "a header alone: no pa
 for opt in ("--help", "--version"):
     rc, out, _ = run([opt])
     check(rc == 0 and CAUTION in out, "%s: exit 0 with the caution" % opt)
+
+
+# ---- 5. the examples of docs/cli.md ----------------------------------------------
+
+MARKER = re.compile(r"^<!-- cli-example (input (\S+)|run|output) -->$")
+
+
+def doc_examples(lines):
+    """(kind, name, first line, end line) of each marked fenced block; the
+    block's body is lines[first:end]."""
+    found, k = [], 0
+    while k < len(lines):
+        m = MARKER.match(lines[k])
+        if m and k + 1 < len(lines) and lines[k + 1].startswith("```"):
+            end = k + 2
+            while end < len(lines) and lines[end] != "```":
+                end += 1
+            found.append((m.group(1).split()[0], m.group(2), k + 2, end))
+            k = end
+        k += 1
+    return found
+
+
+with open(DOCS_PAGE, encoding="utf-8") as fh:
+    page = fh.read().split("\n")
+blocks = doc_examples(page)
+check(sum(1 for b in blocks if b[0] == "run") >= 4, "docs/cli.md has its examples marked")
+replacements = []
+with tempfile.TemporaryDirectory() as scratch:
+    env = dict(os.environ, PATH=os.path.dirname(PROGRAM) + os.pathsep + os.environ.get("PATH", ""))
+    for n, (kind, name, first, end) in enumerate(blocks):
+        body = "\n".join(page[first:end])
+        if kind == "input":
+            with open(os.path.join(scratch, name), "w", encoding="utf-8") as fh:
+                fh.write(body + "\n")
+        elif kind == "run":
+            nxt = blocks[n + 1] if n + 1 < len(blocks) else None
+            if nxt is None or nxt[0] != "output":
+                check(False, "docs/cli.md: the command %r has its output block" % body)
+                continue
+            got = subprocess.run(["bash", "-c", body], cwd=scratch, env=env, capture_output=True,
+                                 text=True, timeout=60).stdout.rstrip("\n")
+            shown = "\n".join(page[nxt[2]:nxt[3]])
+            if UPDATE_DOCS:
+                replacements.append((nxt[2], nxt[3], got.split("\n")))
+            else:
+                check(got == shown, "docs/cli.md: the output of %r is the program's%s"
+                      % (body, "" if got == shown else "\n--- page:\n%s\n--- program:\n%s" % (shown, got)))
+if UPDATE_DOCS:
+    for first, end, text in reversed(replacements):
+        page[first:end] = text
+    with open(DOCS_PAGE, "w", encoding="utf-8") as fh:
+        fh.write("\n".join(page))
+    print("docs/cli.md: %d outputs written" % len(replacements))
 
 if failures:
     print("%d check(s) failed" % failures)
