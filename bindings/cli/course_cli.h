@@ -67,6 +67,8 @@ typedef struct nc_table {
     size_t slot_cap;      /* a power of two */
     size_t unattributed;  /* refused rows with no usable patient id */
     size_t skipped;       /* rows skipped on purpose (FHIR: not a sodium result) */
+    char time_place[96];  /* where a row's time is: "column hours", "member effectiveDateTime" */
+    char sodium_place[96];
     int out_of_memory;
 } nc_table;
 

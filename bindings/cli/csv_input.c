@@ -136,6 +136,9 @@ static int read_header(nc_csv *c, char *line, size_t len, size_t line_no)
         return NC_EXIT_INPUT;
     }
     c->t->timed = c->col[NC_ROLE_TIME] >= 0;
+    snprintf(c->t->time_place, sizeof c->t->time_place, "column %s",
+             c->name[c->t->timed ? NC_ROLE_TIME : NC_ROLE_HOURS]);
+    snprintf(c->t->sodium_place, sizeof c->t->sodium_place, "column %s", c->name[NC_ROLE_SODIUM]);
     c->fields = (size_t)n;
     c->have_header = 1;
     c->header_line = line_no;

@@ -36,6 +36,8 @@ nc_fhir *nc_fhir_new(nc_table *t)
     f->doc.cap = NC_FHIR_NODES;
     f->t = t;
     t->timed = 1; /* effectiveDateTime: hours counted from each patient's first */
+    snprintf(t->time_place, sizeof t->time_place, "member effectiveDateTime");
+    snprintf(t->sodium_place, sizeof t->sodium_place, "member valueQuantity.value");
     return f;
 }
 

@@ -270,7 +270,7 @@ static int read_input(FILE *f, const nc_options *o, nc_table *t)
         if (input == 0) input = line[strspn(line, " \t")] == '{' ? 2 : 1;
         ++seen;
         if (input == 1) {
-            if (line[0] == '#') continue;
+            if (line[0] == '#' && !csv.have_header) continue; /* comments only above the header */
             status = nc_csv_line(&csv, line, len, in.line_no);
         } else {
             if (fhir == NULL && (fhir = nc_fhir_new(t)) == NULL) t->out_of_memory = 1;
@@ -304,24 +304,23 @@ static void blame_sample(const nc_table *t, const nc_row *const *rows, const ntr
 {
     ntr_course_report r;
     size_t i;
-    const char *time_col = t->timed ? "time" : "hours";
     for (i = 0; i < n; ++i) {
         ntr_sample alone = s[i], na_only = {0.0, s[i].na_mmol_l};
         r.struct_size = sizeof r;
         if (ntr_course_assess(&alone, 1, lim, &r) == NTR_OK) continue;
         r.struct_size = sizeof r;
         if (ntr_course_assess(&na_only, 1, lim, &r) != NTR_OK)
-            snprintf(why, cap, "line %zu, column sodium: %.17g mmol/L: %s", rows[i]->line,
-                     s[i].na_mmol_l, ntr_status_message(status));
+            snprintf(why, cap, "line %zu, %s: %.17g mmol/L: %s", rows[i]->line,
+                     t->sodium_place, s[i].na_mmol_l, ntr_status_message(status));
         else
-            snprintf(why, cap, "line %zu, column %s: %.17g h: %s", rows[i]->line, time_col,
+            snprintf(why, cap, "line %zu, %s: %.17g h: %s", rows[i]->line, t->time_place,
                      s[i].hours, ntr_status_message(status));
         return;
     }
     for (i = 1; i < n; ++i) {
         if (s[i].hours >= s[i - 1].hours) continue;
-        snprintf(why, cap, "line %zu, column %s: earlier than line %zu (%.17g h before it): "
-                 "%s; sort each patient's results by time", rows[i]->line, time_col,
+        snprintf(why, cap, "line %zu, %s: earlier than line %zu (%.17g h before it): "
+                 "%s; sort each patient's results by time", rows[i]->line, t->time_place,
                  rows[i - 1]->line, s[i - 1].hours - s[i].hours, ntr_status_message(status));
         return;
     }

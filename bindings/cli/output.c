@@ -64,11 +64,12 @@ static void number(FILE *out, double v)
     fputs(buf, out);
 }
 
-/* A CSV field, quoted when it holds a comma, quote, line break or edge space. */
+/* A CSV field, quoted when it holds a comma, quote, line break or edge
+ * space, or starts with # (a row would otherwise read as a comment). */
 static void csv_text(FILE *out, const char *s)
 {
     size_t n = strlen(s);
-    if (strpbrk(s, ",\"\r\n") == NULL && (n == 0 || (s[0] != ' ' && s[n - 1] != ' ') )) {
+    if (strpbrk(s, ",\"\r\n") == NULL && (n == 0 || (s[0] != ' ' && s[0] != '#' && s[n - 1] != ' '))) {
         fputs(s, out);
         return;
     }

@@ -322,7 +322,37 @@ refused(["--preset", "hypo_standard"],
 refused(["--preset", "hypo_standard"],
         observation("x", "2026-01-01T09:00Z", 120, "mmol/L") + "\n" +
         observation("x", "2026-01-01T08:00Z", 121, "mmol/L") + "\n", 1,
-        "line 2, column time: earlier than line 1", label="NDJSON out of time order")
+        "line 2, member effectiveDateTime: earlier than line 1", label="NDJSON out of time order")
+refused(["--goal", "raise"], "patient,hours,sodium,Sodium\nA,0,120,121\n", 3,
+        "line 1 (the header): column 'sodium' appears twice", label="a column twice")
+refused(["--goal", "raise"], "patient,hours,time,sodium\nA,0,2026-01-01T00:00Z,120\n", 3,
+        "both column 'hours' and 'time'", label="both hours and time")
+refused(["--goal", "raise"], "patient,hours,sodium\nA,0,12\0\n", 1,
+        "line 2, character 1: a NUL byte", label="a NUL byte")
+refused(["--preset", "hypo_standard"],
+        observation("x", "2026-01-01T08:00Z", 120, "mmol/L").replace('"status"', '"subject": {}, "status"', 1)
+        + "\n", 1, "line 1, member subject.reference: appears twice", label="NDJSON member twice")
+refused(["--preset", "hypo_standard"],
+        observation("x", "2026-01-01T08:00Z", 120, "mmol/L").replace('"value"', '"comparator": "<", "value"')
+        + "\n", 1, "line 1, member valueQuantity.comparator", label="NDJSON comparator")
+refused(["--preset", "hypo_standard"], '{"a": ' * 40 + "1" + "}" * 40 + "\n", 1,
+        "line 1, character", "nested too deeply", label="NDJSON nested beyond the bound")
+# renamed columns are found by their names, and named in refusals
+rc, out, err = run(["--goal", "raise", "--column", "patient=mrn", "--column=sodium=na_mmol_l"],
+                   "MRN,hours,NA_mmol_l\ninv-9,0,118\ninv-9,4,x\n")
+check(rc == 1 and "line 3, column na_mmol_l: 'x' is not a number" in err,
+      "--column: the renamed column is read, and named in a refusal")
+refused(["--goal", "raise", "--column", "sodium=na"], "patient,hours,na\nA,0,120\nA,6,300\n", 1,
+        "line 3, column na: 300 mmol/L", label="a range refusal names the renamed column")
+refused(["--goal", "raise", "--column", "weight=kg"], "", 2, "--column 'weight=kg'", label="unknown role")
+# a byte order mark, CRLF, names in another case, quoted fields, a patient
+# id starting with # below the header (data, not a comment)
+rc, out, err = run(["--goal", "raise"],
+                   "\ufeff# invented\r\nPatient , Hours,SODIUM\r\n\"#7\",0,\"118.5\"\r\n#7,24,126\r\n")
+rows = csv_rows(out)
+check(rc == 0 and len(rows) == 1 and rows[0]["patient"] == "#7" and rows[0]["samples"] == "2"
+      and float(rows[0]["max_rise_24h"]) == 126 - 118.5,
+      "BOM, CRLF, header case and spaces, quotes, '#' ids below the header (stderr %r)" % err)
 # an entered-in-error result is not a measurement: skipped, not assessed
 rc, out, err = run(["--preset", "hypo_standard"],
                    observation("x", "2026-01-01T08:00Z", 120, "mmol/L") + "\n" +
