@@ -151,7 +151,8 @@ static int parse_options(int argc, char **argv, nc_options *o)
             o->goal = k + 1;
             handled = 1;
         } else if (!missing && (v = option_value(argc, argv, &i, "--preset", &missing)) != NULL) {
-            for (k = 0; k < (int)PRESET_COUNT && strcmp(v, presets[k].name) != 0; ++k) continue;
+            k = 0;
+            while (k < (int)PRESET_COUNT && strcmp(v, presets[k].name) != 0) ++k;
             if (k == (int)PRESET_COUNT)
                 return usage_error("--preset '%s' is not hypo_standard, hypo_high_risk, "
                                    "hyper_chronic, hyper_acute or hold", v);
@@ -193,8 +194,10 @@ static int make_setup(const nc_options *o, nc_setup *s)
     double *member[5];
     long idx = o->preset;
     int k, st, changed = 0;
-    if (idx < 0)
-        for (idx = 0; presets[idx].goal != o->goal; ++idx) continue; /* the goal's first preset */
+    if (idx < 0) { /* the goal's first preset */
+        idx = 0;
+        while (presets[idx].goal != o->goal) ++idx;
+    }
     if (o->goal != 0 && presets[idx].goal != o->goal) {
         fprintf(stderr, "%s: --preset %s is for goal %s, not %s\n(%s --help shows the usage)\n",
                 NC_PROGRAM, presets[idx].name, goal_names[presets[idx].goal],

@@ -4,6 +4,7 @@
  * double, so a script gets the library's figures exactly. */
 #include "course_cli.h"
 
+#include <math.h>
 #include <stdlib.h>
 #include <string.h>
 
@@ -55,7 +56,7 @@ static void number(FILE *out, double v)
 {
     char buf[40];
     int digits;
-    if (v == 0.0) v = 0.0; /* no "-0" */
+    if (v == 0.0) v = fabs(v); /* no "-0" */
     for (digits = 15; digits < 17; ++digits) {
         snprintf(buf, sizeof buf, "%.*g", digits, v);
         if (strtod(buf, NULL) == v) break;
