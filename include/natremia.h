@@ -161,7 +161,7 @@ NTR_API int ntr_unit_parse(const char *ucum, int *unit);
  *   "mosmol/kg{h2o}", "mosmol/kg h2o" give @ref NTR_UNIT_MOSM_KG
  *   ("mOsm/kg", "mosm/kg H2O", "mOsm/kg{H2O}", "mOsmol/kg")
  * - "g/l" gives @ref NTR_UNIT_G_L ("g/L", "g/l", "G/L")
- * - "umol/l" gives @ref NTR_UNIT_UMOL_L ("umol/L", "µmol/L", "μmol/L")
+ * - "umol/l" gives @ref NTR_UNIT_UMOL_L ("umol/L", and with the micro sign or mu for u)
  *
  * Everything else is refused, in particular what could mean two things:
  * "mosm/l" (an osmolarity, per litre of solution, not the osmolality per
