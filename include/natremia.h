@@ -266,10 +266,12 @@ NTR_API int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
  * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600
  *                         mOsm/kg, or exactly 0 when not measured.
  * @param[out] glucose_mmol_l the glucose in mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_UNIT (a unit that is not a glucose unit; or, after every
- *         range check, a glucose that the rules above refuse),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            converted and consistent with its unit.
+ * @retval NTR_ERR_NULL      @p glucose_mmol_l is NULL.
+ * @retval NTR_ERR_UNIT      @p unit is not a glucose unit; or, after every
+ *                           range check, the rules above refuse the glucose.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its range.
  *
  * Reference: Dorwart WV, Chalmers L. Comparison of methods for
  * calculating serum osmolality from chemical concentrations. Clin Chem
