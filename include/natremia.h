@@ -216,7 +216,7 @@ NTR_API int ntr_unit_parse_lenient(const char *text, int *unit);
  * value's own unit (ntr_unit_parse_lenient()) and use this one to check
  * that the two agree in kind. The code must be given exactly (digits, the
  * hyphen and the check digit, no blanks); it is read up to its NUL and
- * never more than 11 bytes.
+ * never more than 8 bytes (the longest code, 7 characters, and its NUL).
  *
  * @param code  NUL-terminated LOINC code, e.g. "2951-2".
  * @param[out] analyte  one of NTR_ANALYTE_*.
