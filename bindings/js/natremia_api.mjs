@@ -27,6 +27,12 @@ export const api = {
   "NTR_ANALYTE_UREA_NITROGEN": 6,
   "NTR_ANALYTE_CREATININE": 7,
   "NTR_ANALYTE_ETHANOL": 8,
+  "NTR_ANALYTE_OSMOLALITY": 9,
+  "NTR_ANALYTE_URIC_ACID": 10,
+  "NTR_SPECIMEN_SERUM_PLASMA": 1,
+  "NTR_SPECIMEN_BLOOD": 2,
+  "NTR_SPECIMEN_URINE": 3,
+  "NTR_UNIT_TEXT_MAX": 32,
   "NTR_OSM_2NA": 1,
   "NTR_OSM_DORWART_CHALMERS": 2,
   "NTR_GLUCOSE_KATZ": 1,
@@ -196,6 +202,8 @@ export const api = {
   "NTR_METHOD_INFUSATE_VOLUME": 16,
   "NTR_METHOD_FURST": 17,
   "NTR_METHOD_EFWC": 18,
+  "NTR_METHOD_LOINC_MAP": 19,
+  "NTR_METHOD_GLUCOSE_UNIT_CHECK": 20,
   "NTR_METHOD_LIMITS_STANDARD": 30,
   "NTR_METHOD_LIMITS_HIGH_RISK": 31,
   "NTR_METHOD_ODS_RISK": 32,
@@ -1145,6 +1153,83 @@ export const api = {
     {
      "name": "unit",
      "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_unit_parse_lenient",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "text",
+     "type": "char",
+     "pointer": 1,
+     "const": true
+    },
+    {
+     "name": "unit",
+     "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_loinc_lookup",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "code",
+     "type": "char",
+     "pointer": 1,
+     "const": true
+    },
+    {
+     "name": "analyte",
+     "type": "int",
+     "pointer": 1
+    },
+    {
+     "name": "specimen",
+     "type": "int",
+     "pointer": 1
+    },
+    {
+     "name": "unit",
+     "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_glucose_unit_check",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "glucose",
+     "type": "double"
+    },
+    {
+     "name": "unit",
+     "type": "int"
+    },
+    {
+     "name": "na_mmol_l",
+     "type": "double"
+    },
+    {
+     "name": "measured_osm_mosm_kg",
+     "type": "double"
+    },
+    {
+     "name": "glucose_mmol_l",
+     "type": "double",
      "pointer": 1
     }
    ]
