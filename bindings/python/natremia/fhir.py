@@ -48,15 +48,14 @@ with measured values; follow local protocols and licensed clinical
 judgement.
 """
 
-import ctypes
 import datetime as _dt
 import json
 import math
 import re
 from dataclasses import dataclass, field
 
-from . import _core
-from ._core import NatremiaError, OK, ERR_UNIT
+from . import _core, _units
+from ._core import NatremiaError, ERR_UNIT
 
 LOINC_SYSTEM = "http://loinc.org"
 UCUM_SYSTEM = "http://unitsofmeasure.org"
@@ -67,12 +66,12 @@ UCUM_SYSTEM = "http://unitsofmeasure.org"
 # carry no usable result.
 USABLE_STATUS = ("final", "amended", "corrected", "preliminary")
 
-# NTR_SPECIMEN_* (include/natremia.h) by name.
-SPECIMENS = {1: "serum_plasma", 2: "blood", 3: "urine"}
+# NTR_SPECIMEN_* (natremia.Specimen) by the name Result.specimen carries.
+SPECIMENS = {int(m): m.name.lower() for m in _units.Specimen}
 
-# NTR_ANALYTE_* added in 1.1, in case the Analyte enum of this package
-# does not list them yet.
-_ANALYTES_1_1 = {9: "osmolality", 10: "uric_acid"}
+# NTR_ANALYTE_* added in 1.1, which the Analyte enum may not list.
+_ANALYTES_1_1 = {_units.ANALYTE_OSMOLALITY: "osmolality",
+                 _units.ANALYTE_URIC_ACID: "uric_acid"}
 
 # The kind of unit a LOINC property implies (the unit ntr_loinc_lookup
 # gives) and the units of the same kind a value may be sent in.
@@ -86,7 +85,7 @@ _UNIT_KIND = {
 }
 
 # natremia's input unit of each analyte: mmol/L, or mOsm/kg.
-_OSMOLALITY = 9
+_OSMOLALITY = _units.ANALYTE_OSMOLALITY
 
 
 def _analyte_name(code):
@@ -97,63 +96,34 @@ def _analyte_name(code):
 
 
 # ---------------------------------------------------------------------------
-# The C library's decisions: LOINC code and unit text
+# The C library's decisions: LOINC code and unit text (natremia._units)
 # ---------------------------------------------------------------------------
-
-_c_functions = {}
-
-
-def _c(name, argtypes):
-    fn = _c_functions.get(name)
-    if fn is None:
-        try:
-            fn = _core._lib_function(name)
-        except AttributeError:
-            raise AttributeError(
-                "%s is not in the loaded libnatremia (version %s): natremia.fhir "
-                "needs natremia 1.1 with the LOINC map" % (name, _core.version())
-            ) from None
-        fn.restype = ctypes.c_int
-        fn.argtypes = argtypes
-        _c_functions[name] = fn
-    return fn
-
 
 def loinc_lookup(code):
     """(analyte, specimen, unit) of a LOINC code as ints (NTR_ANALYTE_*,
-    NTR_SPECIMEN_*, NTR_UNIT_*), from ntr_loinc_lookup; None when the
-    library does not map the code."""
+    NTR_SPECIMEN_*, NTR_UNIT_*), decided by ntr_loinc_lookup through
+    natremia.loinc_lookup; None when the library does not map the code."""
     if not isinstance(code, str):
         return None
     try:
-        raw = code.encode("ascii")
-    except UnicodeEncodeError:
-        return None
-    analyte, specimen, unit = ctypes.c_int(), ctypes.c_int(), ctypes.c_int()
-    pi = ctypes.POINTER(ctypes.c_int)
-    status = _c("ntr_loinc_lookup", [ctypes.c_char_p, pi, pi, pi])(
-        raw, ctypes.byref(analyte), ctypes.byref(specimen), ctypes.byref(unit))
-    if status == ERR_UNIT:
-        return None
-    if status != OK:
-        raise NatremiaError(status, "fhir.loinc_lookup", argument="code",
-                            value=code)
-    return analyte.value, specimen.value, unit.value
+        info = _units.loinc_lookup(code)
+    except NatremiaError as err:
+        if err.status == ERR_UNIT:
+            return None
+        raise
+    return int(info.analyte), int(info.specimen), int(info.unit)
 
 
 def unit_lenient(text):
-    """NTR_UNIT_* of a unit text as laboratories spell it, from
-    ntr_unit_parse_lenient; None when the library does not read it."""
+    """NTR_UNIT_* of a unit text as laboratories spell it, decided by
+    ntr_unit_parse_lenient through natremia.unit_parse_lenient; None when
+    the library does not read it."""
     if not isinstance(text, str):
         return None
-    raw = text.encode("utf-8")
-    if b"\0" in raw:
+    try:
+        return int(_units.unit_parse_lenient(text))
+    except NatremiaError:
         return None
-    unit = ctypes.c_int()
-    status = _c("ntr_unit_parse_lenient",
-                [ctypes.c_char_p, ctypes.POINTER(ctypes.c_int)])(
-        raw, ctypes.byref(unit))
-    return unit.value if status == OK else None
 
 
 # ---------------------------------------------------------------------------
