@@ -305,6 +305,14 @@ def worker_environ_without_trim():
     return environ
 
 
+def environ_value(name):
+    """An environment variable of the process that runs this: give it to
+    client.run to read each worker's own (os.environ.get itself would be
+    pickled with the caller's environment)."""
+    import os
+    return os.environ.get(name)
+
+
 def local_cluster(workers, threads, dask_malloc_trim=False):
     """Worker processes on loopback only; no dashboard (it would need
     bokeh, and nothing here serves a web page). Without dask_malloc_trim
@@ -313,13 +321,25 @@ def local_cluster(workers, threads, dask_malloc_trim=False):
     sets is inherited either way."""
     import dask
     from dask.distributed import Client, LocalCluster
+    import os
     config = {} if dask_malloc_trim else {
         "distributed.nanny.pre-spawn-environ": worker_environ_without_trim()}
-    with dask.config.set(config):
-        cluster = LocalCluster(n_workers=workers, threads_per_worker=threads,
-                               processes=True, host="127.0.0.1",
-                               dashboard_address=None,
-                               silence_logs=logging.ERROR)
+    # The nannies of a LocalCluster run in this process and write their
+    # pre-spawn environment into os.environ, where any worker started
+    # later (another cluster's) would inherit it: put ours back.
+    saved = os.environ.get(MALLOC_VARIABLE)
+    try:
+        with dask.config.set(config):
+            cluster = LocalCluster(n_workers=workers,
+                                   threads_per_worker=threads,
+                                   processes=True, host="127.0.0.1",
+                                   dashboard_address=None,
+                                   silence_logs=logging.ERROR)
+    finally:
+        if saved is None:
+            os.environ.pop(MALLOC_VARIABLE, None)
+        else:
+            os.environ[MALLOC_VARIABLE] = saved
     return cluster, Client(cluster)
 
 

@@ -6,13 +6,15 @@ environment (distributed.nanny.pre-spawn-environ); examples/cohort_dask.py
 starts its LocalCluster workers without it unless --dask-malloc-trim is
 given. Measured side by side on the same invented cohort (same seed):
 
-1. "example": the example end to end on a LocalCluster of 2 worker
-   processes, both ways, alternating so that a busy moment of the machine
-   hits both alike; the figure is the example's own "Assessed in" time
-   (the map_partitions computation; cluster start-up excluded), the median
-   of REPEATS runs each. With --before FILE, an earlier version of the
-   example (for instance `git show 60cda71:examples/cohort_dask.py`) is
-   run the same way, with Dask's defaults, as a third configuration.
+1. "example": the example's map_partitions computation (run_dask) on a
+   LocalCluster of 2 worker processes, both ways, alternating so that a
+   busy moment of the machine hits both alike (imports done beforehand):
+   the elapsed time and the workers' CPU time (user + system, getrusage in each worker, summed),
+   median of REPEATS runs each. Each cluster's workers are asked for their
+   MALLOC_TRIM_THRESHOLD_ so the configuration is checked, not assumed.
+   With --before FILE, an earlier version of the example (for instance
+   `git show 60cda71:examples/cohort_dask.py > /tmp/before.py`) is run the
+   same way on a cluster with Dask's defaults, as a third configuration.
 2. "worker": what one worker does, alone: generating and assessing 8
    partitions of 31,250 patients in a fresh process, with and without
    MALLOC_TRIM_THRESHOLD_=65536 in its environment; the figure is the
@@ -22,13 +24,12 @@ given. Measured side by side on the same invented cohort (same seed):
     NATREMIA_LIBRARY=build/lib/libnatremia.so.1 PYTHONPATH=bindings/python \\
         /usr/bin/python3 tests/bench/bench_dask.py [--patients N] [--repeats R] [--before FILE]
 
-Prints JSON (defaults: 1000000 patients, 3 repeats). Every patient is
+Prints JSON (defaults: 200000 patients, 3 repeats). Every patient is
 invented.
 """
 import argparse
 import json
 import os
-import re
 import statistics
 import subprocess
 import sys
@@ -55,14 +56,51 @@ def clean_env(**extra):
     return env
 
 
-def example_seconds(script, args, patients):
-    out = subprocess.run([sys.executable, script, "--patients", str(patients),
-                          "--partitions", "32"] + args, env=clean_env(),
-                         check=True, capture_output=True, text=True).stdout
-    match = re.search(r"Assessed in ([0-9.]+) s", out)
-    if match is None:
-        sys.exit("no timing in the output of %s:\n%s" % (script, out))
-    return float(match.group(1))
+def rusage_seconds():
+    import resource
+    r = resource.getrusage(resource.RUSAGE_SELF)
+    return r.ru_utime + r.ru_stime
+
+
+def load_module(path, name):
+    import importlib.util
+    spec = importlib.util.spec_from_file_location(name, path)
+    module = importlib.util.module_from_spec(spec)
+    sys.modules[name] = module
+    spec.loader.exec_module(module)
+    # The workers cannot import it by name: send its functions by value.
+    import cloudpickle
+    cloudpickle.register_pickle_by_value(module)
+    return module
+
+
+def example_run(module, trim, patients):
+    """(elapsed s, workers' CPU s) of one run_dask on a fresh cluster."""
+    import time
+    now = sys.modules["cohort_dask"]
+    cluster, client = now.local_cluster(2, 1, dask_malloc_trim=trim)
+    try:
+        seen = set(client.run(now.environ_value, VARIABLE).values())
+        if seen != {DASK_VALUE if trim else None}:
+            sys.exit("workers have %s=%r, expected %r" % (
+                VARIABLE, seen, DASK_VALUE if trim else None))
+        # Imports out of the measurement (a fresh worker imports pandas,
+        # numpy and natremia on its first task).
+        import importlib
+        for name in ("pandas", "numpy", "natremia.arrays", "dask.dataframe"):
+            client.run(importlib.import_module, name)
+        before = sum(client.run(rusage_seconds).values())
+        start = time.perf_counter()
+        if hasattr(module, "cohort"):
+            module.run_dask(patients, 32, 20240607, "per_patient")
+        else:  # the earlier example: client.map over partitions
+            module.run_dask(client, patients, 32, 20240607, "per_patient")
+        elapsed = time.perf_counter() - start
+        cpu = sum(client.run(rusage_seconds).values()) - before
+    finally:
+        client.close()
+        cluster.close()
+    return elapsed, cpu
 
 
 def worker_seconds(trim):
@@ -75,42 +113,54 @@ def worker_seconds(trim):
 
 def main():
     parser = argparse.ArgumentParser()
-    parser.add_argument("--patients", type=int, default=1_000_000)
+    parser.add_argument("--patients", type=int, default=200_000)
     parser.add_argument("--repeats", type=int, default=3)
     parser.add_argument("--before", metavar="FILE",
                         help="an earlier cohort_dask.py, run with Dask's defaults")
     args = parser.parse_args()
-
-    configs = {"with_dask_malloc_trim": (example, ["--dask-malloc-trim"]),
-               "without_malloc_trim": (example, [])}
+    os.environ.pop(VARIABLE, None)
+    # Worker processes import the example module by name.
+    os.environ["PYTHONPATH"] = os.pathsep.join(
+        [examples] + [p for p in os.environ.get("PYTHONPATH", "").split(os.pathsep) if p])
+    sys.path.insert(0, examples)
+    import cohort_dask
+    configs = {"with_dask_malloc_trim": (cohort_dask, True),
+               "without_malloc_trim": (cohort_dask, False)}
     if args.before:
-        configs["before_with_dask_defaults"] = (args.before, [])
-    runs = {name: [] for name in configs}
+        configs["before_with_dask_defaults"] = (
+            load_module(args.before, "cohort_dask_before"), True)
+
+    runs = {name: {"elapsed": [], "worker_cpu": []} for name in configs}
     worker = {"with_malloc_trim": [], "without_malloc_trim": []}
     for _ in range(args.repeats):
-        for name, (script, extra) in configs.items():
-            runs[name].append(example_seconds(script, extra, args.patients))
-        worker["with_malloc_trim"].append(worker_seconds(True))
-        worker["without_malloc_trim"].append(worker_seconds(False))
+        for name, (module, trim) in configs.items():
+            elapsed, cpu = example_run(module, trim, args.patients)
+            runs[name]["elapsed"].append(round(elapsed, 3))
+            runs[name]["worker_cpu"].append(round(cpu, 3))
+        worker["with_malloc_trim"].append(round(worker_seconds(True), 3))
+        worker["without_malloc_trim"].append(round(worker_seconds(False), 3))
 
-    med = {name: statistics.median(v) for name, v in runs.items()}
+    def med(name, key):
+        return statistics.median(runs[name][key])
+
+    example = {"patients": args.patients, "partitions": 32, "workers": 2,
+               "repeats": args.repeats, "runs": runs}
+    for key in ("elapsed", "worker_cpu"):
+        example["ratio_with_over_without_" + key] = round(
+            med("with_dask_malloc_trim", key) / med("without_malloc_trim", key), 2)
+        if args.before:
+            example["ratio_before_over_now_" + key] = round(
+                med("before_with_dask_defaults", key)
+                / med("without_malloc_trim", key), 2)
     wmed = {name: statistics.median(v) for name, v in worker.items()}
     report = {
-        "example": {"patients": args.patients, "partitions": 32,
-                    "workers": 2, "repeats": args.repeats,
-                    "assessed_in_seconds": runs, "median_seconds": med,
-                    "ratio_with_over_without": round(
-                        med["with_dask_malloc_trim"]
-                        / med["without_malloc_trim"], 2)},
+        "example": example,
         "worker": {"partitions": 8, "patients_per_partition": 31250,
-                   "cpu_seconds": worker, "median_cpu_seconds": wmed,
+                   "cpu_seconds": worker,
                    "ratio_with_over_without": round(
                        wmed["with_malloc_trim"] / wmed["without_malloc_trim"],
                        2)},
     }
-    if args.before:
-        report["example"]["ratio_before_over_now"] = round(
-            med["before_with_dask_defaults"] / med["without_malloc_trim"], 2)
     print(json.dumps(report, indent=2))
 
 

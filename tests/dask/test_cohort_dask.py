@@ -131,11 +131,12 @@ def main():
         check(all(addr.startswith("tcp://127.0.0.1:")
                   for addr in client.scheduler_info()["workers"]),
               "workers listen on loopback")
-        trim = client.run(os.environ.get, cohort_dask.MALLOC_VARIABLE)
+        trim = client.run(cohort_dask.environ_value,
+                          cohort_dask.MALLOC_VARIABLE)
         check(len(trim) == 2 and all(v is None for v in trim.values()),
               "the workers run without Dask's MALLOC_TRIM_THRESHOLD_ (%r)"
               % (trim,))
-        omp = client.run(os.environ.get, "OMP_NUM_THREADS")
+        omp = client.run(cohort_dask.environ_value, "OMP_NUM_THREADS")
         check(all(v == "1" for v in omp.values()),
               "Dask's other worker settings are kept (OMP_NUM_THREADS=1)")
         results = {preset: cohort_dask.run_dask(PATIENTS, PARTITIONS, SEED,

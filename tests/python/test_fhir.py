@@ -286,6 +286,46 @@ class Structure(unittest.TestCase):
         self.assertEqual([s.reason for s in reading.skipped],
                          ["entry without a resource"])
 
+    def test_time_from_the_diagnostic_report(self):
+        # An invented report listing three Observations without an
+        # effective time of their own (as laboratory report Bundles often
+        # send them): the report's effectiveDateTime comes after the
+        # Observation's own effective[x] and before its issued.
+        def bare(oid, **over):
+            o = {k: v for k, v in self.obs(id=oid).items()
+                 if k != "effectiveDateTime"}
+            o.update(over)
+            return o
+        report = {"resourceType": "DiagnosticReport", "id": "r",
+                  "status": "final",
+                  "effectiveDateTime": "2026-01-02T03:00:00Z",
+                  "result": [{"reference": "Observation/o1"},
+                             {"reference": "urn:invented:o2"},
+                             {"reference": "Observation/o3"},
+                             {"reference": "https://invented.example/fhir/Observation/o4/_history/2"}]}
+        bundle = {"resourceType": "Bundle", "type": "collection", "entry": [
+            {"fullUrl": "https://invented.example/fhir/DiagnosticReport/r",
+             "resource": report},
+            {"fullUrl": "https://invented.example/fhir/Observation/o1",
+             "resource": bare("o1", issued="2026-01-02T09:00:00Z")},
+            {"fullUrl": "urn:invented:o2", "resource": bare("o2")},
+            {"resource": bare("o3", effectiveDateTime="2026-01-02T01:00:00Z")},
+            {"resource": bare("o4")},
+            {"resource": bare("o5", issued="2026-01-02T09:00:00Z")},
+            {"resource": bare("o6")},
+        ]}
+        reading = fhir.read_bundle(bundle)
+        got = {r.id: (r.time.hour, r.time_source) for r in reading.results}
+        self.assertEqual(got, {
+            "o1": (3, "DiagnosticReport.effectiveDateTime"),
+            "o2": (3, "DiagnosticReport.effectiveDateTime"),
+            "o3": (1, "effectiveDateTime"),
+            "o4": (3, "DiagnosticReport.effectiveDateTime"),
+            "o5": (9, "issued")})
+        self.assertEqual([(s.id, s.reason[:7]) for s in reading.skipped],
+                         [("o6", "no time")])
+        self.assertEqual(reading.other_resources, {"DiagnosticReport": 1})
+
     def test_unit_without_system(self):
         obs = self.obs(valueQuantity={"value": 140, "unit": "mEq/L"})
         reading = fhir.read_bundle({"resourceType": "Bundle",

@@ -19,8 +19,11 @@ each Observation that natremia can use:
   converted to natremia's input unit (``ntr_convert``): mmol/L, or mOsm/kg
   for an osmolality.
 - the time: ``effectiveDateTime``, else ``effectiveInstant``, else
-  ``effectivePeriod.start``, else ``issued`` (when the result was released,
-  later than the sample: the fallback is recorded in ``time_source``). A
+  ``effectivePeriod.start``; else, in a Bundle, the effectiveDateTime (or
+  effectivePeriod.start) of a DiagnosticReport of the same Bundle that
+  lists the Observation in its ``result``; else ``issued`` (when the result
+  was released, later than the sample). The element used is recorded in
+  ``Result.time_source``. A
   time must carry its time of day and its offset, as FHIR requires of a
   dateTime with a time; a date alone is refused.
 - ``subject.reference`` names the patient (the reference text as sent,
@@ -138,7 +141,9 @@ class Result:
     for an osmolality); ``sent_value`` and ``sent_unit`` are as the
     Observation sent them. ``time`` is a timezone-aware datetime;
     ``time_source`` the element it came from ("effectiveDateTime",
-    "effectiveInstant", "effectivePeriod.start" or "issued").
+    "effectiveInstant", "effectivePeriod.start",
+    "DiagnosticReport.effectiveDateTime",
+    "DiagnosticReport.effectivePeriod.start" or "issued").
     ``where`` locates the Observation in the input ("entry[3]", "line 7")."""
     patient: str
     analyte: str
@@ -286,10 +291,16 @@ _TIME_ELEMENTS = (("effectiveDateTime", lambda o: o.get("effectiveDateTime")),
                   ("issued", lambda o: o.get("issued")))
 
 
-def _time(obs):
+def _time(obs, report_time=None):
     """(datetime, element) of the first time element present, or raise
-    _Skip naming the element that is unreadable or that none is there."""
-    for name, get in _TIME_ELEMENTS:
+    _Skip naming the element that is unreadable or that none is there.
+    ``report_time``, (text, element) from a DiagnosticReport of the same
+    Bundle listing this Observation, comes after the Observation's own
+    effective[x] and before its issued."""
+    elements = list(_TIME_ELEMENTS)
+    if report_time is not None:
+        elements.insert(3, (report_time[1], lambda o: report_time[0]))
+    for name, get in elements:
         text = get(obs)
         if text is None:
             continue
@@ -298,7 +309,46 @@ def _time(obs):
         except ValueError as err:
             raise _Skip("%s %r is unusable: %s" % (name, text, err)) from None
     raise _Skip("no time (effectiveDateTime, effectiveInstant, "
-                "effectivePeriod.start or issued)")
+                "effectivePeriod.start, a DiagnosticReport's effective time "
+                "or issued)")
+
+
+def _reference_key(text):
+    """A reference or fullUrl reduced to what both forms share: a urn as
+    it is, a URL or relative reference to its last "Type/id"."""
+    if not isinstance(text, str) or not text:
+        return None
+    if text.startswith("urn:"):
+        return text
+    parts = text.rstrip("/").split("/")
+    if len(parts) >= 4 and parts[-2] == "_history":  # Type/id/_history/v
+        parts = parts[:-2]
+    return "/".join(parts[-2:]) if len(parts) >= 2 else None
+
+
+def _report_times(entries):
+    """{reference key: (time text, element)} of the Observations each
+    DiagnosticReport among the entries lists in ``result``, with the
+    report's effectiveDateTime or effectivePeriod.start."""
+    times = {}
+    for entry in entries:
+        report = entry.get("resource") if isinstance(entry, dict) else None
+        if not isinstance(report, dict) or \
+                report.get("resourceType") != "DiagnosticReport":
+            continue
+        when, element = report.get("effectiveDateTime"), \
+            "DiagnosticReport.effectiveDateTime"
+        if when is None and isinstance(report.get("effectivePeriod"), dict):
+            when, element = report["effectivePeriod"].get("start"), \
+                "DiagnosticReport.effectivePeriod.start"
+        if when is None:
+            continue
+        for ref in report.get("result") or ():
+            key = _reference_key(ref.get("reference")
+                                 if isinstance(ref, dict) else None)
+            if key is not None:
+                times.setdefault(key, (when, element))
+    return times
 
 
 # ---------------------------------------------------------------------------
@@ -375,7 +425,7 @@ _UNIT_TEXT = {int(_core.Unit.MMOL_L): "mmol/L",
               int(_core.Unit.MOSM_KG): "mOsm/kg"}
 
 
-def _observation(obs, where):
+def _observation(obs, where, report_time=None):
     """A Result from one Observation, or raise _Skip."""
     status = obs.get("status")
     if status not in USABLE_STATUS:
@@ -391,7 +441,7 @@ def _observation(obs, where):
     patient = subject.get("reference") if isinstance(subject, dict) else None
     if not isinstance(patient, str) or not patient:
         raise _Skip("no subject.reference")
-    time, source = _time(obs)
+    time, source = _time(obs, report_time)
     target = int(_core.Unit.MOSM_KG) if analyte == _OSMOLALITY \
         else int(_core.Unit.MMOL_L)
     try:
@@ -406,7 +456,7 @@ def _observation(obs, where):
                   unit_text, status, obs.get("id"), where)
 
 
-def _add(reading, resource, where):
+def _add(reading, resource, where, report_time=None):
     if not isinstance(resource, dict):
         reading.skipped.append(Skipped(where, None, "not a JSON object"))
         return
@@ -419,7 +469,7 @@ def _add(reading, resource, where):
         reading.other_resources[key] = reading.other_resources.get(key, 0) + 1
         return
     try:
-        reading.results.append(_observation(resource, where))
+        reading.results.append(_observation(resource, where, report_time))
     except _Skip as skip:
         reading.skipped.append(Skipped(where, resource.get("id"), str(skip)))
 
@@ -430,13 +480,23 @@ def _read_bundle(reading, bundle, prefix=""):
         reading.skipped.append(Skipped(prefix + "entry", None,
                                        "Bundle.entry is not a list"))
         return
+    report_times = _report_times(entries)
     for i, entry in enumerate(entries):
         where = "%sentry[%d]" % (prefix, i)
         if not isinstance(entry, dict) or "resource" not in entry:
             reading.skipped.append(Skipped(where, None, "entry without a "
                                            "resource"))
             continue
-        _add(reading, entry["resource"], where)
+        resource = entry["resource"]
+        report_time = None
+        if report_times and isinstance(resource, dict):
+            for key in (_reference_key(entry.get("fullUrl")),
+                        _reference_key("Observation/%s" % resource.get("id"))
+                        if resource.get("id") is not None else None):
+                if key in report_times:
+                    report_time = report_times[key]
+                    break
+        _add(reading, resource, where, report_time)
 
 
 # ---------------------------------------------------------------------------
