@@ -290,8 +290,9 @@ def summary_lines(result, preset, seconds=None):
 # environment (distributed.nanny.pre-spawn-environ) to hand freed memory
 # back to the system sooner. Setting that variable at all also turns off
 # glibc's adaptive mmap threshold, so every large numpy temporary is a
-# fresh mmap that page-faults on first touch: this workload ran about 2.5
-# times slower with it (docs/bindings.md, tests/bench/bench_dask.py).
+# fresh mmap that page-faults on first touch: with it, this workload took
+# about 2.3 times the worker CPU time (tests/bench/bench_dask.py; figures
+# in docs/bindings.md).
 MALLOC_VARIABLE = "MALLOC_TRIM_THRESHOLD_"
 
 
