@@ -291,7 +291,7 @@ def summary_lines(result, preset, seconds=None):
 # back to the system sooner. Setting that variable at all also turns off
 # glibc's adaptive mmap threshold, so every large numpy temporary is a
 # fresh mmap that page-faults on first touch: with it, this workload took
-# about 2.3 times the worker CPU time (tests/bench/bench_dask.py; figures
+# 2.0 to 2.6 times the worker CPU time (tests/bench/bench_dask.py; figures
 # in docs/bindings.md).
 MALLOC_VARIABLE = "MALLOC_TRIM_THRESHOLD_"
 
