@@ -161,7 +161,7 @@ NTR_API int ntr_unit_parse(const char *ucum, int *unit);
  *   "mosmol/kg{h2o}", "mosmol/kg h2o" give @ref NTR_UNIT_MOSM_KG
  *   ("mOsm/kg", "mosm/kg H2O", "mOsm/kg{H2O}", "mOsmol/kg")
  * - "g/l" gives @ref NTR_UNIT_G_L ("g/L", "g/l", "G/L")
- * - "umol/l" gives @ref NTR_UNIT_UMOL_L ("umol/L", "µmol/L", "μmol/L")
+ * - "umol/l" gives @ref NTR_UNIT_UMOL_L ("umol/L", and with the micro sign or mu for u)
  *
  * Everything else is refused, in particular what could mean two things:
  * "mosm/l" (an osmolarity, per litre of solution, not the osmolality per
@@ -216,7 +216,7 @@ NTR_API int ntr_unit_parse_lenient(const char *text, int *unit);
  * value's own unit (ntr_unit_parse_lenient()) and use this one to check
  * that the two agree in kind. The code must be given exactly (digits, the
  * hyphen and the check digit, no blanks); it is read up to its NUL and
- * never more than 11 bytes.
+ * never more than 8 bytes (the longest code, 7 characters, and its NUL).
  *
  * @param code  NUL-terminated LOINC code, e.g. "2951-2".
  * @param[out] analyte  one of NTR_ANALYTE_*.
@@ -266,10 +266,12 @@ NTR_API int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
  * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600
  *                         mOsm/kg, or exactly 0 when not measured.
  * @param[out] glucose_mmol_l the glucose in mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_UNIT (a unit that is not a glucose unit; or, after every
- *         range check, a glucose that the rules above refuse),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            converted and consistent with its unit.
+ * @retval NTR_ERR_NULL      @p glucose_mmol_l is NULL.
+ * @retval NTR_ERR_UNIT      @p unit is not a glucose unit; or, after every
+ *                           range check, the rules above refuse the glucose.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its range.
  *
  * Reference: Dorwart WV, Chalmers L. Comparison of methods for
  * calculating serum osmolality from chemical concentrations. Clin Chem

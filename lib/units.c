@@ -100,21 +100,23 @@ int ntr_unit_parse(const char *ucum, int *unit)
 
 /* The folded spellings ntr_unit_parse_lenient() accepts (header). Arrays,
  * not pointers, so the table needs no relocation. */
+#define SPELLING(text, unit) {text, (unsigned char)(sizeof text - 1u), unit}
 static const struct {
     char text[16];
+    unsigned char length; /* so only spellings of the folded length are compared */
     int unit;
 } spellings[] = {
-    {"mmol/l", NTR_UNIT_MMOL_L},
-    {"mg/dl", NTR_UNIT_MG_DL},
-    {"meq/l", NTR_UNIT_MEQ_L},
-    {"mosm/kg", NTR_UNIT_MOSM_KG},
-    {"mosm/kg{h2o}", NTR_UNIT_MOSM_KG},
-    {"mosm/kg h2o", NTR_UNIT_MOSM_KG},
-    {"mosmol/kg", NTR_UNIT_MOSM_KG},
-    {"mosmol/kg{h2o}", NTR_UNIT_MOSM_KG},
-    {"mosmol/kg h2o", NTR_UNIT_MOSM_KG},
-    {"g/l", NTR_UNIT_G_L},
-    {"umol/l", NTR_UNIT_UMOL_L},
+    SPELLING("mmol/l", NTR_UNIT_MMOL_L),
+    SPELLING("mg/dl", NTR_UNIT_MG_DL),
+    SPELLING("meq/l", NTR_UNIT_MEQ_L),
+    SPELLING("mosm/kg", NTR_UNIT_MOSM_KG),
+    SPELLING("mosm/kg{h2o}", NTR_UNIT_MOSM_KG),
+    SPELLING("mosm/kg h2o", NTR_UNIT_MOSM_KG),
+    SPELLING("mosmol/kg", NTR_UNIT_MOSM_KG),
+    SPELLING("mosmol/kg{h2o}", NTR_UNIT_MOSM_KG),
+    SPELLING("mosmol/kg h2o", NTR_UNIT_MOSM_KG),
+    SPELLING("g/l", NTR_UNIT_G_L),
+    SPELLING("umol/l", NTR_UNIT_UMOL_L),
 };
 
 static int is_blank(unsigned char c)
@@ -178,11 +180,11 @@ static int spelling_matches(const char *want, const char *buf, int n)
 {
     int k;
     for (k = 0; k < n; k++) {
-        if (want[k] != buf[k]) { /* also stops at want's NUL */
+        if (want[k] != buf[k]) {
             return 0;
         }
     }
-    return want[n] == '\0';
+    return 1;
 }
 
 int ntr_unit_parse_lenient(const char *text, int *unit)
@@ -195,7 +197,7 @@ int ntr_unit_parse_lenient(const char *text, int *unit)
     }
     n = fold_unit_text(text, buf);
     for (k = 0; n > 0 && k < sizeof spellings / sizeof spellings[0]; k++) {
-        if (n < (int)sizeof spellings[k].text && spelling_matches(spellings[k].text, buf, n)) {
+        if (spellings[k].length == n && spelling_matches(spellings[k].text, buf, n)) {
             *unit = spellings[k].unit;
             return NTR_OK;
         }

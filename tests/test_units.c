@@ -678,8 +678,9 @@ static void loinc_null_pointers(void **state)
     assert_int_equal(u, NTR_TEST_SENTINEL_INT);
 }
 
-/* Property: the lookup never reads past the NUL: every checked code, each
- * of its prefixes and a few others end right before an unreadable page. */
+/* Property: the lookup never reads past the NUL (every checked code and
+ * each of its prefixes end right before an unreadable page), and never
+ * more than 8 bytes. */
 static void loinc_never_reads_past_the_nul(void **state)
 {
     size_t page, i, cut;
@@ -696,6 +697,18 @@ static void loinc_never_reads_past_the_nul(void **state)
             assert_int_equal(ntr_loinc_lookup(at, &a, &s, &u),
                              cut == len ? NTR_OK : NTR_ERR_UNIT);
         }
+    }
+    /* At most 8 bytes are read: each code followed by one more byte and no
+     * NUL at all, right before the unreadable page. */
+    for (i = 0; i < N_LOINC; i++) {
+        const char *code = loinc_checked[i].code;
+        size_t len = strlen(code);
+        char *at = (char *)base + page - 8;
+        int a = NTR_TEST_SENTINEL_INT, s = NTR_TEST_SENTINEL_INT, u = NTR_TEST_SENTINEL_INT;
+        memset(at, '9', 8);
+        memcpy(at, code, len);
+        assert_int_equal(ntr_loinc_lookup(at, &a, &s, &u), NTR_ERR_UNIT);
+        assert_int_equal(a, NTR_TEST_SENTINEL_INT);
     }
     assert_int_equal(munmap(base, 2 * page), 0);
 }
