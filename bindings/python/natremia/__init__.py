@@ -60,8 +60,9 @@ CAUTION = ("Estimates for decision support, not orders. Verify with measured "
 
 
 def __getattr__(name):
-    # natremia.arrays needs numpy: load it only when asked for.
-    if name == "arrays":
+    # natremia.arrays needs numpy: load it only when asked for (and
+    # natremia.fhir, the FHIR R4 reader, likewise).
+    if name in ("arrays", "fhir"):
         import importlib
-        return importlib.import_module(".arrays", __name__)
+        return importlib.import_module("." + name, __name__)
     raise AttributeError("module 'natremia' has no attribute %r" % (name,))
