@@ -33,6 +33,7 @@ packages=(
     python3-pandas
     python3-distributed
     make
+    cmake
     # + postgresql-N and postgresql-server-dev-N (found below)
     doxygen
     librsvg2-bin
