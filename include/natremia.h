@@ -298,8 +298,8 @@ NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
  *
  * @param na_mmol_l            80 to 220 mmol/L.
  * @param glucose_mmol_l       0 to 200 mmol/L.
- * @param factor_per_100mg_dl  0 to 5 (published factors: 1.6 and 2.4, and
- *                             about 4.0 above 400 mg/dL, Hillier 1999).
+ * @param factor_per_100mg_dl  0 to 5 (the published factors and why 5:
+ *                             @ref sodium_page).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
  * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      a pointer argument is NULL.

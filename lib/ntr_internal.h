@@ -35,7 +35,7 @@
 #define NTR_URINE_VOLUME_MAX 30.0  /* L */
 #define NTR_RATIO_MAX 20.0
 #define NTR_CONVERT_MAX 1.0e6
-#define NTR_GLUCOSE_FACTOR_MAX 5.0 /* mmol/L Na per 100 mg/dL glucose; published 1.6-4.0 */
+#define NTR_GLUCOSE_FACTOR_MAX 5.0 /* mmol/L Na per 100 mg/dL glucose; why: docs/sodium.md */
 /* Work-up (lib/workup.c). Wide nets that catch unit slips, not clinical
  * limits; docs/ranges.md gives the reasoning. */
 #define NTR_URINE_OSM_MIN 10.0     /* urine osmolality, mOsm/kg */
