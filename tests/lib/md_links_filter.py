@@ -33,7 +33,8 @@ LABEL = re.compile(r"^#\s.*\{#(?P<label>[A-Za-z_][\w-]*)\}\s*$")
 LINK = re.compile(r"\]\((?P<target>[^()\s#:]+\.md)\)")
 # ](path/include/natremia.h#group)
 HEADER_LINK = re.compile(r"\]\((?P<target>[^()\s#:]*include/natremia\.h)#(?P<group>\w+)\)")
-INLINE_MATH = re.compile(r"\$`(?P<tex>[^`]+)`\$")
+# $`tex`$, or a code span (left as it is: it may show the syntax itself)
+INLINE_MATH = re.compile(r"\$`(?P<tex>[^`]+)`\$|(?P<code>``.*?``|`[^`]*`)")
 FENCE = re.compile(r"^\s*```")
 
 
@@ -80,7 +81,9 @@ def main():
                 line = "\\f]\n" if block == "math" else line
                 block = None
             elif block is None:
-                line = INLINE_MATH.sub(lambda m: "\\f$" + m.group("tex") + "\\f$", line)
+                line = INLINE_MATH.sub(
+                    lambda m: m.group(0) if m.group("code") else "\\f$" + m.group("tex") + "\\f$",
+                    line)
                 line = HEADER_LINK.sub(header_section, LINK.sub(replace, line))
             sys.stdout.write(line)
 
