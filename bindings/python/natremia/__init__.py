@@ -43,6 +43,10 @@ from ._course import (  # noqa: F401
     CourseReport, course_limits_preset, course_preset_names, course_assess,
     BreachDirection, CoursePlanResult, course_plan_check, CourseWatch,
 )
+from ._units import (  # noqa: F401
+    Specimen, LoincInfo, ANALYTE_OSMOLALITY, ANALYTE_URIC_ACID, UNIT_TEXT_MAX,
+    unit_parse_lenient, loinc_lookup, glucose_unit_check, convert_array,
+)
 from ._fit import (  # noqa: F401
     FitFlag, FIT_FLAG_LABELS, CourseFit, course_fit, fit_reproject,
     FeedbackFlag, FEEDBACK_FLAG_LABELS, UrineFeedback, urine_feedback,
