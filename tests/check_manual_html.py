@@ -96,17 +96,22 @@ def check_offline(htmldir, pages, report):
                  "%d pages with equations, %d not loading the local MathJax"
                  % (formula_pages, without_mathjax))
     # What the pages' MathJax configuration asks for must be in the copy.
+    # An extension named without its directory ("AMSmath.js" in a TeX
+    # block) lives under extensions/TeX/.
     wanted = set()
     for text in pages.values():
         for config in re.findall(r"MathJax\.Hub\.Config\((.*?)\);", text, re.S):
-            for ext in re.findall(r'"([\w/-]+\.js)"', config):
-                wanted.add("extensions/" + ext)
-            for jax in re.findall(r'"((?:input|output)/[\w-]+)"', config):
-                wanted.add("jax/%s/config.js" % jax)
-            for ext in re.findall(r'"(TeX/\w+)"', config):
-                wanted.add("extensions/%s.js" % ext)
-    lacking = [w for w in sorted(wanted)
-               if not os.path.isfile(os.path.join(htmldir, "mathjax", w))]
+            lists = " ".join(re.findall(r"\b(?:extensions|jax)\s*:\s*\[([^\]]*)\]", config))
+            for ext in re.findall(r'"([\w/-]+?)(?:\.js)?"', lists):
+                if ext.startswith(("input/", "output/")):
+                    wanted.add("jax/%s/config.js" % ext)
+                else:
+                    wanted.add("extensions/%s.js" % ext)
+    def present(w):
+        base = os.path.join(htmldir, "mathjax")
+        alt = w.replace("extensions/", "extensions/TeX/", 1)
+        return os.path.isfile(os.path.join(base, w)) or os.path.isfile(os.path.join(base, alt))
+    lacking = [w for w in sorted(wanted) if not present(w)]
     report.check(wanted and not lacking,
                  "the local MathJax holds what the pages ask for (%s)" % ", ".join(sorted(wanted)),
                  "html/mathjax lacks %s" % (", ".join(lacking) or "a configuration to check"))
