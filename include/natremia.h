@@ -305,9 +305,12 @@ NTR_API int ntr_glucose_unit_check(double glucose, int unit, double na_mmol_l,
  * @param from_unit unit of @p value (NTR_UNIT_*).
  * @param to_unit   wanted unit (NTR_UNIT_*).
  * @param[out] out  the converted value.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown analyte),
- *         NTR_ERR_UNIT (unknown unit or one the analyte does not accept),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown analyte.
+ * @retval NTR_ERR_UNIT      unknown unit or one the analyte does not accept.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: IUPAC Commission on Isotopic Abundances and Atomic Weights,
  * standard atomic weights (abridged to five significant figures).
@@ -346,8 +349,11 @@ NTR_API int ntr_convert(int analyte, double value, int from_unit, int to_unit,
  * @param ethanol_mmol_l  serum ethanol, 0 to 400 mmol/L (0 if not measured).
  * @param formula         @ref NTR_OSM_2NA or @ref NTR_OSM_DORWART_CHALMERS.
  * @param[out] mosm_kg    calculated osmolality, mOsm/kg.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown formula),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown formula.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Dorwart WV, Chalmers L. Comparison of methods for calculating
  * serum osmolality from chemical concentrations. Clin Chem 1975;21:190-4.
@@ -365,7 +371,10 @@ NTR_API int ntr_osm_calculated(double na_mmol_l, double glucose_mmol_l,
  * @param na_mmol_l      serum sodium, 80 to 220 mmol/L.
  * @param glucose_mmol_l serum glucose, 0 to 200 mmol/L.
  * @param[out] mosm_kg   effective osmolality, mOsm/kg.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Clinical practice guideline on diagnosis
  * and treatment of hyponatraemia. Eur J Endocrinol 2014;170:G1-47.
@@ -383,7 +392,10 @@ NTR_API int ntr_osm_effective(double na_mmol_l, double glucose_mmol_l,
  * @param measured_mosm_kg   measured serum osmolality, 150 to 600 mOsm/kg.
  * @param calculated_mosm_kg calculated serum osmolality, 150 to 600 mOsm/kg.
  * @param[out] gap_mosm_kg   the gap, mOsm/kg (may be negative).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: textbook definition of the osmolal gap.
  * Method: @ref NTR_METHOD_OSM_GAP.
@@ -413,7 +425,11 @@ NTR_API int ntr_osm_gap(double measured_mosm_kg, double calculated_mosm_kg,
  * @param method          @ref NTR_GLUCOSE_KATZ (factor 1.6) or
  *                        @ref NTR_GLUCOSE_HILLIER (factor 2.4).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p method is not a NTR_GLUCOSE_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Katz MA. Hyperglycemia-induced hyponatremia: calculation of
  * expected serum sodium depression. N Engl J Med 1973;289:843-4.
@@ -432,10 +448,13 @@ NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
  *
  * @param na_mmol_l            80 to 220 mmol/L.
  * @param glucose_mmol_l       0 to 200 mmol/L.
- * @param factor_per_100mg_dl  0 to 5 (published factors: 1.6 and 2.4, and
- *                             about 4.0 above 400 mg/dL, Hillier 1999).
+ * @param factor_per_100mg_dl  0 to 5 (the published factors and why 5:
+ *                             @ref sodium_page).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: as ntr_na_corrected_glucose().
  * Method: @ref NTR_METHOD_GLUCOSE_FACTOR.
@@ -460,8 +479,11 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  * @param na_mmol_l           current serum sodium, 80 to 220 mmol/L.
  * @param target_na_mmol_l    target serum sodium, 80 to 220 mmol/L.
  * @param[out] mmol           sodium to give, mmol.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (target below the current sodium).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    target below the current sodium.
  *
  * Reference: common practice (the sodium-deficit formula of general
  * medical texts). It ignores ongoing losses too; see ntr_balance_predict().
@@ -498,7 +520,11 @@ NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
  * @param age_years   1 to 130.
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p sex is not a NTR_SEX_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9.
@@ -530,9 +556,14 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  * @param height_cm   30 to 275.
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE,
- *         NTR_ERR_RANGE, NTR_ERR_DOMAIN (the result is below 20% or above
- *         80% of the weight, or below 0.1 L; 1.0 refused only 0 L or less).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p sex is not a NTR_SEX_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the result is below 20% or above 80% of the
+ *                           weight, or below 0.1 L; 1.0 refused only 0 L or
+ *                           less.
  *
  * Reference: Watson PE, Watson ID, Batt RD. Total body water volumes for
  * adult males and females estimated from simple anthropometric
@@ -550,8 +581,11 @@ NTR_API int ntr_tbw_watson(int sex, double age_years, double height_cm,
  * @param tbw_l       total body water, 0.1 to 400 L.
  * @param na_mmol_l   serum sodium, 80 to 220 mmol/L.
  * @param[out] litres water deficit, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (sodium below 140: there is no water deficit).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    sodium below 140: there is no water deficit.
  *
  * Reference: the textbook water-deficit formula (common practice); for the
  * choice of infusate see Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med
@@ -586,7 +620,9 @@ NTR_API int ntr_free_water_deficit(double tbw_l, double na_mmol_l,
  * @param fluid       one of NTR_FLUID_*.
  * @param[out] na_mmol_l sodium of the infusate, mmol/L.
  * @param[out] k_mmol_l  potassium of the infusate, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p fluid is not a NTR_FLUID_* value.
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9 (table of infusates).
@@ -604,10 +640,14 @@ NTR_API int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
  * @param infusate_na_mmol_l 0 to 1100 mmol/L.
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param[out] delta_mmol_l  expected change, mmol/L (negative: a fall).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the sodium after, Na + delta, would lie outside
- *         80 to 220 mmol/L, or the body water after, TBW + 1, above 400 L:
- *         the rule ntr_balance_predict() applies to the same 1 L; since 1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the sodium after, Na + delta, would lie outside 80
+ *                           to 220 mmol/L, or the body water after, TBW + 1,
+ *                           above 400 L: the rule ntr_balance_predict()
+ *                           applies to the same 1 L; since 1.1.
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9.
@@ -633,12 +673,15 @@ NTR_API int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param volume_l           volume given, 0 to 20 L.
  * @param[out] delta_mmol_l  expected change, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the sodium after would lie outside 80 to
- *         220 mmol/L, or the body water after outside 0.1 to 400 L:
- *         exactly what ntr_balance_predict() refuses for the same flow;
- *         since 1.1, where 1.0 answered, e.g. 264 mmol/L for 20 L of 3%
- *         saline on 140 and 40 L).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the sodium after would lie outside 80 to 220
+ *                           mmol/L, or the body water after outside 0.1 to 400
+ *                           L: exactly what ntr_balance_predict() refuses for
+ *                           the same flow; since 1.1, where 1.0 answered, e.g.
+ *                           264 mmol/L for 20 L of 3% saline on 140 and 40 L.
  *
  * Reference: derived from the Adrogue-Madias mass balance
  * (N Engl J Med 2000;342:1581-9).
@@ -661,12 +704,16 @@ NTR_API int ntr_infusate_change(double na_mmol_l, double tbw_l,
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param target_delta_mmol_l wanted change, -50 to 50 mmol/L.
  * @param[out] volume_l      volume needed, L (0 when the target is 0).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the target sodium Na + delta lies outside 80 to
- *         220 mmol/L, as ntr_relower_estimate() refuses a target below 80;
- *         the infusate cannot move sodium that far in that direction; the
- *         volume would exceed 20 L; or ntr_infusate_change() would refuse
- *         the volume found. The first and last since 1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the target sodium Na + delta lies outside 80 to
+ *                           220 mmol/L, as ntr_relower_estimate() refuses a
+ *                           target below 80; the infusate cannot move sodium
+ *                           that far in that direction; the volume would
+ *                           exceed 20 L; or ntr_infusate_change() would refuse
+ *                           the volume found. The first and last since 1.1.
  *
  * Unlike the sodium-deficit step (ntr_na_deficit() divided by the
  * infusate's sodium), this counts the water the infusate brings: on the
@@ -709,7 +756,10 @@ NTR_API int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
  * @param urine_k_mmol_l   0 to 300 mmol/L.
  * @param serum_na_mmol_l  80 to 220 mmol/L.
  * @param[out] ratio       dimensionless.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Furst H, Hallows KR, Post J, et al. The urine/plasma
  * electrolyte ratio: a predictive guide to water restriction. Am J Med Sci
@@ -736,7 +786,10 @@ NTR_API int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
  *
  * @param ratio       0 to 20.
  * @param[out] advice one of NTR_RESTRICT_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Furst et al., Am J Med Sci 2000;319:240-4. Verbalis JG et al.
  * Diagnosis, evaluation, and treatment of hyponatremia: expert panel
@@ -756,7 +809,10 @@ NTR_API int ntr_restriction_from_ratio(double ratio, int *advice);
  * @param urine_k_mmol_l   0 to 300 mmol/L.
  * @param serum_na_mmol_l  80 to 220 mmol/L.
  * @param[out] litres      free water cleared over the same period, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: standard renal physiology (for example Rose BD, Post TW.
  * Clinical Physiology of Acid-Base and Electrolyte Disorders, 5th ed.).
@@ -801,9 +857,12 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
  *                           (about 600-900 on a usual diet).
  * @param urine_osm_mosm_kg  urine osmolality, 10 to 2000 mOsm/kg.
  * @param[out] urine_l_day   urine volume, L/day.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the volume would exceed 30 L/day, the largest
- *         urine volume the library accepts anywhere).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the volume would exceed 30 L/day, the largest
+ *                           urine volume the library accepts anywhere.
  *
  * Reference: Berl T. Impact of solute intake on urine flow and water
  * excretion. J Am Soc Nephrol 2008;19:1076-8.
@@ -846,8 +905,11 @@ NTR_API int ntr_urine_volume_from_solute(double solute_mosm_day,
  * @param insensible_l_day   net insensible loss (skin and breath minus
  *                           water of metabolism), 0 to 10 L/day.
  * @param[out] intake_l_day  the allowance, L/day; may be negative.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the urine volume would exceed 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the urine volume would exceed 30 L/day.
  *
  * References: Berl T, J Am Soc Nephrol 2008;19:1076-8 (urine volume from
  * solute). Furst H et al., Am J Med Sci 2000;319:240-4 (the ratio).
@@ -877,8 +939,11 @@ NTR_API int ntr_fluid_allowance(double solute_mosm_day,
  * @param solute      NTR_SOLUTE_UREA or NTR_SOLUTE_NACL.
  * @param grams       the dose, 0 to 200 g.
  * @param[out] mosm   its osmoles, mOsm.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown solute.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: IUPAC standard atomic weights (abridged, Commission on
  * Isotopic Abundances and Atomic Weights); Berl T, J Am Soc Nephrol
@@ -915,9 +980,13 @@ NTR_API int ntr_solute_dose_osmoles(int solute, double grams, double *mosm);
  * @param serum_na_mmol_l   80 to 220 mmol/L.
  * @param insensible_l_day  0 to 10 L/day.
  * @param[out] intake_l_day the allowance with the dose, L/day; may be negative.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the urine
- *         volume, before or with the dose, would exceed 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown solute.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the urine volume, before or with the dose, would
+ *                           exceed 30 L/day.
  *
  * References: Berl T, J Am Soc Nephrol 2008;19:1076-8; as
  * ntr_fluid_allowance().
@@ -951,9 +1020,13 @@ NTR_API int ntr_fluid_allowance_with_dose(int solute, double grams_day,
  * @param target_intake_l_day the daily fluid intake to allow, above 0 and
  *                            at most 10 L/day (for example 1).
  * @param[out] grams_day      the daily dose, g/day (0 when none is needed).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the dose would
- *         exceed 200 g/day, or the urine volume 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown solute.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the dose would exceed 200 g/day, or the urine
+ *                           volume 30 L/day.
  *
  * @warning An estimate for decision support, not an order: doses are
  * limited by tolerance and local protocol, and the sodium must be measured.
@@ -1040,9 +1113,12 @@ typedef struct ntr_outlook {
  * @param insensible_l_day    0 to 10 L/day.
  * @param target_intake_l_day above 0 and at most 10 L/day (for example 1).
  * @param[out] out            the outlook; set out->struct_size first.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (struct_size too small),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the urine
- *         volume would exceed 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       struct_size too small.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the urine volume would exceed 30 L/day.
  *
  * @warning An estimate for decision support, not an order.
  *
@@ -1098,7 +1174,10 @@ NTR_API int ntr_restriction_outlook(double solute_mosm_day,
  *
  * @param na_mmol_l     serum sodium, 80 to 220 mmol/L.
  * @param[out] severity one of NTR_SEVERITY_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
  * (classification by biochemical severity).
@@ -1128,7 +1207,10 @@ NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
  *
  * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg.
  * @param[out] tonicity        one of NTR_TONICITY_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
  * Method: @ref NTR_METHOD_TONICITY_CLASS.
@@ -1185,8 +1267,11 @@ NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
  * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
  * @param[out] tonicity        one of NTR_TONICITY_*.
  * @param[out] flags           a combination of NTR_LOW_NA_* bits.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown glucose method.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
  * (exclusion of non-hypotonic hyponatraemia); Katz 1973; Hillier et al.
@@ -1239,7 +1324,10 @@ NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
  * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg,
  *                             from the same sample.
  * @param[out] mosm_kg         effective osmolality, mOsm/kg.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6 and
  * Milionis HJ et al. CMAJ 2002;166:1056-62 (a normal measured osmolality
@@ -1294,8 +1382,11 @@ NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
  * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
  * @param[out] tonicity        one of NTR_TONICITY_*, of the effective value.
  * @param[out] flags           a combination of NTR_LOW_NA_* bits.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown glucose method.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6;
  * Milionis HJ et al. CMAJ 2002;166:1056-62; Spasovski G et al. Eur J
@@ -1325,7 +1416,10 @@ NTR_API int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_
  *
  * @param urine_osm_mosm_kg urine osmolality, 10 to 2000 mOsm/kg.
  * @param[out] dilute       1 or 0.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: common practice; the same cut-off is the European guideline's
  * (Spasovski G et al. 2014) first urine step.
@@ -1344,7 +1438,10 @@ NTR_API int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute);
  *
  * @param urine_na_mmol_l urine sodium, 0 to 500 mmol/L.
  * @param[out] high       1 or 0.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
  * Method: @ref NTR_METHOD_URINE_NA_HIGH.
@@ -1367,11 +1464,15 @@ NTR_API int ntr_urine_na_high(double urine_na_mmol_l, int *high);
  * @param urine_creatinine  urine creatinine, 0 to 1e6.
  * @param plasma_creatinine plasma creatinine, 0 to 1e6.
  * @param[out] percent      fractional excretion, %.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (@p plasma_x, @p urine_creatinine or
- *         @p plasma_creatinine is 0: nothing filtered or no clearance
- *         marker, so the fraction has no meaning; or denominators so close
- *         to 0 that the quotient is not a finite double).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    @p plasma_x, @p urine_creatinine or
+ *                           @p plasma_creatinine is 0: nothing filtered or no
+ *                           clearance marker, so the fraction has no meaning;
+ *                           or denominators so close to 0 that the quotient is
+ *                           not a finite double.
  *
  * Reference: standard renal physiology (clearance of x over clearance of
  * creatinine); the SIAD cut-offs for sodium, urea and uric acid are in
@@ -1502,7 +1603,8 @@ typedef struct ntr_siad_result {
 /**
  * @brief Mark every finding "not known" and set @c struct_size.
  * @param[out] findings the struct to initialise.
- * @retval NTR_OK, NTR_ERR_NULL.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
  * Reference: none (initialiser). Method: @ref NTR_METHOD_SIAD_CRITERIA.
  */
 NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
@@ -1544,7 +1646,12 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  *
  * @param findings     the findings (see ntr_siad_findings for ranges).
  * @param[out] result  verdict and per-criterion masks.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       a @c struct_size too small, a @c known flag or
+ *                           an enumerator not one of its values.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47, table
  * of diagnostic criteria for SIAD, adapted there from Schwartz WB, Bennett
@@ -1593,7 +1700,10 @@ NTR_API int ntr_siad_evaluate(const ntr_siad_findings *findings,
  * @param fe_uric_acid_percent fractional uric acid excretion at the low
  *                             sodium, 0 to 200 %.
  * @param[out] fe_class        one of NTR_FE_URIC_ACID_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7 (both
  * cut-offs, in hyponatraemic patients);
@@ -1650,7 +1760,10 @@ NTR_API int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class);
  * @param na_corrected_mmol_l  serum sodium when the second value was
  *                             measured, 80 to 220 mmol/L.
  * @param[out] course          one of NTR_URIC_ACID_COURSE_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7 (the
  * 8 % and 12 % edges at a low sodium); Maesaka JK et al., on telling SIAD
@@ -2240,7 +2353,9 @@ typedef struct ntr_correction {
  *
  * @param preset   @ref NTR_LIMITS_STANDARD or @ref NTR_LIMITS_HIGH_RISK.
  * @param[out] out the limits.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown preset).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown preset.
  *
  * References: Verbalis JG et al. Diagnosis, evaluation, and treatment of
  * hyponatremia: expert panel recommendations. Am J Med 2013;126(10 Suppl
@@ -2268,8 +2383,11 @@ NTR_API int ntr_limits_preset(int preset, ntr_limits *out);
  * @param[out] drivers  NTR_ODS_* bits of the factors known to be present
  *                      (including @ref NTR_ODS_NA_105).
  * @param[out] unknowns NTR_ODS_* bits of the factors not known.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (a factor is not an NTR_TRI_*
- *         value), NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       a factor is not an NTR_TRI_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42
  * (risk factors for osmotic demyelination).
@@ -2312,7 +2430,7 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  * @param lim limits: max_rise_24h and max_rise_48h above 0 and at most 50,
  *            max_rise_24h <= max_rise_48h, 0 <= min_rise_24h <= max_rise_24h.
  * @param[out] out the assessment.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p s, @p lim or @p out is NULL.
  * @retval NTR_ERR_ARG       @p n is 0.
  * @retval NTR_ERR_NONFINITE a sample or limit is NaN or infinite.
@@ -2378,7 +2496,10 @@ typedef struct ntr_watch {
  *
  * @param lim    limits, checked as in ntr_correction_assess().
  * @param[out] w the state to initialise.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: as ntr_correction_assess().
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
@@ -2398,12 +2519,15 @@ NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  * @param hours     time of the result, -1e6 to 1e6, not before the last one.
  * @param na_mmol_l serum sodium, 80 to 220 mmol/L.
  * @param[out] out  the assessment of the series so far.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       @p w was not initialised, or is damaged (an
  *         impossible count or index, or, since 1.1, a stored number that is
  *         NaN, infinite or out of its range).
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours or
+ *                           @p na_mmol_l.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours
+ *                           or @p na_mmol_l.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  * @retval NTR_ERR_CAPACITY  the series rises so steadily and densely that
  *         more than @ref NTR_WATCH_CAPACITY samples would have to be kept;
@@ -2421,9 +2545,10 @@ NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
  *
  * @param w        a state from ntr_watch_init() with at least one result.
  * @param[out] out the assessment (as the last ntr_watch_push() returned).
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (not initialised, damaged as for ntr_watch_push(), or
- *         no result pushed yet).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       not initialised, damaged as for ntr_watch_push(),
+ *                           or no result pushed yet.
  *
  * References: as ntr_correction_assess().
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
@@ -2568,7 +2693,9 @@ typedef struct ntr_course_report {
  *
  * @param preset   NTR_COURSE_*.
  * @param[out] out the limits, struct_size set.
- * @retval NTR_OK, NTR_ERR_NULL (@p out), NTR_ERR_ARG (unknown preset).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL (@p out).
+ * @retval NTR_ERR_ARG       unknown preset.
  *
  * References: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42;
  * Spasovski G et al., Eur J Endocrinol 2014;170:G1-47; Adrogue HJ, Madias
@@ -2622,7 +2749,7 @@ NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
  * @param n   number of samples, at least 1.
  * @param lim limits (see ntr_course_limits for the accepted values).
  * @param[in,out] out the assessment; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p s, @p lim or @p out is NULL.
  * @retval NTR_ERR_ARG       @p n is 0, lim->struct_size or out->struct_size
  *                           is smaller than the 1.1 size, or lim->goal is
@@ -2703,9 +2830,12 @@ typedef struct ntr_course_watch {
  *
  * @param lim    limits, checked as in ntr_course_assess().
  * @param[out] w the state to initialise.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (lim->struct_size below the 1.1 size, or an unknown
- *         goal), NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       lim->struct_size below the 1.1 size, or an unknown
+ *                           goal.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: as ntr_course_assess().
  * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
@@ -2746,12 +2876,15 @@ NTR_API int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch
  * @param na_mmol_l serum sodium, 80 to 220 mmol/L.
  * @param[in,out] out the assessment of the series so far; struct_size set
  *                  by the caller, as for ntr_course_assess().
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       out->struct_size below the 1.1 size, or @p w
  *         was not initialised or is damaged (an impossible count or index,
  *         or a stored number that is NaN, infinite or out of its range).
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours or
+ *                           @p na_mmol_l.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours
+ *                           or @p na_mmol_l.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  *
  * References: as ntr_course_assess().
@@ -2786,13 +2919,16 @@ NTR_API int ntr_course_watch_push(ntr_course_watch *w, double hours,
  * @param glucose_mmol_l plasma glucose of the same sample, 0 to 200 mmol/L.
  * @param glucose_method @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
  * @param[in,out] out    as ntr_course_watch_push().
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       unknown @p glucose_method, then as
  *         ntr_course_watch_push() (out->struct_size, state not sound).
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours, @p na_mmol_l,
- *         @p glucose_mmol_l in that order; NTR_ERR_RANGE also when the
- *         corrected sodium is above 220 mmol/L.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours,
+ *                           @p na_mmol_l, @p glucose_mmol_l in that order.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours,
+ *                           @p na_mmol_l, @p glucose_mmol_l in that order;
+ *                           also when the corrected sodium is above
+ *                           220 mmol/L.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  *
  * References: Katz MA, N Engl J Med 1973;289:843-4; Hillier TA et al.,
@@ -2810,9 +2946,11 @@ NTR_API int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours,
  * @param w        a state from ntr_course_watch_init() with at least one result.
  * @param[in,out] out the assessment (as the last ntr_course_watch_push()
  *                 returned); struct_size set by the caller.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (out->struct_size below the 1.1 size; @p w not
- *         initialised, damaged, or with no result pushed yet).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       out->struct_size below the 1.1 size; @p w not
+ *                           initialised, damaged, or with no result pushed
+ *                           yet.
  *
  * References: as ntr_course_assess().
  * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
@@ -2923,11 +3061,15 @@ typedef struct ntr_course_plan_result {
  * @param n         number of flows (0 gives the inputs back).
  * @param[out] na_out  sodium after, mmol/L.
  * @param[out] tbw_out body water after, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (body water after outside 0.1 to 400 L, or sodium
- *         after outside 80 to 220 mmol/L: the model no longer applies, and
- *         no function would take that state as input. The infusate and
- *         re-lowering functions apply the same rule; 400 L since 1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    body water after outside 0.1 to 400 L, or sodium
+ *                           after outside 80 to 220 mmol/L: the model no
+ *                           longer applies, and no function would take that
+ *                           state as input. The infusate and re-lowering
+ *                           functions apply the same rule; 400 L since 1.1.
  *
  * References: Edelman IS, Leibman J, O'Meara MP, Birkenfeld LW. Interrelations
  * between serum sodium concentration, serum osmolarity and total
@@ -2962,12 +3104,15 @@ NTR_API int ntr_balance_predict(double na_mmol_l, double tbw_l,
  * @param capacity   number of ntr_sample the buffer holds.
  * @param[out] count points written; with NTR_ERR_CAPACITY, the number
  *                   needed (the only output written on an error).
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p count is NULL, or @p series with a capacity,
  *                           or @p flows with flows to read.
  * @retval NTR_ERR_ARG       a flow's reserved field is not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input (in argument order;
- *                           each flow's fields in struct order).
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input (in argument
+ *                           order; each flow's fields in struct order).
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input
+ *                           (in argument order; each flow's fields in struct
+ *                           order).
  * @retval NTR_ERR_ORDER     a flow ends before it starts.
  * @retval NTR_ERR_CAPACITY  @p capacity is below the count needed.
  * @retval NTR_ERR_DOMAIN    a point leaves the model's range (as in
@@ -3010,10 +3155,14 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  * @param lim       limits, as in ntr_correction_assess().
  * @param[out] out  the verdict; out->course.flags tells whether and which
  *                  limit is breached, breach_24h_h / breach_48h_h when.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (n_history 0, or a reserved
- *         field not 0), NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_ORDER
- *         (history out of time order, or a flow ending before it starts),
- *         NTR_ERR_DOMAIN (as ntr_balance_course()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       n_history 0, or a reserved field not 0.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_ORDER     history out of time order, or a flow ending before
+ *                           it starts.
+ * @retval NTR_ERR_DOMAIN    as ntr_balance_course().
  * Checks run: pointers, counts and reserved fields, history, tbw, flows,
  * duration, step, limits, time order, domain.
  *
@@ -3056,17 +3205,21 @@ NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
  * @param step_h    spacing of the predicted points, 1/60 to 720 h.
  * @param lim       course limits, as in ntr_course_assess().
  * @param[in,out] out the verdict; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p history, @p lim or @p out is NULL, or
  *                           @p flows with flows to read.
  * @retval NTR_ERR_ARG       @p n_history is 0, lim->struct_size or
  *                           out->struct_size is below the 1.1 size,
  *                           lim->goal is not an NTR_GOAL_* value, or a
  *                           flow's reserved field is not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history (each sample:
- *                           hours, sodium), body water, flows (each in
- *                           struct order), duration, step, then the limits
- *                           (as in ntr_course_assess()).
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input: history
+ *                           (each sample: hours, sodium), body water, flows
+ *                           (each in struct order), duration, step, then the
+ *                           limits (as in ntr_course_assess()).
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input:
+ *                           history (each sample: hours, sodium), body water,
+ *                           flows (each in struct order), duration, step, then
+ *                           the limits (as in ntr_course_assess()).
  * @retval NTR_ERR_ORDER     history out of time order, or a flow ending
  *                           before it starts.
  * @retval NTR_ERR_DOMAIN    a predicted point leaves the model's range (as
@@ -3112,14 +3265,18 @@ NTR_API int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
  * @param urine_k_mmol_l   0 to 300 mmol/L.
  * @param[out] volume_l    volume of fluid to give over @p hours, L.
  * @param[out] rate_ml_h   the same as a rate, mL/h.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the fluid's sodium + potassium is not below the
- *         target, the target is below 80 mmol/L, the volume would exceed
- *         20 L, the rate would exceed 5000 mL/h (what a timed flow takes),
- *         or the plan's end state is one ntr_balance_predict() refuses:
- *         body water outside 0.1 to 400 L, or, when the losses alone
- *         overshoot, sodium below 80. The rate and end-state rules since
- *         1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the fluid's sodium + potassium is not below the
+ *                           target, the target is below 80 mmol/L, the volume
+ *                           would exceed 20 L, the rate would exceed 5000 mL/h
+ *                           (what a timed flow takes), or the plan's end state
+ *                           is one ntr_balance_predict() refuses: body water
+ *                           outside 0.1 to 400 L, or, when the losses alone
+ *                           overshoot, sodium below 80. The rate and end-state
+ *                           rules since 1.1.
  *
  * @warning An estimate for decision support, not an order: re-lowering
  * needs frequent measured sodium and specialist judgement.
@@ -3251,14 +3408,17 @@ typedef struct ntr_urine_feedback_result {
  * @param step_h    spacing of the predicted points, 1/60 to 720 h.
  * @param lim       course limits, as in ntr_course_assess().
  * @param[in,out] out the result; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      a pointer is NULL (@p flows only with flows to read).
  * @retval NTR_ERR_ARG       @p n_history or @p n_urine is 0, a struct_size
  *                           below the 1.1 size, lim->goal unknown, or a
  *                           reserved field not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history, body water,
- *                           flows, intervals (each in struct order), horizon,
- *                           step, limits.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input: history,
+ *                           body water, flows, intervals (each in struct
+ *                           order), horizon, step, limits.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input:
+ *                           history, body water, flows, intervals (each in
+ *                           struct order), horizon, step, limits.
  * @retval NTR_ERR_ORDER     history out of time order, a flow ending before
  *                           it starts, an interval shorter than a minute or
  *                           starting before the previous one ends.
@@ -3295,10 +3455,14 @@ NTR_API int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
  *
  * @param urine     the interval (ranges in ntr_urine_interval).
  * @param[out] flow the timed flow (reserved fields 0).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (a reserved field not 0),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (a member, in struct order),
- *         NTR_ERR_ORDER (shorter than a minute), NTR_ERR_DOMAIN (rate above
- *         5000 mL/h).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       a reserved field not 0.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (a member,
+ *                           in struct order).
+ * @retval NTR_ERR_ORDER     shorter than a minute.
+ * @retval NTR_ERR_DOMAIN    rate above 5000 mL/h.
  *
  * References: mass balance as ntr_balance_course().
  * Method: @ref NTR_METHOD_URINE_FEEDBACK.
@@ -3379,12 +3543,16 @@ typedef struct ntr_fit {
  *                    history[0]; may be NULL when @p n_flows is 0.
  * @param n_flows     number of flows.
  * @param[in,out] out the fit; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p history or @p out is NULL, or @p flows with flows to read.
  * @retval NTR_ERR_ARG       @p n below 3, out->struct_size below the 1.1
  *                           size, or a flow's reserved field not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history (each sample:
- *                           hours, sodium), guess, flows (each in struct order).
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input: history
+ *                           (each sample: hours, sodium), guess, flows (each
+ *                           in struct order).
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input:
+ *                           history (each sample: hours, sodium), guess, flows
+ *                           (each in struct order).
  * @retval NTR_ERR_ORDER     history out of time order, or a flow ending
  *                           before it starts.
  * @retval NTR_ERR_DOMAIN    the last sample more than 720 h after the first;
@@ -3426,13 +3594,18 @@ NTR_API int ntr_course_fit(const ntr_sample *history, size_t n,
  * @param lim       course limits, as in ntr_course_assess().
  * @param[in,out] out the verdict, as ntr_course_plan_check()'s (breach times
  *                  hours after the last sample); struct_size set by the caller.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (@p n 0, a struct_size below
- *         the 1.1 size, lim->goal unknown, a reserved field not 0),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (history, fit's body water and
- *         loss, flows, duration, step, limits), NTR_ERR_ORDER,
- *         NTR_ERR_DOMAIN (the last sample more than 720 h after the first,
- *         or a point, the body water at the last sample included, leaving
- *         the model's range).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p n 0, a struct_size below the 1.1 size,
+ *                           lim->goal unknown, a reserved field not 0.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (history,
+ *                           fit's body water and loss, flows, duration, step,
+ *                           limits).
+ * @retval NTR_ERR_ORDER     the series is out of time order.
+ * @retval NTR_ERR_DOMAIN    the last sample more than 720 h after the first,
+ *                           or a point, the body water at the last sample
+ *                           included, leaving the model's range.
  *
  * References: as ntr_course_plan_check().
  * Methods: @ref NTR_METHOD_FIT_REPROJECT, @ref NTR_METHOD_PLAN_CHECK.
@@ -3528,10 +3701,14 @@ typedef struct ntr_vaptan_watch {
  * @param replace_na_mmol_l  its sodium, 0 to 1100 mmol/L (0.9%: 154).
  * @param[out] na_without_mmol_l sodium after the urine loss alone.
  * @param[out] na_with_mmol_l    sodium after the loss and the replacement.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE (inputs
- *         in argument order), NTR_ERR_DOMAIN (a state ntr_balance_predict()
- *         refuses: body water outside 0.1 to 400 L or sodium outside 80 to
- *         220 mmol/L).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (inputs in
+ *                           argument order).
+ * @retval NTR_ERR_DOMAIN    a state ntr_balance_predict() refuses: body water
+ *                           outside 0.1 to 400 L or sodium outside 80 to 220
+ *                           mmol/L.
  *
  * References: mass balance of Edelman 1958 and Adrogue HJ, Madias NE,
  * N Engl J Med 2000;342:1581-9; urine composition common practice.
@@ -3565,9 +3742,13 @@ NTR_API int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
  * @param[out] rise_24h_mmol_l predicted change over 24 h (negative if it falls).
  * @param[out] stop_h          hours until the rise reaches d (0 to 720), or
  *                             NTR_THERAPY_NEVER.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the 24 h course or the state at the stop hour
- *         leaves the model's range, as in ntr_balance_course()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the 24 h course or the state at the stop hour
+ *                           leaves the model's range, as in
+ *                           ntr_balance_course().
  *
  * References: mass balance as ntr_balance_course(); the clamp as described
  * by Sood L, Sterns RH, Hix JK, Silver SM, Chen L. Am J Kidney Dis
@@ -3598,9 +3779,12 @@ NTR_API int ntr_dda_clamp(double na_mmol_l, double tbw_l, double saline_ml_h,
  * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L.
  * @param[out] volume_l      5% dextrose to give over @p hours, L.
  * @param[out] rate_ml_h     the same as a rate, mL/h.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (excess + margin above 50, or as
- *         ntr_relower_estimate()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    excess + margin above 50, or as
+ *                           ntr_relower_estimate().
  *
  * References: as ntr_relower_estimate(); Sterns RH, Hix JK, Kidney Int
  * 2009;76:587-9 (cited from memory).
@@ -3628,8 +3812,9 @@ NTR_API int ntr_dda_relower(double na_mmol_l, double tbw_l,
  *                      present (ntr_ods_risk()), else 0.
  * @param liver_disease 1 with liver disease, else 0.
  * @param[in,out] out   the plan; struct_size set by the caller.
- * @retval NTR_OK, NTR_ERR_NULL (@p out),
- *         NTR_ERR_ARG (a flag not 0 or 1, or out->struct_size too small).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL (@p out).
+ * @retval NTR_ERR_ARG       a flag not 0 or 1, or out->struct_size too small.
  *
  * References: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42
  * (limits, risk factors); tolvaptan prescribing information and US FDA
@@ -3667,12 +3852,15 @@ NTR_API int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
  * @param[out] volume_l        fluid volume over @p hours, L.
  * @param[out] first_breach_h  hours until the plan passes the 24 h fall
  *                             limit, or @ref NTR_PLAN_NO_BREACH.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (unknown fluid, or a preset other than the two),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (inputs in argument order),
- *         NTR_ERR_DOMAIN (urine + insensible above 5000 mL/h; the fluid not
- *         below the target; or as ntr_relower_estimate() and
- *         ntr_course_plan_check()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown fluid, or a preset other than the two.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (inputs in
+ *                           argument order).
+ * @retval NTR_ERR_DOMAIN    urine + insensible above 5000 mL/h; the fluid not
+ *                           below the target; or as ntr_relower_estimate() and
+ *                           ntr_course_plan_check().
  *
  * References: Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med
  * 2000;342:1493-9 (the fluids, counting ongoing losses, the pace).
@@ -3706,10 +3894,14 @@ NTR_API int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
  * @param[out] boluses        boluses planned, 1 to @ref NTR_BOLUS_COUNT_MAX.
  * @param[out] rise_mmol_l    predicted rise after them.
  * @param[out] held_by_limit  1 when the limit stopped the plan short of the aim, else 0.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (aim above the limit; one bolus already passes
- *         the limit; the aim not reached within NTR_BOLUS_COUNT_MAX
- *         boluses; or a state ntr_balance_predict() refuses).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    aim above the limit; one bolus already passes the
+ *                           limit; the aim not reached within
+ *                           NTR_BOLUS_COUNT_MAX boluses; or a state
+ *                           ntr_balance_predict() refuses.
  *
  * References: Spasovski G et al. Eur J Endocrinol 2014;170:G1-G47
  * (bolus regimen, from memory); mass balance as ntr_balance_predict().

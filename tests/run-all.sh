@@ -33,8 +33,10 @@ packages=(
     python3-pandas
     python3-distributed
     make
+    cmake
     # + postgresql-N and postgresql-server-dev-N (found below)
     doxygen
+    libjs-mathjax
     librsvg2-bin
     # reliability (P6): short fuzzing (suite 'fuzz') and the s390x cross
     # test (suite 'cross'; tests/cross.sh adds the s390x architecture and
