@@ -88,7 +88,9 @@ apt_missing "${packages[@]}"
 
 # ---- configure (debugoptimized: the ABI check needs -g), build, test
 source tests/lib/build-steps.sh
-meson_setup_dir "$builddir" -Dbuildtype=debugoptimized
+# tests and docs enabled: a missing cmocka, doxygen or MathJax fails the
+# setup instead of silently switching the unit tests or the manual off.
+meson_setup_dir "$builddir" -Dbuildtype=debugoptimized -Dtests=enabled -Ddocs=enabled
 ninja -C "$builddir"
 
 test_status=0
