@@ -486,6 +486,12 @@ def _enum(cls, value, argname, function):
 # Version and provenance
 # ---------------------------------------------------------------------------
 
+def library_path() -> str:
+    """Path (or soname) of the libnatremia this process loaded; see
+    natremia._loader for the search order."""
+    return _lib._name
+
+
 def version():
     """The loaded library's version string, "MAJOR.MINOR.PATCH"."""
     return _fn("ntr_version_string")().decode("ascii")
