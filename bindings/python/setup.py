@@ -15,6 +15,9 @@ C99, the warnings of meson.build, ``-ffp-contract=off`` (results must not
 depend on fused multiply-adds), hidden visibility with the version script,
 and SSE2 arithmetic on 32-bit x86. Warnings are not errors here (a user's
 newer compiler must not stop an install); the project build keeps -Werror.
+
+An optional CPython extension, natremia._speed (src/_speed.c), speeds up
+the scalar calls; it is built only when Python's headers are installed.
 """
 
 import os
@@ -23,7 +26,7 @@ import shutil
 import subprocess
 import sys
 
-from setuptools import Distribution, setup
+from setuptools import Distribution, Extension, setup
 from setuptools.command.build_py import build_py
 from setuptools.command.sdist import sdist
 
@@ -119,5 +122,11 @@ class _BinaryDistribution(Distribution):
         return True
 
 
+# The optional accelerator of the scalar calls (src/_speed.c): built when
+# Python's headers are there (Debian: python3-dev), skipped with a warning
+# otherwise; the binding then runs on ctypes alone, with the same results.
+SPEED = Extension("natremia._speed", ["src/_speed.c"], optional=True,
+                  extra_compile_args=["-O2", "-Wall", "-Wextra"])
+
 setup(cmdclass={"build_py": _BuildPy, "sdist": _Sdist},
-      distclass=_BinaryDistribution)
+      distclass=_BinaryDistribution, ext_modules=[SPEED])

@@ -83,6 +83,10 @@ if how == "bundled":
     assert mapped == {os.path.realpath(loaded)}, mapped
 elif path:
     assert loaded == path, (loaded, path)
+# With Python's headers at build time the accelerator is built and used.
+import sysconfig
+headers = os.path.isfile(os.path.join(sysconfig.get_paths()["include"], "Python.h"))
+assert natremia._core.speedup_active() == headers, headers
 assert natremia.__version__ == natremia.version(), (natremia.__version__,
                                                     natremia.version())
 # Source: the conventional 2*Na formula (Dorwart & Chalmers, Clin Chem 1975).

@@ -7,12 +7,22 @@ NTR_OK, so a result that comes back is always a valid one.
 
 import ctypes
 import enum
+import math
+import numbers
+import operator
+import os
 from collections import namedtuple
 from dataclasses import dataclass
+from typing import Optional, Tuple
 
 from ._loader import load
 
 _lib = load()
+
+try:  # the optional accelerator of the scalar calls (src/_speed.c)
+    from . import _speed
+except ImportError:
+    _speed = None
 
 c_double = ctypes.c_double
 c_int = ctypes.c_int
@@ -63,13 +73,16 @@ class NatremiaError(ValueError):
 
     Attributes: ``status`` (the C status code), ``status_name`` (such as
     'NTR_ERR_RANGE'), ``message`` (the library's description), ``function``
-    (the Python name that failed) and, for array functions, ``row`` (index
+    (the Python name that failed), ``argument`` and ``value`` (the input
+    that failed, when one did), ``accepted`` (its accepted range or
+    values, from ntr_input_range) and, for array functions, ``row`` (index
     of the first failing row in the flattened input) and ``failed`` (how many
     rows failed). ``detail`` holds any extra explanation from the binding.
     """
 
     def __init__(self, status, function, detail=None, row=None, failed=None,
-                 argument=None, group_id=None, value=None):
+                 argument=None, group_id=None, value=None, accepted=None):
+        self.accepted = accepted
         self.status = int(status)
         self.status_name = status_name(status)
         self.message = status_message(status)
@@ -85,6 +98,8 @@ class NatremiaError(ValueError):
             text += " in argument %s" % (argument,)
             if value is not None:
                 text += " (given %r)" % (value,)
+        if accepted is not None:
+            text += "; accepted: %s" % (accepted,)
         if row is not None:
             text += "; first failing row %d, %d row(s) failed" % (row, failed)
         if group_id is not None:
@@ -207,9 +222,37 @@ def _blame(cname, args, status):
     return None, None
 
 
+def _number(value, argument, cname, function):
+    """A numeric input as float: int, float and numpy numbers; bool, None,
+    pd.NA, strings and the like raise a TypeError naming the argument."""
+    if value.__class__ is float:
+        return value
+    if (isinstance(value, numbers.Real) and not isinstance(value, bool)
+            and type(value).__name__ != "bool_"):
+        return float(value)
+    accepted = _accepted_text(cname, argument)
+    raise TypeError("%s: argument %s must be a number%s, not %r" % (
+        function, argument, " (%s)" % accepted if accepted else "", value))
+
+
+def _numbers(cname, pyname, args):
+    """Every double input of a call through _number (enumerators, already
+    converted by _enum, pass as they are)."""
+    names = _ARGUMENTS.get(cname, ((), ()))
+    argtypes = _PROTOTYPES[cname][1]
+    out = list(args)
+    for i, value in enumerate(args):
+        if argtypes[i] is c_double and value.__class__ is not float:
+            name = names[0][i] if i < len(names[0]) else "argument %d" % i
+            out[i] = _number(value, name, cname, pyname)
+    return out
+
+
 def _call(cname, pyname, args, outs):
     """Call a C function with inputs and output objects; raise a
-    NatremiaError naming the failing argument on any status but NTR_OK."""
+    NatremiaError naming the failing argument and its accepted range on
+    any status but NTR_OK."""
+    args = _numbers(cname, pyname, args)
     status = _fn(cname)(*args, *[ctypes.byref(o) for o in outs])
     if status != OK:
         detail = None
@@ -218,7 +261,67 @@ def _call(cname, pyname, args, outs):
                       "defined for them together")
         argument, value = _blame(cname, args, status)
         raise NatremiaError(status, pyname, detail=detail, argument=argument,
-                            value=value)
+                            value=value,
+                            accepted=_accepted_text(cname, argument))
+
+
+def _defer(*args):
+    """Stand-in of an accelerated call: always leaves it to ctypes."""
+    return None
+
+
+def _fast(cname, signature):
+    """The accelerated callable of a C function (natremia._speed), bound
+    once at import to the function's address in the loaded library; or
+    _defer when the accelerator is absent, switched off
+    (NATREMIA_NO_SPEEDUP=1) or the library lacks the function."""
+    try:
+        fn = _fn(cname)
+    except AttributeError:
+        return _defer
+    if _speed is None or os.environ.get("NATREMIA_NO_SPEEDUP"):
+        return _ctypes_fast(fn, signature)
+    return _speed.bind(ctypes.cast(fn, ctypes.c_void_p).value,
+                       getattr(_speed, signature))
+
+
+# Positions of the int input in each signature of natremia._speed.
+_INT_POSITION = {"SIG_I_D1": 0, "SIG_I_D2": 0, "SIG_I_D3": 0, "SIG_D2_I": -1,
+                 "SIG_D4_I": -1}
+
+
+def _ctypes_fast(fn, signature):
+    """The ctypes form of an accelerated call, for when natremia._speed is
+    not built: the same contract (result, status, or None to defer), with
+    the prototype bound once; only exact floats and ints (an int input
+    within C int) are taken, so ctypes never wraps or coerces."""
+    where = _INT_POSITION.get(signature)
+    int_out = signature == "SIG_D1_OI"
+    byref = ctypes.byref
+    out_type = c_int if int_out else c_double
+
+    def call(*args):
+        for i, a in enumerate(args):
+            cls = a.__class__
+            if cls is float:
+                if where is not None and (i == where or i - len(args) == where):
+                    return None
+            elif cls is int:
+                if not _INT_MIN <= a <= _INT_MAX:
+                    return None
+            else:
+                return None
+        out = out_type()
+        status = fn(*args, byref(out))
+        return out.value if status == OK else status
+
+    return call
+
+
+def speedup_active() -> bool:
+    """True when the scalar calls run through the compiled accelerator
+    (natremia._speed) rather than ctypes alone."""
+    return _speed is not None and not os.environ.get("NATREMIA_NO_SPEEDUP")
 
 
 # ---------------------------------------------------------------------------
@@ -340,6 +443,7 @@ _PROTOTYPES = {
     "ntr_fluid_allowance": (c_int, [_D, _D, _D, _D, _D, _D, _PD]),
     "ntr_solute_dose_osmoles": (c_int, [c_int, _D, _PD]),
     "ntr_fe_uric_acid_class": (c_int, [_D, _PI]),
+    "ntr_input_range": (c_int, [c_int, _PD, _PD]),
 }
 
 _declared = {}
@@ -372,6 +476,37 @@ def _double_result(cname, pyname, *args):
     out = c_double()
     _call(cname, pyname, args, [out])
     return out.value
+
+
+def _dbl(fast, cname, pyname, *args):
+    """A double result: the accelerated call when it can take the
+    arguments and succeeds, else the ctypes call that names any failure."""
+    r = fast(*args)
+    if r.__class__ is float:
+        return r
+    return _double_result(cname, pyname, *args)
+
+
+# Accelerated callables, bound once at import (see _fast).
+_FAST_OSM_EFFECTIVE = _fast("ntr_osm_effective", "SIG_D2")
+_FAST_TBW_FRACTION = _fast("ntr_tbw_fraction", "SIG_I_D2")
+_FAST_OSM_GAP = _fast("ntr_osm_gap", "SIG_D2")
+_FAST_NA_CORRECTED_GLUCOSE_FACTOR = _fast("ntr_na_corrected_glucose_factor", "SIG_D3")
+_FAST_NA_DEFICIT = _fast("ntr_na_deficit", "SIG_D3")
+_FAST_TBW_WATSON = _fast("ntr_tbw_watson", "SIG_I_D3")
+_FAST_FREE_WATER_DEFICIT = _fast("ntr_free_water_deficit", "SIG_D2")
+_FAST_INFUSATE_CHANGE_PER_LITRE = _fast("ntr_infusate_change_per_litre", "SIG_D4")
+_FAST_INFUSATE_CHANGE = _fast("ntr_infusate_change", "SIG_D5")
+_FAST_INFUSATE_VOLUME_FOR_CHANGE = _fast("ntr_infusate_volume_for_change", "SIG_D5")
+_FAST_FURST_RATIO = _fast("ntr_furst_ratio", "SIG_D3")
+_FAST_EFWC = _fast("ntr_efwc", "SIG_D4")
+_FAST_EFFECTIVE_OSM_MEASURED = _fast("ntr_effective_osm_measured", "SIG_D5")
+_FAST_FRACTIONAL_EXCRETION = _fast("ntr_fractional_excretion", "SIG_D4")
+_FAST_URINE_VOLUME_FROM_SOLUTE = _fast("ntr_urine_volume_from_solute", "SIG_D2")
+_FAST_FLUID_ALLOWANCE = _fast("ntr_fluid_allowance", "SIG_D6")
+_FAST_OSM_CALCULATED = _fast("ntr_osm_calculated", "SIG_D4_I")
+_FAST_NA_CORRECTED_GLUCOSE = _fast("ntr_na_corrected_glucose", "SIG_D2_I")
+_FAST_SOLUTE_DOSE_OSMOLES = _fast("ntr_solute_dose_osmoles", "SIG_I_D1")
 
 
 # ---------------------------------------------------------------------------
@@ -466,20 +601,211 @@ _ALIASES = {
 }
 
 
+_INT_MIN, _INT_MAX = -2 ** 31, 2 ** 31 - 1
+_NAME_CODES = {}  # (enumeration, string) -> code, filled on first use
+
+
+# Spellings of sex the hot path maps without a call (others go to _enum).
+_SEX_NAMES = {}
+for _name, _code in (("male", 1), ("m", 1), ("female", 2), ("f", 2)):
+    for _spelling in (_name, _name.upper(), _name.title()):
+        _SEX_NAMES[_spelling] = _code
+del _name, _code, _spelling
+
+
+def _enum_names(cls):
+    return ", ".join("%s (%d)" % (m.name.lower(), int(m)) for m in cls)
+
+
+def _enum_name(cls, value, argname, function):
+    key = value.strip().lower()
+    alias = _ALIASES.get(cls, {}).get(key)
+    if alias is not None:
+        return int(alias)
+    for member in cls:
+        if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
+            return int(member)
+    raise NatremiaError(ERR_ARG, function, "unknown %s %r" % (argname, value),
+                        argument=argname, value=value,
+                        accepted=_enum_names(cls))
+
+
 def _enum(cls, value, argname, function):
-    """An enumerator as int: a member, an int, or a (case-blind) name."""
+    """An enumerator as int: a member, an exact integer code (int, numpy
+    integer, or a float holding an integer exactly), or a case-blind name.
+    Anything else is refused: a non-integral number (1.9) or a bool with
+    TypeError, a code the enumeration does not have (2**32 + 2, 7) with
+    NatremiaError (a ValueError, status NTR_ERR_ARG); both name the
+    argument and its accepted values."""
     if isinstance(value, str):
-        key = value.strip().lower()
-        alias = _ALIASES.get(cls, {}).get(key)
-        if alias is not None:
-            return int(alias)
-        for member in cls:
-            if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
-                return int(member)
-        raise NatremiaError(ERR_ARG, function, "unknown %s %r; one of %s" % (
-            argname, value, ", ".join(m.name.lower() for m in cls)),
-            argument=argname, value=value)
-    return int(value)
+        code = _NAME_CODES.get((cls, value))
+        if code is None:
+            code = _NAME_CODES[(cls, value)] = _enum_name(cls, value, argname,
+                                                          function)
+        return code
+    if isinstance(value, cls):
+        return int(value)
+    if isinstance(value, bool) or type(value).__name__ == "bool_":
+        raise TypeError("%s: argument %s must be an integer code or a name, "
+                        "not a bool (accepted: %s)" % (function, argname,
+                                                       _enum_names(cls)))
+    if isinstance(value, numbers.Integral):
+        code = operator.index(value)
+    elif (isinstance(value, numbers.Real) and math.isfinite(value)
+          and float(value).is_integer()):
+        code = int(value)
+    else:
+        raise TypeError("%s: argument %s must be an exact integer code or a "
+                        "name, not %r (accepted: %s)" % (
+                            function, argname, value, _enum_names(cls)))
+    if code not in cls._value2member_map_:
+        raise NatremiaError(ERR_ARG, function, "unknown %s code %d" % (
+            argname, code), argument=argname, value=value,
+            accepted=_enum_names(cls))
+    return code
+
+
+# ---------------------------------------------------------------------------
+# Accepted ranges as the library states them (ntr_input_range, since 1.1)
+# ---------------------------------------------------------------------------
+
+class InputKind(enum.IntEnum):
+    """Kinds of numeric input (NTR_INPUT_* in the C header)."""
+    NA = 1
+    GLUCOSE = 2
+    UREA = 3
+    ETHANOL = 4
+    OSMOLALITY = 5
+    AGE_FRACTION = 6
+    AGE_WATSON = 7
+    HEIGHT = 8
+    WEIGHT = 9
+    TBW = 10
+    INFUSATE_NA = 11
+    INFUSATE_K = 12
+    VOLUME = 13
+    DELTA = 14
+    URINE_NA = 15
+    URINE_K = 16
+    URINE_VOLUME = 17
+    URINE_OSM = 18
+    RATIO = 19
+    GLUCOSE_FACTOR = 20
+    CONVERT_VALUE = 21
+    HOURS = 22
+    LIMIT = 23
+    FLOW_RATE = 24
+    URINE_RATE = 25
+    PLAN_HOURS = 26
+    PLAN_STEP = 27
+    FLOW_VOLUME = 28
+    URINE_ML = 29
+    URIC_ACID = 30
+    FE_PERCENT = 31
+    FE_VALUE = 32
+    SOLUTE_MOSM_DAY = 33
+    INSENSIBLE_L_DAY = 34
+    SOLUTE_GRAMS = 35
+    INTAKE_L_DAY = 36
+    RELOWER_MARGIN = 37
+    INSENSIBLE_ML_H = 38
+    CHANGE = 39
+
+
+# The unit of each kind (the header's NTR_INPUT_* comments), and the two
+# kinds whose lower end itself is refused.
+_KIND_UNITS = {
+    1: "mmol/L", 2: "mmol/L", 3: "mmol/L", 4: "mmol/L", 5: "mOsm/kg",
+    6: "years", 7: "years", 8: "cm", 9: "kg", 10: "L", 11: "mmol/L",
+    12: "mmol/L", 13: "L", 14: "mmol/L", 15: "mmol/L", 16: "mmol/L", 17: "L",
+    18: "mOsm/kg", 19: "", 20: "mmol/L per 100 mg/dL", 21: "(its own unit)",
+    22: "h", 23: "mmol/L", 24: "mL/h", 25: "mL/h", 26: "h", 27: "h", 28: "L",
+    29: "mL", 30: "mmol/L", 31: "%", 32: "(any one unit per pair)",
+    33: "mOsm/day", 34: "L/day", 35: "g", 36: "L/day", 37: "mmol/L",
+    38: "mL/h", 39: "mmol/L",
+}
+_OPEN_MIN = frozenset({InputKind.INTAKE_L_DAY, InputKind.CHANGE})
+
+InputRange = namedtuple("InputRange", "kind min max min_open unit")
+
+
+def input_range(kind) -> InputRange:
+    """The accepted range of one kind of numeric input.
+
+    Parameters
+    ----------
+    kind : InputKind, int or str
+        The kind (``InputKind.NA``, ``1`` or ``"na"``).
+
+    Returns
+    -------
+    InputRange
+        ``(kind, min, max, min_open, unit)``: both ends are accepted
+        unless ``min_open`` (then only values above ``min``); read from the
+        library (ntr_input_range), which checks every input against them.
+    """
+    code = _enum(InputKind, kind, "kind", "input_range")
+    lo, hi = c_double(), c_double()
+    _check(_fn("ntr_input_range")(code, ctypes.byref(lo), ctypes.byref(hi)),
+           "input_range")
+    return InputRange(InputKind(code), lo.value, hi.value, code in _OPEN_MIN,
+                      _KIND_UNITS.get(code, ""))
+
+
+_K = InputKind
+# Argument name -> kind, for every name the scalar and array functions use;
+# (C function, argument) overrides where one name means another kind.
+_ARGUMENT_KINDS = {
+    "na_mmol_l": _K.NA, "target_na_mmol_l": _K.NA, "serum_na_mmol_l": _K.NA,
+    "baseline_na_mmol_l": _K.NA, "history_na_mmol_l": _K.NA,
+    "glucose_mmol_l": _K.GLUCOSE, "urea_mmol_l": _K.UREA,
+    "ethanol_mmol_l": _K.ETHANOL, "measured_mosm_kg": _K.OSMOLALITY,
+    "calculated_mosm_kg": _K.OSMOLALITY, "measured_osm_mosm_kg": _K.OSMOLALITY,
+    "age_years": _K.AGE_FRACTION, "height_cm": _K.HEIGHT,
+    "weight_kg": _K.WEIGHT, "tbw_l": _K.TBW,
+    "infusate_na_mmol_l": _K.INFUSATE_NA, "fluid_na_mmol_l": _K.INFUSATE_NA,
+    "infusate_k_mmol_l": _K.INFUSATE_K, "fluid_k_mmol_l": _K.INFUSATE_K,
+    "volume_l": _K.VOLUME, "target_delta_mmol_l": _K.DELTA,
+    "urine_na_mmol_l": _K.URINE_NA, "urine_k_mmol_l": _K.URINE_K,
+    "urine_volume_l": _K.URINE_VOLUME, "urine_osm_mosm_kg": _K.URINE_OSM,
+    "ratio": _K.RATIO, "factor_per_100mg_dl": _K.GLUCOSE_FACTOR,
+    "value": _K.CONVERT_VALUE, "hours": _K.HOURS,
+    "history_hours": _K.HOURS, "lower_by_mmol_l": _K.CHANGE,
+    "urine_ml_h": _K.URINE_RATE, "urine_x": _K.FE_VALUE,
+    "plasma_x": _K.FE_VALUE, "urine_creatinine": _K.FE_VALUE,
+    "plasma_creatinine": _K.FE_VALUE, "solute_mosm_day": _K.SOLUTE_MOSM_DAY,
+    "insensible_l_day": _K.INSENSIBLE_L_DAY, "grams": _K.SOLUTE_GRAMS,
+    "fe_uric_acid_percent": _K.FE_PERCENT, "duration_h": _K.PLAN_HOURS,
+    "step_h": _K.PLAN_STEP,
+}
+_ARGUMENT_KIND_OVERRIDES = {
+    ("ntr_tbw_watson", "age_years"): _K.AGE_WATSON,
+    ("ntr_batch_tbw_watson", "age_years"): _K.AGE_WATSON,
+    ("ntr_relower_estimate", "hours"): _K.PLAN_STEP,
+}
+del _K
+_RANGE_CACHE = {}
+
+
+def _accepted_text(cname, argument):
+    """'80 to 220 mmol/L' for an argument with a known kind, else None."""
+    if argument is None:
+        return None
+    kind = _ARGUMENT_KIND_OVERRIDES.get((cname, argument),
+                                        _ARGUMENT_KINDS.get(argument))
+    if kind is None:
+        return None
+    text = _RANGE_CACHE.get(kind)
+    if text is None:
+        try:
+            r = input_range(kind)
+        except (AttributeError, NatremiaError):  # a library before 1.1
+            return None
+        text = "%s%g to %g%s (%s)" % ("above " if r.min_open else "", r.min,
+                                       r.max, " " + r.unit if r.unit else "",
+                                       "NTR_INPUT_" + r.kind.name)
+        _RANGE_CACHE[kind] = text
+    return text
 
 
 # ---------------------------------------------------------------------------
@@ -555,27 +881,52 @@ def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0
                    formula=OsmFormula.TWO_NA):
     """Calculated serum osmolality, mOsm/kg ("2na" or "dorwart_chalmers")."""
     fn = "osm_calculated"
-    return _double_result("ntr_osm_calculated", fn, na_mmol_l, glucose_mmol_l,
+    return _dbl(_FAST_OSM_CALCULATED, "ntr_osm_calculated", fn, na_mmol_l, glucose_mmol_l,
                           urea_mmol_l, ethanol_mmol_l,
                           _enum(OsmFormula, formula, "formula", fn))
 
 
-def osm_effective(*, na_mmol_l, glucose_mmol_l):
-    """Effective osmolality (tonicity) 2*Na + glucose, mOsm/kg."""
+def osm_effective(*, na_mmol_l: float, glucose_mmol_l: float) -> float:
+    """Effective osmolality (tonicity) 2*Na + glucose, mOsm/kg.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium, mmol/L (80 to 220).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L (0 to 200).
+
+    Returns
+    -------
+    float
+        2 * na_mmol_l + glucose_mmol_l, mOsm/kg (ntr_osm_effective).
+
+    Raises
+    ------
+    NatremiaError
+        An input is not finite or out of range; names it and its range.
+    TypeError
+        An input is not a number.
+    """
+    # Hot path: one call of the bound accelerator; anything it does not
+    # return as a float goes through ctypes, which names the failure.
+    r = _FAST_OSM_EFFECTIVE(na_mmol_l, glucose_mmol_l)
+    if r.__class__ is float:
+        return r
     return _double_result("ntr_osm_effective", "osm_effective", na_mmol_l,
                           glucose_mmol_l)
 
 
 def osm_gap(*, measured_mosm_kg, calculated_mosm_kg):
     """Osmolal gap, measured minus calculated, mOsm/kg."""
-    return _double_result("ntr_osm_gap", "osm_gap", measured_mosm_kg,
+    return _dbl(_FAST_OSM_GAP, "ntr_osm_gap", "osm_gap", measured_mosm_kg,
                           calculated_mosm_kg)
 
 
 def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ):
     """Sodium corrected for hyperglycaemia ("katz" 1.6 or "hillier" 2.4)."""
     fn = "na_corrected_glucose"
-    return _double_result("ntr_na_corrected_glucose", fn, na_mmol_l,
+    return _dbl(_FAST_NA_CORRECTED_GLUCOSE, "ntr_na_corrected_glucose", fn, na_mmol_l,
                           glucose_mmol_l,
                           _enum(GlucoseMethod, method, "method", fn))
 
@@ -583,19 +934,45 @@ def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ
 def na_corrected_glucose_factor(*, na_mmol_l, glucose_mmol_l,
                                 factor_per_100mg_dl):
     """Sodium corrected for hyperglycaemia with a caller's factor."""
-    return _double_result("ntr_na_corrected_glucose_factor",
-                          "na_corrected_glucose_factor", na_mmol_l,
+    return _dbl(_FAST_NA_CORRECTED_GLUCOSE_FACTOR, "ntr_na_corrected_glucose_factor", "na_corrected_glucose_factor", na_mmol_l,
                           glucose_mmol_l, factor_per_100mg_dl)
 
 
 def na_deficit(*, tbw_l, na_mmol_l, target_na_mmol_l):
     """Sodium needed to reach a target, TBW*(target - Na), mmol."""
-    return _double_result("ntr_na_deficit", "na_deficit", tbw_l, na_mmol_l,
+    return _dbl(_FAST_NA_DEFICIT, "ntr_na_deficit", "na_deficit", tbw_l, na_mmol_l,
                           target_na_mmol_l)
 
 
-def tbw_fraction(*, sex, age_years, weight_kg):
-    """Total body water as a fraction of weight (Adrogue-Madias), L."""
+def tbw_fraction(*, sex, age_years: float, weight_kg: float) -> float:
+    """Total body water as a fraction of weight (Adrogue-Madias), L.
+
+    Parameters
+    ----------
+    sex : Sex, int or str
+        ``Sex.MALE`` (1) or ``Sex.FEMALE`` (2), or a name ("male", "f").
+        Exact codes only: 1.9 or True raise TypeError.
+    age_years : float
+        Age, 1 to 130 years (child, adult and elderly bands).
+    weight_kg : float
+        Body weight, 0.3 to 650 kg.
+
+    Returns
+    -------
+    float
+        fraction * weight, L (ntr_tbw_fraction).
+
+    Raises
+    ------
+    NatremiaError
+        An unknown sex code or an input out of range; names the argument.
+    TypeError
+        A non-integral or bool sex, or a non-numeric input.
+    """
+    code = _SEX_NAMES.get(sex, 0) if sex.__class__ is str else sex
+    r = _FAST_TBW_FRACTION(code, age_years, weight_kg)
+    if r.__class__ is float:
+        return r
     fn = "tbw_fraction"
     return _double_result("ntr_tbw_fraction", fn, _enum(Sex, sex, "sex", fn),
                           age_years, weight_kg)
@@ -604,13 +981,13 @@ def tbw_fraction(*, sex, age_years, weight_kg):
 def tbw_watson(*, sex, age_years, height_cm, weight_kg):
     """Total body water by the Watson equations (adults), L."""
     fn = "tbw_watson"
-    return _double_result("ntr_tbw_watson", fn, _enum(Sex, sex, "sex", fn),
+    return _dbl(_FAST_TBW_WATSON, "ntr_tbw_watson", fn, _enum(Sex, sex, "sex", fn),
                           age_years, height_cm, weight_kg)
 
 
 def free_water_deficit(*, tbw_l, na_mmol_l):
     """Free-water deficit TBW*(Na/140 - 1), L."""
-    return _double_result("ntr_free_water_deficit", "free_water_deficit",
+    return _dbl(_FAST_FREE_WATER_DEFICIT, "ntr_free_water_deficit", "free_water_deficit",
                           tbw_l, na_mmol_l)
 
 
@@ -629,15 +1006,14 @@ def fluid_preset(fluid):
 def infusate_change_per_litre(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
                               infusate_k_mmol_l=0.0):
     """Change in serum sodium from 1 L of infusate (Adrogue-Madias), mmol/L."""
-    return _double_result("ntr_infusate_change_per_litre",
-                          "infusate_change_per_litre", na_mmol_l, tbw_l,
+    return _dbl(_FAST_INFUSATE_CHANGE_PER_LITRE, "ntr_infusate_change_per_litre", "infusate_change_per_litre", na_mmol_l, tbw_l,
                           infusate_na_mmol_l, infusate_k_mmol_l)
 
 
 def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
                     infusate_k_mmol_l=0.0):
     """Change in serum sodium from any volume of infusate, mmol/L."""
-    return _double_result("ntr_infusate_change", "infusate_change", na_mmol_l,
+    return _dbl(_FAST_INFUSATE_CHANGE, "ntr_infusate_change", "infusate_change", na_mmol_l,
                           tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                           volume_l)
 
@@ -645,15 +1021,14 @@ def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
 def infusate_volume_for_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
                                target_delta_mmol_l, infusate_k_mmol_l=0.0):
     """Volume of infusate expected to change sodium by a target, L."""
-    return _double_result("ntr_infusate_volume_for_change",
-                          "infusate_volume_for_change", na_mmol_l, tbw_l,
+    return _dbl(_FAST_INFUSATE_VOLUME_FOR_CHANGE, "ntr_infusate_volume_for_change", "infusate_volume_for_change", na_mmol_l, tbw_l,
                           infusate_na_mmol_l, infusate_k_mmol_l,
                           target_delta_mmol_l)
 
 
 def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
     """The Furst ratio (U_Na + U_K) / S_Na."""
-    return _double_result("ntr_furst_ratio", "furst_ratio", urine_na_mmol_l,
+    return _dbl(_FAST_FURST_RATIO, "ntr_furst_ratio", "furst_ratio", urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
 
 
@@ -667,7 +1042,7 @@ def restriction_from_ratio(ratio):
 
 def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
     """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L."""
-    return _double_result("ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
+    return _dbl(_FAST_EFWC, "ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
 
 
@@ -759,7 +1134,7 @@ def effective_osm_measured(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
     less urea and the library's ethanol term, floored at the calculated
     effective osmolality (ntr_effective_osm_measured; the header gives the
     equation, the coefficient and why the floor)."""
-    return _double_result("ntr_effective_osm_measured", "effective_osm_measured",
+    return _dbl(_FAST_EFFECTIVE_OSM_MEASURED, "ntr_effective_osm_measured", "effective_osm_measured",
                           na_mmol_l, glucose_mmol_l, urea_mmol_l,
                           ethanol_mmol_l, measured_osm_mosm_kg)
 
@@ -779,7 +1154,7 @@ def urine_na_high(*, urine_na_mmol_l):
 def fractional_excretion(*, urine_x, plasma_x, urine_creatinine,
                          plasma_creatinine):
     """Fractional excretion of a solute, percent (each pair in one unit)."""
-    return _double_result("ntr_fractional_excretion", "fractional_excretion",
+    return _dbl(_FAST_FRACTIONAL_EXCRETION, "ntr_fractional_excretion", "fractional_excretion",
                           urine_x, plasma_x, urine_creatinine,
                           plasma_creatinine)
 
@@ -1009,8 +1384,7 @@ class Solute(enum.IntEnum):
 def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg):
     """Daily urine volume, L/day, that a solute load makes at a fixed urine
     osmolality: V = solute / U_osm (Berl 2008)."""
-    return _double_result("ntr_urine_volume_from_solute",
-                          "urine_volume_from_solute", solute_mosm_day,
+    return _dbl(_FAST_URINE_VOLUME_FROM_SOLUTE, "ntr_urine_volume_from_solute", "urine_volume_from_solute", solute_mosm_day,
                           urine_osm_mosm_kg)
 
 
@@ -1019,7 +1393,7 @@ def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
     """The most fluid per day, L/day, that does not lower the sodium:
     V * (1 - (U_Na + U_K) / S_Na) + insensible, V from the solute. A
     negative result means restriction alone cannot hold the sodium."""
-    return _double_result("ntr_fluid_allowance", "fluid_allowance",
+    return _dbl(_FAST_FLUID_ALLOWANCE, "ntr_fluid_allowance", "fluid_allowance",
                           solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l, insensible_l_day)
 
@@ -1027,7 +1401,7 @@ def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
 def solute_dose_osmoles(*, solute, grams):
     """Osmoles, mOsm, in a dose of urea (1 per mole) or NaCl (2 per mole),
     molar masses from the IUPAC atomic weights."""
-    return _double_result("ntr_solute_dose_osmoles", "solute_dose_osmoles",
+    return _dbl(_FAST_SOLUTE_DOSE_OSMOLES, "ntr_solute_dose_osmoles", "solute_dose_osmoles",
                           _enum(Solute, solute, "solute", "solute_dose_osmoles"), grams)
 
 
