@@ -22,6 +22,7 @@ import numpy as np
 from . import _core
 from ._core import (NatremiaError, GlucoseMethod, LimitsPreset, OsmFormula,
                     Sex, _enum, _limits_struct)
+from ._core import _blame  # noqa: F401  (re-exported for the frame helpers)
 from ._course import (CourseReportStruct, CourseLimitsStruct, CoursePreset,
                       _course_limits_struct, flag_labels)
 
@@ -69,14 +70,20 @@ def _ptr(array, ctype):
 
 
 def _finish(function, status_code, failed, out, status, shape, errors,
-            with_status):
-    """Raise or return, following the errors / with_status choice."""
+            with_status, blame=None):
+    """Raise or return, following the errors / with_status choice.
+    ``blame(row)`` names the argument that failed in a row (the scalar
+    binding's rule) for the error message."""
     if failed.value == _SIZE_MAX:  # a call-level error: nothing was written
         raise NatremiaError(status_code, function)
     if failed.value and errors == "raise":
         row = int(np.flatnonzero(status)[0])
+        argument = value = accepted = None
+        if blame is not None:
+            argument, value, accepted = blame(row, int(status[row]))
         raise NatremiaError(int(status[row]), function, row=row,
-                            failed=int(failed.value))
+                            failed=int(failed.value), argument=argument,
+                            value=value, accepted=accepted)
     out = out.reshape(shape)
     if with_status:
         return out, status.reshape(shape)
@@ -88,26 +95,205 @@ def _check_errors_choice(errors):
         raise ValueError("errors must be 'raise' or 'nan', not %r" % (errors,))
 
 
+# ---------------------------------------------------------------------------
+# Inputs as they come from data frames: pandas Series (index kept, indexes
+# must agree), masked arrays (masked rows fail), missing values (pd.NA,
+# None, NaN: failed rows), enumerations as strings, categories or objects.
+# ---------------------------------------------------------------------------
+
+def _pandas():
+    """pandas if it is already imported by the caller (never imported here:
+    a Series can only come from a program that did)."""
+    import sys
+    return sys.modules.get("pandas")
+
+
+def _is_series(value):
+    pd = _pandas()
+    return pd is not None and isinstance(value, pd.Series)
+
+
+class _Frame:
+    """What the inputs of one call share: the pandas index (when any input
+    is a Series) and the mask of masked-array inputs."""
+
+    def __init__(self, function):
+        self.function = function
+        self.index = None
+        self.index_from = None
+        self.masks = []
+
+    def take_index(self, value, argument):
+        if not _is_series(value):
+            return
+        if self.index is None:
+            self.index, self.index_from = value.index, argument
+        elif not self.index.equals(value.index):
+            raise ValueError(
+                "%s: the pandas indexes of %s and %s differ; natremia pairs "
+                "rows by index and refuses to guess: align them first (for "
+                "example columns of one DataFrame, or .reindex)"
+                % (self.function, self.index_from, argument))
+
+    def wrap(self, array, name=None):
+        """The result as the inputs came: a Series on their index, a
+        masked array under their mask, else the plain array."""
+        if self.index is not None and array.ndim == 1 and \
+                array.shape[0] == len(self.index):
+            return _pandas().Series(array, index=self.index, name=name)
+        if self.masks:
+            mask = np.zeros(array.shape, dtype=bool)
+            for m in self.masks:
+                mask |= np.broadcast_to(m, array.shape)
+            return np.ma.MaskedArray(array, mask=mask)
+        return array
+
+
+def _float_input(value, argument, frame):
+    """An input as float64, missing values (pd.NA, None, NaT) as NaN, so
+    that their rows fail with NTR_ERR_NONFINITE like any NaN."""
+    frame.take_index(value, argument)
+    if _is_series(value):
+        if value.dtype.kind == "b" or str(value.dtype) == "boolean":
+            raise TypeError("%s: argument %s is boolean, not numbers"
+                            % (frame.function, argument))
+        try:
+            return value.to_numpy(dtype=np.float64, na_value=np.nan)
+        except (TypeError, ValueError):
+            raise TypeError("%s: argument %s holds values that are not "
+                            "numbers (dtype %s)" % (frame.function, argument,
+                                                    value.dtype)) from None
+    if isinstance(value, np.ma.MaskedArray):
+        mask = np.ma.getmaskarray(value)
+        frame.masks.append(mask)
+        return np.where(mask, np.nan, np.ma.getdata(value).astype(np.float64))
+    a = np.asarray(value)
+    if a.dtype.kind == "b":
+        raise TypeError("%s: argument %s is boolean, not numbers"
+                        % (frame.function, argument))
+    if a.dtype.kind == "O":
+        return np.array([_missing_to_nan(v, argument, frame.function)
+                         for v in a.ravel()], dtype=np.float64).reshape(a.shape)
+    try:
+        return a.astype(np.float64, copy=False)
+    except (TypeError, ValueError):
+        raise TypeError("%s: argument %s holds values that are not numbers "
+                        "(dtype %s)" % (frame.function, argument, a.dtype)) \
+            from None
+
+
+def _is_missing(v):
+    if v is None:
+        return True
+    pd = _pandas()
+    if pd is not None and (v is pd.NA or v is pd.NaT):
+        return True
+    return isinstance(v, float) and v != v
+
+
+def _missing_to_nan(v, argument, function):
+    if _is_missing(v):
+        return np.nan
+    if isinstance(v, (bool, np.bool_)) or isinstance(v, str):
+        raise TypeError("%s: argument %s holds %r, not a number"
+                        % (function, argument, v))
+    return float(v)
+
+
+def _enum_input(value, cls, argument, frame):
+    """An enumeration column as int32 codes: members, exact integer codes
+    or names (strings, pandas string, category and object columns).
+    Missing entries become 0, which the library refuses (NTR_ERR_ARG), so
+    their rows fail; a non-integral number or a bool raises TypeError, a
+    code beyond C int or an unknown name raises NatremiaError, both naming
+    the argument."""
+    f = frame.function
+    frame.take_index(value, argument)
+    mask = None
+    if isinstance(value, np.ma.MaskedArray):
+        mask = np.ma.getmaskarray(value)
+        frame.masks.append(mask)
+        value = np.ma.getdata(value)
+    if _is_series(value):
+        if str(value.dtype) == "category":
+            cats = [_enum(cls, c, argument, f) for c in value.cat.categories]
+            lookup = np.array(cats + [0], dtype=np.intc)  # code -1: missing
+            return lookup[value.cat.codes.to_numpy()]
+        value = value.to_numpy(dtype=object) if value.dtype.kind in "OUSb" or \
+            str(value.dtype) in ("string", "boolean") or \
+            value.hasnans else value.to_numpy()
+    a = np.asarray(value)
+    if a.dtype.kind == "b":
+        raise TypeError("%s: argument %s is boolean, not codes (accepted: %s)"
+                        % (f, argument, _core._enum_names(cls)))
+    if a.dtype.kind in "USO":
+        flat = a.ravel()
+        codes = {}
+        out = np.empty(flat.shape, dtype=np.intc)
+        for i, v in enumerate(flat.tolist()):
+            key = (type(v), v) if not _is_missing(v) else None
+            code = codes.get(key)
+            if code is None:
+                code = codes[key] = 0 if key is None else \
+                    _enum(cls, v, argument, f)
+            out[i] = code
+        out = out.reshape(a.shape)
+    elif a.dtype.kind in "iu":
+        wide = a.astype(np.int64) if a.dtype != np.uint64 else a
+        if wide.size and (wide.min() < _core._INT_MIN or
+                          wide.max() > _core._INT_MAX):
+            bad = wide[(wide < _core._INT_MIN) | (wide > _core._INT_MAX)][0]
+            raise NatremiaError(_core.ERR_ARG, f, "code %d is beyond C int"
+                                % bad, argument=argument, value=int(bad),
+                                accepted=_core._enum_names(cls))
+        out = a.astype(np.intc)
+    elif a.dtype.kind == "f":
+        finite = np.isfinite(a)
+        if not np.all(np.floor(a[finite]) == a[finite]):
+            bad = a[finite][np.floor(a[finite]) != a[finite]][0]
+            raise TypeError("%s: argument %s must hold exact integer codes, "
+                            "not %r (accepted: %s)" % (
+                                f, argument, float(bad),
+                                _core._enum_names(cls)))
+        if np.any(np.abs(a[finite]) > _core._INT_MAX):
+            raise NatremiaError(_core.ERR_ARG, f, "a code is beyond C int",
+                                argument=argument,
+                                accepted=_core._enum_names(cls))
+        out = np.where(finite, a, 0).astype(np.intc)
+    else:
+        raise TypeError("%s: argument %s must hold codes or names, not dtype "
+                        "%s" % (f, argument, a.dtype))
+    if mask is not None:
+        out = np.where(mask, 0, out).astype(np.intc)
+    return out
+
+
 def _sex_array(sex, function):
-    """Sex as int32 codes; strings ("male", "f", ...) are mapped first."""
-    a = np.asarray(sex)
-    if a.dtype.kind in "US":
-        codes = {name: _enum(Sex, name, "sex", function)
-                 for name in np.unique(a).tolist()}
-        mapped = np.empty(a.shape, dtype=np.intc)
-        for name, code in codes.items():
-            mapped[a == name] = code
-        return mapped
-    return a
+    """Sex as int32 codes (kept for callers of 1.1.0; see _enum_input)."""
+    return _enum_input(sex, Sex, "sex", _Frame(function))
+
+
+def _input_names(cname):
+    """Argument names of a batch function's numeric inputs, from the
+    scalar binding's table (sex first when it has one)."""
+    scalar = cname.replace("ntr_batch_", "ntr_")
+    names, examples = _core._ARGUMENTS.get(scalar, ((), ()))
+    return scalar, [n for n, e in zip(names, examples)
+                    if e is not None or n == "sex"]
 
 
 def _run(function, cname, inputs, *, sex=None, enum_value=None,
          int_output=False, errors="raise", with_status=False):
     """Broadcast, call the batch entry point once, check the outcome."""
     _check_errors_choice(errors)
-    arrays = [np.asarray(v, dtype=np.float64) for v in inputs]
+    scalar, names = _input_names(cname)
+    value_names = names[1:] if sex is not None else names
+    if len(value_names) != len(inputs):
+        value_names = ["input %d" % i for i in range(len(inputs))]
+    frame = _Frame(function)
+    arrays = [_float_input(v, n, frame) for v, n in zip(inputs, value_names)]
     if sex is not None:
-        arrays.insert(0, _sex_array(sex, function))
+        arrays.insert(0, _enum_input(sex, Sex, "sex", frame))
     arrays = np.broadcast_arrays(*arrays)
     shape = arrays[0].shape
     if sex is not None:
@@ -129,8 +315,30 @@ def _run(function, cname, inputs, *, sex=None, enum_value=None,
     args += [_ptr(out, ctypes.c_int if int_output else ctypes.c_double),
              _ptr(status, ctypes.c_int), ctypes.byref(failed)]
     code = fn(*args)
-    return _finish(function, code, failed, out, status, shape, errors,
-                   with_status)
+
+    def blame(row, row_status):
+        """The argument that failed in one row, by the scalar rule."""
+        row_args = [float(c[row]) for c in columns]
+        all_names = list(value_names)
+        if sex is not None:
+            row_args.insert(0, int(sex_col[row]))
+            all_names.insert(0, "sex")
+        if enum_value is not None:
+            row_args.append(enum_value)
+        argument, value = _core._blame(scalar, row_args, row_status)
+        if argument is None and sex is not None and row_status == _core.ERR_ARG:
+            argument, value = "sex", int(sex_col[row])
+        if argument == "sex" and value == 0:
+            value = "missing"  # a missing entry is passed as code 0
+        accepted = (_core._enum_names(Sex) if argument == "sex" else
+                    _core._accepted_text(cname, argument))
+        return argument, value, accepted
+
+    result = _finish(function, code, failed, out, status, shape, errors,
+                     with_status, blame=blame)
+    if with_status:
+        return frame.wrap(result[0]), frame.wrap(result[1], "status")
+    return frame.wrap(result)
 
 
 # ---------------------------------------------------------------------------
@@ -259,6 +467,29 @@ def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
 # Correction assessment of many series at once
 # ---------------------------------------------------------------------------
 
+def _offsets_input(offsets, function):
+    """CSR offsets as size_t: exact non-negative integers only (1.7, -1,
+    bools and missing values raise, naming the argument)."""
+    a = np.asarray(offsets)
+    if a.dtype.kind == "b":
+        raise TypeError("%s: argument offsets is boolean, not row offsets"
+                        % function)
+    if a.dtype.kind == "O":
+        a = np.asarray(a.tolist())
+    if a.dtype.kind == "f":
+        if not np.all(np.isfinite(a)) or not np.all(np.floor(a) == a):
+            bad = a[~np.isfinite(a) | (np.floor(a) != a)][0]
+            raise TypeError("%s: argument offsets must hold exact integers, "
+                            "not %r" % (function, float(bad)))
+    elif a.dtype.kind not in "iu":
+        raise TypeError("%s: argument offsets must hold integers, not dtype %s"
+                        % (function, a.dtype))
+    if a.size and a.min() < 0:
+        raise NatremiaError(_core.ERR_ARG, function, "offsets must not be "
+                            "negative", argument="offsets", value=a.min().item())
+    return np.ascontiguousarray(a, dtype=np.uintp).ravel()
+
+
 def offsets_from_ids(ids):
     """CSR offsets (length groups + 1) of runs of equal ids in a grouped
     (for example sorted) id column; also returns the id of each group."""
@@ -299,7 +530,7 @@ def correction_assess_groups(*, hours, na_mmol_l, offsets,
     if hours.shape != na.shape:
         raise NatremiaError(_core.ERR_ARG, f, "hours and na_mmol_l differ in "
                             "length (%d and %d)" % (hours.size, na.size))
-    offsets = np.ascontiguousarray(offsets, dtype=np.uintp).ravel()
+    offsets = _offsets_input(offsets, f)
     if offsets.size < 1:
         raise NatremiaError(_core.ERR_ARG, f, "offsets needs groups + 1 entries")
     samples = np.empty(hours.size, dtype=SAMPLE_DTYPE)
@@ -375,7 +606,7 @@ def course_assess_groups(*, hours, na_mmol_l, offsets, limits, errors="raise",
     f = "arrays.course_assess_groups"
     _check_errors_choice(errors)
     samples = _samples_array(hours, na_mmol_l, f)
-    offsets = np.ascontiguousarray(offsets, dtype=np.uintp).ravel()
+    offsets = _offsets_input(offsets, f)
     if offsets.size < 1:
         raise NatremiaError(_core.ERR_ARG, f, "offsets needs groups + 1 "
                             "entries", argument="offsets")
@@ -518,22 +749,73 @@ def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
     return table
 
 
-def course_assess_frame(frame, *, id="patient_id", hours="hours",
-                        na_mmol_l="na_mmol_l", limits, errors="nan"):
-    """course_assess_table() over a pandas DataFrame of long rows; returns
-    a DataFrame indexed by patient id with the report fields, the status,
-    and a "flag_names" column of readable flag names. ``limits`` may also
-    name a column of the frame holding each row's preset."""
+def _frame_hours(times, ids, column):
+    """A time column as hours: numbers as they are; datetimes (naive or
+    with a time zone) and timedeltas as hours since each patient's first
+    sample, so no epoch enters the arithmetic (NTR_INPUT_HOURS); NaT as
+    NaN, which fails that patient. Also returns each patient's first time
+    (None for numeric hours)."""
+    pd = _pandas()
+    kind = times.dtype.kind
+    if kind in "Mm" or isinstance(times.dtype, pd.DatetimeTZDtype):
+        first = times.groupby(ids.to_numpy(), sort=False).transform("min")
+        hours = ((times - first) / pd.Timedelta(hours=1)).to_numpy(
+            dtype=np.float64, na_value=np.nan)
+        starts = times.groupby(ids.to_numpy()).min() if kind == "M" or \
+            isinstance(times.dtype, pd.DatetimeTZDtype) else None
+        return hours, starts
+    return _float_input(times, column, _Frame("arrays.course_assess_frame")), \
+        None
+
+
+def course_assess_frame(frame, *, id: str = "patient_id", hours: str = "hours",
+                        na_mmol_l: str = "na_mmol_l", limits,
+                        errors: str = "nan"):
+    """Assess a long DataFrame of sodium results, one row per patient.
+
+    Parameters
+    ----------
+    frame : pandas.DataFrame
+        Long rows: one sodium result per row, any order.
+    id : str
+        Column of patient ids (kept as the result's index).
+    hours : str
+        Column of sample times: hours (numbers, any origin), or datetimes
+        (``datetime64``, with or without a time zone) or timedeltas, taken
+        as hours since each patient's first sample.
+    na_mmol_l : str
+        Column of serum sodium, mmol/L (80 to 220). Missing values
+        (NaN, ``pd.NA``, ``None``) fail their patient (status
+        NTR_ERR_NONFINITE) under ``errors="nan"``.
+    limits : CourseLimits, CoursePreset, str, or column name
+        One set of limits for everyone, or the name of a column holding
+        each row's preset (the same within a patient).
+    errors : {"nan", "raise"}
+        "nan": failed patients get NaN fields and their status; "raise":
+        the first failed patient raises NatremiaError with its id.
+
+    Returns
+    -------
+    pandas.DataFrame
+        Indexed by patient id: the status, the fields of
+        ntr_course_report, "flag_names" (readable flags) and, for datetime
+        times, "first_time" (the time hours count from).
+    """
     import pandas as pd
     if isinstance(limits, str) and limits in frame.columns:
         limits = frame[limits].tolist()
-    table = course_assess_table(ids=frame[id].to_numpy(),
-                                hours=frame[hours].to_numpy(),
-                                na_mmol_l=frame[na_mmol_l].to_numpy(),
-                                limits=limits, errors=errors)
+    ids = frame[id]
+    times, starts = _frame_hours(frame[hours], ids, hours)
+    sodium = _float_input(frame[na_mmol_l], na_mmol_l,
+                          _Frame("arrays.course_assess_frame"))
+    table = course_assess_table(ids=ids.to_numpy(), hours=times,
+                                na_mmol_l=sodium, limits=limits, errors=errors)
     result = pd.DataFrame({name: table[name] for name in table.dtype.names})
     result["flag_names"] = [flag_labels(x) for x in table["flags"]]
-    return result.set_index("id").rename_axis(id)
+    result = result.set_index("id").rename_axis(id)
+    if starts is not None:
+        result["first_time"] = starts.reindex(result.index)
+    return result
 
 
 __all__ = [
@@ -556,8 +838,13 @@ __all__ = [
 
 def _loop(function, cname, inputs, lead=(), errors="raise", with_status=False):
     _check_errors_choice(errors)
-    arrays = np.broadcast_arrays(*[np.asarray(v, dtype=np.float64)
-                                   for v in inputs])
+    frame = _Frame(function)
+    _, names = _input_names(cname)
+    names = [n for n in names if n != "solute"]
+    if len(names) != len(inputs):
+        names = ["input %d" % i for i in range(len(inputs))]
+    arrays = np.broadcast_arrays(*[_float_input(v, n, frame)
+                                   for v, n in zip(inputs, names)])
     shape = arrays[0].shape
     columns = [np.ascontiguousarray(a).ravel() for a in arrays]
     n = columns[0].size
@@ -573,11 +860,15 @@ def _loop(function, cname, inputs, lead=(), errors="raise", with_status=False):
     failed = int(np.count_nonzero(status))
     if failed and errors == "raise":
         row = int(np.flatnonzero(status)[0])
-        raise NatremiaError(int(status[row]), function, row=row, failed=failed)
+        row_args = list(lead) + [float(c[row]) for c in columns]
+        argument, value = _core._blame(cname, row_args, int(status[row]))
+        raise NatremiaError(int(status[row]), function, row=row, failed=failed,
+                            argument=argument, value=value,
+                            accepted=_core._accepted_text(cname, argument))
     out = out.reshape(shape)
     if with_status:
-        return out, status.reshape(shape)
-    return out
+        return frame.wrap(out), frame.wrap(status.reshape(shape), "status")
+    return frame.wrap(out)
 
 
 def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg,
