@@ -100,6 +100,47 @@ PY
 install "$tmp/venv" "$tmp/repo/bindings/python"
 check "$tmp/venv" bundled
 
+# 1b. The accelerated scalar path (natremia._speed, when built) gives what
+# the general ctypes path gives, value or error, on valid and invalid
+# inputs, and is as strict about codes.
+(cd "$tmp" && "$tmp/venv/bin/python" - <<'PY'
+import itertools, math
+import natremia
+from natremia import _core
+
+def outcome(call):
+    try:
+        return ("ok", call())
+    except natremia.NatremiaError as e:
+        return ("error", e.status, e.argument)
+
+grid = [79.9, 80, 140, 220, 220.1, math.nan, math.inf, 0, -5, 300, 2 ** 70]
+for na, glucose in itertools.product(grid, grid):
+    fast = outcome(lambda: natremia.osm_effective(na_mmol_l=na, glucose_mmol_l=glucose))
+    slow = outcome(lambda: _core._double_result("ntr_osm_effective", "osm_effective",
+                                                na, glucose))
+    assert str(fast) == str(slow), (na, glucose, fast, slow)
+for sex, age, weight in itertools.product([1, 2, 0, 3, 2 ** 32 + 1, "female"], grid, grid):
+    fast = outcome(lambda: natremia.tbw_fraction(sex=sex, age_years=age, weight_kg=weight))
+    try:
+        code = _core._enum(natremia.Sex, sex, "sex", "tbw_fraction")
+    except natremia.NatremiaError as e:
+        slow = ("error", e.status, e.argument)
+    else:
+        slow = outcome(lambda: _core._double_result("ntr_tbw_fraction", "tbw_fraction",
+                                                    code, age, weight))
+    assert str(fast) == str(slow), (sex, age, weight, fast, slow)
+for bad in (1.9, True):
+    try:
+        natremia.tbw_fraction(sex=bad, age_years=40.0, weight_kg=70.0)
+        raise AssertionError("sex=%r accepted" % (bad,))
+    except TypeError as e:
+        assert "sex" in str(e)
+print("ok: fast path equals the general path (accelerator %s)"
+      % ("on" if _core.speedup_active() else "off"))
+PY
+)
+
 # 2. The environment variable wins.
 NATREMIA_LIBRARY=$lib check "$tmp/venv" NATREMIA_LIBRARY "$lib"
 

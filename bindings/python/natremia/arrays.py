@@ -486,7 +486,7 @@ def _offsets_input(offsets, function):
                         % (function, a.dtype))
     if a.size and a.min() < 0:
         raise NatremiaError(_core.ERR_ARG, function, "offsets must not be "
-                            "negative", argument="offsets", value=a.min().item())
+                            "negative", argument="offsets", value=int(a.min()))
     return np.ascontiguousarray(a, dtype=np.uintp).ravel()
 
 
@@ -629,6 +629,11 @@ def course_assess_groups(*, hours, na_mmol_l, offsets, limits, errors="raise",
                    with_status)
 
 
+def _plain(x):
+    """A numpy scalar as a Python one; an object (a str id) as it is."""
+    return x.item() if isinstance(x, np.generic) else x
+
+
 def _limits_key(limits):
     """A hashable key for grouping patients by their limits."""
     if isinstance(limits, (str, int)):
@@ -718,9 +723,9 @@ def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
             g = int(np.searchsorted(offsets, np.flatnonzero(differs)[0],
                                     side="right")) - 1
             raise NatremiaError(_core.ERR_ARG, f, "patient %r has rows with "
-                                "different limits" % (group_ids[g].item(),),
+                                "different limits" % (_plain(group_ids[g]),),
                                 argument="limits",
-                                group_id=group_ids[g].item())
+                                group_id=_plain(group_ids[g]))
 
     table = np.zeros(groups, dtype=[("id", group_ids.dtype),
                                     ("status", np.intc)] +
@@ -745,7 +750,7 @@ def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
         g = int(bad[0])
         raise NatremiaError(int(table["status"][g]), f, row=g,
                             failed=int(bad.size),
-                            group_id=table["id"][g].item())
+                            group_id=_plain(table["id"][g]))
     return table
 
 
