@@ -13,6 +13,10 @@ microseconds and as a ratio to the plain-Python baseline:
   write it without natremia: the same checks in the same order (finite,
   then range, the ranges of lib/ntr_internal.h; the enumeration mapped
   from its name), the same formula, a ValueError on failure;
+- ``general path``: the binding's general ctypes route (what every call
+  took before the hot path, natremia 1.1.0 as merged: prototype looked up
+  per call, output allocated, status checked; now only taken to name a
+  failure), for the before/after ratio;
 - ``ctypes floor``: the bare ctypes call of the C function with prototypes
   bound once and a preallocated output (no checks, no keyword arguments):
   the least any ctypes binding can cost.
@@ -33,6 +37,7 @@ import sys
 import time
 
 import natremia
+from natremia import _core
 
 NA_MIN, NA_MAX = 80.0, 220.0       # lib/ntr_internal.h
 GLUCOSE_MAX = 200.0
@@ -111,6 +116,8 @@ def main(argv):
                                                        glucose_mmol_l=5.0),
             "plain": lambda: plain_osm_effective(na_mmol_l=140.0,
                                                  glucose_mmol_l=5.0),
+            "general path": lambda: _core._double_result(
+                "ntr_osm_effective", "osm_effective", 140.0, 5.0),
             "ctypes floor": lambda: floor_osm(140.0, 5.0),
         },
         "tbw_fraction": {
@@ -118,6 +125,10 @@ def main(argv):
                                                       weight_kg=70.0),
             "plain": lambda: plain_tbw_fraction(sex="female", age_years=40.0,
                                                 weight_kg=70.0),
+            "general path": lambda: _core._double_result(
+                "ntr_tbw_fraction", "tbw_fraction",
+                _core._enum(natremia.Sex, "female", "sex", "tbw_fraction"),
+                40.0, 70.0),
             "ctypes floor": lambda: floor_tbw(2, 40.0, 70.0),
         },
     }
@@ -131,6 +142,8 @@ def main(argv):
                 best[k] = min(best[k], _round(f, calls))
         report[name] = {k: round(v, 4) for k, v in best.items()}
         report[name]["ratio_to_plain"] = round(best["natremia"] / best["plain"], 3)
+        report[name]["general_to_natremia"] = round(
+            best["general path"] / best["natremia"], 2)
     if as_json:
         json.dump({"calls": calls, "repeats": repeats, "results": report},
                   sys.stdout, indent=1)
@@ -138,12 +151,17 @@ def main(argv):
         return 0
     print("Python scalar call, best of %d rounds of %d calls (us per call)"
           % (repeats, calls))
-    print("%-16s %10s %10s %13s %8s" % ("function", "natremia", "plain",
-                                         "ctypes floor", "ratio"))
+    print("accelerator natremia._speed: %s" % (
+        "on" if _core.speedup_active() else "off (ctypes only)"))
+    print("%-14s %9s %9s %9s %9s %12s %12s" % (
+        "function", "natremia", "plain", "general", "ctypes", "natremia/",
+        "general/"))
+    print("%-14s %9s %9s %9s %9s %12s %12s" % ("", "", "", "path", "floor",
+                                               "plain", "natremia"))
     for name, r in report.items():
-        print("%-16s %10.3f %10.3f %13.3f %7.2fx" % (
-            name, r["natremia"], r["plain"], r["ctypes floor"],
-            r["ratio_to_plain"]))
+        print("%-14s %9.3f %9.3f %9.3f %9.3f %11.2fx %11.1fx" % (
+            name, r["natremia"], r["plain"], r["general path"],
+            r["ctypes floor"], r["ratio_to_plain"], r["general_to_natremia"]))
     return 0
 
 
