@@ -13,7 +13,7 @@ import operator
 import os
 from collections import namedtuple
 from dataclasses import dataclass
-from typing import Optional, Tuple
+from typing import Union
 
 from ._loader import load
 
@@ -863,11 +863,40 @@ def _unit(value, function):
     return _enum(Unit, value, "unit", function)
 
 
-def convert(value, *, analyte, from_unit, to_unit):
+def convert(value: float, *, analyte: Union[Analyte, int, str], from_unit: Union[Unit, int, str], to_unit: Union[Unit, int, str]) -> float:
     """A laboratory value of an analyte converted between units.
 
     Units are Unit members, ints or UCUM codes ("mg/dL"); analytes are
-    Analyte members, ints or names ("glucose")."""
+    Analyte members, ints or names ("glucose").
+
+    Parameters
+    ----------
+    analyte : Analyte, int or str
+        One of sodium (1), potassium (2), chloride (3), glucose (4), urea (5), urea_nitrogen (6), creatinine (7), ethanol (8) (member, exact integer code, or
+        name); other values raise.
+    from_unit : Unit, int or str
+        One of mmol_l (1), mg_dl (2), meq_l (3), mosm_kg (4), g_l (5), umol_l (6) (member, exact integer code, or
+        name); other values raise.
+    to_unit : Unit, int or str
+        One of mmol_l (1), mg_dl (2), meq_l (3), mosm_kg (4), g_l (5), umol_l (6) (member, exact integer code, or
+        name); other values raise.
+    value : float
+        The value given to ntr_convert(), in its own unit; accepted 0 to 1e+06 (its own unit) (NTR_INPUT_CONVERT_VALUE).
+
+    Returns
+    -------
+    float
+        As above (ntr_convert).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "convert"
     return _double_result("ntr_convert", fn, _enum(Analyte, analyte, "analyte", fn),
                           value, _unit(from_unit, fn), _unit(to_unit, fn))
@@ -877,9 +906,38 @@ def convert(value, *, analyte, from_unit, to_unit):
 # Core formulas
 # ---------------------------------------------------------------------------
 
-def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0,
-                   formula=OsmFormula.TWO_NA):
-    """Calculated serum osmolality, mOsm/kg ("2na" or "dorwart_chalmers")."""
+def osm_calculated(*, na_mmol_l: float, glucose_mmol_l: float, urea_mmol_l: float, ethanol_mmol_l: float = 0.0,
+                   formula: Union[OsmFormula, int, str] = OsmFormula.TWO_NA) -> float:
+    """Calculated serum osmolality, mOsm/kg ("2na" or "dorwart_chalmers").
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : float
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    ethanol_mmol_l : float
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+    formula : OsmFormula, int or str
+        One of two_na (1), dorwart_chalmers (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    float
+        As above (ntr_osm_calculated).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "osm_calculated"
     return _dbl(_FAST_OSM_CALCULATED, "ntr_osm_calculated", fn, na_mmol_l, glucose_mmol_l,
                           urea_mmol_l, ethanol_mmol_l,
@@ -917,34 +975,130 @@ def osm_effective(*, na_mmol_l: float, glucose_mmol_l: float) -> float:
                           glucose_mmol_l)
 
 
-def osm_gap(*, measured_mosm_kg, calculated_mosm_kg):
-    """Osmolal gap, measured minus calculated, mOsm/kg."""
+def osm_gap(*, measured_mosm_kg: float, calculated_mosm_kg: float) -> float:
+    """Osmolal gap, measured minus calculated, mOsm/kg.
+
+    Parameters
+    ----------
+    measured_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    calculated_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+
+    Returns
+    -------
+    float
+        As above (ntr_osm_gap).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_OSM_GAP, "ntr_osm_gap", "osm_gap", measured_mosm_kg,
                           calculated_mosm_kg)
 
 
-def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ):
-    """Sodium corrected for hyperglycaemia ("katz" 1.6 or "hillier" 2.4)."""
+def na_corrected_glucose(*, na_mmol_l: float, glucose_mmol_l: float, method: Union[GlucoseMethod, int, str] = GlucoseMethod.KATZ) -> float:
+    """Sodium corrected for hyperglycaemia ("katz" 1.6 or "hillier" 2.4).
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    method : GlucoseMethod, int or str
+        One of katz (1), hillier (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    float
+        As above (ntr_na_corrected_glucose).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "na_corrected_glucose"
     return _dbl(_FAST_NA_CORRECTED_GLUCOSE, "ntr_na_corrected_glucose", fn, na_mmol_l,
                           glucose_mmol_l,
                           _enum(GlucoseMethod, method, "method", fn))
 
 
-def na_corrected_glucose_factor(*, na_mmol_l, glucose_mmol_l,
-                                factor_per_100mg_dl):
-    """Sodium corrected for hyperglycaemia with a caller's factor."""
+def na_corrected_glucose_factor(*, na_mmol_l: float, glucose_mmol_l: float,
+                                factor_per_100mg_dl: float) -> float:
+    """Sodium corrected for hyperglycaemia with a caller's factor.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    factor_per_100mg_dl : float
+        Factor of ntr_na_corrected_glucose_factor(), mmol/L per 100 mg/dL; accepted 0 to 5 mmol/L per 100 mg/dL (NTR_INPUT_GLUCOSE_FACTOR).
+
+    Returns
+    -------
+    float
+        As above (ntr_na_corrected_glucose_factor).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_NA_CORRECTED_GLUCOSE_FACTOR, "ntr_na_corrected_glucose_factor", "na_corrected_glucose_factor", na_mmol_l,
                           glucose_mmol_l, factor_per_100mg_dl)
 
 
-def na_deficit(*, tbw_l, na_mmol_l, target_na_mmol_l):
-    """Sodium needed to reach a target, TBW*(target - Na), mmol."""
+def na_deficit(*, tbw_l: float, na_mmol_l: float, target_na_mmol_l: float) -> float:
+    """Sodium needed to reach a target, TBW*(target - Na), mmol.
+
+    Parameters
+    ----------
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    target_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_na_deficit).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_NA_DEFICIT, "ntr_na_deficit", "na_deficit", tbw_l, na_mmol_l,
                           target_na_mmol_l)
 
 
-def tbw_fraction(*, sex, age_years: float, weight_kg: float) -> float:
+def tbw_fraction(*, sex: Union[Sex, int, str], age_years: float,
+                 weight_kg: float) -> float:
     """Total body water as a fraction of weight (Adrogue-Madias), L.
 
     Parameters
@@ -978,15 +1132,64 @@ def tbw_fraction(*, sex, age_years: float, weight_kg: float) -> float:
                           age_years, weight_kg)
 
 
-def tbw_watson(*, sex, age_years, height_cm, weight_kg):
-    """Total body water by the Watson equations (adults), L."""
+def tbw_watson(*, sex: Union[Sex, int, str], age_years: float, height_cm: float, weight_kg: float) -> float:
+    """Total body water by the Watson equations (adults), L.
+
+    Parameters
+    ----------
+    sex : Sex, int or str
+        One of male (1), female (2) (member, exact integer code, or
+        name); other values raise.
+    age_years : float
+        Age in ntr_tbw_watson() (adults), years; accepted 18 to 130 years (NTR_INPUT_AGE_WATSON).
+    height_cm : float
+        Height, cm; accepted 30 to 275 cm (NTR_INPUT_HEIGHT).
+    weight_kg : float
+        Body weight, kg; accepted 0.3 to 650 kg (NTR_INPUT_WEIGHT).
+
+    Returns
+    -------
+    float
+        As above (ntr_tbw_watson).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "tbw_watson"
     return _dbl(_FAST_TBW_WATSON, "ntr_tbw_watson", fn, _enum(Sex, sex, "sex", fn),
                           age_years, height_cm, weight_kg)
 
 
-def free_water_deficit(*, tbw_l, na_mmol_l):
-    """Free-water deficit TBW*(Na/140 - 1), L."""
+def free_water_deficit(*, tbw_l: float, na_mmol_l: float) -> float:
+    """Free-water deficit TBW*(Na/140 - 1), L.
+
+    Parameters
+    ----------
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_free_water_deficit).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_FREE_WATER_DEFICIT, "ntr_free_water_deficit", "free_water_deficit",
                           tbw_l, na_mmol_l)
 
@@ -1003,45 +1206,197 @@ def fluid_preset(fluid):
     return FluidComposition(na.value, k.value)
 
 
-def infusate_change_per_litre(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                              infusate_k_mmol_l=0.0):
-    """Change in serum sodium from 1 L of infusate (Adrogue-Madias), mmol/L."""
+def infusate_change_per_litre(*, na_mmol_l: float, tbw_l: float, infusate_na_mmol_l: float,
+                              infusate_k_mmol_l: float = 0.0) -> float:
+    """Change in serum sodium from 1 L of infusate (Adrogue-Madias), mmol/L.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    infusate_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+
+    Returns
+    -------
+    float
+        As above (ntr_infusate_change_per_litre).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_INFUSATE_CHANGE_PER_LITRE, "ntr_infusate_change_per_litre", "infusate_change_per_litre", na_mmol_l, tbw_l,
                           infusate_na_mmol_l, infusate_k_mmol_l)
 
 
-def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
-                    infusate_k_mmol_l=0.0):
-    """Change in serum sodium from any volume of infusate, mmol/L."""
+def infusate_change(*, na_mmol_l: float, tbw_l: float, infusate_na_mmol_l: float, volume_l: float,
+                    infusate_k_mmol_l: float = 0.0) -> float:
+    """Change in serum sodium from any volume of infusate, mmol/L.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    volume_l : float
+        Volume of one infusion, L; accepted 0 to 20 L (NTR_INPUT_VOLUME).
+    infusate_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+
+    Returns
+    -------
+    float
+        As above (ntr_infusate_change).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_INFUSATE_CHANGE, "ntr_infusate_change", "infusate_change", na_mmol_l,
                           tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                           volume_l)
 
 
-def infusate_volume_for_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                               target_delta_mmol_l, infusate_k_mmol_l=0.0):
-    """Volume of infusate expected to change sodium by a target, L."""
+def infusate_volume_for_change(*, na_mmol_l: float, tbw_l: float, infusate_na_mmol_l: float,
+                               target_delta_mmol_l: float, infusate_k_mmol_l: float = 0.0) -> float:
+    """Volume of infusate expected to change sodium by a target, L.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    target_delta_mmol_l : float
+        A wanted signed change of sodium, mmol/L; accepted -50 to 50 mmol/L (NTR_INPUT_DELTA).
+    infusate_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+
+    Returns
+    -------
+    float
+        As above (ntr_infusate_volume_for_change).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_INFUSATE_VOLUME_FOR_CHANGE, "ntr_infusate_volume_for_change", "infusate_volume_for_change", na_mmol_l, tbw_l,
                           infusate_na_mmol_l, infusate_k_mmol_l,
                           target_delta_mmol_l)
 
 
-def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
-    """The Furst ratio (U_Na + U_K) / S_Na."""
+def furst_ratio(*, urine_na_mmol_l: float, urine_k_mmol_l: float, serum_na_mmol_l: float) -> float:
+    """The Furst ratio (U_Na + U_K) / S_Na.
+
+    Parameters
+    ----------
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_furst_ratio).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_FURST_RATIO, "ntr_furst_ratio", "furst_ratio", urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
 
 
-def restriction_from_ratio(ratio):
-    """Fluid restriction advice (a Restriction) for a Furst ratio."""
+def restriction_from_ratio(ratio: float) -> Restriction:
+    """Fluid restriction advice (a Restriction) for a Furst ratio.
+
+    Parameters
+    ----------
+    ratio : float
+        Furst ratio given to ntr_restriction_from_ratio(); accepted 0 to 20 (NTR_INPUT_RATIO).
+
+    Returns
+    -------
+    Restriction
+        As above (ntr_restriction_from_ratio).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     out = c_int()
     _call("ntr_restriction_from_ratio", "restriction_from_ratio", (ratio,),
           [out])
     return Restriction(out.value)
 
 
-def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
-    """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L."""
+def efwc(*, urine_volume_l: float, urine_na_mmol_l: float, urine_k_mmol_l: float, serum_na_mmol_l: float) -> float:
+    """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L.
+
+    Parameters
+    ----------
+    urine_volume_l : float
+        Urine volume (in ntr_efwc(), a day's urine), L; accepted 0 to 30 L (NTR_INPUT_URINE_VOLUME).
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_efwc).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_EFWC, "ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
 
@@ -1082,13 +1437,53 @@ def _int_result(cname, pyname, *args):
     return out.value
 
 
-def na_severity(*, na_mmol_l):
-    """Severity band of a sodium (a Severity)."""
+def na_severity(*, na_mmol_l: float) -> Severity:
+    """Severity band of a sodium (a Severity).
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    Severity
+        As above (ntr_na_severity).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return Severity(_int_result("ntr_na_severity", "na_severity", na_mmol_l))
 
 
-def tonicity_class(*, measured_osm_mosm_kg):
-    """Hypo-, iso- or hypertonic measured osmolality (a Tonicity)."""
+def tonicity_class(*, measured_osm_mosm_kg: float) -> Tonicity:
+    """Hypo-, iso- or hypertonic measured osmolality (a Tonicity).
+
+    Parameters
+    ----------
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+
+    Returns
+    -------
+    Tonicity
+        As above (ntr_tonicity_class).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return Tonicity(_int_result("ntr_tonicity_class", "tonicity_class",
                                 measured_osm_mosm_kg))
 
@@ -1096,9 +1491,36 @@ def tonicity_class(*, measured_osm_mosm_kg):
 LowNaTonicity = namedtuple("LowNaTonicity", "tonicity flags")
 
 
-def low_na_tonicity(*, na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
-                    glucose_method=GlucoseMethod.KATZ):
-    """Whether a low sodium is truly hypotonic, and why not."""
+def low_na_tonicity(*, na_mmol_l: float, glucose_mmol_l: float, measured_osm_mosm_kg: float,
+                    glucose_method: Union[GlucoseMethod, int, str] = GlucoseMethod.KATZ) -> LowNaTonicity:
+    """Whether a low sodium is truly hypotonic, and why not.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    glucose_method : GlucoseMethod, int or str
+        One of katz (1), hillier (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    LowNaTonicity
+        As above (ntr_low_na_tonicity).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "low_na_tonicity"
     tonicity, flags = c_int(), c_uint()
     _call("ntr_low_na_tonicity", fn,
@@ -1108,16 +1530,47 @@ def low_na_tonicity(*, na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
     return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
 
 
-def low_na_effective_tonicity(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                              measured_osm_mosm_kg, ethanol_mmol_l=0.0,
-                              glucose_method=GlucoseMethod.KATZ):
+def low_na_effective_tonicity(*, na_mmol_l: float, glucose_mmol_l: float, urea_mmol_l: float,
+                              measured_osm_mosm_kg: float, ethanol_mmol_l: float = 0.0,
+                              glucose_method: Union[GlucoseMethod, int, str] = GlucoseMethod.KATZ) -> LowNaTonicity:
     """Whether a low sodium is truly hypotonic, judged on the effective
     measured osmolality (measured minus urea and ethanol, which cross cell
     membranes and so do not hold water out of cells): the library's
     ntr_low_na_effective_tonicity(). ``tonicity`` is the class of the
     effective value; ``flags`` has LowNaFlag.INEFFECTIVE_OSMOLES when the
     measured value is 275 or more but the effective one is below 275.
-    Use it rather than low_na_tonicity() whenever urea or ethanol is known."""
+    Use it rather than low_na_tonicity() whenever urea or ethanol is known.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : float
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    ethanol_mmol_l : float
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+    glucose_method : GlucoseMethod, int or str
+        One of katz (1), hillier (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    LowNaTonicity
+        As above (ntr_low_na_effective_tonicity).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "low_na_effective_tonicity"
     tonicity, flags = c_int(), c_uint()
     _call("ntr_low_na_effective_tonicity", fn,
@@ -1128,32 +1581,126 @@ def low_na_effective_tonicity(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
     return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
 
 
-def effective_osm_measured(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                           measured_osm_mosm_kg, ethanol_mmol_l=0.0):
+def effective_osm_measured(*, na_mmol_l: float, glucose_mmol_l: float, urea_mmol_l: float,
+                           measured_osm_mosm_kg: float, ethanol_mmol_l: float = 0.0) -> float:
     """Effective serum osmolality from a measured one, mOsm/kg: measured
     less urea and the library's ethanol term, floored at the calculated
     effective osmolality (ntr_effective_osm_measured; the header gives the
-    equation, the coefficient and why the floor)."""
+    equation, the coefficient and why the floor).
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : float
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    ethanol_mmol_l : float
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+
+    Returns
+    -------
+    float
+        As above (ntr_effective_osm_measured).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_EFFECTIVE_OSM_MEASURED, "ntr_effective_osm_measured", "effective_osm_measured",
                           na_mmol_l, glucose_mmol_l, urea_mmol_l,
                           ethanol_mmol_l, measured_osm_mosm_kg)
 
 
-def urine_maximally_dilute(*, urine_osm_mosm_kg):
-    """True when the urine is maximally dilute."""
+def urine_maximally_dilute(*, urine_osm_mosm_kg: float) -> bool:
+    """True when the urine is maximally dilute.
+
+    Parameters
+    ----------
+    urine_osm_mosm_kg : float
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+
+    Returns
+    -------
+    bool
+        As above (ntr_urine_maximally_dilute).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return bool(_int_result("ntr_urine_maximally_dilute",
                             "urine_maximally_dilute", urine_osm_mosm_kg))
 
 
-def urine_na_high(*, urine_na_mmol_l):
-    """True when urine sodium is above the work-up threshold."""
+def urine_na_high(*, urine_na_mmol_l: float) -> bool:
+    """True when urine sodium is above the work-up threshold.
+
+    Parameters
+    ----------
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+
+    Returns
+    -------
+    bool
+        As above (ntr_urine_na_high).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return bool(_int_result("ntr_urine_na_high", "urine_na_high",
                             urine_na_mmol_l))
 
 
-def fractional_excretion(*, urine_x, plasma_x, urine_creatinine,
-                         plasma_creatinine):
-    """Fractional excretion of a solute, percent (each pair in one unit)."""
+def fractional_excretion(*, urine_x: float, plasma_x: float, urine_creatinine: float,
+                         plasma_creatinine: float) -> float:
+    """Fractional excretion of a solute, percent (each pair in one unit).
+
+    Parameters
+    ----------
+    urine_x : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+    plasma_x : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+    urine_creatinine : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+    plasma_creatinine : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+
+    Returns
+    -------
+    float
+        As above (ntr_fractional_excretion).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_FRACTIONAL_EXCRETION, "ntr_fractional_excretion", "fractional_excretion",
                           urine_x, plasma_x, urine_creatinine,
                           plasma_creatinine)
@@ -1360,10 +1907,46 @@ def plan_check(*, history_hours, history_na_mmol_l, tbw_l, flows, duration_h,
 RelowerEstimate = namedtuple("RelowerEstimate", "volume_l rate_ml_h")
 
 
-def relower_estimate(*, na_mmol_l, tbw_l, fluid_na_mmol_l, lower_by_mmol_l,
-                     hours, fluid_k_mmol_l=0.0, urine_ml_h=0.0,
-                     urine_na_mmol_l=0.0, urine_k_mmol_l=0.0):
-    """Fluid needed to bring sodium back down by lower_by_mmol_l."""
+def relower_estimate(*, na_mmol_l: float, tbw_l: float, fluid_na_mmol_l: float, lower_by_mmol_l: float,
+                     hours: float, fluid_k_mmol_l: float = 0.0, urine_ml_h: float = 0.0,
+                     urine_na_mmol_l: float = 0.0, urine_k_mmol_l: float = 0.0) -> RelowerEstimate:
+    """Fluid needed to bring sodium back down by lower_by_mmol_l.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    fluid_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    lower_by_mmol_l : float
+        The size of a change (a fall, a rise aimed at, a lowering), mmol/L, above the lower end (0 itself is refused); accepted above 0 to 50 mmol/L (NTR_INPUT_CHANGE).
+    hours : float
+        Plan step, re-lowering or lowering period, h; accepted 0.0166667 to 720 h (NTR_INPUT_PLAN_STEP).
+    fluid_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    urine_ml_h : float
+        A urine (or saline) rate given alone, mL/h; accepted 0 to 5000 mL/h (NTR_INPUT_URINE_RATE).
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+
+    Returns
+    -------
+    RelowerEstimate
+        As above (ntr_relower_estimate).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     volume, rate = c_double(), c_double()
     _call("ntr_relower_estimate", "relower_estimate",
           (na_mmol_l, tbw_l, fluid_na_mmol_l, fluid_k_mmol_l, lower_by_mmol_l,
@@ -1381,26 +1964,101 @@ class Solute(enum.IntEnum):
     NACL = 2
 
 
-def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg):
+def urine_volume_from_solute(*, solute_mosm_day: float, urine_osm_mosm_kg: float) -> float:
     """Daily urine volume, L/day, that a solute load makes at a fixed urine
-    osmolality: V = solute / U_osm (Berl 2008)."""
+    osmolality: V = solute / U_osm (Berl 2008).
+
+    Parameters
+    ----------
+    solute_mosm_day : float
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : float
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+
+    Returns
+    -------
+    float
+        As above (ntr_urine_volume_from_solute).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_URINE_VOLUME_FROM_SOLUTE, "ntr_urine_volume_from_solute", "urine_volume_from_solute", solute_mosm_day,
                           urine_osm_mosm_kg)
 
 
-def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
-                    urine_k_mmol_l, serum_na_mmol_l, insensible_l_day=0.0):
+def fluid_allowance(*, solute_mosm_day: float, urine_osm_mosm_kg: float, urine_na_mmol_l: float,
+                    urine_k_mmol_l: float, serum_na_mmol_l: float, insensible_l_day: float = 0.0) -> float:
     """The most fluid per day, L/day, that does not lower the sodium:
     V * (1 - (U_Na + U_K) / S_Na) + insensible, V from the solute. A
-    negative result means restriction alone cannot hold the sodium."""
+    negative result means restriction alone cannot hold the sodium.
+
+    Parameters
+    ----------
+    solute_mosm_day : float
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : float
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    insensible_l_day : float
+        Net insensible loss, L/day; accepted 0 to 10 L/day (NTR_INPUT_INSENSIBLE_L_DAY).
+
+    Returns
+    -------
+    float
+        As above (ntr_fluid_allowance).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_FLUID_ALLOWANCE, "ntr_fluid_allowance", "fluid_allowance",
                           solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l, insensible_l_day)
 
 
-def solute_dose_osmoles(*, solute, grams):
+def solute_dose_osmoles(*, solute: Union[Solute, int, str], grams: float) -> float:
     """Osmoles, mOsm, in a dose of urea (1 per mole) or NaCl (2 per mole),
-    molar masses from the IUPAC atomic weights."""
+    molar masses from the IUPAC atomic weights.
+
+    Parameters
+    ----------
+    solute : Solute, int or str
+        One of urea (1), nacl (2) (member, exact integer code, or
+        name); other values raise.
+    grams : float
+        A daily dose of urea or NaCl, g; accepted 0 to 200 g (NTR_INPUT_SOLUTE_GRAMS).
+
+    Returns
+    -------
+    float
+        As above (ntr_solute_dose_osmoles).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return _dbl(_FAST_SOLUTE_DOSE_OSMOLES, "ntr_solute_dose_osmoles", "solute_dose_osmoles",
                           _enum(Solute, solute, "solute", "solute_dose_osmoles"), grams)
 
@@ -1412,9 +2070,29 @@ class FeUricAcidClass(enum.IntEnum):
     SUPPORTS_SIAD = 3
 
 
-def fe_uric_acid_class(*, fe_uric_acid_percent):
+def fe_uric_acid_class(*, fe_uric_acid_percent: float) -> FeUricAcidClass:
     """Fractional uric acid excretion at the low sodium: below 8 % argues
-    against SIAD, above 12 % supports it (Fenske 2008)."""
+    against SIAD, above 12 % supports it (Fenske 2008).
+
+    Parameters
+    ----------
+    fe_uric_acid_percent : float
+        A fractional excretion given as input, %; accepted 0 to 200 % (NTR_INPUT_FE_PERCENT).
+
+    Returns
+    -------
+    FeUricAcidClass
+        As above (ntr_fe_uric_acid_class).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return FeUricAcidClass(_int_result("ntr_fe_uric_acid_class",
                                        "fe_uric_acid_class",
                                        fe_uric_acid_percent))
