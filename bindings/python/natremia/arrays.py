@@ -16,13 +16,13 @@ per-row C status codes (0 = NTR_OK).
 """
 
 import ctypes
+from typing import Any
 
 import numpy as np
 
 from . import _core
 from ._core import (NatremiaError, GlucoseMethod, LimitsPreset, OsmFormula,
                     Sex, _enum, _limits_struct)
-from ._core import _blame  # noqa: F401  (re-exported for the frame helpers)
 from ._course import (CourseReportStruct, CourseLimitsStruct, CoursePreset,
                       _course_limits_struct, flag_labels)
 
@@ -31,6 +31,9 @@ _PD = _P(ctypes.c_double)
 _PI = _P(ctypes.c_int)
 _PSZ = _P(ctypes.c_size_t)
 _SIZE_MAX = ctypes.c_size_t(-1).value
+
+# Anything numpy.asarray takes, a pandas Series, or a masked array.
+ArrayLike = Any
 
 # dtype of one ntr_correction (5 doubles, 2 unsigned ints: 48 bytes) and of
 # one ntr_sample, laid out as the C structs.
@@ -345,9 +348,44 @@ def _run(function, cname, inputs, *, sex=None, enum_value=None,
 # Formulas
 # ---------------------------------------------------------------------------
 
-def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0,
-                   formula=OsmFormula.TWO_NA, errors="raise", with_status=False):
-    """Calculated serum osmolality, mOsm/kg, per row."""
+def osm_calculated(*, na_mmol_l: ArrayLike, glucose_mmol_l: ArrayLike, urea_mmol_l: ArrayLike, ethanol_mmol_l: ArrayLike = 0.0,
+                   formula: ArrayLike = OsmFormula.TWO_NA, errors: str = "raise", with_status: bool = False):
+    """Calculated serum osmolality, mOsm/kg, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : array-like, pandas Series or scalar
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : array-like, pandas Series or scalar
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    ethanol_mmol_l : array-like, pandas Series or scalar
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+    formula : scalar of OsmFormula codes or names
+        One of two_na (1), dorwart_chalmers (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     f = "arrays.osm_calculated"
     return _run(f, "ntr_batch_osm_calculated",
                 [na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l],
@@ -355,109 +393,506 @@ def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0
                 errors=errors, with_status=with_status)
 
 
-def osm_effective(*, na_mmol_l, glucose_mmol_l, errors="raise",
-                  with_status=False):
-    """Effective osmolality 2*Na + glucose, mOsm/kg, per row."""
+def osm_effective(*, na_mmol_l: ArrayLike, glucose_mmol_l: ArrayLike, errors: str = "raise",
+                  with_status: bool = False):
+    """Effective osmolality 2*Na + glucose, mOsm/kg, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : array-like, pandas Series or scalar
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.osm_effective", "ntr_batch_osm_effective",
                 [na_mmol_l, glucose_mmol_l], errors=errors,
                 with_status=with_status)
 
 
-def osm_gap(*, measured_mosm_kg, calculated_mosm_kg, errors="raise",
-            with_status=False):
-    """Osmolal gap, mOsm/kg, per row."""
+def osm_gap(*, measured_mosm_kg: ArrayLike, calculated_mosm_kg: ArrayLike, errors: str = "raise",
+            with_status: bool = False):
+    """Osmolal gap, mOsm/kg, per row.
+
+    Parameters
+    ----------
+    measured_mosm_kg : array-like, pandas Series or scalar
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    calculated_mosm_kg : array-like, pandas Series or scalar
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.osm_gap", "ntr_batch_osm_gap",
                 [measured_mosm_kg, calculated_mosm_kg], errors=errors,
                 with_status=with_status)
 
 
-def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ,
-                         errors="raise", with_status=False):
-    """Glucose-corrected sodium, mmol/L, per row."""
+def na_corrected_glucose(*, na_mmol_l: ArrayLike, glucose_mmol_l: ArrayLike, method: ArrayLike = GlucoseMethod.KATZ,
+                         errors: str = "raise", with_status: bool = False):
+    """Glucose-corrected sodium, mmol/L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : array-like, pandas Series or scalar
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    method : scalar of GlucoseMethod codes or names
+        One of katz (1), hillier (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     f = "arrays.na_corrected_glucose"
     return _run(f, "ntr_batch_na_corrected_glucose", [na_mmol_l, glucose_mmol_l],
                 enum_value=_enum(GlucoseMethod, method, "method", f),
                 errors=errors, with_status=with_status)
 
 
-def na_deficit(*, tbw_l, na_mmol_l, target_na_mmol_l, errors="raise",
-               with_status=False):
-    """Sodium deficit TBW*(target - Na), mmol, per row."""
+def na_deficit(*, tbw_l: ArrayLike, na_mmol_l: ArrayLike, target_na_mmol_l: ArrayLike, errors: str = "raise",
+               with_status: bool = False):
+    """Sodium deficit TBW*(target - Na), mmol, per row.
+
+    Parameters
+    ----------
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    target_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.na_deficit", "ntr_batch_na_deficit",
                 [tbw_l, na_mmol_l, target_na_mmol_l], errors=errors,
                 with_status=with_status)
 
 
-def tbw_fraction(*, sex, age_years, weight_kg, errors="raise",
-                 with_status=False):
+def tbw_fraction(*, sex: ArrayLike, age_years: ArrayLike, weight_kg: ArrayLike, errors: str = "raise",
+                 with_status: bool = False):
     """Total body water as a fraction of weight, L, per row (sex as codes
-    1/2 or names)."""
+    1/2 or names).
+
+    Parameters
+    ----------
+    sex : array-like or scalar of Sex codes or names
+        One of male (1), female (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    age_years : array-like, pandas Series or scalar
+        Age in ntr_tbw_fraction(), years; accepted 1 to 130 years (NTR_INPUT_AGE_FRACTION).
+    weight_kg : array-like, pandas Series or scalar
+        Body weight, kg; accepted 0.3 to 650 kg (NTR_INPUT_WEIGHT).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.tbw_fraction", "ntr_batch_tbw_fraction",
                 [age_years, weight_kg], sex=sex, errors=errors,
                 with_status=with_status)
 
 
-def tbw_watson(*, sex, age_years, height_cm, weight_kg, errors="raise",
-               with_status=False):
-    """Watson total body water, L, per row."""
+def tbw_watson(*, sex: ArrayLike, age_years: ArrayLike, height_cm: ArrayLike, weight_kg: ArrayLike, errors: str = "raise",
+               with_status: bool = False):
+    """Watson total body water, L, per row.
+
+    Parameters
+    ----------
+    sex : array-like or scalar of Sex codes or names
+        One of male (1), female (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    age_years : array-like, pandas Series or scalar
+        Age in ntr_tbw_watson() (adults), years; accepted 18 to 130 years (NTR_INPUT_AGE_WATSON).
+    height_cm : array-like, pandas Series or scalar
+        Height, cm; accepted 30 to 275 cm (NTR_INPUT_HEIGHT).
+    weight_kg : array-like, pandas Series or scalar
+        Body weight, kg; accepted 0.3 to 650 kg (NTR_INPUT_WEIGHT).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.tbw_watson", "ntr_batch_tbw_watson",
                 [age_years, height_cm, weight_kg], sex=sex, errors=errors,
                 with_status=with_status)
 
 
-def free_water_deficit(*, tbw_l, na_mmol_l, errors="raise", with_status=False):
-    """Free-water deficit, L, per row."""
+def free_water_deficit(*, tbw_l: ArrayLike, na_mmol_l: ArrayLike, errors: str = "raise", with_status: bool = False):
+    """Free-water deficit, L, per row.
+
+    Parameters
+    ----------
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.free_water_deficit", "ntr_batch_free_water_deficit",
                 [tbw_l, na_mmol_l], errors=errors, with_status=with_status)
 
 
-def infusate_change_per_litre(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                              infusate_k_mmol_l=0.0, errors="raise",
-                              with_status=False):
-    """Change in sodium from 1 L of infusate, mmol/L, per row."""
+def infusate_change_per_litre(*, na_mmol_l: ArrayLike, tbw_l: ArrayLike, infusate_na_mmol_l: ArrayLike,
+                              infusate_k_mmol_l: ArrayLike = 0.0, errors: str = "raise",
+                              with_status: bool = False):
+    """Change in sodium from 1 L of infusate, mmol/L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : array-like, pandas Series or scalar
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    infusate_k_mmol_l : array-like, pandas Series or scalar
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.infusate_change_per_litre",
                 "ntr_batch_infusate_change_per_litre",
                 [na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l],
                 errors=errors, with_status=with_status)
 
 
-def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
-                    infusate_k_mmol_l=0.0, errors="raise", with_status=False):
-    """Change in sodium from a volume of infusate, mmol/L, per row."""
+def infusate_change(*, na_mmol_l: ArrayLike, tbw_l: ArrayLike, infusate_na_mmol_l: ArrayLike, volume_l: ArrayLike,
+                    infusate_k_mmol_l: ArrayLike = 0.0, errors: str = "raise", with_status: bool = False):
+    """Change in sodium from a volume of infusate, mmol/L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : array-like, pandas Series or scalar
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    volume_l : array-like, pandas Series or scalar
+        Volume of one infusion, L; accepted 0 to 20 L (NTR_INPUT_VOLUME).
+    infusate_k_mmol_l : array-like, pandas Series or scalar
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.infusate_change", "ntr_batch_infusate_change",
                 [na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                  volume_l], errors=errors, with_status=with_status)
 
 
-def infusate_volume_for_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                               target_delta_mmol_l, infusate_k_mmol_l=0.0,
-                               errors="raise", with_status=False):
-    """Volume of infusate for a wanted change, L, per row."""
+def infusate_volume_for_change(*, na_mmol_l: ArrayLike, tbw_l: ArrayLike, infusate_na_mmol_l: ArrayLike,
+                               target_delta_mmol_l: ArrayLike, infusate_k_mmol_l: ArrayLike = 0.0,
+                               errors: str = "raise", with_status: bool = False):
+    """Volume of infusate for a wanted change, L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : array-like, pandas Series or scalar
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    target_delta_mmol_l : array-like, pandas Series or scalar
+        A wanted signed change of sodium, mmol/L; accepted -50 to 50 mmol/L (NTR_INPUT_DELTA).
+    infusate_k_mmol_l : array-like, pandas Series or scalar
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.infusate_volume_for_change",
                 "ntr_batch_infusate_volume_for_change",
                 [na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                  target_delta_mmol_l], errors=errors, with_status=with_status)
 
 
-def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
-                errors="raise", with_status=False):
-    """Furst ratio (U_Na + U_K)/S_Na per row."""
+def furst_ratio(*, urine_na_mmol_l: ArrayLike, urine_k_mmol_l: ArrayLike, serum_na_mmol_l: ArrayLike,
+                errors: str = "raise", with_status: bool = False):
+    """Furst ratio (U_Na + U_K)/S_Na per row.
+
+    Parameters
+    ----------
+    urine_na_mmol_l : array-like, pandas Series or scalar
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : array-like, pandas Series or scalar
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.furst_ratio", "ntr_batch_furst_ratio",
                 [urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l],
                 errors=errors, with_status=with_status)
 
 
-def restriction_from_ratio(ratio, *, errors="raise", with_status=False):
+def restriction_from_ratio(ratio: ArrayLike, *, errors: str = "raise", with_status: bool = False):
     """Restriction codes (1, 2, 3 as natremia.Restriction; 0 in failed
-    rows) per Furst ratio."""
+    rows) per Furst ratio.
+
+    Parameters
+    ----------
+    ratio : array-like, pandas Series or scalar
+        Furst ratio given to ntr_restriction_from_ratio(); accepted 0 to 20 (NTR_INPUT_RATIO).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.restriction_from_ratio",
                 "ntr_batch_restriction_from_ratio", [ratio], int_output=True,
                 errors=errors, with_status=with_status)
 
 
-def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
-         errors="raise", with_status=False):
-    """Electrolyte-free water clearance, L, per row."""
+def efwc(*, urine_volume_l: ArrayLike, urine_na_mmol_l: ArrayLike, urine_k_mmol_l: ArrayLike, serum_na_mmol_l: ArrayLike,
+         errors: str = "raise", with_status: bool = False):
+    """Electrolyte-free water clearance, L, per row.
+
+    Parameters
+    ----------
+    urine_volume_l : array-like, pandas Series or scalar
+        Urine volume (in ntr_efwc(), a day's urine), L; accepted 0 to 30 L (NTR_INPUT_URINE_VOLUME).
+    urine_na_mmol_l : array-like, pandas Series or scalar
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : array-like, pandas Series or scalar
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.efwc", "ntr_batch_efwc",
                 [urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
                  serum_na_mmol_l], errors=errors, with_status=with_status)
@@ -876,27 +1311,120 @@ def _loop(function, cname, inputs, lead=(), errors="raise", with_status=False):
     return frame.wrap(out)
 
 
-def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg,
-                             errors="raise", with_status=False):
-    """Daily urine volume, L/day: solute / U_osm (Berl 2008), per row."""
+def urine_volume_from_solute(*, solute_mosm_day: ArrayLike, urine_osm_mosm_kg: ArrayLike,
+                             errors: str = "raise", with_status: bool = False):
+    """Daily urine volume, L/day: solute / U_osm (Berl 2008), per row.
+
+    Parameters
+    ----------
+    solute_mosm_day : array-like, pandas Series or scalar
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : array-like, pandas Series or scalar
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _loop("urine_volume_from_solute", "ntr_urine_volume_from_solute",
                  [solute_mosm_day, urine_osm_mosm_kg], errors=errors,
                  with_status=with_status)
 
 
-def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
-                    urine_k_mmol_l, serum_na_mmol_l, insensible_l_day=0.0,
-                    errors="raise", with_status=False):
+def fluid_allowance(*, solute_mosm_day: ArrayLike, urine_osm_mosm_kg: ArrayLike, urine_na_mmol_l: ArrayLike,
+                    urine_k_mmol_l: ArrayLike, serum_na_mmol_l: ArrayLike, insensible_l_day: ArrayLike = 0.0,
+                    errors: str = "raise", with_status: bool = False):
     """The most fluid per day that does not lower the sodium, L/day, per
-    row (negative: restriction alone cannot hold it)."""
+    row (negative: restriction alone cannot hold it).
+
+    Parameters
+    ----------
+    solute_mosm_day : array-like, pandas Series or scalar
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : array-like, pandas Series or scalar
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+    urine_na_mmol_l : array-like, pandas Series or scalar
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : array-like, pandas Series or scalar
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    insensible_l_day : array-like, pandas Series or scalar
+        Net insensible loss, L/day; accepted 0 to 10 L/day (NTR_INPUT_INSENSIBLE_L_DAY).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _loop("fluid_allowance", "ntr_fluid_allowance",
                  [solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
                   urine_k_mmol_l, serum_na_mmol_l, insensible_l_day],
                  errors=errors, with_status=with_status)
 
 
-def solute_dose_osmoles(*, solute, grams, errors="raise", with_status=False):
-    """Osmoles, mOsm, of doses of one solute (urea or NaCl), per row."""
+def solute_dose_osmoles(*, solute: ArrayLike, grams: ArrayLike, errors: str = "raise", with_status: bool = False):
+    """Osmoles, mOsm, of doses of one solute (urea or NaCl), per row.
+
+    Parameters
+    ----------
+    solute : scalar of Solute codes or names
+        One of urea (1), nacl (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    grams : array-like, pandas Series or scalar
+        A daily dose of urea or NaCl, g; accepted 0 to 200 g (NTR_INPUT_SOLUTE_GRAMS).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     code = _enum(_core.Solute, solute, "solute", "solute_dose_osmoles")
     return _loop("solute_dose_osmoles", "ntr_solute_dose_osmoles", [grams],
                  lead=(code,), errors=errors, with_status=with_status)
