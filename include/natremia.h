@@ -1572,11 +1572,11 @@ NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
  * @brief The accepted range of one kind of numeric input.
  *
  * Writes the smallest and the largest value a computing function accepts
- * for an input of kind @p kind: both ends are accepted (except the lower
- * end 0 of @ref NTR_INPUT_INTAKE_L_DAY and @ref NTR_INPUT_CHANGE: no
- * intake or no change is refused, any value above it is taken), a
- * finite value outside them gives
- * NTR_ERR_RANGE, a NaN or infinity NTR_ERR_NONFINITE.
+ * for an input of kind @p kind. Both ends are accepted, except the lower
+ * end 0 of @ref NTR_INPUT_INTAKE_L_DAY and of @ref NTR_INPUT_CHANGE (no
+ * intake, or no change, is refused; any value above 0 is taken). A finite
+ * value outside the range gives NTR_ERR_RANGE, a NaN or infinity
+ * NTR_ERR_NONFINITE.
  * No arithmetic: the values are the library's own range constants, the
  * ones every function checks against (docs/ranges.md gives the source of
  * each).
@@ -1589,7 +1589,7 @@ NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
  * @retval NTR_ERR_ARG   @p kind is not an NTR_INPUT_* value.
  *
  * On error nothing is written. Reference: docs/ranges.md (the library's
- * plausibility nets; not clinical limits).
+ * plausibility nets; not clinical limits). Method: none.
  */
 NTR_API int ntr_input_range(int kind, double *min, double *max);
 /** @} */
