@@ -118,6 +118,17 @@ class ExactCodes(unittest.TestCase):
                                                   height_cm=175, weight_kg=75),
                                    WATSON_MAN, places=9)
 
+    def test_course_preset_codes(self):
+        kw = dict(hours=[0.0, 24.0], na_mmol_l=[120.0, 124.0])
+        for bad in (1.9, True):
+            with self.assertRaises(TypeError):
+                ntr.course_assess(limits=bad, **kw)
+        with self.assertRaises(ValueError) as cm:
+            ntr.course_assess(limits=2 ** 32 + 1, **kw)
+        self.assertEqual(cm.exception.argument, "limits")
+        self.assertEqual(ntr.course_assess(limits=np.int64(1), **kw),
+                         ntr.course_assess(limits="hypo_standard", **kw))
+
     def test_numbers_that_are_not_numbers_raise(self):
         for bad in ("140", None, True, [140.0]):
             with self.assertRaises(TypeError) as cm:

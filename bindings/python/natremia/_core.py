@@ -630,6 +630,32 @@ def _enum_name(cls, value, argname, function):
                         accepted=_enum_names(cls))
 
 
+def _exact_int(value, argname, function, accepted):
+    """An integer code given exactly: a Python or numpy integer, or a float
+    holding an integer exactly (2.0 from a pandas column). A bool or a
+    non-integral number (1.9) raises TypeError; a code beyond C int (which
+    ctypes would wrap: 2**32 + 2 becomes 2) raises NatremiaError
+    (NTR_ERR_ARG). Both name the argument and what it accepts."""
+    if isinstance(value, bool) or type(value).__name__ == "bool_":
+        raise TypeError("%s: argument %s must be an integer code or a name, "
+                        "not a bool (accepted: %s)" % (function, argname,
+                                                       accepted))
+    if isinstance(value, numbers.Integral):
+        code = operator.index(value)
+    elif (isinstance(value, numbers.Real) and math.isfinite(value)
+          and float(value).is_integer()):
+        code = int(value)
+    else:
+        raise TypeError("%s: argument %s must be an exact integer code or a "
+                        "name, not %r (accepted: %s)" % (
+                            function, argname, value, accepted))
+    if not _INT_MIN <= code <= _INT_MAX:
+        raise NatremiaError(ERR_ARG, function, "code %d is beyond C int"
+                            % code, argument=argname, value=value,
+                            accepted=accepted)
+    return code
+
+
 def _enum(cls, value, argname, function):
     """An enumerator as int: a member, an exact integer code (int, numpy
     integer, or a float holding an integer exactly), or a case-blind name.
@@ -645,19 +671,7 @@ def _enum(cls, value, argname, function):
         return code
     if isinstance(value, cls):
         return int(value)
-    if isinstance(value, bool) or type(value).__name__ == "bool_":
-        raise TypeError("%s: argument %s must be an integer code or a name, "
-                        "not a bool (accepted: %s)" % (function, argname,
-                                                       _enum_names(cls)))
-    if isinstance(value, numbers.Integral):
-        code = operator.index(value)
-    elif (isinstance(value, numbers.Real) and math.isfinite(value)
-          and float(value).is_integer()):
-        code = int(value)
-    else:
-        raise TypeError("%s: argument %s must be an exact integer code or a "
-                        "name, not %r (accepted: %s)" % (
-                            function, argname, value, _enum_names(cls)))
+    code = _exact_int(value, argname, function, _enum_names(cls))
     if code not in cls._value2member_map_:
         raise NatremiaError(ERR_ARG, function, "unknown %s code %d" % (
             argname, code), argument=argname, value=value,
