@@ -185,6 +185,19 @@ class ErrorsNameTheArgument(unittest.TestCase):
         self.assertEqual(cm.exception.argument, "age_years")
         self.assertIn("18 to 130 years", str(cm.exception))
 
+    def test_series_and_limits_name_their_range(self):
+        with self.assertRaises(ntr.NatremiaError) as cm:
+            ntr.course_assess(hours=[0, 24], na_mmol_l=[120, 400],
+                              limits="hypo_standard")
+        self.assertEqual(cm.exception.argument, "na_mmol_l[1]")
+        self.assertIn("80 to 220 mmol/L", cm.exception.accepted)
+        with self.assertRaises(ntr.NatremiaError) as cm:
+            ntr.course_assess(hours=[0, 24], na_mmol_l=[120, 124],
+                              limits=ntr.CourseLimits("raise", 60, 0, 0, 0, 0))
+        self.assertEqual(cm.exception.argument, "limits.max_rise_24h")
+        r = ntr.input_range("limit")
+        self.assertIn("%g to %g" % (r.min, r.max), str(cm.exception))
+
     def test_array_names_the_argument_of_the_first_failing_row(self):
         with self.assertRaises(ntr.NatremiaError) as cm:
             arrays.infusate_change(na_mmol_l=[120, 120], tbw_l=[30, 30],

@@ -11,6 +11,7 @@ import math
 import numbers
 import operator
 import os
+import re
 from collections import namedtuple
 from dataclasses import dataclass
 from typing import Union
@@ -82,6 +83,8 @@ class NatremiaError(ValueError):
 
     def __init__(self, status, function, detail=None, row=None, failed=None,
                  argument=None, group_id=None, value=None, accepted=None):
+        if accepted is None and isinstance(argument, str):
+            accepted = _accepted_for_name(argument)
         self.accepted = accepted
         self.status = int(status)
         self.status_name = status_name(status)
@@ -790,7 +793,7 @@ _ARGUMENT_KINDS = {
     "plasma_creatinine": _K.FE_VALUE, "solute_mosm_day": _K.SOLUTE_MOSM_DAY,
     "insensible_l_day": _K.INSENSIBLE_L_DAY, "grams": _K.SOLUTE_GRAMS,
     "fe_uric_acid_percent": _K.FE_PERCENT, "duration_h": _K.PLAN_HOURS,
-    "step_h": _K.PLAN_STEP,
+    "step_h": _K.PLAN_STEP, "limits.": _K.LIMIT, "horizon_h": _K.PLAN_HOURS,
 }
 _ARGUMENT_KIND_OVERRIDES = {
     ("ntr_tbw_watson", "age_years"): _K.AGE_WATSON,
@@ -799,6 +802,15 @@ _ARGUMENT_KIND_OVERRIDES = {
 }
 del _K
 _RANGE_CACHE = {}
+
+
+def _accepted_for_name(argument):
+    """The accepted range of an argument named the way errors name them:
+    "na_mmol_l[2]" (a sample), "limits.max_fall_24h" (a limit), "tbw_l"."""
+    base = re.sub(r"\[\d+\]", "", argument)
+    if base.startswith("limits."):
+        return _accepted_text(None, "limits.")
+    return _accepted_text(None, base)
 
 
 def _accepted_text(cname, argument):
