@@ -357,5 +357,39 @@ class FastPathEqualsGeneralPath(unittest.TestCase):
         self.assertEqual(str(fast), str(slow))
 
 
+class StrictnessProperties(unittest.TestCase):
+    @given(st.floats(allow_nan=False, allow_infinity=False).filter(
+        lambda x: not float(x).is_integer()))
+    def test_any_non_integral_code_raises_type_error(self, x):
+        with self.assertRaises(TypeError):
+            ntr.tbw_fraction(sex=x, age_years=40.0, weight_kg=70.0)
+        with self.assertRaises(TypeError):
+            arrays.tbw_fraction(sex=[x], age_years=40.0, weight_kg=70.0)
+
+    @given(st.integers(min_value=-2 ** 70, max_value=2 ** 70).filter(
+        lambda x: x not in (1, 2)))
+    def test_any_other_integer_code_raises_value_error(self, x):
+        with self.assertRaises(ValueError) as cm:
+            ntr.tbw_fraction(sex=x, age_years=40.0, weight_kg=70.0)
+        self.assertEqual(cm.exception.argument, "sex")
+
+    @unittest.skipIf(pd is None, "pandas not installed")
+    @given(st.lists(st.tuples(st.floats(60, 240), st.floats(-10, 210)),
+                    min_size=1, max_size=30), st.randoms(use_true_random=False))
+    def test_series_result_is_the_array_result_on_the_index(self, rows, rnd):
+        labels = ["r%d" % i for i in range(len(rows))]
+        rnd.shuffle(labels)
+        na = pd.Series([r[0] for r in rows], index=labels)
+        glucose = pd.Series([r[1] for r in rows], index=labels)
+        got, status = arrays.osm_effective(na_mmol_l=na, glucose_mmol_l=glucose,
+                                           errors="nan", with_status=True)
+        want, want_status = arrays.osm_effective(
+            na_mmol_l=na.to_numpy(), glucose_mmol_l=glucose.to_numpy(),
+            errors="nan", with_status=True)
+        self.assertEqual(list(got.index), labels)
+        np.testing.assert_array_equal(got.to_numpy(), want)
+        np.testing.assert_array_equal(status.to_numpy(), want_status)
+
+
 if __name__ == "__main__":
     unittest.main()
