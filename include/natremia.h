@@ -116,6 +116,17 @@ NTR_API unsigned long ntr_version_number(void);
 #define NTR_ANALYTE_UREA_NITROGEN 6 /**< BUN: the 2 N of urea, 28.014 g/mol per mmol urea; mmol/L means mmol of urea */
 #define NTR_ANALYTE_CREATININE 7    /**< C4H7N3O, 113.120 g/mol */
 #define NTR_ANALYTE_ETHANOL 8       /**< C2H6O, 46.069 g/mol */
+#define NTR_ANALYTE_OSMOLALITY 9    /**< osmolality (since 1.1): mosm/kg only, converted to itself */
+#define NTR_ANALYTE_URIC_ACID 10    /**< uric acid, C5H4N4O3, 168.112 g/mol (since 1.1) */
+
+/* Specimens a LOINC code names (ntr_loinc_lookup(), since 1.1). */
+#define NTR_SPECIMEN_SERUM_PLASMA 1 /**< serum or plasma */
+#define NTR_SPECIMEN_BLOOD 2        /**< whole blood */
+#define NTR_SPECIMEN_URINE 3        /**< urine */
+
+/** Longest text ntr_unit_parse_lenient() reads, in bytes, blanks included
+ *  (since 1.1); a longer text is refused without being read further. */
+#define NTR_UNIT_TEXT_MAX 32
 
 /**
  * @brief Parse a case-sensitive UCUM unit code.
@@ -136,6 +147,142 @@ NTR_API unsigned long ntr_version_number(void);
 NTR_API int ntr_unit_parse(const char *ucum, int *unit);
 
 /**
+ * @brief Parse a unit as laboratory feeds spell it (since 1.1).
+ *
+ * The text is folded before it is matched: blanks (space, tab) around it
+ * are dropped, ASCII letters are compared without case (UCUM's
+ * case-insensitive forms are the upper-case codes), and the micro sign
+ * U+00B5 and the Greek small letter mu U+03BC, in UTF-8, read as "u".
+ * What remains must be one of these spellings (shown folded):
+ * - "mmol/l" gives @ref NTR_UNIT_MMOL_L ("mmol/L", "mmol/l", "MMOL/L")
+ * - "mg/dl" gives @ref NTR_UNIT_MG_DL ("mg/dL", "mg/dl", "MG/DL")
+ * - "meq/l" gives @ref NTR_UNIT_MEQ_L ("meq/L", "mEq/L", "MEQ/L")
+ * - "mosm/kg", "mosm/kg{h2o}", "mosm/kg h2o", "mosmol/kg",
+ *   "mosmol/kg{h2o}", "mosmol/kg h2o" give @ref NTR_UNIT_MOSM_KG
+ *   ("mOsm/kg", "mosm/kg H2O", "mOsm/kg{H2O}", "mOsmol/kg")
+ * - "g/l" gives @ref NTR_UNIT_G_L ("g/L", "g/l", "G/L")
+ * - "umol/l" gives @ref NTR_UNIT_UMOL_L ("umol/L", and with the micro sign or mu for u)
+ *
+ * Everything else is refused, in particular what could mean two things:
+ * "mosm/l" (an osmolarity, per litre of solution, not the osmolality per
+ * kg of water that @ref NTR_UNIT_MOSM_KG is), "mmol/kg" (an osmolality to
+ * some laboratories, a molality of one solute to others), "mg%" and
+ * "mg/100ml" (older spellings of mg/dL that some texts use for other
+ * quantities), blanks inside the unit other than the one before "h2o",
+ * other non-ASCII bytes (Latin-1 micro 0xB5 included: the encoding is not
+ * known) and texts longer than @ref NTR_UNIT_TEXT_MAX bytes. The strict
+ * ntr_unit_parse() is unchanged.
+ *
+ * The text is read only up to its terminating NUL, and never more than
+ * @ref NTR_UNIT_TEXT_MAX + 1 bytes.
+ *
+ * @param text  NUL-terminated unit text.
+ * @param[out] unit one of the NTR_UNIT_* values.
+ * @retval NTR_OK          parsed.
+ * @retval NTR_ERR_NULL    @p text or @p unit is NULL.
+ * @retval NTR_ERR_UNIT    not one of the spellings above.
+ *
+ * Reference: The Unified Code for Units of Measure (UCUM), Regenstrief
+ * Institute (its case-insensitive forms and the {annotation} syntax).
+ * Method: @ref NTR_METHOD_UNIT_CONVERSION.
+ */
+NTR_API int ntr_unit_parse_lenient(const char *text, int *unit);
+
+/**
+ * @brief Analyte, specimen and unit of a LOINC code (since 1.1).
+ *
+ * Only codes checked against a published source are mapped (docs/units.md
+ * lists them with their source, and the codes not mapped until checked):
+ *
+ * | code | component [property] in system | analyte | specimen | unit |
+ * |---|---|---|---|---|
+ * | 2951-2 | Sodium [Moles/volume] in Serum or Plasma | sodium | serum/plasma | mmol/L |
+ * | 2947-0 | Sodium [Moles/volume] in Blood | sodium | blood | mmol/L |
+ * | 2823-3 | Potassium [Moles/volume] in Serum or Plasma | potassium | serum/plasma | mmol/L |
+ * | 2075-0 | Chloride [Moles/volume] in Serum or Plasma | chloride | serum/plasma | mmol/L |
+ * | 2345-7 | Glucose [Mass/volume] in Serum or Plasma | glucose | serum/plasma | mg/dL |
+ * | 14749-6 | Glucose [Moles/volume] in Serum or Plasma | glucose | serum/plasma | mmol/L |
+ * | 15074-8 | Glucose [Moles/volume] in Blood | glucose | blood | mmol/L |
+ * | 14937-7 | Urea nitrogen [Moles/volume] in Serum or Plasma | urea nitrogen | serum/plasma | mmol/L |
+ * | 2160-0 | Creatinine [Mass/volume] in Serum or Plasma | creatinine | serum/plasma | mg/dL |
+ * | 14682-9 | Creatinine [Moles/volume] in Serum or Plasma | creatinine | serum/plasma | mmol/L |
+ * | 2161-8 | Creatinine [Mass/volume] in Urine | creatinine | urine | mg/dL |
+ * | 14933-6 | Urate [Moles/volume] in Serum or Plasma | uric acid | serum/plasma | mmol/L |
+ *
+ * The unit is the one the code's property implies: moles/volume gives
+ * @ref NTR_UNIT_MMOL_L, mass/volume @ref NTR_UNIT_MG_DL, osmolality
+ * @ref NTR_UNIT_MOSM_KG. It names the dimension, not the prefix the result
+ * is sent with (creatinine of 14682-9 often comes in umol/L): read the
+ * value's own unit (ntr_unit_parse_lenient()) and use this one to check
+ * that the two agree in kind. The code must be given exactly (digits, the
+ * hyphen and the check digit, no blanks); it is read up to its NUL and
+ * never more than 8 bytes (the longest code, 7 characters, and its NUL).
+ *
+ * @param code  NUL-terminated LOINC code, e.g. "2951-2".
+ * @param[out] analyte  one of NTR_ANALYTE_*.
+ * @param[out] specimen one of NTR_SPECIMEN_*.
+ * @param[out] unit     one of NTR_UNIT_*.
+ * @retval NTR_OK          found.
+ * @retval NTR_ERR_NULL    a pointer is NULL.
+ * @retval NTR_ERR_UNIT    not a code of the table (unknown, or not checked yet).
+ *
+ * Reference: LOINC, Regenstrief Institute; the codes as used in the HL7
+ * FHIR R4 published examples (hl7.fhir.r4.examples 4.0.1).
+ * Method: @ref NTR_METHOD_LOINC_MAP.
+ */
+NTR_API int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
+                             int *unit);
+
+/**
+ * @brief Glucose in mmol/L, refused when it contradicts the sodium and the
+ *        measured osmolality for the unit given (since 1.1).
+ *
+ * The glucose is converted from @p unit to mmol/L (ntr_convert()); g is
+ * the result. The osmolality that g implies is at least the
+ * Dorwart-Chalmers value without urea or ethanol (both add, never
+ * subtract): floor = 1.86*Na + g + 9. The glucose is refused with
+ * @ref NTR_ERR_UNIT when
+ * - floor > 600 mOsm/kg, the largest osmolality the library takes
+ *   (docs/ranges.md), or
+ * - an osmolality was measured and floor > measured + 20 mOsm/kg (the
+ *   tolerance, docs/ranges.md).
+ *
+ * This catches the dangerous slip, a glucose in mg/dL passed as mmol/L
+ * (150 "mmol/L" with sodium 135 implies at least 410 mOsm/kg; a measured
+ * 290 refuses it), once 17/18 of the value exceeds urea, other osmoles,
+ * the osmolal gap and the tolerance together (about 30 mg/dL with a
+ * normal urea). Without a measured osmolality it catches only values the
+ * first rule refuses: both readings of any value from 0 to 200 are then
+ * possible, and docs/units.md says why. The reverse slip (mmol/L passed
+ * as mg/dL) lowers the floor and cannot be refused: a measured
+ * osmolality far above it is what unmeasured osmoles (toxic alcohols)
+ * also give.
+ *
+ * @param glucose          the glucose in @p unit; finite, 0 to 200 mmol/L
+ *                         once converted (0 to 3603 mg/dL).
+ * @param unit             @ref NTR_UNIT_MMOL_L, @ref NTR_UNIT_MG_DL,
+ *                         @ref NTR_UNIT_G_L or @ref NTR_UNIT_UMOL_L.
+ * @param na_mmol_l        serum sodium, 80 to 220 mmol/L.
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600
+ *                         mOsm/kg, or exactly 0 when not measured.
+ * @param[out] glucose_mmol_l the glucose in mmol/L.
+ * @retval NTR_OK            converted and consistent with its unit.
+ * @retval NTR_ERR_NULL      @p glucose_mmol_l is NULL.
+ * @retval NTR_ERR_UNIT      @p unit is not a glucose unit; or, after every
+ *                           range check, the rules above refuse the glucose.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its range.
+ *
+ * Reference: Dorwart WV, Chalmers L. Comparison of methods for
+ * calculating serum osmolality from chemical concentrations. Clin Chem
+ * 1975;21:190-4. The tolerance is the project's (docs/ranges.md).
+ * Method: @ref NTR_METHOD_GLUCOSE_UNIT_CHECK.
+ */
+NTR_API int ntr_glucose_unit_check(double glucose, int unit, double na_mmol_l,
+                                   double measured_osm_mosm_kg,
+                                   double *glucose_mmol_l);
+
+/**
  * @brief Convert a laboratory value of an analyte between units.
  *
  * out = value * factor(from_unit) / factor(to_unit), where the factor turns
@@ -149,6 +296,9 @@ NTR_API int ntr_unit_parse(const char *ucum, int *unit);
  * - sodium, potassium, chloride: mmol/L, meq/L, mg/dL, umol/L
  * - glucose, urea, urea nitrogen, ethanol: mmol/L, mg/dL, g/L, umol/L
  * - creatinine: mmol/L, umol/L, mg/dL, g/L
+ * - uric acid (since 1.1): mmol/L, mg/dL, g/L, umol/L
+ * - osmolality (since 1.1): mosm/kg only; mosm/kg to mosm/kg returns the
+ *   value, any other unit gives NTR_ERR_UNIT
  *
  * @param analyte   one of NTR_ANALYTE_*.
  * @param value     the value in @p from_unit; finite, 0 to 1e6.
@@ -3785,6 +3935,8 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_INFUSATE_VOLUME 16      /**< infusate volume for a wanted change */
 #define NTR_METHOD_FURST 17                /**< Furst urine/serum electrolyte ratio and restriction bands */
 #define NTR_METHOD_EFWC 18                 /**< electrolyte-free water clearance */
+#define NTR_METHOD_LOINC_MAP 19            /**< LOINC code to analyte, specimen and unit (since 1.1) */
+#define NTR_METHOD_GLUCOSE_UNIT_CHECK 20   /**< glucose unit against sodium and measured osmolality (since 1.1) */
 /* Correction and balance (ids 30-49, issue P2; lib/correction.c, lib/balance.c). */
 #define NTR_METHOD_LIMITS_STANDARD 30      /**< 10/24 h, 18/48 h, at least 4/24 h */
 #define NTR_METHOD_LIMITS_HIGH_RISK 31     /**< 8/24 h, 16/48 h, at least 4/24 h */

@@ -35,6 +35,9 @@
 #define NTR_URINE_VOLUME_MAX 30.0  /* L */
 #define NTR_RATIO_MAX 20.0
 #define NTR_CONVERT_MAX 1.0e6
+/* How far the Dorwart-Chalmers floor of a glucose may exceed the measured
+ * osmolality before ntr_glucose_unit_check() refuses its unit (since 1.1). */
+#define NTR_GLUCOSE_UNIT_TOLERANCE 20.0 /* mOsm/kg */
 #define NTR_GLUCOSE_FACTOR_MAX 5.0 /* mmol/L Na per 100 mg/dL glucose; published 1.6-4.0 */
 /* Work-up (lib/workup.c). Wide nets that catch unit slips, not clinical
  * limits; docs/ranges.md gives the reasoning. */

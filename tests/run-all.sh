@@ -45,6 +45,14 @@ packages=(
     gcc-s390x-linux-gnu
     libc6-dev-s390x-cross
     qemu-user
+    # the JavaScript binding (issue 15): clang (above) for wasm32 with lld's
+    # wasm-ld, wasi-libc for the reference-vector program, node to run them
+    # (+ libclang-rt-N-dev-wasm32, found below; npm where node has none);
+    # the web page test opens examples/web in headless Chromium
+    lld
+    wasi-libc
+    nodejs
+    chromium
 )
 
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
@@ -65,6 +73,14 @@ if [[ -n $clang_rt ]]; then
     packages+=("$clang_rt")
 else
     echo "run-all.sh: no runtime package for clang ${clang_major:-?} known to apt: fuzzing will be skipped"
+fi
+if [[ -n $clang_major ]] && deb_known "libclang-rt-$clang_major-dev-wasm32"; then
+    packages+=("libclang-rt-$clang_major-dev-wasm32")
+fi
+# Debian's nodejs comes without npm; a node that brings its own (as
+# NodeSource's package does, which conflicts with Debian's npm) is left alone.
+if ! command -v npm >/dev/null 2>&1; then
+    packages+=(npm)
 fi
 echo "run-all.sh: PostgreSQL ${pg_major:-none}, clang ${clang_major:-none} (${clang_rt:-no runtime package})"
 apt_missing "${packages[@]}"

@@ -534,6 +534,8 @@ class Analyte(enum.IntEnum):
     UREA_NITROGEN = 6
     CREATININE = 7
     ETHANOL = 8
+    OSMOLALITY = 9   # since 1.1 (mosm/kg only)
+    URIC_ACID = 10   # since 1.1
 
 
 class OsmFormula(enum.IntEnum):
