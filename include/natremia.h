@@ -1778,6 +1778,86 @@ NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
 /** @} */
 
 /* ======================================================================= */
+/* ==== section: input ranges (lib/ranges.c, docs/ranges.md) ============= */
+/* ======================================================================= */
+
+/** @defgroup ranges Input ranges
+ *  The accepted range of each kind of numeric input, so that a form can
+ *  check a value before the call and a binding can name the input that
+ *  failed and the range it has to be in. The values are the ones the
+ *  computing functions test (NTR_ERR_RANGE outside them); docs/ranges.md
+ *  says where each comes from. A value inside its range can still be
+ *  refused with NTR_ERR_DOMAIN when it does not fit the other inputs.
+ *  Kinds are numbered from 1 without gaps; later versions only add kinds
+ *  at the end, so a caller may walk them until NTR_ERR_ARG.
+ *  @{ */
+#define NTR_INPUT_NA 1               /**< serum sodium (also a target sodium), mmol/L */
+#define NTR_INPUT_GLUCOSE 2          /**< serum glucose, mmol/L */
+#define NTR_INPUT_UREA 3             /**< serum urea, mmol/L */
+#define NTR_INPUT_ETHANOL 4          /**< serum ethanol, mmol/L */
+#define NTR_INPUT_OSMOLALITY 5       /**< serum osmolality, measured or calculated, mOsm/kg */
+#define NTR_INPUT_AGE_FRACTION 6     /**< age in ntr_tbw_fraction(), years */
+#define NTR_INPUT_AGE_WATSON 7       /**< age in ntr_tbw_watson() (adults), years */
+#define NTR_INPUT_HEIGHT 8           /**< height, cm */
+#define NTR_INPUT_WEIGHT 9           /**< body weight, kg */
+#define NTR_INPUT_TBW 10             /**< total body water, L */
+#define NTR_INPUT_INFUSATE_NA 11     /**< sodium of an infusate or flow, mmol/L */
+#define NTR_INPUT_INFUSATE_K 12      /**< potassium of an infusate or flow, mmol/L */
+#define NTR_INPUT_VOLUME 13          /**< volume of one infusion, L */
+#define NTR_INPUT_DELTA 14           /**< a wanted signed change of sodium, mmol/L */
+#define NTR_INPUT_URINE_NA 15        /**< urine sodium, mmol/L */
+#define NTR_INPUT_URINE_K 16         /**< urine potassium, mmol/L */
+#define NTR_INPUT_URINE_VOLUME 17    /**< urine volume (in ntr_efwc(), a day's urine), L */
+#define NTR_INPUT_URINE_OSM 18       /**< urine osmolality, mOsm/kg */
+#define NTR_INPUT_RATIO 19           /**< Furst ratio given to ntr_restriction_from_ratio() */
+#define NTR_INPUT_GLUCOSE_FACTOR 20  /**< factor of ntr_na_corrected_glucose_factor(), mmol/L per 100 mg/dL */
+#define NTR_INPUT_CONVERT_VALUE 21   /**< the value given to ntr_convert(), in its own unit */
+#define NTR_INPUT_HOURS 22           /**< time of a sodium sample, h (any origin) */
+#define NTR_INPUT_LIMIT 23           /**< a field of ntr_limits or ntr_course_limits, mmol/L */
+#define NTR_INPUT_FLOW_RATE 24       /**< signed rate of a timed flow, mL/h */
+#define NTR_INPUT_URINE_RATE 25      /**< a urine (or saline) rate given alone, mL/h */
+#define NTR_INPUT_PLAN_HOURS 26      /**< flow and interval times, h; also a plan's length, which must be above 0 */
+#define NTR_INPUT_PLAN_STEP 27       /**< plan step, re-lowering or lowering period, h */
+#define NTR_INPUT_FLOW_VOLUME 28     /**< signed volume of a gain or loss in ntr_balance_predict(), L */
+#define NTR_INPUT_URINE_ML 29        /**< volume of one measured urine interval, mL */
+#define NTR_INPUT_URIC_ACID 30       /**< serum uric acid, mmol/L */
+#define NTR_INPUT_FE_PERCENT 31      /**< a fractional excretion given as input, % */
+#define NTR_INPUT_FE_VALUE 32        /**< a concentration given to ntr_fractional_excretion() */
+#define NTR_INPUT_SOLUTE_MOSM_DAY 33 /**< osmoles excreted per day, mOsm/day */
+#define NTR_INPUT_INSENSIBLE_L_DAY 34 /**< net insensible loss, L/day */
+#define NTR_INPUT_SOLUTE_GRAMS 35    /**< a daily dose of urea or NaCl, g */
+#define NTR_INPUT_INTAKE_L_DAY 36    /**< a target fluid intake, L/day, above the lower end (0 itself is refused) */
+#define NTR_INPUT_RELOWER_MARGIN 37  /**< margin below a limit when re-lowering, mmol/L */
+#define NTR_INPUT_INSENSIBLE_ML_H 38 /**< insensible water loss in ntr_hyper_lower_plan(), mL/h */
+#define NTR_INPUT_CHANGE 39          /**< the size of a change (a fall, a rise aimed at, a lowering), mmol/L, above the lower end (0 itself is refused) */
+
+/**
+ * @brief The accepted range of one kind of numeric input.
+ *
+ * Writes the smallest and the largest value a computing function accepts
+ * for an input of kind @p kind. Both ends are accepted, except the lower
+ * end 0 of @ref NTR_INPUT_INTAKE_L_DAY and of @ref NTR_INPUT_CHANGE (no
+ * intake, or no change, is refused; any value above 0 is taken). A finite
+ * value outside the range gives NTR_ERR_RANGE, a NaN or infinity
+ * NTR_ERR_NONFINITE.
+ * No arithmetic: the values are the library's own range constants, the
+ * ones every function checks against (docs/ranges.md gives the source of
+ * each).
+ *
+ * @param kind      one of NTR_INPUT_* (1 to 39 in this version).
+ * @param[out] min  smallest accepted value, in the unit named by the kind.
+ * @param[out] max  largest accepted value, in the same unit.
+ * @retval NTR_OK        both ends written.
+ * @retval NTR_ERR_NULL  @p min or @p max is NULL.
+ * @retval NTR_ERR_ARG   @p kind is not an NTR_INPUT_* value.
+ *
+ * On error nothing is written. Reference: docs/ranges.md (the library's
+ * plausibility nets; not clinical limits). Method: none.
+ */
+NTR_API int ntr_input_range(int kind, double *min, double *max);
+/** @} */
+
+/* ======================================================================= */
 /* ==== section: provenance (lib/methods.c, docs/methods.md) ============= */
 /* ======================================================================= */
 

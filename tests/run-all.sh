@@ -29,6 +29,7 @@ packages=(
     python3-wheel
     python3-pip
     python3-venv
+    python3-dev
     python3-dask
     python3-pandas
     python3-distributed

@@ -353,6 +353,8 @@ export interface Natremia {
   fe_uric_acid_class(fe_uric_acid_percent: number): number;
   /** ntr_fe_uric_acid_after_correction() of include/natremia.h. */
   fe_uric_acid_after_correction(fe_low_na_percent: number, fe_corrected_percent: number, na_corrected_mmol_l: number): number;
+  /** ntr_input_range() of include/natremia.h. */
+  input_range(kind: number): { min: number; max: number };
   /** ntr_method_info() of include/natremia.h. */
   method_info(method: number): ntr_method_info;
   /** ntr_method_next() of include/natremia.h. */

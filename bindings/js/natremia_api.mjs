@@ -116,6 +116,45 @@ export const api = {
   "NTR_URIC_ACID_COURSE_NORMALISED": 3,
   "NTR_URIC_ACID_COURSE_UNSETTLED": 4,
   "NTR_URIC_ACID_COURSE_PERSISTENT_HIGH": 5,
+  "NTR_INPUT_NA": 1,
+  "NTR_INPUT_GLUCOSE": 2,
+  "NTR_INPUT_UREA": 3,
+  "NTR_INPUT_ETHANOL": 4,
+  "NTR_INPUT_OSMOLALITY": 5,
+  "NTR_INPUT_AGE_FRACTION": 6,
+  "NTR_INPUT_AGE_WATSON": 7,
+  "NTR_INPUT_HEIGHT": 8,
+  "NTR_INPUT_WEIGHT": 9,
+  "NTR_INPUT_TBW": 10,
+  "NTR_INPUT_INFUSATE_NA": 11,
+  "NTR_INPUT_INFUSATE_K": 12,
+  "NTR_INPUT_VOLUME": 13,
+  "NTR_INPUT_DELTA": 14,
+  "NTR_INPUT_URINE_NA": 15,
+  "NTR_INPUT_URINE_K": 16,
+  "NTR_INPUT_URINE_VOLUME": 17,
+  "NTR_INPUT_URINE_OSM": 18,
+  "NTR_INPUT_RATIO": 19,
+  "NTR_INPUT_GLUCOSE_FACTOR": 20,
+  "NTR_INPUT_CONVERT_VALUE": 21,
+  "NTR_INPUT_HOURS": 22,
+  "NTR_INPUT_LIMIT": 23,
+  "NTR_INPUT_FLOW_RATE": 24,
+  "NTR_INPUT_URINE_RATE": 25,
+  "NTR_INPUT_PLAN_HOURS": 26,
+  "NTR_INPUT_PLAN_STEP": 27,
+  "NTR_INPUT_FLOW_VOLUME": 28,
+  "NTR_INPUT_URINE_ML": 29,
+  "NTR_INPUT_URIC_ACID": 30,
+  "NTR_INPUT_FE_PERCENT": 31,
+  "NTR_INPUT_FE_VALUE": 32,
+  "NTR_INPUT_SOLUTE_MOSM_DAY": 33,
+  "NTR_INPUT_INSENSIBLE_L_DAY": 34,
+  "NTR_INPUT_SOLUTE_GRAMS": 35,
+  "NTR_INPUT_INTAKE_L_DAY": 36,
+  "NTR_INPUT_RELOWER_MARGIN": 37,
+  "NTR_INPUT_INSENSIBLE_ML_H": 38,
+  "NTR_INPUT_CHANGE": 39,
   "NTR_LIMITS_STANDARD": 1,
   "NTR_LIMITS_HIGH_RISK": 2,
   "NTR_CF_OVER_24H": 1,
@@ -2162,6 +2201,28 @@ export const api = {
     {
      "name": "course",
      "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_input_range",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "kind",
+     "type": "int"
+    },
+    {
+     "name": "min",
+     "type": "double",
+     "pointer": 1
+    },
+    {
+     "name": "max",
+     "type": "double",
      "pointer": 1
     }
    ]

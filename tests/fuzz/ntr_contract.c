@@ -1103,6 +1103,33 @@ static int results_outlook(const ntrc_case *c, double *v, int max)
     return 10;
 }
 
+/* ---- input ranges ---------------------------------------------------------------- */
+
+/* NTR_INPUT_* kinds of this version: 1 to 39 without gaps. */
+#define INPUT_KINDS 39
+
+static int call_input_range(ntrc_case *c)
+{
+    return ntr_input_range(c->en[0], od(c, 0), od(c, 1));
+}
+
+static int predict_input_range(const ntrc_fn *f, const ntrc_case *c)
+{
+    (void)f;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    return (c->en[0] >= 1 && c->en[0] <= INPUT_KINDS) ? NTR_OK : NTR_ERR_ARG;
+}
+
+static const char *ok_input_range(const ntrc_case *c)
+{
+    double lo = c->out.d[0], hi = c->out.d[1];
+    return (isfinite(lo) && isfinite(hi) && lo < hi && lo >= -1.0e6 && hi <= 1.0e6)
+               ? NULL
+               : "range not finite, empty or beyond the largest constant (1e6)";
+}
+
 /* ---- provenance ---------------------------------------------------------------- */
 
 /* Whether the running library knows a method id, by its own iterator. */
@@ -4419,6 +4446,11 @@ const ntrc_fn ntrc_functions[] = {
      .base_num = {600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0}, .base_en = {0},
      .prepare_out = prepare_outlook, .results = results_outlook,
      .check_ok = ok_restriction_outlook},
+    /* input ranges */
+    {CALL(input_range), .n_enum = 1,
+     .en = {{"kind", NTR_ERR_ARG, 10, {1, 2, 5, 10, 14, 22, 27, 36, 38, 39}}}, .n_out_d = 2,
+     .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {NTR_INPUT_NA},
+     .predict = predict_input_range, .check_ok = ok_input_range},
     /* provenance */
     {CALL(method_info), .n_enum = 1,
      .en = {{"method", NTR_ERR_ARG, 10, {1, 11, 18, 30, 39, 50, 56, 14, 70, 74}}}, .n_in_ptr = 1,

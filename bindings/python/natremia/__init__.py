@@ -17,6 +17,7 @@ from ._core import (  # noqa: F401
     OK, ERR_NULL, ERR_NONFINITE, ERR_RANGE, ERR_UNIT, ERR_DOMAIN, ERR_ORDER,
     ERR_CAPACITY, ERR_ARG, STATUS_NAMES,
     NatremiaError, status_name, status_message, version, method_info, methods,
+    library_path, InputKind, InputRange, input_range,
     MethodInfo,
     Unit, Analyte, OsmFormula, GlucoseMethod, Sex, Fluid, Restriction,
     LimitsPreset, CorrectionFlag, OdsFactor,
