@@ -93,7 +93,9 @@ static inline NTRK_VERDICT NTRK(infusate_volume_for_change)(
      * ntr_relower_estimate() applies to its target. */
     NTRK_TRY(NTRK(model_na)(na_mmol_l + target_delta_mmol_l));
     NTRK_RETURN_IF(NTRK_EQ(target_delta_mmol_l, NTRK_K(0.0)), volume_l, 0.0);
-    /* The infusate must lie beyond the target sodium, on the same side. */
+    /* The infusate must lie beyond the target sodium, on the same side.
+     * (A change of 0 fails both tests: in two lanes, such a row goes to
+     * the scalar kernel, which returned 0.0 above.) */
     headroom = infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l -
                target_delta_mmol_l;
     rise = NTRK_AND(NTRK_GT(target_delta_mmol_l, NTRK_K(0.0)),

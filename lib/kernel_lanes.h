@@ -39,8 +39,11 @@
  *                              NTR_ERR_RANGE (ntr_check)
  *   NTRK_REQUIRE(t, status)    fail with status unless t
  *   NTRK_TRY(v)                fail with the verdict of a sub-kernel
- *   NTRK_RETURN_IF(t, out, x)  scalar: succeed early with *out = x when t;
- *                              pairs leave such rows to the scalar flavour
+ *   NTRK_RETURN_IF(t, out, x)  scalar: succeed early with *out = x when t.
+ *                              Pairs test nothing here: a kernel using it
+ *                              must fail such rows in a later check of its
+ *                              own (its comment says which), so that they
+ *                              go to the scalar flavour
  *   NTRK_GE/GT/LE/LT/EQ(a, b)  comparisons of reals (false for NaN)
  *   NTRK_WITHIN(x, lo, hi)     lo <= x <= hi as a test
  *   NTRK_AND/OR(t, u)          tests combined
@@ -123,10 +126,12 @@
 #define NTRK_K(x) pair_splat(x)
 #define NTRK_BEGIN ntr_mask ntrk_ok_ = pair_true()
 #define NTRK_END return ntrk_ok_
-#define NTRK_CHECK(x, lo, hi) (ntrk_ok_ = pair_and(ntrk_ok_, pair_in((x), (lo), (hi))))
-#define NTRK_REQUIRE(t, status) (ntrk_ok_ = pair_and(ntrk_ok_, (t)))
-#define NTRK_TRY(v) (ntrk_ok_ = pair_and(ntrk_ok_, (v)))
-#define NTRK_RETURN_IF(t, out, x) (ntrk_ok_ = pair_andnot((t), ntrk_ok_))
+#define NTRK_CHECK(x, lo, hi) \
+    (ntrk_ok_ = pair_verdict_and(ntrk_ok_, pair_in((x), (lo), (hi))))
+#define NTRK_REQUIRE(t, status) (ntrk_ok_ = pair_verdict_and(ntrk_ok_, (t)))
+#define NTRK_TRY(v) (ntrk_ok_ = pair_verdict_and(ntrk_ok_, (v)))
+/* No lane test (see the vocabulary above): a later check fails such rows. */
+#define NTRK_RETURN_IF(t, out, x) ((void)0)
 #define NTRK_GE(a, b) pair_ge((a), (b))
 #define NTRK_GT(a, b) pair_gt((a), (b))
 #define NTRK_LE(a, b) pair_le((a), (b))

@@ -14,6 +14,9 @@
 # versions on the same invented rows, alternating, fastest round of each,
 # and whether both wrote the same bytes. Exit status 1 if any output
 # differs. CC overrides the compiler (default cc). Takes about a minute.
+# With AB_CALLGRIND=1 (valgrind installed) it also counts instructions per
+# row of each side under callgrind on the same rows, which no other load
+# on the machine can disturb (tests/bench/callgrind_ab.py prints them).
 set -euo pipefail
 root=$(cd "$(dirname "$0")/../.." && pwd)
 base=${1:-60cda71}
@@ -23,7 +26,7 @@ cc=${CC:-cc}
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT
 
-flags=(-std=c99 -O2 -g -Wall -Wextra -Wpedantic -Werror -Wconversion -Wshadow
+flags=(-std=c99 -O2 -Wall -Wextra -Wpedantic -Werror -Wconversion -Wshadow
        -Wdouble-promotion -ffp-contract=off -DNTR_BUILDING -fvisibility=hidden)
 
 mkdir -p "$work/old" "$work/new"
@@ -46,3 +49,22 @@ done
 
 echo "# base $base ($(git -C "$root" rev-parse --short "$base")) against $(git -C "$root" rev-parse --short HEAD)$(git -C "$root" status --porcelain -- lib include | grep -q . && echo ' with uncommitted changes in lib/ or include/'); $("$cc" --version | head -n 1)"
 "$work/bench_batch_ab" "$rows" "$rounds"
+if [[ ${AB_CALLGRIND:-0} == 1 ]]; then
+    cg_rows=200000
+    echo "# instructions per row under callgrind ($cg_rows rows, one call of each side)"
+    echo "# name data old_ir_per_row new_ir_per_row new/old"
+    for set in valid mixed; do
+        valgrind --tool=callgrind --callgrind-out-file="$work/ab.$set.callgrind" \
+            "$work/bench_batch_ab" "$cg_rows" 1 "$set" >/dev/null 2>"$work/valgrind.log"
+        callgrind_annotate --inclusive=yes --threshold=100 "$work/ab.$set.callgrind" |
+            awk -v rows="$cg_rows" -v set="$set" '
+                { gsub(",", "", $1) }
+                $4 ~ /:(old_)?ntr_batch_[a-z_]+$/ && $4 !~ /assess$/ {
+                    name = $4; sub(/.*:/, "", name); ir[name] += $1 }
+                END {
+                    for (n in ir) if (n !~ /^old_/ && ("old_" n) in ir)
+                        printf "%s %s %.2f %.2f %.4f\n", n, set, ir["old_" n] / rows,
+                               ir[n] / rows, ir[n] / ir["old_" n]
+                }' | sort
+    done
+fi

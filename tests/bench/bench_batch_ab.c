@@ -12,7 +12,8 @@
  * 18 and 65 edges, and about one row in 50 spoilt with a NaN or an
  * out-of-range value, so pairs fall back to the row path).
  *
- * Usage: bench_batch_ab [rows] [rounds]   (defaults 4000000 and 21)
+ * Usage: bench_batch_ab [rows] [rounds] [valid|mixed|both]
+ *        (defaults 4000000, 21, both)
  * Output: one line per function and data set:
  *   name data rows new_ms old_ms new/old median_new/old same */
 #define _POSIX_C_SOURCE 200809L
@@ -225,6 +226,7 @@ int main(int argc, char **argv)
     int *keep_iout = must_alloc(rows * sizeof(int));
     double *ratios = must_alloc((size_t)rounds * sizeof(double));
     size_t b, i;
+    const char *sets = argc > 3 ? argv[3] : "both";
     int k, mixed, all_same = 1;
 
     c.sex = must_alloc(rows * sizeof *c.sex);
@@ -238,6 +240,9 @@ int main(int argc, char **argv)
     printf("# rows=%zu rounds=%d; times are the fastest round, ms\n", rows, rounds);
     printf("# name data rows new_ms old_ms new/old median_new/old same\n");
     for (mixed = 0; mixed <= 1; mixed++) {
+        if (strcmp(sets, "both") != 0 && strcmp(sets, mixed ? "mixed" : "valid") != 0) {
+            continue;
+        }
         for (b = 0; b < sizeof batches / sizeof batches[0]; b++) {
             const struct batch *t = &batches[b];
             uint64_t seed = 0x9e3779b97f4a7c15u + b;
