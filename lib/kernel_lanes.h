@@ -37,6 +37,11 @@
  *   NTRK_BEGIN; ... NTRK_END;  open and close a kernel's checks
  *   NTRK_CHECK(x, lo, hi)      input range check: NTR_ERR_NONFINITE or
  *                              NTR_ERR_RANGE (ntr_check)
+ *   NTRK_CHECK_DEFINED(x, lo, hi, from, to)
+ *                              NTRK_CHECK(x, lo, hi), then NTR_ERR_DOMAIN
+ *                              unless from <= x <= to, where
+ *                              lo <= from <= to <= hi: pairs test the one
+ *                              narrower range
  *   NTRK_REQUIRE(t, status)    fail with status unless t
  *   NTRK_TRY(v)                fail with the verdict of a sub-kernel
  *   NTRK_RETURN_IF(t, out, x)  scalar: succeed early with *out = x when t.
@@ -62,6 +67,7 @@
 #undef NTRK_BEGIN
 #undef NTRK_END
 #undef NTRK_CHECK
+#undef NTRK_CHECK_DEFINED
 #undef NTRK_REQUIRE
 #undef NTRK_TRY
 #undef NTRK_RETURN_IF
@@ -89,6 +95,13 @@
 #define NTRK_BEGIN ((void)0)
 #define NTRK_END return NTR_OK
 #define NTRK_CHECK(x, lo, hi) NTR_TRY(ntr_check((x), (lo), (hi)))
+#define NTRK_CHECK_DEFINED(x, lo, hi, from, to)              \
+    do {                                                     \
+        NTR_TRY(ntr_check((x), (lo), (hi)));                 \
+        if (!((x) >= (from) && (x) <= (to))) {               \
+            return NTR_ERR_DOMAIN;                           \
+        }                                                    \
+    } while (0)
 #define NTRK_REQUIRE(t, status) \
     do {                        \
         if (!(t)) {             \
@@ -128,6 +141,8 @@
 #define NTRK_END return ntrk_ok_
 #define NTRK_CHECK(x, lo, hi) \
     (ntrk_ok_ = pair_verdict_and(ntrk_ok_, pair_in((x), (lo), (hi))))
+#define NTRK_CHECK_DEFINED(x, lo, hi, from, to) \
+    (ntrk_ok_ = pair_verdict_and(ntrk_ok_, pair_in((x), (from), (to))))
 #define NTRK_REQUIRE(t, status) (ntrk_ok_ = pair_verdict_and(ntrk_ok_, (t)))
 #define NTRK_TRY(v) (ntrk_ok_ = pair_verdict_and(ntrk_ok_, (v)))
 /* No lane test (see the vocabulary above): a later check fails such rows. */

@@ -106,8 +106,9 @@ static inline NTRK_VERDICT NTRK(free_water_deficit)(NTRK_REAL tbw_l,
 {
     NTRK_BEGIN;
     NTRK_CHECK(tbw_l, NTR_TBW_MIN, NTR_TBW_MAX);
-    NTRK_CHECK(na_mmol_l, NTR_NA_MIN, NTR_NA_MAX);
-    NTRK_REQUIRE(NTRK_GE(na_mmol_l, NTRK_K(NTR_NORMAL_NA_MMOL_L)), NTR_ERR_DOMAIN);
+    /* Defined for a sodium at or above normal only. */
+    NTRK_CHECK_DEFINED(na_mmol_l, NTR_NA_MIN, NTR_NA_MAX, NTR_NORMAL_NA_MMOL_L,
+                       NTR_NA_MAX);
     *litres = tbw_l * (na_mmol_l / NTR_NORMAL_NA_MMOL_L - 1.0);
     NTRK_END;
 }
