@@ -121,10 +121,11 @@
 #define NTRK_LE(a, b) ((a) <= (b))
 #define NTRK_LT(a, b) ((a) < (b))
 #define NTRK_EQ(a, b) ((a) == (b))
-#define NTRK_WITHIN(x, lo, hi) ((x) >= (lo) && (x) <= (hi))
-#define NTRK_AND(t, u) ((t) && (u))
-#define NTRK_OR(t, u) ((t) || (u))
-#define NTRK_SELECT(t, a, b) ((t) ? (a) : (b))
+/* Tests are 0 or 1 and have no side effects: & and | need no branch. */
+#define NTRK_WITHIN(x, lo, hi) (((x) >= (lo)) & ((x) <= (hi)))
+#define NTRK_AND(t, u) ((t) & (u))
+#define NTRK_OR(t, u) ((t) | (u))
+#define NTRK_SELECT(t, a, b) ntri_select((t), (a), (b))
 #define NTRK_SEX_IS(sex, code) ((sex) == (code))
 #define NTRK_COUNT(t) ((t) ? 1 : 0)
 

@@ -4,6 +4,7 @@
 
 #include "natremia.h"
 #include <math.h>
+#include <stdint.h>
 
 /* Plausible input ranges. docs/ranges.md says where each comes from; keep
  * the two in step. */
@@ -129,6 +130,24 @@ static inline int ntr_check_tbw(double tbw_l)
             return ntr_try_status_;       \
         }                                 \
     } while (0)
+
+/* a where t is true, else b, without a branch: the kernels' choices depend
+ * on the data (age bands, sex, a glucose threshold), and a branch on them
+ * mispredicts on about every other row of a mixed cohort in the batch row
+ * loops, which are the only loops on targets without two-lane vectors
+ * (docs/performance.md). The bits of a or b, exactly. */
+static inline double ntri_select(int t, double a, double b)
+{
+    union {
+        double d;
+        uint64_t u;
+    } x, y;
+    const uint64_t take_a = (uint64_t)0 - (uint64_t)(t != 0);
+    x.d = a;
+    y.d = b;
+    x.u = (x.u & take_a) | (y.u & ~take_a);
+    return x.d;
+}
 
 /* ---- formula kernels ----------------------------------------------------
  *
