@@ -205,10 +205,9 @@ static inline int pair_put(double *out, int *status, size_t i, ntr_pair value)
     return 1;
 }
 
-/* The kernels of every batch formula for two lanes (ntrp_*), then back to
- * the scalar flavour (ntri_*). */
-#undef NTRK_PAIRS
-#define NTRK_PAIRS 1
+/* The kernels of every batch formula for two lanes (ntrp_*). */
+#undef NTRK_FLAVOUR
+#define NTRK_FLAVOUR 1
 #include "kernel_lanes.h"
 #include "model_kernels.h"
 #include "osmolality_kernels.h"
@@ -216,9 +215,6 @@ static inline int pair_put(double *out, int *status, size_t i, ntr_pair value)
 #include "water_kernels.h"
 #include "infusion_kernels.h"
 #include "urine_kernels.h"
-#undef NTRK_PAIRS
-#define NTRK_PAIRS 0
-#include "kernel_lanes.h"
 
 /* The row loops (rows_*) stay out of line in this build: they run only
  * for a pair with a failing row and for the last odd row, and keeping
@@ -230,14 +226,30 @@ static inline int pair_put(double *out, int *status, size_t i, ntr_pair value)
 #define NTR_ROWS
 #endif
 
-/* What a row loop calls: the inlined kernel, or in a size-optimised build
- * the public scalar function (the same kernel behind a NULL check that
- * cannot fail here). Either leaves the value alone on an error, so a
+/* The kernels of every batch formula for the row loops (ntrr_*: the
+ * scalar kernels with branch-free choices), then back to the scalar
+ * flavour (lib/kernel_lanes.h). */
+#undef NTRK_FLAVOUR
+#define NTRK_FLAVOUR 2
+#include "kernel_lanes.h"
+#include "model_kernels.h"
+#include "osmolality_kernels.h"
+#include "sodium_kernels.h"
+#include "water_kernels.h"
+#include "infusion_kernels.h"
+#include "urine_kernels.h"
+#undef NTRK_FLAVOUR
+#define NTRK_FLAVOUR 0
+#include "kernel_lanes.h"
+
+/* What a row loop calls: the inlined row kernel, or in a size-optimised
+ * build the public scalar function (the same kernel behind a NULL check
+ * that cannot fail here). Either leaves the value alone on an error, so a
  * failed row keeps FAILED_ROW. */
 #if NTR_BATCH_LOOPS
 #define NTR_ROW(name) ntr_##name
 #else
-#define NTR_ROW(name) ntri_##name
+#define NTR_ROW(name) ntrr_##name
 #endif
 
 /* Store one row's status and count it when it failed. */
@@ -284,7 +296,7 @@ static NTR_ROWS size_t rows_osm_calculated(size_t from, size_t to,
     size_t bad = 0;
     for (i = from; i < to; i++) {
         double v = FAILED_ROW;
-        int st = ntri_osm_calculated(na_mmol_l[i], glucose_mmol_l[i],
+        int st = ntrr_osm_calculated(na_mmol_l[i], glucose_mmol_l[i],
                                      urea_mmol_l[i], ethanol_mmol_l[i],
                                      coefficient, intercept, &v);
         out[i] = v;

@@ -3,12 +3,15 @@
  * ntr_infusate_volume_for_change(), used by those functions
  * (lib/infusion.c) and by their batch entry points (lib/batch.c).
  * Lane-generic, see lib/kernel_lanes.h. Not installed. */
-#if (!NTRK_PAIRS && !defined(NTR_INFUSION_KERNELS_SCALAR)) || \
-    (NTRK_PAIRS && !defined(NTR_INFUSION_KERNELS_PAIRS))
-#if NTRK_PAIRS
-#define NTR_INFUSION_KERNELS_PAIRS
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_INFUSION_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_INFUSION_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_INFUSION_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_INFUSION_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_INFUSION_KERNELS_1
 #else
-#define NTR_INFUSION_KERNELS_SCALAR
+#define NTR_INFUSION_KERNELS_2
 #endif
 
 /* The inputs every infusate prediction takes, in argument order. */

@@ -4,29 +4,31 @@
  * Each formula's input checks and arithmetic are written once, in the
  * kernel header of its area (lib/<area>_kernels.h), with the NTRK_* words
  * below instead of C types and branches. Including a kernel header after
- * this file compiles its kernels for one "flavour", chosen by NTRK_PAIRS:
+ * this file compiles its kernels for one "flavour", chosen by NTRK_FLAVOUR:
  *
- *   NTRK_PAIRS 0  one row of doubles; the kernels are named ntri_<name>.
- *                 A check that fails returns its status at once and the
- *                 output is left untouched: exactly the scalar code the
- *                 library always had (NTR_TRY style). The public scalar
- *                 functions, the batch row loops and the size-optimised
- *                 build use this flavour.
- *   NTRK_PAIRS 1  two rows at a time in two-lane vectors (lib/batch.c,
- *                 GCC/Clang vector extensions); the kernels are named
- *                 ntrp_<name>. Every check becomes a lane mask, all of them
- *                 are ANDed into the verdict, and the value is computed
- *                 unconditionally with the same operations in the same
- *                 order, so each lane is the scalar result bit for bit. A
- *                 false lane only means "not both rows are plainly valid":
- *                 the batch loop then sends the row through the scalar
- *                 flavour, which finds the exact status.
+ *   0  one row of doubles; the kernels are named ntri_<name>. A check that
+ *      fails returns its status at once and the output is left untouched:
+ *      exactly the scalar code the library always had (NTR_TRY style).
+ *      The public scalar functions use this flavour, and so does the
+ *      size-optimised build's batch (through them).
+ *   2  the same for the batch row loops (lib/batch.c), named ntrr_<name>,
+ *      with one difference: a choice between values (NTRK_SELECT) and the
+ *      combined tests are computed without a branch, as a choice that
+ *      depends on the data (age band, sex) would mispredict on about every
+ *      other row of a mixed cohort. The values are the same bits.
+ *   1  two rows at a time in two-lane vectors (lib/batch.c, GCC/Clang
+ *      vector extensions); the kernels are named ntrp_<name>. Every check
+ *      becomes a lane mask, all of them are ANDed into the verdict, and the
+ *      value is computed unconditionally with the same operations in the
+ *      same order, so each lane is the scalar result bit for bit. A false
+ *      lane only means "not both rows are plainly valid": the batch loop
+ *      then sends the row through flavour 2, which finds the exact status.
  *
  * lib/ntr_internal.h selects flavour 0, so every lib/ file sees the scalar
- * kernels; lib/batch.c defines the pair primitives (pair_*), switches to
- * flavour 1, includes the kernel headers a second time, and switches back.
- * This file has no include guard on purpose: including it again redefines
- * the words for the flavour NTRK_PAIRS now names.
+ * kernels; lib/batch.c defines the pair primitives (pair_*), includes the
+ * kernel headers again for flavours 1 and 2, and switches back. This file
+ * has no include guard on purpose: including it again redefines the words
+ * for the flavour NTRK_FLAVOUR now names.
  *
  * Vocabulary (T = a test: int 0/1 or a lane mask; V = a verdict: a status
  * or a lane mask; R = a real: double or two lanes):
@@ -48,7 +50,7 @@
  *                              Pairs test nothing here: a kernel using it
  *                              must fail such rows in a later check of its
  *                              own (its comment says which), so that they
- *                              go to the scalar flavour
+ *                              go to flavour 2
  *   NTRK_GE/GT/LE/LT/EQ(a, b)  comparisons of reals (false for NaN)
  *   NTRK_WITHIN(x, lo, hi)     lo <= x <= hi as a test
  *   NTRK_AND/OR(t, u)          tests combined
@@ -83,9 +85,13 @@
 #undef NTRK_SEX_IS
 #undef NTRK_COUNT
 
-#if !defined(NTRK_PAIRS) || !NTRK_PAIRS
+#if NTRK_FLAVOUR == 0 || NTRK_FLAVOUR == 2
 
+#if NTRK_FLAVOUR == 0
 #define NTRK(name) ntri_##name
+#else
+#define NTRK(name) ntrr_##name
+#endif
 #define NTRK_REAL double
 #define NTRK_SEX int
 #define NTRK_INT int
@@ -121,15 +127,22 @@
 #define NTRK_LE(a, b) ((a) <= (b))
 #define NTRK_LT(a, b) ((a) < (b))
 #define NTRK_EQ(a, b) ((a) == (b))
+#if NTRK_FLAVOUR == 0
+#define NTRK_WITHIN(x, lo, hi) ((x) >= (lo) && (x) <= (hi))
+#define NTRK_AND(t, u) ((t) && (u))
+#define NTRK_OR(t, u) ((t) || (u))
+#define NTRK_SELECT(t, a, b) ((t) ? (a) : (b))
+#else
 /* Tests are 0 or 1 and have no side effects: & and | need no branch. */
 #define NTRK_WITHIN(x, lo, hi) (((x) >= (lo)) & ((x) <= (hi)))
 #define NTRK_AND(t, u) ((t) & (u))
 #define NTRK_OR(t, u) ((t) | (u))
 #define NTRK_SELECT(t, a, b) ntri_select((t), (a), (b))
+#endif
 #define NTRK_SEX_IS(sex, code) ((sex) == (code))
 #define NTRK_COUNT(t) ((t) ? 1 : 0)
 
-#else /* two lanes: the primitives are lib/batch.c's pair_* */
+#else /* NTRK_FLAVOUR 1, two lanes: the primitives are lib/batch.c's pair_* */
 
 #define NTRK(name) ntrp_##name
 #define NTRK_REAL ntr_pair

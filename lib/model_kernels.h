@@ -14,12 +14,15 @@
  *
  * Compiled once per flavour (the guard below), so no ordinary include
  * guard. */
-#if (!NTRK_PAIRS && !defined(NTR_MODEL_KERNELS_SCALAR)) || \
-    (NTRK_PAIRS && !defined(NTR_MODEL_KERNELS_PAIRS))
-#if NTRK_PAIRS
-#define NTR_MODEL_KERNELS_PAIRS
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_MODEL_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_MODEL_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_MODEL_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_MODEL_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_MODEL_KERNELS_1
 #else
-#define NTR_MODEL_KERNELS_SCALAR
+#define NTR_MODEL_KERNELS_2
 #endif
 
 static inline NTRK_VERDICT NTRK(model_na)(NTRK_REAL na_mmol_l)

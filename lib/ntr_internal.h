@@ -131,11 +131,12 @@ static inline int ntr_check_tbw(double tbw_l)
         }                                 \
     } while (0)
 
-/* a where t is true, else b, without a branch: the kernels' choices depend
- * on the data (age bands, sex, a glucose threshold), and a branch on them
- * mispredicts on about every other row of a mixed cohort in the batch row
- * loops, which are the only loops on targets without two-lane vectors
- * (docs/performance.md). The bits of a or b, exactly. */
+/* a where t is true, else b, without a branch, for the batch row loops
+ * (lib/kernel_lanes.h, flavour 2): the kernels' choices depend on the data
+ * (age bands, sex, a glucose threshold), and a branch on them mispredicts
+ * on about every other row of a mixed cohort; the row loops are the only
+ * loops on targets without two-lane vectors (docs/performance.md). The
+ * bits of a or b, exactly. */
 static inline double ntri_select(int t, double a, double b)
 {
     union {
@@ -156,8 +157,8 @@ static inline double ntri_select(int t, double a, double b)
  * lib/model_kernels.h (ntri_model_na, ntri_model_tbw, ntri_mass_balance,
  * ntri_efw), each area's formulas in lib/<area>_kernels.h. Here the scalar
  * flavour is selected and the model rules compiled for it; lib/batch.c
- * compiles the same kernels for two lanes as well. */
-#define NTRK_PAIRS 0
+ * compiles the same kernels for its row loops and for two lanes as well. */
+#define NTRK_FLAVOUR 0
 #include "kernel_lanes.h"
 #include "model_kernels.h"
 

@@ -29,12 +29,15 @@ static inline int ntri_osm_formula(int formula, double *coefficient,
 }
 #endif
 
-#if (!NTRK_PAIRS && !defined(NTR_OSMOLALITY_KERNELS_SCALAR)) || \
-    (NTRK_PAIRS && !defined(NTR_OSMOLALITY_KERNELS_PAIRS))
-#if NTRK_PAIRS
-#define NTR_OSMOLALITY_KERNELS_PAIRS
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_OSMOLALITY_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_OSMOLALITY_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_OSMOLALITY_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_OSMOLALITY_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_OSMOLALITY_KERNELS_1
 #else
-#define NTR_OSMOLALITY_KERNELS_SCALAR
+#define NTR_OSMOLALITY_KERNELS_2
 #endif
 
 /* coefficient*Na + glucose + urea + intercept + ethanol (mOsm/kg), the

@@ -28,12 +28,15 @@ static inline int ntri_glucose_factor(int method, double *factor)
 }
 #endif
 
-#if (!NTRK_PAIRS && !defined(NTR_SODIUM_KERNELS_SCALAR)) || \
-    (NTRK_PAIRS && !defined(NTR_SODIUM_KERNELS_PAIRS))
-#if NTRK_PAIRS
-#define NTR_SODIUM_KERNELS_PAIRS
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_SODIUM_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_SODIUM_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_SODIUM_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_SODIUM_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_SODIUM_KERNELS_1
 #else
-#define NTR_SODIUM_KERNELS_SCALAR
+#define NTR_SODIUM_KERNELS_2
 #endif
 
 /* Glucose-corrected sodium (Katz, Hillier, or a caller's factor per

@@ -11,12 +11,15 @@ typedef char ntri_restriction_bands_in_order
       NTR_RESTRICT_500ML == NTR_RESTRICT_1000ML + 2) ? 1 : -1];
 #endif
 
-#if (!NTRK_PAIRS && !defined(NTR_URINE_KERNELS_SCALAR)) || \
-    (NTRK_PAIRS && !defined(NTR_URINE_KERNELS_PAIRS))
-#if NTRK_PAIRS
-#define NTR_URINE_KERNELS_PAIRS
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_URINE_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_URINE_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_URINE_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_URINE_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_URINE_KERNELS_1
 #else
-#define NTR_URINE_KERNELS_SCALAR
+#define NTR_URINE_KERNELS_2
 #endif
 
 static inline NTRK_VERDICT NTRK(urine_inputs)(NTRK_REAL urine_na_mmol_l,

@@ -14,12 +14,15 @@
 #define NTR_WATER_OLDER_WOMAN 0.45 /* from 65 */
 #endif
 
-#if (!NTRK_PAIRS && !defined(NTR_WATER_KERNELS_SCALAR)) || \
-    (NTRK_PAIRS && !defined(NTR_WATER_KERNELS_PAIRS))
-#if NTRK_PAIRS
-#define NTR_WATER_KERNELS_PAIRS
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_WATER_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_WATER_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_WATER_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_WATER_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_WATER_KERNELS_1
 #else
-#define NTR_WATER_KERNELS_SCALAR
+#define NTR_WATER_KERNELS_2
 #endif
 
 static inline NTRK_TEST NTRK(sex_known)(NTRK_SEX sex)
