@@ -16,6 +16,7 @@
 #include <cmocka.h>
 
 #include "natremia.h"
+#include "batch_table.h"
 
 #define ROWS 4096
 #define SENTINEL (-7777.25)
@@ -1087,6 +1088,133 @@ static void course_groups_equal_scalar(void **state)
     assert_true(flagged_rise > 0);
 }
 
+/* ---- batch against scalar at every range and band edge ---------------- */
+
+/* Rows of one table entry: the valid base row with one column at a time
+ * set to a range end or a band edge, and to the doubles just beside each. */
+static size_t edge_rows(const struct bt_entry *e, double rows[][BT_MAX_COLS],
+                        int *row_sex)
+{
+    static const int sex_values[2] = {NTR_SEX_MALE, NTR_SEX_FEMALE};
+    size_t n = 0;
+    int si, c, k, side;
+    for (si = 0; si < (e->has_sex ? 2 : 1); si++) {
+        for (c = 0; c < e->ncol; c++) {
+            double points[2 + BT_MAX_EDGES];
+            int np = 0;
+            points[np++] = e->lo[c];
+            points[np++] = e->hi[c];
+            for (k = 0; k < e->nedges[c]; k++) {
+                points[np++] = e->edges[c][k];
+            }
+            for (k = 0; k < np; k++) {
+                for (side = -1; side <= 1; side++) {
+                    int j;
+                    for (j = 0; j < e->ncol; j++) {
+                        rows[n][j] = e->base[j];
+                    }
+                    rows[n][c] = side == 0 ? points[k]
+                                           : nextafter(points[k], side * HUGE_VAL);
+                    row_sex[n] = sex_values[si];
+                    n++;
+                }
+            }
+        }
+    }
+    return n;
+}
+
+static double edge_row_values[512][BT_MAX_COLS];
+static int edge_row_sex[512];
+static int int_out[ROWS];
+
+/* Runs the batch function on the rows laid out three ways and compares
+ * every row with the scalar function, bit for bit:
+ *   0: as listed (pairs of mixed valid and invalid rows),
+ *   1: each row twice in a row (a valid row then goes through the
+ *      two-lane path of builds that have one),
+ *   2: each row followed by a NaN row (the one-row path). */
+static void check_edges(const struct bt_entry *e)
+{
+    size_t nrows = edge_rows(e, edge_row_values, edge_row_sex);
+    double *cols[BT_MAX_COLS] = {a1, a2, a3, a4, a5};
+    int layout;
+    for (layout = 0; layout < 3; layout++) {
+        size_t n = 0, i, bad = 0, failed = 0;
+        int c, ret;
+        for (i = 0; i < nrows; i++) {
+            int copies = layout == 0 ? 1 : 2;
+            int k;
+            for (k = 0; k < copies; k++) {
+                for (c = 0; c < e->ncol; c++) {
+                    cols[c][n] = (layout == 2 && k == 1 && c == 0) ? (double)NAN
+                                                                  : edge_row_values[i][c];
+                }
+                sexes[n] = edge_row_sex[i];
+                n++;
+            }
+        }
+        ret = e->batch(n, (const double *const *)cols, sexes,
+                       e->int_out ? (void *)int_out : (void *)out, status, &failed);
+        for (i = 0; i < n; i++) {
+            double row[BT_MAX_COLS];
+            for (c = 0; c < e->ncol; c++) {
+                row[c] = cols[c][i];
+            }
+            if (e->int_out) {
+                int s = -7777;
+                int st = e->scalar(row, sexes[i], &s);
+                if (st != status[i] || (st == NTR_OK && s != int_out[i])) {
+                    print_error("%s layout %d row %zu: scalar %d/%d, batch %d/%d\n",
+                                e->name, layout, i, st, s, status[i], int_out[i]);
+                    fail();
+                }
+                bad += st != NTR_OK;
+            } else {
+                double s = SENTINEL;
+                int st = e->scalar(row, sexes[i], &s);
+                if (st != status[i]) {
+                    print_error("%s layout %d row %zu:\n", e->name, layout, i);
+                }
+                bad += check_row(i, st, s, status[i], out[i]);
+            }
+        }
+        check_summary(ret, failed, status, n, bad);
+    }
+}
+
+static void band_edges_equal_scalar(void **state)
+{
+    size_t i;
+    int ret;
+    (void)state;
+    for (i = 0; i < BT_COUNT; i++) {
+        check_edges(&bt_table[i]);
+    }
+    /* Adrogue & Madias, N Engl J Med 2000;342:1581-9: a woman from 65
+     * years has 0.45 of her weight as water, a man from 65 0.5; through
+     * the two-lane path (two rows) and the one-row path (third row). */
+    for (i = 0; i < 3; i++) {
+        sexes[i] = i == 1 ? NTR_SEX_MALE : NTR_SEX_FEMALE;
+        a1[i] = 65.0;
+        a2[i] = 100.0;
+    }
+    ret = ntr_batch_tbw_fraction(3, sexes, a1, a2, out, status, NULL);
+    assert_int_equal(ret, NTR_OK);
+    assert_close(out[0], 45.0, 1e-12);
+    assert_close(out[1], 50.0, 1e-12);
+    assert_close(out[2], 45.0, 1e-12);
+    /* Adults from 18 years: a man 0.6, a woman 0.5 (same source). */
+    for (i = 0; i < 3; i++) {
+        a1[i] = 18.0;
+    }
+    ret = ntr_batch_tbw_fraction(3, sexes, a1, a2, out, status, NULL);
+    assert_int_equal(ret, NTR_OK);
+    assert_close(out[0], 50.0, 1e-12);
+    assert_close(out[1], 60.0, 1e-12);
+    assert_close(out[2], 50.0, 1e-12);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1107,6 +1235,7 @@ int main(void)
         cmocka_unit_test(course_groups_stride),
         cmocka_unit_test(course_groups_contract),
         cmocka_unit_test(course_groups_equal_scalar),
+        cmocka_unit_test(band_edges_equal_scalar),
     };
     return cmocka_run_group_tests_name("batch", tests, NULL, NULL);
 }
