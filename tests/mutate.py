@@ -20,6 +20,8 @@ first, and stops at the first failure. A mutant is
   killed     a test program failed, crashed or ran past its time limit
   survived   every program passed
   stillborn  it did not compile (warnings are errors); not counted
+  unchanged  it compiled to the same object file (code of another
+             configuration's #if branch, or the same instructions); not counted
 
 Survivors listed in tests/mutate-equivalent.txt (key, tab, reason) are
 equivalent: no test can tell them apart from the original. The score is
@@ -250,7 +252,7 @@ def git(*args):
                           stderr=subprocess.DEVNULL, text=True).stdout.strip()
 
 
-def prepare(workdir):
+def prepare(workdir, options):
     """Copy the tracked files to workdir/src and configure workdir/build."""
     src = os.path.join(workdir, 'src')
     build = os.path.join(workdir, 'build')
@@ -265,8 +267,7 @@ def prepare(workdir):
             shutil.copy2(a, dst)
     if not os.path.exists(os.path.join(build, 'build.ninja')):
         env = dict(os.environ, CC='gcc', CCACHE_DISABLE='1')
-        r = subprocess.run(['meson', 'setup', build, src, '-Dbuildtype=debugoptimized',
-                            '-Ddebug=false'], env=env, stdout=subprocess.PIPE,
+        r = subprocess.run(['meson', 'setup', build, src] + options, env=env, stdout=subprocess.PIPE,
                            stderr=subprocess.STDOUT)
         if r.returncode != 0:
             sys.exit('mutate.py: meson setup failed:\n' + r.stdout.decode(errors='replace'))
@@ -282,6 +283,18 @@ def build_targets(build, tests):
         if exe.startswith(build + os.sep):
             targets.append(os.path.relpath(exe, build))
     return targets
+
+
+def objects_of(build, rel):
+    """Hashes of the object files compiled from one source (shared and
+    static library objects)."""
+    name = os.path.basename(rel) + '.o'
+    found = []
+    for d in sorted(os.listdir(os.path.join(build, 'lib'))):
+        o = os.path.join(build, 'lib', d, name)
+        if d.endswith('.p') and os.path.exists(o):
+            found.append(hashlib.sha1(open(o, 'rb').read()).hexdigest())
+    return found
 
 
 def rebuild(build, targets):
@@ -348,6 +361,9 @@ def main():
     ap.add_argument('--workdir', default=os.path.join(ROOT, 'build-mutate'))
     ap.add_argument('--record', action='store_true')
     ap.add_argument('--keep-going', action='store_true')
+    ap.add_argument('--meson-option', dest='meson_options', action='append',
+                    help='configure option for the mutant build, e.g. -Doptimization=s '
+                    '(default -Dbuildtype=debugoptimized -Ddebug=false); use its own --workdir')
     a = ap.parse_args()
 
     files = a.files.split(',') if a.files else sorted(
@@ -373,7 +389,8 @@ def main():
 
     t0 = time.time()
     os.makedirs(a.workdir, exist_ok=True)
-    src, build, tests = prepare(a.workdir)
+    src, build, tests = prepare(a.workdir, a.meson_options or
+                                ['-Dbuildtype=debugoptimized', '-Ddebug=false'])
     targets = build_targets(build, tests)
     ok, log = rebuild(build, targets)
     if not ok:
@@ -388,6 +405,7 @@ def main():
     tests.sort(key=lambda t: times[t['name']])
     limits = {t['name']: min(t['timeout'], 10 * times[t['name']] + 10) for t in tests}
 
+    base_objects = {rel: objects_of(build, rel) for rel in set(m.path for m in chosen)}
     eq = load_equivalent()
     results = []
     originals = {}
@@ -401,6 +419,11 @@ def main():
             ok, _ = rebuild(build, targets)
             if not ok:
                 verdict, by = 'stillborn', ''
+            elif objects_of(build, m.path) == base_objects[m.path]:
+                # The compiler made the same object: the mutated code is not
+                # in this build (an #if branch of another configuration) or
+                # compiles to the same instructions. No test can see it.
+                verdict, by = 'unchanged', ''
             else:
                 by = run_tests(build, tests, limits, a.keep_going)
                 verdict = 'killed' if by else ('equivalent' if m.key in eq else 'survived')
@@ -414,7 +437,7 @@ def main():
     elapsed = time.time() - t0
 
     count = {k: sum(1 for r in results if r[1] == k)
-             for k in ('killed', 'survived', 'equivalent', 'stillborn')}
+             for k in ('killed', 'survived', 'equivalent', 'stillborn', 'unchanged')}
     scored = count['killed'] + count['survived']
     score = 100.0 * count['killed'] / scored if scored else 100.0
     commit = git('rev-parse', '--short=12', 'HEAD')
@@ -426,11 +449,16 @@ def main():
             time.strftime('%Y-%m-%d', time.gmtime()), ' '.join(sys.argv[1:]), mode,
             ', '.join(files) if a.files else 'every lib/*.c'),
         '',
-        '| mutants | compiled | killed | equivalent | survived | score | run time |',
-        '|---|---|---|---|---|---|---|',
-        '| %d | %d | %d | %d | %d | **%.1f %%** | %.0f s |' % (
-            len(results), len(results) - count['stillborn'], count['killed'],
+        '| mutants | did not compile | same object code | killed | equivalent | survived | score | run time |',
+        '|---|---|---|---|---|---|---|---|',
+        '| %d | %d | %d | %d | %d | %d | **%.1f %%** | %.0f s |' % (
+            len(results), count['stillborn'], count['unchanged'], count['killed'],
             count['equivalent'], count['survived'], score, elapsed),
+        '',
+        'Build: `%s`. Score: killed / (killed + survived); mutants that did not '
+        'compile (warnings are errors) or compiled to the same object code '
+        '(code of another configuration, such as the -Os loops or the non-SSE2 '
+        'lanes of lib/batch.c) are not counted.' % ' '.join(a.meson_options or ['-Dbuildtype=debugoptimized', '-Ddebug=false']),
         '',
     ]
     surv = [r for r in results if r[1] == 'survived']

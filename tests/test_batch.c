@@ -11,6 +11,7 @@
 #include <stddef.h>
 #include <setjmp.h>
 #include <stdint.h>
+#include <stdlib.h>
 #include <string.h>
 #include <math.h>
 #include <cmocka.h>
@@ -1215,6 +1216,84 @@ static void band_edges_equal_scalar(void **state)
     assert_close(out[2], 50.0, 1e-12);
 }
 
+/* Aliasing rule (include/natremia.h): each group's result is written while
+ * later groups are still read, so outputs sharing a byte with the inputs
+ * or with each other are refused (NTR_ERR_ARG, nothing written); buffers
+ * that only touch are accepted. One malloc'd block holds them all. */
+static void groups_refuse_overlapping_buffers(void **state)
+{
+    const ntr_sample s3[3] = {{0, 120}, {6, 124}, {12, 126}};
+    const size_t off3[3] = {0, 2, 3};
+    const size_t block = 4096;
+    unsigned char *m = malloc(block);
+    unsigned char *before = malloc(block);
+    ntr_sample *s;
+    size_t *off;
+    ntr_limits *lim;
+    ntr_course_limits *clim;
+    ntr_correction *c;
+    ntr_course_report *r;
+    int *st;
+    (void)state;
+    assert_non_null(m);
+    assert_non_null(before);
+    memset(m, 0x5a, block);
+    /* Inputs: samples at 0, offsets at 48, limits at 72 and 96. */
+    s = (ntr_sample *)(void *)m;
+    memcpy(s, s3, sizeof s3);
+    off = (size_t *)(void *)(m + 48);
+    memcpy(off, off3, sizeof off3);
+    lim = (ntr_limits *)(void *)(m + 72);
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, lim), NTR_OK);
+    clim = (ntr_course_limits *)(void *)(m + 96);
+    clim->struct_size = sizeof *clim;
+    assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, clim), NTR_OK);
+    memcpy(before, m, block);
+    /* Outputs over the samples, the offsets, the limits; status over the
+     * samples, over the outputs. */
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim,
+                                                 (ntr_correction *)(void *)(m + 40),
+                                                 (int *)(void *)(m + 2048), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim,
+                                                 (ntr_correction *)(void *)(m + 1024),
+                                                 (int *)(void *)(m + 44), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim,
+                                                 (ntr_correction *)(void *)(m + 1024),
+                                                 (int *)(void *)(m + 1024 + sizeof *c), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r,
+                                             (ntr_course_report *)(void *)(m + 64),
+                                             (int *)(void *)(m + 3072), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r,
+                                             (ntr_course_report *)(void *)(m + 104),
+                                             (int *)(void *)(m + 3072), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r,
+                                             (ntr_course_report *)(void *)(m + 1024),
+                                             (int *)(void *)(m + 1024 + sizeof *r), NULL),
+                     NTR_ERR_ARG);
+    assert_memory_equal(m, before, block);
+    /* Touching only: outputs right after the inputs, status right after
+     * the outputs. */
+    c = (ntr_correction *)(void *)(m + 1024);
+    st = (int *)(void *)(m + 1024 + 2 * sizeof *c);
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim, c, st, NULL), NTR_OK);
+    assert_int_equal(st[0], NTR_OK);
+    r = (ntr_course_report *)(void *)(m + 96 + sizeof *clim);
+    st = (int *)(void *)((unsigned char *)r + 2 * sizeof *r);
+    assert_true((unsigned char *)(st + 2) <= m + block);
+    r[0].struct_size = sizeof *r;
+    r[1].struct_size = sizeof *r;
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r, r, st, NULL),
+                     NTR_OK);
+    assert_int_equal(st[1], NTR_OK);
+    free(m);
+    free(before);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1236,6 +1315,7 @@ int main(void)
         cmocka_unit_test(course_groups_contract),
         cmocka_unit_test(course_groups_equal_scalar),
         cmocka_unit_test(band_edges_equal_scalar),
+        cmocka_unit_test(groups_refuse_overlapping_buffers),
     };
     return cmocka_run_group_tests_name("batch", tests, NULL, NULL);
 }
