@@ -236,4 +236,30 @@ static const struct bt_entry bt_table[] = {
 
 #define BT_COUNT (sizeof bt_table / sizeof bt_table[0])
 
+/* Further rows (invented) where a later check of the formula decides: the
+ * predicted state leaves the model's range (NTR_ERR_DOMAIN) although every
+ * input is in range. The three volume_for_change rows aim at a sodium of
+ * exactly 80 or 220 and fail only by the rounding of the forward
+ * prediction (found by a search over such rows). */
+static const struct {
+    const char *name;
+    double row[BT_MAX_COLS];
+} bt_extra[] = {
+    {"infusate_change_per_litre", {200.0, 0.1, 1100.0, 400.0}},
+    {"infusate_change", {110.0, 10.0, 1100.0, 400.0, 20.0}},
+    {"infusate_change", {90.0, 5.0, 0.0, 0.0, 20.0}},
+    {"infusate_volume_for_change", {181.59999999999999, 387.30000000000001, 1032.4000000000001,
+                                    28.699999999999999, 38.400000000000006}},
+    {"infusate_volume_for_change", {209.09999999999999, 394.0, 696.20000000000005,
+                                    79.700000000000003, 10.900000000000006}},
+    {"infusate_volume_for_change", {207.0, 391.70000000000005, 167.69999999999999,
+                                    370.10000000000002, 13.0}},
+    {"infusate_volume_for_change", {110.0, 40.0, 154.0, 0.0, 45.0}},
+    {"tbw_watson", {40.0, 30.0, 650.0}},
+    {"tbw_watson", {40.0, 275.0, 0.3}},
+    {"free_water_deficit", {0.1, 80.0}},
+};
+
+#define BT_EXTRA_COUNT (sizeof bt_extra / sizeof bt_extra[0])
+
 #endif

@@ -41,6 +41,7 @@ Options: --seed S, --files lib/batch.c,lib/water.c, --workdir DIR
 program, not only up to the first failure).
 """
 import argparse
+import fnmatch
 import hashlib
 import json
 import os
@@ -325,6 +326,16 @@ def run_tests(build, tests, limits, keep_going):
 
 # ---- recording ----------------------------------------------------------------
 
+def equivalent_reason(eq, key):
+    """The reason a key (or a pattern matching it) is listed as equivalent."""
+    if key in eq:
+        return eq[key]
+    for pattern, reason in eq.items():
+        if fnmatch.fnmatchcase(key, pattern):
+            return reason
+    return None
+
+
 def load_equivalent():
     eq = {}
     if os.path.exists(EQUIV_FILE):
@@ -388,6 +399,9 @@ def main():
     chosen.sort(key=lambda m: (m.path, m.start, m.repl))
 
     t0 = time.time()
+    # The commit measured: the sources are copied now.
+    commit = git('rev-parse', '--short=12', 'HEAD')
+    dirty = git('status', '--porcelain', '--', 'lib', 'tests', 'include')
     os.makedirs(a.workdir, exist_ok=True)
     src, build, tests = prepare(a.workdir, a.meson_options or
                                 ['-Dbuildtype=debugoptimized', '-Ddebug=false'])
@@ -406,7 +420,6 @@ def main():
     limits = {t['name']: min(t['timeout'], 10 * times[t['name']] + 10) for t in tests}
 
     base_objects = {rel: objects_of(build, rel) for rel in set(m.path for m in chosen)}
-    eq = load_equivalent()
     results = []
     originals = {}
     for idx, m in enumerate(chosen):
@@ -426,7 +439,7 @@ def main():
                 verdict, by = 'unchanged', ''
             else:
                 by = run_tests(build, tests, limits, a.keep_going)
-                verdict = 'killed' if by else ('equivalent' if m.key in eq else 'survived')
+                verdict = 'killed' if by else 'survived'
         finally:
             with open(path, 'w') as f:
                 f.write(originals[m.path])
@@ -435,13 +448,15 @@ def main():
                                       (' (by ' + by + ')') if by else ''), flush=True)
     rebuild(build, targets)
     elapsed = time.time() - t0
+    # Equivalence is a judgement on the mutant, read when the run ends.
+    eq = load_equivalent()
+    results = [(m, 'equivalent' if v == 'survived' and equivalent_reason(eq, m.key) else v, by)
+               for m, v, by in results]
 
     count = {k: sum(1 for r in results if r[1] == k)
              for k in ('killed', 'survived', 'equivalent', 'stillborn', 'unchanged')}
     scored = count['killed'] + count['survived']
     score = 100.0 * count['killed'] / scored if scored else 100.0
-    commit = git('rev-parse', '--short=12', 'HEAD')
-    dirty = git('status', '--porcelain', '--', 'lib', 'tests', 'include')
     lines = [
         '',
         'Measured at commit `%s`%s on %s with `tests/mutate.py %s`: %s over %s.' % (
@@ -470,7 +485,7 @@ def main():
         lines.append('')
         lines.append('Equivalent (reason in tests/mutate-equivalent.txt):')
         for m, _, _ in eqs:
-            lines.append('- `%s` %s: %s' % (m.id, m.describe(), eq[m.key]))
+            lines.append('- `%s` %s: %s' % (m.id, m.describe(), equivalent_reason(eq, m.key)))
     lines.append('')
     print('\n'.join(lines))
     for m, _, _ in surv:

@@ -1144,6 +1144,20 @@ static void relower_edges_and_bad_inputs(void **state)
                      NTR_OK);
     assert_true(v == 0.0 && rate == 0.0);
     v = rate = NTR_TEST_SENTINEL;
+    /* The 20 L cap of one plan step (NTR_INFUSE_VOLUME_MAX) is inclusive.
+     * Mass balance (Adrogue & Madias 2000): lowering 150 by 10 in 280 L
+     * with water takes 10 * 280 / 140 = 20 L exactly (over 24 h, 20/24 L/h);
+     * in a hair more body water it takes more than 20 L and is refused. */
+    assert_int_equal(ntr_relower_estimate(150.0, 280.0, 0.0, 0.0, 10.0, 24.0, 0.0, 0.0, 0.0,
+                                          &v, &rate),
+                     NTR_OK);
+    assert_true(v == 20.0);
+    assert_near(rate, 20000.0 / 24.0, 1e-9);
+    v = rate = NTR_TEST_SENTINEL;
+    assert_int_equal(ntr_relower_estimate(150.0, nextafter(280.0, 400.0), 0.0, 0.0, 10.0, 24.0,
+                                          0.0, 0.0, 0.0, &v, &rate),
+                     NTR_ERR_DOMAIN);
+    assert_true(v == NTR_TEST_SENTINEL && rate == NTR_TEST_SENTINEL);
     /* 0.9% saline (154) cannot lower 131. */
     assert_int_equal(ntr_relower_estimate(131.0, 40.0, 154.0, 0.0, 3.0, 6.0, 0.0, 0.0, 0.0, &v, &rate),
                      NTR_ERR_DOMAIN);

@@ -1121,6 +1121,13 @@ static size_t edge_rows(const struct bt_entry *e, double rows[][BT_MAX_COLS],
                 }
             }
         }
+        for (k = 0; k < (int)BT_EXTRA_COUNT; k++) {
+            if (strcmp(bt_extra[k].name, e->name) == 0) {
+                memcpy(rows[n], bt_extra[k].row, sizeof rows[n]);
+                row_sex[n] = sex_values[si];
+                n++;
+            }
+        }
     }
     return n;
 }

@@ -501,6 +501,33 @@ static void times_closer_than_the_tolerance(void **state)
     c = assess(close, 2, &lim);
     assert_true(c.last_rate_per_h == 0.0);
     assert_int_equal(c.flags & NTR_CF_FALLING, 0u);
+    /* Exactly the tolerance apart (1e-6 - 0 is exact) is still "within"
+     * it (header: 0 if the two are within NTR_CF_TIME_TOLERANCE_H): one
+     * time point, no rate, in the series and in the watchers alike. */
+    {
+        const ntr_sample at[] = {{0.0, 125.0}, {NTR_CF_TIME_TOLERANCE_H, 120.0}};
+        ntr_watch w;
+        ntr_course_watch cw;
+        ntr_course_limits cl;
+        ntr_course_report r;
+        assert_true(at[1].hours - at[0].hours == NTR_CF_TIME_TOLERANCE_H);
+        c = assess(at, 2, &lim);
+        assert_true(c.last_rate_per_h == 0.0);
+        assert_int_equal(c.flags & NTR_CF_FALLING, 0u);
+        assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+        assert_int_equal(ntr_watch_push(&w, at[0].hours, at[0].na_mmol_l, &c), NTR_OK);
+        assert_int_equal(ntr_watch_push(&w, at[1].hours, at[1].na_mmol_l, &c), NTR_OK);
+        assert_true(c.last_rate_per_h == 0.0);
+        memset(&cl, 0, sizeof cl);
+        cl.struct_size = sizeof cl;
+        assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HOLD, &cl), NTR_OK);
+        assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+        memset(&r, 0, sizeof r);
+        r.struct_size = sizeof r;
+        assert_int_equal(ntr_course_watch_push(&cw, at[0].hours, at[0].na_mmol_l, &r), NTR_OK);
+        assert_int_equal(ntr_course_watch_push(&cw, at[1].hours, at[1].na_mmol_l, &r), NTR_OK);
+        assert_true(r.last_rate_per_h == 0.0);
+    }
     /* 1.5e-6 h apart is an interval: falling, at a large but finite rate. */
     c = assess(apart, 2, &lim);
     assert_true(isfinite(c.last_rate_per_h) && c.last_rate_per_h < -1e5);
