@@ -238,9 +238,10 @@ static const struct bt_entry bt_table[] = {
 
 /* Further rows (invented) where a later check of the formula decides: the
  * predicted state leaves the model's range (NTR_ERR_DOMAIN) although every
- * input is in range. The three volume_for_change rows aim at a sodium of
- * exactly 80 or 220 and fail only by the rounding of the forward
- * prediction (found by a search over such rows). */
+ * input is in range. Of the volume_for_change rows (found by a search over
+ * rows aiming at a sodium of 80 or 220), the first three fail because the
+ * body water would pass 400 L, the fourth only by the rounding of the
+ * forward prediction of sodium at a target of 220. */
 static const struct {
     const char *name;
     double row[BT_MAX_COLS];
@@ -254,6 +255,8 @@ static const struct {
                                     79.700000000000003, 10.900000000000006}},
     {"infusate_volume_for_change", {207.0, 391.70000000000005, 167.69999999999999,
                                     370.10000000000002, 13.0}},
+    {"infusate_volume_for_change", {170.80000000000001, 43.899999999999999, 916.89999999999998,
+                                    381.19999999999999, 49.199999999999989}},
     {"infusate_volume_for_change", {110.0, 40.0, 154.0, 0.0, 45.0}},
     {"tbw_watson", {40.0, 30.0, 650.0}},
     {"tbw_watson", {40.0, 275.0, 0.3}},

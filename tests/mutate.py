@@ -272,6 +272,9 @@ def prepare(workdir, options):
                            stderr=subprocess.STDOUT)
         if r.returncode != 0:
             sys.exit('mutate.py: meson setup failed:\n' + r.stdout.decode(errors='replace'))
+    # Regenerate first (meson.build may have changed since the last run),
+    # so the test list is this tree's.
+    run(['ninja', '-C', build, 'build.ninja'], build)
     tests = json.loads(run(['meson', 'introspect', '--tests'], build).stdout)
     tests = [t for t in tests if SUITE in t['suite']]
     return src, build, tests
