@@ -375,6 +375,9 @@ def main():
     ap.add_argument('--workdir', default=os.path.join(ROOT, 'build-mutate'))
     ap.add_argument('--record', action='store_true')
     ap.add_argument('--keep-going', action='store_true')
+    ap.add_argument('--time-budget', type=float, default=0,
+                    help='seconds: start no further mutant after this long (0: no limit); '
+                    'the report says how many of the selection ran')
     ap.add_argument('--meson-option', dest='meson_options', action='append',
                     help='configure option for the mutant build, e.g. -Doptimization=s '
                     '(default -Dbuildtype=debugoptimized -Ddebug=false); use its own --workdir')
@@ -426,6 +429,11 @@ def main():
     results = []
     originals = {}
     for idx, m in enumerate(chosen):
+        if a.time_budget and time.time() - t0 > a.time_budget:
+            print('mutate.py: time budget spent after %d of %d mutants' % (idx, len(chosen)))
+            mode += '; the time budget of %.0f s ended the run after %d of them' % (
+                a.time_budget, idx)
+            break
         path = os.path.join(src, m.path)
         if m.path not in originals:
             originals[m.path] = open(path).read()
