@@ -48,6 +48,7 @@ import os
 import random
 import re
 import shutil
+import signal
 import subprocess
 import sys
 import time
@@ -265,7 +266,8 @@ def prepare(workdir, options):
         os.makedirs(os.path.dirname(dst), exist_ok=True)
         a = os.path.join(ROOT, rel)
         if not os.path.exists(dst) or open(a, 'rb').read() != open(dst, 'rb').read():
-            shutil.copy2(a, dst)
+            # A fresh mtime, so ninja rebuilds what an interrupted run left.
+            shutil.copyfile(a, dst)
     if not os.path.exists(os.path.join(build, 'build.ninja')):
         env = dict(os.environ, CC='gcc', CCACHE_DISABLE='1')
         r = subprocess.run(['meson', 'setup', build, src] + options, env=env, stdout=subprocess.PIPE,
@@ -404,6 +406,8 @@ def main():
     # Same file together: one recompilation per mutant.
     chosen.sort(key=lambda m: (m.path, m.start, m.repl))
 
+    # A kill restores the mutated file too (the finally clause below).
+    signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))
     t0 = time.time()
     # The commit measured: the sources are copied now.
     commit = git('rev-parse', '--short=12', 'HEAD')
