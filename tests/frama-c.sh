@@ -14,7 +14,9 @@
 #
 # Usage: tests/frama-c.sh [--record] [driver ...]   (default: every drv_*)
 #   --record  write the figures into docs/reliability.md (between markers)
-# Environment: NTR_FRAMA_PRECISION (EVA -eva-precision, default 3).
+# Environment: NTR_FRAMA_PRECISION (EVA -eva-precision, default 8: below it
+# EVA merges the paths of a status check and reports outputs of failed
+# helper calls as uninitialised).
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
@@ -26,7 +28,7 @@ if [ "${1:-}" = "--record" ]; then
   record=1
   shift
 fi
-precision="${NTR_FRAMA_PRECISION:-3}"
+precision="${NTR_FRAMA_PRECISION:-8}"
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
 start=$SECONDS
@@ -63,12 +65,14 @@ for d in "${drivers[@]}"; do
   [ "$n" -eq 0 ] && clean=$((clean + 1))
   printf '%-36s %s alarm(s)\n' "${d#drv_}" "$n"
   # Each alarm: file:line and the assertion EVA could not prove.
-  { grep -A1 '\[eva:alarm\]' "$log" || true; } | grep -v '^--$' | paste - - |
-    sed -e 's/^\[eva:alarm\] //' -e 's/: Warning: *\t */: /' -e 's/  */ /g' |
-    sort -u | while read -r line; do
-      echo "    $line"
-      echo "  - \`${d#drv_}\`: ${line//\`/}" >>"$report"
-    done
+  # Each alarm: file:line and the assertion EVA could not prove (the line
+  # after the [eva:alarm] one).
+  awk '/\[eva:alarm\]/ { loc = $2; sub(/:$/, "", loc); getline; gsub(/^ +| +$/, ""); print loc ": " $0 }' "$log" |
+    sort -u >"$work/$d.alarms"
+  while read -r line; do
+    echo "    $line"
+    echo "  - \`${d#drv_}\` ${line//\`/}" >>"$report"
+  done <"$work/$d.alarms"
 done
 elapsed=$((SECONDS - start))
 summary="EVA (Frama-C $(frama-c -version 2>/dev/null | head -1), -eva-precision $precision) from ${#drivers[@]} drivers: $total alarms; $clean of ${#drivers[@]} entry points without an alarm [${elapsed}s]"
