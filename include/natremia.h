@@ -25,8 +25,8 @@
  *   double input columns (in place). Inputs may overlap each other freely
  *   (they are only read). Functions that write an array while still
  *   reading their inputs refuse any overlap of their buffers with
- *   @ref NTR_ERR_ARG: ntr_balance_course(), ntr_batch_correction_assess()
- *   and ntr_batch_course_assess(). Elsewhere an overlap the rule forbids
+ *   @ref NTR_ERR_ARG (they are ntr_balance_course(), ntr_batch_correction_assess()
+ *   and ntr_batch_course_assess()). Elsewhere an overlap the rule forbids
  *   gives unspecified output values and status, but no function then
  *   writes outside its outputs. A watcher state is both
  *   input and output of its push functions and must not overlap their
