@@ -1999,6 +1999,52 @@ static void glucose_push_rejects_bad_inputs(void **state)
 #undef EXPECT_REFUSED
 }
 
+/* Edges the header allows exactly: a 24 h limit equal to the 48 h limit,
+ * a 24 h target equal to the 24 h ceiling (the limits are valid when
+ * max_rise_24h at most max_rise_48h, min_rise_24h at most max_rise_24h,
+ * as lib/correction.c checks them), and
+ * sodium at the ends of its range, 80 and 220 mmol/L, in the series and in
+ * both watchers (whose states are checked for sound samples on every
+ * call). Invented series. */
+static void limits_and_sodium_at_their_edges(void **state)
+{
+    const ntr_limits equal = {10.0, 10.0, 0.0};
+    const ntr_limits target_at_ceiling = {8.0, 16.0, 8.0};
+    const ntr_sample low[] = {{0.0, 80.0}, {6.0, 84.0}, {12.0, 80.0}};
+    const ntr_sample high[] = {{0.0, 220.0}, {6.0, 216.0}, {12.0, 220.0}};
+    const ntr_sample *series[2] = {low, high};
+    ntr_correction c;
+    ntr_watch w;
+    ntr_course_watch cw;
+    ntr_course_limits cl;
+    ntr_course_report r;
+    size_t k, i;
+    (void)state;
+    assert_int_equal(ntr_correction_assess(low, 3, &equal, &c), NTR_OK);
+    assert_int_equal(ntr_correction_assess(low, 3, &target_at_ceiling, &c), NTR_OK);
+    assert_int_equal(ntr_watch_init(&equal, &w), NTR_OK);
+    assert_int_equal(ntr_watch_init(&target_at_ceiling, &w), NTR_OK);
+    memset(&cl, 0, sizeof cl);
+    cl.struct_size = sizeof cl;
+    assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HOLD, &cl), NTR_OK);
+    for (k = 0; k < 2; k++) {
+        assert_int_equal(ntr_watch_init(&target_at_ceiling, &w), NTR_OK);
+        assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+        for (i = 0; i < 3; i++) {
+            memset(&r, 0, sizeof r);
+            r.struct_size = sizeof r;
+            assert_int_equal(ntr_watch_push(&w, series[k][i].hours, series[k][i].na_mmol_l, &c),
+                             NTR_OK);
+            assert_int_equal(ntr_course_watch_push(&cw, series[k][i].hours,
+                                                   series[k][i].na_mmol_l, &r),
+                             NTR_OK);
+        }
+        assert_int_equal(ntr_watch_result(&w, &c), NTR_OK);
+        assert_true(c.max_rise_24h == 4.0);
+        assert_int_equal(ntr_course_watch_result(&cw, &r), NTR_OK);
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -2022,6 +2068,7 @@ int main(void)
         cmocka_unit_test(six_in_six_hours),
         cmocka_unit_test(repeated_times),
         cmocka_unit_test(times_closer_than_the_tolerance),
+        cmocka_unit_test(limits_and_sodium_at_their_edges),
         cmocka_unit_test(no_flag_without_a_rise),
         cmocka_unit_test(negative_times),
         cmocka_unit_test(assess_rejects_bad_inputs),
