@@ -2043,6 +2043,20 @@ static void limits_and_sodium_at_their_edges(void **state)
         assert_true(c.max_rise_24h == 4.0);
         assert_int_equal(ntr_course_watch_result(&cw, &r), NTR_OK);
     }
+    /* A flat series neither rose nor fell: exactly 0 both ways, from the
+     * first sample on. */
+    assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+    for (i = 0; i < 3; i++) {
+        memset(&r, 0, sizeof r);
+        r.struct_size = sizeof r;
+        assert_int_equal(ntr_course_watch_push(&cw, 6.0 * (double)i, 130.0, &r), NTR_OK);
+        assert_true(r.rise_first_24h == 0.0 && r.fall_first_24h == 0.0);
+    }
+    /* A state whose private first_open is neither 0 nor 1 is not a state
+     * ntr_watch_init() made: refused (NTR_ERR_ARG), as any corrupt state. */
+    assert_int_equal(ntr_watch_init(&equal, &w), NTR_OK);
+    w.first_open = 2u;
+    assert_int_equal(ntr_watch_push(&w, 0.0, 120.0, &c), NTR_ERR_ARG);
 }
 
 int main(void)
