@@ -372,6 +372,9 @@ def main():
     g.add_argument('--sample', type=int)
     g.add_argument('--list', action='store_true')
     g.add_argument('--only', action='append', help='a mutant key or id')
+    g.add_argument('--recheck', action='store_true',
+                   help='re-run the survivors of the run recorded in docs/reliability.md '
+                   'on the current tree; with --record, add the outcome below that run')
     ap.add_argument('--seed', type=int, default=14)
     ap.add_argument('--files')
     ap.add_argument('--workdir', default=os.path.join(ROOT, 'build-mutate'))
@@ -393,6 +396,13 @@ def main():
             print('%s\t%s\t%s' % (m.id, m.describe(), m.key))
         print('%d mutants' % len(allm), file=sys.stderr)
         return 0
+    recorded = None
+    if a.recheck:
+        text = open(DOC).read()
+        if BEGIN not in text:
+            sys.exit('mutate.py: no recorded run in docs/reliability.md')
+        recorded = text[text.index(BEGIN):text.index(END)]
+        a.only = re.findall(r'^- `([0-9a-f]{10})` .*$', recorded.split('Equivalent')[0], re.M)
     if a.only:
         chosen = [m for m in allm if m.key in a.only or m.id in a.only]
         mode = 'chosen mutants'
@@ -505,7 +515,33 @@ def main():
     print('\n'.join(lines))
     for m, _, _ in surv:
         print('survivor key: %s' % m.key)
-    if a.record:
+    if a.record and a.recheck:
+        killed = [m for m, v, _ in results if v == 'killed']
+        eqv = [m for m, v, _ in results if v == 'equivalent']
+        left = [m for m, v, _ in results if v == 'survived']
+        row = re.search(r'^\| (\d+) \| (\d+) \| (\d+) \| (\d+) \| (\d+) \| (\d+) \|', recorded, re.M)
+        k0, e0, s0 = int(row.group(4)), int(row.group(5)), int(row.group(6))
+        k1, e1, s1 = k0 + len(killed), e0 + len(eqv), s0 - len(killed) - len(eqv)
+        add = ['', 'Re-check at commit `%s`%s on %s (`tests/mutate.py --recheck --record`, %.0f s): '
+               'of the %d survivors above, %d are now killed by tests added since, %d are '
+               'listed as equivalent, %d survive. The same sample with today\'s tests: '
+               '%d killed, %d equivalent, %d survived: **%.1f %%**.' % (
+                   commit, ' (with uncommitted changes)' if dirty else '',
+                   time.strftime('%Y-%m-%d', time.gmtime()), elapsed, len(results),
+                   len(killed), len(eqv), len(left), k1, e1, s1,
+                   100.0 * k1 / (k1 + s1) if k1 + s1 else 100.0)]
+        if left:
+            add.append('')
+            add.append('Still surviving:')
+            for m in left:
+                add.append('- `%s` %s' % (m.id, m.describe()))
+        add.append('')
+        text = open(DOC).read()
+        cut = text.index(END)
+        text = text[:cut] + '\n'.join(add) + '\n' + text[cut:]
+        with open(DOC, 'w') as f:
+            f.write(text)
+    elif a.record:
         record(lines)
     return 0 if score >= 95.0 else 1
 
