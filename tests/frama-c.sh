@@ -87,7 +87,7 @@ if [ "$record" -eq 1 ]; then
     echo "Measured at commit \`$commit\`${dirty:+ (with uncommitted changes)} on $(date -u +%Y-%m-%d) with \`tests/frama-c.sh --record\`: $summary."
     echo
     if [ -s "$report" ]; then
-      echo "Remaining alarms (explained below the figures):"
+      echo "Remaining alarms (each explained in the section \"Static proof: Frama-C value analysis\" above):"
       echo
       cat "$report"
     else
