@@ -538,7 +538,10 @@ def main():
         add.append('')
         text = open(DOC).read()
         cut = text.index(END)
-        text = text[:cut] + '\n'.join(add) + '\n' + text[cut:]
+        # A new re-check replaces the previous one.
+        again = text.find('\nRe-check at commit', text.index(BEGIN), cut)
+        keep = text[:again + 1] if again >= 0 else text[:cut]
+        text = keep + '\n'.join(add).lstrip('\n') + '\n' + text[cut:]
         with open(DOC, 'w') as f:
             f.write(text)
     elif a.record:

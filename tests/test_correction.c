@@ -2044,8 +2044,13 @@ static void limits_and_sodium_at_their_edges(void **state)
         assert_int_equal(ntr_course_watch_result(&cw, &r), NTR_OK);
     }
     /* A flat series neither rose nor fell: exactly 0 both ways, from the
-     * first sample on. */
+     * first sample on (and before it, if the watcher answers at all). */
     assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+    memset(&r, 0, sizeof r);
+    r.struct_size = sizeof r;
+    if (ntr_course_watch_result(&cw, &r) == NTR_OK) {
+        assert_true(r.rise_first_24h == 0.0 && r.fall_first_24h == 0.0);
+    }
     for (i = 0; i < 3; i++) {
         memset(&r, 0, sizeof r);
         r.struct_size = sizeof r;
