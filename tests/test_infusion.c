@@ -404,6 +404,13 @@ static void volume_for_a_tiny_rise(void **state)
     (void)state;
     assert_int_equal(ntr_infusate_volume_for_change(120.0, 40.0, 513.0, 0.0, 1e-10, &v), NTR_OK);
     assert_near(v, 1e-10 * 40.0 / (513.0 - 120.0 - 1e-10), 1e-24);
+    /* A tiny fall needs an infusate below the target: one a hair above
+     * sodium (headroom about +1e-10, the wrong side) is refused, however
+     * small the headroom; it must not come back as a negative volume. */
+    v = NTR_TEST_SENTINEL;
+    assert_int_equal(ntr_infusate_volume_for_change(120.0, 40.0, 120.0000000001, 0.0, -1e-12, &v),
+                     NTR_ERR_DOMAIN);
+    assert_true(v == NTR_TEST_SENTINEL);
 }
 
 int main(void)
