@@ -41,7 +41,6 @@ Options: --seed S, --files lib/batch.c,lib/water.c, --workdir DIR
 program, not only up to the first failure).
 """
 import argparse
-import fnmatch
 import hashlib
 import json
 import os
@@ -336,7 +335,9 @@ def equivalent_reason(eq, key):
     if key in eq:
         return eq[key]
     for pattern, reason in eq.items():
-        if fnmatch.fnmatchcase(key, pattern):
+        # Only * and ? are wildcards (keys hold C brackets).
+        rx = re.escape(pattern).replace('\\*', '.*').replace('\\?', '.')
+        if re.fullmatch(rx, key):
             return reason
     return None
 
