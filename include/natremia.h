@@ -19,6 +19,18 @@
  *   (@ref NTR_ERR_DOMAIN).
  * - The library allocates nothing, prints nothing, keeps no mutable global
  *   state and is reentrant.
+ * - Overlapping buffers (aliasing rule): an output must not share memory
+ *   with an input or with another output, with one exception: a batch
+ *   function's @c out column may be the very same array as one of its
+ *   double input columns (in place). Inputs may overlap each other freely
+ *   (they are only read). Functions that write an array while still
+ *   reading their inputs refuse any overlap of their buffers with
+ *   @ref NTR_ERR_ARG (they are ntr_balance_course(), ntr_batch_correction_assess()
+ *   and ntr_batch_course_assess()). Elsewhere an overlap the rule forbids
+ *   gives unspecified output values and status, but no function then
+ *   writes outside its outputs. A watcher state is both
+ *   input and output of its push functions and must not overlap their
+ *   other arguments.
  *
  * @warning Every result is an estimate for decision support, not an order.
  * Verify with measured values, follow local protocols and licensed clinical
@@ -3187,7 +3199,11 @@ NTR_API int ntr_balance_predict(double na_mmol_l, double tbw_l,
  * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p count is NULL, or @p series with a capacity,
  *                           or @p flows with flows to read.
- * @retval NTR_ERR_ARG       a flow's reserved field is not 0.
+ * @retval NTR_ERR_ARG       a flow's reserved field is not 0, or @p series
+ *                           (its @p capacity elements) or @p count overlaps
+ *                           @p flows or each other (aliasing rule, top of
+ *                           this header); checked right after the NULL
+ *                           pointers.
  * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input (in argument
  *                           order; each flow's fields in struct order).
  * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input
@@ -4030,8 +4046,9 @@ NTR_API int ntr_bolus_plan(double na_mmol_l, double tbw_l,
  * @param[out] failed  optional (may be NULL): number of failed groups.
  * @return NTR_OK; NTR_ERR_NULL (a required pointer is NULL, checked even
  *         when @p groups is 0); NTR_ERR_ARG (offsets decrease or pass
- *         @p n_samples: nothing is written); otherwise the status of the
- *         first failed group.
+ *         @p n_samples, or @p out or @p status overlaps an input or each
+ *         other: nothing is written); otherwise the status of the first
+ *         failed group.
  *
  * Cost: linear in the number of samples; no allocation.
  *
@@ -4082,7 +4099,8 @@ NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
  * @param[out] failed  optional (may be NULL): number of failed groups.
  * @return NTR_OK; NTR_ERR_NULL (a required pointer is NULL, checked even
  *         when @p groups is 0); NTR_ERR_ARG (@p report_size too small or
- *         misaligned, or offsets decrease or pass @p n_samples: nothing is
+ *         misaligned, or offsets decrease or pass @p n_samples, or @p out
+ *         or @p status overlaps an input or each other: nothing is
  *         written); otherwise the status of the first failed group.
  *
  * Cost: linear in the number of samples; no allocation.

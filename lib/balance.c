@@ -218,6 +218,14 @@ int ntr_balance_course(double na_mmol_l, double tbw_l,
         (flows == NULL && n_flows > 0)) {
         return NTR_ERR_NULL;
     }
+    /* The points are written while the flows are still read: a series
+     * buffer (or count) over the flows would change the plan under way. */
+    if (ntri_overlap(series, ntri_bytes(capacity, sizeof *series), flows,
+                     ntri_bytes(n_flows, sizeof *flows)) ||
+        ntri_overlap(count, sizeof *count, flows, ntri_bytes(n_flows, sizeof *flows)) ||
+        ntri_overlap(count, sizeof *count, series, ntri_bytes(capacity, sizeof *series))) {
+        return NTR_ERR_ARG;
+    }
     NTR_TRY(ntri_timed_flows_reserved(flows, n_flows));
     NTR_TRY(ntr_check_na(na_mmol_l));
     NTR_TRY(ntr_check_tbw(tbw_l));

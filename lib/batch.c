@@ -1189,6 +1189,26 @@ static int offsets_valid(size_t groups, const size_t *offsets, size_t n_samples)
     return offsets[groups] <= n_samples;
 }
 
+/* Whether the outputs of a grouped call are clear of its inputs and of
+ * each other: each group's result is written while later groups' samples
+ * are still to be read (include/natremia.h, "Overlapping buffers"). */
+static int groups_disjoint(size_t groups, const size_t *offsets,
+                           const ntr_sample *samples, size_t n_samples,
+                           const void *lim, size_t lim_bytes, const void *out,
+                           size_t out_bytes, const int *status)
+{
+    const size_t off_b = ntri_bytes(groups + 1u, sizeof *offsets);
+    const size_t sam_b = ntri_bytes(n_samples, sizeof *samples);
+    const size_t st_b = ntri_bytes(groups, sizeof *status);
+    return !ntri_overlap(out, out_bytes, offsets, off_b) &&
+           !ntri_overlap(out, out_bytes, samples, sam_b) &&
+           !ntri_overlap(out, out_bytes, lim, lim_bytes) &&
+           !ntri_overlap(out, out_bytes, status, st_b) &&
+           !ntri_overlap(status, st_b, offsets, off_b) &&
+           !ntri_overlap(status, st_b, samples, sam_b) &&
+           !ntri_overlap(status, st_b, lim, lim_bytes);
+}
+
 /* The loop both grouped entry points share, after their call-level checks:
  * every group through `one`, statuses stored and counted. */
 static int assess_groups(size_t groups, const size_t *offsets,
@@ -1245,7 +1265,9 @@ int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    if (!offsets_valid(groups, offsets, n_samples)) {
+    if (!offsets_valid(groups, offsets, n_samples) ||
+        !groups_disjoint(groups, offsets, samples, n_samples, lim, sizeof *lim,
+                         out, ntri_bytes(groups, sizeof *out), status)) {
         return NTR_ERR_ARG;
     }
     ctx.lim = lim;
@@ -1317,6 +1339,20 @@ static int course_group(const void *ctx, size_t g, const ntr_sample *s, size_t n
     return st;
 }
 
+/* Bytes the reports of a grouped course call occupy: report_size apart,
+ * the last one as long as this version's report. */
+static size_t reports_bytes(size_t groups, size_t report_size)
+{
+    size_t before_last;
+    if (groups == 0) {
+        return 0;
+    }
+    before_last = ntri_bytes(groups - 1u, report_size);
+    return before_last > SIZE_MAX - sizeof(ntr_course_report)
+               ? SIZE_MAX
+               : before_last + sizeof(ntr_course_report);
+}
+
 int ntr_batch_course_assess(size_t groups, const size_t *offsets,
                             const ntr_sample *samples, size_t n_samples,
                             const ntr_course_limits *lim, size_t report_size,
@@ -1328,7 +1364,9 @@ int ntr_batch_course_assess(size_t groups, const size_t *offsets,
         return NTR_ERR_NULL;
     }
     if (!report_size_valid(groups, report_size) ||
-        !offsets_valid(groups, offsets, n_samples)) {
+        !offsets_valid(groups, offsets, n_samples) ||
+        !groups_disjoint(groups, offsets, samples, n_samples, lim, sizeof *lim,
+                         out, reports_bytes(groups, report_size), status)) {
         return NTR_ERR_ARG;
     }
     ctx.lim = lim;

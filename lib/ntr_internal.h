@@ -125,6 +125,28 @@ static inline int ntr_check_tbw(double tbw_l)
     return ntr_check(tbw_l, NTR_TBW_MIN, NTR_TBW_MAX);
 }
 
+/* Bytes of count elements of size bytes, saturated (a count a caller
+ * claims can be any size_t). */
+static inline size_t ntri_bytes(size_t count, size_t size)
+{
+    return count > SIZE_MAX / size ? SIZE_MAX : count * size;
+}
+
+/* Whether the byte ranges [a, a + a_bytes) and [b, b + b_bytes) share a
+ * byte: the aliasing rule of include/natremia.h ("Overlapping buffers").
+ * Compared as integers, which is defined for any two pointers (relational
+ * operators are not, between separate objects). */
+static inline int ntri_overlap(const void *a, size_t a_bytes, const void *b,
+                               size_t b_bytes)
+{
+    const uintptr_t x = (uintptr_t)a;
+    const uintptr_t y = (uintptr_t)b;
+    if (a_bytes == 0 || b_bytes == 0) {
+        return 0;
+    }
+    return x <= y ? y - x < a_bytes : x - y < b_bytes;
+}
+
 /* Evaluate a check and return its status from the caller if it failed. */
 #define NTR_TRY(expr)                     \
     do {                                  \

@@ -12,16 +12,19 @@
 #    ASan+UBSan, the cross builds run under qemu).
 # 2. A plain build runs the unit suite with every test program under
 #    valgrind --error-exitcode=1 --leak-check=full.
+# 3. A ThreadSanitizer build (-Db_sanitize=thread) runs the unit suite,
+#    among it tests/test_threads.c: several threads calling the library at
+#    once; any data race is fatal (halt_on_error).
 #
-# Usage: tests/sanitize.sh [asan|valgrind]   (default: both)
+# Usage: tests/sanitize.sh [asan|valgrind|tsan]   (default: all three)
 # Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
-# <prefix>-sanitize and <prefix>-valgrind.
+# <prefix>-sanitize, <prefix>-valgrind and <prefix>-tsan.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 prefix="${NTR_BUILD_PREFIX:-build}"
 modes=("$@")
-[ ${#modes[@]} -eq 0 ] && modes=(asan valgrind)
+[ ${#modes[@]} -eq 0 ] && modes=(asan valgrind tsan)
 
 source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
@@ -57,6 +60,22 @@ for m in "${modes[@]}"; do
     else
       grep -E '==[0-9]+==|FAIL' "$dir/valgrind.log" | head -20
       echo "sanitize.sh: valgrind FAILED (log: $dir/valgrind.log)"
+      status=1
+    fi
+    ;;
+  tsan)
+    # lib/meson.build drops -Wl,-z,defs when b_sanitize is set: the
+    # library's __tsan_* references resolve in the executable.
+    dir="$prefix-tsan"
+    quiet meson_setup_dir "$dir" -Db_sanitize=thread -Db_lundef=false -Dbuildtype=debugoptimized
+    quiet ninja -C "$dir"
+    if TSAN_OPTIONS=halt_on_error=1:second_deadlock_stack=1 \
+       meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 4 \
+         --print-errorlogs >"$dir/tsan.log" 2>&1; then
+      echo "sanitize.sh: ThreadSanitizer: $(grep -E '^Ok:' "$dir/tsan.log" | tr -s ' ') tests (threads among them), no race [$((SECONDS - start))s]"
+    else
+      grep -E 'WARNING: ThreadSanitizer|SUMMARY|FAIL' "$dir/tsan.log" | head -20
+      echo "sanitize.sh: ThreadSanitizer FAILED (log: $dir/tsan.log)"
       status=1
     fi
     ;;

@@ -6,6 +6,7 @@
 #include <stddef.h>
 #include <setjmp.h>
 #include <stdint.h>
+#include <stdlib.h>
 #include <string.h>
 #include <cmocka.h>
 
@@ -1143,6 +1144,20 @@ static void relower_edges_and_bad_inputs(void **state)
                      NTR_OK);
     assert_true(v == 0.0 && rate == 0.0);
     v = rate = NTR_TEST_SENTINEL;
+    /* The 20 L cap of one plan step (NTR_INFUSE_VOLUME_MAX) is inclusive.
+     * Mass balance (Adrogue & Madias 2000): lowering 150 by 10 in 280 L
+     * with water takes 10 * 280 / 140 = 20 L exactly (over 24 h, 20/24 L/h);
+     * in a hair more body water it takes more than 20 L and is refused. */
+    assert_int_equal(ntr_relower_estimate(150.0, 280.0, 0.0, 0.0, 10.0, 24.0, 0.0, 0.0, 0.0,
+                                          &v, &rate),
+                     NTR_OK);
+    assert_true(v == 20.0);
+    assert_near(rate, 20000.0 / 24.0, 1e-9);
+    v = rate = NTR_TEST_SENTINEL;
+    assert_int_equal(ntr_relower_estimate(150.0, nextafter(280.0, 400.0), 0.0, 0.0, 10.0, 24.0,
+                                          0.0, 0.0, 0.0, &v, &rate),
+                     NTR_ERR_DOMAIN);
+    assert_true(v == NTR_TEST_SENTINEL && rate == NTR_TEST_SENTINEL);
     /* 0.9% saline (154) cannot lower 131. */
     assert_int_equal(ntr_relower_estimate(131.0, 40.0, 154.0, 0.0, 3.0, 6.0, 0.0, 0.0, 0.0, &v, &rate),
                      NTR_ERR_DOMAIN);
@@ -1217,6 +1232,66 @@ static void relower_walk_inputs(void **state)
     }
 }
 
+/* Aliasing rule (include/natremia.h, "Overlapping buffers"): the course is
+ * written while the flows are read, so a series buffer or count that
+ * shares a byte with the flows (or with each other) is refused with
+ * NTR_ERR_ARG and nothing is written; a buffer that merely touches the end
+ * of another is fine. Before the check, a series over the flows returned
+ * NTR_OK with other numbers. One malloc'd block holds every buffer. */
+static void course_refuses_overlapping_buffers(void **state)
+{
+    const ntr_timed_flow f = ntr_test_timed(0.0, 3.0, 100.0, 513.0, 0.0);
+    const size_t block = 1024;
+    unsigned char *m = malloc(block);
+    unsigned char *before = malloc(block);
+    ntr_sample want[4];
+    ntr_timed_flow *flows;
+    size_t want_count = 0, *count;
+    (void)state;
+    assert_non_null(m);
+    assert_non_null(before);
+    assert_int_equal(ntr_balance_course(115.0, 40.0, &f, 1, 3.0, 1.0, want, 4, &want_count),
+                     NTR_OK);
+    memset(m, 0x5a, block);
+    flows = (ntr_timed_flow *)(void *)m;
+    *flows = f;
+    memcpy(before, m, block);
+    /* Series from the flow's first byte, and from its last double. */
+    assert_int_equal(ntr_balance_course(115.0, 40.0, flows, 1, 3.0, 1.0,
+                                        (ntr_sample *)(void *)m, 4, &want_count),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_balance_course(115.0, 40.0, flows, 1, 3.0, 1.0,
+                                        (ntr_sample *)(void *)(m + sizeof f - 8), 4,
+                                        &want_count),
+                     NTR_ERR_ARG);
+    /* The series ending one byte into the flow (it starts before it). */
+    assert_int_equal(ntr_balance_course(115.0, 40.0, (ntr_timed_flow *)(void *)(m + 64), 1,
+                                        3.0, 1.0, (ntr_sample *)(void *)(m + 64 + 8 - 4 * 16),
+                                        4, &want_count),
+                     NTR_ERR_ARG);
+    /* count inside the flow; count inside the series. */
+    assert_int_equal(ntr_balance_course(115.0, 40.0, flows, 1, 3.0, 1.0,
+                                        (ntr_sample *)(void *)(m + 256), 4,
+                                        (size_t *)(void *)(m + 16)),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_balance_course(115.0, 40.0, flows, 1, 3.0, 1.0,
+                                        (ntr_sample *)(void *)(m + 256), 4,
+                                        (size_t *)(void *)(m + 256 + 3 * 16 + 8)),
+                     NTR_ERR_ARG);
+    assert_memory_equal(m, before, block);
+    assert_int_equal(want_count, 4);
+    /* Touching is not overlapping: series right after the flow, count
+     * right after the series; the same points as from separate buffers. */
+    count = (size_t *)(void *)(m + sizeof f + 4 * 16);
+    assert_int_equal(ntr_balance_course(115.0, 40.0, flows, 1, 3.0, 1.0,
+                                        (ntr_sample *)(void *)(m + sizeof f), 4, count),
+                     NTR_OK);
+    assert_int_equal(*count, 4);
+    assert_memory_equal(m + sizeof f, want, sizeof want);
+    free(m);
+    free(before);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1247,6 +1322,7 @@ int main(void)
         cmocka_unit_test(relower_round_trip),
         cmocka_unit_test(relower_edges_and_bad_inputs),
         cmocka_unit_test(relower_walk_inputs),
+        cmocka_unit_test(course_refuses_overlapping_buffers),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

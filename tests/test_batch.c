@@ -11,11 +11,13 @@
 #include <stddef.h>
 #include <setjmp.h>
 #include <stdint.h>
+#include <stdlib.h>
 #include <string.h>
 #include <math.h>
 #include <cmocka.h>
 
 #include "natremia.h"
+#include "batch_table.h"
 
 #define ROWS 4096
 #define SENTINEL (-7777.25)
@@ -1116,6 +1118,218 @@ static void course_groups_equal_scalar(void **state)
     assert_true(flagged_rise > 0);
 }
 
+/* ---- batch against scalar at every range and band edge ---------------- */
+
+/* Rows of one table entry: the valid base row with one column at a time
+ * set to a range end or a band edge, and to the doubles just beside each. */
+static size_t edge_rows(const struct bt_entry *e, double rows[][BT_MAX_COLS],
+                        int *row_sex)
+{
+    static const int sex_values[2] = {NTR_SEX_MALE, NTR_SEX_FEMALE};
+    size_t n = 0;
+    int si, c, k, side;
+    for (si = 0; si < (e->has_sex ? 2 : 1); si++) {
+        for (c = 0; c < e->ncol; c++) {
+            double points[2 + BT_MAX_EDGES];
+            int np = 0;
+            points[np++] = e->lo[c];
+            points[np++] = e->hi[c];
+            for (k = 0; k < e->nedges[c]; k++) {
+                points[np++] = e->edges[c][k];
+            }
+            for (k = 0; k < np; k++) {
+                for (side = -1; side <= 1; side++) {
+                    int j;
+                    for (j = 0; j < e->ncol; j++) {
+                        rows[n][j] = e->base[j];
+                    }
+                    rows[n][c] = side == 0 ? points[k]
+                                           : nextafter(points[k], side * HUGE_VAL);
+                    row_sex[n] = sex_values[si];
+                    n++;
+                }
+            }
+        }
+        for (k = 0; k < (int)BT_EXTRA_COUNT; k++) {
+            if (strcmp(bt_extra[k].name, e->name) == 0) {
+                memcpy(rows[n], bt_extra[k].row, sizeof rows[n]);
+                row_sex[n] = sex_values[si];
+                n++;
+            }
+        }
+    }
+    return n;
+}
+
+static double edge_row_values[512][BT_MAX_COLS];
+static int edge_row_sex[512];
+static int int_out[ROWS];
+
+/* Runs the batch function on the rows laid out three ways and compares
+ * every row with the scalar function, bit for bit:
+ *   0: as listed (pairs of mixed valid and invalid rows),
+ *   1: each row twice in a row (a valid row then goes through the
+ *      two-lane path of builds that have one),
+ *   2: each row followed by a NaN row (the one-row path). */
+static void check_edges(const struct bt_entry *e)
+{
+    size_t nrows = edge_rows(e, edge_row_values, edge_row_sex);
+    double *cols[BT_MAX_COLS] = {a1, a2, a3, a4, a5};
+    int layout;
+    for (layout = 0; layout < 3; layout++) {
+        size_t n = 0, i, bad = 0, failed = 0;
+        int c, ret;
+        for (i = 0; i < nrows; i++) {
+            int copies = layout == 0 ? 1 : 2;
+            int k;
+            for (k = 0; k < copies; k++) {
+                for (c = 0; c < e->ncol; c++) {
+                    cols[c][n] = (layout == 2 && k == 1 && c == 0) ? (double)NAN
+                                                                  : edge_row_values[i][c];
+                }
+                sexes[n] = edge_row_sex[i];
+                n++;
+            }
+        }
+        ret = e->batch(n, (const double *const *)cols, sexes,
+                       e->int_out ? (void *)int_out : (void *)out, status, &failed);
+        for (i = 0; i < n; i++) {
+            double row[BT_MAX_COLS];
+            for (c = 0; c < e->ncol; c++) {
+                row[c] = cols[c][i];
+            }
+            if (e->int_out) {
+                int s = -7777;
+                int st = e->scalar(row, sexes[i], &s);
+                if (st != status[i] || (st == NTR_OK && s != int_out[i])) {
+                    print_error("%s layout %d row %zu: scalar %d/%d, batch %d/%d\n",
+                                e->name, layout, i, st, s, status[i], int_out[i]);
+                    fail();
+                }
+                bad += st != NTR_OK;
+            } else {
+                double s = SENTINEL;
+                int st = e->scalar(row, sexes[i], &s);
+                if (st != status[i]) {
+                    print_error("%s layout %d row %zu:\n", e->name, layout, i);
+                }
+                bad += check_row(i, st, s, status[i], out[i]);
+            }
+        }
+        check_summary(ret, failed, status, n, bad);
+    }
+}
+
+static void band_edges_equal_scalar(void **state)
+{
+    size_t i;
+    int ret;
+    (void)state;
+    for (i = 0; i < BT_COUNT; i++) {
+        check_edges(&bt_table[i]);
+    }
+    /* Adrogue & Madias, N Engl J Med 2000;342:1581-9: a woman from 65
+     * years has 0.45 of her weight as water, a man from 65 0.5; through
+     * the two-lane path (two rows) and the one-row path (third row). */
+    for (i = 0; i < 3; i++) {
+        sexes[i] = i == 1 ? NTR_SEX_MALE : NTR_SEX_FEMALE;
+        a1[i] = 65.0;
+        a2[i] = 100.0;
+    }
+    ret = ntr_batch_tbw_fraction(3, sexes, a1, a2, out, status, NULL);
+    assert_int_equal(ret, NTR_OK);
+    assert_close(out[0], 45.0, 1e-12);
+    assert_close(out[1], 50.0, 1e-12);
+    assert_close(out[2], 45.0, 1e-12);
+    /* Adults from 18 years: a man 0.6, a woman 0.5 (same source). */
+    for (i = 0; i < 3; i++) {
+        a1[i] = 18.0;
+    }
+    ret = ntr_batch_tbw_fraction(3, sexes, a1, a2, out, status, NULL);
+    assert_int_equal(ret, NTR_OK);
+    assert_close(out[0], 50.0, 1e-12);
+    assert_close(out[1], 60.0, 1e-12);
+    assert_close(out[2], 50.0, 1e-12);
+}
+
+/* Aliasing rule (include/natremia.h): each group's result is written while
+ * later groups are still read, so outputs sharing a byte with the inputs
+ * or with each other are refused (NTR_ERR_ARG, nothing written); buffers
+ * that only touch are accepted. One malloc'd block holds them all. */
+static void groups_refuse_overlapping_buffers(void **state)
+{
+    const ntr_sample s3[3] = {{0, 120}, {6, 124}, {12, 126}};
+    const size_t off3[3] = {0, 2, 3};
+    const size_t block = 4096;
+    unsigned char *m = malloc(block);
+    unsigned char *before = malloc(block);
+    ntr_sample *s;
+    size_t *off;
+    ntr_limits *lim;
+    ntr_course_limits *clim;
+    ntr_correction *c;
+    ntr_course_report *r;
+    int *st;
+    (void)state;
+    assert_non_null(m);
+    assert_non_null(before);
+    memset(m, 0x5a, block);
+    /* Inputs: samples at 0, offsets at 48, limits at 72 and 96. */
+    s = (ntr_sample *)(void *)m;
+    memcpy(s, s3, sizeof s3);
+    off = (size_t *)(void *)(m + 48);
+    memcpy(off, off3, sizeof off3);
+    lim = (ntr_limits *)(void *)(m + 72);
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, lim), NTR_OK);
+    clim = (ntr_course_limits *)(void *)(m + 96);
+    clim->struct_size = sizeof *clim;
+    assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, clim), NTR_OK);
+    memcpy(before, m, block);
+    /* Outputs over the samples, the offsets, the limits; status over the
+     * samples, over the outputs. */
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim,
+                                                 (ntr_correction *)(void *)(m + 40),
+                                                 (int *)(void *)(m + 2048), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim,
+                                                 (ntr_correction *)(void *)(m + 1024),
+                                                 (int *)(void *)(m + 44), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim,
+                                                 (ntr_correction *)(void *)(m + 1024),
+                                                 (int *)(void *)(m + 1024 + sizeof *c), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r,
+                                             (ntr_course_report *)(void *)(m + 64),
+                                             (int *)(void *)(m + 3072), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r,
+                                             (ntr_course_report *)(void *)(m + 104),
+                                             (int *)(void *)(m + 3072), NULL),
+                     NTR_ERR_ARG);
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r,
+                                             (ntr_course_report *)(void *)(m + 1024),
+                                             (int *)(void *)(m + 1024 + sizeof *r), NULL),
+                     NTR_ERR_ARG);
+    assert_memory_equal(m, before, block);
+    /* Touching only: outputs right after the inputs, status right after
+     * the outputs. */
+    c = (ntr_correction *)(void *)(m + 1024);
+    st = (int *)(void *)(m + 1024 + 2 * sizeof *c);
+    assert_int_equal(ntr_batch_correction_assess(2, off, s, 3, lim, c, st, NULL), NTR_OK);
+    assert_int_equal(st[0], NTR_OK);
+    r = (ntr_course_report *)(void *)(m + 96 + sizeof *clim);
+    st = (int *)(void *)((unsigned char *)r + 2 * sizeof *r);
+    assert_true((unsigned char *)(st + 2) <= m + block);
+    r[0].struct_size = sizeof *r;
+    r[1].struct_size = sizeof *r;
+    assert_int_equal(ntr_batch_course_assess(2, off, s, 3, clim, sizeof *r, r, st, NULL),
+                     NTR_OK);
+    assert_int_equal(st[1], NTR_OK);
+    free(m);
+    free(before);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1137,6 +1351,8 @@ int main(void)
         cmocka_unit_test(course_groups_stride),
         cmocka_unit_test(course_groups_contract),
         cmocka_unit_test(course_groups_equal_scalar),
+        cmocka_unit_test(band_edges_equal_scalar),
+        cmocka_unit_test(groups_refuse_overlapping_buffers),
     };
     return cmocka_run_group_tests_name("batch", tests, NULL, NULL);
 }

@@ -501,6 +501,33 @@ static void times_closer_than_the_tolerance(void **state)
     c = assess(close, 2, &lim);
     assert_true(c.last_rate_per_h == 0.0);
     assert_int_equal(c.flags & NTR_CF_FALLING, 0u);
+    /* Exactly the tolerance apart (1e-6 - 0 is exact) is still "within"
+     * it (header: 0 if the two are within NTR_CF_TIME_TOLERANCE_H): one
+     * time point, no rate, in the series and in the watchers alike. */
+    {
+        const ntr_sample at[] = {{0.0, 125.0}, {NTR_CF_TIME_TOLERANCE_H, 120.0}};
+        ntr_watch w;
+        ntr_course_watch cw;
+        ntr_course_limits cl;
+        ntr_course_report r;
+        assert_true(at[1].hours - at[0].hours == NTR_CF_TIME_TOLERANCE_H);
+        c = assess(at, 2, &lim);
+        assert_true(c.last_rate_per_h == 0.0);
+        assert_int_equal(c.flags & NTR_CF_FALLING, 0u);
+        assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+        assert_int_equal(ntr_watch_push(&w, at[0].hours, at[0].na_mmol_l, &c), NTR_OK);
+        assert_int_equal(ntr_watch_push(&w, at[1].hours, at[1].na_mmol_l, &c), NTR_OK);
+        assert_true(c.last_rate_per_h == 0.0);
+        memset(&cl, 0, sizeof cl);
+        cl.struct_size = sizeof cl;
+        assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HOLD, &cl), NTR_OK);
+        assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+        memset(&r, 0, sizeof r);
+        r.struct_size = sizeof r;
+        assert_int_equal(ntr_course_watch_push(&cw, at[0].hours, at[0].na_mmol_l, &r), NTR_OK);
+        assert_int_equal(ntr_course_watch_push(&cw, at[1].hours, at[1].na_mmol_l, &r), NTR_OK);
+        assert_true(r.last_rate_per_h == 0.0);
+    }
     /* 1.5e-6 h apart is an interval: falling, at a large but finite rate. */
     c = assess(apart, 2, &lim);
     assert_true(isfinite(c.last_rate_per_h) && c.last_rate_per_h < -1e5);
@@ -1972,6 +1999,71 @@ static void glucose_push_rejects_bad_inputs(void **state)
 #undef EXPECT_REFUSED
 }
 
+/* Edges the header allows exactly: a 24 h limit equal to the 48 h limit,
+ * a 24 h target equal to the 24 h ceiling (the limits are valid when
+ * max_rise_24h at most max_rise_48h, min_rise_24h at most max_rise_24h,
+ * as lib/correction.c checks them), and
+ * sodium at the ends of its range, 80 and 220 mmol/L, in the series and in
+ * both watchers (whose states are checked for sound samples on every
+ * call). Invented series. */
+static void limits_and_sodium_at_their_edges(void **state)
+{
+    const ntr_limits equal = {10.0, 10.0, 0.0};
+    const ntr_limits target_at_ceiling = {8.0, 16.0, 8.0};
+    const ntr_sample low[] = {{0.0, 80.0}, {6.0, 84.0}, {12.0, 80.0}};
+    const ntr_sample high[] = {{0.0, 220.0}, {6.0, 216.0}, {12.0, 220.0}};
+    const ntr_sample *series[2] = {low, high};
+    ntr_correction c;
+    ntr_watch w;
+    ntr_course_watch cw;
+    ntr_course_limits cl;
+    ntr_course_report r;
+    size_t k, i;
+    (void)state;
+    assert_int_equal(ntr_correction_assess(low, 3, &equal, &c), NTR_OK);
+    assert_int_equal(ntr_correction_assess(low, 3, &target_at_ceiling, &c), NTR_OK);
+    assert_int_equal(ntr_watch_init(&equal, &w), NTR_OK);
+    assert_int_equal(ntr_watch_init(&target_at_ceiling, &w), NTR_OK);
+    memset(&cl, 0, sizeof cl);
+    cl.struct_size = sizeof cl;
+    assert_int_equal(ntr_course_limits_preset(NTR_COURSE_HOLD, &cl), NTR_OK);
+    for (k = 0; k < 2; k++) {
+        assert_int_equal(ntr_watch_init(&target_at_ceiling, &w), NTR_OK);
+        assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+        for (i = 0; i < 3; i++) {
+            memset(&r, 0, sizeof r);
+            r.struct_size = sizeof r;
+            assert_int_equal(ntr_watch_push(&w, series[k][i].hours, series[k][i].na_mmol_l, &c),
+                             NTR_OK);
+            assert_int_equal(ntr_course_watch_push(&cw, series[k][i].hours,
+                                                   series[k][i].na_mmol_l, &r),
+                             NTR_OK);
+        }
+        assert_int_equal(ntr_watch_result(&w, &c), NTR_OK);
+        assert_true(c.max_rise_24h == 4.0);
+        assert_int_equal(ntr_course_watch_result(&cw, &r), NTR_OK);
+    }
+    /* A flat series neither rose nor fell: exactly 0 both ways, from the
+     * first sample on (and before it, if the watcher answers at all). */
+    assert_int_equal(ntr_course_watch_init(&cl, &cw), NTR_OK);
+    memset(&r, 0, sizeof r);
+    r.struct_size = sizeof r;
+    if (ntr_course_watch_result(&cw, &r) == NTR_OK) {
+        assert_true(r.rise_first_24h == 0.0 && r.fall_first_24h == 0.0);
+    }
+    for (i = 0; i < 3; i++) {
+        memset(&r, 0, sizeof r);
+        r.struct_size = sizeof r;
+        assert_int_equal(ntr_course_watch_push(&cw, 6.0 * (double)i, 130.0, &r), NTR_OK);
+        assert_true(r.rise_first_24h == 0.0 && r.fall_first_24h == 0.0);
+    }
+    /* A state whose private first_open is neither 0 nor 1 is not a state
+     * ntr_watch_init() made: refused (NTR_ERR_ARG), as any corrupt state. */
+    assert_int_equal(ntr_watch_init(&equal, &w), NTR_OK);
+    w.first_open = 2u;
+    assert_int_equal(ntr_watch_push(&w, 0.0, 120.0, &c), NTR_ERR_ARG);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1995,6 +2087,7 @@ int main(void)
         cmocka_unit_test(six_in_six_hours),
         cmocka_unit_test(repeated_times),
         cmocka_unit_test(times_closer_than_the_tolerance),
+        cmocka_unit_test(limits_and_sodium_at_their_edges),
         cmocka_unit_test(no_flag_without_a_rise),
         cmocka_unit_test(negative_times),
         cmocka_unit_test(assess_rejects_bad_inputs),

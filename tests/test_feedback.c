@@ -833,12 +833,35 @@ static void reproject_finds_the_breach_the_plan_missed(void **state)
     assert_near(p.final_na_mmol_l, h[m - 1 + 6].na_mmol_l, 1e-6);
 }
 
+/* A fall over the limit with no urine at all (one interval of 0 mL): the
+ * urine's EFW rate is exactly 0, neither water diuresis nor salt loss, so
+ * NTR_FB_SALT_LOSS (urine EFW below 0) stays clear while the breach is
+ * reported. 5% dextrose at 1 L/h into 40 L from 160 mmol/L lowers sodium
+ * by about 160 / 41 = 3.9 mmol/L in the first hour (mass balance), beyond
+ * the chronic hypernatraemia limit of 10 in 24 h within a few hours.
+ * Invented case. */
+static void feedback_fall_without_urine(void **state)
+{
+    const ntr_sample h[] = {{0.0, 160.0}};
+    const ntr_timed_flow f[] = {ntr_test_timed(0.0, 24.0, 1000.0, 0.0, 0.0)};
+    const ntr_urine_interval u[] = {interval(0.0, 1.0, 0.0, 40.0, 20.0, 300.0)};
+    const ntr_course_limits lim = preset(NTR_COURSE_HYPER_CHRONIC);
+    ntr_urine_feedback_result r = fresh_feedback();
+    (void)state;
+    assert_int_equal(ntr_urine_feedback(h, 1, 40.0, f, 1, u, 1, 12.0, 0.25, &lim, &r), NTR_OK);
+    assert_true(r.urine_efw_ml_h == 0.0);
+    assert_true((r.flags & NTR_FB_LIMIT_AHEAD) != 0u);
+    assert_true(r.plan.first_breach_direction == NTR_PLAN_BREACH_FALL);
+    assert_int_equal(r.flags & NTR_FB_SALT_LOSS, 0u);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
         cmocka_unit_test(feedback_water_diuresis_hand_worked),
         cmocka_unit_test(feedback_over_now),
         cmocka_unit_test(feedback_efw_identity),
+        cmocka_unit_test(feedback_fall_without_urine),
         cmocka_unit_test(feedback_equals_plan_check),
         cmocka_unit_test(feedback_salt_loss),
         cmocka_unit_test(feedback_monotonic_in_urine),

@@ -395,6 +395,24 @@ static void volume_bad_inputs_leave_output_untouched(void **state)
                      NTR_ERR_NULL);
 }
 
+/* The smallest wanted rise still takes the rising branch: 1e-10 mmol/L
+ * with 3% saline (513) from 120 in 40 L needs 1e-10 * 40 / 393 L by the
+ * Adrogue-Madias formula (volume = change * TBW / (infusate - Na - change)). */
+static void volume_for_a_tiny_rise(void **state)
+{
+    double v = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_infusate_volume_for_change(120.0, 40.0, 513.0, 0.0, 1e-10, &v), NTR_OK);
+    assert_near(v, 1e-10 * 40.0 / (513.0 - 120.0 - 1e-10), 1e-24);
+    /* A tiny fall needs an infusate below the target: one a hair above
+     * sodium (headroom about +1e-10, the wrong side) is refused, however
+     * small the headroom; it must not come back as a negative volume. */
+    v = NTR_TEST_SENTINEL;
+    assert_int_equal(ntr_infusate_volume_for_change(120.0, 40.0, 120.0000000001, 0.0, -1e-12, &v),
+                     NTR_ERR_DOMAIN);
+    assert_true(v == NTR_TEST_SENTINEL);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -415,6 +433,7 @@ int main(void)
         cmocka_unit_test(volume_unreachable_targets),
         cmocka_unit_test(volume_target_outside_the_sodium_range),
         cmocka_unit_test(volume_bad_inputs_leave_output_untouched),
+        cmocka_unit_test(volume_for_a_tiny_rise),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }

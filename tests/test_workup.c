@@ -1732,6 +1732,20 @@ static void fe_uric_acid_course_bad_inputs(void **state)
                      NTR_ERR_NULL);
 }
 
+/* A zero in any place but the urine of the substance is a missing value,
+ * never a result (lib/workup.c refuses it with NTR_ERR_DOMAIN): plasma of
+ * the substance 0 would divide by zero; the output stays untouched. */
+static void fe_zero_plasma_is_refused(void **state)
+{
+    double out = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_fractional_excretion(40.0, 0.0, 8000.0, 90.0, &out), NTR_ERR_DOMAIN);
+    assert_true(out == NTR_TEST_SENTINEL);
+    assert_int_equal(ntr_fractional_excretion(40.0, 140.0, 0.0, 90.0, &out), NTR_ERR_DOMAIN);
+    assert_int_equal(ntr_fractional_excretion(40.0, 140.0, 8000.0, 0.0, &out), NTR_ERR_DOMAIN);
+    assert_true(out == NTR_TEST_SENTINEL);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -1791,6 +1805,7 @@ int main(void)
         cmocka_unit_test(fe_uric_acid_course_hand_worked_from_concentrations),
         cmocka_unit_test(fe_uric_acid_course_follows_the_class_everywhere),
         cmocka_unit_test(fe_uric_acid_course_bad_inputs),
+        cmocka_unit_test(fe_zero_plasma_is_refused),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
