@@ -353,6 +353,18 @@ SEXP r_course_assess(SEXP s_offsets, SEXP s_hours, SEXP s_na, SEXP s_limits)
     lim.max_fall_24h = lv[3];
     lim.max_fall_48h = lv[4];
     lim.min_change_24h = lv[5];
+    /* Limits the library refuses fail every group in the batch call; here
+     * they stop the call instead, found by assessing one plain sample. */
+    {
+        const ntr_sample probe = {0.0, 140.0};
+        ntr_course_report rep;
+        memset(&rep, 0, sizeof rep);
+        rep.struct_size = sizeof rep;
+        rc = ntr_course_assess(&probe, 1, &lim, &rep);
+        if (rc != NTR_OK) {
+            error("natremia: limits refused: %s", ntr_status_message(rc));
+        }
+    }
     offsets = (size_t *)R_alloc((size_t)groups + 1, sizeof *offsets);
     samples = (ntr_sample *)R_alloc(n > 0 ? (size_t)n : 1, sizeof *samples);
     reports = (ntr_course_report *)R_alloc(groups > 0 ? (size_t)groups : 1, sizeof *reports);
