@@ -3,13 +3,23 @@
 
 Every patient here is invented: the cohort is generated from a seeded
 random number generator, partition by partition, on the workers
-themselves. Low sodiums are being raised and high sodiums lowered, and
-both directions are screened: each patient is assessed against the course
-preset its goal calls for (hypo_standard when the first sodium is below
-140 mmol/L, hyper_chronic otherwise) or against one
-preset for the whole cohort (--preset). Each partition is assessed with
-one call of the C batch entry point ntr_batch_course_assess per preset
-present (through natremia.arrays), never a Python loop per patient.
+themselves. It is a dask.dataframe of long rows (patient id, hours,
+sodium, preset) partitioned by patient: every partition holds whole
+patients, a range of ids (known divisions), so ``map_partitions`` can
+assess each partition on its own and the result, one row per patient, is
+indexed by patient id. Low sodiums are being raised and high sodiums
+lowered, and both directions are screened: each patient is assessed
+against the course preset its goal calls for (hypo_standard when the first
+sodium is below 140 mmol/L, hyper_chronic otherwise) or against one preset
+for the whole cohort (--preset). Each partition is assessed with one call
+of the C batch entry point ntr_batch_course_assess per preset present
+(through natremia.arrays), never a Python loop per patient.
+
+The LocalCluster workers start without the MALLOC_TRIM_THRESHOLD_ that
+Dask's nanny otherwise sets (see local_cluster; --dask-malloc-trim keeps
+it, for comparison). With real data, read a partition per file of whole
+patients (dd.read_parquet) or set_index("patient_id") first, then apply
+the same map_partitions(assess_frame).
 
     python3 examples/cohort_dask.py                       # 1,000,000 patients, LocalCluster
     python3 examples/cohort_dask.py --patients 20000 --check-serial
@@ -18,7 +28,8 @@ present (through natremia.arrays), never a Python loop per patient.
 
 Needs the natremia Python package (bindings/python, or PYTHONPATH pointing
 at it), the C library (NATREMIA_LIBRARY, pkg-config or the loader path),
-and Debian's python3-numpy, python3-dask and python3-distributed.
+and Debian's python3-numpy, python3-pandas, python3-dask and
+python3-distributed.
 docs/bindings.md explains the multi-machine set-up.
 
 Every result is an estimate for decision support, not an order. Verify
@@ -43,6 +54,9 @@ PER_PATIENT = "per_patient"
 # Goal by the first sodium: below this (mmol/L) it is raised, else lowered.
 # The invented patients start at 105 to 130 or at 150 to 175.
 RAISE_BELOW = 140.0
+# Room for ten million patients a partition: partition i holds the ids
+# i * ID_STRIDE onwards, so the partitions are ranges of patient ids.
+ID_STRIDE = 10_000_000
 
 
 def partition_sizes(patients, partitions):
@@ -91,87 +105,163 @@ def make_partition(index, n_patients, seed):
     return counts, hours, np.round(na, 1)
 
 
-def row_presets(counts, na, preset):
-    """The preset of every row (a numpy array of names): one for all, or
-    (per_patient) the preset of the goal the patient's first sodium calls
-    for, repeated over the patient's rows."""
+def row_preset_codes(counts, na, preset):
+    """(preset names, code of every row into them): one preset for all,
+    or (per_patient) the preset of the goal the patient's first sodium
+    calls for, repeated over the patient's rows."""
     if preset != PER_PATIENT:
-        return np.full(na.size, preset)
+        return [preset], np.zeros(na.size, dtype=np.int8)
     starts = np.concatenate(([0], np.cumsum(counts)[:-1])).astype(np.intp)
-    goal = np.where(na[starts] < RAISE_BELOW, "hypo_standard", "hyper_chronic")
-    return np.repeat(goal, counts)
+    goal = np.where(na[starts] < RAISE_BELOW, 0, 1).astype(np.int8)
+    return ["hypo_standard", "hyper_chronic"], np.repeat(goal, counts)
+
+
+def partition_columns(index, n_patients, seed, preset):
+    """One invented partition as long rows: (ids, hours, na, preset names,
+    preset code per row), ids numbering the patients across the cohort
+    (partition index * ID_STRIDE onwards)."""
+    counts, hours, na = make_partition(index, n_patients, seed)
+    ids = np.repeat(index * ID_STRIDE + np.arange(counts.size), counts)
+    names, codes = row_preset_codes(counts, na, preset)
+    return ids, hours, na, names, codes
 
 
 def partition_rows(index, n_patients, seed, preset):
-    """One invented partition as long rows: (ids, hours, na, preset per
-    row), ids numbering the patients across the whole cohort."""
-    counts, hours, na = make_partition(index, n_patients, seed)
-    first_id = index * 10_000_000  # room for ten million patients a partition
-    ids = np.repeat(first_id + np.arange(counts.size), counts)
-    return ids, hours, na, row_presets(counts, na, preset)
+    """The same rows with the preset name of each row (numpy strings)."""
+    ids, hours, na, names, codes = partition_columns(index, n_patients, seed,
+                                                     preset)
+    return ids, hours, na, np.asarray(names)[codes]
 
 
-# The report fields gathered per patient.
+# The report fields kept per patient, beside the flags and the status.
 FIELDS = ("max_rise_24h", "max_fall_24h", "excess_mmol_l")
+# Columns of the per-patient result and their dtypes (Dask's "meta").
+RESULT_COLUMNS = ([("samples", "int64"), ("flags", "uint32"),
+                   ("status", "int32")] + [(f, "float64") for f in FIELDS])
 
 
-def assess_partition(index, n_patients, seed, preset):
-    """Generate and assess one partition: one C batch call per distinct
-    preset. Returns per-patient ids, flags, largest rise and fall within
-    24 h, excess over a limit and status."""
-    ids, hours, na, per_row = partition_rows(index, n_patients, seed, preset)
-    table = arrays.course_assess_table(ids=ids, hours=hours, na_mmol_l=na,
-                                       limits=per_row, errors="nan")
-    part = {"index": index, "samples": int(hours.size),
-            "id": table["id"].copy(), "flags": table["flags"].copy(),
-            "status": table["status"].copy()}
+def partition_frame(index, n_patients, seed, preset):
+    """One invented partition as a pandas DataFrame of long rows, indexed
+    by patient id (every patient's rows in this partition, in time
+    order): hours, na_mmol_l and the preset (categorical) of each row."""
+    import pandas as pd
+    ids, hours, na, names, codes = partition_columns(index, n_patients, seed,
+                                                     preset)
+    return pd.DataFrame({"hours": hours, "na_mmol_l": na,
+                         "preset": pd.Categorical.from_codes(codes, names)},
+                        index=pd.Index(ids, name="patient_id"))
+
+
+def result_meta():
+    """An empty per-patient result: the columns and dtypes map_partitions
+    returns, indexed by patient id."""
+    import pandas as pd
+    return pd.DataFrame({name: np.empty(0, dtype=dtype)
+                         for name, dtype in RESULT_COLUMNS},
+                        index=pd.Index(np.empty(0, dtype=np.int64),
+                                       name="patient_id"))
+
+
+def assess_frame(frame):
+    """Assess every patient of one partition (a pandas DataFrame of long
+    rows indexed by patient id, as partition_frame makes; "preset" a
+    categorical or string column, the same within a patient): one C batch
+    call (ntr_batch_course_assess) per preset present, no Python loop per
+    patient. Returns one row per patient, indexed by patient id in
+    increasing order, with the number of results, the flags, the status
+    (0: assessed) and FIELDS."""
+    import pandas as pd
+    if len(frame) == 0:
+        return result_meta()
+    preset = pd.Categorical(frame["preset"])
+    codes = preset.codes
+    ids = frame.index.to_numpy()
+    hours = frame["hours"].to_numpy()
+    na = frame["na_mmol_l"].to_numpy()
+    parts = []
+    for code, name in enumerate(preset.categories):
+        rows = codes == code
+        if not rows.any():
+            continue
+        table = arrays.course_assess_table(ids=ids[rows], hours=hours[rows],
+                                           na_mmol_l=na[rows],
+                                           limits=str(name), errors="nan")
+        _, first = np.unique(ids[rows], return_counts=True)
+        parts.append((table, first))
+    table = np.concatenate([t for t, _ in parts])
+    samples = np.concatenate([n for _, n in parts])
+    order = np.argsort(table["id"], kind="stable")
+    table, samples = table[order], samples[order]
+    if table.size > 1 and np.any(table["id"][1:] == table["id"][:-1]):
+        dup = table["id"][1:][table["id"][1:] == table["id"][:-1]][0]
+        raise ValueError("patient %r has rows with different presets" % dup)
+    columns = {"samples": samples.astype(np.int64),
+               "flags": table["flags"].astype(np.uint32),
+               "status": table["status"].astype(np.int32)}
     for field in FIELDS:
-        part[field] = table[field].copy()
-    return part
+        columns[field] = table[field]
+    return pd.DataFrame(columns, index=pd.Index(table["id"].astype(np.int64),
+                                                name="patient_id"))
 
 
-def combine(parts):
-    """Partition results (any order) into cohort-wide arrays, by index."""
-    parts = sorted(parts, key=lambda p: p["index"])
-    result = {"samples": sum(p["samples"] for p in parts)}
-    for key in ("id", "flags", "status") + FIELDS:
-        result[key] = np.concatenate([p[key] for p in parts])
-    return result
+def cohort(patients, partitions, seed, preset):
+    """The invented cohort as a dask.dataframe partitioned by patient:
+    partition i is generated on a worker by partition_frame(i, ...) and
+    holds whole patients, ids from i * ID_STRIDE (known divisions)."""
+    import dask.dataframe as dd
+    sizes = partition_sizes(patients, partitions)
+    divisions = [i * ID_STRIDE for i in range(partitions)]
+    divisions.append(divisions[-1] + sizes[-1] - 1)
+    meta = partition_frame(0, 1, seed, preset).iloc[:0]
+    return dd.from_map(partition_frame, range(partitions), sizes,
+                       args=(seed, preset), meta=meta, divisions=divisions,
+                       label="invented-cohort", enforce_metadata=False)
+
+
+def run_dask(patients, partitions, seed, preset):
+    """The per-patient result (pandas, indexed by patient id) computed by
+    map_partitions on the current Dask scheduler (the Client in use)."""
+    frame = cohort(patients, partitions, seed, preset)
+    return frame.map_partitions(assess_frame, meta=result_meta(),
+                                align_dataframes=False).compute()
 
 
 def run_serial(patients, partitions, seed, preset):
-    """The same computation in this process, partition after partition."""
+    """The same computation with pandas alone, partition after partition."""
+    import pandas as pd
     sizes = partition_sizes(patients, partitions)
-    return combine([assess_partition(i, n, seed, preset)
-                    for i, n in enumerate(sizes)])
-
-
-def run_dask(client, patients, partitions, seed, preset):
-    """One Dask task per partition; the workers generate and assess."""
-    sizes = partition_sizes(patients, partitions)
-    futures = client.map(assess_partition, range(partitions), sizes,
-                         [seed] * partitions, [preset] * partitions,
-                         pure=False)
-    return combine(client.gather(futures))
+    return pd.concat([assess_frame(partition_frame(i, n, seed, preset))
+                      for i, n in enumerate(sizes)])
 
 
 def same_result(a, b):
-    """Bit-for-bit equality of two combined results (NaN equal to NaN)."""
-    return (a["samples"] == b["samples"]
-            and all(np.array_equal(a[k], b[k]) for k in ("id", "flags", "status"))
-            and all(np.array_equal(a[k].view(np.uint64), b[k].view(np.uint64))
-                    for k in FIELDS))
+    """Equality of two per-patient results, bit for bit: the same patient
+    ids in the same order, the same integers, the same float bits (NaN
+    equal to NaN)."""
+    if not a.index.equals(b.index) or list(a.columns) != list(b.columns):
+        return False
+    for name, dtype in RESULT_COLUMNS:
+        x, y = a[name].to_numpy(), b[name].to_numpy()
+        if x.dtype != np.dtype(dtype) or y.dtype != np.dtype(dtype):
+            return False
+        if dtype == "float64":
+            x, y = x.view(np.uint64), y.view(np.uint64)
+        if not np.array_equal(x, y):
+            return False
+    return True
 
 
 def summary_lines(result, preset, seconds=None):
-    flags = result["flags"]
+    flags = result["flags"].to_numpy()
     patients = flags.size
     limits = ("by each patient's goal (hypo_standard when the first sodium "
               "is below %g mmol/L, else hyper_chronic)" % RAISE_BELOW
               if preset == PER_PATIENT else preset)
     lines = [
         "Invented cohort (synthetic data, no real patients): %d patients, "
-        "%d sodium results; limits %s." % (patients, result["samples"], limits),
+        "%d sodium results; limits %s." % (patients,
+                                           int(result["samples"].sum()),
+                                           limits),
     ]
     if seconds is not None:
         lines.append("Assessed in %.2f s." % seconds)
@@ -180,9 +270,14 @@ def summary_lines(result, preset, seconds=None):
         count = int(np.count_nonzero(flags & bit))
         lines.append("%-20s %10d %7.2f%%" % (name, count,
                                              100.0 * count / max(patients, 1)))
-    failed = int(np.count_nonzero(result["status"]))
-    lines.append("%-20s %10d" % ("not assessable", failed))
-    over = result["excess_mmol_l"][result["excess_mmol_l"] > 0]
+    failed = result.index[result["status"].to_numpy() != 0]
+    lines.append("%-20s %10d%s" % ("not assessable", failed.size,
+                                   "  (patient ids %s)" % ", ".join(
+                                       str(i) for i in failed[:5])
+                                   + (", ..." if failed.size > 5 else "")
+                                   if failed.size else ""))
+    excess = result["excess_mmol_l"].to_numpy()
+    over = excess[excess > 0]
     if over.size:
         lines.append("Excess over a limit (rise or fall): median %.1f, "
                      "largest %.1f mmol/L." % (float(np.median(over)),
@@ -191,14 +286,61 @@ def summary_lines(result, preset, seconds=None):
     return lines
 
 
-def local_cluster(workers, threads):
+# Dask's nanny sets MALLOC_TRIM_THRESHOLD_=65536 in every worker's
+# environment (distributed.nanny.pre-spawn-environ) to hand freed memory
+# back to the system sooner. Setting that variable at all also turns off
+# glibc's adaptive mmap threshold, so every large numpy temporary is a
+# fresh mmap that page-faults on first touch: with it, this workload took
+# 2.0 to 2.6 times the worker CPU time (tests/bench/bench_dask.py; figures
+# in docs/bindings.md).
+MALLOC_VARIABLE = "MALLOC_TRIM_THRESHOLD_"
+
+
+def worker_environ_without_trim():
+    """Dask's pre-spawn environment for workers, less MALLOC_TRIM_THRESHOLD_
+    (the other entries, such as OMP_NUM_THREADS=1, are kept)."""
+    import dask
+    environ = dict(dask.config.get("distributed.nanny.pre-spawn-environ",
+                                   default={}) or {})
+    environ.pop(MALLOC_VARIABLE, None)
+    return environ
+
+
+def environ_value(name):
+    """An environment variable of the process that runs this: give it to
+    client.run to read each worker's own (os.environ.get itself would be
+    pickled with the caller's environment)."""
+    import os
+    return os.environ.get(name)
+
+
+def local_cluster(workers, threads, dask_malloc_trim=False):
     """Worker processes on loopback only; no dashboard (it would need
-    bokeh, and nothing here serves a web page)."""
+    bokeh, and nothing here serves a web page). Without dask_malloc_trim
+    the workers start without Dask's MALLOC_TRIM_THRESHOLD_ (glibc's
+    default allocator behaviour); a value the caller's own environment
+    sets is inherited either way."""
+    import dask
     from dask.distributed import Client, LocalCluster
-    cluster = LocalCluster(n_workers=workers, threads_per_worker=threads,
-                           processes=True, host="127.0.0.1",
-                           dashboard_address=None,
-                           silence_logs=logging.ERROR)
+    import os
+    config = {} if dask_malloc_trim else {
+        "distributed.nanny.pre-spawn-environ": worker_environ_without_trim()}
+    # The nannies of a LocalCluster run in this process and write their
+    # pre-spawn environment into os.environ, where any worker started
+    # later (another cluster's) would inherit it: put ours back.
+    saved = os.environ.get(MALLOC_VARIABLE)
+    try:
+        with dask.config.set(config):
+            cluster = LocalCluster(n_workers=workers,
+                                   threads_per_worker=threads,
+                                   processes=True, host="127.0.0.1",
+                                   dashboard_address=None,
+                                   silence_logs=logging.ERROR)
+    finally:
+        if saved is None:
+            os.environ.pop(MALLOC_VARIABLE, None)
+        else:
+            os.environ[MALLOC_VARIABLE] = saved
     return cluster, Client(cluster)
 
 
@@ -221,8 +363,13 @@ def main(argv=None):
     parser.add_argument("--scheduler", metavar="ADDRESS",
                         help="use a running Dask scheduler (tcp://host:8786) "
                         "instead of a LocalCluster")
+    parser.add_argument("--dask-malloc-trim", action="store_true",
+                        help="keep Dask's MALLOC_TRIM_THRESHOLD_ in the "
+                        "LocalCluster workers (slower; for comparison)")
     parser.add_argument("--check-serial", action="store_true",
                         help="also compute serially and require equality")
+    parser.add_argument("--csv", metavar="FILE",
+                        help="also write the per-patient result as CSV")
     args = parser.parse_args(argv)
     if args.patients < 1 or args.partitions < 1:
         parser.error("--patients and --partitions must be positive")
@@ -233,10 +380,11 @@ def main(argv=None):
     if args.scheduler:
         client = Client(args.scheduler)
     else:
-        cluster, client = local_cluster(args.workers, args.threads)
+        cluster, client = local_cluster(args.workers, args.threads,
+                                        args.dask_malloc_trim)
     try:
         start = time.perf_counter()
-        result = run_dask(client, args.patients, args.partitions, args.seed,
+        result = run_dask(args.patients, args.partitions, args.seed,
                           args.preset)
         seconds = time.perf_counter() - start
     finally:
@@ -244,6 +392,8 @@ def main(argv=None):
         if cluster is not None:
             cluster.close()
     print("\n".join(summary_lines(result, args.preset, seconds)))
+    if args.csv:
+        result.to_csv(args.csv)
 
     if args.check_serial:
         serial = run_serial(args.patients, args.partitions, args.seed,
@@ -251,7 +401,8 @@ def main(argv=None):
         if not same_result(result, serial):
             print("MISMATCH: the Dask result differs from the serial one")
             return 1
-        print("Dask result equals the serial computation.")
+        print("Dask result equals the serial computation (patient ids "
+              "matched).")
     return 0
 
 

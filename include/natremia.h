@@ -116,6 +116,17 @@ NTR_API unsigned long ntr_version_number(void);
 #define NTR_ANALYTE_UREA_NITROGEN 6 /**< BUN: the 2 N of urea, 28.014 g/mol per mmol urea; mmol/L means mmol of urea */
 #define NTR_ANALYTE_CREATININE 7    /**< C4H7N3O, 113.120 g/mol */
 #define NTR_ANALYTE_ETHANOL 8       /**< C2H6O, 46.069 g/mol */
+#define NTR_ANALYTE_OSMOLALITY 9    /**< osmolality (since 1.1): mosm/kg only, converted to itself */
+#define NTR_ANALYTE_URIC_ACID 10    /**< uric acid, C5H4N4O3, 168.112 g/mol (since 1.1) */
+
+/* Specimens a LOINC code names (ntr_loinc_lookup(), since 1.1). */
+#define NTR_SPECIMEN_SERUM_PLASMA 1 /**< serum or plasma */
+#define NTR_SPECIMEN_BLOOD 2        /**< whole blood */
+#define NTR_SPECIMEN_URINE 3        /**< urine */
+
+/** Longest text ntr_unit_parse_lenient() reads, in bytes, blanks included
+ *  (since 1.1); a longer text is refused without being read further. */
+#define NTR_UNIT_TEXT_MAX 32
 
 /**
  * @brief Parse a case-sensitive UCUM unit code.
@@ -136,6 +147,142 @@ NTR_API unsigned long ntr_version_number(void);
 NTR_API int ntr_unit_parse(const char *ucum, int *unit);
 
 /**
+ * @brief Parse a unit as laboratory feeds spell it (since 1.1).
+ *
+ * The text is folded before it is matched: blanks (space, tab) around it
+ * are dropped, ASCII letters are compared without case (UCUM's
+ * case-insensitive forms are the upper-case codes), and the micro sign
+ * U+00B5 and the Greek small letter mu U+03BC, in UTF-8, read as "u".
+ * What remains must be one of these spellings (shown folded):
+ * - "mmol/l" gives @ref NTR_UNIT_MMOL_L ("mmol/L", "mmol/l", "MMOL/L")
+ * - "mg/dl" gives @ref NTR_UNIT_MG_DL ("mg/dL", "mg/dl", "MG/DL")
+ * - "meq/l" gives @ref NTR_UNIT_MEQ_L ("meq/L", "mEq/L", "MEQ/L")
+ * - "mosm/kg", "mosm/kg{h2o}", "mosm/kg h2o", "mosmol/kg",
+ *   "mosmol/kg{h2o}", "mosmol/kg h2o" give @ref NTR_UNIT_MOSM_KG
+ *   ("mOsm/kg", "mosm/kg H2O", "mOsm/kg{H2O}", "mOsmol/kg")
+ * - "g/l" gives @ref NTR_UNIT_G_L ("g/L", "g/l", "G/L")
+ * - "umol/l" gives @ref NTR_UNIT_UMOL_L ("umol/L", and with the micro sign or mu for u)
+ *
+ * Everything else is refused, in particular what could mean two things:
+ * "mosm/l" (an osmolarity, per litre of solution, not the osmolality per
+ * kg of water that @ref NTR_UNIT_MOSM_KG is), "mmol/kg" (an osmolality to
+ * some laboratories, a molality of one solute to others), "mg%" and
+ * "mg/100ml" (older spellings of mg/dL that some texts use for other
+ * quantities), blanks inside the unit other than the one before "h2o",
+ * other non-ASCII bytes (Latin-1 micro 0xB5 included: the encoding is not
+ * known) and texts longer than @ref NTR_UNIT_TEXT_MAX bytes. The strict
+ * ntr_unit_parse() is unchanged.
+ *
+ * The text is read only up to its terminating NUL, and never more than
+ * @ref NTR_UNIT_TEXT_MAX + 1 bytes.
+ *
+ * @param text  NUL-terminated unit text.
+ * @param[out] unit one of the NTR_UNIT_* values.
+ * @retval NTR_OK          parsed.
+ * @retval NTR_ERR_NULL    @p text or @p unit is NULL.
+ * @retval NTR_ERR_UNIT    not one of the spellings above.
+ *
+ * Reference: The Unified Code for Units of Measure (UCUM), Regenstrief
+ * Institute (its case-insensitive forms and the {annotation} syntax).
+ * Method: @ref NTR_METHOD_UNIT_CONVERSION.
+ */
+NTR_API int ntr_unit_parse_lenient(const char *text, int *unit);
+
+/**
+ * @brief Analyte, specimen and unit of a LOINC code (since 1.1).
+ *
+ * Only codes checked against a published source are mapped (docs/units.md
+ * lists them with their source, and the codes not mapped until checked):
+ *
+ * | code | component [property] in system | analyte | specimen | unit |
+ * |---|---|---|---|---|
+ * | 2951-2 | Sodium [Moles/volume] in Serum or Plasma | sodium | serum/plasma | mmol/L |
+ * | 2947-0 | Sodium [Moles/volume] in Blood | sodium | blood | mmol/L |
+ * | 2823-3 | Potassium [Moles/volume] in Serum or Plasma | potassium | serum/plasma | mmol/L |
+ * | 2075-0 | Chloride [Moles/volume] in Serum or Plasma | chloride | serum/plasma | mmol/L |
+ * | 2345-7 | Glucose [Mass/volume] in Serum or Plasma | glucose | serum/plasma | mg/dL |
+ * | 14749-6 | Glucose [Moles/volume] in Serum or Plasma | glucose | serum/plasma | mmol/L |
+ * | 15074-8 | Glucose [Moles/volume] in Blood | glucose | blood | mmol/L |
+ * | 14937-7 | Urea nitrogen [Moles/volume] in Serum or Plasma | urea nitrogen | serum/plasma | mmol/L |
+ * | 2160-0 | Creatinine [Mass/volume] in Serum or Plasma | creatinine | serum/plasma | mg/dL |
+ * | 14682-9 | Creatinine [Moles/volume] in Serum or Plasma | creatinine | serum/plasma | mmol/L |
+ * | 2161-8 | Creatinine [Mass/volume] in Urine | creatinine | urine | mg/dL |
+ * | 14933-6 | Urate [Moles/volume] in Serum or Plasma | uric acid | serum/plasma | mmol/L |
+ *
+ * The unit is the one the code's property implies: moles/volume gives
+ * @ref NTR_UNIT_MMOL_L, mass/volume @ref NTR_UNIT_MG_DL, osmolality
+ * @ref NTR_UNIT_MOSM_KG. It names the dimension, not the prefix the result
+ * is sent with (creatinine of 14682-9 often comes in umol/L): read the
+ * value's own unit (ntr_unit_parse_lenient()) and use this one to check
+ * that the two agree in kind. The code must be given exactly (digits, the
+ * hyphen and the check digit, no blanks); it is read up to its NUL and
+ * never more than 8 bytes (the longest code, 7 characters, and its NUL).
+ *
+ * @param code  NUL-terminated LOINC code, e.g. "2951-2".
+ * @param[out] analyte  one of NTR_ANALYTE_*.
+ * @param[out] specimen one of NTR_SPECIMEN_*.
+ * @param[out] unit     one of NTR_UNIT_*.
+ * @retval NTR_OK          found.
+ * @retval NTR_ERR_NULL    a pointer is NULL.
+ * @retval NTR_ERR_UNIT    not a code of the table (unknown, or not checked yet).
+ *
+ * Reference: LOINC, Regenstrief Institute; the codes as used in the HL7
+ * FHIR R4 published examples (hl7.fhir.r4.examples 4.0.1).
+ * Method: @ref NTR_METHOD_LOINC_MAP.
+ */
+NTR_API int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
+                             int *unit);
+
+/**
+ * @brief Glucose in mmol/L, refused when it contradicts the sodium and the
+ *        measured osmolality for the unit given (since 1.1).
+ *
+ * The glucose is converted from @p unit to mmol/L (ntr_convert()); g is
+ * the result. The osmolality that g implies is at least the
+ * Dorwart-Chalmers value without urea or ethanol (both add, never
+ * subtract): floor = 1.86*Na + g + 9. The glucose is refused with
+ * @ref NTR_ERR_UNIT when
+ * - floor > 600 mOsm/kg, the largest osmolality the library takes
+ *   (docs/ranges.md), or
+ * - an osmolality was measured and floor > measured + 20 mOsm/kg (the
+ *   tolerance, docs/ranges.md).
+ *
+ * This catches the dangerous slip, a glucose in mg/dL passed as mmol/L
+ * (150 "mmol/L" with sodium 135 implies at least 410 mOsm/kg; a measured
+ * 290 refuses it), once 17/18 of the value exceeds urea, other osmoles,
+ * the osmolal gap and the tolerance together (about 30 mg/dL with a
+ * normal urea). Without a measured osmolality it catches only values the
+ * first rule refuses: both readings of any value from 0 to 200 are then
+ * possible, and docs/units.md says why. The reverse slip (mmol/L passed
+ * as mg/dL) lowers the floor and cannot be refused: a measured
+ * osmolality far above it is what unmeasured osmoles (toxic alcohols)
+ * also give.
+ *
+ * @param glucose          the glucose in @p unit; finite, 0 to 200 mmol/L
+ *                         once converted (0 to 3603 mg/dL).
+ * @param unit             @ref NTR_UNIT_MMOL_L, @ref NTR_UNIT_MG_DL,
+ *                         @ref NTR_UNIT_G_L or @ref NTR_UNIT_UMOL_L.
+ * @param na_mmol_l        serum sodium, 80 to 220 mmol/L.
+ * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600
+ *                         mOsm/kg, or exactly 0 when not measured.
+ * @param[out] glucose_mmol_l the glucose in mmol/L.
+ * @retval NTR_OK            converted and consistent with its unit.
+ * @retval NTR_ERR_NULL      @p glucose_mmol_l is NULL.
+ * @retval NTR_ERR_UNIT      @p unit is not a glucose unit; or, after every
+ *                           range check, the rules above refuse the glucose.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its range.
+ *
+ * Reference: Dorwart WV, Chalmers L. Comparison of methods for
+ * calculating serum osmolality from chemical concentrations. Clin Chem
+ * 1975;21:190-4. The tolerance is the project's (docs/ranges.md).
+ * Method: @ref NTR_METHOD_GLUCOSE_UNIT_CHECK.
+ */
+NTR_API int ntr_glucose_unit_check(double glucose, int unit, double na_mmol_l,
+                                   double measured_osm_mosm_kg,
+                                   double *glucose_mmol_l);
+
+/**
  * @brief Convert a laboratory value of an analyte between units.
  *
  * out = value * factor(from_unit) / factor(to_unit), where the factor turns
@@ -149,15 +296,21 @@ NTR_API int ntr_unit_parse(const char *ucum, int *unit);
  * - sodium, potassium, chloride: mmol/L, meq/L, mg/dL, umol/L
  * - glucose, urea, urea nitrogen, ethanol: mmol/L, mg/dL, g/L, umol/L
  * - creatinine: mmol/L, umol/L, mg/dL, g/L
+ * - uric acid (since 1.1): mmol/L, mg/dL, g/L, umol/L
+ * - osmolality (since 1.1): mosm/kg only; mosm/kg to mosm/kg returns the
+ *   value, any other unit gives NTR_ERR_UNIT
  *
  * @param analyte   one of NTR_ANALYTE_*.
  * @param value     the value in @p from_unit; finite, 0 to 1e6.
  * @param from_unit unit of @p value (NTR_UNIT_*).
  * @param to_unit   wanted unit (NTR_UNIT_*).
  * @param[out] out  the converted value.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown analyte),
- *         NTR_ERR_UNIT (unknown unit or one the analyte does not accept),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown analyte.
+ * @retval NTR_ERR_UNIT      unknown unit or one the analyte does not accept.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: IUPAC Commission on Isotopic Abundances and Atomic Weights,
  * standard atomic weights (abridged to five significant figures).
@@ -196,8 +349,11 @@ NTR_API int ntr_convert(int analyte, double value, int from_unit, int to_unit,
  * @param ethanol_mmol_l  serum ethanol, 0 to 400 mmol/L (0 if not measured).
  * @param formula         @ref NTR_OSM_2NA or @ref NTR_OSM_DORWART_CHALMERS.
  * @param[out] mosm_kg    calculated osmolality, mOsm/kg.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown formula),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown formula.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Dorwart WV, Chalmers L. Comparison of methods for calculating
  * serum osmolality from chemical concentrations. Clin Chem 1975;21:190-4.
@@ -215,7 +371,10 @@ NTR_API int ntr_osm_calculated(double na_mmol_l, double glucose_mmol_l,
  * @param na_mmol_l      serum sodium, 80 to 220 mmol/L.
  * @param glucose_mmol_l serum glucose, 0 to 200 mmol/L.
  * @param[out] mosm_kg   effective osmolality, mOsm/kg.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Clinical practice guideline on diagnosis
  * and treatment of hyponatraemia. Eur J Endocrinol 2014;170:G1-47.
@@ -233,7 +392,10 @@ NTR_API int ntr_osm_effective(double na_mmol_l, double glucose_mmol_l,
  * @param measured_mosm_kg   measured serum osmolality, 150 to 600 mOsm/kg.
  * @param calculated_mosm_kg calculated serum osmolality, 150 to 600 mOsm/kg.
  * @param[out] gap_mosm_kg   the gap, mOsm/kg (may be negative).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: textbook definition of the osmolal gap.
  * Method: @ref NTR_METHOD_OSM_GAP.
@@ -263,7 +425,11 @@ NTR_API int ntr_osm_gap(double measured_mosm_kg, double calculated_mosm_kg,
  * @param method          @ref NTR_GLUCOSE_KATZ (factor 1.6) or
  *                        @ref NTR_GLUCOSE_HILLIER (factor 2.4).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p method is not a NTR_GLUCOSE_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Katz MA. Hyperglycemia-induced hyponatremia: calculation of
  * expected serum sodium depression. N Engl J Med 1973;289:843-4.
@@ -282,10 +448,13 @@ NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
  *
  * @param na_mmol_l            80 to 220 mmol/L.
  * @param glucose_mmol_l       0 to 200 mmol/L.
- * @param factor_per_100mg_dl  0 to 5 (published factors: 1.6 and 2.4, and
- *                             about 4.0 above 400 mg/dL, Hillier 1999).
+ * @param factor_per_100mg_dl  0 to 5 (the published factors and why 5:
+ *                             @ref sodium_page).
  * @param[out] na_corrected_mmol_l corrected sodium, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: as ntr_na_corrected_glucose().
  * Method: @ref NTR_METHOD_GLUCOSE_FACTOR.
@@ -310,8 +479,11 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  * @param na_mmol_l           current serum sodium, 80 to 220 mmol/L.
  * @param target_na_mmol_l    target serum sodium, 80 to 220 mmol/L.
  * @param[out] mmol           sodium to give, mmol.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (target below the current sodium).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    target below the current sodium.
  *
  * Reference: common practice (the sodium-deficit formula of general
  * medical texts). It ignores ongoing losses too; see ntr_balance_predict().
@@ -348,7 +520,11 @@ NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
  * @param age_years   1 to 130.
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p sex is not a NTR_SEX_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9.
@@ -380,9 +556,14 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  * @param height_cm   30 to 275.
  * @param weight_kg   0.3 to 650.
  * @param[out] litres total body water, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE,
- *         NTR_ERR_RANGE, NTR_ERR_DOMAIN (the result is below 20% or above
- *         80% of the weight, or below 0.1 L; 1.0 refused only 0 L or less).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p sex is not a NTR_SEX_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the result is below 20% or above 80% of the
+ *                           weight, or below 0.1 L; 1.0 refused only 0 L or
+ *                           less.
  *
  * Reference: Watson PE, Watson ID, Batt RD. Total body water volumes for
  * adult males and females estimated from simple anthropometric
@@ -400,8 +581,11 @@ NTR_API int ntr_tbw_watson(int sex, double age_years, double height_cm,
  * @param tbw_l       total body water, 0.1 to 400 L.
  * @param na_mmol_l   serum sodium, 80 to 220 mmol/L.
  * @param[out] litres water deficit, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (sodium below 140: there is no water deficit).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    sodium below 140: there is no water deficit.
  *
  * Reference: the textbook water-deficit formula (common practice); for the
  * choice of infusate see Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med
@@ -436,7 +620,9 @@ NTR_API int ntr_free_water_deficit(double tbw_l, double na_mmol_l,
  * @param fluid       one of NTR_FLUID_*.
  * @param[out] na_mmol_l sodium of the infusate, mmol/L.
  * @param[out] k_mmol_l  potassium of the infusate, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p fluid is not a NTR_FLUID_* value.
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9 (table of infusates).
@@ -454,10 +640,14 @@ NTR_API int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
  * @param infusate_na_mmol_l 0 to 1100 mmol/L.
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param[out] delta_mmol_l  expected change, mmol/L (negative: a fall).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the sodium after, Na + delta, would lie outside
- *         80 to 220 mmol/L, or the body water after, TBW + 1, above 400 L:
- *         the rule ntr_balance_predict() applies to the same 1 L; since 1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the sodium after, Na + delta, would lie outside 80
+ *                           to 220 mmol/L, or the body water after, TBW + 1,
+ *                           above 400 L: the rule ntr_balance_predict()
+ *                           applies to the same 1 L; since 1.1.
  *
  * Reference: Adrogue HJ, Madias NE. Hyponatremia. N Engl J Med
  * 2000;342:1581-9.
@@ -483,12 +673,15 @@ NTR_API int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param volume_l           volume given, 0 to 20 L.
  * @param[out] delta_mmol_l  expected change, mmol/L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the sodium after would lie outside 80 to
- *         220 mmol/L, or the body water after outside 0.1 to 400 L:
- *         exactly what ntr_balance_predict() refuses for the same flow;
- *         since 1.1, where 1.0 answered, e.g. 264 mmol/L for 20 L of 3%
- *         saline on 140 and 40 L).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the sodium after would lie outside 80 to 220
+ *                           mmol/L, or the body water after outside 0.1 to 400
+ *                           L: exactly what ntr_balance_predict() refuses for
+ *                           the same flow; since 1.1, where 1.0 answered, e.g.
+ *                           264 mmol/L for 20 L of 3% saline on 140 and 40 L.
  *
  * Reference: derived from the Adrogue-Madias mass balance
  * (N Engl J Med 2000;342:1581-9).
@@ -511,12 +704,16 @@ NTR_API int ntr_infusate_change(double na_mmol_l, double tbw_l,
  * @param infusate_k_mmol_l  0 to 400 mmol/L.
  * @param target_delta_mmol_l wanted change, -50 to 50 mmol/L.
  * @param[out] volume_l      volume needed, L (0 when the target is 0).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the target sodium Na + delta lies outside 80 to
- *         220 mmol/L, as ntr_relower_estimate() refuses a target below 80;
- *         the infusate cannot move sodium that far in that direction; the
- *         volume would exceed 20 L; or ntr_infusate_change() would refuse
- *         the volume found. The first and last since 1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the target sodium Na + delta lies outside 80 to
+ *                           220 mmol/L, as ntr_relower_estimate() refuses a
+ *                           target below 80; the infusate cannot move sodium
+ *                           that far in that direction; the volume would
+ *                           exceed 20 L; or ntr_infusate_change() would refuse
+ *                           the volume found. The first and last since 1.1.
  *
  * Unlike the sodium-deficit step (ntr_na_deficit() divided by the
  * infusate's sodium), this counts the water the infusate brings: on the
@@ -559,7 +756,10 @@ NTR_API int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
  * @param urine_k_mmol_l   0 to 300 mmol/L.
  * @param serum_na_mmol_l  80 to 220 mmol/L.
  * @param[out] ratio       dimensionless.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Furst H, Hallows KR, Post J, et al. The urine/plasma
  * electrolyte ratio: a predictive guide to water restriction. Am J Med Sci
@@ -586,7 +786,10 @@ NTR_API int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
  *
  * @param ratio       0 to 20.
  * @param[out] advice one of NTR_RESTRICT_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Furst et al., Am J Med Sci 2000;319:240-4. Verbalis JG et al.
  * Diagnosis, evaluation, and treatment of hyponatremia: expert panel
@@ -606,7 +809,10 @@ NTR_API int ntr_restriction_from_ratio(double ratio, int *advice);
  * @param urine_k_mmol_l   0 to 300 mmol/L.
  * @param serum_na_mmol_l  80 to 220 mmol/L.
  * @param[out] litres      free water cleared over the same period, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: standard renal physiology (for example Rose BD, Post TW.
  * Clinical Physiology of Acid-Base and Electrolyte Disorders, 5th ed.).
@@ -651,9 +857,12 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
  *                           (about 600-900 on a usual diet).
  * @param urine_osm_mosm_kg  urine osmolality, 10 to 2000 mOsm/kg.
  * @param[out] urine_l_day   urine volume, L/day.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the volume would exceed 30 L/day, the largest
- *         urine volume the library accepts anywhere).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the volume would exceed 30 L/day, the largest
+ *                           urine volume the library accepts anywhere.
  *
  * Reference: Berl T. Impact of solute intake on urine flow and water
  * excretion. J Am Soc Nephrol 2008;19:1076-8.
@@ -696,8 +905,11 @@ NTR_API int ntr_urine_volume_from_solute(double solute_mosm_day,
  * @param insensible_l_day   net insensible loss (skin and breath minus
  *                           water of metabolism), 0 to 10 L/day.
  * @param[out] intake_l_day  the allowance, L/day; may be negative.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the urine volume would exceed 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the urine volume would exceed 30 L/day.
  *
  * References: Berl T, J Am Soc Nephrol 2008;19:1076-8 (urine volume from
  * solute). Furst H et al., Am J Med Sci 2000;319:240-4 (the ratio).
@@ -727,8 +939,11 @@ NTR_API int ntr_fluid_allowance(double solute_mosm_day,
  * @param solute      NTR_SOLUTE_UREA or NTR_SOLUTE_NACL.
  * @param grams       the dose, 0 to 200 g.
  * @param[out] mosm   its osmoles, mOsm.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown solute.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: IUPAC standard atomic weights (abridged, Commission on
  * Isotopic Abundances and Atomic Weights); Berl T, J Am Soc Nephrol
@@ -765,9 +980,13 @@ NTR_API int ntr_solute_dose_osmoles(int solute, double grams, double *mosm);
  * @param serum_na_mmol_l   80 to 220 mmol/L.
  * @param insensible_l_day  0 to 10 L/day.
  * @param[out] intake_l_day the allowance with the dose, L/day; may be negative.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the urine
- *         volume, before or with the dose, would exceed 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown solute.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the urine volume, before or with the dose, would
+ *                           exceed 30 L/day.
  *
  * References: Berl T, J Am Soc Nephrol 2008;19:1076-8; as
  * ntr_fluid_allowance().
@@ -801,9 +1020,13 @@ NTR_API int ntr_fluid_allowance_with_dose(int solute, double grams_day,
  * @param target_intake_l_day the daily fluid intake to allow, above 0 and
  *                            at most 10 L/day (for example 1).
  * @param[out] grams_day      the daily dose, g/day (0 when none is needed).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown solute),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the dose would
- *         exceed 200 g/day, or the urine volume 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown solute.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the dose would exceed 200 g/day, or the urine
+ *                           volume 30 L/day.
  *
  * @warning An estimate for decision support, not an order: doses are
  * limited by tolerance and local protocol, and the sodium must be measured.
@@ -890,9 +1113,12 @@ typedef struct ntr_outlook {
  * @param insensible_l_day    0 to 10 L/day.
  * @param target_intake_l_day above 0 and at most 10 L/day (for example 1).
  * @param[out] out            the outlook; set out->struct_size first.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (struct_size too small),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_DOMAIN (the urine
- *         volume would exceed 30 L/day).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       struct_size too small.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the urine volume would exceed 30 L/day.
  *
  * @warning An estimate for decision support, not an order.
  *
@@ -948,7 +1174,10 @@ NTR_API int ntr_restriction_outlook(double solute_mosm_day,
  *
  * @param na_mmol_l     serum sodium, 80 to 220 mmol/L.
  * @param[out] severity one of NTR_SEVERITY_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
  * (classification by biochemical severity).
@@ -978,7 +1207,10 @@ NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
  *
  * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg.
  * @param[out] tonicity        one of NTR_TONICITY_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
  * Method: @ref NTR_METHOD_TONICITY_CLASS.
@@ -1035,8 +1267,11 @@ NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
  * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
  * @param[out] tonicity        one of NTR_TONICITY_*.
  * @param[out] flags           a combination of NTR_LOW_NA_* bits.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown glucose method.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47
  * (exclusion of non-hypotonic hyponatraemia); Katz 1973; Hillier et al.
@@ -1089,7 +1324,10 @@ NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
  * @param measured_osm_mosm_kg measured serum osmolality, 150 to 600 mOsm/kg,
  *                             from the same sample.
  * @param[out] mosm_kg         effective osmolality, mOsm/kg.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6 and
  * Milionis HJ et al. CMAJ 2002;166:1056-62 (a normal measured osmolality
@@ -1144,8 +1382,11 @@ NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
  * @param glucose_method       @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
  * @param[out] tonicity        one of NTR_TONICITY_*, of the effective value.
  * @param[out] flags           a combination of NTR_LOW_NA_* bits.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown glucose method),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown glucose method.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Oster JR, Singer I. Arch Intern Med 1999;159:333-6;
  * Milionis HJ et al. CMAJ 2002;166:1056-62; Spasovski G et al. Eur J
@@ -1175,7 +1416,10 @@ NTR_API int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_
  *
  * @param urine_osm_mosm_kg urine osmolality, 10 to 2000 mOsm/kg.
  * @param[out] dilute       1 or 0.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: common practice; the same cut-off is the European guideline's
  * (Spasovski G et al. 2014) first urine step.
@@ -1194,7 +1438,10 @@ NTR_API int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute);
  *
  * @param urine_na_mmol_l urine sodium, 0 to 500 mmol/L.
  * @param[out] high       1 or 0.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
  * Method: @ref NTR_METHOD_URINE_NA_HIGH.
@@ -1217,11 +1464,15 @@ NTR_API int ntr_urine_na_high(double urine_na_mmol_l, int *high);
  * @param urine_creatinine  urine creatinine, 0 to 1e6.
  * @param plasma_creatinine plasma creatinine, 0 to 1e6.
  * @param[out] percent      fractional excretion, %.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (@p plasma_x, @p urine_creatinine or
- *         @p plasma_creatinine is 0: nothing filtered or no clearance
- *         marker, so the fraction has no meaning; or denominators so close
- *         to 0 that the quotient is not a finite double).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    @p plasma_x, @p urine_creatinine or
+ *                           @p plasma_creatinine is 0: nothing filtered or no
+ *                           clearance marker, so the fraction has no meaning;
+ *                           or denominators so close to 0 that the quotient is
+ *                           not a finite double.
  *
  * Reference: standard renal physiology (clearance of x over clearance of
  * creatinine); the SIAD cut-offs for sodium, urea and uric acid are in
@@ -1352,7 +1603,8 @@ typedef struct ntr_siad_result {
 /**
  * @brief Mark every finding "not known" and set @c struct_size.
  * @param[out] findings the struct to initialise.
- * @retval NTR_OK, NTR_ERR_NULL.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
  * Reference: none (initialiser). Method: @ref NTR_METHOD_SIAD_CRITERIA.
  */
 NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
@@ -1394,7 +1646,12 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  *
  * @param findings     the findings (see ntr_siad_findings for ranges).
  * @param[out] result  verdict and per-criterion masks.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       a @c struct_size too small, a @c known flag or
+ *                           an enumerator not one of its values.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47, table
  * of diagnostic criteria for SIAD, adapted there from Schwartz WB, Bennett
@@ -1443,7 +1700,10 @@ NTR_API int ntr_siad_evaluate(const ntr_siad_findings *findings,
  * @param fe_uric_acid_percent fractional uric acid excretion at the low
  *                             sodium, 0 to 200 %.
  * @param[out] fe_class        one of NTR_FE_URIC_ACID_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7 (both
  * cut-offs, in hyponatraemic patients);
@@ -1500,7 +1760,10 @@ NTR_API int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class);
  * @param na_corrected_mmol_l  serum sodium when the second value was
  *                             measured, 80 to 220 mmol/L.
  * @param[out] course          one of NTR_URIC_ACID_COURSE_*.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: Fenske W et al. J Clin Endocrinol Metab 2008;93:2991-7 (the
  * 8 % and 12 % edges at a low sodium); Maesaka JK et al., on telling SIAD
@@ -1512,6 +1775,86 @@ NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
                                               double fe_corrected_percent,
                                               double na_corrected_mmol_l,
                                               int *course);
+/** @} */
+
+/* ======================================================================= */
+/* ==== section: input ranges (lib/ranges.c, docs/ranges.md) ============= */
+/* ======================================================================= */
+
+/** @defgroup ranges Input ranges
+ *  The accepted range of each kind of numeric input, so that a form can
+ *  check a value before the call and a binding can name the input that
+ *  failed and the range it has to be in. The values are the ones the
+ *  computing functions test (NTR_ERR_RANGE outside them); docs/ranges.md
+ *  says where each comes from. A value inside its range can still be
+ *  refused with NTR_ERR_DOMAIN when it does not fit the other inputs.
+ *  Kinds are numbered from 1 without gaps; later versions only add kinds
+ *  at the end, so a caller may walk them until NTR_ERR_ARG.
+ *  @{ */
+#define NTR_INPUT_NA 1               /**< serum sodium (also a target sodium), mmol/L */
+#define NTR_INPUT_GLUCOSE 2          /**< serum glucose, mmol/L */
+#define NTR_INPUT_UREA 3             /**< serum urea, mmol/L */
+#define NTR_INPUT_ETHANOL 4          /**< serum ethanol, mmol/L */
+#define NTR_INPUT_OSMOLALITY 5       /**< serum osmolality, measured or calculated, mOsm/kg */
+#define NTR_INPUT_AGE_FRACTION 6     /**< age in ntr_tbw_fraction(), years */
+#define NTR_INPUT_AGE_WATSON 7       /**< age in ntr_tbw_watson() (adults), years */
+#define NTR_INPUT_HEIGHT 8           /**< height, cm */
+#define NTR_INPUT_WEIGHT 9           /**< body weight, kg */
+#define NTR_INPUT_TBW 10             /**< total body water, L */
+#define NTR_INPUT_INFUSATE_NA 11     /**< sodium of an infusate or flow, mmol/L */
+#define NTR_INPUT_INFUSATE_K 12      /**< potassium of an infusate or flow, mmol/L */
+#define NTR_INPUT_VOLUME 13          /**< volume of one infusion, L */
+#define NTR_INPUT_DELTA 14           /**< a wanted signed change of sodium, mmol/L */
+#define NTR_INPUT_URINE_NA 15        /**< urine sodium, mmol/L */
+#define NTR_INPUT_URINE_K 16         /**< urine potassium, mmol/L */
+#define NTR_INPUT_URINE_VOLUME 17    /**< urine volume (in ntr_efwc(), a day's urine), L */
+#define NTR_INPUT_URINE_OSM 18       /**< urine osmolality, mOsm/kg */
+#define NTR_INPUT_RATIO 19           /**< Furst ratio given to ntr_restriction_from_ratio() */
+#define NTR_INPUT_GLUCOSE_FACTOR 20  /**< factor of ntr_na_corrected_glucose_factor(), mmol/L per 100 mg/dL */
+#define NTR_INPUT_CONVERT_VALUE 21   /**< the value given to ntr_convert(), in its own unit */
+#define NTR_INPUT_HOURS 22           /**< time of a sodium sample, h (any origin) */
+#define NTR_INPUT_LIMIT 23           /**< a field of ntr_limits or ntr_course_limits, mmol/L */
+#define NTR_INPUT_FLOW_RATE 24       /**< signed rate of a timed flow, mL/h */
+#define NTR_INPUT_URINE_RATE 25      /**< a urine (or saline) rate given alone, mL/h */
+#define NTR_INPUT_PLAN_HOURS 26      /**< flow and interval times, h; also a plan's length, which must be above 0 */
+#define NTR_INPUT_PLAN_STEP 27       /**< plan step, re-lowering or lowering period, h */
+#define NTR_INPUT_FLOW_VOLUME 28     /**< signed volume of a gain or loss in ntr_balance_predict(), L */
+#define NTR_INPUT_URINE_ML 29        /**< volume of one measured urine interval, mL */
+#define NTR_INPUT_URIC_ACID 30       /**< serum uric acid, mmol/L */
+#define NTR_INPUT_FE_PERCENT 31      /**< a fractional excretion given as input, % */
+#define NTR_INPUT_FE_VALUE 32        /**< a concentration given to ntr_fractional_excretion() */
+#define NTR_INPUT_SOLUTE_MOSM_DAY 33 /**< osmoles excreted per day, mOsm/day */
+#define NTR_INPUT_INSENSIBLE_L_DAY 34 /**< net insensible loss, L/day */
+#define NTR_INPUT_SOLUTE_GRAMS 35    /**< a daily dose of urea or NaCl, g */
+#define NTR_INPUT_INTAKE_L_DAY 36    /**< a target fluid intake, L/day, above the lower end (0 itself is refused) */
+#define NTR_INPUT_RELOWER_MARGIN 37  /**< margin below a limit when re-lowering, mmol/L */
+#define NTR_INPUT_INSENSIBLE_ML_H 38 /**< insensible water loss in ntr_hyper_lower_plan(), mL/h */
+#define NTR_INPUT_CHANGE 39          /**< the size of a change (a fall, a rise aimed at, a lowering), mmol/L, above the lower end (0 itself is refused) */
+
+/**
+ * @brief The accepted range of one kind of numeric input.
+ *
+ * Writes the smallest and the largest value a computing function accepts
+ * for an input of kind @p kind. Both ends are accepted, except the lower
+ * end 0 of @ref NTR_INPUT_INTAKE_L_DAY and of @ref NTR_INPUT_CHANGE (no
+ * intake, or no change, is refused; any value above 0 is taken). A finite
+ * value outside the range gives NTR_ERR_RANGE, a NaN or infinity
+ * NTR_ERR_NONFINITE.
+ * No arithmetic: the values are the library's own range constants, the
+ * ones every function checks against (docs/ranges.md gives the source of
+ * each).
+ *
+ * @param kind      one of NTR_INPUT_* (1 to 39 in this version).
+ * @param[out] min  smallest accepted value, in the unit named by the kind.
+ * @param[out] max  largest accepted value, in the same unit.
+ * @retval NTR_OK        both ends written.
+ * @retval NTR_ERR_NULL  @p min or @p max is NULL.
+ * @retval NTR_ERR_ARG   @p kind is not an NTR_INPUT_* value.
+ *
+ * On error nothing is written. Reference: docs/ranges.md (the library's
+ * plausibility nets; not clinical limits). Method: none.
+ */
+NTR_API int ntr_input_range(int kind, double *min, double *max);
 /** @} */
 
 /* ======================================================================= */
@@ -2090,7 +2433,9 @@ typedef struct ntr_correction {
  *
  * @param preset   @ref NTR_LIMITS_STANDARD or @ref NTR_LIMITS_HIGH_RISK.
  * @param[out] out the limits.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (unknown preset).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown preset.
  *
  * References: Verbalis JG et al. Diagnosis, evaluation, and treatment of
  * hyponatremia: expert panel recommendations. Am J Med 2013;126(10 Suppl
@@ -2118,8 +2463,11 @@ NTR_API int ntr_limits_preset(int preset, ntr_limits *out);
  * @param[out] drivers  NTR_ODS_* bits of the factors known to be present
  *                      (including @ref NTR_ODS_NA_105).
  * @param[out] unknowns NTR_ODS_* bits of the factors not known.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (a factor is not an NTR_TRI_*
- *         value), NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       a factor is not an NTR_TRI_* value.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * Reference: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42
  * (risk factors for osmotic demyelination).
@@ -2162,7 +2510,7 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  * @param lim limits: max_rise_24h and max_rise_48h above 0 and at most 50,
  *            max_rise_24h <= max_rise_48h, 0 <= min_rise_24h <= max_rise_24h.
  * @param[out] out the assessment.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p s, @p lim or @p out is NULL.
  * @retval NTR_ERR_ARG       @p n is 0.
  * @retval NTR_ERR_NONFINITE a sample or limit is NaN or infinite.
@@ -2228,7 +2576,10 @@ typedef struct ntr_watch {
  *
  * @param lim    limits, checked as in ntr_correction_assess().
  * @param[out] w the state to initialise.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: as ntr_correction_assess().
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
@@ -2248,12 +2599,15 @@ NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  * @param hours     time of the result, -1e6 to 1e6, not before the last one.
  * @param na_mmol_l serum sodium, 80 to 220 mmol/L.
  * @param[out] out  the assessment of the series so far.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       @p w was not initialised, or is damaged (an
  *         impossible count or index, or, since 1.1, a stored number that is
  *         NaN, infinite or out of its range).
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours or
+ *                           @p na_mmol_l.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours
+ *                           or @p na_mmol_l.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  * @retval NTR_ERR_CAPACITY  the series rises so steadily and densely that
  *         more than @ref NTR_WATCH_CAPACITY samples would have to be kept;
@@ -2271,9 +2625,10 @@ NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
  *
  * @param w        a state from ntr_watch_init() with at least one result.
  * @param[out] out the assessment (as the last ntr_watch_push() returned).
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (not initialised, damaged as for ntr_watch_push(), or
- *         no result pushed yet).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       not initialised, damaged as for ntr_watch_push(),
+ *                           or no result pushed yet.
  *
  * References: as ntr_correction_assess().
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
@@ -2418,7 +2773,9 @@ typedef struct ntr_course_report {
  *
  * @param preset   NTR_COURSE_*.
  * @param[out] out the limits, struct_size set.
- * @retval NTR_OK, NTR_ERR_NULL (@p out), NTR_ERR_ARG (unknown preset).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL (@p out).
+ * @retval NTR_ERR_ARG       unknown preset.
  *
  * References: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42;
  * Spasovski G et al., Eur J Endocrinol 2014;170:G1-47; Adrogue HJ, Madias
@@ -2472,7 +2829,7 @@ NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
  * @param n   number of samples, at least 1.
  * @param lim limits (see ntr_course_limits for the accepted values).
  * @param[in,out] out the assessment; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p s, @p lim or @p out is NULL.
  * @retval NTR_ERR_ARG       @p n is 0, lim->struct_size or out->struct_size
  *                           is smaller than the 1.1 size, or lim->goal is
@@ -2553,9 +2910,12 @@ typedef struct ntr_course_watch {
  *
  * @param lim    limits, checked as in ntr_course_assess().
  * @param[out] w the state to initialise.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (lim->struct_size below the 1.1 size, or an unknown
- *         goal), NTR_ERR_NONFINITE, NTR_ERR_RANGE.
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       lim->struct_size below the 1.1 size, or an unknown
+ *                           goal.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
  *
  * References: as ntr_course_assess().
  * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
@@ -2596,12 +2956,15 @@ NTR_API int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch
  * @param na_mmol_l serum sodium, 80 to 220 mmol/L.
  * @param[in,out] out the assessment of the series so far; struct_size set
  *                  by the caller, as for ntr_course_assess().
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       out->struct_size below the 1.1 size, or @p w
  *         was not initialised or is damaged (an impossible count or index,
  *         or a stored number that is NaN, infinite or out of its range).
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours or @p na_mmol_l.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours or
+ *                           @p na_mmol_l.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours
+ *                           or @p na_mmol_l.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  *
  * References: as ntr_course_assess().
@@ -2636,13 +2999,16 @@ NTR_API int ntr_course_watch_push(ntr_course_watch *w, double hours,
  * @param glucose_mmol_l plasma glucose of the same sample, 0 to 200 mmol/L.
  * @param glucose_method @ref NTR_GLUCOSE_KATZ or @ref NTR_GLUCOSE_HILLIER.
  * @param[in,out] out    as ntr_course_watch_push().
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       unknown @p glucose_method, then as
  *         ntr_course_watch_push() (out->struct_size, state not sound).
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  @p hours, @p na_mmol_l,
- *         @p glucose_mmol_l in that order; NTR_ERR_RANGE also when the
- *         corrected sodium is above 220 mmol/L.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours,
+ *                           @p na_mmol_l, @p glucose_mmol_l in that order.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours,
+ *                           @p na_mmol_l, @p glucose_mmol_l in that order;
+ *                           also when the corrected sodium is above
+ *                           220 mmol/L.
  * @retval NTR_ERR_ORDER     @p hours is before the previous result.
  *
  * References: Katz MA, N Engl J Med 1973;289:843-4; Hillier TA et al.,
@@ -2660,9 +3026,11 @@ NTR_API int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours,
  * @param w        a state from ntr_course_watch_init() with at least one result.
  * @param[in,out] out the assessment (as the last ntr_course_watch_push()
  *                 returned); struct_size set by the caller.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (out->struct_size below the 1.1 size; @p w not
- *         initialised, damaged, or with no result pushed yet).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       out->struct_size below the 1.1 size; @p w not
+ *                           initialised, damaged, or with no result pushed
+ *                           yet.
  *
  * References: as ntr_course_assess().
  * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
@@ -2773,11 +3141,15 @@ typedef struct ntr_course_plan_result {
  * @param n         number of flows (0 gives the inputs back).
  * @param[out] na_out  sodium after, mmol/L.
  * @param[out] tbw_out body water after, L.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (body water after outside 0.1 to 400 L, or sodium
- *         after outside 80 to 220 mmol/L: the model no longer applies, and
- *         no function would take that state as input. The infusate and
- *         re-lowering functions apply the same rule; 400 L since 1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    body water after outside 0.1 to 400 L, or sodium
+ *                           after outside 80 to 220 mmol/L: the model no
+ *                           longer applies, and no function would take that
+ *                           state as input. The infusate and re-lowering
+ *                           functions apply the same rule; 400 L since 1.1.
  *
  * References: Edelman IS, Leibman J, O'Meara MP, Birkenfeld LW. Interrelations
  * between serum sodium concentration, serum osmolarity and total
@@ -2812,12 +3184,15 @@ NTR_API int ntr_balance_predict(double na_mmol_l, double tbw_l,
  * @param capacity   number of ntr_sample the buffer holds.
  * @param[out] count points written; with NTR_ERR_CAPACITY, the number
  *                   needed (the only output written on an error).
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p count is NULL, or @p series with a capacity,
  *                           or @p flows with flows to read.
  * @retval NTR_ERR_ARG       a flow's reserved field is not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input (in argument order;
- *                           each flow's fields in struct order).
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input (in argument
+ *                           order; each flow's fields in struct order).
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input
+ *                           (in argument order; each flow's fields in struct
+ *                           order).
  * @retval NTR_ERR_ORDER     a flow ends before it starts.
  * @retval NTR_ERR_CAPACITY  @p capacity is below the count needed.
  * @retval NTR_ERR_DOMAIN    a point leaves the model's range (as in
@@ -2860,10 +3235,14 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  * @param lim       limits, as in ntr_correction_assess().
  * @param[out] out  the verdict; out->course.flags tells whether and which
  *                  limit is breached, breach_24h_h / breach_48h_h when.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (n_history 0, or a reserved
- *         field not 0), NTR_ERR_NONFINITE, NTR_ERR_RANGE, NTR_ERR_ORDER
- *         (history out of time order, or a flow ending before it starts),
- *         NTR_ERR_DOMAIN (as ntr_balance_course()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       n_history 0, or a reserved field not 0.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_ORDER     history out of time order, or a flow ending before
+ *                           it starts.
+ * @retval NTR_ERR_DOMAIN    as ntr_balance_course().
  * Checks run: pointers, counts and reserved fields, history, tbw, flows,
  * duration, step, limits, time order, domain.
  *
@@ -2906,17 +3285,21 @@ NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
  * @param step_h    spacing of the predicted points, 1/60 to 720 h.
  * @param lim       course limits, as in ntr_course_assess().
  * @param[in,out] out the verdict; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p history, @p lim or @p out is NULL, or
  *                           @p flows with flows to read.
  * @retval NTR_ERR_ARG       @p n_history is 0, lim->struct_size or
  *                           out->struct_size is below the 1.1 size,
  *                           lim->goal is not an NTR_GOAL_* value, or a
  *                           flow's reserved field is not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history (each sample:
- *                           hours, sodium), body water, flows (each in
- *                           struct order), duration, step, then the limits
- *                           (as in ntr_course_assess()).
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input: history
+ *                           (each sample: hours, sodium), body water, flows
+ *                           (each in struct order), duration, step, then the
+ *                           limits (as in ntr_course_assess()).
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input:
+ *                           history (each sample: hours, sodium), body water,
+ *                           flows (each in struct order), duration, step, then
+ *                           the limits (as in ntr_course_assess()).
  * @retval NTR_ERR_ORDER     history out of time order, or a flow ending
  *                           before it starts.
  * @retval NTR_ERR_DOMAIN    a predicted point leaves the model's range (as
@@ -2962,14 +3345,18 @@ NTR_API int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
  * @param urine_k_mmol_l   0 to 300 mmol/L.
  * @param[out] volume_l    volume of fluid to give over @p hours, L.
  * @param[out] rate_ml_h   the same as a rate, mL/h.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the fluid's sodium + potassium is not below the
- *         target, the target is below 80 mmol/L, the volume would exceed
- *         20 L, the rate would exceed 5000 mL/h (what a timed flow takes),
- *         or the plan's end state is one ntr_balance_predict() refuses:
- *         body water outside 0.1 to 400 L, or, when the losses alone
- *         overshoot, sodium below 80. The rate and end-state rules since
- *         1.1).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the fluid's sodium + potassium is not below the
+ *                           target, the target is below 80 mmol/L, the volume
+ *                           would exceed 20 L, the rate would exceed 5000 mL/h
+ *                           (what a timed flow takes), or the plan's end state
+ *                           is one ntr_balance_predict() refuses: body water
+ *                           outside 0.1 to 400 L, or, when the losses alone
+ *                           overshoot, sodium below 80. The rate and end-state
+ *                           rules since 1.1.
  *
  * @warning An estimate for decision support, not an order: re-lowering
  * needs frequent measured sodium and specialist judgement.
@@ -3101,14 +3488,17 @@ typedef struct ntr_urine_feedback_result {
  * @param step_h    spacing of the predicted points, 1/60 to 720 h.
  * @param lim       course limits, as in ntr_course_assess().
  * @param[in,out] out the result; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      a pointer is NULL (@p flows only with flows to read).
  * @retval NTR_ERR_ARG       @p n_history or @p n_urine is 0, a struct_size
  *                           below the 1.1 size, lim->goal unknown, or a
  *                           reserved field not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history, body water,
- *                           flows, intervals (each in struct order), horizon,
- *                           step, limits.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input: history,
+ *                           body water, flows, intervals (each in struct
+ *                           order), horizon, step, limits.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input:
+ *                           history, body water, flows, intervals (each in
+ *                           struct order), horizon, step, limits.
  * @retval NTR_ERR_ORDER     history out of time order, a flow ending before
  *                           it starts, an interval shorter than a minute or
  *                           starting before the previous one ends.
@@ -3145,10 +3535,14 @@ NTR_API int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
  *
  * @param urine     the interval (ranges in ntr_urine_interval).
  * @param[out] flow the timed flow (reserved fields 0).
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (a reserved field not 0),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (a member, in struct order),
- *         NTR_ERR_ORDER (shorter than a minute), NTR_ERR_DOMAIN (rate above
- *         5000 mL/h).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       a reserved field not 0.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (a member,
+ *                           in struct order).
+ * @retval NTR_ERR_ORDER     shorter than a minute.
+ * @retval NTR_ERR_DOMAIN    rate above 5000 mL/h.
  *
  * References: mass balance as ntr_balance_course().
  * Method: @ref NTR_METHOD_URINE_FEEDBACK.
@@ -3229,12 +3623,16 @@ typedef struct ntr_fit {
  *                    history[0]; may be NULL when @p n_flows is 0.
  * @param n_flows     number of flows.
  * @param[in,out] out the fit; struct_size set by the caller.
- * @retval NTR_OK
+ * @retval NTR_OK            success; the outputs were written.
  * @retval NTR_ERR_NULL      @p history or @p out is NULL, or @p flows with flows to read.
  * @retval NTR_ERR_ARG       @p n below 3, out->struct_size below the 1.1
  *                           size, or a flow's reserved field not 0.
- * @retval NTR_ERR_NONFINITE, NTR_ERR_RANGE  an input: history (each sample:
- *                           hours, sodium), guess, flows (each in struct order).
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite: an input: history
+ *                           (each sample: hours, sodium), guess, flows (each
+ *                           in struct order).
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range: an input:
+ *                           history (each sample: hours, sodium), guess, flows
+ *                           (each in struct order).
  * @retval NTR_ERR_ORDER     history out of time order, or a flow ending
  *                           before it starts.
  * @retval NTR_ERR_DOMAIN    the last sample more than 720 h after the first;
@@ -3276,13 +3674,18 @@ NTR_API int ntr_course_fit(const ntr_sample *history, size_t n,
  * @param lim       course limits, as in ntr_course_assess().
  * @param[in,out] out the verdict, as ntr_course_plan_check()'s (breach times
  *                  hours after the last sample); struct_size set by the caller.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_ARG (@p n 0, a struct_size below
- *         the 1.1 size, lim->goal unknown, a reserved field not 0),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (history, fit's body water and
- *         loss, flows, duration, step, limits), NTR_ERR_ORDER,
- *         NTR_ERR_DOMAIN (the last sample more than 720 h after the first,
- *         or a point, the body water at the last sample included, leaving
- *         the model's range).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       @p n 0, a struct_size below the 1.1 size,
+ *                           lim->goal unknown, a reserved field not 0.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (history,
+ *                           fit's body water and loss, flows, duration, step,
+ *                           limits).
+ * @retval NTR_ERR_ORDER     the series is out of time order.
+ * @retval NTR_ERR_DOMAIN    the last sample more than 720 h after the first,
+ *                           or a point, the body water at the last sample
+ *                           included, leaving the model's range.
  *
  * References: as ntr_course_plan_check().
  * Methods: @ref NTR_METHOD_FIT_REPROJECT, @ref NTR_METHOD_PLAN_CHECK.
@@ -3378,10 +3781,14 @@ typedef struct ntr_vaptan_watch {
  * @param replace_na_mmol_l  its sodium, 0 to 1100 mmol/L (0.9%: 154).
  * @param[out] na_without_mmol_l sodium after the urine loss alone.
  * @param[out] na_with_mmol_l    sodium after the loss and the replacement.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE (inputs
- *         in argument order), NTR_ERR_DOMAIN (a state ntr_balance_predict()
- *         refuses: body water outside 0.1 to 400 L or sodium outside 80 to
- *         220 mmol/L).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (inputs in
+ *                           argument order).
+ * @retval NTR_ERR_DOMAIN    a state ntr_balance_predict() refuses: body water
+ *                           outside 0.1 to 400 L or sodium outside 80 to 220
+ *                           mmol/L.
  *
  * References: mass balance of Edelman 1958 and Adrogue HJ, Madias NE,
  * N Engl J Med 2000;342:1581-9; urine composition common practice.
@@ -3415,9 +3822,13 @@ NTR_API int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
  * @param[out] rise_24h_mmol_l predicted change over 24 h (negative if it falls).
  * @param[out] stop_h          hours until the rise reaches d (0 to 720), or
  *                             NTR_THERAPY_NEVER.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (the 24 h course or the state at the stop hour
- *         leaves the model's range, as in ntr_balance_course()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    the 24 h course or the state at the stop hour
+ *                           leaves the model's range, as in
+ *                           ntr_balance_course().
  *
  * References: mass balance as ntr_balance_course(); the clamp as described
  * by Sood L, Sterns RH, Hix JK, Silver SM, Chen L. Am J Kidney Dis
@@ -3448,9 +3859,12 @@ NTR_API int ntr_dda_clamp(double na_mmol_l, double tbw_l, double saline_ml_h,
  * @param urine_na_k_mmol_l  urine sodium + potassium, 0 to 500 mmol/L.
  * @param[out] volume_l      5% dextrose to give over @p hours, L.
  * @param[out] rate_ml_h     the same as a rate, mL/h.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (excess + margin above 50, or as
- *         ntr_relower_estimate()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    excess + margin above 50, or as
+ *                           ntr_relower_estimate().
  *
  * References: as ntr_relower_estimate(); Sterns RH, Hix JK, Kidney Int
  * 2009;76:587-9 (cited from memory).
@@ -3478,8 +3892,9 @@ NTR_API int ntr_dda_relower(double na_mmol_l, double tbw_l,
  *                      present (ntr_ods_risk()), else 0.
  * @param liver_disease 1 with liver disease, else 0.
  * @param[in,out] out   the plan; struct_size set by the caller.
- * @retval NTR_OK, NTR_ERR_NULL (@p out),
- *         NTR_ERR_ARG (a flag not 0 or 1, or out->struct_size too small).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL (@p out).
+ * @retval NTR_ERR_ARG       a flag not 0 or 1, or out->struct_size too small.
  *
  * References: Verbalis JG et al., Am J Med 2013;126(10 Suppl 1):S1-42
  * (limits, risk factors); tolvaptan prescribing information and US FDA
@@ -3517,12 +3932,15 @@ NTR_API int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
  * @param[out] volume_l        fluid volume over @p hours, L.
  * @param[out] first_breach_h  hours until the plan passes the 24 h fall
  *                             limit, or @ref NTR_PLAN_NO_BREACH.
- * @retval NTR_OK, NTR_ERR_NULL,
- *         NTR_ERR_ARG (unknown fluid, or a preset other than the two),
- *         NTR_ERR_NONFINITE, NTR_ERR_RANGE (inputs in argument order),
- *         NTR_ERR_DOMAIN (urine + insensible above 5000 mL/h; the fluid not
- *         below the target; or as ntr_relower_estimate() and
- *         ntr_course_plan_check()).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_ARG       unknown fluid, or a preset other than the two.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range (inputs in
+ *                           argument order).
+ * @retval NTR_ERR_DOMAIN    urine + insensible above 5000 mL/h; the fluid not
+ *                           below the target; or as ntr_relower_estimate() and
+ *                           ntr_course_plan_check().
  *
  * References: Adrogue HJ, Madias NE. Hypernatremia. N Engl J Med
  * 2000;342:1493-9 (the fluids, counting ongoing losses, the pace).
@@ -3556,10 +3974,14 @@ NTR_API int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
  * @param[out] boluses        boluses planned, 1 to @ref NTR_BOLUS_COUNT_MAX.
  * @param[out] rise_mmol_l    predicted rise after them.
  * @param[out] held_by_limit  1 when the limit stopped the plan short of the aim, else 0.
- * @retval NTR_OK, NTR_ERR_NULL, NTR_ERR_NONFINITE, NTR_ERR_RANGE,
- *         NTR_ERR_DOMAIN (aim above the limit; one bolus already passes
- *         the limit; the aim not reached within NTR_BOLUS_COUNT_MAX
- *         boluses; or a state ntr_balance_predict() refuses).
+ * @retval NTR_OK            success; the outputs were written.
+ * @retval NTR_ERR_NULL      a pointer argument is NULL.
+ * @retval NTR_ERR_NONFINITE an input is NaN or infinite.
+ * @retval NTR_ERR_RANGE     an input is outside its accepted range.
+ * @retval NTR_ERR_DOMAIN    aim above the limit; one bolus already passes the
+ *                           limit; the aim not reached within
+ *                           NTR_BOLUS_COUNT_MAX boluses; or a state
+ *                           ntr_balance_predict() refuses.
  *
  * References: Spasovski G et al. Eur J Endocrinol 2014;170:G1-G47
  * (bolus regimen, from memory); mass balance as ntr_balance_predict().
@@ -3705,6 +4127,8 @@ NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
 #define NTR_METHOD_INFUSATE_VOLUME 16      /**< infusate volume for a wanted change */
 #define NTR_METHOD_FURST 17                /**< Furst urine/serum electrolyte ratio and restriction bands */
 #define NTR_METHOD_EFWC 18                 /**< electrolyte-free water clearance */
+#define NTR_METHOD_LOINC_MAP 19            /**< LOINC code to analyte, specimen and unit (since 1.1) */
+#define NTR_METHOD_GLUCOSE_UNIT_CHECK 20   /**< glucose unit against sodium and measured osmolality (since 1.1) */
 /* Correction and balance (ids 30-49, issue P2; lib/correction.c, lib/balance.c). */
 #define NTR_METHOD_LIMITS_STANDARD 30      /**< 10/24 h, 18/48 h, at least 4/24 h */
 #define NTR_METHOD_LIMITS_HIGH_RISK 31     /**< 8/24 h, 16/48 h, at least 4/24 h */

@@ -4,6 +4,7 @@
  * watchers on one ring engine that give the same answers one result at a
  * time (docs/correction.md). */
 #include "correction_engine.h"
+#include "sodium_kernels.h"
 
 /* Window lengths with the time tolerance folded in: a pair exactly W hours
  * apart is inside the window even if rounding makes it a hair more. */

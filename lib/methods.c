@@ -186,6 +186,22 @@ static int describe(int method, struct ntr_method_info *info)
             "Physiology of Acid-Base and Electrolyte Disorders, 5th ed. "
             "McGraw-Hill 2001",
             "any");
+    case NTR_METHOD_LOINC_MAP:
+        return entry(info, method, "LOINC code to analyte, specimen and unit",
+            "table lookup of checked codes; unit from the code's property: "
+            "moles/volume -> mmol/L, mass/volume -> mg/dL, osmolality -> "
+            "mosm/kg",
+            "LOINC, Regenstrief Institute; codes as used in the HL7 FHIR R4 "
+            "published examples (hl7.fhir.r4.examples 4.0.1, 2019)",
+            "any");
+    case NTR_METHOD_GLUCOSE_UNIT_CHECK:
+        return entry(info, method, "Glucose unit against sodium and osmolality",
+            "g = glucose in mmol/L; floor = 1.86*Na + g + 9; refused when "
+            "floor > 600, or floor > measured osmolality + 20 (mOsm/kg)",
+            "Dorwart WV, Chalmers L. Comparison of methods for calculating "
+            "serum osmolality from chemical concentrations. Clin Chem "
+            "1975;21:190-4 (the floor); the tolerance is the project's",
+            "any");
 
     /* ==== correction and balance (ids 30-49, issue P2) ================== */
     case NTR_METHOD_LIMITS_STANDARD:
@@ -596,7 +612,7 @@ static const struct {
     int first;
     int last;
 } method_runs[] = {
-    {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_EFWC},          /* core, 1-29 */
+    {NTR_METHOD_UNIT_CONVERSION, NTR_METHOD_GLUCOSE_UNIT_CHECK}, /* core, 1-29 */
     {NTR_METHOD_LIMITS_STANDARD, NTR_METHOD_COURSE_WATCH},  /* correction, 30-49 */
     {NTR_METHOD_NA_SEVERITY, NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION}, /* work-up, 50-69 */
     {NTR_METHOD_SOLUTE_URINE_VOLUME, NTR_METHOD_RESTRICTION_OUTLOOK}, /* solute, 70-74 */

@@ -4,6 +4,7 @@
 
 #include "natremia.h"
 #include <math.h>
+#include <stdint.h>
 
 /* Plausible input ranges. docs/ranges.md says where each comes from; keep
  * the two in step. */
@@ -35,7 +36,10 @@
 #define NTR_URINE_VOLUME_MAX 30.0  /* L */
 #define NTR_RATIO_MAX 20.0
 #define NTR_CONVERT_MAX 1.0e6
-#define NTR_GLUCOSE_FACTOR_MAX 5.0 /* mmol/L Na per 100 mg/dL glucose; published 1.6-4.0 */
+/* How far the Dorwart-Chalmers floor of a glucose may exceed the measured
+ * osmolality before ntr_glucose_unit_check() refuses its unit (since 1.1). */
+#define NTR_GLUCOSE_UNIT_TOLERANCE 20.0 /* mOsm/kg */
+#define NTR_GLUCOSE_FACTOR_MAX 5.0 /* mmol/L Na per 100 mg/dL glucose; why: docs/sodium.md */
 /* Work-up (lib/workup.c). Wide nets that catch unit slips, not clinical
  * limits; docs/ranges.md gives the reasoning. */
 #define NTR_URINE_OSM_MIN 10.0     /* urine osmolality, mOsm/kg */
@@ -130,104 +134,35 @@ static inline int ntr_check_tbw(double tbw_l)
         }                                 \
     } while (0)
 
-/* ---- coherent results ---------------------------------------------------
+/* a where t is true, else b, without a branch, for the batch row loops
+ * (lib/kernel_lanes.h, flavour 2): the kernels' choices depend on the data
+ * (age bands, sex, a glucose threshold), and a branch on them mispredicts
+ * on about every other row of a mixed cohort; the row loops are the only
+ * loops on targets without two-lane vectors (docs/performance.md). The
+ * bits of a or b, exactly. */
+static inline double ntri_select(int t, double a, double b)
+{
+    union {
+        double d;
+        uint64_t u;
+    } x, y;
+    const uint64_t take_a = (uint64_t)0 - (uint64_t)(t != 0);
+    x.d = a;
+    y.d = b;
+    x.u = (x.u & take_a) | (y.u & ~take_a);
+    return x.d;
+}
+
+/* ---- formula kernels ----------------------------------------------------
  *
- * A result that another function would refuse as an input is refused where
- * it is made (docs/ranges.md, "Coherent results"). Every function that
- * predicts a sodium by mass balance or aims at one goes through these, so
- * the rule is written once: a sodium predicted or aimed at lies within the
- * input range NTR_NA_MIN..NTR_NA_MAX and body water after a mix within
- * NTR_TBW_MIN..NTR_TBW_MAX; outside, the status is NTR_ERR_DOMAIN (the
- * inputs were each in range, the model is not defined there).
- * lib/batch.c tests the same bounds two rows at a time with vector
- * comparisons before it falls back to its row kernels, which call these. */
-static inline int ntri_model_na(double na_mmol_l)
-{
-    return (na_mmol_l >= NTR_NA_MIN && na_mmol_l <= NTR_NA_MAX) ? NTR_OK
-                                                                : NTR_ERR_DOMAIN;
-}
-
-static inline int ntri_model_tbw(double tbw_l)
-{
-    return (tbw_l >= NTR_TBW_MIN && tbw_l <= NTR_TBW_MAX) ? NTR_OK
-                                                          : NTR_ERR_DOMAIN;
-}
-
-/* Sodium and water after a net volume gain_l whose cation content exceeds
- * that of the same volume of serum by excess_mmol (sum of v*(c - Na0)).
- * Written as Na0 + excess/TBW1, the mass balance
- * (Na0*TBW0 + sum v*c)/(TBW0 + sum v) without cancellation of Na0. Water
- * is checked before the division, so it never divides by 0. Used by
- * ntr_balance_predict() and the course (lib/balance.c), the infusate
- * functions (lib/infusion.c) and the re-lowering estimate. */
-static inline int ntri_mass_balance(double na0, double tbw0, double gain_l,
-                                    double excess_mmol, double *na1,
-                                    double *tbw1)
-{
-    const double tbw = tbw0 + gain_l;
-    double na;
-    NTR_TRY(ntri_model_tbw(tbw));
-    na = na0 + excess_mmol / tbw;
-    NTR_TRY(ntri_model_na(na));
-    *na1 = na;
-    *tbw1 = tbw;
-    return NTR_OK;
-}
-
-/* Watson's equations are regressions; outside a plausible share of body
- * weight their result is not a body water (docs/water.md). */
-static inline int ntri_tbw_share(double tbw_l, double weight_kg)
-{
-    return (tbw_l >= NTR_TBW_SHARE_MIN * weight_kg &&
-            tbw_l <= NTR_TBW_SHARE_MAX * weight_kg)
-               ? NTR_OK
-               : NTR_ERR_DOMAIN;
-}
-
-/* Glucose-corrected sodium (Katz, Hillier, or a caller's factor per
- * 100 mg/dL) of inputs already checked: ntr_na_corrected_glucose_factor()
- * and the work-up's ntr_low_na_tonicity() share it, so both give the same
- * value bit for bit without the second validating call. Constants: glucose
- * molar mass 180.156 g/mol / 10 (mg/dL per mmol/L); both published
- * corrections start at 100 mg/dL. */
-#define NTR_GLUCOSE_MG_DL_PER_MMOL_L 18.0156
-#define NTR_GLUCOSE_REFERENCE_MG_DL 100.0
-#define NTR_KATZ_FACTOR 1.6
-#define NTR_HILLIER_FACTOR 2.4
-/* The factor of a published glucose correction (NTR_GLUCOSE_*), or
- * NTR_ERR_ARG for an unknown method; *factor is left alone then. */
-static inline int ntri_glucose_factor(int method, double *factor)
-{
-    if (method == NTR_GLUCOSE_KATZ) {
-        *factor = NTR_KATZ_FACTOR;
-    } else if (method == NTR_GLUCOSE_HILLIER) {
-        *factor = NTR_HILLIER_FACTOR;
-    } else {
-        return NTR_ERR_ARG;
-    }
-    return NTR_OK;
-}
-
-static inline double ntri_glucose_corrected(double na_mmol_l,
-                                            double glucose_mmol_l,
-                                            double factor_per_100mg_dl)
-{
-    double glucose_mg_dl = glucose_mmol_l * NTR_GLUCOSE_MG_DL_PER_MMOL_L;
-    if (glucose_mg_dl <= NTR_GLUCOSE_REFERENCE_MG_DL) {
-        return na_mmol_l;
-    }
-    return na_mmol_l + factor_per_100mg_dl *
-                           (glucose_mg_dl - NTR_GLUCOSE_REFERENCE_MG_DL) / 100.0;
-}
-
-/* Electrolyte-free water in a volume of fluid whose sodium + potassium is
- * cation_mmol_l, at serum sodium na_mmol_l: V*(1 - c/Na) (Shah & Bhave
- * 2018; for urine, the electrolyte-free water clearance). Same unit as the
- * volume. */
-static inline double ntri_efw(double volume, double cation_mmol_l,
-                              double na_mmol_l)
-{
-    return volume * (1.0 - cation_mmol_l / na_mmol_l);
-}
+ * Formulas and their input checks are written once, as lane-generic
+ * kernels (lib/kernel_lanes.h): the shared model rules in
+ * lib/model_kernels.h (ntri_model_na, ntri_model_tbw, ntri_mass_balance,
+ * ntri_efw), each area's formulas in lib/<area>_kernels.h. Here the scalar
+ * flavour is selected and the model rules compiled for it; lib/batch.c
+ * compiles the same kernels for its row loops and for two lanes as well. */
+#define NTRK_FLAVOUR 0
+#include "kernel_lanes.h"
+#include "model_kernels.h"
 
 #endif

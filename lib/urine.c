@@ -1,13 +1,7 @@
-/* Urine indices and fluid restriction (docs/urine.md). */
+/* Urine indices and fluid restriction (docs/urine.md). The formulas and
+ * their checks are the kernels in lib/urine_kernels.h. */
 #include "ntr_internal.h"
-
-static int check_urine(double urine_na_mmol_l, double urine_k_mmol_l,
-                       double serum_na_mmol_l)
-{
-    NTR_TRY(ntr_check(urine_na_mmol_l, 0.0, NTR_URINE_NA_MAX));
-    NTR_TRY(ntr_check(urine_k_mmol_l, 0.0, NTR_URINE_K_MAX));
-    return ntr_check_na(serum_na_mmol_l);
-}
+#include "urine_kernels.h"
 
 int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
                     double serum_na_mmol_l, double *ratio)
@@ -15,9 +9,8 @@ int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
     if (ratio == NULL) {
         return NTR_ERR_NULL;
     }
-    NTR_TRY(check_urine(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l));
-    *ratio = (urine_na_mmol_l + urine_k_mmol_l) / serum_na_mmol_l;
-    return NTR_OK;
+    return ntri_furst_ratio(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
+                            ratio);
 }
 
 int ntr_restriction_from_ratio(double ratio, int *advice)
@@ -25,15 +18,7 @@ int ntr_restriction_from_ratio(double ratio, int *advice)
     if (advice == NULL) {
         return NTR_ERR_NULL;
     }
-    NTR_TRY(ntr_check(ratio, 0.0, NTR_RATIO_MAX));
-    if (ratio < NTR_FURST_ABOUT_ONE_LOW) {
-        *advice = NTR_RESTRICT_1000ML;
-    } else if (ratio <= NTR_FURST_ABOUT_ONE_HIGH) {
-        *advice = NTR_RESTRICT_500_700ML;
-    } else {
-        *advice = NTR_RESTRICT_500ML;
-    }
-    return NTR_OK;
+    return ntri_restriction_from_ratio(ratio, advice);
 }
 
 int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
@@ -42,9 +27,6 @@ int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
     if (litres == NULL) {
         return NTR_ERR_NULL;
     }
-    NTR_TRY(ntr_check(urine_volume_l, 0.0, NTR_URINE_VOLUME_MAX));
-    NTR_TRY(check_urine(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l));
-    *litres = ntri_efw(urine_volume_l, urine_na_mmol_l + urine_k_mmol_l,
-                       serum_na_mmol_l);
-    return NTR_OK;
+    return ntri_efwc(urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
+                     serum_na_mmol_l, litres);
 }

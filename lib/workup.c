@@ -4,6 +4,7 @@
  * Thresholds: Spasovski et al., Eur J Endocrinol 2014; Fenske et al.,
  * J Clin Endocrinol Metab 2008. */
 #include "ntr_internal.h"
+#include "sodium_kernels.h"
 
 /* Severity band edges, mmol/L (each band includes its lower edge). */
 #define SEVERITY_MILD_BELOW 135.0

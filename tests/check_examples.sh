@@ -2,7 +2,8 @@
 # Runs the example programs and the demo on known input and checks the
 # numbers they print against published values (P5).
 #
-#   check_examples.sh examples <build/examples>   the small examples and the demo's text
+#   check_examples.sh examples <build/examples>   the small examples, the demo's text and
+#                                                 examples/fhir_bundle.py (Python)
 #   check_examples.sh chart    <build/examples>   the demo's SVG chart, rendered to PNG
 #
 # The chart check needs rsvg-convert (Debian package librsvg2-bin); without
@@ -410,6 +411,58 @@ check_demo_text() {
     else fail "demo wrote not both default charts in its working directory"; fi
 }
 
+# The FHIR example (examples/fhir_bundle.py) on its invented Bundle, with
+# the library of this build and the package of this tree.
+check_fhir_example() {
+    local out=$work/fhir.txt rc=0 root python=/usr/bin/python3
+    root=$(cd "$(dirname "$0")/.." && pwd)
+    [[ -x $python ]] || python=$(command -v python3)
+    # As for the cohort example: a sanitizer build of the library cannot be
+    # loaded into python3 (the binding itself is tested by python-binding).
+    if ! NATREMIA_LIBRARY=$bin/../lib/libnatremia.so.1 PYTHONPATH=$root/bindings/python \
+            "$python" -c 'import natremia' > /dev/null 2>&1; then
+        echo "SKIP: fhir_bundle.py (the binding cannot load this build's library)"
+        return
+    fi
+    NATREMIA_LIBRARY=$bin/../lib/libnatremia.so.1 PYTHONPATH=$root/bindings/python \
+        PYTHONDONTWRITEBYTECODE=1 "$python" "$root/examples/fhir_bundle.py" > "$out" 2>&1 || rc=$?
+    if [[ $rc -eq 0 ]]; then ok "fhir_bundle.py exits 0"; else fail "fhir_bundle.py exited $rc"; cat "$out"; return; fi
+    expect_text "$out" 'Invented Bundle \(no real patient\)' "fhir_bundle says its Bundle is invented"
+    if [[ $(grep -c 'not orders' "$out") -ge 2 ]]; then ok "fhir_bundle prints the caution at the start and the end"
+    else fail "fhir_bundle prints the caution fewer than 2 times"; fi
+    # 16 invented Observations: an entered-in-error sodium and a haemolysed
+    # sample (dataAbsentReason) are listed as not used, with their reasons.
+    expect_text "$out" '^14 Observations used, 2 not used; other resources: Patient 2$' "fhir_bundle counts used and unused Observations"
+    expect_text "$out" "id c-err.*status 'entered-in-error'" "fhir_bundle reports the entered-in-error result"
+    expect_text "$out" "id c-haem.*dataAbsentReason 'sample haemolysed'" "fhir_bundle reports the absent value and why"
+    # Patient C, sodium 112 mmol/L: profound (Spasovski et al. 2014: below 125).
+    expect_text "$out" 'severity of the low sodium: profound' "fhir_bundle: patient C severity profound"
+    # Glucose 180 mg/dL is 180/18 = 10.0 mmol/L (Dorwart & Chalmers 1975,
+    # glucose/18): effective 2 x 112 + 10.0 = 234.0 (Spasovski et al. 2014);
+    # with urea 4.0 mmol/L: 238.0 (the 2 Na form, Dorwart & Chalmers 1975).
+    expect_near "$out" 'effective osmolality 2 Na \+ glucose' 234.0 0.05 "fhir_bundle: patient C effective osmolality"
+    expect_near "$out" 'calculated osmolality 2 Na \+ glucose \+ urea' 238.0 0.05 "fhir_bundle: patient C calculated osmolality"
+    # Katz 1973 (as restated by Hillier et al. 1999): 1.6 per 100 mg/dL
+    # above 100: 112 + 1.6 x 0.8 = 113.28.
+    expect_near "$out" 'corrected for glucose \(Katz\)' 113.3 0.05 "fhir_bundle: patient C Katz-corrected sodium"
+    # Times hand-worked from the offsets: 08:00+02:00 first, 12:00Z is 6 h,
+    # 20:00+02:00 12 h, the next day 08:00+02:00 (issued, the documented
+    # fallback) 24 h. 112 -> 123 in 24 h is a rise of 11, over the 10 in
+    # 24 h limit by 1.0 (Verbalis et al. 2013; Spasovski et al. 2014).
+    expect_text "$out" '^ +24\.0 +123\.0 +issued +.*rise_over_24h' "fhir_bundle: patient C over the 24 h rise limit at 24 h (time from issued)"
+    expect_text "$out" '^ +6\.0 +116\.0 +effectiveDateTime +within the limits$' "fhir_bundle: patient C 6 h result (sent in mEq/L, 12:00Z)"
+    expect_text "$out" 'over a limit by 1\.0 mmol/L, worst window ending at 24\.0 h' "fhir_bundle: patient C excess 1.0 at 24 h"
+    # Patient D, 160 lowered to 151 in 24 h: a fall of 9, within the 10 a
+    # day of Adrogue & Madias, N Engl J Med 2000 (chronic hypernatraemia).
+    expect_text "$out" 'being lowered: hyper_chronic limits' "fhir_bundle: patient D is being lowered"
+    expect_text "$out" 'largest rise in 24 h: 0\.0 mmol/L; largest fall in 24 h: 9\.0 mmol/L' "fhir_bundle: patient D falls 9.0 in 24 h"
+    expect_text "$out" 'no 24 h or 48 h window over a limit' "fhir_bundle: patient D within the limits"
+    expect_text "$out" 'whole-blood sodium kept out of the course: 158\.0 at 4\.0 h' "fhir_bundle: patient D blood-gas sodium kept apart"
+    if [[ $(grep -c 'the watcher and the whole-series assessment agree' "$out") -eq 2 ]]; then
+        ok "fhir_bundle: watcher and whole-series assessment agree for both patients"
+    else fail "fhir_bundle: watcher and assessment do not agree for both patients"; fi
+}
+
 # The PNG's width and height from its IHDR chunk (bytes 16-23, big-endian).
 png_size() {
     local sig
@@ -474,7 +527,7 @@ check_chart() {
 }
 
 case $mode in
-    examples) check_command_lines; check_osmolality_panel; check_infusion_plan; check_correction_watch; check_demo_text ;;
+    examples) check_command_lines; check_osmolality_panel; check_infusion_plan; check_correction_watch; check_demo_text; check_fhir_example ;;
     chart) check_chart ;;
     *) echo "unknown mode $mode" >&2; exit 1 ;;
 esac

@@ -171,6 +171,35 @@ fi
 grep -q "^Caution: estimates for decision support, not orders" "$work/out.txt" \
     && ok "safety caution printed" || fail "safety caution missing"
 
+# The command-line program (bindings/cli) is installed into bindir with
+# the library and runs from there against the installed copy.
+bindir_opt=$(option bindir)
+[[ $bindir_opt == /* ]] && sys_bindir=$bindir_opt || sys_bindir=$prefix/$bindir_opt
+course=$stage$sys_bindir/natremia-course
+if [[ -x $course ]]; then
+    ok "natremia-course installed in $sys_bindir"
+    resolved=$(ldd "$course" | sed -n 's/.*libnatremia.so.1 => \([^ ]*\).*/\1/p')
+    [[ "$resolved" == "$libdir/"* ]] && ok "natremia-course loads the installed copy" \
+        || fail "natremia-course loads libnatremia.so.1 from '$resolved', not from $libdir"
+    if "$course" --help > "$work/course-help.txt"; then
+        grep -q '^usage: natremia-course' "$work/course-help.txt" \
+            && grep -q '^Caution: estimates for decision support, not orders' "$work/course-help.txt" \
+            && ok "installed natremia-course --help prints its usage and the caution" \
+            || fail "installed natremia-course --help lacks the usage or the caution"
+    else
+        fail "installed natremia-course --help exited with an error"
+    fi
+    # Invented series: a rise of 11 in 24 h is over the European limit of
+    # 10 (Spasovski G et al. Eur J Endocrinol 2014;170:G1-G47).
+    course_out=$(printf 'patient,hours,sodium\ninvented,0,110\ninvented,24,121\n' \
+        | "$course" --goal raise) || true
+    grep -q '^invented,assessed,2,.*rise_over_24h' <<< "$course_out" \
+        && ok "installed natremia-course flags a rise of 11 in 24 h (Spasovski 2014)" \
+        || fail "installed natremia-course did not assess the invented series: $course_out"
+else
+    fail "natremia-course not installed in $sys_bindir"
+fi
+
 if [[ $failures -ne 0 ]]; then
     echo "$failures install check(s) failed"
     exit 1

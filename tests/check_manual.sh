@@ -1,26 +1,39 @@
 #!/usr/bin/env bash
-# The reference manual builds warning-free, and every computing function's
-# documentation carries what the manual promises (P5).
+# The reference manual builds warning-free, reads as the manual promises,
+# and every computing function's documentation carries what it must (P5).
 #
-#   check_manual.sh <Doxyfile> <include/natremia.h>
+#   check_manual.sh <Doxyfile> <include/natremia.h> <mathjax-dir>
 #
-# 1. Runs Doxygen with the project's configuration (WARN_AS_ERROR =
-#    FAIL_ON_WARNINGS) into a scratch directory; fails on a non-zero exit or
-#    on any output at all (QUIET = YES), and checks the front page, the header's page and
-#    the policy pages were written.
-# 2. Reads the public header: every NTR_API function returning int (a
+# 1. Builds the manual as `ninja docs` does (tests/lib/build-manual.sh:
+#    Doxygen with the project's configuration, WARN_AS_ERROR =
+#    FAIL_ON_WARNINGS, then Debian's MathJax copied in) into a scratch
+#    directory; fails on a non-zero exit or on any output at all
+#    (QUIET = YES), and checks the front page, the header's page and the
+#    policy pages were written.
+# 2. Reads the generated HTML (tests/check_manual_html.py):
+#    - every "Return values" row names one status and gives its meaning
+#      (a list such as "NTR_OK, NTR_ERR_NULL, ..." once rendered as one
+#      run-together token);
+#    - no script or style sheet is loaded over http(s); equations are
+#      typeset by the local MathJax copy, which is there;
+#    - the front page links to every section of the header;
+#    - every page under docs/ is in the manual, and every page for users
+#      comes before the contributor pages in the navigation.
+# 3. Reads the public header: every NTR_API function returning int (a
 #    computing function) must have a Doxygen block naming its statuses
 #    (@retval), its published source ("Reference" or "Source") and the
 #    NTR_METHOD_* id(s) it uses ("Method"), and a @param for every
 #    parameter (Doxygen checks the names; this checks none is skipped).
 set -euo pipefail
 
-if [[ $# -ne 2 ]]; then
-    echo "usage: $0 <Doxyfile> <natremia.h>" >&2
+if [[ $# -ne 3 ]]; then
+    echo "usage: $0 <Doxyfile> <natremia.h> <mathjax-dir>" >&2
     exit 1
 fi
 doxyfile=$1
 header=$2
+mathjax=$3
+here=$(cd "$(dirname "${BASH_SOURCE[0]}")" && pwd)
 fail=0
 
 work=$(mktemp -d)
@@ -28,13 +41,12 @@ trap 'rm -rf "$work"' EXIT
 
 # Same configuration, scratch output, so the test never races `ninja docs`.
 rc=0
-{ cat "$doxyfile"; echo "OUTPUT_DIRECTORY = $work"; } \
-    | doxygen - > "$work/doxygen.log" 2>&1 || rc=$?
+bash "$here/lib/build-manual.sh" "$doxyfile" "$mathjax" "$work" > "$work/doxygen.log" 2>&1 || rc=$?
 # QUIET = YES: a clean run prints nothing, so any line fails, not only
 # Doxygen's warnings (an input filter that cannot start, for instance, only
 # says so on stderr and leaves the page empty).
 if [[ $rc -ne 0 ]] || [[ -s $work/doxygen.log ]]; then
-    echo "FAIL: doxygen exit status $rc, output:"
+    echo "FAIL: building the manual: exit status $rc, output:"
     cat "$work/doxygen.log"
     fail=1
 else
@@ -49,6 +61,9 @@ for page in index.html natremia_8h.html abi.html safety.html adding_a_formula.ht
         fail=1
     fi
 done
+
+srcroot=$(cd "$(dirname "$header")/.." && pwd)
+/usr/bin/python3 "$here/check_manual_html.py" "$work/html" "$header" "$srcroot" || fail=1
 
 if ! /usr/bin/python3 - "$header" <<'EOF'
 import re, sys

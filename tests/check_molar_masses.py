@@ -17,6 +17,10 @@ Usage: check_molar_masses.py LIBNATREMIA_SO NATREMIA_H
    one hydrogen atom too many or too few in the heaviest molecule
    (creatinine, 113 g/mol) is 8.9e-3, ninety times the tolerance.
 
+   Uric acid (analyte 10, since 1.1) is checked the same way as the 1.0
+   analytes; osmolality (analyte 9) has no molar mass and is checked to
+   convert mosm/kg to itself and nothing else.
+
    The solute doses (issue P2) are checked the same way:
    ntr_solute_dose_osmoles(solute, 1 g) returns 1000 n / M mOsm, n the
    osmoles per mole (urea 1; NaCl 2, full dissociation), and M is compared
@@ -82,6 +86,13 @@ RELEASED = {
 # Added with 1.1 (issue P2, solute area): ABI from then on.
 SOLUTE_ENUMS = {"NTR_SOLUTE_UREA": 1, "NTR_SOLUTE_NACL": 2}
 
+# Added with 1.1 (issue 13, units and LOINC): values fixed by the issue.
+UNITS_ENUMS = {
+    "NTR_ANALYTE_OSMOLALITY": 9, "NTR_ANALYTE_URIC_ACID": 10,
+    "NTR_SPECIMEN_SERUM_PLASMA": 1, "NTR_SPECIMEN_BLOOD": 2,
+    "NTR_SPECIMEN_URINE": 3,
+}
+
 # Solute enumerator -> (name, formula for periodictable, osmoles per mole).
 SOLUTES = {
     1: ("urea", "CH4N2O", 1.0),
@@ -100,6 +111,7 @@ ANALYTES = {
     6: ("urea nitrogen", "N2", True),
     7: ("creatinine", "C4H7N3O", True),
     8: ("ethanol", "C2H6O", True),
+    10: ("uric acid", "C5H4N4O3", True),  # since 1.1 (issue 13)
 }
 
 failures = []
@@ -166,6 +178,15 @@ def main():
             check(status == FIXED["NTR_ERR_UNIT"],
                   "%s: g/L is not a unit for an ion (status %d)" % (name, status))
 
+    out = ctypes.c_double(float("nan"))
+    mosm_kg = FIXED["NTR_UNIT_MOSM_KG"]
+    status = lib.ntr_convert(9, 287.5, mosm_kg, mosm_kg, ctypes.byref(out))
+    check(status == ok and out.value == 287.5,
+          "osmolality: mosm/kg -> mosm/kg is the identity (status %d)" % status)
+    status = lib.ntr_convert(9, 287.5, mosm_kg, mmol_l, ctypes.byref(out))
+    check(status == FIXED["NTR_ERR_UNIT"],
+          "osmolality: mosm/kg -> mmol/L gives NTR_ERR_UNIT (%d)" % status)
+
     print("# solute doses: ntr_solute_dose_osmoles(solute, 1 g) = 1000 n / M")
     lib.ntr_solute_dose_osmoles.argtypes = [ctypes.c_int, ctypes.c_double,
                                             ctypes.POINTER(ctypes.c_double)]
@@ -187,7 +208,8 @@ def main():
 
     print("# enumerator values in the header")
     for table, label in ((FIXED, "fixed by issue P1"), (RELEASED, "released with P1"),
-                         (SOLUTE_ENUMS, "added with 1.1, solute area")):
+                         (SOLUTE_ENUMS, "added with 1.1, solute area"),
+                         (UNITS_ENUMS, "fixed by issue 13")):
         for name, value in table.items():
             check(defines.get(name) == value,
                   "%s = %s (%s: %d)" % (name, defines.get(name), label, value))

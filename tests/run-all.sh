@@ -29,12 +29,15 @@ packages=(
     python3-wheel
     python3-pip
     python3-venv
+    python3-dev
     python3-dask
     python3-pandas
     python3-distributed
     make
+    cmake
     # + postgresql-N and postgresql-server-dev-N (found below)
     doxygen
+    libjs-mathjax
     librsvg2-bin
     # reliability (P6): short fuzzing (suite 'fuzz') and the s390x cross
     # test (suite 'cross'; tests/cross.sh adds the s390x architecture and
@@ -91,7 +94,9 @@ apt_missing "${packages[@]}"
 
 # ---- configure (debugoptimized: the ABI check needs -g), build, test
 source tests/lib/build-steps.sh
-meson_setup_dir "$builddir" -Dbuildtype=debugoptimized
+# tests and docs enabled: a missing cmocka, doxygen or MathJax fails the
+# setup instead of silently switching the unit tests or the manual off.
+meson_setup_dir "$builddir" -Dbuildtype=debugoptimized -Dtests=enabled -Ddocs=enabled
 ninja -C "$builddir"
 
 test_status=0

@@ -312,6 +312,57 @@ static void statusless_functions(void **state)
 
 /* ---- unit strings the table does not hold ---------------------------------- */
 
+/* The 1.1 text readers on exact-size heap copies too: ntr_unit_parse_lenient
+ * (unit 0 = refused) and ntr_loinc_lookup (analyte 0 = unknown). */
+static void lenient_and_loinc_strings(void)
+{
+    static const struct {
+        const char *text;
+        int unit;
+    } lenient[] = {
+        {"", 0}, {" ", 0}, {"m", 0}, {"mEq/L", NTR_UNIT_MEQ_L}, {"mmol/l ", NTR_UNIT_MMOL_L},
+        {"\xc2", 0}, {"\xc2\xb5", 0}, {"\xc2\xb5mol/L", NTR_UNIT_UMOL_L}, {"\xce\xbc", 0},
+        {"mOsm/kg{H2O}", NTR_UNIT_MOSM_KG}, {"mosm/kg H2O", NTR_UNIT_MOSM_KG},
+        {"mosm/kg H", 0}, {"mOsm/L", 0}, {"\xff", 0},
+        {"                          g/l", NTR_UNIT_G_L},
+        {"                                 g/l", 0},
+    };
+    static const struct {
+        const char *code;
+        int analyte;
+    } loinc[] = {
+        {"", 0}, {"2", 0}, {"2951-", 0}, {"2951-2", NTR_ANALYTE_SODIUM}, {"2951-2x", 0},
+        {"14933-6", NTR_ANALYTE_URIC_ACID}, {"14933-", 0}, {"\xff", 0},
+    };
+    size_t i;
+    for (i = 0; i < sizeof lenient / sizeof lenient[0]; i++) {
+        size_t len = strlen(lenient[i].text);
+        char *s = malloc(len + 1);
+        int unit = -77;
+        assert_non_null(s);
+        memcpy(s, lenient[i].text, len + 1);
+        assert_int_equal(ntr_unit_parse_lenient(s, &unit),
+                         lenient[i].unit != 0 ? NTR_OK : NTR_ERR_UNIT);
+        assert_int_equal(unit, lenient[i].unit != 0 ? lenient[i].unit : -77);
+        free(s);
+        cases_tried++;
+        cases_by_kind[NTRC_KIND_OTHER]++;
+    }
+    for (i = 0; i < sizeof loinc / sizeof loinc[0]; i++) {
+        size_t len = strlen(loinc[i].code);
+        char *s = malloc(len + 1);
+        int analyte = -77, specimen = -77, unit = -77;
+        assert_non_null(s);
+        memcpy(s, loinc[i].code, len + 1);
+        assert_int_equal(ntr_loinc_lookup(s, &analyte, &specimen, &unit),
+                         loinc[i].analyte != 0 ? NTR_OK : NTR_ERR_UNIT);
+        assert_int_equal(analyte, loinc[i].analyte != 0 ? loinc[i].analyte : -77);
+        free(s);
+        cases_tried++;
+        cases_by_kind[NTRC_KIND_OTHER]++;
+    }
+}
+
 static void unit_parse_strings(void **state)
 {
     /* Exact-size heap copies, so a read past the NUL is caught by ASan or
@@ -343,6 +394,7 @@ static void unit_parse_strings(void **state)
         cases_tried++;
         cases_by_kind[NTRC_KIND_OTHER]++;
     }
+    lenient_and_loinc_strings();
 }
 
 /* ---- the table covers the header ------------------------------------------- */

@@ -600,6 +600,35 @@ static void infusion_rows_equal_scalar(void **state)
     check_summary(ret, failed, status, ROWS, bad);
 }
 
+/* A wanted change of exactly 0 needs no infusate: +0.0 L with NTR_OK, as
+ * ntr_infusate_volume_for_change() says, whatever the infusate. Rows in
+ * valid pairs (so the two-row path sees them) whose formula
+ * delta*TBW/headroom would give -0.0 (infusate below the sodium) or NaN
+ * (infusate equal to it) if the zero case were not handled. Source: the
+ * header's definition (no volume changes nothing), common practice. */
+static void infusion_zero_change_in_pairs(void **state)
+{
+    const double na[6] = {140.0, 140.0, 140.0, 140.0, 120.0, 120.0};
+    const double tbw[6] = {40.0, 40.0, 40.0, 40.0, 30.0, 30.0};
+    const double inf_na[6] = {0.0, 0.0, 140.0, 140.0, 513.0, 0.0};
+    const double inf_k[6] = {0.0, 0.0, 0.0, 0.0, 0.0, 0.0};
+    const double delta[6] = {0.0, -0.0, 0.0, -0.0, 0.0, -0.0};
+    const double plus_zero = 0.0;
+    double vol[6];
+    int st[6];
+    size_t i, failed = 99;
+    (void)state;
+    assert_int_equal(ntr_batch_infusate_volume_for_change(6, na, tbw, inf_na,
+                                                          inf_k, delta, vol,
+                                                          st, &failed),
+                     NTR_OK);
+    assert_int_equal(failed, 0);
+    for (i = 0; i < 6; i++) {
+        assert_int_equal(st[i], NTR_OK);
+        assert_memory_equal(&vol[i], &plus_zero, sizeof plus_zero);
+    }
+}
+
 static void urine_rows_equal_scalar(void **state)
 {
     size_t i, failed, bad;
@@ -1099,6 +1128,7 @@ int main(void)
         cmocka_unit_test(sodium_rows_equal_scalar),
         cmocka_unit_test(water_rows_equal_scalar),
         cmocka_unit_test(infusion_rows_equal_scalar),
+        cmocka_unit_test(infusion_zero_change_in_pairs),
         cmocka_unit_test(urine_rows_equal_scalar),
         cmocka_unit_test(correction_groups_published),
         cmocka_unit_test(correction_groups_contract),

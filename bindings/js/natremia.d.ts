@@ -277,6 +277,12 @@ export interface Natremia {
   version_number(): number;
   /** ntr_unit_parse() of include/natremia.h. */
   unit_parse(ucum: string): number;
+  /** ntr_unit_parse_lenient() of include/natremia.h. */
+  unit_parse_lenient(text: string): number;
+  /** ntr_loinc_lookup() of include/natremia.h. */
+  loinc_lookup(code: string): { analyte: number; specimen: number; unit: number };
+  /** ntr_glucose_unit_check() of include/natremia.h. */
+  glucose_unit_check(glucose: number, unit: number, na_mmol_l: number, measured_osm_mosm_kg: number): number;
   /** ntr_convert() of include/natremia.h. */
   convert(analyte: number, value: number, from_unit: number, to_unit: number): number;
   /** ntr_osm_calculated() of include/natremia.h. */
@@ -347,6 +353,8 @@ export interface Natremia {
   fe_uric_acid_class(fe_uric_acid_percent: number): number;
   /** ntr_fe_uric_acid_after_correction() of include/natremia.h. */
   fe_uric_acid_after_correction(fe_low_na_percent: number, fe_corrected_percent: number, na_corrected_mmol_l: number): number;
+  /** ntr_input_range() of include/natremia.h. */
+  input_range(kind: number): { min: number; max: number };
   /** ntr_method_info() of include/natremia.h. */
   method_info(method: number): ntr_method_info;
   /** ntr_method_next() of include/natremia.h. */

@@ -27,6 +27,12 @@ export const api = {
   "NTR_ANALYTE_UREA_NITROGEN": 6,
   "NTR_ANALYTE_CREATININE": 7,
   "NTR_ANALYTE_ETHANOL": 8,
+  "NTR_ANALYTE_OSMOLALITY": 9,
+  "NTR_ANALYTE_URIC_ACID": 10,
+  "NTR_SPECIMEN_SERUM_PLASMA": 1,
+  "NTR_SPECIMEN_BLOOD": 2,
+  "NTR_SPECIMEN_URINE": 3,
+  "NTR_UNIT_TEXT_MAX": 32,
   "NTR_OSM_2NA": 1,
   "NTR_OSM_DORWART_CHALMERS": 2,
   "NTR_GLUCOSE_KATZ": 1,
@@ -110,6 +116,45 @@ export const api = {
   "NTR_URIC_ACID_COURSE_NORMALISED": 3,
   "NTR_URIC_ACID_COURSE_UNSETTLED": 4,
   "NTR_URIC_ACID_COURSE_PERSISTENT_HIGH": 5,
+  "NTR_INPUT_NA": 1,
+  "NTR_INPUT_GLUCOSE": 2,
+  "NTR_INPUT_UREA": 3,
+  "NTR_INPUT_ETHANOL": 4,
+  "NTR_INPUT_OSMOLALITY": 5,
+  "NTR_INPUT_AGE_FRACTION": 6,
+  "NTR_INPUT_AGE_WATSON": 7,
+  "NTR_INPUT_HEIGHT": 8,
+  "NTR_INPUT_WEIGHT": 9,
+  "NTR_INPUT_TBW": 10,
+  "NTR_INPUT_INFUSATE_NA": 11,
+  "NTR_INPUT_INFUSATE_K": 12,
+  "NTR_INPUT_VOLUME": 13,
+  "NTR_INPUT_DELTA": 14,
+  "NTR_INPUT_URINE_NA": 15,
+  "NTR_INPUT_URINE_K": 16,
+  "NTR_INPUT_URINE_VOLUME": 17,
+  "NTR_INPUT_URINE_OSM": 18,
+  "NTR_INPUT_RATIO": 19,
+  "NTR_INPUT_GLUCOSE_FACTOR": 20,
+  "NTR_INPUT_CONVERT_VALUE": 21,
+  "NTR_INPUT_HOURS": 22,
+  "NTR_INPUT_LIMIT": 23,
+  "NTR_INPUT_FLOW_RATE": 24,
+  "NTR_INPUT_URINE_RATE": 25,
+  "NTR_INPUT_PLAN_HOURS": 26,
+  "NTR_INPUT_PLAN_STEP": 27,
+  "NTR_INPUT_FLOW_VOLUME": 28,
+  "NTR_INPUT_URINE_ML": 29,
+  "NTR_INPUT_URIC_ACID": 30,
+  "NTR_INPUT_FE_PERCENT": 31,
+  "NTR_INPUT_FE_VALUE": 32,
+  "NTR_INPUT_SOLUTE_MOSM_DAY": 33,
+  "NTR_INPUT_INSENSIBLE_L_DAY": 34,
+  "NTR_INPUT_SOLUTE_GRAMS": 35,
+  "NTR_INPUT_INTAKE_L_DAY": 36,
+  "NTR_INPUT_RELOWER_MARGIN": 37,
+  "NTR_INPUT_INSENSIBLE_ML_H": 38,
+  "NTR_INPUT_CHANGE": 39,
   "NTR_LIMITS_STANDARD": 1,
   "NTR_LIMITS_HIGH_RISK": 2,
   "NTR_CF_OVER_24H": 1,
@@ -196,6 +241,8 @@ export const api = {
   "NTR_METHOD_INFUSATE_VOLUME": 16,
   "NTR_METHOD_FURST": 17,
   "NTR_METHOD_EFWC": 18,
+  "NTR_METHOD_LOINC_MAP": 19,
+  "NTR_METHOD_GLUCOSE_UNIT_CHECK": 20,
   "NTR_METHOD_LIMITS_STANDARD": 30,
   "NTR_METHOD_LIMITS_HIGH_RISK": 31,
   "NTR_METHOD_ODS_RISK": 32,
@@ -1150,6 +1197,83 @@ export const api = {
    ]
   },
   {
+   "name": "ntr_unit_parse_lenient",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "text",
+     "type": "char",
+     "pointer": 1,
+     "const": true
+    },
+    {
+     "name": "unit",
+     "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_loinc_lookup",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "code",
+     "type": "char",
+     "pointer": 1,
+     "const": true
+    },
+    {
+     "name": "analyte",
+     "type": "int",
+     "pointer": 1
+    },
+    {
+     "name": "specimen",
+     "type": "int",
+     "pointer": 1
+    },
+    {
+     "name": "unit",
+     "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_glucose_unit_check",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "glucose",
+     "type": "double"
+    },
+    {
+     "name": "unit",
+     "type": "int"
+    },
+    {
+     "name": "na_mmol_l",
+     "type": "double"
+    },
+    {
+     "name": "measured_osm_mosm_kg",
+     "type": "double"
+    },
+    {
+     "name": "glucose_mmol_l",
+     "type": "double",
+     "pointer": 1
+    }
+   ]
+  },
+  {
    "name": "ntr_convert",
    "ret": {
     "type": "int"
@@ -2077,6 +2201,28 @@ export const api = {
     {
      "name": "course",
      "type": "int",
+     "pointer": 1
+    }
+   ]
+  },
+  {
+   "name": "ntr_input_range",
+   "ret": {
+    "type": "int"
+   },
+   "params": [
+    {
+     "name": "kind",
+     "type": "int"
+    },
+    {
+     "name": "min",
+     "type": "double",
+     "pointer": 1
+    },
+    {
+     "name": "max",
+     "type": "double",
      "pointer": 1
     }
    ]

@@ -194,3 +194,28 @@ RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_fe_uric_acid_class_checked'
 LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
 COMMENT ON FUNCTION ntr_fe_uric_acid_class(float8) IS
 'Fractional uric acid excretion at the low sodium: against_siad (below 8 %), indeterminate (8 to 12 %), supports_siad (above 12 %) (Fenske 2008). NULL for invalid input.';
+
+-- ------------------------------------------------ units as they arrive (issue 13)
+-- ntr_convert (1.0) also takes the analytes osmolality (mosm/kg only) and
+-- uric_acid since 1.1, and its _checked form names the unit that is wrong.
+COMMENT ON FUNCTION ntr_convert(float8, text, text, text) IS
+'A laboratory value converted between UCUM units (mmol/L, mg/dL, meq/L, mosm/kg, g/L, umol/L; case-sensitive, see ntr_unit_normalize) for an analyte (sodium, potassium, chloride, glucose, urea, urea_nitrogen, creatinine, ethanol, osmolality, uric_acid). NULL for invalid input.';
+
+CREATE FUNCTION ntr_unit_normalize(unit text)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_unit_normalize'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_unit_normalize_checked(unit text)
+RETURNS text AS 'MODULE_PATHNAME', 'ntrpg_unit_normalize_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_unit_normalize(text) IS
+'The UCUM code of a unit as laboratory feeds spell it (mEq/L -> meq/L, mg/dl -> mg/dL, mOsm/kg H2O -> mosm/kg, a micro sign -> umol/L). NULL when refused: unknown, or ambiguous such as mOsm/L (an osmolarity).';
+
+CREATE FUNCTION ntr_loinc(code text, OUT analyte text, OUT specimen text, OUT unit text)
+RETURNS record AS 'MODULE_PATHNAME', 'ntrpg_loinc'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+CREATE FUNCTION ntr_loinc_checked(code text, OUT analyte text, OUT specimen text,
+                                  OUT unit text)
+RETURNS record AS 'MODULE_PATHNAME', 'ntrpg_loinc_checked'
+LANGUAGE C IMMUTABLE STRICT PARALLEL SAFE;
+COMMENT ON FUNCTION ntr_loinc(text) IS
+'Analyte, specimen (serum_plasma, blood, urine) and the UCUM unit the property implies (moles/volume mmol/L, mass/volume mg/dL) of a LOINC code checked against a published source. NULL for a code not mapped.';

@@ -150,8 +150,29 @@ static const named_value analytes[] = {
 	{"chloride", NTR_ANALYTE_CHLORIDE}, {"glucose", NTR_ANALYTE_GLUCOSE},
 	{"urea", NTR_ANALYTE_UREA}, {"urea_nitrogen", NTR_ANALYTE_UREA_NITROGEN},
 	{"creatinine", NTR_ANALYTE_CREATININE}, {"ethanol", NTR_ANALYTE_ETHANOL},
+	{"osmolality", NTR_ANALYTE_OSMOLALITY}, {"uric_acid", NTR_ANALYTE_URIC_ACID},
 	{NULL, 0}
 };
+static const named_value specimens[] = {
+	{"serum_plasma", NTR_SPECIMEN_SERUM_PLASMA}, {"blood", NTR_SPECIMEN_BLOOD},
+	{"urine", NTR_SPECIMEN_URINE}, {NULL, 0}
+};
+/* The strict UCUM code of each NTR_UNIT_* value (index = value). */
+static const char *const ucum_codes[] = {
+	NULL, "mmol/L", "mg/dL", "meq/L", "mosm/kg", "g/L", "umol/L"
+};
+
+/* The name a table gives a value (the first, where several share it). */
+static const char *
+name_of(const named_value *table, int value)
+{
+	int			i;
+
+	for (i = 0; table[i].name != NULL; i++)
+		if (table[i].value == value)
+			return table[i].name;
+	return "?";
+}
 static const named_value limit_presets[] = {
 	{"standard", NTR_LIMITS_STANDARD}, {"high_risk", NTR_LIMITS_HIGH_RISK},
 	{NULL, 0}
@@ -455,26 +476,125 @@ efwc_impl(FunctionCallInfo fcinfo, bool checked)
 }
 NTRPG_PAIR(efwc)
 
+/*
+ * A unit error that names the unit: not known at all, or known but not a
+ * unit of the analyte. (Before 1.1 it came out as the generic status text
+ * with a hint about input ranges.)
+ */
+static void
+report_unit(const char *function, const char *given, const char *analyte)
+{
+	if (analyte == NULL)
+		ereport(ERROR,
+				(errcode(ERRCODE_INVALID_PARAMETER_VALUE),
+				 errmsg("%s: unit \"%s\" is not known", function, given),
+				 errdetail("natremia status NTR_ERR_UNIT (%d).", NTR_ERR_UNIT),
+				 errhint("Units are case-sensitive UCUM codes: mmol/L, mg/dL, meq/L, "
+						 "mosm/kg, g/L, umol/L. ntr_unit_normalize() turns laboratory "
+						 "spellings such as mEq/L or mg/dl into these codes.")));
+	ereport(ERROR,
+			(errcode(ERRCODE_INVALID_PARAMETER_VALUE),
+			 errmsg("%s: unit \"%s\" does not fit analyte \"%s\"", function, given,
+					analyte),
+			 errdetail("natremia status NTR_ERR_UNIT (%d).", NTR_ERR_UNIT),
+			 errhint("Ions take mmol/L, meq/L, mg/dL, umol/L; other solutes mmol/L, "
+					 "mg/dL, g/L, umol/L; osmolality only mosm/kg (docs/units.md).")));
+}
+
 /* Units are UCUM codes (case-sensitive, as ntr_unit_parse() wants). */
 static Datum
 convert_impl(FunctionCallInfo fcinfo, bool checked)
 {
 	const char *f = checked ? "ntr_convert_checked" : "ntr_convert";
 	double		out = 0.0;
+	double		probe;
 	int			analyte;
-	int			from_unit = 0;
-	int			to_unit = 0;
+	int			units[2] = {0, 0};
+	char	   *given[2];
+	int			k;
 	int			st;
 
 	LOOKUP_OR_NULL(1, analytes, "analyte", f, checked, analyte);
-	st = ntr_unit_parse(text_to_cstring(PG_GETARG_TEXT_PP(2)), &from_unit);
-	if (st == NTR_OK)
-		st = ntr_unit_parse(text_to_cstring(PG_GETARG_TEXT_PP(3)), &to_unit);
-	if (st == NTR_OK)
-		st = ntr_convert(analyte, PG_GETARG_FLOAT8(0), from_unit, to_unit, &out);
+	for (k = 0; k < 2; k++)
+	{
+		given[k] = text_to_cstring(PG_GETARG_TEXT_PP(2 + k));
+		if (ntr_unit_parse(given[k], &units[k]) != NTR_OK)
+		{
+			if (checked)
+				report_unit(f, given[k], NULL);
+			PG_RETURN_NULL();
+		}
+	}
+	st = ntr_convert(analyte, PG_GETARG_FLOAT8(0), units[0], units[1], &out);
+	if (st == NTR_ERR_UNIT && checked)
+	{
+		/* Which of the two does not fit: the one that fails on its own. */
+		k = ntr_convert(analyte, 1.0, units[0], units[0], &probe) == NTR_OK ? 1 : 0;
+		report_unit(f, given[k], name_of(analytes, analyte));
+	}
 	RETURN_DOUBLE(f, checked, st, out);
 }
 NTRPG_PAIR(convert)
+
+/* A unit as laboratory feeds spell it (mEq/L, mg/dl, mOsm/kg H2O, umol/L
+ * with a micro sign) turned into the strict UCUM code (since 1.1). */
+static Datum
+unit_normalize_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_unit_normalize_checked" : "ntr_unit_normalize";
+	char	   *given = text_to_cstring(PG_GETARG_TEXT_PP(0));
+	int			unit = 0;
+
+	if (ntr_unit_parse_lenient(given, &unit) != NTR_OK)
+	{
+		if (checked)
+			ereport(ERROR,
+					(errcode(ERRCODE_INVALID_PARAMETER_VALUE),
+					 errmsg("%s: unit \"%s\" is not known", f, given),
+					 errdetail("natremia status NTR_ERR_UNIT (%d).", NTR_ERR_UNIT),
+					 errhint("docs/units.md lists the spellings read, and those refused "
+							 "as ambiguous (mOsm/L is an osmolarity, not an osmolality).")));
+		PG_RETURN_NULL();
+	}
+	PG_RETURN_TEXT_P(cstring_to_text(ucum_codes[unit]));
+}
+NTRPG_PAIR(unit_normalize)
+
+/* Analyte, specimen and unit of a checked LOINC code (since 1.1). */
+static Datum
+loinc_impl(FunctionCallInfo fcinfo, bool checked)
+{
+	const char *f = checked ? "ntr_loinc_checked" : "ntr_loinc";
+	char	   *given = text_to_cstring(PG_GETARG_TEXT_PP(0));
+	int			analyte = 0;
+	int			specimen = 0;
+	int			unit = 0;
+	TupleDesc	desc;
+	Datum		values[3];
+	bool		nulls[3] = {false, false, false};
+
+	if (ntr_loinc_lookup(given, &analyte, &specimen, &unit) != NTR_OK)
+	{
+		if (checked)
+			ereport(ERROR,
+					(errcode(ERRCODE_INVALID_PARAMETER_VALUE),
+					 errmsg("%s: LOINC code \"%s\" is not mapped", f, given),
+					 errdetail("natremia status NTR_ERR_UNIT (%d).", NTR_ERR_UNIT),
+					 errhint("Only codes checked against a published source are mapped; "
+							 "docs/units.md lists them and those not mapped until checked.")));
+		PG_RETURN_NULL();
+	}
+	if (get_call_result_type(fcinfo, NULL, &desc) != TYPEFUNC_COMPOSITE)
+		ereport(ERROR,
+				(errcode(ERRCODE_FEATURE_NOT_SUPPORTED),
+				 errmsg("natremia: the result of %s must be a record", f)));
+	desc = BlessTupleDesc(desc);
+	values[0] = PointerGetDatum(cstring_to_text(name_of(analytes, analyte)));
+	values[1] = PointerGetDatum(cstring_to_text(name_of(specimens, specimen)));
+	values[2] = PointerGetDatum(cstring_to_text(ucum_codes[unit]));
+	PG_RETURN_DATUM(HeapTupleGetDatum(heap_form_tuple(desc, values, nulls)));
+}
+NTRPG_PAIR(loinc)
 
 /* ---------------------------------------------------------------------
  * Work-up classifications and fractional excretion

@@ -142,6 +142,17 @@ static void setup(void)
  * of each function (glucose above the correction threshold, the last UCUM
  * code in the table, and so on). */
 PAIR(ntr_unit_parse, ntr_unit_parse("umol/L", &i), stub_p_ip("umol/L", &i))
+/* Since 1.1 (issue 13): the lenient parser on the last spelling of its
+ * table, with blanks to drop, capitals to fold and a micro sign; the LOINC
+ * lookup on the last code of its table; the glucose check with a measured
+ * osmolality (both rules evaluated). */
+PAIR(ntr_unit_parse_lenient, ntr_unit_parse_lenient(" \xc2\xb5MOL/L ", &i),
+     stub_p_ip(" \xc2\xb5MOL/L ", &i))
+PAIR(ntr_loinc_lookup, ntr_loinc_lookup("14933-6", &i, &i, &i),
+     stub_p_ippp("14933-6", &i, &i, &i))
+PAIR(ntr_glucose_unit_check,
+     ntr_glucose_unit_check(150.0, NTR_UNIT_MG_DL, 135.0, 290.0, &d),
+     stub_didd_p(150.0, NTR_UNIT_MG_DL, 135.0, 290.0, &d))
 PAIR(ntr_convert,
      ntr_convert(NTR_ANALYTE_GLUCOSE, 250.0, NTR_UNIT_MG_DL, NTR_UNIT_MMOL_L, &d),
      stub_idiid_p(NTR_ANALYTE_GLUCOSE, 250.0, NTR_UNIT_MG_DL, NTR_UNIT_MMOL_L, &d))
@@ -307,6 +318,9 @@ struct pair {
 
 static const struct pair pairs[] = {
     ENTRY(ntr_unit_parse),
+    ENTRY(ntr_unit_parse_lenient),
+    ENTRY(ntr_loinc_lookup),
+    ENTRY(ntr_glucose_unit_check),
     ENTRY(ntr_convert),
     ENTRY(ntr_osm_calculated),
     ENTRY(ntr_osm_effective),

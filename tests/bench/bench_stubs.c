@@ -2,6 +2,16 @@
 #include "bench_stubs.h"
 
 int stub_p_ip(const char *s, int *out) { (void)s; (void)out; return 0; }
+int stub_p_ippp(const char *s, int *out1, int *out2, int *out3)
+{
+    (void)s; (void)out1; (void)out2; (void)out3;
+    return 0;
+}
+int stub_didd_p(double a, int b, double c, double d, double *out)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)out;
+    return 0;
+}
 int stub_idiid_p(int a, double b, int c, int d, double *out)
 {
     (void)a; (void)b; (void)c; (void)d; (void)out;

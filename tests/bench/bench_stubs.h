@@ -9,6 +9,8 @@
 #include <stddef.h>
 
 int stub_p_ip(const char *s, int *out);
+int stub_p_ippp(const char *s, int *out1, int *out2, int *out3);
+int stub_didd_p(double a, int b, double c, double d, double *out);
 int stub_idiid_p(int a, double b, int c, int d, double *out);
 int stub_ddddi_p(double a, double b, double c, double d, int e, double *out);
 int stub_dd_p(double a, double b, double *out);

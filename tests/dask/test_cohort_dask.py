@@ -6,7 +6,8 @@ per invented patient (ntr_course_assess, the 1.1 engine), both with a
 preset per patient (by its goal) and with one preset for the cohort.
 
 Exit 77 (skipped) only when numpy, dask or distributed is not installed
-(apt-get install python3-numpy python3-dask python3-distributed).
+(apt-get install python3-numpy python3-pandas python3-dask
+python3-distributed).
 """
 
 import os
@@ -14,10 +15,13 @@ import sys
 
 try:
     import numpy as np
+    import pandas  # noqa: F401
     import dask  # noqa: F401
+    import dask.dataframe  # noqa: F401
     import distributed  # noqa: F401
 except ImportError as exc:
-    print("skipped: %s (apt-get install python3-dask python3-distributed)" % exc)
+    print("skipped: %s (apt-get install python3-pandas python3-dask "
+          "python3-distributed)" % exc)
     sys.exit(77)
 
 here = os.path.dirname(os.path.abspath(__file__))
@@ -76,48 +80,75 @@ def scalar_reference(preset):
 
 def check_serial(preset):
     serial = cohort_dask.run_serial(PATIENTS, PARTITIONS, SEED, preset)
-    check(serial["flags"].size == PATIENTS,
+    check(len(serial) == PATIENTS,
           "%s: serial result has one row per patient" % preset)
     ref = scalar_reference(preset)
-    check(serial["id"].tolist() == ref["id"], "%s: patient ids kept" % preset)
+    check(serial.index.name == "patient_id"
+          and serial.index.tolist() == ref["id"],
+          "%s: patient ids kept (the result's index)" % preset)
     check(serial["flags"].tolist() == ref["flags"]
           and serial["status"].tolist() == ref["status"],
           "%s: batch flags and statuses equal the scalar calls" % preset)
-    check(all(np.array_equal(serial[f], np.array(ref[f]), equal_nan=True)
+    check(all(np.array_equal(serial[f].to_numpy(), np.array(ref[f]),
+                             equal_nan=True)
               for f in cohort_dask.FIELDS),
           "%s: batch figures equal the scalar calls" % preset)
+    counts = {}
+    for pid in ref["id"]:
+        counts[pid] = 0
+    for index, n in enumerate(cohort_dask.partition_sizes(PATIENTS, PARTITIONS)):
+        ids = cohort_dask.partition_rows(index, n, SEED, preset)[0]
+        for pid in ids.tolist():
+            counts[pid] += 1
+    check(serial["samples"].tolist() == [counts[p] for p in ref["id"]],
+          "%s: results counted per patient" % preset)
     return serial
 
 
 def main():
     serials = {preset: check_serial(preset) for preset in PRESETS}
     per_patient = serials[cohort_dask.PER_PATIENT]
-    flags = per_patient["flags"]
+    flags = per_patient["flags"].to_numpy()
     # The invented cohort has falling high sodiums and rising low ones:
     # both directions are flagged when each patient has its goal's preset.
     check(np.count_nonzero(flags & int(F.FALL_OVER_24H)) > 0,
           "some invented high-sodium patients fall too fast")
     check(np.count_nonzero(flags & int(F.OVER_24H)) > 0,
           "some invented low-sodium patients rise too fast")
-    one_goal = serials["hypo_high_risk"]["flags"]
+    one_goal = serials["hypo_high_risk"]["flags"].to_numpy()
     check(np.count_nonzero(one_goal & int(F.WRONG_WAY)) > 0,
           "one raise preset for all: the falling patients move the wrong way")
+
+    frame = cohort_dask.cohort(PATIENTS, PARTITIONS, SEED,
+                               cohort_dask.PER_PATIENT)
+    check(frame.npartitions == PARTITIONS and frame.known_divisions
+          and frame.index.name == "patient_id",
+          "the cohort is a dask.dataframe partitioned by patient id "
+          "(known divisions)")
 
     cluster, client = cohort_dask.local_cluster(workers=2, threads=1)
     try:
         check(all(addr.startswith("tcp://127.0.0.1:")
                   for addr in client.scheduler_info()["workers"]),
               "workers listen on loopback")
-        results = {preset: cohort_dask.run_dask(client, PATIENTS, PARTITIONS,
-                                                SEED, preset)
+        trim = client.run(cohort_dask.environ_value,
+                          cohort_dask.MALLOC_VARIABLE)
+        check(len(trim) == 2 and all(v is None for v in trim.values()),
+              "the workers run without Dask's MALLOC_TRIM_THRESHOLD_ (%r)"
+              % (trim,))
+        omp = client.run(cohort_dask.environ_value, "OMP_NUM_THREADS")
+        check(all(v == "1" for v in omp.values()),
+              "Dask's other worker settings are kept (OMP_NUM_THREADS=1)")
+        results = {preset: cohort_dask.run_dask(PATIENTS, PARTITIONS, SEED,
+                                                preset)
                    for preset in PRESETS}
     finally:
         client.close()
         cluster.close()
     for preset in PRESETS:
         check(cohort_dask.same_result(results[preset], serials[preset]),
-              "%s: Dask result equals the serial computation bit for bit"
-              % preset)
+              "%s: Dask result equals the serial computation bit for bit, "
+              "patient ids matched" % preset)
     print("\n".join(cohort_dask.summary_lines(results[cohort_dask.PER_PATIENT],
                                               cohort_dask.PER_PATIENT)))
     return 0

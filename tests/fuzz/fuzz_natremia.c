@@ -248,8 +248,9 @@ static void fuzz_watch_stream(reader *r)
     }
 }
 
-/* ntr_unit_parse on an arbitrary NUL-terminated string held in a buffer of
- * exactly its size, so any read past the NUL is an ASan report. */
+/* ntr_unit_parse (and, since 1.1, ntr_unit_parse_lenient and
+ * ntr_loinc_lookup) on an arbitrary NUL-terminated string held in a buffer
+ * of exactly its size, so any read past the NUL is an ASan report. */
 static void fuzz_unit_string(reader *r)
 {
     static const char *const codes[] = {"mmol/L", "mg/dL", "meq/L", "mosm/kg", "g/L", "umol/L"};
@@ -275,6 +276,28 @@ static void fuzz_unit_string(reader *r)
         fprintf(stderr, "CONTRACT BREACH in ntr_unit_parse: status %d unit %d for \"%s\"\n",
                 st, unit, s);
         abort();
+    }
+    /* The 1.1 readers on the same exact-size buffer: the lenient parser
+     * agrees with the strict one wherever that one accepts, gives a known
+     * unit or NTR_ERR_UNIT with the output untouched; the LOINC lookup
+     * gives known enumerators or NTR_ERR_UNIT with all three untouched. */
+    {
+        int lenient = -12345, a = -12345, sp = -12345, u = -12345;
+        int ls = ntr_unit_parse_lenient(s, &lenient);
+        int cs = ntr_loinc_lookup(s, &a, &sp, &u);
+        if ((st == NTR_OK && (ls != NTR_OK || lenient != unit)) ||
+            (ls == NTR_OK && (lenient < NTR_UNIT_MMOL_L || lenient > NTR_UNIT_UMOL_L)) ||
+            (ls != NTR_OK && (ls != NTR_ERR_UNIT || lenient != -12345))) {
+            fprintf(stderr, "CONTRACT BREACH in ntr_unit_parse_lenient: status %d unit %d\n",
+                    ls, lenient);
+            abort();
+        }
+        if ((cs == NTR_OK && (a < 1 || a > NTR_ANALYTE_URIC_ACID || sp < 1 ||
+                              sp > NTR_SPECIMEN_URINE || u < 1 || u > NTR_UNIT_UMOL_L)) ||
+            (cs != NTR_OK && (cs != NTR_ERR_UNIT || a != -12345 || sp != -12345 || u != -12345))) {
+            fprintf(stderr, "CONTRACT BREACH in ntr_loinc_lookup: status %d\n", cs);
+            abort();
+        }
     }
     free(s);
 }

@@ -105,6 +105,97 @@ static const char *ok_unit_parse(const ntrc_case *c)
     return c->out.i[0] == c->en[0] + 1 ? NULL : "parsed to the wrong unit";
 }
 
+/* ntr_unit_parse_lenient (1.1): en[0] picks a string; the first twelve are
+ * accepted spellings (header list) with the unit each gives. */
+static const char *const lenient_strings[] = {
+    "mEq/L", "mmol/l", "MMOL/L", "mg/dl", "mOsm/kg", "mosm/kg H2O", "mOsm/kg{H2O}",
+    "\xc2\xb5mol/L", "\xce\xbcmol/L", "g/l", " mmol/L\t", "mOsmol/kg",
+    "mOsm/L", "Mmol/L", "mmol/kg", "mg%", "\xb5mol/L", "\xc2", "mmol / L", "",
+    "                                 mmol/L", "mosm/kg  H2O", "U/L",
+};
+static const int lenient_units[] = {
+    NTR_UNIT_MEQ_L, NTR_UNIT_MMOL_L, NTR_UNIT_MMOL_L, NTR_UNIT_MG_DL, NTR_UNIT_MOSM_KG,
+    NTR_UNIT_MOSM_KG, NTR_UNIT_MOSM_KG, NTR_UNIT_UMOL_L, NTR_UNIT_UMOL_L, NTR_UNIT_G_L,
+    NTR_UNIT_MMOL_L, NTR_UNIT_MOSM_KG,
+};
+#define N_LENIENT_STRINGS ((int)(sizeof lenient_strings / sizeof lenient_strings[0]))
+#define N_LENIENT_OK ((int)(sizeof lenient_units / sizeof lenient_units[0]))
+
+static int call_unit_parse_lenient(ntrc_case *c)
+{
+    int k = c->en[0];
+    const char *s = (k >= 0 && k < N_LENIENT_STRINGS) ? lenient_strings[k] : "?";
+    return ntr_unit_parse_lenient(in_null(c, 0) ? NULL : s, oi(c, 0));
+}
+
+static int predict_unit_parse_lenient(const ntrc_fn *f, const ntrc_case *c)
+{
+    (void)f;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    return (c->en[0] >= 0 && c->en[0] < N_LENIENT_OK) ? NTR_OK : NTR_ERR_UNIT;
+}
+
+static const char *ok_unit_parse_lenient(const ntrc_case *c)
+{
+    return c->out.i[0] == lenient_units[c->en[0]] ? NULL : "parsed to the wrong unit";
+}
+
+/* ntr_loinc_lookup (1.1): the twelve checked codes (tests/test_units.c
+ * cites the source of each) with their analyte, specimen and unit, then
+ * strings that are not codes of the table. */
+static const char *const loinc_strings[] = {
+    "2951-2", "2947-0", "2823-3", "2075-0", "2345-7", "14749-6", "15074-8", "14937-7",
+    "2160-0", "14682-9", "2161-8", "14933-6",
+    "", "2951-3", "2951", "2951-2 ", "14682-99", "LOINC:2951-2", "0000-0",
+};
+static const int loinc_expected[][3] = {
+    {NTR_ANALYTE_SODIUM, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_SODIUM, NTR_SPECIMEN_BLOOD, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_POTASSIUM, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_CHLORIDE, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_GLUCOSE, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MG_DL},
+    {NTR_ANALYTE_GLUCOSE, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_GLUCOSE, NTR_SPECIMEN_BLOOD, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_UREA_NITROGEN, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_CREATININE, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MG_DL},
+    {NTR_ANALYTE_CREATININE, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+    {NTR_ANALYTE_CREATININE, NTR_SPECIMEN_URINE, NTR_UNIT_MG_DL},
+    {NTR_ANALYTE_URIC_ACID, NTR_SPECIMEN_SERUM_PLASMA, NTR_UNIT_MMOL_L},
+};
+#define N_LOINC_STRINGS ((int)(sizeof loinc_strings / sizeof loinc_strings[0]))
+#define N_LOINC_OK ((int)(sizeof loinc_expected / sizeof loinc_expected[0]))
+
+static int call_loinc_lookup(ntrc_case *c)
+{
+    int k = c->en[0];
+    const char *s = (k >= 0 && k < N_LOINC_STRINGS) ? loinc_strings[k] : "?";
+    return ntr_loinc_lookup(in_null(c, 0) ? NULL : s, oi(c, 0), oi(c, 1), oi(c, 2));
+}
+
+static int predict_loinc_lookup(const ntrc_fn *f, const ntrc_case *c)
+{
+    (void)f;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    return (c->en[0] >= 0 && c->en[0] < N_LOINC_OK) ? NTR_OK : NTR_ERR_UNIT;
+}
+
+static const char *ok_loinc_lookup(const ntrc_case *c)
+{
+    const int *want = loinc_expected[c->en[0]];
+    double out;
+    if (c->out.i[0] != want[0] || c->out.i[1] != want[1] || c->out.i[2] != want[2]) {
+        return "code mapped to the wrong analyte, specimen or unit";
+    }
+    if (ntr_convert(c->out.i[0], 1.0, c->out.i[2], c->out.i[2], &out) != NTR_OK) {
+        return "the code's unit does not fit its analyte";
+    }
+    return NULL;
+}
+
 /* Units each analyte accepts (header, ntr_convert). */
 static int unit_fits(int analyte, int unit)
 {
@@ -118,8 +209,10 @@ static int unit_fits(int analyte, int unit)
         BIT(NTR_UNIT_MMOL_L) | BIT(NTR_UNIT_MG_DL) | BIT(NTR_UNIT_G_L) | BIT(NTR_UNIT_UMOL_L),
         BIT(NTR_UNIT_MMOL_L) | BIT(NTR_UNIT_MG_DL) | BIT(NTR_UNIT_G_L) | BIT(NTR_UNIT_UMOL_L),
         BIT(NTR_UNIT_MMOL_L) | BIT(NTR_UNIT_MG_DL) | BIT(NTR_UNIT_G_L) | BIT(NTR_UNIT_UMOL_L),
+        BIT(NTR_UNIT_MOSM_KG), /* osmolality (1.1): itself only */
+        BIT(NTR_UNIT_MMOL_L) | BIT(NTR_UNIT_MG_DL) | BIT(NTR_UNIT_G_L) | BIT(NTR_UNIT_UMOL_L),
     };
-    if (analyte < 1 || analyte > 8 || unit < 1 || unit > 30) {
+    if (analyte < 1 || analyte > 10 || unit < 1 || unit > 30) {
         return 0;
     }
     return (accepts[analyte] & BIT(unit)) != 0u;
@@ -131,7 +224,7 @@ static int predict_convert(const ntrc_fn *f, const ntrc_case *c)
     if (c->out_null != 0u) {
         return NTR_ERR_NULL;
     }
-    if (c->en[0] < 1 || c->en[0] > 8) {
+    if (c->en[0] < 1 || c->en[0] > 10) {
         return NTR_ERR_ARG;
     }
     if (!unit_fits(c->en[0], c->en[1]) || !unit_fits(c->en[0], c->en[2])) {
@@ -156,6 +249,65 @@ static const char *ok_convert(const ntrc_case *c)
     if (ntr_convert(c->en[0], c->out.d[0], c->en[2], c->en[1], &back) == NTR_OK &&
         !close_to(back, c->num[0], 1e-12)) {
         return "conversion does not round-trip";
+    }
+    return NULL;
+}
+
+/* ntr_glucose_unit_check (1.1). The glucose range is 0 to 200 mmol/L once
+ * converted, so the prediction converts with ntr_convert (its own entry
+ * checks it); the osmolality is 0 (not measured) or 150 to 600. */
+static int predict_glucose_unit_check(const ntrc_fn *f, const ntrc_case *c)
+{
+    int unit = c->en[0];
+    double g, osm = c->num[2];
+    int st;
+    (void)f;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    if (unit != NTR_UNIT_MMOL_L && unit != NTR_UNIT_MG_DL && unit != NTR_UNIT_G_L &&
+        unit != NTR_UNIT_UMOL_L) {
+        return NTR_ERR_UNIT;
+    }
+    st = ntr_convert(NTR_ANALYTE_GLUCOSE, c->num[0], unit, NTR_UNIT_MMOL_L, &g);
+    if (st != NTR_OK) {
+        return st;
+    }
+    if (g > 200.0) {
+        return NTR_ERR_RANGE;
+    }
+    if (!isfinite(c->num[1])) {
+        return NTR_ERR_NONFINITE;
+    }
+    if (c->num[1] < 80.0 || c->num[1] > 220.0) {
+        return NTR_ERR_RANGE;
+    }
+    if (osm != 0.0) {
+        if (!isfinite(osm)) {
+            return NTR_ERR_NONFINITE;
+        }
+        if (osm < 150.0 || osm > 600.0) {
+            return NTR_ERR_RANGE;
+        }
+    }
+    return NTR_OK; /* then NTR_OK or, by the rules, NTR_ERR_UNIT */
+}
+
+static int call_glucose_unit_check(ntrc_case *c)
+{
+    return ntr_glucose_unit_check(c->num[0], c->en[0], c->num[1], c->num[2], od(c, 0));
+}
+
+static const char *ok_glucose_unit_check(const ntrc_case *c)
+{
+    double g, floor_osm;
+    if (ntr_convert(NTR_ANALYTE_GLUCOSE, c->num[0], c->en[0], NTR_UNIT_MMOL_L, &g) != NTR_OK ||
+        c->out.d[0] != g) {
+        return "glucose not the ntr_convert value in mmol/L";
+    }
+    floor_osm = 1.86 * c->num[1] + g + 9.0;
+    if (floor_osm > 600.0 + 1e-9 || (c->num[2] != 0.0 && floor_osm > c->num[2] + 20.0 + 1e-9)) {
+        return "passed a glucose whose Dorwart-Chalmers floor breaks a rule";
     }
     return NULL;
 }
@@ -949,6 +1101,33 @@ static int results_outlook(const ntrc_case *c, double *v, int max)
     v[8] = o->nacl_g_day;
     v[9] = (double)o->flags;
     return 10;
+}
+
+/* ---- input ranges ---------------------------------------------------------------- */
+
+/* NTR_INPUT_* kinds of this version: 1 to 39 without gaps. */
+#define INPUT_KINDS 39
+
+static int call_input_range(ntrc_case *c)
+{
+    return ntr_input_range(c->en[0], od(c, 0), od(c, 1));
+}
+
+static int predict_input_range(const ntrc_fn *f, const ntrc_case *c)
+{
+    (void)f;
+    if (c->out_null != 0u) {
+        return NTR_ERR_NULL;
+    }
+    return (c->en[0] >= 1 && c->en[0] <= INPUT_KINDS) ? NTR_OK : NTR_ERR_ARG;
+}
+
+static const char *ok_input_range(const ntrc_case *c)
+{
+    double lo = c->out.d[0], hi = c->out.d[1];
+    return (isfinite(lo) && isfinite(hi) && lo < hi && lo >= -1.0e6 && hi <= 1.0e6)
+               ? NULL
+               : "range not finite, empty or beyond the largest constant (1e6)";
 }
 
 /* ---- provenance ---------------------------------------------------------------- */
@@ -4104,12 +4283,27 @@ const ntrc_fn ntrc_functions[] = {
      .n_out_i = 1, .n_in_ptr = 1, .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_UNIT),
      .predict = predict_unit_parse, .check_ok = ok_unit_parse},
     {CALL(convert), .n_enum = 3,
-     .en = {{"analyte", NTR_ERR_ARG, 8, {1, 2, 3, 4, 5, 6, 7, 8}}, UNIT_ENUM("from_unit"),
+     .en = {{"analyte", NTR_ERR_ARG, 10, {1, 2, 3, 4, 5, 6, 7, 8, 9, 10}}, UNIT_ENUM("from_unit"),
             UNIT_ENUM("to_unit")},
      .n_num = 1, .num = {{"value", 0.0, 1.0e6, 0}}, .n_out_d = 1,
      .statuses = OK_COMMON | ST(ERR_ARG) | ST(ERR_UNIT), .base_num = {5.5},
      .base_en = {NTR_ANALYTE_GLUCOSE, NTR_UNIT_MMOL_L, NTR_UNIT_MG_DL},
      .predict = predict_convert, .check_ok = ok_convert},
+    {CALL(unit_parse_lenient), .n_enum = 1,
+     .en = {{"text", NTR_ERR_UNIT, 12, {0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11}}},
+     .n_out_i = 1, .n_in_ptr = 1, .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_UNIT),
+     .predict = predict_unit_parse_lenient, .check_ok = ok_unit_parse_lenient},
+    {CALL(loinc_lookup), .n_enum = 1,
+     .en = {{"code", NTR_ERR_UNIT, 12, {0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11}}},
+     .n_out_i = 3, .n_in_ptr = 1, .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_UNIT),
+     .predict = predict_loinc_lookup, .check_ok = ok_loinc_lookup},
+    {CALL(glucose_unit_check), .n_enum = 1,
+     .en = {{"unit", NTR_ERR_UNIT, 4,
+             {NTR_UNIT_MMOL_L, NTR_UNIT_MG_DL, NTR_UNIT_G_L, NTR_UNIT_UMOL_L}}},
+     .n_num = 3, .num = {{"glucose", 0.0, 200.0, 0}, NA, {"measured_osm_mosm_kg", 0.0, 600.0, 0}},
+     .n_out_d = 1, .statuses = OK_COMMON | ST(ERR_UNIT), .may_fail = ST(ERR_UNIT),
+     .base_num = {8.0, 135.0, 280.0}, .base_en = {NTR_UNIT_MMOL_L},
+     .predict = predict_glucose_unit_check, .check_ok = ok_glucose_unit_check},
     /* osmolality */
     {CALL(osm_calculated), .n_enum = 1,
      .en = {{"formula", NTR_ERR_ARG, 2, {NTR_OSM_2NA, NTR_OSM_DORWART_CHALMERS}}}, .n_num = 4,
@@ -4252,6 +4446,11 @@ const ntrc_fn ntrc_functions[] = {
      .base_num = {600.0, 500.0, 150.0, 60.0, 125.0, 0.4, 1.0}, .base_en = {0},
      .prepare_out = prepare_outlook, .results = results_outlook,
      .check_ok = ok_restriction_outlook},
+    /* input ranges */
+    {CALL(input_range), .n_enum = 1,
+     .en = {{"kind", NTR_ERR_ARG, 10, {1, 2, 5, 10, 14, 22, 27, 36, 38, 39}}}, .n_out_d = 2,
+     .statuses = ST(OK) | ST(ERR_NULL) | ST(ERR_ARG), .base_en = {NTR_INPUT_NA},
+     .predict = predict_input_range, .check_ok = ok_input_range},
     /* provenance */
     {CALL(method_info), .n_enum = 1,
      .en = {{"method", NTR_ERR_ARG, 10, {1, 11, 18, 30, 39, 50, 56, 14, 70, 74}}}, .n_in_ptr = 1,

@@ -465,6 +465,70 @@ SELECT pg_temp.raises('tonicity checked NaN',
 SELECT pg_temp.raises('tonicity checked method',
     $q$SELECT ntr_low_na_effective_tonicity_checked(125, 5, 40, 0, 295, 'guess')$q$, '22023');
 
+-- ------------------------------------------------------------ 1.1: units (issue 13)
+-- Runs a statement and expects an error whose message contains a text.
+CREATE FUNCTION pg_temp.says(label text, statement text, fragment text)
+RETURNS void LANGUAGE plpgsql AS $$
+DECLARE
+    got text;
+BEGIN
+    BEGIN
+        EXECUTE statement;
+    EXCEPTION WHEN OTHERS THEN
+        got := SQLERRM;
+    END;
+    IF got IS NULL OR strpos(got, fragment) = 0 THEN
+        RAISE EXCEPTION 'check failed: % said %, expected a message with %', label,
+            coalesce(got, 'nothing'), fragment;
+    END IF;
+END $$;
+
+-- Unit errors speak of units (issue 13), not of ranges.
+SELECT pg_temp.says('unknown unit named',
+    $q$SELECT ntr_convert_checked(1, 'glucose', 'MG/DL', 'mmol/L')$q$,
+    'unit "MG/DL" is not known');
+SELECT pg_temp.says('unknown target unit named',
+    $q$SELECT ntr_convert_checked(1, 'glucose', 'mg/dL', 'mmol/l')$q$,
+    'unit "mmol/l" is not known');
+SELECT pg_temp.says('unit that does not fit',
+    $q$SELECT ntr_convert_checked(5, 'glucose', 'meq/L', 'mmol/L')$q$,
+    'unit "meq/L" does not fit analyte "glucose"');
+SELECT pg_temp.says('target unit that does not fit',
+    $q$SELECT ntr_convert_checked(290, 'osmolality', 'mosm/kg', 'mmol/L')$q$,
+    'unit "mmol/L" does not fit analyte "osmolality"');
+SELECT pg_temp.raises('unit that does not fit, SQLSTATE',
+    $q$SELECT ntr_convert_checked(5, 'glucose', 'meq/L', 'mmol/L')$q$, '22023');
+SELECT pg_temp.same('unknown unit gives NULL',
+    ntr_convert(1, 'glucose', 'mg/dl', 'mmol/L'), NULL::float8);
+-- The 1.1 analytes. Sources: Spasovski et al. 2014 (uric acid 4 mg/dL =
+-- 0.24 mmol/L, the guideline's rounding); osmolality converts to itself.
+SELECT pg_temp.near('uric acid mg/dL', ntr_convert(4, 'uric_acid', 'mg/dL', 'mmol/L'),
+                    0.24, 0.005);
+SELECT pg_temp.same('osmolality identity',
+                    ntr_convert(287.5, 'osmolality', 'mosm/kg', 'mosm/kg'), 287.5::float8);
+-- Lab spellings (docs/units.md; UCUM and common practice).
+SELECT pg_temp.same('mEq/L', ntr_unit_normalize('mEq/L'), 'meq/L');
+SELECT pg_temp.same('mg/dl', ntr_unit_normalize('mg/dl'), 'mg/dL');
+SELECT pg_temp.same('mOsm/kg H2O', ntr_unit_normalize(' mOsm/kg H2O '), 'mosm/kg');
+SELECT pg_temp.same('micro sign', ntr_unit_normalize(E'\u00b5mol/L'), 'umol/L');
+SELECT pg_temp.same('mOsm/L refused', ntr_unit_normalize('mOsm/L'), NULL::text);
+SELECT pg_temp.says('mOsm/L refused, checked',
+    $q$SELECT ntr_unit_normalize_checked('mOsm/L')$q$, 'unit "mOsm/L" is not known');
+SELECT pg_temp.near('lab spelling then convert',
+    ntr_convert(90, 'glucose', ntr_unit_normalize('mg/dl'), ntr_unit_normalize('MMOL/L')),
+    90 / 18.0156, 1e-3);
+-- LOINC (checked codes; tests/test_units.c names the source of each):
+-- 2951-2 from the HL7 FHIR R4 example Bundle 72ac8493 and the project's
+-- checked sources, 14933-6 and 14749-6 from the same Bundle.
+SELECT pg_temp.same('LOINC sodium', (SELECT row(l.analyte, l.specimen, l.unit)::text
+                                     FROM ntr_loinc('2951-2') l), '(sodium,serum_plasma,mmol/L)');
+SELECT pg_temp.same('LOINC urate', (SELECT row(l.analyte, l.specimen, l.unit)::text
+                                    FROM ntr_loinc('14933-6') l), '(uric_acid,serum_plasma,mmol/L)');
+SELECT pg_temp.same('LOINC glucose mass', (ntr_loinc('2345-7')).unit, 'mg/dL');
+SELECT pg_temp.same('LOINC unknown', (ntr_loinc('2951-3')).analyte, NULL::text);
+SELECT pg_temp.says('LOINC unknown, checked',
+    $q$SELECT ntr_loinc_checked('2951-3')$q$, 'LOINC code "2951-3" is not mapped');
+
 -- ------------------------------------------------------------ upgrade 1.0 -> 1.1
 -- A fresh 1.1 and a 1.0 updated with ALTER EXTENSION hold the same objects,
 -- and both the 1.0 and the course aggregates work after the update.

@@ -136,3 +136,25 @@ test('Berl 2008: urine volume from solute excretion', () => {
   // Added urea (60.056 g/mol, IUPAC) raises the osmoles: 30 g -> 499.5 mOsm.
   near(n.solute_dose_osmoles(C.NTR_SOLUTE_UREA, 30), 30000 / 60.056, 1e-9, 'urea osmoles');
 });
+
+test('LOINC codes and lab unit spellings through the string marshalling', () => {
+  // LOINC 2951-2 "Sodium [Moles/volume] in Serum or Plasma" and 2345-7
+  // "Glucose [Mass/volume] in Serum or Plasma": /work/shared/sources.md
+  // (LOINC, as used in HL7 FHIR published examples); 14933-6 "Urate
+  // [Moles/volume] in Serum or Plasma": HL7 FHIR R4 examples
+  // (hl7.fhir.r4.examples 4.0.1, Bundle-72ac8493-...).
+  assert.deepEqual(n.loinc_lookup('2951-2'),
+    { analyte: C.NTR_ANALYTE_SODIUM, specimen: C.NTR_SPECIMEN_SERUM_PLASMA, unit: C.NTR_UNIT_MMOL_L });
+  assert.deepEqual(n.loinc_lookup('2345-7'),
+    { analyte: C.NTR_ANALYTE_GLUCOSE, specimen: C.NTR_SPECIMEN_SERUM_PLASMA, unit: C.NTR_UNIT_MG_DL });
+  assert.deepEqual(n.loinc_lookup('14933-6'),
+    { analyte: C.NTR_ANALYTE_URIC_ACID, specimen: C.NTR_SPECIMEN_SERUM_PLASMA, unit: C.NTR_UNIT_MMOL_L });
+  assert.throws(() => n.loinc_lookup('0000-0'), (e) => e instanceof n.NatremiaError && e.status === C.NTR_ERR_UNIT);
+  // UCUM's case-insensitive forms and common lab spellings (docs/units.md).
+  assert.equal(n.unit_parse_lenient('mEq/L'), C.NTR_UNIT_MEQ_L);
+  assert.equal(n.unit_parse_lenient(' mmol/l '), C.NTR_UNIT_MMOL_L);
+  assert.equal(n.unit_parse_lenient('mOsm/kg H2O'), C.NTR_UNIT_MOSM_KG);
+  assert.equal(n.unit_parse_lenient('\u00b5mol/L'), C.NTR_UNIT_UMOL_L); // UTF-8 micro sign
+  // mOsm/L is an osmolarity, not an osmolality: refused.
+  assert.throws(() => n.unit_parse_lenient('mOsm/L'), (e) => e instanceof n.NatremiaError && e.status === C.NTR_ERR_UNIT);
+});

@@ -43,9 +43,14 @@ const RESULTS = {
 // (0 = the caller's size is the library's; only that mode is replayed).
 const SIZE_MODE_LAST = new Set(['ntr_restriction_outlook', 'ntr_vaptan_watch_preset']);
 // Functions whose enumerators describe struct members, or whose results
-// are private watcher state or a struct input: the C generator covers them.
+// are private watcher state or a struct input, or whose string inputs are
+// picked from the fuzz contract's own tables (the lenient unit parser, the
+// LOINC lookup): the C generator, run under WASI in
+// wasm-refvectors.test.mjs, covers them; published.test.mjs calls the two
+// string functions through the JavaScript methods.
 const NOT_REPLAYED = new Set(['ntr_siad_evaluate', 'ntr_siad_findings_init', 'ntr_method_info',
-  'ntr_watch_init', 'ntr_course_watch_init', 'ntr_urine_interval_flow']);
+  'ntr_watch_init', 'ntr_course_watch_init', 'ntr_urine_interval_flow',
+  'ntr_unit_parse_lenient', 'ntr_loinc_lookup']);
 // Call-level enumerators of the batch forms: the scalar entry's base_en in
 // tests/fuzz/ntr_contract.c; per-row sex cycles through {male, female}.
 const BATCH_CALL_ENUM = {

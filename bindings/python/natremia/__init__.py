@@ -17,6 +17,7 @@ from ._core import (  # noqa: F401
     OK, ERR_NULL, ERR_NONFINITE, ERR_RANGE, ERR_UNIT, ERR_DOMAIN, ERR_ORDER,
     ERR_CAPACITY, ERR_ARG, STATUS_NAMES,
     NatremiaError, status_name, status_message, version, method_info, methods,
+    library_path, InputKind, InputRange, input_range,
     MethodInfo,
     Unit, Analyte, OsmFormula, GlucoseMethod, Sex, Fluid, Restriction,
     LimitsPreset, CorrectionFlag, OdsFactor,
@@ -43,6 +44,10 @@ from ._course import (  # noqa: F401
     CourseReport, course_limits_preset, course_preset_names, course_assess,
     BreachDirection, CoursePlanResult, course_plan_check, CourseWatch,
 )
+from ._units import (  # noqa: F401
+    Specimen, LoincInfo, ANALYTE_OSMOLALITY, ANALYTE_URIC_ACID, UNIT_TEXT_MAX,
+    unit_parse_lenient, loinc_lookup, glucose_unit_check, convert_array,
+)
 from ._fit import (  # noqa: F401
     FitFlag, FIT_FLAG_LABELS, CourseFit, course_fit, fit_reproject,
     FeedbackFlag, FEEDBACK_FLAG_LABELS, UrineFeedback, urine_feedback,
@@ -56,8 +61,9 @@ CAUTION = ("Estimates for decision support, not orders. Verify with measured "
 
 
 def __getattr__(name):
-    # natremia.arrays needs numpy: load it only when asked for.
-    if name == "arrays":
+    # natremia.arrays needs numpy: load it only when asked for (and
+    # natremia.fhir, the FHIR R4 reader, likewise).
+    if name in ("arrays", "fhir"):
         import importlib
-        return importlib.import_module(".arrays", __name__)
+        return importlib.import_module("." + name, __name__)
     raise AttributeError("module 'natremia' has no attribute %r" % (name,))

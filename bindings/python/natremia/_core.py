@@ -7,12 +7,23 @@ NTR_OK, so a result that comes back is always a valid one.
 
 import ctypes
 import enum
+import math
+import numbers
+import operator
+import os
+import re
 from collections import namedtuple
 from dataclasses import dataclass
+from typing import Union
 
 from ._loader import load
 
 _lib = load()
+
+try:  # the optional accelerator of the scalar calls (src/_speed.c)
+    from . import _speed
+except ImportError:
+    _speed = None
 
 c_double = ctypes.c_double
 c_int = ctypes.c_int
@@ -63,13 +74,18 @@ class NatremiaError(ValueError):
 
     Attributes: ``status`` (the C status code), ``status_name`` (such as
     'NTR_ERR_RANGE'), ``message`` (the library's description), ``function``
-    (the Python name that failed) and, for array functions, ``row`` (index
+    (the Python name that failed), ``argument`` and ``value`` (the input
+    that failed, when one did), ``accepted`` (its accepted range or
+    values, from ntr_input_range) and, for array functions, ``row`` (index
     of the first failing row in the flattened input) and ``failed`` (how many
     rows failed). ``detail`` holds any extra explanation from the binding.
     """
 
     def __init__(self, status, function, detail=None, row=None, failed=None,
-                 argument=None, group_id=None, value=None):
+                 argument=None, group_id=None, value=None, accepted=None):
+        if accepted is None and isinstance(argument, str):
+            accepted = _accepted_for_name(argument)
+        self.accepted = accepted
         self.status = int(status)
         self.status_name = status_name(status)
         self.message = status_message(status)
@@ -85,6 +101,8 @@ class NatremiaError(ValueError):
             text += " in argument %s" % (argument,)
             if value is not None:
                 text += " (given %r)" % (value,)
+        if accepted is not None:
+            text += "; accepted: %s" % (accepted,)
         if row is not None:
             text += "; first failing row %d, %d row(s) failed" % (row, failed)
         if group_id is not None:
@@ -207,9 +225,37 @@ def _blame(cname, args, status):
     return None, None
 
 
+def _number(value, argument, cname, function):
+    """A numeric input as float: int, float and numpy numbers; bool, None,
+    pd.NA, strings and the like raise a TypeError naming the argument."""
+    if value.__class__ is float:
+        return value
+    if (isinstance(value, numbers.Real) and not isinstance(value, bool)
+            and type(value).__name__ != "bool_"):
+        return float(value)
+    accepted = _accepted_text(cname, argument)
+    raise TypeError("%s: argument %s must be a number%s, not %r" % (
+        function, argument, " (%s)" % accepted if accepted else "", value))
+
+
+def _numbers(cname, pyname, args):
+    """Every double input of a call through _number (enumerators, already
+    converted by _enum, pass as they are)."""
+    names = _ARGUMENTS.get(cname, ((), ()))
+    argtypes = _PROTOTYPES[cname][1]
+    out = list(args)
+    for i, value in enumerate(args):
+        if argtypes[i] is c_double and value.__class__ is not float:
+            name = names[0][i] if i < len(names[0]) else "argument %d" % i
+            out[i] = _number(value, name, cname, pyname)
+    return out
+
+
 def _call(cname, pyname, args, outs):
     """Call a C function with inputs and output objects; raise a
-    NatremiaError naming the failing argument on any status but NTR_OK."""
+    NatremiaError naming the failing argument and its accepted range on
+    any status but NTR_OK."""
+    args = _numbers(cname, pyname, args)
     status = _fn(cname)(*args, *[ctypes.byref(o) for o in outs])
     if status != OK:
         detail = None
@@ -218,7 +264,67 @@ def _call(cname, pyname, args, outs):
                       "defined for them together")
         argument, value = _blame(cname, args, status)
         raise NatremiaError(status, pyname, detail=detail, argument=argument,
-                            value=value)
+                            value=value,
+                            accepted=_accepted_text(cname, argument))
+
+
+def _defer(*args):
+    """Stand-in of an accelerated call: always leaves it to ctypes."""
+    return None
+
+
+def _fast(cname, signature):
+    """The accelerated callable of a C function (natremia._speed), bound
+    once at import to the function's address in the loaded library; or
+    _defer when the accelerator is absent, switched off
+    (NATREMIA_NO_SPEEDUP=1) or the library lacks the function."""
+    try:
+        fn = _fn(cname)
+    except AttributeError:
+        return _defer
+    if _speed is None or os.environ.get("NATREMIA_NO_SPEEDUP"):
+        return _ctypes_fast(fn, signature)
+    return _speed.bind(ctypes.cast(fn, ctypes.c_void_p).value,
+                       getattr(_speed, signature))
+
+
+# Positions of the int input in each signature of natremia._speed.
+_INT_POSITION = {"SIG_I_D1": 0, "SIG_I_D2": 0, "SIG_I_D3": 0, "SIG_D2_I": -1,
+                 "SIG_D4_I": -1}
+
+
+def _ctypes_fast(fn, signature):
+    """The ctypes form of an accelerated call, for when natremia._speed is
+    not built: the same contract (result, status, or None to defer), with
+    the prototype bound once; only exact floats and ints (an int input
+    within C int) are taken, so ctypes never wraps or coerces."""
+    where = _INT_POSITION.get(signature)
+    int_out = signature == "SIG_D1_OI"
+    byref = ctypes.byref
+    out_type = c_int if int_out else c_double
+
+    def call(*args):
+        for i, a in enumerate(args):
+            cls = a.__class__
+            if cls is float:
+                if where is not None and (i == where or i - len(args) == where):
+                    return None
+            elif cls is int:
+                if not _INT_MIN <= a <= _INT_MAX:
+                    return None
+            else:
+                return None
+        out = out_type()
+        status = fn(*args, byref(out))
+        return out.value if status == OK else status
+
+    return call
+
+
+def speedup_active() -> bool:
+    """True when the scalar calls run through the compiled accelerator
+    (natremia._speed) rather than ctypes alone."""
+    return _speed is not None and not os.environ.get("NATREMIA_NO_SPEEDUP")
 
 
 # ---------------------------------------------------------------------------
@@ -340,6 +446,7 @@ _PROTOTYPES = {
     "ntr_fluid_allowance": (c_int, [_D, _D, _D, _D, _D, _D, _PD]),
     "ntr_solute_dose_osmoles": (c_int, [c_int, _D, _PD]),
     "ntr_fe_uric_acid_class": (c_int, [_D, _PI]),
+    "ntr_input_range": (c_int, [c_int, _PD, _PD]),
 }
 
 _declared = {}
@@ -374,6 +481,37 @@ def _double_result(cname, pyname, *args):
     return out.value
 
 
+def _dbl(fast, cname, pyname, *args):
+    """A double result: the accelerated call when it can take the
+    arguments and succeeds, else the ctypes call that names any failure."""
+    r = fast(*args)
+    if r.__class__ is float:
+        return r
+    return _double_result(cname, pyname, *args)
+
+
+# Accelerated callables, bound once at import (see _fast).
+_FAST_OSM_EFFECTIVE = _fast("ntr_osm_effective", "SIG_D2")
+_FAST_TBW_FRACTION = _fast("ntr_tbw_fraction", "SIG_I_D2")
+_FAST_OSM_GAP = _fast("ntr_osm_gap", "SIG_D2")
+_FAST_NA_CORRECTED_GLUCOSE_FACTOR = _fast("ntr_na_corrected_glucose_factor", "SIG_D3")
+_FAST_NA_DEFICIT = _fast("ntr_na_deficit", "SIG_D3")
+_FAST_TBW_WATSON = _fast("ntr_tbw_watson", "SIG_I_D3")
+_FAST_FREE_WATER_DEFICIT = _fast("ntr_free_water_deficit", "SIG_D2")
+_FAST_INFUSATE_CHANGE_PER_LITRE = _fast("ntr_infusate_change_per_litre", "SIG_D4")
+_FAST_INFUSATE_CHANGE = _fast("ntr_infusate_change", "SIG_D5")
+_FAST_INFUSATE_VOLUME_FOR_CHANGE = _fast("ntr_infusate_volume_for_change", "SIG_D5")
+_FAST_FURST_RATIO = _fast("ntr_furst_ratio", "SIG_D3")
+_FAST_EFWC = _fast("ntr_efwc", "SIG_D4")
+_FAST_EFFECTIVE_OSM_MEASURED = _fast("ntr_effective_osm_measured", "SIG_D5")
+_FAST_FRACTIONAL_EXCRETION = _fast("ntr_fractional_excretion", "SIG_D4")
+_FAST_URINE_VOLUME_FROM_SOLUTE = _fast("ntr_urine_volume_from_solute", "SIG_D2")
+_FAST_FLUID_ALLOWANCE = _fast("ntr_fluid_allowance", "SIG_D6")
+_FAST_OSM_CALCULATED = _fast("ntr_osm_calculated", "SIG_D4_I")
+_FAST_NA_CORRECTED_GLUCOSE = _fast("ntr_na_corrected_glucose", "SIG_D2_I")
+_FAST_SOLUTE_DOSE_OSMOLES = _fast("ntr_solute_dose_osmoles", "SIG_I_D1")
+
+
 # ---------------------------------------------------------------------------
 # Enumerators: IntEnum members, their int values, or their names as strings
 # ---------------------------------------------------------------------------
@@ -396,6 +534,8 @@ class Analyte(enum.IntEnum):
     UREA_NITROGEN = 6
     CREATININE = 7
     ETHANOL = 8
+    OSMOLALITY = 9   # since 1.1 (mosm/kg only)
+    URIC_ACID = 10   # since 1.1
 
 
 class OsmFormula(enum.IntEnum):
@@ -466,25 +606,245 @@ _ALIASES = {
 }
 
 
+_INT_MIN, _INT_MAX = -2 ** 31, 2 ** 31 - 1
+_NAME_CODES = {}  # (enumeration, string) -> code, filled on first use
+
+
+# Spellings of sex the hot path maps without a call (others go to _enum).
+_SEX_NAMES = {}
+for _name, _code in (("male", 1), ("m", 1), ("female", 2), ("f", 2)):
+    for _spelling in (_name, _name.upper(), _name.title()):
+        _SEX_NAMES[_spelling] = _code
+del _name, _code, _spelling
+
+
+def _enum_names(cls):
+    return ", ".join("%s (%d)" % (m.name.lower(), int(m)) for m in cls)
+
+
+def _enum_name(cls, value, argname, function):
+    key = value.strip().lower()
+    alias = _ALIASES.get(cls, {}).get(key)
+    if alias is not None:
+        return int(alias)
+    for member in cls:
+        if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
+            return int(member)
+    raise NatremiaError(ERR_ARG, function, "unknown %s %r" % (argname, value),
+                        argument=argname, value=value,
+                        accepted=_enum_names(cls))
+
+
+def _exact_int(value, argname, function, accepted):
+    """An integer code given exactly: a Python or numpy integer, or a float
+    holding an integer exactly (2.0 from a pandas column). A bool or a
+    non-integral number (1.9) raises TypeError; a code beyond C int (which
+    ctypes would wrap: 2**32 + 2 becomes 2) raises NatremiaError
+    (NTR_ERR_ARG). Both name the argument and what it accepts."""
+    if isinstance(value, bool) or type(value).__name__ == "bool_":
+        raise TypeError("%s: argument %s must be an integer code or a name, "
+                        "not a bool (accepted: %s)" % (function, argname,
+                                                       accepted))
+    if isinstance(value, numbers.Integral):
+        code = operator.index(value)
+    elif (isinstance(value, numbers.Real) and math.isfinite(value)
+          and float(value).is_integer()):
+        code = int(value)
+    else:
+        raise TypeError("%s: argument %s must be an exact integer code or a "
+                        "name, not %r (accepted: %s)" % (
+                            function, argname, value, accepted))
+    if not _INT_MIN <= code <= _INT_MAX:
+        raise NatremiaError(ERR_ARG, function, "code %d is beyond C int"
+                            % code, argument=argname, value=value,
+                            accepted=accepted)
+    return code
+
+
 def _enum(cls, value, argname, function):
-    """An enumerator as int: a member, an int, or a (case-blind) name."""
+    """An enumerator as int: a member, an exact integer code (int, numpy
+    integer, or a float holding an integer exactly), or a case-blind name.
+    Anything else is refused: a non-integral number (1.9) or a bool with
+    TypeError, a code the enumeration does not have (2**32 + 2, 7) with
+    NatremiaError (a ValueError, status NTR_ERR_ARG); both name the
+    argument and its accepted values."""
     if isinstance(value, str):
-        key = value.strip().lower()
-        alias = _ALIASES.get(cls, {}).get(key)
-        if alias is not None:
-            return int(alias)
-        for member in cls:
-            if member.name.lower() == key.replace("-", "_").replace(" ", "_"):
-                return int(member)
-        raise NatremiaError(ERR_ARG, function, "unknown %s %r; one of %s" % (
-            argname, value, ", ".join(m.name.lower() for m in cls)),
-            argument=argname, value=value)
-    return int(value)
+        code = _NAME_CODES.get((cls, value))
+        if code is None:
+            code = _NAME_CODES[(cls, value)] = _enum_name(cls, value, argname,
+                                                          function)
+        return code
+    if isinstance(value, cls):
+        return int(value)
+    code = _exact_int(value, argname, function, _enum_names(cls))
+    if code not in cls._value2member_map_:
+        raise NatremiaError(ERR_ARG, function, "unknown %s code %d" % (
+            argname, code), argument=argname, value=value,
+            accepted=_enum_names(cls))
+    return code
+
+
+# ---------------------------------------------------------------------------
+# Accepted ranges as the library states them (ntr_input_range, since 1.1)
+# ---------------------------------------------------------------------------
+
+class InputKind(enum.IntEnum):
+    """Kinds of numeric input (NTR_INPUT_* in the C header)."""
+    NA = 1
+    GLUCOSE = 2
+    UREA = 3
+    ETHANOL = 4
+    OSMOLALITY = 5
+    AGE_FRACTION = 6
+    AGE_WATSON = 7
+    HEIGHT = 8
+    WEIGHT = 9
+    TBW = 10
+    INFUSATE_NA = 11
+    INFUSATE_K = 12
+    VOLUME = 13
+    DELTA = 14
+    URINE_NA = 15
+    URINE_K = 16
+    URINE_VOLUME = 17
+    URINE_OSM = 18
+    RATIO = 19
+    GLUCOSE_FACTOR = 20
+    CONVERT_VALUE = 21
+    HOURS = 22
+    LIMIT = 23
+    FLOW_RATE = 24
+    URINE_RATE = 25
+    PLAN_HOURS = 26
+    PLAN_STEP = 27
+    FLOW_VOLUME = 28
+    URINE_ML = 29
+    URIC_ACID = 30
+    FE_PERCENT = 31
+    FE_VALUE = 32
+    SOLUTE_MOSM_DAY = 33
+    INSENSIBLE_L_DAY = 34
+    SOLUTE_GRAMS = 35
+    INTAKE_L_DAY = 36
+    RELOWER_MARGIN = 37
+    INSENSIBLE_ML_H = 38
+    CHANGE = 39
+
+
+# The unit of each kind (the header's NTR_INPUT_* comments), and the two
+# kinds whose lower end itself is refused.
+_KIND_UNITS = {
+    1: "mmol/L", 2: "mmol/L", 3: "mmol/L", 4: "mmol/L", 5: "mOsm/kg",
+    6: "years", 7: "years", 8: "cm", 9: "kg", 10: "L", 11: "mmol/L",
+    12: "mmol/L", 13: "L", 14: "mmol/L", 15: "mmol/L", 16: "mmol/L", 17: "L",
+    18: "mOsm/kg", 19: "", 20: "mmol/L per 100 mg/dL", 21: "(its own unit)",
+    22: "h", 23: "mmol/L", 24: "mL/h", 25: "mL/h", 26: "h", 27: "h", 28: "L",
+    29: "mL", 30: "mmol/L", 31: "%", 32: "(any one unit per pair)",
+    33: "mOsm/day", 34: "L/day", 35: "g", 36: "L/day", 37: "mmol/L",
+    38: "mL/h", 39: "mmol/L",
+}
+_OPEN_MIN = frozenset({InputKind.INTAKE_L_DAY, InputKind.CHANGE})
+
+InputRange = namedtuple("InputRange", "kind min max min_open unit")
+
+
+def input_range(kind) -> InputRange:
+    """The accepted range of one kind of numeric input.
+
+    Parameters
+    ----------
+    kind : InputKind, int or str
+        The kind (``InputKind.NA``, ``1`` or ``"na"``).
+
+    Returns
+    -------
+    InputRange
+        ``(kind, min, max, min_open, unit)``: both ends are accepted
+        unless ``min_open`` (then only values above ``min``); read from the
+        library (ntr_input_range), which checks every input against them.
+    """
+    code = _enum(InputKind, kind, "kind", "input_range")
+    lo, hi = c_double(), c_double()
+    _check(_fn("ntr_input_range")(code, ctypes.byref(lo), ctypes.byref(hi)),
+           "input_range")
+    return InputRange(InputKind(code), lo.value, hi.value, code in _OPEN_MIN,
+                      _KIND_UNITS.get(code, ""))
+
+
+_K = InputKind
+# Argument name -> kind, for every name the scalar and array functions use;
+# (C function, argument) overrides where one name means another kind.
+_ARGUMENT_KINDS = {
+    "na_mmol_l": _K.NA, "target_na_mmol_l": _K.NA, "serum_na_mmol_l": _K.NA,
+    "baseline_na_mmol_l": _K.NA, "history_na_mmol_l": _K.NA,
+    "glucose_mmol_l": _K.GLUCOSE, "urea_mmol_l": _K.UREA,
+    "ethanol_mmol_l": _K.ETHANOL, "measured_mosm_kg": _K.OSMOLALITY,
+    "calculated_mosm_kg": _K.OSMOLALITY, "measured_osm_mosm_kg": _K.OSMOLALITY,
+    "age_years": _K.AGE_FRACTION, "height_cm": _K.HEIGHT,
+    "weight_kg": _K.WEIGHT, "tbw_l": _K.TBW,
+    "infusate_na_mmol_l": _K.INFUSATE_NA, "fluid_na_mmol_l": _K.INFUSATE_NA,
+    "infusate_k_mmol_l": _K.INFUSATE_K, "fluid_k_mmol_l": _K.INFUSATE_K,
+    "volume_l": _K.VOLUME, "target_delta_mmol_l": _K.DELTA,
+    "urine_na_mmol_l": _K.URINE_NA, "urine_k_mmol_l": _K.URINE_K,
+    "urine_volume_l": _K.URINE_VOLUME, "urine_osm_mosm_kg": _K.URINE_OSM,
+    "ratio": _K.RATIO, "factor_per_100mg_dl": _K.GLUCOSE_FACTOR,
+    "value": _K.CONVERT_VALUE, "hours": _K.HOURS,
+    "history_hours": _K.HOURS, "lower_by_mmol_l": _K.CHANGE,
+    "urine_ml_h": _K.URINE_RATE, "urine_x": _K.FE_VALUE,
+    "plasma_x": _K.FE_VALUE, "urine_creatinine": _K.FE_VALUE,
+    "plasma_creatinine": _K.FE_VALUE, "solute_mosm_day": _K.SOLUTE_MOSM_DAY,
+    "insensible_l_day": _K.INSENSIBLE_L_DAY, "grams": _K.SOLUTE_GRAMS,
+    "fe_uric_acid_percent": _K.FE_PERCENT, "duration_h": _K.PLAN_HOURS,
+    "step_h": _K.PLAN_STEP, "limits.": _K.LIMIT, "horizon_h": _K.PLAN_HOURS,
+}
+_ARGUMENT_KIND_OVERRIDES = {
+    ("ntr_tbw_watson", "age_years"): _K.AGE_WATSON,
+    ("ntr_batch_tbw_watson", "age_years"): _K.AGE_WATSON,
+    ("ntr_relower_estimate", "hours"): _K.PLAN_STEP,
+}
+del _K
+_RANGE_CACHE = {}
+
+
+def _accepted_for_name(argument):
+    """The accepted range of an argument named the way errors name them:
+    "na_mmol_l[2]" (a sample), "limits.max_fall_24h" (a limit), "tbw_l"."""
+    base = re.sub(r"\[\d+\]", "", argument)
+    if base.startswith("limits."):
+        return _accepted_text(None, "limits.")
+    return _accepted_text(None, base)
+
+
+def _accepted_text(cname, argument):
+    """'80 to 220 mmol/L' for an argument with a known kind, else None."""
+    if argument is None:
+        return None
+    kind = _ARGUMENT_KIND_OVERRIDES.get((cname, argument),
+                                        _ARGUMENT_KINDS.get(argument))
+    if kind is None:
+        return None
+    text = _RANGE_CACHE.get(kind)
+    if text is None:
+        try:
+            r = input_range(kind)
+        except (AttributeError, NatremiaError):  # a library before 1.1
+            return None
+        text = "%s%g to %g%s (%s)" % ("above " if r.min_open else "", r.min,
+                                       r.max, " " + r.unit if r.unit else "",
+                                       "NTR_INPUT_" + r.kind.name)
+        _RANGE_CACHE[kind] = text
+    return text
 
 
 # ---------------------------------------------------------------------------
 # Version and provenance
 # ---------------------------------------------------------------------------
+
+def library_path() -> str:
+    """Path (or soname) of the libnatremia this process loaded; see
+    natremia._loader for the search order."""
+    return _lib._name
+
 
 def version():
     """The loaded library's version string, "MAJOR.MINOR.PATCH"."""
@@ -531,11 +891,40 @@ def _unit(value, function):
     return _enum(Unit, value, "unit", function)
 
 
-def convert(value, *, analyte, from_unit, to_unit):
+def convert(value: float, *, analyte: Union[Analyte, int, str], from_unit: Union[Unit, int, str], to_unit: Union[Unit, int, str]) -> float:
     """A laboratory value of an analyte converted between units.
 
     Units are Unit members, ints or UCUM codes ("mg/dL"); analytes are
-    Analyte members, ints or names ("glucose")."""
+    Analyte members, ints or names ("glucose").
+
+    Parameters
+    ----------
+    analyte : Analyte, int or str
+        One of sodium (1), potassium (2), chloride (3), glucose (4), urea (5), urea_nitrogen (6), creatinine (7), ethanol (8) (member, exact integer code, or
+        name); other values raise.
+    from_unit : Unit, int or str
+        One of mmol_l (1), mg_dl (2), meq_l (3), mosm_kg (4), g_l (5), umol_l (6) (member, exact integer code, or
+        name); other values raise.
+    to_unit : Unit, int or str
+        One of mmol_l (1), mg_dl (2), meq_l (3), mosm_kg (4), g_l (5), umol_l (6) (member, exact integer code, or
+        name); other values raise.
+    value : float
+        The value given to ntr_convert(), in its own unit; accepted 0 to 1e+06 (its own unit) (NTR_INPUT_CONVERT_VALUE).
+
+    Returns
+    -------
+    float
+        As above (ntr_convert).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "convert"
     return _double_result("ntr_convert", fn, _enum(Analyte, analyte, "analyte", fn),
                           value, _unit(from_unit, fn), _unit(to_unit, fn))
@@ -545,66 +934,291 @@ def convert(value, *, analyte, from_unit, to_unit):
 # Core formulas
 # ---------------------------------------------------------------------------
 
-def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0,
-                   formula=OsmFormula.TWO_NA):
-    """Calculated serum osmolality, mOsm/kg ("2na" or "dorwart_chalmers")."""
+def osm_calculated(*, na_mmol_l: float, glucose_mmol_l: float, urea_mmol_l: float, ethanol_mmol_l: float = 0.0,
+                   formula: Union[OsmFormula, int, str] = OsmFormula.TWO_NA) -> float:
+    """Calculated serum osmolality, mOsm/kg ("2na" or "dorwart_chalmers").
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : float
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    ethanol_mmol_l : float
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+    formula : OsmFormula, int or str
+        One of two_na (1), dorwart_chalmers (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    float
+        As above (ntr_osm_calculated).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "osm_calculated"
-    return _double_result("ntr_osm_calculated", fn, na_mmol_l, glucose_mmol_l,
+    return _dbl(_FAST_OSM_CALCULATED, "ntr_osm_calculated", fn, na_mmol_l, glucose_mmol_l,
                           urea_mmol_l, ethanol_mmol_l,
                           _enum(OsmFormula, formula, "formula", fn))
 
 
-def osm_effective(*, na_mmol_l, glucose_mmol_l):
-    """Effective osmolality (tonicity) 2*Na + glucose, mOsm/kg."""
+def osm_effective(*, na_mmol_l: float, glucose_mmol_l: float) -> float:
+    """Effective osmolality (tonicity) 2*Na + glucose, mOsm/kg.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium, mmol/L (80 to 220).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L (0 to 200).
+
+    Returns
+    -------
+    float
+        2 * na_mmol_l + glucose_mmol_l, mOsm/kg (ntr_osm_effective).
+
+    Raises
+    ------
+    NatremiaError
+        An input is not finite or out of range; names it and its range.
+    TypeError
+        An input is not a number.
+    """
+    # Hot path: one call of the bound accelerator; anything it does not
+    # return as a float goes through ctypes, which names the failure.
+    r = _FAST_OSM_EFFECTIVE(na_mmol_l, glucose_mmol_l)
+    if r.__class__ is float:
+        return r
     return _double_result("ntr_osm_effective", "osm_effective", na_mmol_l,
                           glucose_mmol_l)
 
 
-def osm_gap(*, measured_mosm_kg, calculated_mosm_kg):
-    """Osmolal gap, measured minus calculated, mOsm/kg."""
-    return _double_result("ntr_osm_gap", "osm_gap", measured_mosm_kg,
+def osm_gap(*, measured_mosm_kg: float, calculated_mosm_kg: float) -> float:
+    """Osmolal gap, measured minus calculated, mOsm/kg.
+
+    Parameters
+    ----------
+    measured_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    calculated_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+
+    Returns
+    -------
+    float
+        As above (ntr_osm_gap).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_OSM_GAP, "ntr_osm_gap", "osm_gap", measured_mosm_kg,
                           calculated_mosm_kg)
 
 
-def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ):
-    """Sodium corrected for hyperglycaemia ("katz" 1.6 or "hillier" 2.4)."""
+def na_corrected_glucose(*, na_mmol_l: float, glucose_mmol_l: float, method: Union[GlucoseMethod, int, str] = GlucoseMethod.KATZ) -> float:
+    """Sodium corrected for hyperglycaemia ("katz" 1.6 or "hillier" 2.4).
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    method : GlucoseMethod, int or str
+        One of katz (1), hillier (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    float
+        As above (ntr_na_corrected_glucose).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "na_corrected_glucose"
-    return _double_result("ntr_na_corrected_glucose", fn, na_mmol_l,
+    return _dbl(_FAST_NA_CORRECTED_GLUCOSE, "ntr_na_corrected_glucose", fn, na_mmol_l,
                           glucose_mmol_l,
                           _enum(GlucoseMethod, method, "method", fn))
 
 
-def na_corrected_glucose_factor(*, na_mmol_l, glucose_mmol_l,
-                                factor_per_100mg_dl):
-    """Sodium corrected for hyperglycaemia with a caller's factor."""
-    return _double_result("ntr_na_corrected_glucose_factor",
-                          "na_corrected_glucose_factor", na_mmol_l,
+def na_corrected_glucose_factor(*, na_mmol_l: float, glucose_mmol_l: float,
+                                factor_per_100mg_dl: float) -> float:
+    """Sodium corrected for hyperglycaemia with a caller's factor.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    factor_per_100mg_dl : float
+        Factor of ntr_na_corrected_glucose_factor(), mmol/L per 100 mg/dL; accepted 0 to 5 mmol/L per 100 mg/dL (NTR_INPUT_GLUCOSE_FACTOR).
+
+    Returns
+    -------
+    float
+        As above (ntr_na_corrected_glucose_factor).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_NA_CORRECTED_GLUCOSE_FACTOR, "ntr_na_corrected_glucose_factor", "na_corrected_glucose_factor", na_mmol_l,
                           glucose_mmol_l, factor_per_100mg_dl)
 
 
-def na_deficit(*, tbw_l, na_mmol_l, target_na_mmol_l):
-    """Sodium needed to reach a target, TBW*(target - Na), mmol."""
-    return _double_result("ntr_na_deficit", "na_deficit", tbw_l, na_mmol_l,
+def na_deficit(*, tbw_l: float, na_mmol_l: float, target_na_mmol_l: float) -> float:
+    """Sodium needed to reach a target, TBW*(target - Na), mmol.
+
+    Parameters
+    ----------
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    target_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_na_deficit).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_NA_DEFICIT, "ntr_na_deficit", "na_deficit", tbw_l, na_mmol_l,
                           target_na_mmol_l)
 
 
-def tbw_fraction(*, sex, age_years, weight_kg):
-    """Total body water as a fraction of weight (Adrogue-Madias), L."""
+def tbw_fraction(*, sex: Union[Sex, int, str], age_years: float,
+                 weight_kg: float) -> float:
+    """Total body water as a fraction of weight (Adrogue-Madias), L.
+
+    Parameters
+    ----------
+    sex : Sex, int or str
+        ``Sex.MALE`` (1) or ``Sex.FEMALE`` (2), or a name ("male", "f").
+        Exact codes only: 1.9 or True raise TypeError.
+    age_years : float
+        Age, 1 to 130 years (child, adult and elderly bands).
+    weight_kg : float
+        Body weight, 0.3 to 650 kg.
+
+    Returns
+    -------
+    float
+        fraction * weight, L (ntr_tbw_fraction).
+
+    Raises
+    ------
+    NatremiaError
+        An unknown sex code or an input out of range; names the argument.
+    TypeError
+        A non-integral or bool sex, or a non-numeric input.
+    """
+    code = _SEX_NAMES.get(sex, 0) if sex.__class__ is str else sex
+    r = _FAST_TBW_FRACTION(code, age_years, weight_kg)
+    if r.__class__ is float:
+        return r
     fn = "tbw_fraction"
     return _double_result("ntr_tbw_fraction", fn, _enum(Sex, sex, "sex", fn),
                           age_years, weight_kg)
 
 
-def tbw_watson(*, sex, age_years, height_cm, weight_kg):
-    """Total body water by the Watson equations (adults), L."""
+def tbw_watson(*, sex: Union[Sex, int, str], age_years: float, height_cm: float, weight_kg: float) -> float:
+    """Total body water by the Watson equations (adults), L.
+
+    Parameters
+    ----------
+    sex : Sex, int or str
+        One of male (1), female (2) (member, exact integer code, or
+        name); other values raise.
+    age_years : float
+        Age in ntr_tbw_watson() (adults), years; accepted 18 to 130 years (NTR_INPUT_AGE_WATSON).
+    height_cm : float
+        Height, cm; accepted 30 to 275 cm (NTR_INPUT_HEIGHT).
+    weight_kg : float
+        Body weight, kg; accepted 0.3 to 650 kg (NTR_INPUT_WEIGHT).
+
+    Returns
+    -------
+    float
+        As above (ntr_tbw_watson).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "tbw_watson"
-    return _double_result("ntr_tbw_watson", fn, _enum(Sex, sex, "sex", fn),
+    return _dbl(_FAST_TBW_WATSON, "ntr_tbw_watson", fn, _enum(Sex, sex, "sex", fn),
                           age_years, height_cm, weight_kg)
 
 
-def free_water_deficit(*, tbw_l, na_mmol_l):
-    """Free-water deficit TBW*(Na/140 - 1), L."""
-    return _double_result("ntr_free_water_deficit", "free_water_deficit",
+def free_water_deficit(*, tbw_l: float, na_mmol_l: float) -> float:
+    """Free-water deficit TBW*(Na/140 - 1), L.
+
+    Parameters
+    ----------
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_free_water_deficit).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_FREE_WATER_DEFICIT, "ntr_free_water_deficit", "free_water_deficit",
                           tbw_l, na_mmol_l)
 
 
@@ -620,48 +1234,198 @@ def fluid_preset(fluid):
     return FluidComposition(na.value, k.value)
 
 
-def infusate_change_per_litre(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                              infusate_k_mmol_l=0.0):
-    """Change in serum sodium from 1 L of infusate (Adrogue-Madias), mmol/L."""
-    return _double_result("ntr_infusate_change_per_litre",
-                          "infusate_change_per_litre", na_mmol_l, tbw_l,
+def infusate_change_per_litre(*, na_mmol_l: float, tbw_l: float, infusate_na_mmol_l: float,
+                              infusate_k_mmol_l: float = 0.0) -> float:
+    """Change in serum sodium from 1 L of infusate (Adrogue-Madias), mmol/L.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    infusate_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+
+    Returns
+    -------
+    float
+        As above (ntr_infusate_change_per_litre).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_INFUSATE_CHANGE_PER_LITRE, "ntr_infusate_change_per_litre", "infusate_change_per_litre", na_mmol_l, tbw_l,
                           infusate_na_mmol_l, infusate_k_mmol_l)
 
 
-def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
-                    infusate_k_mmol_l=0.0):
-    """Change in serum sodium from any volume of infusate, mmol/L."""
-    return _double_result("ntr_infusate_change", "infusate_change", na_mmol_l,
+def infusate_change(*, na_mmol_l: float, tbw_l: float, infusate_na_mmol_l: float, volume_l: float,
+                    infusate_k_mmol_l: float = 0.0) -> float:
+    """Change in serum sodium from any volume of infusate, mmol/L.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    volume_l : float
+        Volume of one infusion, L; accepted 0 to 20 L (NTR_INPUT_VOLUME).
+    infusate_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+
+    Returns
+    -------
+    float
+        As above (ntr_infusate_change).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_INFUSATE_CHANGE, "ntr_infusate_change", "infusate_change", na_mmol_l,
                           tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                           volume_l)
 
 
-def infusate_volume_for_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                               target_delta_mmol_l, infusate_k_mmol_l=0.0):
-    """Volume of infusate expected to change sodium by a target, L."""
-    return _double_result("ntr_infusate_volume_for_change",
-                          "infusate_volume_for_change", na_mmol_l, tbw_l,
+def infusate_volume_for_change(*, na_mmol_l: float, tbw_l: float, infusate_na_mmol_l: float,
+                               target_delta_mmol_l: float, infusate_k_mmol_l: float = 0.0) -> float:
+    """Volume of infusate expected to change sodium by a target, L.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    target_delta_mmol_l : float
+        A wanted signed change of sodium, mmol/L; accepted -50 to 50 mmol/L (NTR_INPUT_DELTA).
+    infusate_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+
+    Returns
+    -------
+    float
+        As above (ntr_infusate_volume_for_change).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_INFUSATE_VOLUME_FOR_CHANGE, "ntr_infusate_volume_for_change", "infusate_volume_for_change", na_mmol_l, tbw_l,
                           infusate_na_mmol_l, infusate_k_mmol_l,
                           target_delta_mmol_l)
 
 
-def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
-    """The Furst ratio (U_Na + U_K) / S_Na."""
-    return _double_result("ntr_furst_ratio", "furst_ratio", urine_na_mmol_l,
+def furst_ratio(*, urine_na_mmol_l: float, urine_k_mmol_l: float, serum_na_mmol_l: float) -> float:
+    """The Furst ratio (U_Na + U_K) / S_Na.
+
+    Parameters
+    ----------
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_furst_ratio).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_FURST_RATIO, "ntr_furst_ratio", "furst_ratio", urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
 
 
-def restriction_from_ratio(ratio):
-    """Fluid restriction advice (a Restriction) for a Furst ratio."""
+def restriction_from_ratio(ratio: float) -> Restriction:
+    """Fluid restriction advice (a Restriction) for a Furst ratio.
+
+    Parameters
+    ----------
+    ratio : float
+        Furst ratio given to ntr_restriction_from_ratio(); accepted 0 to 20 (NTR_INPUT_RATIO).
+
+    Returns
+    -------
+    Restriction
+        As above (ntr_restriction_from_ratio).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     out = c_int()
     _call("ntr_restriction_from_ratio", "restriction_from_ratio", (ratio,),
           [out])
     return Restriction(out.value)
 
 
-def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l):
-    """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L."""
-    return _double_result("ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
+def efwc(*, urine_volume_l: float, urine_na_mmol_l: float, urine_k_mmol_l: float, serum_na_mmol_l: float) -> float:
+    """Electrolyte-free water clearance V*(1 - (U_Na + U_K)/S_Na), L.
+
+    Parameters
+    ----------
+    urine_volume_l : float
+        Urine volume (in ntr_efwc(), a day's urine), L; accepted 0 to 30 L (NTR_INPUT_URINE_VOLUME).
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    float
+        As above (ntr_efwc).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_EFWC, "ntr_efwc", "efwc", urine_volume_l, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l)
 
 
@@ -701,13 +1465,53 @@ def _int_result(cname, pyname, *args):
     return out.value
 
 
-def na_severity(*, na_mmol_l):
-    """Severity band of a sodium (a Severity)."""
+def na_severity(*, na_mmol_l: float) -> Severity:
+    """Severity band of a sodium (a Severity).
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+
+    Returns
+    -------
+    Severity
+        As above (ntr_na_severity).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return Severity(_int_result("ntr_na_severity", "na_severity", na_mmol_l))
 
 
-def tonicity_class(*, measured_osm_mosm_kg):
-    """Hypo-, iso- or hypertonic measured osmolality (a Tonicity)."""
+def tonicity_class(*, measured_osm_mosm_kg: float) -> Tonicity:
+    """Hypo-, iso- or hypertonic measured osmolality (a Tonicity).
+
+    Parameters
+    ----------
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+
+    Returns
+    -------
+    Tonicity
+        As above (ntr_tonicity_class).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return Tonicity(_int_result("ntr_tonicity_class", "tonicity_class",
                                 measured_osm_mosm_kg))
 
@@ -715,9 +1519,36 @@ def tonicity_class(*, measured_osm_mosm_kg):
 LowNaTonicity = namedtuple("LowNaTonicity", "tonicity flags")
 
 
-def low_na_tonicity(*, na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
-                    glucose_method=GlucoseMethod.KATZ):
-    """Whether a low sodium is truly hypotonic, and why not."""
+def low_na_tonicity(*, na_mmol_l: float, glucose_mmol_l: float, measured_osm_mosm_kg: float,
+                    glucose_method: Union[GlucoseMethod, int, str] = GlucoseMethod.KATZ) -> LowNaTonicity:
+    """Whether a low sodium is truly hypotonic, and why not.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    glucose_method : GlucoseMethod, int or str
+        One of katz (1), hillier (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    LowNaTonicity
+        As above (ntr_low_na_tonicity).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "low_na_tonicity"
     tonicity, flags = c_int(), c_uint()
     _call("ntr_low_na_tonicity", fn,
@@ -727,16 +1558,47 @@ def low_na_tonicity(*, na_mmol_l, glucose_mmol_l, measured_osm_mosm_kg,
     return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
 
 
-def low_na_effective_tonicity(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                              measured_osm_mosm_kg, ethanol_mmol_l=0.0,
-                              glucose_method=GlucoseMethod.KATZ):
+def low_na_effective_tonicity(*, na_mmol_l: float, glucose_mmol_l: float, urea_mmol_l: float,
+                              measured_osm_mosm_kg: float, ethanol_mmol_l: float = 0.0,
+                              glucose_method: Union[GlucoseMethod, int, str] = GlucoseMethod.KATZ) -> LowNaTonicity:
     """Whether a low sodium is truly hypotonic, judged on the effective
     measured osmolality (measured minus urea and ethanol, which cross cell
     membranes and so do not hold water out of cells): the library's
     ntr_low_na_effective_tonicity(). ``tonicity`` is the class of the
     effective value; ``flags`` has LowNaFlag.INEFFECTIVE_OSMOLES when the
     measured value is 275 or more but the effective one is below 275.
-    Use it rather than low_na_tonicity() whenever urea or ethanol is known."""
+    Use it rather than low_na_tonicity() whenever urea or ethanol is known.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : float
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    ethanol_mmol_l : float
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+    glucose_method : GlucoseMethod, int or str
+        One of katz (1), hillier (2) (member, exact integer code, or
+        name); other values raise.
+
+    Returns
+    -------
+    LowNaTonicity
+        As above (ntr_low_na_effective_tonicity).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     fn = "low_na_effective_tonicity"
     tonicity, flags = c_int(), c_uint()
     _call("ntr_low_na_effective_tonicity", fn,
@@ -747,33 +1609,127 @@ def low_na_effective_tonicity(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
     return LowNaTonicity(Tonicity(tonicity.value), LowNaFlag(flags.value))
 
 
-def effective_osm_measured(*, na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                           measured_osm_mosm_kg, ethanol_mmol_l=0.0):
+def effective_osm_measured(*, na_mmol_l: float, glucose_mmol_l: float, urea_mmol_l: float,
+                           measured_osm_mosm_kg: float, ethanol_mmol_l: float = 0.0) -> float:
     """Effective serum osmolality from a measured one, mOsm/kg: measured
     less urea and the library's ethanol term, floored at the calculated
     effective osmolality (ntr_effective_osm_measured; the header gives the
-    equation, the coefficient and why the floor)."""
-    return _double_result("ntr_effective_osm_measured", "effective_osm_measured",
+    equation, the coefficient and why the floor).
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : float
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : float
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    measured_osm_mosm_kg : float
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    ethanol_mmol_l : float
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+
+    Returns
+    -------
+    float
+        As above (ntr_effective_osm_measured).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_EFFECTIVE_OSM_MEASURED, "ntr_effective_osm_measured", "effective_osm_measured",
                           na_mmol_l, glucose_mmol_l, urea_mmol_l,
                           ethanol_mmol_l, measured_osm_mosm_kg)
 
 
-def urine_maximally_dilute(*, urine_osm_mosm_kg):
-    """True when the urine is maximally dilute."""
+def urine_maximally_dilute(*, urine_osm_mosm_kg: float) -> bool:
+    """True when the urine is maximally dilute.
+
+    Parameters
+    ----------
+    urine_osm_mosm_kg : float
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+
+    Returns
+    -------
+    bool
+        As above (ntr_urine_maximally_dilute).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return bool(_int_result("ntr_urine_maximally_dilute",
                             "urine_maximally_dilute", urine_osm_mosm_kg))
 
 
-def urine_na_high(*, urine_na_mmol_l):
-    """True when urine sodium is above the work-up threshold."""
+def urine_na_high(*, urine_na_mmol_l: float) -> bool:
+    """True when urine sodium is above the work-up threshold.
+
+    Parameters
+    ----------
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+
+    Returns
+    -------
+    bool
+        As above (ntr_urine_na_high).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return bool(_int_result("ntr_urine_na_high", "urine_na_high",
                             urine_na_mmol_l))
 
 
-def fractional_excretion(*, urine_x, plasma_x, urine_creatinine,
-                         plasma_creatinine):
-    """Fractional excretion of a solute, percent (each pair in one unit)."""
-    return _double_result("ntr_fractional_excretion", "fractional_excretion",
+def fractional_excretion(*, urine_x: float, plasma_x: float, urine_creatinine: float,
+                         plasma_creatinine: float) -> float:
+    """Fractional excretion of a solute, percent (each pair in one unit).
+
+    Parameters
+    ----------
+    urine_x : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+    plasma_x : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+    urine_creatinine : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+    plasma_creatinine : float
+        A concentration given to ntr_fractional_excretion(); accepted 0 to 1e+06 (any one unit per pair) (NTR_INPUT_FE_VALUE).
+
+    Returns
+    -------
+    float
+        As above (ntr_fractional_excretion).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_FRACTIONAL_EXCRETION, "ntr_fractional_excretion", "fractional_excretion",
                           urine_x, plasma_x, urine_creatinine,
                           plasma_creatinine)
 
@@ -979,10 +1935,46 @@ def plan_check(*, history_hours, history_na_mmol_l, tbw_l, flows, duration_h,
 RelowerEstimate = namedtuple("RelowerEstimate", "volume_l rate_ml_h")
 
 
-def relower_estimate(*, na_mmol_l, tbw_l, fluid_na_mmol_l, lower_by_mmol_l,
-                     hours, fluid_k_mmol_l=0.0, urine_ml_h=0.0,
-                     urine_na_mmol_l=0.0, urine_k_mmol_l=0.0):
-    """Fluid needed to bring sodium back down by lower_by_mmol_l."""
+def relower_estimate(*, na_mmol_l: float, tbw_l: float, fluid_na_mmol_l: float, lower_by_mmol_l: float,
+                     hours: float, fluid_k_mmol_l: float = 0.0, urine_ml_h: float = 0.0,
+                     urine_na_mmol_l: float = 0.0, urine_k_mmol_l: float = 0.0) -> RelowerEstimate:
+    """Fluid needed to bring sodium back down by lower_by_mmol_l.
+
+    Parameters
+    ----------
+    na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : float
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    fluid_na_mmol_l : float
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    lower_by_mmol_l : float
+        The size of a change (a fall, a rise aimed at, a lowering), mmol/L, above the lower end (0 itself is refused); accepted above 0 to 50 mmol/L (NTR_INPUT_CHANGE).
+    hours : float
+        Plan step, re-lowering or lowering period, h; accepted 0.0166667 to 720 h (NTR_INPUT_PLAN_STEP).
+    fluid_k_mmol_l : float
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    urine_ml_h : float
+        A urine (or saline) rate given alone, mL/h; accepted 0 to 5000 mL/h (NTR_INPUT_URINE_RATE).
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+
+    Returns
+    -------
+    RelowerEstimate
+        As above (ntr_relower_estimate).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     volume, rate = c_double(), c_double()
     _call("ntr_relower_estimate", "relower_estimate",
           (na_mmol_l, tbw_l, fluid_na_mmol_l, fluid_k_mmol_l, lower_by_mmol_l,
@@ -1000,28 +1992,102 @@ class Solute(enum.IntEnum):
     NACL = 2
 
 
-def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg):
+def urine_volume_from_solute(*, solute_mosm_day: float, urine_osm_mosm_kg: float) -> float:
     """Daily urine volume, L/day, that a solute load makes at a fixed urine
-    osmolality: V = solute / U_osm (Berl 2008)."""
-    return _double_result("ntr_urine_volume_from_solute",
-                          "urine_volume_from_solute", solute_mosm_day,
+    osmolality: V = solute / U_osm (Berl 2008).
+
+    Parameters
+    ----------
+    solute_mosm_day : float
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : float
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+
+    Returns
+    -------
+    float
+        As above (ntr_urine_volume_from_solute).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_URINE_VOLUME_FROM_SOLUTE, "ntr_urine_volume_from_solute", "urine_volume_from_solute", solute_mosm_day,
                           urine_osm_mosm_kg)
 
 
-def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
-                    urine_k_mmol_l, serum_na_mmol_l, insensible_l_day=0.0):
+def fluid_allowance(*, solute_mosm_day: float, urine_osm_mosm_kg: float, urine_na_mmol_l: float,
+                    urine_k_mmol_l: float, serum_na_mmol_l: float, insensible_l_day: float = 0.0) -> float:
     """The most fluid per day, L/day, that does not lower the sodium:
     V * (1 - (U_Na + U_K) / S_Na) + insensible, V from the solute. A
-    negative result means restriction alone cannot hold the sodium."""
-    return _double_result("ntr_fluid_allowance", "fluid_allowance",
+    negative result means restriction alone cannot hold the sodium.
+
+    Parameters
+    ----------
+    solute_mosm_day : float
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : float
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+    urine_na_mmol_l : float
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : float
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : float
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    insensible_l_day : float
+        Net insensible loss, L/day; accepted 0 to 10 L/day (NTR_INPUT_INSENSIBLE_L_DAY).
+
+    Returns
+    -------
+    float
+        As above (ntr_fluid_allowance).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_FLUID_ALLOWANCE, "ntr_fluid_allowance", "fluid_allowance",
                           solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
                           urine_k_mmol_l, serum_na_mmol_l, insensible_l_day)
 
 
-def solute_dose_osmoles(*, solute, grams):
+def solute_dose_osmoles(*, solute: Union[Solute, int, str], grams: float) -> float:
     """Osmoles, mOsm, in a dose of urea (1 per mole) or NaCl (2 per mole),
-    molar masses from the IUPAC atomic weights."""
-    return _double_result("ntr_solute_dose_osmoles", "solute_dose_osmoles",
+    molar masses from the IUPAC atomic weights.
+
+    Parameters
+    ----------
+    solute : Solute, int or str
+        One of urea (1), nacl (2) (member, exact integer code, or
+        name); other values raise.
+    grams : float
+        A daily dose of urea or NaCl, g; accepted 0 to 200 g (NTR_INPUT_SOLUTE_GRAMS).
+
+    Returns
+    -------
+    float
+        As above (ntr_solute_dose_osmoles).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
+    return _dbl(_FAST_SOLUTE_DOSE_OSMOLES, "ntr_solute_dose_osmoles", "solute_dose_osmoles",
                           _enum(Solute, solute, "solute", "solute_dose_osmoles"), grams)
 
 
@@ -1032,9 +2098,29 @@ class FeUricAcidClass(enum.IntEnum):
     SUPPORTS_SIAD = 3
 
 
-def fe_uric_acid_class(*, fe_uric_acid_percent):
+def fe_uric_acid_class(*, fe_uric_acid_percent: float) -> FeUricAcidClass:
     """Fractional uric acid excretion at the low sodium: below 8 % argues
-    against SIAD, above 12 % supports it (Fenske 2008)."""
+    against SIAD, above 12 % supports it (Fenske 2008).
+
+    Parameters
+    ----------
+    fe_uric_acid_percent : float
+        A fractional excretion given as input, %; accepted 0 to 200 % (NTR_INPUT_FE_PERCENT).
+
+    Returns
+    -------
+    FeUricAcidClass
+        As above (ntr_fe_uric_acid_class).
+
+    Raises
+    ------
+    NatremiaError
+        An input not finite, out of its range or an unknown code, or
+        inputs the formula is not defined for together; names the
+        argument and its accepted range.
+    TypeError
+        An input that is not a number (or a non-integral code).
+    """
     return FeUricAcidClass(_int_result("ntr_fe_uric_acid_class",
                                        "fe_uric_acid_class",
                                        fe_uric_acid_percent))

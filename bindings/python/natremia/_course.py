@@ -13,6 +13,7 @@ judgement.
 import ctypes
 import enum
 import functools
+import numbers
 from dataclasses import dataclass, fields
 
 from . import _core
@@ -239,7 +240,8 @@ def _preset_code(preset, function):
                                 value=preset, detail="one of " + ", ".join(
                                     sorted(_preset_names())))
         return code
-    return int(preset)
+    return _core._exact_int(preset, "preset", function,
+                           ", ".join(sorted(_preset_names())))
 
 
 @functools.lru_cache(maxsize=1)
@@ -272,7 +274,7 @@ def _course_limits_struct(limits, function):
     """A CourseLimitsStruct from a CourseLimits or a preset."""
     if isinstance(limits, CourseLimits):
         return limits._struct()
-    if isinstance(limits, (str, int)):
+    if isinstance(limits, (str, numbers.Integral)):
         try:
             return course_limits_preset(limits)._struct()
         except NatremiaError as err:

@@ -3,11 +3,16 @@
 Search order (the first that loads wins):
 
 1. the environment variable ``NATREMIA_LIBRARY``: a path to the shared
-   object (used by the test suite to point at a fresh build);
-2. ``pkg-config --variable=libdir natremia``: the library installed with
+   object (used by the test suite to point at a fresh build); when set,
+   nothing else is tried;
+2. the copy bundled in the package (``natremia/libnatremia.so.1``), which
+   the package build compiles from the C sources (bindings/python/setup.py);
+3. ``pkg-config --variable=libdir natremia``: the library installed with
    its pkg-config file (``libnatremia.so.1`` in that directory);
-3. the system loader: ``libnatremia.so.1`` by soname, then whatever
+4. the system loader: ``libnatremia.so.1`` by soname, then whatever
    ``ctypes.util.find_library("natremia")`` reports.
+
+``natremia.library_path()`` says which one was loaded.
 """
 
 import ctypes
@@ -19,6 +24,7 @@ import subprocess
 SONAME = "libnatremia.so.1"
 ENV_VAR = "NATREMIA_LIBRARY"
 EXPECTED_MAJOR = 1
+BUNDLED = os.path.join(os.path.dirname(os.path.abspath(__file__)), SONAME)
 
 
 class LibraryNotFound(OSError):
@@ -46,6 +52,8 @@ def _candidates():
         # An explicit choice is not second-guessed: no fallback when it fails.
         yield ENV_VAR, path
         return
+    if os.path.isfile(BUNDLED):
+        yield "bundled", BUNDLED
     found = _from_pkg_config()
     if found:
         yield "pkg-config", found
@@ -71,6 +79,7 @@ def load():
             tried.append("%s: %s has major version %d, this binding needs %d"
                          % (how, path, major, EXPECTED_MAJOR))
             continue
+        lib.natremia_found_by = how
         return lib
     raise LibraryNotFound(
         "libnatremia not found; set %s to the path of %s. Tried: %s"

@@ -16,6 +16,7 @@ per-row C status codes (0 = NTR_OK).
 """
 
 import ctypes
+from typing import Any
 
 import numpy as np
 
@@ -30,6 +31,9 @@ _PD = _P(ctypes.c_double)
 _PI = _P(ctypes.c_int)
 _PSZ = _P(ctypes.c_size_t)
 _SIZE_MAX = ctypes.c_size_t(-1).value
+
+# Anything numpy.asarray takes, a pandas Series, or a masked array.
+ArrayLike = Any
 
 # dtype of one ntr_correction (5 doubles, 2 unsigned ints: 48 bytes) and of
 # one ntr_sample, laid out as the C structs.
@@ -69,14 +73,20 @@ def _ptr(array, ctype):
 
 
 def _finish(function, status_code, failed, out, status, shape, errors,
-            with_status):
-    """Raise or return, following the errors / with_status choice."""
+            with_status, blame=None):
+    """Raise or return, following the errors / with_status choice.
+    ``blame(row)`` names the argument that failed in a row (the scalar
+    binding's rule) for the error message."""
     if failed.value == _SIZE_MAX:  # a call-level error: nothing was written
         raise NatremiaError(status_code, function)
     if failed.value and errors == "raise":
         row = int(np.flatnonzero(status)[0])
+        argument = value = accepted = None
+        if blame is not None:
+            argument, value, accepted = blame(row, int(status[row]))
         raise NatremiaError(int(status[row]), function, row=row,
-                            failed=int(failed.value))
+                            failed=int(failed.value), argument=argument,
+                            value=value, accepted=accepted)
     out = out.reshape(shape)
     if with_status:
         return out, status.reshape(shape)
@@ -88,26 +98,205 @@ def _check_errors_choice(errors):
         raise ValueError("errors must be 'raise' or 'nan', not %r" % (errors,))
 
 
+# ---------------------------------------------------------------------------
+# Inputs as they come from data frames: pandas Series (index kept, indexes
+# must agree), masked arrays (masked rows fail), missing values (pd.NA,
+# None, NaN: failed rows), enumerations as strings, categories or objects.
+# ---------------------------------------------------------------------------
+
+def _pandas():
+    """pandas if it is already imported by the caller (never imported here:
+    a Series can only come from a program that did)."""
+    import sys
+    return sys.modules.get("pandas")
+
+
+def _is_series(value):
+    pd = _pandas()
+    return pd is not None and isinstance(value, pd.Series)
+
+
+class _Frame:
+    """What the inputs of one call share: the pandas index (when any input
+    is a Series) and the mask of masked-array inputs."""
+
+    def __init__(self, function):
+        self.function = function
+        self.index = None
+        self.index_from = None
+        self.masks = []
+
+    def take_index(self, value, argument):
+        if not _is_series(value):
+            return
+        if self.index is None:
+            self.index, self.index_from = value.index, argument
+        elif not self.index.equals(value.index):
+            raise ValueError(
+                "%s: the pandas indexes of %s and %s differ; natremia pairs "
+                "rows by index and refuses to guess: align them first (for "
+                "example columns of one DataFrame, or .reindex)"
+                % (self.function, self.index_from, argument))
+
+    def wrap(self, array, name=None):
+        """The result as the inputs came: a Series on their index, a
+        masked array under their mask, else the plain array."""
+        if self.index is not None and array.ndim == 1 and \
+                array.shape[0] == len(self.index):
+            return _pandas().Series(array, index=self.index, name=name)
+        if self.masks:
+            mask = np.zeros(array.shape, dtype=bool)
+            for m in self.masks:
+                mask |= np.broadcast_to(m, array.shape)
+            return np.ma.MaskedArray(array, mask=mask)
+        return array
+
+
+def _float_input(value, argument, frame):
+    """An input as float64, missing values (pd.NA, None, NaT) as NaN, so
+    that their rows fail with NTR_ERR_NONFINITE like any NaN."""
+    frame.take_index(value, argument)
+    if _is_series(value):
+        if value.dtype.kind == "b" or str(value.dtype) == "boolean":
+            raise TypeError("%s: argument %s is boolean, not numbers"
+                            % (frame.function, argument))
+        try:
+            return value.to_numpy(dtype=np.float64, na_value=np.nan)
+        except (TypeError, ValueError):
+            raise TypeError("%s: argument %s holds values that are not "
+                            "numbers (dtype %s)" % (frame.function, argument,
+                                                    value.dtype)) from None
+    if isinstance(value, np.ma.MaskedArray):
+        mask = np.ma.getmaskarray(value)
+        frame.masks.append(mask)
+        return np.where(mask, np.nan, np.ma.getdata(value).astype(np.float64))
+    a = np.asarray(value)
+    if a.dtype.kind == "b":
+        raise TypeError("%s: argument %s is boolean, not numbers"
+                        % (frame.function, argument))
+    if a.dtype.kind == "O":
+        return np.array([_missing_to_nan(v, argument, frame.function)
+                         for v in a.ravel()], dtype=np.float64).reshape(a.shape)
+    try:
+        return a.astype(np.float64, copy=False)
+    except (TypeError, ValueError):
+        raise TypeError("%s: argument %s holds values that are not numbers "
+                        "(dtype %s)" % (frame.function, argument, a.dtype)) \
+            from None
+
+
+def _is_missing(v):
+    if v is None:
+        return True
+    pd = _pandas()
+    if pd is not None and (v is pd.NA or v is pd.NaT):
+        return True
+    return isinstance(v, float) and v != v
+
+
+def _missing_to_nan(v, argument, function):
+    if _is_missing(v):
+        return np.nan
+    if isinstance(v, (bool, np.bool_)) or isinstance(v, str):
+        raise TypeError("%s: argument %s holds %r, not a number"
+                        % (function, argument, v))
+    return float(v)
+
+
+def _enum_input(value, cls, argument, frame):
+    """An enumeration column as int32 codes: members, exact integer codes
+    or names (strings, pandas string, category and object columns).
+    Missing entries become 0, which the library refuses (NTR_ERR_ARG), so
+    their rows fail; a non-integral number or a bool raises TypeError, a
+    code beyond C int or an unknown name raises NatremiaError, both naming
+    the argument."""
+    f = frame.function
+    frame.take_index(value, argument)
+    mask = None
+    if isinstance(value, np.ma.MaskedArray):
+        mask = np.ma.getmaskarray(value)
+        frame.masks.append(mask)
+        value = np.ma.getdata(value)
+    if _is_series(value):
+        if str(value.dtype) == "category":
+            cats = [_enum(cls, c, argument, f) for c in value.cat.categories]
+            lookup = np.array(cats + [0], dtype=np.intc)  # code -1: missing
+            return lookup[value.cat.codes.to_numpy()]
+        value = value.to_numpy(dtype=object) if value.dtype.kind in "OUSb" or \
+            str(value.dtype) in ("string", "boolean") or \
+            value.hasnans else value.to_numpy()
+    a = np.asarray(value)
+    if a.dtype.kind == "b":
+        raise TypeError("%s: argument %s is boolean, not codes (accepted: %s)"
+                        % (f, argument, _core._enum_names(cls)))
+    if a.dtype.kind in "USO":
+        flat = a.ravel()
+        codes = {}
+        out = np.empty(flat.shape, dtype=np.intc)
+        for i, v in enumerate(flat.tolist()):
+            key = (type(v), v) if not _is_missing(v) else None
+            code = codes.get(key)
+            if code is None:
+                code = codes[key] = 0 if key is None else \
+                    _enum(cls, v, argument, f)
+            out[i] = code
+        out = out.reshape(a.shape)
+    elif a.dtype.kind in "iu":
+        wide = a.astype(np.int64) if a.dtype != np.uint64 else a
+        if wide.size and (wide.min() < _core._INT_MIN or
+                          wide.max() > _core._INT_MAX):
+            bad = wide[(wide < _core._INT_MIN) | (wide > _core._INT_MAX)][0]
+            raise NatremiaError(_core.ERR_ARG, f, "code %d is beyond C int"
+                                % bad, argument=argument, value=int(bad),
+                                accepted=_core._enum_names(cls))
+        out = a.astype(np.intc)
+    elif a.dtype.kind == "f":
+        finite = np.isfinite(a)
+        if not np.all(np.floor(a[finite]) == a[finite]):
+            bad = a[finite][np.floor(a[finite]) != a[finite]][0]
+            raise TypeError("%s: argument %s must hold exact integer codes, "
+                            "not %r (accepted: %s)" % (
+                                f, argument, float(bad),
+                                _core._enum_names(cls)))
+        if np.any(np.abs(a[finite]) > _core._INT_MAX):
+            raise NatremiaError(_core.ERR_ARG, f, "a code is beyond C int",
+                                argument=argument,
+                                accepted=_core._enum_names(cls))
+        out = np.where(finite, a, 0).astype(np.intc)
+    else:
+        raise TypeError("%s: argument %s must hold codes or names, not dtype "
+                        "%s" % (f, argument, a.dtype))
+    if mask is not None:
+        out = np.where(mask, 0, out).astype(np.intc)
+    return out
+
+
 def _sex_array(sex, function):
-    """Sex as int32 codes; strings ("male", "f", ...) are mapped first."""
-    a = np.asarray(sex)
-    if a.dtype.kind in "US":
-        codes = {name: _enum(Sex, name, "sex", function)
-                 for name in np.unique(a).tolist()}
-        mapped = np.empty(a.shape, dtype=np.intc)
-        for name, code in codes.items():
-            mapped[a == name] = code
-        return mapped
-    return a
+    """Sex as int32 codes (kept for callers of 1.1.0; see _enum_input)."""
+    return _enum_input(sex, Sex, "sex", _Frame(function))
+
+
+def _input_names(cname):
+    """Argument names of a batch function's numeric inputs, from the
+    scalar binding's table (sex first when it has one)."""
+    scalar = cname.replace("ntr_batch_", "ntr_")
+    names, examples = _core._ARGUMENTS.get(scalar, ((), ()))
+    return scalar, [n for n, e in zip(names, examples)
+                    if e is not None or n == "sex"]
 
 
 def _run(function, cname, inputs, *, sex=None, enum_value=None,
          int_output=False, errors="raise", with_status=False):
     """Broadcast, call the batch entry point once, check the outcome."""
     _check_errors_choice(errors)
-    arrays = [np.asarray(v, dtype=np.float64) for v in inputs]
+    scalar, names = _input_names(cname)
+    value_names = names[1:] if sex is not None else names
+    if len(value_names) != len(inputs):
+        value_names = ["input %d" % i for i in range(len(inputs))]
+    frame = _Frame(function)
+    arrays = [_float_input(v, n, frame) for v, n in zip(inputs, value_names)]
     if sex is not None:
-        arrays.insert(0, _sex_array(sex, function))
+        arrays.insert(0, _enum_input(sex, Sex, "sex", frame))
     arrays = np.broadcast_arrays(*arrays)
     shape = arrays[0].shape
     if sex is not None:
@@ -129,17 +318,74 @@ def _run(function, cname, inputs, *, sex=None, enum_value=None,
     args += [_ptr(out, ctypes.c_int if int_output else ctypes.c_double),
              _ptr(status, ctypes.c_int), ctypes.byref(failed)]
     code = fn(*args)
-    return _finish(function, code, failed, out, status, shape, errors,
-                   with_status)
+
+    def blame(row, row_status):
+        """The argument that failed in one row, by the scalar rule."""
+        row_args = [float(c[row]) for c in columns]
+        all_names = list(value_names)
+        if sex is not None:
+            row_args.insert(0, int(sex_col[row]))
+            all_names.insert(0, "sex")
+        if enum_value is not None:
+            row_args.append(enum_value)
+        argument, value = _core._blame(scalar, row_args, row_status)
+        if argument is None and sex is not None and row_status == _core.ERR_ARG:
+            argument, value = "sex", int(sex_col[row])
+        if argument == "sex" and value == 0:
+            value = "missing"  # a missing entry is passed as code 0
+        accepted = (_core._enum_names(Sex) if argument == "sex" else
+                    _core._accepted_text(cname, argument))
+        return argument, value, accepted
+
+    result = _finish(function, code, failed, out, status, shape, errors,
+                     with_status, blame=blame)
+    if with_status:
+        return frame.wrap(result[0]), frame.wrap(result[1], "status")
+    return frame.wrap(result)
 
 
 # ---------------------------------------------------------------------------
 # Formulas
 # ---------------------------------------------------------------------------
 
-def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0,
-                   formula=OsmFormula.TWO_NA, errors="raise", with_status=False):
-    """Calculated serum osmolality, mOsm/kg, per row."""
+def osm_calculated(*, na_mmol_l: ArrayLike, glucose_mmol_l: ArrayLike, urea_mmol_l: ArrayLike, ethanol_mmol_l: ArrayLike = 0.0,
+                   formula: ArrayLike = OsmFormula.TWO_NA, errors: str = "raise", with_status: bool = False):
+    """Calculated serum osmolality, mOsm/kg, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : array-like, pandas Series or scalar
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    urea_mmol_l : array-like, pandas Series or scalar
+        Serum urea, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_UREA).
+    ethanol_mmol_l : array-like, pandas Series or scalar
+        Serum ethanol, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_ETHANOL).
+    formula : scalar of OsmFormula codes or names
+        One of two_na (1), dorwart_chalmers (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     f = "arrays.osm_calculated"
     return _run(f, "ntr_batch_osm_calculated",
                 [na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l],
@@ -147,109 +393,506 @@ def osm_calculated(*, na_mmol_l, glucose_mmol_l, urea_mmol_l, ethanol_mmol_l=0.0
                 errors=errors, with_status=with_status)
 
 
-def osm_effective(*, na_mmol_l, glucose_mmol_l, errors="raise",
-                  with_status=False):
-    """Effective osmolality 2*Na + glucose, mOsm/kg, per row."""
+def osm_effective(*, na_mmol_l: ArrayLike, glucose_mmol_l: ArrayLike, errors: str = "raise",
+                  with_status: bool = False):
+    """Effective osmolality 2*Na + glucose, mOsm/kg, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : array-like, pandas Series or scalar
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.osm_effective", "ntr_batch_osm_effective",
                 [na_mmol_l, glucose_mmol_l], errors=errors,
                 with_status=with_status)
 
 
-def osm_gap(*, measured_mosm_kg, calculated_mosm_kg, errors="raise",
-            with_status=False):
-    """Osmolal gap, mOsm/kg, per row."""
+def osm_gap(*, measured_mosm_kg: ArrayLike, calculated_mosm_kg: ArrayLike, errors: str = "raise",
+            with_status: bool = False):
+    """Osmolal gap, mOsm/kg, per row.
+
+    Parameters
+    ----------
+    measured_mosm_kg : array-like, pandas Series or scalar
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    calculated_mosm_kg : array-like, pandas Series or scalar
+        Serum osmolality, measured or calculated, mOsm/kg; accepted 150 to 600 mOsm/kg (NTR_INPUT_OSMOLALITY).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.osm_gap", "ntr_batch_osm_gap",
                 [measured_mosm_kg, calculated_mosm_kg], errors=errors,
                 with_status=with_status)
 
 
-def na_corrected_glucose(*, na_mmol_l, glucose_mmol_l, method=GlucoseMethod.KATZ,
-                         errors="raise", with_status=False):
-    """Glucose-corrected sodium, mmol/L, per row."""
+def na_corrected_glucose(*, na_mmol_l: ArrayLike, glucose_mmol_l: ArrayLike, method: ArrayLike = GlucoseMethod.KATZ,
+                         errors: str = "raise", with_status: bool = False):
+    """Glucose-corrected sodium, mmol/L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    glucose_mmol_l : array-like, pandas Series or scalar
+        Serum glucose, mmol/L; accepted 0 to 200 mmol/L (NTR_INPUT_GLUCOSE).
+    method : scalar of GlucoseMethod codes or names
+        One of katz (1), hillier (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     f = "arrays.na_corrected_glucose"
     return _run(f, "ntr_batch_na_corrected_glucose", [na_mmol_l, glucose_mmol_l],
                 enum_value=_enum(GlucoseMethod, method, "method", f),
                 errors=errors, with_status=with_status)
 
 
-def na_deficit(*, tbw_l, na_mmol_l, target_na_mmol_l, errors="raise",
-               with_status=False):
-    """Sodium deficit TBW*(target - Na), mmol, per row."""
+def na_deficit(*, tbw_l: ArrayLike, na_mmol_l: ArrayLike, target_na_mmol_l: ArrayLike, errors: str = "raise",
+               with_status: bool = False):
+    """Sodium deficit TBW*(target - Na), mmol, per row.
+
+    Parameters
+    ----------
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    target_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.na_deficit", "ntr_batch_na_deficit",
                 [tbw_l, na_mmol_l, target_na_mmol_l], errors=errors,
                 with_status=with_status)
 
 
-def tbw_fraction(*, sex, age_years, weight_kg, errors="raise",
-                 with_status=False):
+def tbw_fraction(*, sex: ArrayLike, age_years: ArrayLike, weight_kg: ArrayLike, errors: str = "raise",
+                 with_status: bool = False):
     """Total body water as a fraction of weight, L, per row (sex as codes
-    1/2 or names)."""
+    1/2 or names).
+
+    Parameters
+    ----------
+    sex : array-like or scalar of Sex codes or names
+        One of male (1), female (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    age_years : array-like, pandas Series or scalar
+        Age in ntr_tbw_fraction(), years; accepted 1 to 130 years (NTR_INPUT_AGE_FRACTION).
+    weight_kg : array-like, pandas Series or scalar
+        Body weight, kg; accepted 0.3 to 650 kg (NTR_INPUT_WEIGHT).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.tbw_fraction", "ntr_batch_tbw_fraction",
                 [age_years, weight_kg], sex=sex, errors=errors,
                 with_status=with_status)
 
 
-def tbw_watson(*, sex, age_years, height_cm, weight_kg, errors="raise",
-               with_status=False):
-    """Watson total body water, L, per row."""
+def tbw_watson(*, sex: ArrayLike, age_years: ArrayLike, height_cm: ArrayLike, weight_kg: ArrayLike, errors: str = "raise",
+               with_status: bool = False):
+    """Watson total body water, L, per row.
+
+    Parameters
+    ----------
+    sex : array-like or scalar of Sex codes or names
+        One of male (1), female (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    age_years : array-like, pandas Series or scalar
+        Age in ntr_tbw_watson() (adults), years; accepted 18 to 130 years (NTR_INPUT_AGE_WATSON).
+    height_cm : array-like, pandas Series or scalar
+        Height, cm; accepted 30 to 275 cm (NTR_INPUT_HEIGHT).
+    weight_kg : array-like, pandas Series or scalar
+        Body weight, kg; accepted 0.3 to 650 kg (NTR_INPUT_WEIGHT).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.tbw_watson", "ntr_batch_tbw_watson",
                 [age_years, height_cm, weight_kg], sex=sex, errors=errors,
                 with_status=with_status)
 
 
-def free_water_deficit(*, tbw_l, na_mmol_l, errors="raise", with_status=False):
-    """Free-water deficit, L, per row."""
+def free_water_deficit(*, tbw_l: ArrayLike, na_mmol_l: ArrayLike, errors: str = "raise", with_status: bool = False):
+    """Free-water deficit, L, per row.
+
+    Parameters
+    ----------
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.free_water_deficit", "ntr_batch_free_water_deficit",
                 [tbw_l, na_mmol_l], errors=errors, with_status=with_status)
 
 
-def infusate_change_per_litre(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                              infusate_k_mmol_l=0.0, errors="raise",
-                              with_status=False):
-    """Change in sodium from 1 L of infusate, mmol/L, per row."""
+def infusate_change_per_litre(*, na_mmol_l: ArrayLike, tbw_l: ArrayLike, infusate_na_mmol_l: ArrayLike,
+                              infusate_k_mmol_l: ArrayLike = 0.0, errors: str = "raise",
+                              with_status: bool = False):
+    """Change in sodium from 1 L of infusate, mmol/L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : array-like, pandas Series or scalar
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    infusate_k_mmol_l : array-like, pandas Series or scalar
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.infusate_change_per_litre",
                 "ntr_batch_infusate_change_per_litre",
                 [na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l],
                 errors=errors, with_status=with_status)
 
 
-def infusate_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l, volume_l,
-                    infusate_k_mmol_l=0.0, errors="raise", with_status=False):
-    """Change in sodium from a volume of infusate, mmol/L, per row."""
+def infusate_change(*, na_mmol_l: ArrayLike, tbw_l: ArrayLike, infusate_na_mmol_l: ArrayLike, volume_l: ArrayLike,
+                    infusate_k_mmol_l: ArrayLike = 0.0, errors: str = "raise", with_status: bool = False):
+    """Change in sodium from a volume of infusate, mmol/L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : array-like, pandas Series or scalar
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    volume_l : array-like, pandas Series or scalar
+        Volume of one infusion, L; accepted 0 to 20 L (NTR_INPUT_VOLUME).
+    infusate_k_mmol_l : array-like, pandas Series or scalar
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.infusate_change", "ntr_batch_infusate_change",
                 [na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                  volume_l], errors=errors, with_status=with_status)
 
 
-def infusate_volume_for_change(*, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                               target_delta_mmol_l, infusate_k_mmol_l=0.0,
-                               errors="raise", with_status=False):
-    """Volume of infusate for a wanted change, L, per row."""
+def infusate_volume_for_change(*, na_mmol_l: ArrayLike, tbw_l: ArrayLike, infusate_na_mmol_l: ArrayLike,
+                               target_delta_mmol_l: ArrayLike, infusate_k_mmol_l: ArrayLike = 0.0,
+                               errors: str = "raise", with_status: bool = False):
+    """Volume of infusate for a wanted change, L, per row.
+
+    Parameters
+    ----------
+    na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    tbw_l : array-like, pandas Series or scalar
+        Total body water, L; accepted 0.1 to 400 L (NTR_INPUT_TBW).
+    infusate_na_mmol_l : array-like, pandas Series or scalar
+        Sodium of an infusate or flow, mmol/L; accepted 0 to 1100 mmol/L (NTR_INPUT_INFUSATE_NA).
+    target_delta_mmol_l : array-like, pandas Series or scalar
+        A wanted signed change of sodium, mmol/L; accepted -50 to 50 mmol/L (NTR_INPUT_DELTA).
+    infusate_k_mmol_l : array-like, pandas Series or scalar
+        Potassium of an infusate or flow, mmol/L; accepted 0 to 400 mmol/L (NTR_INPUT_INFUSATE_K).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.infusate_volume_for_change",
                 "ntr_batch_infusate_volume_for_change",
                 [na_mmol_l, tbw_l, infusate_na_mmol_l, infusate_k_mmol_l,
                  target_delta_mmol_l], errors=errors, with_status=with_status)
 
 
-def furst_ratio(*, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
-                errors="raise", with_status=False):
-    """Furst ratio (U_Na + U_K)/S_Na per row."""
+def furst_ratio(*, urine_na_mmol_l: ArrayLike, urine_k_mmol_l: ArrayLike, serum_na_mmol_l: ArrayLike,
+                errors: str = "raise", with_status: bool = False):
+    """Furst ratio (U_Na + U_K)/S_Na per row.
+
+    Parameters
+    ----------
+    urine_na_mmol_l : array-like, pandas Series or scalar
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : array-like, pandas Series or scalar
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.furst_ratio", "ntr_batch_furst_ratio",
                 [urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l],
                 errors=errors, with_status=with_status)
 
 
-def restriction_from_ratio(ratio, *, errors="raise", with_status=False):
+def restriction_from_ratio(ratio: ArrayLike, *, errors: str = "raise", with_status: bool = False):
     """Restriction codes (1, 2, 3 as natremia.Restriction; 0 in failed
-    rows) per Furst ratio."""
+    rows) per Furst ratio.
+
+    Parameters
+    ----------
+    ratio : array-like, pandas Series or scalar
+        Furst ratio given to ntr_restriction_from_ratio(); accepted 0 to 20 (NTR_INPUT_RATIO).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.restriction_from_ratio",
                 "ntr_batch_restriction_from_ratio", [ratio], int_output=True,
                 errors=errors, with_status=with_status)
 
 
-def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
-         errors="raise", with_status=False):
-    """Electrolyte-free water clearance, L, per row."""
+def efwc(*, urine_volume_l: ArrayLike, urine_na_mmol_l: ArrayLike, urine_k_mmol_l: ArrayLike, serum_na_mmol_l: ArrayLike,
+         errors: str = "raise", with_status: bool = False):
+    """Electrolyte-free water clearance, L, per row.
+
+    Parameters
+    ----------
+    urine_volume_l : array-like, pandas Series or scalar
+        Urine volume (in ntr_efwc(), a day's urine), L; accepted 0 to 30 L (NTR_INPUT_URINE_VOLUME).
+    urine_na_mmol_l : array-like, pandas Series or scalar
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : array-like, pandas Series or scalar
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _run("arrays.efwc", "ntr_batch_efwc",
                 [urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
                  serum_na_mmol_l], errors=errors, with_status=with_status)
@@ -258,6 +901,29 @@ def efwc(*, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
 # ---------------------------------------------------------------------------
 # Correction assessment of many series at once
 # ---------------------------------------------------------------------------
+
+def _offsets_input(offsets, function):
+    """CSR offsets as size_t: exact non-negative integers only (1.7, -1,
+    bools and missing values raise, naming the argument)."""
+    a = np.asarray(offsets)
+    if a.dtype.kind == "b":
+        raise TypeError("%s: argument offsets is boolean, not row offsets"
+                        % function)
+    if a.dtype.kind == "O":
+        a = np.asarray(a.tolist())
+    if a.dtype.kind == "f":
+        if not np.all(np.isfinite(a)) or not np.all(np.floor(a) == a):
+            bad = a[~np.isfinite(a) | (np.floor(a) != a)][0]
+            raise TypeError("%s: argument offsets must hold exact integers, "
+                            "not %r" % (function, float(bad)))
+    elif a.dtype.kind not in "iu":
+        raise TypeError("%s: argument offsets must hold integers, not dtype %s"
+                        % (function, a.dtype))
+    if a.size and a.min() < 0:
+        raise NatremiaError(_core.ERR_ARG, function, "offsets must not be "
+                            "negative", argument="offsets", value=int(a.min()))
+    return np.ascontiguousarray(a, dtype=np.uintp).ravel()
+
 
 def offsets_from_ids(ids):
     """CSR offsets (length groups + 1) of runs of equal ids in a grouped
@@ -299,7 +965,7 @@ def correction_assess_groups(*, hours, na_mmol_l, offsets,
     if hours.shape != na.shape:
         raise NatremiaError(_core.ERR_ARG, f, "hours and na_mmol_l differ in "
                             "length (%d and %d)" % (hours.size, na.size))
-    offsets = np.ascontiguousarray(offsets, dtype=np.uintp).ravel()
+    offsets = _offsets_input(offsets, f)
     if offsets.size < 1:
         raise NatremiaError(_core.ERR_ARG, f, "offsets needs groups + 1 entries")
     samples = np.empty(hours.size, dtype=SAMPLE_DTYPE)
@@ -375,7 +1041,7 @@ def course_assess_groups(*, hours, na_mmol_l, offsets, limits, errors="raise",
     f = "arrays.course_assess_groups"
     _check_errors_choice(errors)
     samples = _samples_array(hours, na_mmol_l, f)
-    offsets = np.ascontiguousarray(offsets, dtype=np.uintp).ravel()
+    offsets = _offsets_input(offsets, f)
     if offsets.size < 1:
         raise NatremiaError(_core.ERR_ARG, f, "offsets needs groups + 1 "
                             "entries", argument="offsets")
@@ -396,6 +1062,11 @@ def course_assess_groups(*, hours, na_mmol_l, offsets, limits, errors="raise",
                             _core.ERR_ARG else None)
     return _finish(f, code, failed, out, status, (groups,), errors,
                    with_status)
+
+
+def _plain(x):
+    """A numpy scalar as a Python one; an object (a str id) as it is."""
+    return x.item() if isinstance(x, np.generic) else x
 
 
 def _limits_key(limits):
@@ -487,9 +1158,9 @@ def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
             g = int(np.searchsorted(offsets, np.flatnonzero(differs)[0],
                                     side="right")) - 1
             raise NatremiaError(_core.ERR_ARG, f, "patient %r has rows with "
-                                "different limits" % (group_ids[g].item(),),
+                                "different limits" % (_plain(group_ids[g]),),
                                 argument="limits",
-                                group_id=group_ids[g].item())
+                                group_id=_plain(group_ids[g]))
 
     table = np.zeros(groups, dtype=[("id", group_ids.dtype),
                                     ("status", np.intc)] +
@@ -514,26 +1185,77 @@ def course_assess_table(*, ids, hours, na_mmol_l, limits, errors="nan"):
         g = int(bad[0])
         raise NatremiaError(int(table["status"][g]), f, row=g,
                             failed=int(bad.size),
-                            group_id=table["id"][g].item())
+                            group_id=_plain(table["id"][g]))
     return table
 
 
-def course_assess_frame(frame, *, id="patient_id", hours="hours",
-                        na_mmol_l="na_mmol_l", limits, errors="nan"):
-    """course_assess_table() over a pandas DataFrame of long rows; returns
-    a DataFrame indexed by patient id with the report fields, the status,
-    and a "flag_names" column of readable flag names. ``limits`` may also
-    name a column of the frame holding each row's preset."""
+def _frame_hours(times, ids, column):
+    """A time column as hours: numbers as they are; datetimes (naive or
+    with a time zone) and timedeltas as hours since each patient's first
+    sample, so no epoch enters the arithmetic (NTR_INPUT_HOURS); NaT as
+    NaN, which fails that patient. Also returns each patient's first time
+    (None for numeric hours)."""
+    pd = _pandas()
+    kind = times.dtype.kind
+    if kind in "Mm" or isinstance(times.dtype, pd.DatetimeTZDtype):
+        first = times.groupby(ids.to_numpy(), sort=False).transform("min")
+        hours = ((times - first) / pd.Timedelta(hours=1)).to_numpy(
+            dtype=np.float64, na_value=np.nan)
+        starts = times.groupby(ids.to_numpy()).min() if kind == "M" or \
+            isinstance(times.dtype, pd.DatetimeTZDtype) else None
+        return hours, starts
+    return _float_input(times, column, _Frame("arrays.course_assess_frame")), \
+        None
+
+
+def course_assess_frame(frame, *, id: str = "patient_id", hours: str = "hours",
+                        na_mmol_l: str = "na_mmol_l", limits,
+                        errors: str = "nan"):
+    """Assess a long DataFrame of sodium results, one row per patient.
+
+    Parameters
+    ----------
+    frame : pandas.DataFrame
+        Long rows: one sodium result per row, any order.
+    id : str
+        Column of patient ids (kept as the result's index).
+    hours : str
+        Column of sample times: hours (numbers, any origin), or datetimes
+        (``datetime64``, with or without a time zone) or timedeltas, taken
+        as hours since each patient's first sample.
+    na_mmol_l : str
+        Column of serum sodium, mmol/L (80 to 220). Missing values
+        (NaN, ``pd.NA``, ``None``) fail their patient (status
+        NTR_ERR_NONFINITE) under ``errors="nan"``.
+    limits : CourseLimits, CoursePreset, str, or column name
+        One set of limits for everyone, or the name of a column holding
+        each row's preset (the same within a patient).
+    errors : {"nan", "raise"}
+        "nan": failed patients get NaN fields and their status; "raise":
+        the first failed patient raises NatremiaError with its id.
+
+    Returns
+    -------
+    pandas.DataFrame
+        Indexed by patient id: the status, the fields of
+        ntr_course_report, "flag_names" (readable flags) and, for datetime
+        times, "first_time" (the time hours count from).
+    """
     import pandas as pd
     if isinstance(limits, str) and limits in frame.columns:
         limits = frame[limits].tolist()
-    table = course_assess_table(ids=frame[id].to_numpy(),
-                                hours=frame[hours].to_numpy(),
-                                na_mmol_l=frame[na_mmol_l].to_numpy(),
-                                limits=limits, errors=errors)
+    ids = frame[id]
+    times, starts = _frame_hours(frame[hours], ids, hours)
+    sodium = _float_input(frame[na_mmol_l], na_mmol_l,
+                          _Frame("arrays.course_assess_frame"))
+    table = course_assess_table(ids=ids.to_numpy(), hours=times,
+                                na_mmol_l=sodium, limits=limits, errors=errors)
     result = pd.DataFrame({name: table[name] for name in table.dtype.names})
     result["flag_names"] = [flag_labels(x) for x in table["flags"]]
-    return result.set_index("id").rename_axis(id)
+    result = result.set_index("id").rename_axis(id)
+    if starts is not None:
+        result["first_time"] = starts.reindex(result.index)
+    return result
 
 
 __all__ = [
@@ -556,8 +1278,13 @@ __all__ = [
 
 def _loop(function, cname, inputs, lead=(), errors="raise", with_status=False):
     _check_errors_choice(errors)
-    arrays = np.broadcast_arrays(*[np.asarray(v, dtype=np.float64)
-                                   for v in inputs])
+    frame = _Frame(function)
+    _, names = _input_names(cname)
+    names = [n for n in names if n != "solute"]
+    if len(names) != len(inputs):
+        names = ["input %d" % i for i in range(len(inputs))]
+    arrays = np.broadcast_arrays(*[_float_input(v, n, frame)
+                                   for v, n in zip(inputs, names)])
     shape = arrays[0].shape
     columns = [np.ascontiguousarray(a).ravel() for a in arrays]
     n = columns[0].size
@@ -573,34 +1300,131 @@ def _loop(function, cname, inputs, lead=(), errors="raise", with_status=False):
     failed = int(np.count_nonzero(status))
     if failed and errors == "raise":
         row = int(np.flatnonzero(status)[0])
-        raise NatremiaError(int(status[row]), function, row=row, failed=failed)
+        row_args = list(lead) + [float(c[row]) for c in columns]
+        argument, value = _core._blame(cname, row_args, int(status[row]))
+        raise NatremiaError(int(status[row]), function, row=row, failed=failed,
+                            argument=argument, value=value,
+                            accepted=_core._accepted_text(cname, argument))
     out = out.reshape(shape)
     if with_status:
-        return out, status.reshape(shape)
-    return out
+        return frame.wrap(out), frame.wrap(status.reshape(shape), "status")
+    return frame.wrap(out)
 
 
-def urine_volume_from_solute(*, solute_mosm_day, urine_osm_mosm_kg,
-                             errors="raise", with_status=False):
-    """Daily urine volume, L/day: solute / U_osm (Berl 2008), per row."""
+def urine_volume_from_solute(*, solute_mosm_day: ArrayLike, urine_osm_mosm_kg: ArrayLike,
+                             errors: str = "raise", with_status: bool = False):
+    """Daily urine volume, L/day: solute / U_osm (Berl 2008), per row.
+
+    Parameters
+    ----------
+    solute_mosm_day : array-like, pandas Series or scalar
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : array-like, pandas Series or scalar
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _loop("urine_volume_from_solute", "ntr_urine_volume_from_solute",
                  [solute_mosm_day, urine_osm_mosm_kg], errors=errors,
                  with_status=with_status)
 
 
-def fluid_allowance(*, solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
-                    urine_k_mmol_l, serum_na_mmol_l, insensible_l_day=0.0,
-                    errors="raise", with_status=False):
+def fluid_allowance(*, solute_mosm_day: ArrayLike, urine_osm_mosm_kg: ArrayLike, urine_na_mmol_l: ArrayLike,
+                    urine_k_mmol_l: ArrayLike, serum_na_mmol_l: ArrayLike, insensible_l_day: ArrayLike = 0.0,
+                    errors: str = "raise", with_status: bool = False):
     """The most fluid per day that does not lower the sodium, L/day, per
-    row (negative: restriction alone cannot hold it)."""
+    row (negative: restriction alone cannot hold it).
+
+    Parameters
+    ----------
+    solute_mosm_day : array-like, pandas Series or scalar
+        Osmoles excreted per day, mOsm/day; accepted 0 to 10000 mOsm/day (NTR_INPUT_SOLUTE_MOSM_DAY).
+    urine_osm_mosm_kg : array-like, pandas Series or scalar
+        Urine osmolality, mOsm/kg; accepted 10 to 2000 mOsm/kg (NTR_INPUT_URINE_OSM).
+    urine_na_mmol_l : array-like, pandas Series or scalar
+        Urine sodium, mmol/L; accepted 0 to 500 mmol/L (NTR_INPUT_URINE_NA).
+    urine_k_mmol_l : array-like, pandas Series or scalar
+        Urine potassium, mmol/L; accepted 0 to 300 mmol/L (NTR_INPUT_URINE_K).
+    serum_na_mmol_l : array-like, pandas Series or scalar
+        Serum sodium (also a target sodium), mmol/L; accepted 80 to 220 mmol/L (NTR_INPUT_NA).
+    insensible_l_day : array-like, pandas Series or scalar
+        Net insensible loss, L/day; accepted 0 to 10 L/day (NTR_INPUT_INSENSIBLE_L_DAY).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     return _loop("fluid_allowance", "ntr_fluid_allowance",
                  [solute_mosm_day, urine_osm_mosm_kg, urine_na_mmol_l,
                   urine_k_mmol_l, serum_na_mmol_l, insensible_l_day],
                  errors=errors, with_status=with_status)
 
 
-def solute_dose_osmoles(*, solute, grams, errors="raise", with_status=False):
-    """Osmoles, mOsm, of doses of one solute (urea or NaCl), per row."""
+def solute_dose_osmoles(*, solute: ArrayLike, grams: ArrayLike, errors: str = "raise", with_status: bool = False):
+    """Osmoles, mOsm, of doses of one solute (urea or NaCl), per row.
+
+    Parameters
+    ----------
+    solute : scalar of Solute codes or names
+        One of urea (1), nacl (2); strings, pandas string, category
+        and object columns are taken; missing entries fail their row.
+    grams : array-like, pandas Series or scalar
+        A daily dose of urea or NaCl, g; accepted 0 to 200 g (NTR_INPUT_SOLUTE_GRAMS).
+    errors : {"raise", "nan"}
+        "raise": any failed row raises NatremiaError naming the first
+        failing row and argument; "nan": failed rows hold NaN.
+    with_status : bool
+        Also return the int32 per-row status (0 = NTR_OK).
+
+    Returns
+    -------
+    numpy.ndarray, pandas.Series or numpy.ma.MaskedArray
+        The broadcast shape; a Series on the inputs' index when any
+        input is a Series, a masked array when any is masked (and the
+        status alike with ``with_status=True``).
+
+    Raises
+    ------
+    NatremiaError
+        A failed row under ``errors="raise"``, or an unknown code.
+    TypeError, ValueError
+        Inputs that are not numbers or exact codes; Series whose
+        indexes differ.
+    """
     code = _enum(_core.Solute, solute, "solute", "solute_dose_osmoles")
     return _loop("solute_dose_osmoles", "ntr_solute_dose_osmoles", [grams],
                  lead=(code,), errors=errors, with_status=with_status)

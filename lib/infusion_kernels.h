@@ -1,0 +1,120 @@
+/* Infusate predictions, written once (docs/infusion.md): the kernels of
+ * ntr_infusate_change_per_litre(), ntr_infusate_change() and
+ * ntr_infusate_volume_for_change(), used by those functions
+ * (lib/infusion.c) and by their batch entry points (lib/batch.c).
+ * Lane-generic, see lib/kernel_lanes.h. Not installed. */
+#if (NTRK_FLAVOUR == 0 && !defined(NTR_INFUSION_KERNELS_0)) || \
+    (NTRK_FLAVOUR == 1 && !defined(NTR_INFUSION_KERNELS_1)) || \
+    (NTRK_FLAVOUR == 2 && !defined(NTR_INFUSION_KERNELS_2))
+#if NTRK_FLAVOUR == 0
+#define NTR_INFUSION_KERNELS_0
+#elif NTRK_FLAVOUR == 1
+#define NTR_INFUSION_KERNELS_1
+#else
+#define NTR_INFUSION_KERNELS_2
+#endif
+
+/* The inputs every infusate prediction takes, in argument order. */
+static inline NTRK_VERDICT NTRK(infusate_inputs)(NTRK_REAL na_mmol_l,
+                                                 NTRK_REAL tbw_l,
+                                                 NTRK_REAL infusate_na_mmol_l,
+                                                 NTRK_REAL infusate_k_mmol_l)
+{
+    NTRK_BEGIN;
+    NTRK_CHECK(na_mmol_l, NTR_NA_MIN, NTR_NA_MAX);
+    NTRK_CHECK(tbw_l, NTR_TBW_MIN, NTR_TBW_MAX);
+    NTRK_CHECK(infusate_na_mmol_l, 0.0, NTR_INFUSATE_NA_MAX);
+    NTRK_CHECK(infusate_k_mmol_l, 0.0, NTR_INFUSATE_K_MAX);
+    NTRK_END;
+}
+
+/* The prediction's domain, by the rule ntr_balance_predict() applies to the
+ * same flow (ntri_mass_balance): sodium after within 80 to 220 mmol/L and
+ * body water after within 0.1 to 400 L, else NTR_ERR_DOMAIN. excess_mmol
+ * is volume * (Na_inf + K_inf - Na), as the prediction computes it. */
+static inline NTRK_VERDICT NTRK(prediction)(NTRK_REAL na_mmol_l, NTRK_REAL tbw_l,
+                                            NTRK_REAL volume_l,
+                                            NTRK_REAL excess_mmol)
+{
+    NTRK_REAL na_after, tbw_after;
+    return NTRK(mass_balance)(na_mmol_l, tbw_l, volume_l, excess_mmol,
+                              &na_after, &tbw_after);
+}
+
+/* Adrogue & Madias 2000 as published: (Na_inf + K_inf - Na)/(TBW + 1).
+ * Written out on its own rather than as the change after 1 L, so the test
+ * that the two agree at 1 L compares two independent expressions. */
+static inline NTRK_VERDICT NTRK(infusate_change_per_litre)(
+    NTRK_REAL na_mmol_l, NTRK_REAL tbw_l, NTRK_REAL infusate_na_mmol_l,
+    NTRK_REAL infusate_k_mmol_l, NTRK_REAL *delta_mmol_l)
+{
+    NTRK_BEGIN;
+    NTRK_TRY(NTRK(infusate_inputs)(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                   infusate_k_mmol_l));
+    NTRK_TRY(NTRK(prediction)(na_mmol_l, tbw_l, NTRK_K(1.0),
+                              infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l));
+    *delta_mmol_l = (infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l) /
+                    (tbw_l + 1.0);
+    NTRK_END;
+}
+
+/* The change after volume_l: (Na*TBW + C*V)/(TBW + V) - Na, rearranged as
+ * V*(C - Na)/(TBW + V) so Na does not cancel. */
+static inline NTRK_VERDICT NTRK(infusate_change)(NTRK_REAL na_mmol_l,
+                                                 NTRK_REAL tbw_l,
+                                                 NTRK_REAL infusate_na_mmol_l,
+                                                 NTRK_REAL infusate_k_mmol_l,
+                                                 NTRK_REAL volume_l,
+                                                 NTRK_REAL *delta_mmol_l)
+{
+    NTRK_REAL excess;
+    NTRK_BEGIN;
+    NTRK_TRY(NTRK(infusate_inputs)(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                   infusate_k_mmol_l));
+    NTRK_CHECK(volume_l, 0.0, NTR_INFUSE_VOLUME_MAX);
+    excess = volume_l * (infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l);
+    NTRK_TRY(NTRK(prediction)(na_mmol_l, tbw_l, volume_l, excess));
+    *delta_mmol_l = excess / (tbw_l + volume_l);
+    NTRK_END;
+}
+
+/* The volume that changes sodium by target_delta_mmol_l:
+ * delta*TBW / (C - Na - delta). */
+static inline NTRK_VERDICT NTRK(infusate_volume_for_change)(
+    NTRK_REAL na_mmol_l, NTRK_REAL tbw_l, NTRK_REAL infusate_na_mmol_l,
+    NTRK_REAL infusate_k_mmol_l, NTRK_REAL target_delta_mmol_l,
+    NTRK_REAL *volume_l)
+{
+    NTRK_REAL headroom;
+    NTRK_REAL volume;
+    NTRK_TEST rise, fall;
+    NTRK_BEGIN;
+    NTRK_TRY(NTRK(infusate_inputs)(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                   infusate_k_mmol_l));
+    NTRK_CHECK(target_delta_mmol_l, -NTR_DELTA_MAX, NTR_DELTA_MAX);
+    /* The sodium aimed at must be one the model predicts, by the rule
+     * ntr_relower_estimate() applies to its target. */
+    NTRK_TRY(NTRK(model_na)(na_mmol_l + target_delta_mmol_l));
+    NTRK_RETURN_IF(NTRK_EQ(target_delta_mmol_l, NTRK_K(0.0)), volume_l, 0.0);
+    /* The infusate must lie beyond the target sodium, on the same side.
+     * (A change of 0 fails both tests: in two lanes, such a row goes to
+     * the scalar kernel, which returned 0.0 above.) */
+    headroom = infusate_na_mmol_l + infusate_k_mmol_l - na_mmol_l -
+               target_delta_mmol_l;
+    rise = NTRK_AND(NTRK_GT(target_delta_mmol_l, NTRK_K(0.0)),
+                    NTRK_GT(headroom, NTRK_K(0.0)));
+    fall = NTRK_AND(NTRK_LT(target_delta_mmol_l, NTRK_K(0.0)),
+                    NTRK_LT(headroom, NTRK_K(0.0)));
+    NTRK_REQUIRE(NTRK_OR(rise, fall), NTR_ERR_DOMAIN);
+    volume = target_delta_mmol_l * tbw_l / headroom;
+    NTRK_REQUIRE(NTRK_LE(volume, NTRK_K(NTR_INFUSE_VOLUME_MAX)), NTR_ERR_DOMAIN);
+    /* The volume given to ntr_infusate_change() must not be refused there:
+     * a target at the edge of the range can round to just outside it. */
+    NTRK_TRY(NTRK(prediction)(na_mmol_l, tbw_l, volume,
+                              volume * (infusate_na_mmol_l + infusate_k_mmol_l -
+                                        na_mmol_l)));
+    *volume_l = volume;
+    NTRK_END;
+}
+
+#endif
