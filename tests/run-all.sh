@@ -55,6 +55,11 @@ packages=(
     wasi-libc
     nodejs
     chromium
+    # the R package (issue 15): R, its headers and toolchain for the .Call
+    # glue, and testthat for its tests
+    r-base-core
+    r-base-dev
+    r-cran-testthat
 )
 
 cd "$(dirname "${BASH_SOURCE[0]}")/.."

@@ -1,0 +1,4 @@
+library(testthat)
+library(natremia)
+
+test_check("natremia")
