@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """Correction-rate screening of a whole cohort on Dask (invented data).
 
 Every patient here is invented: the cohort is generated from a seeded

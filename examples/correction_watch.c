@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Watch a sodium series as it arrives, one "hours,sodium" line per result
  * on standard input, with the library's streaming course watcher (rises and
  * falls); one CSV line per result, exit 1 if a limit was exceeded.

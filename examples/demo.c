@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* natremia-demo: two invented patients walked through the whole job, one
  * with a low sodium being raised, one with a high sodium being lowered.
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Therapy steps of the demo: the solute decision for patient A.
  * The patient and every value are invented. */
 #include "demo_therapy.h"

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Therapy steps of the demo (solute and restriction), kept apart from
  * demo.c so that each file stays readable. Invented patient data only. */
 #ifndef NATREMIA_DEMO_THERAPY_H

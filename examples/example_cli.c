@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Command-line handling shared by the example programs (example_cli.h). */
 #include "example_cli.h"
 

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Command-line handling shared by the example programs (example code, not
  * part of the library).
  *

@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """Work-up and correction watch from a FHIR R4 Bundle (invented data).
 
 Reads laboratory Observations (LOINC-coded, UCUM valueQuantity) from a

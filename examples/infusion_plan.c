@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Predicted effect of an infusion on serum sodium.
  *
  *   infusion_plan SEX AGE WEIGHT_KG SODIUM FLUID VOLUME_ML

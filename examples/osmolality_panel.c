@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Osmolality of a serum panel given in mixed units.
  *
  *   osmolality_panel SODIUM GLUCOSE UNIT UREA_NITROGEN UNIT [MEASURED_OSM]

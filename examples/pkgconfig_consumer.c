@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* A program outside the natremia source tree that finds the INSTALLED
  * library only through pkg-config:
  *

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # The README's demo command: installs any missing build dependency
 # (Debian/Ubuntu, apt-get), builds the library and the demo in build/, and
 # runs the demo on its built-in invented patients.

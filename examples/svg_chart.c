@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Hand-written SVG for the demo's sodium chart (see svg_chart.h). */
 #include "svg_chart.h"
 

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* A small, dependency-free SVG line chart for sodium over time.
  *
  * Example code, not part of the library: it uses stdio. It draws, on

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /**
  * @file natremia.h
  * @brief natremia: sodium and water arithmetic for clinical software.
@@ -60,6 +61,21 @@
 #  define NTR_API __attribute__((visibility("default")))
 #else
 #  define NTR_API
+#endif
+
+/* Every function that returns a status carries NTR_MUST_CHECK, so that a
+ * caller who drops the status gets a compiler warning (GCC and clang:
+ * -Wunused-result, on by default; an error with -Werror): an unchecked
+ * status is how a refused input passes quietly, with its outputs left
+ * untouched. GCC warns even through a (void) cast; test the status
+ * instead. Define NTR_NO_MUST_CHECK before including the header to switch
+ * the attribute off. */
+#if defined(NTR_NO_MUST_CHECK)
+#  define NTR_MUST_CHECK
+#elif defined(__GNUC__) && __GNUC__ >= 4
+#  define NTR_MUST_CHECK __attribute__((warn_unused_result))
+#else
+#  define NTR_MUST_CHECK
 #endif
 
 #ifdef __cplusplus
@@ -156,7 +172,7 @@ NTR_API unsigned long ntr_version_number(void);
  * Reference: The Unified Code for Units of Measure (UCUM), Regenstrief Institute.
  * Method: @ref NTR_METHOD_UNIT_CONVERSION.
  */
-NTR_API int ntr_unit_parse(const char *ucum, int *unit);
+NTR_API NTR_MUST_CHECK int ntr_unit_parse(const char *ucum, int *unit);
 
 /**
  * @brief Parse a unit as laboratory feeds spell it (since 1.1).
@@ -198,7 +214,7 @@ NTR_API int ntr_unit_parse(const char *ucum, int *unit);
  * Institute (its case-insensitive forms and the {annotation} syntax).
  * Method: @ref NTR_METHOD_UNIT_CONVERSION.
  */
-NTR_API int ntr_unit_parse_lenient(const char *text, int *unit);
+NTR_API NTR_MUST_CHECK int ntr_unit_parse_lenient(const char *text, int *unit);
 
 /**
  * @brief Analyte, specimen and unit of a LOINC code (since 1.1).
@@ -242,7 +258,7 @@ NTR_API int ntr_unit_parse_lenient(const char *text, int *unit);
  * FHIR R4 published examples (hl7.fhir.r4.examples 4.0.1).
  * Method: @ref NTR_METHOD_LOINC_MAP.
  */
-NTR_API int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
+NTR_API NTR_MUST_CHECK int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
                              int *unit);
 
 /**
@@ -290,7 +306,7 @@ NTR_API int ntr_loinc_lookup(const char *code, int *analyte, int *specimen,
  * 1975;21:190-4. The tolerance is the project's (docs/ranges.md).
  * Method: @ref NTR_METHOD_GLUCOSE_UNIT_CHECK.
  */
-NTR_API int ntr_glucose_unit_check(double glucose, int unit, double na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_glucose_unit_check(double glucose, int unit, double na_mmol_l,
                                    double measured_osm_mosm_kg,
                                    double *glucose_mmol_l);
 
@@ -328,7 +344,7 @@ NTR_API int ntr_glucose_unit_check(double glucose, int unit, double na_mmol_l,
  * standard atomic weights (abridged to five significant figures).
  * Method: @ref NTR_METHOD_UNIT_CONVERSION.
  */
-NTR_API int ntr_convert(int analyte, double value, int from_unit, int to_unit,
+NTR_API NTR_MUST_CHECK int ntr_convert(int analyte, double value, int from_unit, int to_unit,
                         double *out);
 /** @} */
 
@@ -371,7 +387,7 @@ NTR_API int ntr_convert(int analyte, double value, int from_unit, int to_unit,
  * serum osmolality from chemical concentrations. Clin Chem 1975;21:190-4.
  * Methods: @ref NTR_METHOD_OSM_2NA, @ref NTR_METHOD_OSM_DORWART_CHALMERS.
  */
-NTR_API int ntr_osm_calculated(double na_mmol_l, double glucose_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_osm_calculated(double na_mmol_l, double glucose_mmol_l,
                                double urea_mmol_l, double ethanol_mmol_l,
                                int formula, double *mosm_kg);
 
@@ -392,7 +408,7 @@ NTR_API int ntr_osm_calculated(double na_mmol_l, double glucose_mmol_l,
  * and treatment of hyponatraemia. Eur J Endocrinol 2014;170:G1-47.
  * Method: @ref NTR_METHOD_OSM_EFFECTIVE.
  */
-NTR_API int ntr_osm_effective(double na_mmol_l, double glucose_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_osm_effective(double na_mmol_l, double glucose_mmol_l,
                               double *mosm_kg);
 
 /**
@@ -412,7 +428,7 @@ NTR_API int ntr_osm_effective(double na_mmol_l, double glucose_mmol_l,
  * Reference: textbook definition of the osmolal gap.
  * Method: @ref NTR_METHOD_OSM_GAP.
  */
-NTR_API int ntr_osm_gap(double measured_mosm_kg, double calculated_mosm_kg,
+NTR_API NTR_MUST_CHECK int ntr_osm_gap(double measured_mosm_kg, double calculated_mosm_kg,
                         double *gap_mosm_kg);
 /** @} */
 
@@ -449,7 +465,7 @@ NTR_API int ntr_osm_gap(double measured_mosm_kg, double calculated_mosm_kg,
  * correction factor for hyperglycemia. Am J Med 1999;106:399-403.
  * Methods: @ref NTR_METHOD_GLUCOSE_KATZ, @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
-NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
                                      int method, double *na_corrected_mmol_l);
 
 /**
@@ -471,7 +487,7 @@ NTR_API int ntr_na_corrected_glucose(double na_mmol_l, double glucose_mmol_l,
  * Reference: as ntr_na_corrected_glucose().
  * Method: @ref NTR_METHOD_GLUCOSE_FACTOR.
  */
-NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_na_corrected_glucose_factor(double na_mmol_l,
                                             double glucose_mmol_l,
                                             double factor_per_100mg_dl,
                                             double *na_corrected_mmol_l);
@@ -501,7 +517,7 @@ NTR_API int ntr_na_corrected_glucose_factor(double na_mmol_l,
  * medical texts). It ignores ongoing losses too; see ntr_balance_predict().
  * Method: @ref NTR_METHOD_NA_DEFICIT.
  */
-NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_na_deficit(double tbw_l, double na_mmol_l,
                            double target_na_mmol_l, double *mmol);
 /** @} */
 
@@ -542,7 +558,7 @@ NTR_API int ntr_na_deficit(double tbw_l, double na_mmol_l,
  * 2000;342:1581-9.
  * Method: @ref NTR_METHOD_TBW_FRACTION.
  */
-NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
+NTR_API NTR_MUST_CHECK int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
                              double *litres);
 
 /**
@@ -582,7 +598,7 @@ NTR_API int ntr_tbw_fraction(int sex, double age_years, double weight_kg,
  * measurements. Am J Clin Nutr 1980;33:27-39.
  * Method: @ref NTR_METHOD_TBW_WATSON.
  */
-NTR_API int ntr_tbw_watson(int sex, double age_years, double height_cm,
+NTR_API NTR_MUST_CHECK int ntr_tbw_watson(int sex, double age_years, double height_cm,
                            double weight_kg, double *litres);
 
 /**
@@ -604,7 +620,7 @@ NTR_API int ntr_tbw_watson(int sex, double age_years, double height_cm,
  * 2000;342:1493-9.
  * Method: @ref NTR_METHOD_FREE_WATER_DEFICIT.
  */
-NTR_API int ntr_free_water_deficit(double tbw_l, double na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_free_water_deficit(double tbw_l, double na_mmol_l,
                                    double *litres);
 /** @} */
 
@@ -640,7 +656,7 @@ NTR_API int ntr_free_water_deficit(double tbw_l, double na_mmol_l,
  * 2000;342:1581-9 (table of infusates).
  * Method: @ref NTR_METHOD_FLUID_PRESETS.
  */
-NTR_API int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
+NTR_API NTR_MUST_CHECK int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
 
 /**
  * @brief Expected change in serum sodium from 1 L of an infusate.
@@ -665,7 +681,7 @@ NTR_API int ntr_fluid_preset(int fluid, double *na_mmol_l, double *k_mmol_l);
  * 2000;342:1581-9.
  * Method: @ref NTR_METHOD_ADROGUE_MADIAS.
  */
-NTR_API int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
                                           double infusate_na_mmol_l,
                                           double infusate_k_mmol_l,
                                           double *delta_mmol_l);
@@ -699,7 +715,7 @@ NTR_API int ntr_infusate_change_per_litre(double na_mmol_l, double tbw_l,
  * (N Engl J Med 2000;342:1581-9).
  * Method: @ref NTR_METHOD_INFUSATE_MASS_BALANCE.
  */
-NTR_API int ntr_infusate_change(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_infusate_change(double na_mmol_l, double tbw_l,
                                 double infusate_na_mmol_l,
                                 double infusate_k_mmol_l, double volume_l,
                                 double *delta_mmol_l);
@@ -737,7 +753,7 @@ NTR_API int ntr_infusate_change(double na_mmol_l, double tbw_l,
  * inverse of ntr_infusate_change()).
  * Method: @ref NTR_METHOD_INFUSATE_VOLUME.
  */
-NTR_API int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
                                            double infusate_na_mmol_l,
                                            double infusate_k_mmol_l,
                                            double target_delta_mmol_l,
@@ -778,7 +794,7 @@ NTR_API int ntr_infusate_volume_for_change(double na_mmol_l, double tbw_l,
  * 2000;319:240-4.
  * Method: @ref NTR_METHOD_FURST.
  */
-NTR_API int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
                             double serum_na_mmol_l, double *ratio);
 
 /**
@@ -808,7 +824,7 @@ NTR_API int ntr_furst_ratio(double urine_na_mmol_l, double urine_k_mmol_l,
  * recommendations. Am J Med 2013;126(10 Suppl 1):S1-42.
  * Method: @ref NTR_METHOD_FURST.
  */
-NTR_API int ntr_restriction_from_ratio(double ratio, int *advice);
+NTR_API NTR_MUST_CHECK int ntr_restriction_from_ratio(double ratio, int *advice);
 
 /**
  * @brief Electrolyte-free water clearance.
@@ -830,7 +846,7 @@ NTR_API int ntr_restriction_from_ratio(double ratio, int *advice);
  * Clinical Physiology of Acid-Base and Electrolyte Disorders, 5th ed.).
  * Method: @ref NTR_METHOD_EFWC.
  */
-NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
                      double urine_k_mmol_l, double serum_na_mmol_l,
                      double *litres);
 /** @} */
@@ -880,7 +896,7 @@ NTR_API int ntr_efwc(double urine_volume_l, double urine_na_mmol_l,
  * excretion. J Am Soc Nephrol 2008;19:1076-8.
  * Method: @ref NTR_METHOD_SOLUTE_URINE_VOLUME.
  */
-NTR_API int ntr_urine_volume_from_solute(double solute_mosm_day,
+NTR_API NTR_MUST_CHECK int ntr_urine_volume_from_solute(double solute_mosm_day,
                                          double urine_osm_mosm_kg,
                                          double *urine_l_day);
 
@@ -930,7 +946,7 @@ NTR_API int ntr_urine_volume_from_solute(double solute_mosm_day,
  * 5th ed.).
  * Method: @ref NTR_METHOD_FLUID_ALLOWANCE.
  */
-NTR_API int ntr_fluid_allowance(double solute_mosm_day,
+NTR_API NTR_MUST_CHECK int ntr_fluid_allowance(double solute_mosm_day,
                                 double urine_osm_mosm_kg,
                                 double urine_na_mmol_l, double urine_k_mmol_l,
                                 double serum_na_mmol_l,
@@ -962,7 +978,7 @@ NTR_API int ntr_fluid_allowance(double solute_mosm_day,
  * 2008;19:1076-8 (urea and salt as solute).
  * Method: @ref NTR_METHOD_SOLUTE_DOSE.
  */
-NTR_API int ntr_solute_dose_osmoles(int solute, double grams, double *mosm);
+NTR_API NTR_MUST_CHECK int ntr_solute_dose_osmoles(int solute, double grams, double *mosm);
 
 /**
  * @brief The fluid allowance after a daily dose of urea or salt tablets.
@@ -1004,7 +1020,7 @@ NTR_API int ntr_solute_dose_osmoles(int solute, double grams, double *mosm);
  * ntr_fluid_allowance().
  * Method: @ref NTR_METHOD_SOLUTE_FOR_ALLOWANCE.
  */
-NTR_API int ntr_fluid_allowance_with_dose(int solute, double grams_day,
+NTR_API NTR_MUST_CHECK int ntr_fluid_allowance_with_dose(int solute, double grams_day,
                                           double solute_mosm_day,
                                           double urine_osm_mosm_kg,
                                           double urine_na_mmol_l,
@@ -1047,7 +1063,7 @@ NTR_API int ntr_fluid_allowance_with_dose(int solute, double grams_day,
  * ntr_fluid_allowance().
  * Method: @ref NTR_METHOD_SOLUTE_FOR_ALLOWANCE.
  */
-NTR_API int ntr_solute_dose_for_allowance(int solute, double solute_mosm_day,
+NTR_API NTR_MUST_CHECK int ntr_solute_dose_for_allowance(int solute, double solute_mosm_day,
                                           double urine_osm_mosm_kg,
                                           double urine_na_mmol_l,
                                           double urine_k_mmol_l,
@@ -1141,7 +1157,7 @@ typedef struct ntr_outlook {
  * @ref NTR_METHOD_EFWC, @ref NTR_METHOD_FLUID_ALLOWANCE,
  * @ref NTR_METHOD_SOLUTE_FOR_ALLOWANCE.
  */
-NTR_API int ntr_restriction_outlook(double solute_mosm_day,
+NTR_API NTR_MUST_CHECK int ntr_restriction_outlook(double solute_mosm_day,
                                     double urine_osm_mosm_kg,
                                     double urine_na_mmol_l,
                                     double urine_k_mmol_l,
@@ -1195,7 +1211,7 @@ NTR_API int ntr_restriction_outlook(double solute_mosm_day,
  * (classification by biochemical severity).
  * Method: @ref NTR_METHOD_NA_SEVERITY.
  */
-NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
+NTR_API NTR_MUST_CHECK int ntr_na_severity(double na_mmol_l, int *severity);
 
 #define NTR_TONICITY_HYPOTONIC 1  /**< osmolality (measured, or effective where a function says so) below 275 mOsm/kg */
 #define NTR_TONICITY_ISOTONIC 2   /**< 275 to 295 mOsm/kg inclusive */
@@ -1227,7 +1243,7 @@ NTR_API int ntr_na_severity(double na_mmol_l, int *severity);
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
  * Method: @ref NTR_METHOD_TONICITY_CLASS.
  */
-NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
+NTR_API NTR_MUST_CHECK int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
 
 /** Flag bits written by ntr_low_na_tonicity() and
  *  ntr_low_na_effective_tonicity(). "Osmolality" is the measured value for
@@ -1292,7 +1308,7 @@ NTR_API int ntr_tonicity_class(double measured_osm_mosm_kg, int *tonicity);
  * Methods: @ref NTR_METHOD_LOW_NA_TONICITY, @ref NTR_METHOD_TONICITY_CLASS,
  * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
-NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
                                 double measured_osm_mosm_kg,
                                 int glucose_method, int *tonicity,
                                 unsigned int *flags);
@@ -1348,7 +1364,7 @@ NTR_API int ntr_low_na_tonicity(double na_mmol_l, double glucose_mmol_l,
  * coefficient; docs/workup.md says how sure it is).
  * Method: @ref NTR_METHOD_EFFECTIVE_OSM_MEASURED.
  */
-NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
                                        double urea_mmol_l, double ethanol_mmol_l,
                                        double measured_osm_mosm_kg,
                                        double *mosm_kg);
@@ -1408,7 +1424,7 @@ NTR_API int ntr_effective_osm_measured(double na_mmol_l, double glucose_mmol_l,
  * @ref NTR_METHOD_EFFECTIVE_OSM_MEASURED, @ref NTR_METHOD_TONICITY_CLASS,
  * @ref NTR_METHOD_GLUCOSE_KATZ or @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
-NTR_API int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_l,
                                           double urea_mmol_l, double ethanol_mmol_l,
                                           double measured_osm_mosm_kg,
                                           int glucose_method, int *tonicity,
@@ -1437,7 +1453,7 @@ NTR_API int ntr_low_na_effective_tonicity(double na_mmol_l, double glucose_mmol_
  * (Spasovski G et al. 2014) first urine step.
  * Method: @ref NTR_METHOD_URINE_DILUTE.
  */
-NTR_API int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute);
+NTR_API NTR_MUST_CHECK int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute);
 
 /**
  * @brief Is the urine sodium high?
@@ -1458,7 +1474,7 @@ NTR_API int ntr_urine_maximally_dilute(double urine_osm_mosm_kg, int *dilute);
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170(3):G1-G47.
  * Method: @ref NTR_METHOD_URINE_NA_HIGH.
  */
-NTR_API int ntr_urine_na_high(double urine_na_mmol_l, int *high);
+NTR_API NTR_MUST_CHECK int ntr_urine_na_high(double urine_na_mmol_l, int *high);
 
 /**
  * @brief Fractional excretion of a solute (sodium, urea, uric acid, ...).
@@ -1491,7 +1507,7 @@ NTR_API int ntr_urine_na_high(double urine_na_mmol_l, int *high);
  * Spasovski G et al. 2014.
  * Method: @ref NTR_METHOD_FRACTIONAL_EXCRETION.
  */
-NTR_API int ntr_fractional_excretion(double urine_x, double plasma_x,
+NTR_API NTR_MUST_CHECK int ntr_fractional_excretion(double urine_x, double plasma_x,
                                      double urine_creatinine,
                                      double plasma_creatinine,
                                      double *percent);
@@ -1619,7 +1635,7 @@ typedef struct ntr_siad_result {
  * @retval NTR_ERR_NULL      a pointer argument is NULL.
  * Reference: none (initialiser). Method: @ref NTR_METHOD_SIAD_CRITERIA.
  */
-NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
+NTR_API NTR_MUST_CHECK int ntr_siad_findings_init(ntr_siad_findings *findings);
 
 /**
  * @brief Test the findings against the criteria for SIAD.
@@ -1674,7 +1690,7 @@ NTR_API int ntr_siad_findings_init(ntr_siad_findings *findings);
  * Med 1967;42:790-806.
  * Method: @ref NTR_METHOD_SIAD_CRITERIA.
  */
-NTR_API int ntr_siad_evaluate(const ntr_siad_findings *findings,
+NTR_API NTR_MUST_CHECK int ntr_siad_evaluate(const ntr_siad_findings *findings,
                               ntr_siad_result *result);
 
 /** Classes written by ntr_fe_uric_acid_class(). */
@@ -1723,7 +1739,7 @@ NTR_API int ntr_siad_evaluate(const ntr_siad_findings *findings,
  * table of SIAD criteria).
  * Method: @ref NTR_METHOD_FE_URIC_ACID_CLASS.
  */
-NTR_API int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class);
+NTR_API NTR_MUST_CHECK int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class);
 
 /** Readings written by ntr_fe_uric_acid_after_correction(). Exactly one
  *  applies to each pair of measurements. */
@@ -1783,7 +1799,7 @@ NTR_API int ntr_fe_uric_acid_class(double fe_uric_acid_percent, int *fe_class);
  * after correction (from memory: see docs/workup.md).
  * Method: @ref NTR_METHOD_FE_URIC_ACID_AFTER_CORRECTION.
  */
-NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
+NTR_API NTR_MUST_CHECK int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
                                               double fe_corrected_percent,
                                               double na_corrected_mmol_l,
                                               int *course);
@@ -1866,7 +1882,7 @@ NTR_API int ntr_fe_uric_acid_after_correction(double fe_low_na_percent,
  * On error nothing is written. Reference: docs/ranges.md (the library's
  * plausibility nets; not clinical limits). Method: none.
  */
-NTR_API int ntr_input_range(int kind, double *min, double *max);
+NTR_API NTR_MUST_CHECK int ntr_input_range(int kind, double *min, double *max);
 /** @} */
 
 /* ======================================================================= */
@@ -1917,7 +1933,7 @@ struct ntr_method_info {
  * each entry names the published source of its method.
  * Method: none of its own (it describes the others).
  */
-NTR_API int ntr_method_info(int method, struct ntr_method_info *out);
+NTR_API NTR_MUST_CHECK int ntr_method_info(int method, struct ntr_method_info *out);
 
 /**
  * @brief Iterate over every method id the library knows, in increasing order.
@@ -1940,7 +1956,7 @@ NTR_API int ntr_method_info(int method, struct ntr_method_info *out);
  *
  * Reference: none (library bookkeeping). Method: none.
  */
-NTR_API int ntr_method_next(int after, int *next);
+NTR_API NTR_MUST_CHECK int ntr_method_next(int after, int *next);
 /** @} */
 
 /* ======================================================================= */
@@ -1999,7 +2015,7 @@ NTR_API int ntr_method_next(int after, int *next);
  * Reference: Dorwart WV, Chalmers L. Clin Chem 1975;21:190-4.
  * Methods: @ref NTR_METHOD_OSM_2NA, @ref NTR_METHOD_OSM_DORWART_CHALMERS.
  */
-NTR_API int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
                                      const double *glucose_mmol_l,
                                      const double *urea_mmol_l,
                                      const double *ethanol_mmol_l, int formula,
@@ -2020,7 +2036,7 @@ NTR_API int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
  * Reference: Spasovski G et al. Eur J Endocrinol 2014;170:G1-47.
  * Method: @ref NTR_METHOD_OSM_EFFECTIVE.
  */
-NTR_API int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
                                     const double *glucose_mmol_l, double *out,
                                     int *status, size_t *failed);
 
@@ -2039,7 +2055,7 @@ NTR_API int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
  * Reference: textbook definition of the osmolal gap.
  * Method: @ref NTR_METHOD_OSM_GAP.
  */
-NTR_API int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
+NTR_API NTR_MUST_CHECK int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
                               const double *calculated_mosm_kg, double *out,
                               int *status, size_t *failed);
 
@@ -2065,7 +2081,7 @@ NTR_API int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
  * Am J Med 1999;106:399-403.
  * Methods: @ref NTR_METHOD_GLUCOSE_KATZ, @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
-NTR_API int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
                                            const double *glucose_mmol_l,
                                            int method, double *out, int *status,
                                            size_t *failed);
@@ -2091,7 +2107,7 @@ NTR_API int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
  * Reference: Adrogue HJ, Madias NE. N Engl J Med 2000;342:1581-9.
  * Method: @ref NTR_METHOD_TBW_FRACTION.
  */
-NTR_API int ntr_batch_tbw_fraction(size_t n, const int *sex,
+NTR_API NTR_MUST_CHECK int ntr_batch_tbw_fraction(size_t n, const int *sex,
                                    const double *age_years,
                                    const double *weight_kg, double *out,
                                    int *status, size_t *failed);
@@ -2118,7 +2134,7 @@ NTR_API int ntr_batch_tbw_fraction(size_t n, const int *sex,
  * Reference: Watson PE, Watson ID, Batt RD. Am J Clin Nutr 1980;33:27-39.
  * Method: @ref NTR_METHOD_TBW_WATSON.
  */
-NTR_API int ntr_batch_tbw_watson(size_t n, const int *sex,
+NTR_API NTR_MUST_CHECK int ntr_batch_tbw_watson(size_t n, const int *sex,
                                  const double *age_years,
                                  const double *height_cm,
                                  const double *weight_kg, double *out,
@@ -2140,7 +2156,7 @@ NTR_API int ntr_batch_tbw_watson(size_t n, const int *sex,
  * Reference: the textbook water-deficit formula (common practice).
  * Method: @ref NTR_METHOD_FREE_WATER_DEFICIT.
  */
-NTR_API int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
                                          const double *na_mmol_l, double *out,
                                          int *status, size_t *failed);
 
@@ -2161,7 +2177,7 @@ NTR_API int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
  * Reference: common practice (the sodium-deficit formula).
  * Method: @ref NTR_METHOD_NA_DEFICIT.
  */
-NTR_API int ntr_batch_na_deficit(size_t n, const double *tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_na_deficit(size_t n, const double *tbw_l,
                                  const double *na_mmol_l,
                                  const double *target_na_mmol_l, double *out,
                                  int *status, size_t *failed);
@@ -2187,7 +2203,7 @@ NTR_API int ntr_batch_na_deficit(size_t n, const double *tbw_l,
  * Reference: Adrogue HJ, Madias NE. N Engl J Med 2000;342:1581-9.
  * Method: @ref NTR_METHOD_ADROGUE_MADIAS.
  */
-NTR_API int ntr_batch_infusate_change_per_litre(size_t n,
+NTR_API NTR_MUST_CHECK int ntr_batch_infusate_change_per_litre(size_t n,
                                                 const double *na_mmol_l,
                                                 const double *tbw_l,
                                                 const double *infusate_na_mmol_l,
@@ -2217,7 +2233,7 @@ NTR_API int ntr_batch_infusate_change_per_litre(size_t n,
  * Reference: the Adrogue-Madias mass balance (N Engl J Med 2000;342:1581-9).
  * Method: @ref NTR_METHOD_INFUSATE_MASS_BALANCE.
  */
-NTR_API int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
                                       const double *tbw_l,
                                       const double *infusate_na_mmol_l,
                                       const double *infusate_k_mmol_l,
@@ -2251,7 +2267,7 @@ NTR_API int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
  * Sci 2000;319:240-4.
  * Method: @ref NTR_METHOD_INFUSATE_VOLUME.
  */
-NTR_API int ntr_batch_infusate_volume_for_change(size_t n,
+NTR_API NTR_MUST_CHECK int ntr_batch_infusate_volume_for_change(size_t n,
                                                  const double *na_mmol_l,
                                                  const double *tbw_l,
                                                  const double *infusate_na_mmol_l,
@@ -2276,7 +2292,7 @@ NTR_API int ntr_batch_infusate_volume_for_change(size_t n,
  * Reference: Furst H et al. Am J Med Sci 2000;319:240-4.
  * Method: @ref NTR_METHOD_FURST.
  */
-NTR_API int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
                                   const double *urine_k_mmol_l,
                                   const double *serum_na_mmol_l, double *out,
                                   int *status, size_t *failed);
@@ -2299,7 +2315,7 @@ NTR_API int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
  * 2013;126(10 Suppl 1):S1-42.
  * Method: @ref NTR_METHOD_FURST.
  */
-NTR_API int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
+NTR_API NTR_MUST_CHECK int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
                                              int *advice, int *status,
                                              size_t *failed);
 
@@ -2322,7 +2338,7 @@ NTR_API int ntr_batch_restriction_from_ratio(size_t n, const double *ratio,
  * Reference: standard renal physiology (Rose BD, Post TW, 5th ed.).
  * Method: @ref NTR_METHOD_EFWC.
  */
-NTR_API int ntr_batch_efwc(size_t n, const double *urine_volume_l,
+NTR_API NTR_MUST_CHECK int ntr_batch_efwc(size_t n, const double *urine_volume_l,
                            const double *urine_na_mmol_l,
                            const double *urine_k_mmol_l,
                            const double *serum_na_mmol_l, double *out,
@@ -2455,7 +2471,7 @@ typedef struct ntr_correction {
  * treatment of hyponatraemia. Eur J Endocrinol 2014;170:G1-47.
  * Methods: @ref NTR_METHOD_LIMITS_STANDARD, @ref NTR_METHOD_LIMITS_HIGH_RISK.
  */
-NTR_API int ntr_limits_preset(int preset, ntr_limits *out);
+NTR_API NTR_MUST_CHECK int ntr_limits_preset(int preset, ntr_limits *out);
 
 /**
  * @brief Whether the high-risk correction limits apply, and why.
@@ -2485,7 +2501,7 @@ NTR_API int ntr_limits_preset(int preset, ntr_limits *out);
  * (risk factors for osmotic demyelination).
  * Method: @ref NTR_METHOD_ODS_RISK.
  */
-NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
+NTR_API NTR_MUST_CHECK int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
                          int alcohol_use_disorder, int malnutrition,
                          int advanced_liver_disease, int *preset,
                          unsigned int *drivers, unsigned int *unknowns);
@@ -2538,7 +2554,7 @@ NTR_API int ntr_ods_risk(double baseline_na_mmol_l, int low_potassium,
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES.
  */
-NTR_API int ntr_correction_assess(const ntr_sample *s, size_t n,
+NTR_API NTR_MUST_CHECK int ntr_correction_assess(const ntr_sample *s, size_t n,
                                   const ntr_limits *lim, ntr_correction *out);
 
 /** Most samples an ntr_watch keeps: enough for a sample every 23 minutes
@@ -2597,7 +2613,7 @@ typedef struct ntr_watch {
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES.
  */
-NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
+NTR_API NTR_MUST_CHECK int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
 
 /**
  * @brief Add one result to a watcher and return the assessment so far.
@@ -2629,7 +2645,7 @@ NTR_API int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES.
  */
-NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
+NTR_API NTR_MUST_CHECK int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
                            ntr_correction *out);
 
 /**
@@ -2646,7 +2662,7 @@ NTR_API int ntr_watch_push(ntr_watch *w, double hours, double na_mmol_l,
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES.
  */
-NTR_API int ntr_watch_result(const ntr_watch *w, ntr_correction *out);
+NTR_API NTR_MUST_CHECK int ntr_watch_result(const ntr_watch *w, ntr_correction *out);
 
 /* ---- 1.1: direction-aware course limits (rises and falls) ------------- */
 
@@ -2796,7 +2812,7 @@ typedef struct ntr_course_report {
  * @ref NTR_METHOD_COURSE_HYPER_CHRONIC, @ref NTR_METHOD_COURSE_HYPER_ACUTE,
  * @ref NTR_METHOD_COURSE_HOLD.
  */
-NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
+NTR_API NTR_MUST_CHECK int ntr_course_limits_preset(int preset, ntr_course_limits *out);
 
 /**
  * @brief Assess a sodium series against limits in both directions.
@@ -2862,7 +2878,7 @@ NTR_API int ntr_course_limits_preset(int preset, ntr_course_limits *out);
  * Methods: @ref NTR_METHOD_COURSE_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES, @ref NTR_METHOD_COURSE_WRONG_WAY.
  */
-NTR_API int ntr_course_assess(const ntr_sample *s, size_t n,
+NTR_API NTR_MUST_CHECK int ntr_course_assess(const ntr_sample *s, size_t n,
                               const ntr_course_limits *lim,
                               ntr_course_report *out);
 
@@ -2932,7 +2948,7 @@ typedef struct ntr_course_watch {
  * References: as ntr_course_assess().
  * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
  */
-NTR_API int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch *w);
+NTR_API NTR_MUST_CHECK int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch *w);
 
 /**
  * @brief Add one result to a course watcher and return the assessment so far.
@@ -2984,7 +3000,7 @@ NTR_API int ntr_course_watch_init(const ntr_course_limits *lim, ntr_course_watch
  * @ref NTR_METHOD_CORRECTION_TREND, @ref NTR_METHOD_RULE_OF_SIXES,
  * @ref NTR_METHOD_COURSE_WRONG_WAY.
  */
-NTR_API int ntr_course_watch_push(ntr_course_watch *w, double hours,
+NTR_API NTR_MUST_CHECK int ntr_course_watch_push(ntr_course_watch *w, double hours,
                                   double na_mmol_l, ntr_course_report *out);
 
 /**
@@ -3028,7 +3044,7 @@ NTR_API int ntr_course_watch_push(ntr_course_watch *w, double hours,
  * Methods: as ntr_course_watch_push(), with @ref NTR_METHOD_GLUCOSE_KATZ
  * or @ref NTR_METHOD_GLUCOSE_HILLIER.
  */
-NTR_API int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours,
+NTR_API NTR_MUST_CHECK int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours,
                                           double na_mmol_l, double glucose_mmol_l,
                                           int glucose_method, ntr_course_report *out);
 
@@ -3047,7 +3063,7 @@ NTR_API int ntr_course_watch_push_glucose(ntr_course_watch *w, double hours,
  * References: as ntr_course_assess().
  * Methods: @ref NTR_METHOD_COURSE_WATCH, @ref NTR_METHOD_COURSE_WINDOWS.
  */
-NTR_API int ntr_course_watch_result(const ntr_course_watch *w, ntr_course_report *out);
+NTR_API NTR_MUST_CHECK int ntr_course_watch_result(const ntr_course_watch *w, ntr_course_report *out);
 /** @} */
 
 /* ======================================================================= */
@@ -3170,7 +3186,7 @@ typedef struct ntr_course_plan_result {
  * N Engl J Med 2000;342:1581-9.
  * Method: @ref NTR_METHOD_BALANCE_MASS.
  */
-NTR_API int ntr_balance_predict(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_balance_predict(double na_mmol_l, double tbw_l,
                                 const ntr_flow *flows, size_t n,
                                 double *na_out, double *tbw_out);
 
@@ -3217,7 +3233,7 @@ NTR_API int ntr_balance_predict(double na_mmol_l, double tbw_l,
  * References: as ntr_balance_predict().
  * Method: @ref NTR_METHOD_BALANCE_COURSE.
  */
-NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_balance_course(double na_mmol_l, double tbw_l,
                                const ntr_timed_flow *flows, size_t n_flows,
                                double duration_h, double step_h,
                                ntr_sample *series, size_t capacity,
@@ -3266,7 +3282,7 @@ NTR_API int ntr_balance_course(double na_mmol_l, double tbw_l,
  * Methods: @ref NTR_METHOD_PLAN_CHECK, @ref NTR_METHOD_BALANCE_COURSE,
  * @ref NTR_METHOD_CORRECTION_WINDOWS.
  */
-NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
+NTR_API NTR_MUST_CHECK int ntr_plan_check(const ntr_sample *history, size_t n_history,
                            double tbw_l, const ntr_timed_flow *flows,
                            size_t n_flows, double duration_h, double step_h,
                            const ntr_limits *lim, ntr_plan_result *out);
@@ -3329,7 +3345,7 @@ NTR_API int ntr_plan_check(const ntr_sample *history, size_t n_history,
  * Methods: @ref NTR_METHOD_PLAN_CHECK, @ref NTR_METHOD_BALANCE_COURSE,
  * @ref NTR_METHOD_COURSE_WINDOWS.
  */
-NTR_API int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
+NTR_API NTR_MUST_CHECK int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
                                   double tbw_l, const ntr_timed_flow *flows,
                                   size_t n_flows, double duration_h,
                                   double step_h, const ntr_course_limits *lim,
@@ -3382,7 +3398,7 @@ NTR_API int ntr_course_plan_check(const ntr_sample *history, size_t n_history,
  * emergency. Kidney Int 2009;76:587-9 (re-lowering; cited from memory).
  * Method: @ref NTR_METHOD_RELOWER.
  */
-NTR_API int ntr_relower_estimate(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_relower_estimate(double na_mmol_l, double tbw_l,
                                  double fluid_na_mmol_l, double fluid_k_mmol_l,
                                  double lower_by_mmol_l, double hours,
                                  double urine_ml_h, double urine_na_mmol_l,
@@ -3535,7 +3551,7 @@ typedef struct ntr_urine_feedback_result {
  * Methods: @ref NTR_METHOD_EFW_BALANCE, @ref NTR_METHOD_URINE_FEEDBACK,
  * @ref NTR_METHOD_PLAN_CHECK.
  */
-NTR_API int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
+NTR_API NTR_MUST_CHECK int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
                                double tbw_l, const ntr_timed_flow *flows,
                                size_t n_flows, const ntr_urine_interval *urine,
                                size_t n_urine, double horizon_h, double step_h,
@@ -3563,7 +3579,7 @@ NTR_API int ntr_urine_feedback(const ntr_sample *history, size_t n_history,
  * References: mass balance as ntr_balance_course().
  * Method: @ref NTR_METHOD_URINE_FEEDBACK.
  */
-NTR_API int ntr_urine_interval_flow(const ntr_urine_interval *urine,
+NTR_API NTR_MUST_CHECK int ntr_urine_interval_flow(const ntr_urine_interval *urine,
                                     ntr_timed_flow *flow);
 
 /** @name Fit flags (bits of ntr_fit.flags; ABI since 1.1)
@@ -3663,7 +3679,7 @@ typedef struct ntr_fit {
  * Methods: @ref NTR_METHOD_COURSE_FIT, @ref NTR_METHOD_FIT_SEPARABILITY,
  * @ref NTR_METHOD_BALANCE_COURSE.
  */
-NTR_API int ntr_course_fit(const ntr_sample *history, size_t n,
+NTR_API NTR_MUST_CHECK int ntr_course_fit(const ntr_sample *history, size_t n,
                            double tbw_guess_l, const ntr_timed_flow *flows,
                            size_t n_flows, ntr_fit *out);
 
@@ -3706,7 +3722,7 @@ NTR_API int ntr_course_fit(const ntr_sample *history, size_t n,
  * References: as ntr_course_plan_check().
  * Methods: @ref NTR_METHOD_FIT_REPROJECT, @ref NTR_METHOD_PLAN_CHECK.
  */
-NTR_API int ntr_fit_reproject(const ntr_sample *history, size_t n,
+NTR_API NTR_MUST_CHECK int ntr_fit_reproject(const ntr_sample *history, size_t n,
                               const ntr_fit *fit, const ntr_timed_flow *flows,
                               size_t n_flows, double duration_h, double step_h,
                               const ntr_course_limits *lim,
@@ -3810,7 +3826,7 @@ typedef struct ntr_vaptan_watch {
  * N Engl J Med 2000;342:1581-9; urine composition common practice.
  * Method: @ref NTR_METHOD_LOOP_DIURETIC.
  */
-NTR_API int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
+NTR_API NTR_MUST_CHECK int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
                               double urine_na_k_mmol_l, double replace_l,
                               double replace_na_mmol_l,
                               double *na_without_mmol_l,
@@ -3851,7 +3867,7 @@ NTR_API int ntr_loop_diuretic(double na_mmol_l, double tbw_l, double urine_l,
  * 2013;61:571-8 (from memory).
  * Method: @ref NTR_METHOD_DDAVP_CLAMP.
  */
-NTR_API int ntr_dda_clamp(double na_mmol_l, double tbw_l, double saline_ml_h,
+NTR_API NTR_MUST_CHECK int ntr_dda_clamp(double na_mmol_l, double tbw_l, double saline_ml_h,
                           double saline_na_mmol_l, double urine_ml_h,
                           double urine_na_k_mmol_l, double stop_rise_mmol_l,
                           double *rise_24h_mmol_l, double *stop_h);
@@ -3886,7 +3902,7 @@ NTR_API int ntr_dda_clamp(double na_mmol_l, double tbw_l, double saline_ml_h,
  * 2009;76:587-9 (cited from memory).
  * Methods: @ref NTR_METHOD_DDAVP_RELOWER, @ref NTR_METHOD_RELOWER.
  */
-NTR_API int ntr_dda_relower(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_dda_relower(double na_mmol_l, double tbw_l,
                             double excess_mmol_l, double margin_mmol_l,
                             double hours, double urine_ml_h,
                             double urine_na_k_mmol_l, double *volume_l,
@@ -3918,7 +3934,7 @@ NTR_API int ntr_dda_relower(double na_mmol_l, double tbw_l,
  * injury; from memory).
  * Method: @ref NTR_METHOD_VAPTAN_WATCH.
  */
-NTR_API int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
+NTR_API NTR_MUST_CHECK int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
                                     ntr_vaptan_watch *out);
 
 /**
@@ -3963,7 +3979,7 @@ NTR_API int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
  * Methods: @ref NTR_METHOD_HYPER_LOWER, @ref NTR_METHOD_RELOWER,
  * @ref NTR_METHOD_PLAN_CHECK.
  */
-NTR_API int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
+NTR_API NTR_MUST_CHECK int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
                                  int limits_preset, double fall_mmol_l,
                                  double hours, double urine_ml_h,
                                  double urine_na_k_mmol_l,
@@ -4003,7 +4019,7 @@ NTR_API int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
  * (bolus regimen, from memory); mass balance as ntr_balance_predict().
  * Methods: @ref NTR_METHOD_BOLUS_PLAN, @ref NTR_METHOD_BALANCE_MASS.
  */
-NTR_API int ntr_bolus_plan(double na_mmol_l, double tbw_l,
+NTR_API NTR_MUST_CHECK int ntr_bolus_plan(double na_mmol_l, double tbw_l,
                            double aim_rise_mmol_l, double max_rise_mmol_l,
                            int *boluses, double *rise_mmol_l,
                            int *held_by_limit);
@@ -4057,7 +4073,7 @@ NTR_API int ntr_bolus_plan(double na_mmol_l, double tbw_l,
  * Methods: @ref NTR_METHOD_CORRECTION_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES.
  */
-NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
+NTR_API NTR_MUST_CHECK int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
                                         const ntr_sample *samples,
                                         size_t n_samples, const ntr_limits *lim,
                                         ntr_correction *out, int *status,
@@ -4109,7 +4125,7 @@ NTR_API int ntr_batch_correction_assess(size_t groups, const size_t *offsets,
  * Methods: @ref NTR_METHOD_COURSE_WINDOWS, @ref NTR_METHOD_CORRECTION_TREND,
  * @ref NTR_METHOD_RULE_OF_SIXES, @ref NTR_METHOD_COURSE_WRONG_WAY.
  */
-NTR_API int ntr_batch_course_assess(size_t groups, const size_t *offsets,
+NTR_API NTR_MUST_CHECK int ntr_batch_course_assess(size_t groups, const size_t *offsets,
                                     const ntr_sample *samples,
                                     size_t n_samples,
                                     const ntr_course_limits *lim,

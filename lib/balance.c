@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Predicting a fluid plan by mass balance: sodium after a set of flows, the
  * course over time under steady rates, the check of a plan against the
  * correction limits, and the fluid to re-lower after overcorrection

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Internal interface of the mass-balance engine in lib/balance.c, for
  * lib/feedback.c (urine feedback and the fitted re-projection, which add
  * flows that are not a list of ntr_timed_flow and run the plan on the clock

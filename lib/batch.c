@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Batch (array) entry points (docs/batch.md).
  *
  * Each function applies one scalar formula to n rows of caller-owned

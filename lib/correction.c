@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Correction-rate safety: limit presets, risk of osmotic demyelination,
  * assessing a measured sodium series in both directions (one engine: the
  * 1.0 rise-only functions are wrappers over it), and two streaming

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Internal interface of the one correction engine in lib/correction.c, for
  * lib/balance.c (the plan checks, which assess a predicted series without
  * storing it) and lib/batch.c (assessment of many series). Not installed.

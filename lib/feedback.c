@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Urine feedback and the fitted prediction (docs/feedback.md): measured
  * urine as an electrolyte-free water balance and a re-projected course,
  * body water and an unmeasured free-water loss fitted to the measured

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Infusates and their predicted effect on serum sodium (docs/infusion.md).
  * The predictions and their checks are the kernels in
  * lib/infusion_kernels.h. */

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Infusate predictions, written once (docs/infusion.md): the kernels of
  * ntr_infusate_change_per_litre(), ntr_infusate_change() and
  * ntr_infusate_volume_for_change(), used by those functions

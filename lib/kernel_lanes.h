@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* The words the formula kernels are written in (docs/batch.md, "Where each
  * formula lives"). Not installed.
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Provenance: name, equation, reference and population of every method id
  * (docs/methods.md).
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* The model's shared rules, lane-generic (lib/kernel_lanes.h): the domain
  * of a predicted sodium and body water, the mass balance, and the
  * electrolyte-free water of a fluid. Not installed.

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Internal helpers shared by the lib/ sources. Not installed. */
 #ifndef NTR_INTERNAL_H
 #define NTR_INTERNAL_H

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Osmolality and tonicity (docs/osmolality.md). The formulas and their
  * checks are the kernels in lib/osmolality_kernels.h. */
 #include "ntr_internal.h"

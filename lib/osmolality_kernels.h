@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Osmolality formulas, written once (docs/osmolality.md): the kernels of
  * ntr_osm_calculated(), ntr_osm_effective() and ntr_osm_gap(), used by
  * those functions (lib/osmolality.c) and by their batch entry points

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Input ranges as API: the accepted range of each kind of numeric input,
  * read from the one definition of each range in lib/ntr_internal.h (the
  * constants the computing functions check against), so a caller and the

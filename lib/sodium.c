@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Sodium: glucose correction and sodium deficit (docs/sodium.md). The
  * formulas and their checks are the kernels in lib/sodium_kernels.h. */
 #include "ntr_internal.h"

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Sodium formulas, written once (docs/sodium.md): the glucose correction
  * and the sodium deficit, used by lib/sodium.c, by the batch entry points
  * (lib/batch.c) and, for the correction itself, by the work-up and the

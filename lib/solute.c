@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Solute, urine volume and fluid restriction (docs/solute.md).
  *
  * Everything here rests on two relations written once each: Berl's urine

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Whole-therapy helpers built on the mass balance: a loop diuretic, the
  * desmopressin clamp and its stop rule, re-lowering after a breach, vaptan
  * monitoring, lowering a high sodium with hypotonic fluid, and the
@@ -147,8 +148,8 @@ int ntr_dda_relower(double na_mmol_l, double tbw_l, double excess_mmol_l,
     if (lower_by > NTR_DELTA_MAX) {
         return NTR_ERR_DOMAIN;
     }
-    /* Cannot fail: the preset exists. */
-    (void)ntr_fluid_preset(NTR_FLUID_DEXTROSE_5, &water_na, &water_k);
+    /* Cannot fail (the preset exists); checked all the same. */
+    NTR_TRY(ntr_fluid_preset(NTR_FLUID_DEXTROSE_5, &water_na, &water_k));
     NTR_TRY(ntr_relower_estimate(na_mmol_l, tbw_l, water_na, water_k, lower_by,
                                  hours, urine_ml_h, urine_na_k_mmol_l, 0.0,
                                  &volume, &rate));
@@ -182,8 +183,8 @@ int ntr_vaptan_watch_preset(int high_risk, int liver_disease,
     if (liver_disease) {
         cautions |= NTR_VAPTAN_LIVER_DISEASE;
     }
-    /* Cannot fail: the preset exists. */
-    (void)ntr_course_limits_preset(preset, &lim);
+    /* Cannot fail (the preset exists); checked all the same. */
+    NTR_TRY(ntr_course_limits_preset(preset, &lim));
     out->struct_size = sizeof(ntr_vaptan_watch);
     out->limits = lim;
     out->horizon_h = NTR_VAPTAN_HORIZON_H;
@@ -261,7 +262,7 @@ int ntr_hyper_lower_plan(double na_mmol_l, double tbw_l, int fluid,
     timed(&plan[2], hours, -insensible_ml_h, 0.0, 0.0);
     now.hours = 0.0;
     now.na_mmol_l = na_mmol_l;
-    (void)ntr_course_limits_preset(limits_preset, &lim);
+    NTR_TRY(ntr_course_limits_preset(limits_preset, &lim));
     step = hours / NTR_HYPER_CHECK_POINTS;
     if (step < NTR_PLAN_STEP_MIN) {
         step = NTR_PLAN_STEP_MIN;
@@ -301,8 +302,8 @@ int ntr_bolus_plan(double na_mmol_l, double tbw_l, double aim_rise_mmol_l,
     if (aim_rise_mmol_l > max_rise_mmol_l) {
         return NTR_ERR_DOMAIN;
     }
-    /* Cannot fail: the preset exists. */
-    (void)ntr_fluid_preset(NTR_FLUID_NACL_3, &saline_na, &saline_k);
+    /* Cannot fail (the preset exists); checked all the same. */
+    NTR_TRY(ntr_fluid_preset(NTR_FLUID_NACL_3, &saline_na, &saline_k));
     dose.na_mmol_l = saline_na;
     dose.k_mmol_l = saline_k;
     for (k = 1; k <= NTR_BOLUS_COUNT_MAX; k++) {

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Units: UCUM parsing and analyte conversion (docs/units.md). */
 #include "ntr_internal.h"
 

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Urine indices and fluid restriction (docs/urine.md). The formulas and
  * their checks are the kernels in lib/urine_kernels.h. */
 #include "ntr_internal.h"

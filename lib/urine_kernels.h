@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Urine indices, written once (docs/urine.md): the kernels of
  * ntr_furst_ratio(), ntr_restriction_from_ratio() and ntr_efwc(), used by
  * those functions (lib/urine.c) and by their batch entry points

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Total body water and free-water deficit (docs/water.md). The formulas
  * and their checks are the kernels in lib/water_kernels.h. */
 #include "ntr_internal.h"

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Body-water formulas, written once (docs/water.md): the kernels of
  * ntr_tbw_fraction(), ntr_tbw_watson() and ntr_free_water_deficit(), used
  * by those functions (lib/water.c) and by their batch entry points

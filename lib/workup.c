@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Work-up of a low sodium: severity, tonicity, urine findings, fractional
  * excretion, the criteria for inappropriate antidiuresis and what the
  * fractional uric acid excretion adds to them (docs/workup.md).

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Every row-wise batch function behind one calling shape, with its scalar
  * counterpart, a valid row and the documented range of each column
  * (include/natremia.h). Shared by tests/test_batch.c (batch against scalar

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # ABI guard: compares the freshly built shared library with the committed
 # baseline in tests/abi/ and fails on ANY difference, compatible or not,
 # so that every change to the public interface is a deliberate, reviewed
@@ -59,9 +60,10 @@ trap 'rm -rf "$work"' EXIT
 abidw --no-corpus-path --no-comp-dir-path --no-show-locs \
     --headers-dir "$include_dir" --out-file "$work/natremia.abi" "$lib"
 
-# NTR_API expands to a compiler-specific attribute, so it is left out.
+# NTR_API and NTR_MUST_CHECK expand to compiler-specific attributes, so they
+# are left out.
 ${CC:-cc} -std=c99 -dM -E -x c "$header" \
-    | grep -E '^#define NTR_' | grep -v -E '^#define NTR_API ' \
+    | grep -E '^#define NTR_' | grep -v -E '^#define (NTR_API|NTR_MUST_CHECK) ' \
     | LC_ALL=C sort > "$work/natremia.macros"
 
 if [[ "$mode" == update ]]; then

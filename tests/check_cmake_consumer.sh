@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # CMake package test: installs this build's library, header and CMake
 # package into a staging directory (meson install --destdir, tags runtime
 # and devel), moves the installed prefix somewhere else as a whole (the

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Runs the example programs and the demo on known input and checks the
 # numbers they print against published values (P5).
 #

@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Checks that the built library keeps the promises of the design card.
 
 Usage: check_exports.py <libnatremia.so> <libnatremia.a>

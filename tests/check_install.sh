@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Install test: runs the README's install recipe ("Install the library ...",
 # taken out of README.md so the two cannot drift) the way a newcomer would,
 # except that `meson install` goes into a temporary staging directory

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # The reference manual builds warning-free, reads as the manual promises,
 # and every computing function's documentation carries what it must (P5).
 #
@@ -70,7 +71,7 @@ import re, sys
 
 text = open(sys.argv[1], encoding="utf-8").read()
 # A Doxygen block followed by an NTR_API declaration returning int.
-decl = re.compile(r"/\*\*(?P<doc>(?:(?!\*/).)*?)\*/\s*NTR_API\s+int\s+"
+decl = re.compile(r"/\*\*(?P<doc>(?:(?!\*/).)*?)\*/\s*NTR_API\s+(?:NTR_MUST_CHECK\s+)?int\s+"
                   r"(?P<name>ntr_\w+)\s*\((?P<params>[^)]*)\)\s*;", re.S)
 found = 0
 bad = 0

@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """Checks of the generated reference manual's HTML (tests/check_manual.sh).
 
     check_manual_html.py <html-dir> <include/natremia.h> <source-root>

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Subproject test: a consumer project (tests/consumers/meson-subproject/)
 # with this source tree as subprojects/natremia, in a scratch directory.
 # Checks that

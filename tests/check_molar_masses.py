@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Check natremia's unit conversion factors and its fixed enumerator values.
 
 Usage: check_molar_masses.py LIBNATREMIA_SO NATREMIA_H

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # The README blocks that tests/fresh-machine.sh runs on fresh Debian
 # machines are there and are taken out whole (tests/lib/readme-blocks.sh):
 # the fenced blocks after <!-- fresh-machine: install | python |

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* An independent oracle for the correction-series assessment: a
  * straightforward O(n^2) reading of the definitions in include/natremia.h
  * (section correction), pair by pair. tests/test_correction.c checks the

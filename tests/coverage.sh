@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Coverage of lib/ with gcovr, enforced: 100% of lines and at least 95% of
 # branches (docs/reliability.md). Builds with -Db_coverage=true (no
 # optimisation, so lines map one to one), runs the unit suite (every

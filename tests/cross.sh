@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Cross-architecture check (docs/reliability.md).
 #
 # For 32-bit x86 (i686, SSE2 arithmetic), 32-bit ARM (arm-linux-gnueabihf)

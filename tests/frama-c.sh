@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Frama-C value analysis (EVA) of lib/ (docs/reliability.md, "Static proof").
 #
 # Parses lib/*.c (all but lib/batch.c, see below) with the drivers of

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Runs the README's instructions on freshly bootstrapped Debian machines:
 # Debian 12 (bookworm) and Debian 13 (trixie), each a chroot made by
 # debootstrap --variant=minbase (plus git, ca-certificates and sudo) from

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Long fuzzing run of tests/fuzz/fuzz_natremia.c (every public entry point),
 # for the figures in docs/reliability.md.
 #

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Short fuzzing run (part of tests/run-all.sh): builds the libFuzzer driver
 # tests/fuzz/fuzz_natremia.c with ASan+UBSan and runs it for a few seconds
 # per public function, starting from one seed per function so every entry

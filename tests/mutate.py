@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Mutation testing of lib/ (docs/reliability.md, "Mutation testing").
 
 Each mutant is one small change to one lib/*.c file:

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Shared helpers for the cmocka unit tests (tests/test_<area>.c).
  *
  * The library promises that on any error status no output is written. The

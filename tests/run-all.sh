@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # The README's test command: installs whatever Debian/Ubuntu package the
 # tests need and is missing, builds in build-test/ and runs the whole suite.
 # Ends with one line "N passed, N failed, N skipped"; the exit status is

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # The test suite under AddressSanitizer + UndefinedBehaviorSanitizer, then
 # under valgrind (docs/reliability.md).
 #

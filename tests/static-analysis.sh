@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Static analysis of lib/ (docs/reliability.md): cppcheck and clang-tidy
 # must both be clean. Fails on any finding that is not in the reviewed
 # list below.

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Bad-input matrix: every public function, every kind of bad input.
  *
  * For each entry of the contract table (tests/fuzz/ntr_contract.c) the

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Predicting a fluid plan: ntr_balance_predict, ntr_balance_course,
  * ntr_plan_check and ntr_relower_estimate (docs/balance.md).
  *

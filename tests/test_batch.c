@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Batch entry points (lib/batch.c, docs/batch.md).
  *
  * Three kinds of check:

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Coherence of results across functions (issue P1, "Coherent results";
  * docs/ranges.md).
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Correction-rate safety: ntr_limits_preset, ntr_ods_risk,
  * ntr_correction_assess and the streaming watcher (docs/correction.md).
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Coverage of lib/status.c's shared range check (P6).
  *
  * Builds optimised for size (__OPTIMIZE_SIZE__, as firmware builds are)

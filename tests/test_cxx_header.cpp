@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // The public header must be usable from C++: it compiles here as C++11
 // with -Wall -Wextra -Wpedantic -Wold-style-cast -Werror, its functions
 // link with C linkage (extern "C"), and a few calls give the same results

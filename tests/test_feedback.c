@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Urine feedback and the fitted prediction: ntr_urine_feedback,
  * ntr_urine_interval_flow, ntr_course_fit and ntr_fit_reproject
  * (docs/feedback.md).

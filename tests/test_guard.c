@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Over-reads and over-writes caught by the plain test suite (issue 14).
  *
  * Every buffer a public function takes (batch columns, sample series,

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* The public header compiles on its own as strict ISO C99
  * (-std=c99 -pedantic-errors, plus -Wstrict-prototypes -Wundef), is safe to
  * include twice, and its version macros agree with the linked library. */

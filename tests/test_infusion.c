@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Infusates: ntr_fluid_preset, ntr_infusate_change_per_litre,
  * ntr_infusate_change, ntr_infusate_volume_for_change (docs/infusion.md). */
 #include <stdarg.h>

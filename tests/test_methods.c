@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Provenance: ntr_method_info and ntr_method_next (docs/methods.md).
  *
  * Run with the path of include/natremia.h as its argument (tests/meson.build
@@ -194,13 +195,13 @@ static void every_header_id_has_an_entry(void **state)
     free(text);
 }
 
-/* Every `NTR_API int ntr_...(` declaration's doc block names an
+/* Every `NTR_API NTR_MUST_CHECK int ntr_...(` declaration's doc block names an
  * NTR_METHOD_* id, or says "Method: none" (bookkeeping functions). The
  * status and version functions return other types and are not computing
  * functions. */
 static void every_computing_function_names_its_method(void **state)
 {
-    static const char decl[] = "NTR_API int ";
+    static const char decl[] = "NTR_API NTR_MUST_CHECK int ";
     char *text = read_file(header_path);
     const char *p = text;
     int functions = 0, missing = 0;
@@ -254,6 +255,28 @@ static void every_computing_function_names_its_method(void **state)
     }
     assert_true(functions > 20);
     assert_int_equal(missing, 0);
+    free(text);
+}
+
+/* Every function that returns a status carries NTR_MUST_CHECK, so that a
+ * dropped status warns (issue 13: an ignored status must not pass
+ * quietly): no declaration may start "NTR_API int" without it. */
+static void every_status_function_warns_when_its_result_is_dropped(void **state)
+{
+    char *text = read_file(header_path);
+    const char *p = text;
+    int bare = 0;
+    (void)state;
+    while ((p = strstr(p, "\nNTR_API int ")) != NULL) {
+        const char *name = p + strlen("\nNTR_API int ");
+        const char *end = strchr(name, '(');
+        print_error("%.*s: declared without NTR_MUST_CHECK\n",
+                    end != NULL ? (int)(end - name) : 20, name);
+        bare++;
+        p = name;
+    }
+    assert_non_null(strstr(text, "define NTR_MUST_CHECK __attribute__((warn_unused_result))"));
+    assert_int_equal(bare, 0);
     free(text);
 }
 
@@ -376,6 +399,7 @@ int main(int argc, char **argv)
         cmocka_unit_test(walk_describes_every_id),
         cmocka_unit_test(every_header_id_has_an_entry),
         cmocka_unit_test(every_computing_function_names_its_method),
+        cmocka_unit_test(every_status_function_warns_when_its_result_is_dropped),
         cmocka_unit_test(watson_entry_quotes_the_published_coefficients),
         cmocka_unit_test(glucose_entries_quote_the_published_factors),
         cmocka_unit_test(siad_entry_quotes_the_table),

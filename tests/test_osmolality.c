@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Osmolality and tonicity: ntr_osm_calculated, ntr_osm_effective,
  * ntr_osm_gap (docs/osmolality.md). */
 #include <stdarg.h>

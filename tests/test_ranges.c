@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Input ranges as API: ntr_input_range() (lib/ranges.c, docs/ranges.md).
  *
  * Two kinds of check per input kind. (1) The range it reports is the

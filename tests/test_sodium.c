@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Sodium: glucose-corrected sodium and sodium deficit (docs/sodium.md). */
 #include <stdarg.h>
 #include <stddef.h>

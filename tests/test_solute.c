@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Solute and restriction: ntr_urine_volume_from_solute, ntr_fluid_allowance,
  * ntr_solute_dose_osmoles, ntr_fluid_allowance_with_dose,
  * ntr_solute_dose_for_allowance, ntr_restriction_outlook (docs/solute.md).

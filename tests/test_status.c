@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Status codes and version: values fixed by the ABI (issue P1). */
 #include <stdarg.h>
 #include <stddef.h>

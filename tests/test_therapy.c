@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Whole-therapy helpers: ntr_loop_diuretic, ntr_dda_clamp, ntr_dda_relower,
  * ntr_vaptan_watch_preset, ntr_hyper_lower_plan, ntr_bolus_plan
  * (docs/therapy.md).

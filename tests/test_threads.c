@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* The library from several threads at once (issue 14; docs/reliability.md).
  *
  * natremia keeps no mutable globals: every call works on its arguments

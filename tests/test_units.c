@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Units: ntr_unit_parse, ntr_convert and, since 1.1, ntr_unit_parse_lenient,
  * ntr_loinc_lookup and ntr_glucose_unit_check (docs/units.md).
  * The molar masses themselves are checked against Debian's

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Urine indices: ntr_furst_ratio, ntr_restriction_from_ratio, ntr_efwc
  * (docs/urine.md). */
 #include <stdarg.h>

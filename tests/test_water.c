@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Body water and free-water deficit: ntr_tbw_fraction, ntr_tbw_watson,
  * ntr_free_water_deficit (docs/water.md). */
 #include <stdarg.h>

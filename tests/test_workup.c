@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Work-up: ntr_na_severity, ntr_tonicity_class, ntr_low_na_tonicity,
  * ntr_effective_osm_measured, ntr_low_na_effective_tonicity,
  * ntr_urine_maximally_dilute, ntr_urine_na_high, ntr_fractional_excretion,

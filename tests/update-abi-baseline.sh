@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Deliberately regenerates the ABI baseline in tests/abi/ from a fresh
 # build. Run it only for a compatible addition (a new function or a new
 # macro), review `git diff tests/abi/`, and commit the result together with

@@ -1,4 +1,5 @@
 #!/bin/sh
+# SPDX-License-Identifier: MIT
 # Build natremia.wasm: lib/ compiled for wasm32 with clang, freestanding,
 # with the project's warning and floating-point flags, plus the shim in
 # shim/ (memset and friends, the argument arena). Nothing is imported.

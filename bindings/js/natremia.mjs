@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // natremia for JavaScript: the C library compiled to WebAssembly
 // (natremia.wasm, built by build.sh), with one method per public C
 // function, named as the C function without "ntr_".

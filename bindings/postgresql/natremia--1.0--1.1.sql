@@ -1,3 +1,4 @@
+-- SPDX-License-Identifier: MIT
 -- natremia 1.0 -> 1.1: the sodium course in both directions, tonicity
 -- judged on the effective osmolality, solute and restriction, and the
 -- fractional urate excretion. Everything of 1.0 stays as it was

@@ -1,3 +1,4 @@
+-- SPDX-License-Identifier: MIT
 -- natremia 1.0: serum sodium and water arithmetic as SQL functions.
 --
 -- Every formula exists twice:

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /*
  * natremia_pg.c: the natremia formulas as PostgreSQL functions.
  *

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Build step of the natremia Python package: compile libnatremia.so.1
 from the C sources and ship it inside the package (natremia/), so that
 ``pip install --no-build-isolation --no-index ./bindings/python`` gives a

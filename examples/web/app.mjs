@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // The demonstration page: an invented patient's work-up, a plan check and a
 // watched sodium series, all computed here in the browser by the natremia
 // WebAssembly module (bindings/js). Nothing is fetched from outside this

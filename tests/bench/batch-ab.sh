@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Batch throughput of this tree's lib/batch.c against another commit's,
 # side by side in one process (issue 14: the formulas moved into kernels,
 # the throughput must stay within 5%).

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Batch throughput of natremia's array entry points against this machine's
  * own memory bandwidth, measured side by side in the same process.
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Batch throughput of two builds of lib/batch.c in one process (issue 14):
  * this tree's entry points (ntr_batch_*) against another commit's, whose
  * object tests/bench/batch-ab.sh renamed to old_ntr_batch_*. Same inputs,

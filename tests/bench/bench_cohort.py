@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Correction assessment of a whole cohort: natremia vs pandas.
 
 An invented cohort (no real patient): PATIENTS series of 8 to 16 sodium

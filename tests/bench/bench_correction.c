@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Side-by-side timing of the correction-series assessment (issue P2).
  *
  * Three ways to get the same ntr_correction for the same series, timed in

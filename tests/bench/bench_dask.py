@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """The Dask cohort example with and without Dask's worker allocator setting.
 
 Dask's nanny puts MALLOC_TRIM_THRESHOLD_=65536 into every worker's

@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """natremia's Python array calls against numpy with the same validation.
 
 For every array function of the binding (natremia.arrays), the same

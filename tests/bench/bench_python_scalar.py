@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Cost of one Python scalar call of natremia against plain Python.
 
 Side by side in one process, alternately, REPEATS rounds of CALLS calls

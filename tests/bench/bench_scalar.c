@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Per-call instruction cost of natremia's scalar entry points.
  *
  * Run under valgrind --tool=callgrind (tests/bench/run-bench.sh does). For

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Scaling of ntr_correction_assess: time per sample for series of 10 to
  * 100,000 samples (issue P7: constant within 10%).
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Empty counterparts of the library's entry points (see bench_stubs.h). */
 #include "bench_stubs.h"
 

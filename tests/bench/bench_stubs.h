@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Do-nothing functions with the same signatures as the library's entry
  * points. They live in their own translation unit (bench_stubs.c) so the
  * compiler cannot inline them: a loop calling one of them costs exactly what

@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Per-call instruction counts from a callgrind profile of bench_scalar.
 
 Reads a profile written with

@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Code size and stack use of natremia built for a Cortex-M4 (issue P7).
 
 Compiles every source that lib/meson.build lists with

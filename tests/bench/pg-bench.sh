@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # PostgreSQL side of the natremia benchmarks (issue P7).
 #
 #   pg-bench.sh SOURCE_ROOT ROWS REPEATS   -> one JSON object on stdout

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # The Python scalar-call benchmark on the package as users get it: pip
 # installs bindings/python (offline, Debian's tools, into a throwaway venv;
 # the build compiles the bundled library and, with python3-dev, the

@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Assemble the benchmark results of run-bench.sh into docs/performance.md.
 
 Usage: report.py RESULTS_DIR OUTPUT_MD

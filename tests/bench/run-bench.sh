@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Reproduces the whole performance table of natremia (issue P7) and writes
 # docs/performance.md.
 #

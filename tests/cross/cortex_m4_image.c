@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* A minimal Cortex-M4 "firmware" that calls the library, linked bare metal
  * by tests/cross.sh to prove every symbol resolves without an operating
  * system (the library needs only libgcc's double-precision helpers). The

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Start-up for running a test program on an emulated Cortex-M4
  * (qemu-system-arm -M mps2-an386 -semihosting), used by tests/cross.sh.
  *

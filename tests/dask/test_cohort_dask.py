@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """Runs examples/cohort_dask.py small on a LocalCluster of worker processes
 (loopback) and checks that its result equals the serial computation, and
 that the serial batch computation equals one scalar course_assess() call

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Frama-C EVA drivers (tests/frama-c.sh; docs/reliability.md).
  *
  * One function per public entry point of the scalar formula areas: every

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Build the libFuzzer driver with clang, AddressSanitizer and
 # UndefinedBehaviorSanitizer (every UB check fatal), plus implicit integer
 # conversions (the library must never truncate silently).

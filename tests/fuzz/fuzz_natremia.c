@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* libFuzzer driver for every public entry point of natremia.
  *
  * The first byte picks a function from the contract table
@@ -224,7 +225,7 @@ static void fuzz_watch_stream(reader *r)
     double t = rd_range(r, -50.0, 50.0);
     const char *breach;
     if (rd_u8(r) < 128) {
-        (void)ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+        ntrc_setup_ok(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim));
     } else {
         lim.max_rise_24h = rd_range(r, 0.0, 50.0);
         lim.max_rise_48h = rd_range(r, 0.0, 50.0);

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* The contract table: see ntr_contract.h. Bounds below come from each
  * function's documented equation evaluated at the ends of its documented
  * input ranges (the header's Doxygen blocks); they are deliberately loose
@@ -18,6 +19,14 @@
 #define COMMON_ERR (BIT(NTR_ERR_NULL) | BIT(NTR_ERR_NONFINITE) | BIT(NTR_ERR_RANGE))
 
 /* Output pointer i, or NULL when the case asks for NULL there. */
+
+void ntrc_setup_ok(int status)
+{
+    if (status != NTR_OK) {
+        abort();
+    }
+}
+
 static double *od(ntrc_case *c, int i)
 {
     return (c->out_null & NTRC_NULL_D(i)) ? NULL : &c->out.d[i];
@@ -1791,9 +1800,9 @@ static void prime_course_watch(ntrc_case *c)
     ntr_course_report out;
     size_t i;
     size_t kept = 0;
-    (void)ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    ntrc_setup_ok(ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim));
     memset(&c->cwatch, 0, sizeof c->cwatch); /* every byte defined for the comparisons */
-    (void)ntr_course_watch_init(&lim, &c->cwatch);
+    ntrc_setup_ok(ntr_course_watch_init(&lim, &c->cwatch));
     out.struct_size = sizeof out;
     for (i = 0; i < c->n; i++) {
         if (ntr_course_watch_push(&c->cwatch, c->samples[i].hours, c->samples[i].na_mmol_l,
@@ -1899,7 +1908,7 @@ static const char *same_as_course_assess(const ntr_course_report *got, const ntr
 {
     ntr_course_limits lim;
     ntr_course_report want;
-    (void)ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim);
+    ntrc_setup_ok(ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &lim));
     want.struct_size = sizeof want;
     if (ntr_course_assess(s, n, &lim, &want) != NTR_OK) {
         return "ntr_course_assess rejects the series the course watcher accepted";
@@ -2058,8 +2067,8 @@ static void prime_watch(ntrc_case *c)
     ntr_correction out;
     size_t i;
     size_t kept = 0;
-    (void)ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
-    (void)ntr_watch_init(&lim, &c->watch);
+    ntrc_setup_ok(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim));
+    ntrc_setup_ok(ntr_watch_init(&lim, &c->watch));
     for (i = 0; i < c->n; i++) {
         if (ntr_watch_push(&c->watch, c->samples[i].hours, c->samples[i].na_mmol_l, &out) ==
             NTR_OK) {
@@ -2154,7 +2163,7 @@ static const char *same_as_assess(const ntr_correction *got, const ntr_sample *s
 {
     ntr_limits lim;
     ntr_correction want;
-    (void)ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
+    ntrc_setup_ok(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim));
     if (ntr_correction_assess(s, n, &lim, &want) != NTR_OK) {
         return "ntr_correction_assess rejects the series the watcher accepted";
     }

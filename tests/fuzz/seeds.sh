@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Write one seed input per entry point of the fuzz driver FUZZER into DIR:
 # the selector byte followed by zeros, which decodes to a call with in-range
 # arguments (see rd_number/rd_enum in tests/fuzz/fuzz_natremia.c).

@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """The web page test (meson test 'web-page').
 
 Stages examples/web with the JavaScript module and natremia.wasm in a

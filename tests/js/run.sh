@@ -1,4 +1,5 @@
 #!/bin/sh
+# SPDX-License-Identifier: MIT
 # The JavaScript binding's tests (meson test 'js-binding'): builds
 # natremia.wasm and refvectors.wasm into BUILDDIR with bindings/js/build.sh,
 # then runs the package's own test command (npm test, i.e. node --test) in

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # Installing the Debian packages a script needs, only when some are missing.
 # Sourced (not run) by the scripts that set up their own tools:
 # tests/run-all.sh, examples/run-demo.sh, tests/cross.sh, tests/sanitize.sh,

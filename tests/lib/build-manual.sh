@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Builds the reference manual: Doxygen with the configuration meson wrote
 # (build/docs/Doxyfile), then a copy of Debian's MathJax (libjs-mathjax)
 # into html/mathjax, where the pages load it from (MATHJAX_RELPATH in

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # Steps shared by the scripts that make builds of their own (tests/run-all.sh,
 # tests/cross.sh, tests/sanitize.sh, tests/coverage.sh,
 # tests/static-analysis.sh). Sourced, not run.

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # Debian package names that change between releases, found on the machine
 # instead of written into the scripts (Debian 12 ships PostgreSQL 15 and
 # clang 14, Debian 13 PostgreSQL 17 and clang 19). Sourced, not run; needs

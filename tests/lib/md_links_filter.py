@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """Doxygen input filter for the Markdown pages (FILTER_PATTERNS in
 docs/Doxyfile.in).
 

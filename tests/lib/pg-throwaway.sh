@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # A throwaway PostgreSQL server with the natremia extension, for
 # tests/postgresql/run.sh and tests/bench/pg-bench.sh. Sourced, not run.
 #

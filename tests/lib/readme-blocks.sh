@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # Code blocks taken out of README.md, so that the scripts which check the
 # README's instructions run them as written and cannot drift from them
 # (tests/check_install.sh, tests/fresh-machine.sh). Sourced, not run.

@@ -1,3 +1,4 @@
+-- SPDX-License-Identifier: MIT
 -- SQL checks of the natremia extension against known values
 -- (run by tests/postgresql/run.sh on a throwaway server).
 -- Each check names its source. A failing check raises an exception, which

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Builds the PostgreSQL extension (bindings/postgresql) out of tree, starts
 # a throwaway server on a Unix socket in a temporary directory, installs the
 # extension there, runs tests/postgresql/checks.sql and stops the server.

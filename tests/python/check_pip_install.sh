@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Installs bindings/python with pip, offline and with Debian's own tools,
 # into throwaway virtual environments, and proves the package carries its
 # own compiled library:

@@ -1,4 +1,5 @@
 #!/usr/bin/env python3
+# SPDX-License-Identifier: MIT
 """Runs the Python binding tests (meson test 'python-binding').
 
 Exit 77 (skipped) only when numpy or hypothesis is not installed

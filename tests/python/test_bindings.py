@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Tests of the Python binding (bindings/python): published values, errors,
 constants in step with the C header, and hypothesis properties (unit
 invariance, monotonicity, round trips, arrays equal to scalars).

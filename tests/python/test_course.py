@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Tests of the 1.1 surface of the Python binding: the course in both
 directions (presets, assessment, grouped batch over arrays and pandas),
 errors that name the failing argument, and the effective tonicity.

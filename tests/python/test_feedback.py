@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Python binding: urine feedback (ntr_urine_feedback) and measured urine
 as a flow (ntr_urine_interval_flow).
 

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """natremia.fhir: FHIR R4 Observations (Bundle and NDJSON) into natremia's
 inputs and per-patient sodium series.
 

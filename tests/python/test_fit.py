@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Python binding: the course fit and its re-projection (ntr_course_fit,
 ntr_fit_reproject).
 

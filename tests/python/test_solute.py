@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Python binding: solute and restriction, fractional urate excretion.
 
 Every value is checked against an outside source or hand-worked from the

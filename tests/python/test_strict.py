@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Input strictness, ranges as API and data-frame inputs of the Python
 binding (issue P3): exact integer codes, pandas Series/category/string
 columns, masked arrays, missing values, errors that name the argument and

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Python binding: units as laboratory feeds send them (issue 13).
 
 Sources beside each check:

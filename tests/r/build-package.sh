@@ -1,4 +1,5 @@
 #!/bin/sh
+# SPDX-License-Identifier: MIT
 # Builds the R package's source tarball natremia_<version>.tar.gz in OUTDIR:
 # copies bindings/r to OUTDIR/stage/natremia, puts the C library's sources
 # (lib/*.c, lib/*.h, include/natremia.h) into its src/ and the reference

@@ -1,4 +1,5 @@
 #!/bin/sh
+# SPDX-License-Identifier: MIT
 # The R package's tests (meson test 'r-package'): builds the source tarball
 # with tests/r/build-package.sh (the C library's sources and the reference
 # vectors copied in), installs it into a temporary library, runs its

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Reference vectors: every public function's results on a fixed input set,
  * written as exact hexadecimal doubles (%a), one call a line.
  *

@@ -1,4 +1,5 @@
 #!/usr/bin/env bash
+# SPDX-License-Identifier: MIT
 # Rewrite tests/refvectors/expected.txt from a host build, after a
 # deliberate change of results (say why in the commit message). Then run
 # tests/cross.sh: every architecture must reproduce the new file bit for bit.

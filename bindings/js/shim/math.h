@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* The part of <math.h> that lib/ uses, for the freestanding wasm32 build
  * (bindings/js/build.sh). WebAssembly has f64.sqrt and f64.ceil as
  * instructions, both exact as IEEE 754 requires, so clang lowers these

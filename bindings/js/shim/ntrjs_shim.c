@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* What the compiler needs beside lib/ in the freestanding wasm32 build,
  * and the few helpers the JavaScript module calls (bindings/js).
  *

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // The JavaScript surface: the generated description, struct layouts, one
 // method per C function, errors with their argument, typed-array batches,
 // watchers and the structured calls.

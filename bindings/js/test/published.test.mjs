@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // Main results of the JavaScript methods against published values. Each
 // check names its source; the values are those the C tests use (tests/*.c)
 // and /work/shared/sources.md lists as checked against the publication.

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // tests/refvectors/expected.txt through the JavaScript methods, bit for bit.
 //
 // The file is written by tests/refvectors/refvectors.c from the contract

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // All of tests/refvectors/expected.txt, bit for bit, from the C program
 // that writes it (tests/refvectors/refvectors.c with the contract table
 // tests/fuzz/ntr_contract.c) compiled by build.sh to WebAssembly over the

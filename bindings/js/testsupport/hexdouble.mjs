@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // Doubles as C99's %a text with the GNU C library, the format of
 // tests/refvectors/expected.txt ("0x1.8p+1", "-0x0p+0", "inf", "-nan"),
 // written from the bits as tests/refvectors/refvectors.c does, and read back.

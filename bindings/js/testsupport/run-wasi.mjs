@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 // Runs a WASI command module (argv[2]) with node's WASI, its stdout to
 // this process's stdout, and exits with its status. Kept apart so the test
 // can start it with --experimental-wasi-unstable-preview1 on node 18,

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* WASI has no tmpfile(); the reference-vector program needs it only for
  * its --check mode, which the WebAssembly run does not use (it prints the
  * vectors and the JavaScript test compares them). */

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """natremia: sodium and water arithmetic for clinical software.
 
 A ctypes binding of the natremia C library. Scalar functions live here

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Scalar API: one Python function per C function, names without the ntr_
 prefix, keyword-only arguments whose names carry their units.
 

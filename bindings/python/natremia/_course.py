@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Direction-aware course limits (natremia 1.1): rises and falls, a goal,
 presets for low and high sodium, the assessment of a measured series and
 the direction-aware plan check.

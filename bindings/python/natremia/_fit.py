@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """The learning prediction (natremia 1.1): the patient's apparent body
 water and an unmeasured free-water loss fitted to the measured sodium
 series (ntr_course_fit), and the remaining plan re-projected with them

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Finding and loading libnatremia.so.1.
 
 Search order (the first that loads wins):

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Units as laboratory feeds send them (issue 13, library 1.1).
 
 ``unit_parse_lenient`` reads the unit spellings lab systems use (``mEq/L``,

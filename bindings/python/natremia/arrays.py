@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Array API: the formulas over numpy arrays, one C batch call per function.
 
 Arguments are keyword-only, as in the scalar API, and broadcast against

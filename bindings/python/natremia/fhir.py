@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 """Reading HL7 FHIR R4 laboratory Observations into natremia's inputs.
 
 A FHIR server or a bulk export sends laboratory results as Observation

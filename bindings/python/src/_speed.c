@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* natremia._speed: an optional accelerator for the scalar calls of the
  * Python binding. It does no arithmetic and no checks of its own: it calls
  * the C function whose address the binding found in the loaded

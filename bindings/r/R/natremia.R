@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # natremia for R: vectorised wrappers of the C library (src/natremia_r.c).
 #
 # Conventions, the same for every function (see ?natremia):

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* natremia for R: the .Call glue. Every vectorised entry takes columns that
  * R/natremia.R has already recycled to one length n, calls the library's
  * batch function once and returns list(out, status). R turns failed rows

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Built by CMake against the installed natremia (find_package, imported
  * target natremia::natremia); tests/check_cmake_consumer.sh runs it.
  * Exits 0 only when the library it loaded answers two published checks:

@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Built by a meson project that takes natremia as a subproject
  * (tests/check_meson_subproject.sh). Exits 0 only when the library answers
  * a published check: effective osmolality 2*Na + glucose (Spasovski G et

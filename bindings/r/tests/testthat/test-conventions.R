@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # The package's conventions (?natremia): recycling, failed rows as NA with
 # a status, options, the course assessment's grouping. Inputs invented.
 

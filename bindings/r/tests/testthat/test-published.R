@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # Results against published sources (each check names its source; the
 # values are those of /work/shared/sources.md where it lists them, and
 # marked "from memory" or "common practice" where it does not).

@@ -1,3 +1,4 @@
+# SPDX-License-Identifier: MIT
 # The reference vectors of the C library (tests/refvectors/expected.txt,
 # every function's results on a fixed input set as exact %a doubles): each
 # line of a function this package exposes is recomputed here, vectorised
