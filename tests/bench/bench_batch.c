@@ -12,9 +12,18 @@
  * alternately REPEATS times and the fastest run of each is kept (the
  * machine is shared; the minimum is the least disturbed run).
  *
+ * A third yardstick, the one a skilled C programmer would hold a batch call
+ * against (issue 16): a plain loop over the same columns, in the same
+ * order, reading every input column and writing one double (or int) result
+ * and one int status per row, with no checks at all and the cheapest
+ * arithmetic (the sum of the inputs). It streams exactly the bytes the
+ * batch call streams; loop_ratio = loop time / batch time (1.0 = the batch
+ * call costs nothing beyond its memory traffic).
+ *
  * Usage: bench_batch [rows] [repeats]   (defaults 10000000 and 5)
  * Output: one line per function,
- *   name rows bytes_per_row batch_s copy_s batch_gb_s copy_gb_s ratio failed */
+ *   name rows bytes_per_row batch_s copy_s batch_gb_s copy_gb_s ratio failed
+ *   loop_s loop_ratio */
 #define _POSIX_C_SOURCE 200809L
 #include <stdint.h>
 #include <stdio.h>
@@ -160,6 +169,72 @@ static const struct batch batches[] = {
      call_efwc},
 };
 
+/* The same-stream loop: reads the inputs a batch call of this shape reads,
+ * writes its result and status columns, checks nothing. */
+static void same_stream_loop(const struct batch *t, const struct columns *c,
+                             size_t n)
+{
+    size_t i;
+    int k;
+    if (t->int_result) {
+        for (i = 0; i < n; i++) {
+            c->iout[i] = c->in[0][i] < 1.0 ? 1 : 2;
+            c->status[i] = 0;
+        }
+        return;
+    }
+    switch (t->n_double + (t->has_sex ? 10 : 0)) {
+    case 2:
+        for (i = 0; i < n; i++) {
+            c->out[i] = c->in[0][i] + c->in[1][i];
+            c->status[i] = 0;
+        }
+        break;
+    case 3:
+        for (i = 0; i < n; i++) {
+            c->out[i] = c->in[0][i] + c->in[1][i] + c->in[2][i];
+            c->status[i] = 0;
+        }
+        break;
+    case 4:
+        for (i = 0; i < n; i++) {
+            c->out[i] = c->in[0][i] + c->in[1][i] + c->in[2][i] + c->in[3][i];
+            c->status[i] = 0;
+        }
+        break;
+    case 5:
+        for (i = 0; i < n; i++) {
+            c->out[i] = c->in[0][i] + c->in[1][i] + c->in[2][i] + c->in[3][i] +
+                        c->in[4][i];
+            c->status[i] = 0;
+        }
+        break;
+    case 12:
+        for (i = 0; i < n; i++) {
+            c->out[i] = (double)c->sex[i] + c->in[0][i] + c->in[1][i];
+            c->status[i] = 0;
+        }
+        break;
+    case 13:
+        for (i = 0; i < n; i++) {
+            c->out[i] = (double)c->sex[i] + c->in[0][i] + c->in[1][i] +
+                        c->in[2][i];
+            c->status[i] = 0;
+        }
+        break;
+    default: /* any other shape: column by column, same bytes */
+        for (i = 0; i < n; i++) {
+            double sum = t->has_sex ? (double)c->sex[i] : 0.0;
+            for (k = 0; k < t->n_double; k++) {
+                sum += c->in[k][i];
+            }
+            c->out[i] = sum;
+            c->status[i] = 0;
+        }
+        break;
+    }
+}
+
 /* CPU time of this thread: on a shared machine, time other processes run
  * is not counted (their effect on caches and memory bandwidth still is). */
 static double now_s(void)
@@ -217,14 +292,14 @@ int main(int argc, char **argv)
 
     printf("# rows=%zu repeats=%d\n", rows, repeats);
     printf("# name rows bytes_per_row batch_s copy_s batch_gb_s copy_gb_s "
-           "ratio failed\n");
+           "ratio failed loop_s loop_ratio\n");
     for (b = 0; b < sizeof batches / sizeof batches[0]; b++) {
         const struct batch *t = &batches[b];
         size_t read = (size_t)t->n_double * 8u + (t->has_sex ? 4u : 0u);
         size_t written = (t->int_result ? 4u : 8u) + 4u;
         size_t per_row = read + written;
         size_t copy_bytes = rows * per_row / 2;
-        double best_batch = 1e30, best_copy = 1e30;
+        double best_batch = 1e30, best_copy = 1e30, best_loop = 1e30;
         size_t failed = 0;
         int status = NTR_OK;
         for (k = 0; k < t->n_double; k++) {
@@ -238,21 +313,24 @@ int main(int argc, char **argv)
             double t1 = now_s();
             memcpy(copy_dst, copy_src, copy_bytes);
             double t2 = now_s();
+            same_stream_loop(t, &c, rows);
+            double t3 = now_s();
             if (t1 - t0 < best_batch) best_batch = t1 - t0;
             if (t2 - t1 < best_copy) best_copy = t2 - t1;
+            if (t3 - t2 < best_loop) best_loop = t3 - t2;
             /* keep the copy observable so it cannot be dropped */
             copy_src[(size_t)k % copy_bytes] ^= copy_dst[copy_bytes - 1u];
         }
         if (status != NTR_OK || failed != 0) {
             all_ok = 0;
         }
-        printf("%s %zu %zu %.6f %.6f %.3f %.3f %.4f %zu\n", t->name, rows,
+        printf("%s %zu %zu %.6f %.6f %.3f %.3f %.4f %zu %.6f %.4f\n", t->name, rows,
                per_row, best_batch, best_copy,
                (double)(rows * per_row) / best_batch / 1e9,
                (double)(2u * copy_bytes) / best_copy / 1e9,
                best_copy / best_batch *
                    ((double)(rows * per_row) / (double)(2u * copy_bytes)),
-               failed);
+               failed, best_loop, best_loop / best_batch);
     }
     return all_ok ? 0 : 1;
 }
