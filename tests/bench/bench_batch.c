@@ -148,7 +148,7 @@ static const struct batch batches[] = {
      call_na_corrected_glucose},
     {"ntr_batch_tbw_fraction", 1, 2, 0, {{1, 95}, {10, 120}},
      call_tbw_fraction},
-    {"ntr_batch_tbw_watson", 1, 3, 0, {{18, 95}, {150, 195}, {45, 120}},
+    {"ntr_batch_tbw_watson", 1, 3, 0, {{18, 95}, {150, 195}, {50, 120}},
      call_tbw_watson},
     {"ntr_batch_free_water_deficit", 0, 2, 0, {{20, 50}, {141, 175}},
      call_free_water_deficit},

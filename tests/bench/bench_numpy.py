@@ -93,7 +93,7 @@ def np_na_deficit(tbw, na, target):
 
 def np_tbw_fraction(sex, age, weight):
     st = np.where((sex == 1) | (sex == 2), OK, ARG).astype(np.intc)
-    st = check(st, age, 0.0, 130.0)
+    st = check(st, age, 1.0, 130.0)  # infants refused
     st = check(st, weight, 0.3, 650.0)
     adult = np.where(sex == 1, np.where(age < 65.0, 0.6, 0.5),
                      np.where(age < 65.0, 0.5, 0.45))
@@ -109,8 +109,15 @@ def np_tbw_watson(sex, age, height, weight):
     tbw = np.where(sex == 1,
                    2.447 - 0.09516 * age + 0.1074 * height + 0.3362 * weight,
                    -2.097 + 0.1069 * height + 0.2466 * weight)
-    st = domain(st, tbw > 0.0)
+    st = domain(st, watson_plausible(tbw, weight))
     return finish(st, tbw)
+
+
+def watson_plausible(tbw, weight):
+    """The library refuses a Watson body water outside 20-80% of the weight
+    or outside 0.1-400 L (NTR_ERR_DOMAIN)."""
+    return ((tbw >= 0.20 * weight) & (tbw <= 0.80 * weight) &
+            (tbw >= 0.1) & (tbw <= 400.0))
 
 
 def np_free_water_deficit(tbw, na):
@@ -127,15 +134,27 @@ def infusate_status(na, tbw, inf_na, inf_k):
     return check(st, inf_k, 0.0, 400.0)
 
 
+def balance_ok(na, tbw, volume, excess):
+    """The library's mass-balance domain: body water after within 0.1-400 L
+    and sodium after within 80-220 mmol/L, else NTR_ERR_DOMAIN."""
+    tbw_after = tbw + volume
+    na_after = na + excess / tbw_after
+    return ((tbw_after >= 0.1) & (tbw_after <= 400.0) &
+            (na_after >= 80.0) & (na_after <= 220.0))
+
+
 def np_infusate_change_per_litre(na, tbw, inf_na, inf_k):
     st = infusate_status(na, tbw, inf_na, inf_k)
+    st = domain(st, balance_ok(na, tbw, 1.0, inf_na + inf_k - na))
     return finish(st, (inf_na + inf_k - na) / (tbw + 1.0))
 
 
 def np_infusate_change(na, tbw, inf_na, inf_k, volume):
     st = infusate_status(na, tbw, inf_na, inf_k)
     st = check(st, volume, 0.0, 20.0)
-    return finish(st, volume * (inf_na + inf_k - na) / (tbw + volume))
+    excess = volume * (inf_na + inf_k - na)
+    st = domain(st, balance_ok(na, tbw, volume, excess))
+    return finish(st, excess / (tbw + volume))
 
 
 def np_infusate_volume_for_change(na, tbw, inf_na, inf_k, delta):
@@ -228,7 +247,7 @@ def lean_tbw_fraction(sex, age, weight):
     adult = np.where(sex == 1, np.where(age < 65.0, 0.6, 0.5),
                      np.where(age < 65.0, 0.5, 0.45))
     fraction = np.where(age < 18.0, 0.6, adult)
-    return lean([(age, 0.0, 130.0), (weight, 0.3, 650.0)], fraction * weight,
+    return lean([(age, 1.0, 130.0), (weight, 0.3, 650.0)], fraction * weight,
                 arg_ok=(sex == 1) | (sex == 2))
 
 
@@ -237,7 +256,7 @@ def lean_tbw_watson(sex, age, height, weight):
                    2.447 - 0.09516 * age + 0.1074 * height + 0.3362 * weight,
                    -2.097 + 0.1069 * height + 0.2466 * weight)
     return lean([(age, 18.0, 130.0), (height, 30.0, 275.0), (weight, 0.3, 650.0)],
-                tbw, domain_ok=tbw > 0.0, arg_ok=(sex == 1) | (sex == 2))
+                tbw, domain_ok=watson_plausible(tbw, weight), arg_ok=(sex == 1) | (sex == 2))
 
 
 def lean_free_water_deficit(tbw, na):
@@ -252,12 +271,14 @@ def lean_infusate_checks(na, tbw, inf_na, inf_k):
 
 def lean_infusate_change_per_litre(na, tbw, inf_na, inf_k):
     return lean(lean_infusate_checks(na, tbw, inf_na, inf_k),
-                (inf_na + inf_k - na) / (tbw + 1.0))
+                (inf_na + inf_k - na) / (tbw + 1.0),
+                domain_ok=balance_ok(na, tbw, 1.0, inf_na + inf_k - na))
 
 
 def lean_infusate_change(na, tbw, inf_na, inf_k, volume):
+    excess = volume * (inf_na + inf_k - na)
     return lean(lean_infusate_checks(na, tbw, inf_na, inf_k) + [(volume, 0.0, 20.0)],
-                volume * (inf_na + inf_k - na) / (tbw + volume))
+                excess / (tbw + volume), domain_ok=balance_ok(na, tbw, volume, excess))
 
 
 def lean_infusate_volume_for_change(na, tbw, inf_na, inf_k, delta):
