@@ -304,6 +304,11 @@ def scaling_section(page, dense, sparse, ir):
                 measured, max(spreads.values()) <= SCALING_TARGET)
 
 
+def div(a, b):
+    """a / b, NaN when b is 0 (a query shorter than one clock tick)."""
+    return a / b if b else float("nan")
+
+
 def pg_section(page, d):
     page.add("## 6. PostgreSQL", "")
     if d is None:
@@ -326,18 +331,18 @@ def pg_section(page, d):
     rows = []
     for f in ("effective", "calculated"):
         ext, sql, fn, plp = s["ext_" + f], s["sql_" + f], s["sqlfn_" + f], s["plpgsql_" + f]
-        r_bare, r_fn = ext / sql, fn / ext
+        r_bare, r_fn = div(ext, sql), div(fn, ext)
         rows.append(("ntr_osm_" + f, fmt(ext, 2), fmt(sql, 2), fmt(fn, 2), fmt(plp, 2),
                      fmt(r_bare, 2) + " " + yes(r_bare <= PG_BARE_TARGET),
                      fmt(r_fn, 2) + "x " + yes(r_fn > PG_SQLFN_TARGET),
-                     fmt(plp / ext, 1) + "x"))
+                     fmt(div(plp, ext), 1) + "x"))
     page.table(["function", "extension s", "bare SQL s", "SQL function s", "PL/pgSQL s",
                 "extension / bare (<= %.1f)" % PG_BARE_TARGET,
                 "SQL function / extension (> 1)", "PL/pgSQL / extension"], rows)
     fs = ("effective", "calculated")
-    worst_bare = max(s["ext_" + f] / s["sql_" + f] for f in fs)
-    worst_fn = min(s["sqlfn_" + f] / s["ext_" + f] for f in fs)
-    worst_plp = min(s["plpgsql_" + f] / s["ext_" + f] for f in fs)
+    worst_bare = max(div(s["ext_" + f], s["sql_" + f]) for f in fs)
+    worst_fn = min(div(s["sqlfn_" + f], s["ext_" + f]) for f in fs)
+    worst_plp = min(div(s["plpgsql_" + f], s["ext_" + f]) for f in fs)
     agree = d["agreement"] == "agree"
     page.result("PostgreSQL, %d rows: extension time / bare SQL arithmetic" % d["rows"],
                 "<= %.1f" % PG_BARE_TARGET, "%.2f (worst)" % worst_bare,
