@@ -70,7 +70,8 @@ class Page:
         self.add("")
 
     def result(self, what, target, measured, ok):
-        self.summary.append((what, target, measured, "skipped" if ok is None else yes(ok)))
+        shown = ok if isinstance(ok, str) else ("skipped" if ok is None else yes(ok))
+        self.summary.append((what, target, measured, shown))
 
 
 def scalar_section(page, d):
@@ -114,6 +115,39 @@ def scalar_section(page, d):
                 "<= %d each" % SCALAR_TARGET,
                 "%d of %d meet it; highest %s %.0f" % (met, len(rows), worst[0], worst[1]),
                 met == len(rows))
+
+
+def push_section(page, d):
+    if d is None:
+        page.add("Worst single push of the watchers: skipped (valgrind or its "
+                 "callgrind.h header missing).", "")
+        return
+    page.add("### Worst single push of the watchers", "",
+             "`tests/bench/bench_push_worst` under callgrind with one dump after "
+             "every push (`--toggle-collect` on the push functions, so a dump "
+             "is one push, inclusive of what it calls; tests/bench/push_worst.py). "
+             "Invented streams: *steady*, a result every 4 h (about 12 kept in "
+             "48 h, the stream of the table above); *fill*, a rising result every "
+             "0.4 h so every result stays a window-minimum candidate (120 kept; "
+             "ntr_watch holds 128, the course watcher 96 and compacts), then one "
+             "6 mmol/L lower; *gap*, the same fill then one result 100 h later. "
+             "Median = the typical push of that stream; worst = its single most "
+             "expensive push (which push, counted from 0).", "")
+    rows = []
+    for watcher in sorted(d):
+        for stream in ("steady", "fill", "gap"):
+            r = d[watcher].get(stream)
+            if r is None:
+                continue
+            rows.append((watcher, stream, r["pushes"], fmt(r["median"], 0), r["worst"],
+                         r["worst_push"], fmt(r["worst"] / d[watcher]["steady"]["median"], 1) + "x"))
+    page.table(["function", "stream", "pushes", "median push", "worst push", "at push",
+                "worst / steady median"], rows)
+    page.result("watchers' worst single push (instructions, beside the steady median)",
+                "reported (no target)",
+                "; ".join("%s steady %.0f, worst %d" % (
+                    w, d[w]["steady"]["median"], max(r["worst"] for r in d[w].values()))
+                          for w in sorted(d)), "reported")
 
 
 def batch_section(page, text):
@@ -409,6 +443,7 @@ def main():
     results, output = sys.argv[1], sys.argv[2]
     page = Page()
     scalar_section(page, load(results, "scalar.json"))
+    push_section(page, load(results, "push.json"))
     batch_section(page, load(results, "batch.txt"))
     numpy_section(page, load(results, "numpy.json"))
     cohort_section(page, load(results, "cohort.json"))

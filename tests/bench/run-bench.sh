@@ -6,7 +6,8 @@
 #
 # Builds the library and the bench programs with meson in BUILD_DIR (the
 # project's default build type, -O2), then measures side by side:
-#   1. instructions per call of every scalar function (valgrind callgrind)
+#   1. instructions per call of every scalar function (valgrind callgrind),
+#      and the watchers' worst single push beside their steady one
 #   2. batch throughput on 10 million rows against a same-stream loop (and memcpy) of the same bytes
 #   3. the Python binding's array calls against lean and graded numpy
 #      with the same values and statuses
@@ -48,6 +49,9 @@ libtarget=$(ninja -C "$build" -t targets all | grep -o '^lib/libnatremia\.so\.[0
     | tr -d : | head -n 1)
 ninja -C "$build" tests/bench/bench_scalar tests/bench/bench_batch \
     tests/bench/bench_scaling "$libtarget" >/dev/null
+if ninja -C "$build" -t targets all | grep -q '^tests/bench/bench_push_worst:'; then
+    ninja -C "$build" tests/bench/bench_push_worst >/dev/null
+fi
 bench=$build/tests/bench
 out=$build/bench-results
 rm -rf "$out"
@@ -91,6 +95,16 @@ if have valgrind; then
         --callgrind-out-file="$out/scalar.callgrind" \
         "$bench/bench_scalar" 20000 >"$out/scalar.log" 2>&1
     "$python" "$root/tests/bench/callgrind_cost.py" "$out/scalar.callgrind" 20000 >"$out/scalar.json"
+    # The watchers' single most expensive push, one dump per push (issue 16).
+    if [[ -x $bench/bench_push_worst ]]; then
+        mkdir -p "$out/push"
+        valgrind --tool=callgrind --dump-line=no --dump-instr=no \
+            --toggle-collect=ntr_watch_push --toggle-collect=ntr_course_watch_push \
+            --callgrind-out-file="$out/push/push.callgrind" \
+            "$bench/bench_push_worst" >"$out/push.log" 2>&1
+        "$python" "$root/tests/bench/push_worst.py" "$out"/push/push.callgrind.* >"$out/push.json"
+        rm -rf "$out/push"
+    fi
 else
     echo "skipped: valgrind not installed" >&2
 fi
