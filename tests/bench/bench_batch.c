@@ -137,7 +137,9 @@ static int call_efwc(const struct columns *c, size_t n, size_t *failed)
                           c->status, failed);
 }
 
-/* Invented, plausible inputs; every row valid (the run checks failed == 0). */
+/* Invented, plausible inputs; every row valid (the run checks failed == 0;
+ * infusate_change stops at 770 mmol/L so 2 L never lifts 160 past the
+ * 220 mmol/L the mass-balance rule accepts). */
 static const struct batch batches[] = {
     {"ntr_batch_osm_calculated", 0, 4, 0,
      {{110, 160}, {3, 40}, {2, 30}, {0, 20}}, call_osm_calculated},
@@ -157,7 +159,7 @@ static const struct batch batches[] = {
     {"ntr_batch_infusate_change_per_litre", 0, 4, 0,
      {{105, 160}, {20, 50}, {0, 855}, {0, 40}}, call_infusate_change_per_litre},
     {"ntr_batch_infusate_change", 0, 5, 0,
-     {{105, 160}, {20, 50}, {0, 855}, {0, 40}, {0.1, 2}}, call_infusate_change},
+     {{105, 160}, {20, 50}, {0, 770}, {0, 40}, {0.1, 2}}, call_infusate_change},
     {"ntr_batch_infusate_volume_for_change", 0, 5, 0,
      {{105, 130}, {20, 50}, {300, 855}, {0, 40}, {1, 8}},
      call_infusate_volume_for_change},
