@@ -72,6 +72,10 @@ static ntr_sample g_history[3];
 static ntr_plan_result g_plan;
 static ntr_course_limits g_course_limits;
 static ntr_course_plan_result g_course_plan;
+static ntr_course_limits g_course_limits_out;
+static ntr_course_watch g_course_watch;
+static ntr_course_report g_course_report;
+static ntr_vaptan_watch g_vaptan;
 
 static ntr_finding_value known(double value)
 {
@@ -108,6 +112,8 @@ static void setup(void)
     g_siad_result.struct_size = sizeof g_siad_result;
     g_outlook.struct_size = sizeof g_outlook;
     ntr_watch_init(&g_limits, &g_watch);
+    g_course_report.struct_size = sizeof g_course_report;
+    g_vaptan.struct_size = sizeof g_vaptan;
     /* Twelve results over 44 h, rising about 8 mmol/L a day. */
     for (k = 0; k < 12; k++) {
         g_series[k].hours = 4.0 * (double)k;
@@ -137,6 +143,7 @@ static void setup(void)
     }
     ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &g_course_limits);
     g_course_plan.struct_size = sizeof g_course_plan;
+    ntr_course_watch_init(&g_course_limits, &g_course_watch);
 }
 
 /* Invented, clinically plausible inputs that take the full computing path
@@ -283,6 +290,48 @@ NOINLINE long base_ntr_watch_push(long n)
     return bad;
 }
 
+/* The course watcher (1.1) fed the same stream as ntr_watch_push. */
+NOINLINE long loop_ntr_course_watch_push(long n);
+NOINLINE long base_ntr_course_watch_push(long n);
+NOINLINE long loop_ntr_course_watch_push(long n)
+{
+    long bad = 0;
+    for (long k = 0; k < n; k++) {
+        bad += ntr_course_watch_push(&g_course_watch, PUSH_HOURS(k), PUSH_NA(k),
+                                     &g_course_report) != 0;
+    }
+    return bad;
+}
+NOINLINE long base_ntr_course_watch_push(long n)
+{
+    long bad = 0;
+    for (long k = 0; k < n; k++) {
+        bad += stub_pdd_p(&g_course_watch, PUSH_HOURS(k), PUSH_NA(k),
+                          &g_course_report) != 0;
+    }
+    return bad;
+}
+
+/* 1.1 scalar functions (issue 16); invented, valid inputs. */
+PAIR(ntr_input_range, ntr_input_range(NTR_INPUT_NA, &d, &d2),
+     stub_i_pp(NTR_INPUT_NA, &d, &d2))
+PAIR(ntr_fe_uric_acid_class, ntr_fe_uric_acid_class(12.0, &i),
+     stub_d_ip(12.0, &i))
+PAIR(ntr_fe_uric_acid_after_correction,
+     ntr_fe_uric_acid_after_correction(12.0, 8.0, 138.0, &i),
+     stub_ddd_ip(12.0, 8.0, 138.0, &i))
+PAIR(ntr_loop_diuretic,
+     ntr_loop_diuretic(128.0, 30.0, 2.0, 80.0, 1.0, 154.0, &d, &d2),
+     stub_d6_pp(128.0, 30.0, 2.0, 80.0, 1.0, 154.0, &d, &d2))
+PAIR(ntr_dda_clamp,
+     ntr_dda_clamp(118.0, 30.0, 30.0, 513.0, 60.0, 80.0, 6.0, &d, &d2),
+     stub_d7_pp(118.0, 30.0, 30.0, 513.0, 60.0, 80.0, 6.0, &d, &d2))
+PAIR(ntr_course_limits_preset,
+     ntr_course_limits_preset(NTR_COURSE_HYPO_STANDARD, &g_course_limits_out),
+     stub_i_vp(NTR_COURSE_HYPO_STANDARD, &g_course_limits_out))
+PAIR(ntr_vaptan_watch_preset, ntr_vaptan_watch_preset(0, 0, &g_vaptan),
+     stub_ii_vp(0, 0, &g_vaptan))
+
 /* Series functions: the cost depends on the length of the series, so the
  * script reports these apart from the scalar target, per call and per
  * sample (ntr_correction_assess scaling is measured by bench_correction). */
@@ -371,6 +420,14 @@ static const struct pair pairs[] = {
     ENTRY(ntr_balance_course),
     ENTRY(ntr_plan_check),
     ENTRY(ntr_course_plan_check),
+    ENTRY(ntr_course_watch_push),
+    ENTRY(ntr_input_range),
+    ENTRY(ntr_fe_uric_acid_class),
+    ENTRY(ntr_fe_uric_acid_after_correction),
+    ENTRY(ntr_loop_diuretic),
+    ENTRY(ntr_dda_clamp),
+    ENTRY(ntr_course_limits_preset),
+    ENTRY(ntr_vaptan_watch_preset),
 };
 
 int main(int argc, char **argv)

@@ -152,3 +152,28 @@ int stub_d7_vp(double a, double b, double c, double d, double e, double f,
     (void)a; (void)b; (void)c; (void)d; (void)e; (void)f; (void)g; (void)out;
     return 0;
 }
+
+int stub_ddd_ip(double a, double b, double c, int *out)
+{
+    (void)a; (void)b; (void)c; (void)out;
+    return 0;
+}
+int stub_d6_pp(double a, double b, double c, double d, double e, double f,
+               double *out1, double *out2)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)e; (void)f;
+    (void)out1; (void)out2;
+    return 0;
+}
+int stub_d7_pp(double a, double b, double c, double d, double e, double f,
+               double g, double *out1, double *out2)
+{
+    (void)a; (void)b; (void)c; (void)d; (void)e; (void)f; (void)g;
+    (void)out1; (void)out2;
+    return 0;
+}
+int stub_ii_vp(int a, int b, void *out)
+{
+    (void)a; (void)b; (void)out;
+    return 0;
+}

@@ -55,4 +55,12 @@ int stub_id7_p(int a, double b, double c, double d, double e, double f,
 int stub_d7_vp(double a, double b, double c, double d, double e, double f,
                double g, void *out);
 
+/* 1.1 functions of feedback, therapy and course areas (issue 16). */
+int stub_ddd_ip(double a, double b, double c, int *out);
+int stub_d6_pp(double a, double b, double c, double d, double e, double f,
+               double *out1, double *out2);
+int stub_d7_pp(double a, double b, double c, double d, double e, double f,
+               double g, double *out1, double *out2);
+int stub_ii_vp(int a, int b, void *out);
+
 #endif

@@ -13,6 +13,10 @@
 #   extension  SELECT sum(ntr_osm_effective(na, glucose)) FROM t
 #   bare SQL   SELECT sum(2*na + glucose) FROM t            (no validation)
 #   PL/pgSQL   the same formula with the same validation in PL/pgSQL
+#   SQL fn     the same formula and validation as a LANGUAGE sql function
+#              (one CASE with BETWEEN; not STRICT, so the planner inlines
+#              it into the query: the fastest checked SQL a skilled user
+#              writes, issue 16)
 # and the same three for ntr_osm_calculated (four inputs and the formula
 # name). Each query runs REPEATS times in turn with the others; the time is
 # the backend's CPU time (utime + stime from /proc, 10 ms ticks), so other
@@ -34,9 +38,11 @@ queries=(
   "ext_effective|SELECT sum(ntr_osm_effective(na, glucose)) FROM t"
   "sql_effective|SELECT sum(2 * na + glucose) FROM t"
   "plpgsql_effective|SELECT sum(plpgsql_osm_effective(na, glucose)) FROM t"
+  "sqlfn_effective|SELECT sum(sqlfn_osm_effective(na, glucose)) FROM t"
   "ext_calculated|SELECT sum(ntr_osm_calculated(na, glucose, urea, ethanol)) FROM t"
   "sql_calculated|SELECT sum(2 * na + glucose + urea + ethanol) FROM t"
   "plpgsql_calculated|SELECT sum(plpgsql_osm_calculated(na, glucose, urea, ethanol)) FROM t"
+  "sqlfn_calculated|SELECT sum(sqlfn_osm_calculated(na, glucose, urea, ethanol)) FROM t"
 )
 script=$tmp/bench.sql
 cat >"$script" <<SQL
@@ -84,11 +90,34 @@ BEGIN
     END IF;
     RETURN 2 * na + glucose + urea + ethanol;
 END \$\$;
--- The three ways must agree before they are timed.
+-- The same checks as SQL-language functions. In PostgreSQL NaN sorts above
+-- every number and the infinities outside any finite bound, so one BETWEEN
+-- per input rejects non-finite values too. Not STRICT: a STRICT function
+-- with a CASE body is not inlined.
+CREATE FUNCTION sqlfn_osm_effective(na float8, glucose float8)
+RETURNS float8 LANGUAGE sql IMMUTABLE PARALLEL SAFE AS \$\$
+    SELECT CASE WHEN na BETWEEN 80 AND 220 AND glucose BETWEEN 0 AND 200
+                THEN 2 * na + glucose END
+\$\$;
+CREATE FUNCTION sqlfn_osm_calculated(na float8, glucose float8, urea float8,
+                                     ethanol float8)
+RETURNS float8 LANGUAGE sql IMMUTABLE PARALLEL SAFE AS \$\$
+    SELECT CASE WHEN na BETWEEN 80 AND 220 AND glucose BETWEEN 0 AND 200
+                 AND urea BETWEEN 0 AND 200 AND ethanol BETWEEN 0 AND 400
+                THEN 2 * na + glucose + urea + ethanol END
+\$\$;
+-- The ways must agree before they are timed: on the table, and on every
+-- kind of invalid input (NULL from all of them).
 SELECT CASE WHEN abs(sum(ntr_osm_effective(na, glucose)) - sum(2 * na + glucose)) < 1e-3 * count(*)
              AND abs(sum(plpgsql_osm_effective(na, glucose)) - sum(2 * na + glucose)) < 1e-3 * count(*)
              AND abs(sum(ntr_osm_calculated(na, glucose, urea, ethanol)) - sum(2 * na + glucose + urea + ethanol)) < 1e-3 * count(*)
              AND abs(sum(plpgsql_osm_calculated(na, glucose, urea, ethanol)) - sum(2 * na + glucose + urea + ethanol)) < 1e-3 * count(*)
+             AND abs(sum(sqlfn_osm_effective(na, glucose)) - sum(2 * na + glucose)) < 1e-3 * count(*)
+             AND abs(sum(sqlfn_osm_calculated(na, glucose, urea, ethanol)) - sum(2 * na + glucose + urea + ethanol)) < 1e-3 * count(*)
+             AND (SELECT bool_and(ntr_osm_effective(a, b) IS NULL AND plpgsql_osm_effective(a, b) IS NULL
+                                  AND sqlfn_osm_effective(a, b) IS NULL)
+                  FROM (VALUES ('NaN'::float8, 5::float8), ('Infinity', 5), ('-Infinity', 5),
+                               (79.9, 5), (220.1, 5), (140, -0.1), (140, 200.1), (140, 'NaN')) AS bad(a, b))
         THEN 'agree' ELSE 'DIFFER' END FROM t \g $tmp/agreement.txt
 SELECT pg_backend_pid() \g $tmp/pid.txt
 SQL

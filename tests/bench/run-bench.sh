@@ -7,12 +7,16 @@
 #
 # Builds the library and the bench programs with meson in BUILD_DIR (the
 # project's default build type, -O2), then measures side by side:
-#   1. instructions per call of every scalar function (valgrind callgrind)
-#   2. batch throughput on 10 million rows against memcpy of the same bytes
-#   3. the Python binding's array calls against numpy with the same checks
-#   4. correction assessment of 1 million invented patients against pandas
+#   1. instructions per call of every scalar function (valgrind callgrind),
+#      and the watchers' worst single push beside their steady one
+#   2. batch throughput on 10 million rows against a same-stream loop (and memcpy) of the same bytes
+#   3. the Python binding's array calls against lean and graded numpy
+#      with the same values and statuses
+#   4. correction assessment of 1 million invented patients against skilled
+#      numpy, one flat pandas rolling and pandas groupby().rolling
 #   5. assessment cost per sample for series of 10 to 100,000 samples
-#   6. the PostgreSQL extension against bare SQL and PL/pgSQL (5 million rows)
+#   6. the PostgreSQL extension against bare SQL, a SQL-language function
+#      and PL/pgSQL with the same checks (5 million rows)
 #   7. Cortex-M4 code size and stack frames (arm-none-eabi-gcc -Os)
 # A step whose tools are missing is reported as skipped. Sizes can be
 # lowered for a quick look (the page then says what was run):
@@ -41,8 +45,14 @@ step "build ($build)"
 if [[ ! -f $build/build.ninja ]]; then
     meson setup "$build" "$root" >/dev/null
 fi
+# The shared library's file name carries the version (1.1.0 and later).
+libtarget=$(ninja -C "$build" -t targets all | grep -o '^lib/libnatremia\.so\.[0-9.]*[0-9]:' \
+    | tr -d : | head -n 1)
 ninja -C "$build" tests/bench/bench_scalar tests/bench/bench_batch \
-    tests/bench/bench_scaling lib/libnatremia.so.1.0.0 >/dev/null
+    tests/bench/bench_scaling "$libtarget" >/dev/null
+if ninja -C "$build" -t targets all | grep -q '^tests/bench/bench_push_worst:'; then
+    ninja -C "$build" tests/bench/bench_push_worst >/dev/null
+fi
 bench=$build/tests/bench
 out=$build/bench-results
 rm -rf "$out"
@@ -86,11 +96,21 @@ if have valgrind; then
         --callgrind-out-file="$out/scalar.callgrind" \
         "$bench/bench_scalar" 20000 >"$out/scalar.log" 2>&1
     "$python" "$root/tests/bench/callgrind_cost.py" "$out/scalar.callgrind" 20000 >"$out/scalar.json"
+    # The watchers' single most expensive push, one dump per push (issue 16).
+    if [[ -x $bench/bench_push_worst ]]; then
+        mkdir -p "$out/push"
+        valgrind --tool=callgrind --dump-line=no --dump-instr=no \
+            --toggle-collect=ntr_watch_push --toggle-collect=ntr_course_watch_push \
+            --callgrind-out-file="$out/push/push.callgrind" \
+            "$bench/bench_push_worst" >"$out/push.log" 2>&1
+        "$python" "$root/tests/bench/push_worst.py" "$out"/push/push.callgrind.* >"$out/push.json"
+        rm -rf "$out/push"
+    fi
 else
     echo "skipped: valgrind not installed" >&2
 fi
 
-step "2. batch throughput, $rows rows, against memcpy"
+step "2. batch throughput, $rows rows, against a same-stream loop and memcpy"
 "$bench/bench_batch" "$rows" "$repeats" >"$out/batch.txt"
 
 step "3. Python array calls against numpy ($numpy_rows rows)"
