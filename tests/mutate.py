@@ -288,6 +288,7 @@ def build_targets(build, tests):
     targets = []
     for t in tests:
         for arg in t['cmd']:
+            arg = os.path.normpath(arg)
             rel = os.path.relpath(arg, build)
             if arg.startswith(build + os.sep) and rel not in targets:
                 targets.append(rel)
