@@ -170,6 +170,16 @@ static void feedback_efw_identity(void **state)
                         60.0 * (1.0 - 513.0 / r.na_now_mmol_l) + 20.0, 1e-9);
     /* Electrolyte-poor urine (35 < Na): it loses free water. */
     assert_true(r.urine_efw_ml_h > 0.0);
+    /* Every input running at now counts, however slow: 5% dextrose (no
+     * cation) at 1e-9 mL/h alone is an EFW rate of exactly 1e-9 mL/h
+     * (EFW = V*(1 - 0/Na)). */
+    {
+        const ntr_timed_flow slow[] = {ntr_test_timed(0.0, 48.0, 1e-9, 0.0, 0.0)};
+        ntr_urine_feedback_result q = fresh_feedback();
+        assert_int_equal(ntr_urine_feedback(h, 2, 30.0, slow, 1, u, 2, 6.0, 0.5, &lim, &q),
+                         NTR_OK);
+        assert_true(q.input_efw_ml_h == 1e-9);
+    }
 }
 
 /* The re-projection is the plan check of the same plan written on the
