@@ -1827,8 +1827,9 @@ static void course_watcher_refuses_damaged_states(void **state)
             memcpy(&w, &fed, sizeof w);
             switch (mode) {
             /* An entry's over-report bound (a float): stored spans must be
-             * 0 to 140, the widest the sodium range allows. */
-            case 12: w.low.span[w.low.head] = (float)x; break;
+             * 0 to 140, the widest the sodium range allows (1e300 is given
+             * as 141, as a float cannot hold it). */
+            case 12: w.low.span[w.low.head] = (float)(x > 0.0 && x < HUGE_VAL ? 141.0 : x); break;
             case 13: w.high.span[(w.high.head + w.high.kept - 1u) % NTR_COURSE_WATCH_CAPACITY] = -1.0f; break;
             case 0: w.first.na_mmol_l = x; break;
             case 1: w.last.hours = x; break;
