@@ -283,11 +283,16 @@ def prepare(workdir, options):
 
 
 def build_targets(build, tests):
+    # Every built file a test command names: the test program itself, or
+    # the program a script test drives (tests/cli/test_cli.py is given
+    # bindings/cli/natremia-course as an argument).
     targets = []
     for t in tests:
-        exe = t['cmd'][0]
-        if exe.startswith(build + os.sep):
-            targets.append(os.path.relpath(exe, build))
+        for arg in t['cmd']:
+            arg = os.path.normpath(arg)
+            rel = os.path.relpath(arg, build)
+            if arg.startswith(build + os.sep) and rel not in targets:
+                targets.append(rel)
     return targets
 
 

@@ -752,6 +752,7 @@ static void correction_groups_contract(void **state)
 {
     const ntr_sample s[3] = {{0, 120}, {6, 124}, {12, 126}};
     const size_t decreasing[3] = {0, 2, 1};
+    const size_t decreasing_first[3] = {2, 1, 3};
     const size_t beyond[3] = {0, 2, 4};
     const size_t fine[3] = {0, 2, 3};
     ntr_limits lim;
@@ -773,6 +774,10 @@ static void correction_groups_contract(void **state)
     assert_int_equal(ntr_batch_correction_assess(2, fine, s, 3, &lim, c, NULL, &failed),
                      NTR_ERR_NULL);
     assert_int_equal(ntr_batch_correction_assess(2, decreasing, s, 3, &lim, c, st,
+                                                 &failed), NTR_ERR_ARG);
+    /* A decrease between the first two offsets too (offsets[0] need not
+     * be 0): group 0 would run from 2 back to 1. */
+    assert_int_equal(ntr_batch_correction_assess(2, decreasing_first, s, 3, &lim, c, st,
                                                  &failed), NTR_ERR_ARG);
     assert_int_equal(ntr_batch_correction_assess(2, beyond, s, 3, &lim, c, st,
                                                  &failed), NTR_ERR_ARG);
@@ -982,6 +987,7 @@ static void course_groups_contract(void **state)
 {
     const ntr_sample s[3] = {{0, 160}, {6, 156}, {12, 153}};
     const size_t decreasing[3] = {0, 2, 1};
+    const size_t decreasing_first[3] = {2, 1, 3};
     const size_t beyond[3] = {0, 2, 4};
     const size_t fine[3] = {0, 2, 3};
     const size_t size = sizeof(ntr_course_report);
@@ -1003,6 +1009,10 @@ static void course_groups_contract(void **state)
     assert_int_equal(ntr_batch_course_assess(2, fine, s, 3, &lim, size, c, NULL, &failed),
                      NTR_ERR_NULL);
     assert_int_equal(ntr_batch_course_assess(2, decreasing, s, 3, &lim, size, c, st, &failed),
+                     NTR_ERR_ARG);
+    /* A decrease between the first two offsets too (offsets[0] need not
+     * be 0): group 0 would run from 2 back to 1. */
+    assert_int_equal(ntr_batch_course_assess(2, decreasing_first, s, 3, &lim, size, c, st, &failed),
                      NTR_ERR_ARG);
     assert_int_equal(ntr_batch_course_assess(2, beyond, s, 3, &lim, size, c, st, &failed),
                      NTR_ERR_ARG);

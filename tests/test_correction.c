@@ -405,6 +405,23 @@ static void below_target_edges(void **state)
     assert_int_equal(assess(at, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
     assert_int_equal(assess(under, 2, &lim).flags & NTR_CF_BELOW_TARGET, NTR_CF_BELOW_TARGET);
     assert_int_equal(assess(early, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
+    /* Below by exactly NTR_CF_TOLERANCE is not "by more than" it (the
+     * header's rule): a target whose difference to the rise of 4 is the
+     * tolerance in floating point, and the next double above it. */
+    {
+        double m = 4.0 + NTR_CF_TOLERANCE;
+        int steps = 0;
+        while (m - NTR_CF_TOLERANCE != 4.0 && steps < 64) {
+            m = m - NTR_CF_TOLERANCE < 4.0 ? nextafter(m, 5.0) : nextafter(m, 3.0);
+            steps++;
+        }
+        assert_true(m - NTR_CF_TOLERANCE == 4.0);
+        lim.min_rise_24h = m;
+        assert_int_equal(assess(at, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
+        lim.min_rise_24h = 4.5;
+        assert_int_equal(assess(at, 2, &lim).flags & NTR_CF_BELOW_TARGET, NTR_CF_BELOW_TARGET);
+        lim = standard();
+    }
     /* min_rise_24h = 0 switches the target off. */
     lim.min_rise_24h = 0.0;
     assert_int_equal(assess(under, 2, &lim).flags & NTR_CF_BELOW_TARGET, 0u);
@@ -844,6 +861,40 @@ static void watcher_equals_batch_on_random_series(void **state)
             assert_int_equal(ntr_watch_result(&w, &again), NTR_OK);
             assert_same(&again, &batch);
         }
+    }
+}
+
+/* A watcher initialised again after use answers exactly as a fresh one
+ * and as ntr_correction_assess() (the header leaves the ring's unused
+ * entries as they were, so nothing may read them). The earlier use leaves
+ * a sample at 60 h, 100 mmol/L in the third ring slot; the new series
+ * rises from 125 to 130 over 50 h, so its projection (next sample at
+ * 100 h) has no stored sample within 48 h before it and no projected rise
+ * (invented series). */
+static void watcher_reused_answers_as_fresh(void **state)
+{
+    const ntr_sample old[] = {{0.0, 120.0}, {1.0, 121.0}, {60.0, 100.0}};
+    const ntr_sample now[] = {{0.0, 125.0}, {50.0, 130.0}};
+    ntr_limits lim;
+    ntr_watch used, fresh;
+    size_t k;
+    (void)state;
+    assert_int_equal(ntr_limits_preset(NTR_LIMITS_STANDARD, &lim), NTR_OK);
+    memset(&fresh, 0, sizeof fresh);
+    assert_int_equal(ntr_watch_init(&lim, &fresh), NTR_OK);
+    assert_int_equal(ntr_watch_init(&lim, &used), NTR_OK);
+    for (k = 0; k < COUNT(old); k++) {
+        ntr_correction c;
+        assert_int_equal(ntr_watch_push(&used, old[k].hours, old[k].na_mmol_l, &c), NTR_OK);
+    }
+    assert_int_equal(ntr_watch_init(&lim, &used), NTR_OK);
+    for (k = 0; k < COUNT(now); k++) {
+        ntr_correction a, b, batch;
+        assert_int_equal(ntr_watch_push(&used, now[k].hours, now[k].na_mmol_l, &a), NTR_OK);
+        assert_int_equal(ntr_watch_push(&fresh, now[k].hours, now[k].na_mmol_l, &b), NTR_OK);
+        batch = assess(now, k + 1, &lim);
+        assert_same(&a, &b);
+        assert_same(&a, &batch);
     }
 }
 
@@ -1773,9 +1824,14 @@ static void course_watcher_refuses_damaged_states(void **state)
     for (i = 0; i < COUNT(bad_numbers); i++) {
         const double x = bad_numbers[i];
         int mode;
-        for (mode = 0; mode < 12; mode++) {
+        for (mode = 0; mode < 14; mode++) {
             memcpy(&w, &fed, sizeof w);
             switch (mode) {
+            /* An entry's over-report bound (a float): stored spans must be
+             * 0 to 140, the widest the sodium range allows (1e300 is given
+             * as 141, as a float cannot hold it). */
+            case 12: w.low.span[w.low.head] = (float)(x > 0.0 && x < HUGE_VAL ? 141.0 : x); break;
+            case 13: w.high.span[(w.high.head + w.high.kept - 1u) % NTR_COURSE_WATCH_CAPACITY] = -1.0f; break;
             case 0: w.first.na_mmol_l = x; break;
             case 1: w.last.hours = x; break;
             case 2: w.prev.na_mmol_l = x; break;
@@ -2099,6 +2155,7 @@ int main(void)
         cmocka_unit_test(rises_never_shrink_as_samples_arrive),
         cmocka_unit_test(watcher_equals_batch_on_random_series),
         cmocka_unit_test(watcher_equals_batch_on_dense_series),
+        cmocka_unit_test(watcher_reused_answers_as_fresh),
         cmocka_unit_test(watcher_capacity_is_as_documented),
         cmocka_unit_test(watcher_rejects_bad_inputs),
         cmocka_unit_test(watcher_state_can_be_stored_and_restored),

@@ -171,6 +171,16 @@ static void feedback_efw_identity(void **state)
                         60.0 * (1.0 - 513.0 / r.na_now_mmol_l) + 20.0, 1e-9);
     /* Electrolyte-poor urine (35 < Na): it loses free water. */
     assert_true(r.urine_efw_ml_h > 0.0);
+    /* Every input running at now counts, however slow: 5% dextrose (no
+     * cation) at 1e-9 mL/h alone is an EFW rate of exactly 1e-9 mL/h
+     * (EFW = V*(1 - 0/Na)). */
+    {
+        const ntr_timed_flow slow[] = {ntr_test_timed(0.0, 48.0, 1e-9, 0.0, 0.0)};
+        ntr_urine_feedback_result q = fresh_feedback();
+        assert_int_equal(ntr_urine_feedback(h, 2, 30.0, slow, 1, u, 2, 6.0, 0.5, &lim, &q),
+                         NTR_OK);
+        assert_true(q.input_efw_ml_h == 1e-9);
+    }
 }
 
 /* The re-projection is the plan check of the same plan written on the
@@ -358,6 +368,16 @@ static void interval_flow(void **state)
     u.end_h = 2.0;
     assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_ERR_ORDER);
     u.end_h = 2.1;
+    assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_ERR_DOMAIN);
+    assert_memory_equal(&f, &before, sizeof f);
+    /* The rate limit itself is accepted: 5000 mL over exactly 1 h is a
+     * loss of 5000 mL/h, the largest timed-flow rate the header allows;
+     * one more millilitre is over it. */
+    u = interval(2.0, 3.0, 5000.0, 40.0, 20.0, 300.0);
+    assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_OK);
+    assert_near(f.rate_ml_h, -5000.0, 0.0);
+    f = before;
+    u.volume_ml = 5001.0;
     assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_ERR_DOMAIN);
     assert_memory_equal(&f, &before, sizeof f);
 }
@@ -561,6 +581,125 @@ static void fit_recovers_truth_under_noise(void **state)
     assert_true(fabs(err_loss[REPS * 9 / 10]) < 75.0);
     assert_true(fabs(err_proj[REPS / 2]) < 0.6);
     assert_true(fabs(err_proj[REPS * 9 / 10]) < 1.5);
+}
+
+/* The model of the header for design A, written out here: by t h the
+ * 3% saline (250 mL/h, 513 mmol/L, 0-2 h) has given V = 0.25*min(t, 2) L
+ * with S = 513*V mmol, so Na(t) = (Na0*W + S) / (W + V - L*t/1000). The
+ * row holds its derivatives by Na0, W and L (by hand from the quotient). */
+static double design_a_model(double na0, double w, double loss, double t, double row[3])
+{
+    const double v = 0.25 * (t < 2.0 ? t : 2.0);
+    const double num = na0 * w + 513.0 * v;
+    const double den = w + v - loss * t / 1000.0;
+    row[0] = w / den;
+    row[1] = na0 / den - num / (den * den);
+    row[2] = num * (t / 1000.0) / (den * den);
+    return num / den;
+}
+
+/* Inverse of a symmetric positive definite 3x3 matrix by Gauss-Jordan
+ * elimination with partial pivoting (a different route from the
+ * library's cofactors). */
+static void invert3(double a[3][3], double inv[3][3])
+{
+    double m[3][6];
+    int i, j, k;
+    for (i = 0; i < 3; i++) {
+        for (j = 0; j < 3; j++) {
+            m[i][j] = a[i][j];
+            m[i][j + 3] = i == j ? 1.0 : 0.0;
+        }
+    }
+    for (k = 0; k < 3; k++) {
+        int piv = k;
+        for (i = k + 1; i < 3; i++) {
+            if (fabs(m[i][k]) > fabs(m[piv][k])) {
+                piv = i;
+            }
+        }
+        for (j = 0; j < 6; j++) {
+            const double tmp = m[k][j];
+            m[k][j] = m[piv][j];
+            m[piv][j] = tmp;
+        }
+        for (j = 5; j >= k; j--) {
+            m[k][j] /= m[k][k];
+        }
+        for (i = 0; i < 3; i++) {
+            if (i != k) {
+                const double f = m[i][k];
+                for (j = k; j < 6; j++) {
+                    m[i][j] -= f * m[k][j];
+                }
+            }
+        }
+    }
+    for (i = 0; i < 3; i++) {
+        for (j = 0; j < 3; j++) {
+            inv[i][j] = m[i][j + 3];
+        }
+    }
+}
+
+/* The standard errors and the correlation are the header's equations:
+ * s*sqrt(diag((J'J)^-1)) with s^2 = SSR/(n - 3), and the correlation of
+ * W and L from (J'J)^-1 (the usual least-squares covariance, e.g. Bates
+ * and Watts, Nonlinear Regression Analysis, 1988, ch. 2). Checked on noisy
+ * series of design A against J computed here from the model by hand and
+ * inverted by another method, at the fitted point the library reports.
+ * That point is the least-squares minimum: the gradient J'r, scaled by
+ * the column and residual norms, is zero to 1e-6 (Levenberg 1944 and
+ * Marquardt 1963 stop there). The rms residual is the one of the
+ * reported parameters. */
+static void fit_standard_errors_by_the_equation(void **state)
+{
+    struct rng g = {0x2545F4914F6CDD1Dull};
+    ntr_sample truth[32];
+    const size_t n = synthetic(120.0, 35.0, 120.0, design_a, 1, 2.0, truth, COUNT(truth));
+    int rep;
+    (void)state;
+    for (rep = 0; rep < 8; rep++) {
+        ntr_sample h[32];
+        ntr_fit f = fresh_fit();
+        double a[3][3] = {{0.0}}, inv[3][3], jr[3] = {0.0}, col[3] = {0.0};
+        double ssr = 0.0, s2, corr;
+        size_t k;
+        int i, j;
+        for (k = 0; k < n; k++) {
+            h[k] = truth[k];
+            h[k].na_mmol_l += 0.5 * rng_normal(&g);
+        }
+        assert_int_equal(ntr_course_fit(h, n, 40.0, design_a, 1, &f), NTR_OK);
+        assert_true((f.flags & (NTR_FIT_NOT_CONVERGED | NTR_FIT_TBW_AT_BOUND |
+                                NTR_FIT_LOSS_AT_BOUND)) == 0u);
+        for (k = 0; k < n; k++) {
+            double row[3];
+            const double r = h[k].na_mmol_l -
+                             design_a_model(f.na0_mmol_l, f.tbw_l, f.free_water_loss_ml_h,
+                                            h[k].hours - h[0].hours, row);
+            ssr += r * r;
+            for (i = 0; i < 3; i++) {
+                jr[i] += row[i] * r;
+                col[i] += row[i] * row[i];
+                for (j = 0; j < 3; j++) {
+                    a[i][j] += row[i] * row[j];
+                }
+            }
+        }
+        for (i = 0; i < 3; i++) {
+            assert_true(fabs(jr[i]) <= 1e-6 * sqrt(col[i] * ssr));
+        }
+        invert3(a, inv);
+        s2 = ssr / (double)(n - 3);
+        corr = inv[1][2] / sqrt(inv[1][1] * inv[2][2]);
+        assert_near(f.rms_residual_mmol_l, sqrt(ssr / (double)n), 1e-9);
+        assert_near(f.tbw_se_l, sqrt(s2 * inv[1][1]), 1e-6 * f.tbw_se_l);
+        assert_near(f.free_water_loss_se_ml_h, sqrt(s2 * inv[2][2]),
+                    1e-6 * f.free_water_loss_se_ml_h);
+        assert_near(f.correlation, corr, 1e-6);
+        assert_true(f.tbw_se_l > 0.0 && f.free_water_loss_se_ml_h > 0.0);
+    }
 }
 
 /* The data cannot separate the two: no flows at all (the series fixes only
@@ -871,6 +1010,7 @@ int main(void)
         cmocka_unit_test(fit_recovers_exact_truth),
         cmocka_unit_test(fit_three_samples_exact),
         cmocka_unit_test(fit_recovers_truth_under_noise),
+        cmocka_unit_test(fit_standard_errors_by_the_equation),
         cmocka_unit_test(fit_refuses_inseparable_data),
         cmocka_unit_test(fit_when_the_model_is_wrong),
         cmocka_unit_test(fit_properties),

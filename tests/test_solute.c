@@ -505,6 +505,18 @@ static void outlook_target_holds_or_needs_solute(void **state)
     assert_near(b.urea_g_day, 112.5 * UREA_G_MOL / 1000.0, 1e-9);
     assert_near(b.nacl_g_day, 112.5 * NACL_G_MOL / 2000.0, 1e-9);
     assert_true(b.flags == 0u);
+    /* A target equal to the allowance itself holds (the header: the
+     * target holds when the allowance is at least the target), with no
+     * dose needed; the next double above it needs solute. */
+    {
+        const double edge = a.allowance_l_day;
+        ntr_outlook c = outlook(900.0, 450.0, 60.0, 20.0, 128.0, 0.5, edge);
+        ntr_outlook d = outlook(900.0, 450.0, 60.0, 20.0, 128.0, 0.5, nextafter(edge, 10.0));
+        assert_true(c.allowance_l_day == edge);
+        assert_int_equal(c.verdict, NTR_OUTLOOK_TARGET_HOLDS);
+        assert_true(c.urea_g_day == 0.0 && c.nacl_g_day == 0.0);
+        assert_int_equal(d.verdict, NTR_OUTLOOK_STRICTER_OR_SOLUTE);
+    }
 }
 
 /* The outlook is the single functions combined, bit for bit, over a grid;

@@ -436,6 +436,37 @@ static void hyper_lower_checked_against_limits(void **state)
                                           &rate, &v, &breach), NTR_ERR_DOMAIN);
 }
 
+/* The header's pooling, bit for bit: the plan's volume and rate are
+ * ntr_relower_estimate() with one loss of rate u + i and cation
+ * u*c_u/(u + i). With no insensible loss the pooled cation is the urine's
+ * own, however small the urine rate (here 1e-9 mL/h of urine at 256
+ * mmol/L: the cation it carries still counts, and the rate differs from
+ * that of pure water in the last digits); and with both losses. */
+static void hyper_lower_pools_the_losses(void **state)
+{
+    static const double urine[][3] = {{1e-9, 256.0, 0.0}, {5e-10, 128.0, 0.0},
+                                      {50.0, 40.0, 40.0}, {0.0, 120.0, 30.0}};
+    size_t i;
+    (void)state;
+    for (i = 0; i < sizeof urine / sizeof urine[0]; i++) {
+        const double u = urine[i][0], c = urine[i][1], ins = urine[i][2];
+        const double pooled = u + ins > 0.0 ? u * c / (u + ins) : 0.0;
+        double rate, v, breach, rate_ref, v_ref, v_water, rate_water;
+        assert_int_equal(ntr_hyper_lower_plan(160.0, 40.0, NTR_FLUID_DEXTROSE_5,
+                                              NTR_COURSE_HYPER_CHRONIC, 10.0, 24.0, u, c, ins,
+                                              &rate, &v, &breach), NTR_OK);
+        assert_int_equal(ntr_relower_estimate(160.0, 40.0, 0.0, 0.0, 10.0, 24.0, u + ins,
+                                              pooled, 0.0, &v_ref, &rate_ref), NTR_OK);
+        assert_true(rate == rate_ref);
+        assert_true(v == v_ref);
+        if (ins == 0.0 && u > 0.0) {
+            assert_int_equal(ntr_relower_estimate(160.0, 40.0, 0.0, 0.0, 10.0, 24.0, u, 0.0,
+                                                  0.0, &v_water, &rate_water), NTR_OK);
+            assert_true(v != v_water);
+        }
+    }
+}
+
 static void hyper_lower_losses_alone(void **state)
 {
     double rate = NTR_TEST_SENTINEL, v = NTR_TEST_SENTINEL, breach = NTR_TEST_SENTINEL;
@@ -627,6 +658,7 @@ int main(void)
         cmocka_unit_test(vaptan_bad_inputs),
         cmocka_unit_test(hyper_lower_hand_worked),
         cmocka_unit_test(hyper_lower_checked_against_limits),
+        cmocka_unit_test(hyper_lower_pools_the_losses),
         cmocka_unit_test(hyper_lower_losses_alone),
         cmocka_unit_test(hyper_lower_urine_at_range_top),
         cmocka_unit_test(hyper_lower_properties),

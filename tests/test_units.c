@@ -770,6 +770,27 @@ static void glucose_check_tolerance_edge(void **state)
     assert_int_equal(ntr_glucose_unit_check(50.7, NTR_UNIT_MMOL_L, 140.0, 300.0, &out),
                      NTR_ERR_UNIT);
     assert_true(out == NTR_TEST_SENTINEL);
+    /* Exactly at the edge: a floor equal to measured + 20 passes (the
+     * header refuses only a floor above it); the next double below that
+     * measured value is refused. The floor is the library's own
+     * Dorwart-Chalmers value, so the edge is exact; floor - 20 is exact
+     * (a finer grid) and adding 20 back gives the floor again. */
+    {
+        double floor_osm, measured;
+        assert_int_equal(ntr_osm_calculated(140.0, 50.6, 0.0, 0.0, NTR_OSM_DORWART_CHALMERS,
+                                            &floor_osm), NTR_OK);
+        measured = floor_osm - 20.0;
+        assert_true(measured + 20.0 == floor_osm);
+        out = NTR_TEST_SENTINEL;
+        assert_int_equal(ntr_glucose_unit_check(50.6, NTR_UNIT_MMOL_L, 140.0, measured, &out),
+                         NTR_OK);
+        assert_true(out == 50.6);
+        out = NTR_TEST_SENTINEL;
+        assert_int_equal(ntr_glucose_unit_check(50.6, NTR_UNIT_MMOL_L, 140.0,
+                                                nextafter(measured, 0.0), &out),
+                         NTR_ERR_UNIT);
+        assert_true(out == NTR_TEST_SENTINEL);
+    }
 }
 
 /* Without a measured osmolality (0) the check can only apply the range

@@ -1279,6 +1279,25 @@ static void siad_zero_means_unknown(void **state)
     assert_int_equal(a.verdict, b.verdict);
     assert_int_equal(a.missing, b.missing);
     assert_int_equal(a.not_known, b.not_known);
+    /* Each value the initialiser writes is one the header calls valid:
+     * known 0 and the reserved member 0 ("Set to 0"), so a caller that
+     * fills only some findings hands on conforming values for the rest. */
+    assert_int_equal(initialised.effective_osm_mosm_kg.known, 0);
+    assert_int_equal(initialised.effective_osm_mosm_kg.reserved, 0);
+    assert_int_equal(initialised.urine_osm_mosm_kg.known, 0);
+    assert_int_equal(initialised.urine_osm_mosm_kg.reserved, 0);
+    assert_int_equal(initialised.urine_na_mmol_l.known, 0);
+    assert_int_equal(initialised.urine_na_mmol_l.reserved, 0);
+    assert_int_equal(initialised.uric_acid_mmol_l.known, 0);
+    assert_int_equal(initialised.uric_acid_mmol_l.reserved, 0);
+    assert_int_equal(initialised.urea_mmol_l.known, 0);
+    assert_int_equal(initialised.urea_mmol_l.reserved, 0);
+    assert_int_equal(initialised.fe_na_percent.known, 0);
+    assert_int_equal(initialised.fe_na_percent.reserved, 0);
+    assert_int_equal(initialised.fe_urea_percent.known, 0);
+    assert_int_equal(initialised.fe_urea_percent.reserved, 0);
+    assert_int_equal(initialised.fe_uric_acid_percent.known, 0);
+    assert_int_equal(initialised.fe_uric_acid_percent.reserved, 0);
     assert_int_equal(ntr_siad_findings_init(NULL), NTR_ERR_NULL);
 }
 
