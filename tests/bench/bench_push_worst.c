@@ -1,3 +1,4 @@
+/* SPDX-License-Identifier: MIT */
 /* Worst single push of the two watchers (issue 16), next to their steady
  * cost: ntr_watch_push and ntr_course_watch_push fed invented streams that
  * exercise their slow paths, one callgrind dump after every push.

@@ -1,4 +1,5 @@
 #!/usr/bin/python3
+# SPDX-License-Identifier: MIT
 """Per-push instruction counts from the callgrind dumps of bench_push_worst.
 
 Usage: push_worst.py DUMP_FILE...  -> JSON on stdout: for each watcher and
