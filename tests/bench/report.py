@@ -32,7 +32,7 @@ SERIES = {
     "ntr_balance_course": "2 flows, 25 points",
     "ntr_plan_check": "3 samples of history, 2 flows, 24 points",
     "ntr_course_plan_check": "3 samples of history, 2 flows, 24 points, both directions",
-    "ntr_unit_parse_lenient": "' \\xc2\\xb5MOL/L ': blanks, capitals and a micro sign folded, the last of 11 spellings",
+    "ntr_unit_parse_lenient": "' µMOL/L ' (the micro sign as UTF-8): blanks, capitals and the micro sign folded, the last of 11 spellings",
     "ntr_loinc_lookup": "the last of 12 codes",
 }
 
