@@ -16,7 +16,8 @@
  * The extra_* functions are drivers that tests/frama-c.sh runs only when
  * named (tests/frama-c.sh extra_plan_check ...), not in the recorded
  * figure: at -eva-precision 8 the plan checks, the urine feedback and the
- * fit did not finish within 60 s each, and the two watchers report alarms
+ * fit did not finish within 60 s each (the lowering plan within 4 min),
+ * and the two watchers report alarms
  * (ring positions, docs/reliability.md) not yet checked by hand. */
 #include "__fc_builtin.h"
 #include "natremia.h"
@@ -336,7 +337,7 @@ void extra_fit_reproject(void)
 
 /* Therapy plan that checks its course against course limits (so the
  * course code's +-HUGE_VAL starts run, see above). */
-void drv_hyper_lower_plan(void)
+void extra_hyper_lower_plan(void)
 {
     double rate, volume, breach;
     (void)ntr_hyper_lower_plan(NA, TBW, I(-1, 9), I(0, 6), D(0.0, NTR_DELTA_MAX), D(NTR_PLAN_STEP_MIN, NTR_PLAN_HOURS_MAX), D(0.0, NTR_FLOW_RATE_MAX), D(0.0, NTR_URINE_NA_MAX),
