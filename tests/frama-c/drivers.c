@@ -113,10 +113,16 @@ void drv_efwc(void)
     (void)ntr_efwc(D(0.0, 30.0), D(0.0, 500.0), D(0.0, 300.0), NA, &out);
 }
 
+/* The analyte codes -1 to 12 in three calls: osmolality (9) has no molar
+ * mass (0 in the table) and takes only mosm/kg, so its conversion is the
+ * identity; in one call EVA would merge its table row with the others'
+ * and divide by that 0 for mg/dL. */
 void drv_convert(void)
 {
     double out;
-    (void)ntr_convert(I(-1, 12), D(0.0, 1.0e6), I(-1, 20), I(-1, 20), &out);
+    (void)ntr_convert(I(-1, 8), D(0.0, 1.0e6), I(-1, 20), I(-1, 20), &out);
+    (void)ntr_convert(NTR_ANALYTE_OSMOLALITY, D(0.0, 1.0e6), I(-1, 20), I(-1, 20), &out);
+    (void)ntr_convert(I(10, 12), D(0.0, 1.0e6), I(-1, 20), I(-1, 20), &out);
 }
 
 void drv_unit_parse(void)
