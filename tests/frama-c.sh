@@ -91,7 +91,11 @@ for d in "${drivers[@]}"; do
     sort -u >"$work/$d.alarms"
   while read -r line; do
     echo "    $line"
-    echo "  - \`${d#drv_}\` ${line//\`/}" >>"$report"
+    # In a code span, with each backslash doubled: EVA writes ACSL such as
+    # \initialized, which Doxygen would otherwise read as a command.
+    md=${line//\`/}
+    md=${md//\\/\\\\}
+    echo "  - \`${d#drv_}\` \`$md\`" >>"$report"
   done <"$work/$d.alarms"
 done
 elapsed=$((SECONDS - start))
