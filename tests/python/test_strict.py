@@ -45,6 +45,25 @@ WATSON_MAN = 2.447 - 0.09516 * 40 + 0.1074 * 175 + 0.3362 * 75
 
 
 class RangesAsApi(unittest.TestCase):
+    def test_docstring_ranges_are_the_library_ranges(self):
+        # The numpy-style docstrings state each argument's accepted range
+        # in words; the numbers are the library's (ntr_input_range), shown
+        # with %g, so a range changed in lib/ntr_internal.h fails here
+        # instead of leaving the docs behind.
+        stated = re.compile(r"accepted\s+(\S+)\s+to\s+(\S+)[^()]*?\(NTR_INPUT_([A-Z_0-9]+)\)")
+        checked = 0
+        for module in (ntr, arrays):
+            for name, obj in vars(module).items():
+                if not callable(obj) or not obj.__doc__:
+                    continue
+                for m in stated.finditer(obj.__doc__):
+                    r = ntr.input_range(m.group(3).lower())
+                    self.assertEqual((m.group(1), m.group(2)),
+                                     (f"{r.min:g}", f"{r.max:g}"),
+                                     f"{module.__name__}.{name}: {m.group(0)}")
+                    checked += 1
+        self.assertGreater(checked, 100)
+
     def test_kinds_match_the_header(self):
         with open(HEADER, encoding="utf-8") as f:
             header = dict(re.findall(r"#define NTR_INPUT_(\w+) (\d+)", f.read()))
