@@ -6,9 +6,23 @@
 // test (tests/js/check_page.py) can compare it with the C library.
 import { load } from '../../bindings/js/natremia.mjs';
 
-const n = await load();
+// A failure to load is shown on the page (and marks it finished), like a
+// failure to compute below: a blank page must never look like a quiet one.
+function showFailure(what, err) {
+  document.body.dataset.ready = 'error';
+  document.querySelector('#error').textContent = `The page could not ${what}: ${err.message}`;
+}
+
+let n;
+let scenario;
+try {
+  n = await load();
+  scenario = await (await fetch(new URL('./scenario.json', import.meta.url))).json();
+} catch (err) {
+  showFailure('load the library or its scenario', err);
+  throw err;
+}
 const C = n.constants;
-const scenario = await (await fetch(new URL('./scenario.json', import.meta.url))).json();
 
 const TRI = { yes: C.NTR_TRI_YES, no: C.NTR_TRI_NO, unknown: C.NTR_TRI_UNKNOWN };
 const SEX = { female: C.NTR_SEX_FEMALE, male: C.NTR_SEX_MALE };
@@ -223,7 +237,6 @@ function main() {
 try {
   main();
 } catch (err) {
-  document.body.dataset.ready = 'error';
-  $('#error').textContent = `The page could not compute: ${err.message}`;
+  showFailure('compute', err);
   throw err;
 }

@@ -17,16 +17,20 @@ the page. A screenshot is saved as BUILDDIR/web/web-page.png.
 Exits 77 (skipped) only when chromium or clang is not installed.
 """
 
+import base64
+import fcntl
 import functools
 import html.parser
 import http.server
 import json
 import os
+import select
 import shutil
 import subprocess
 import sys
 import tempfile
 import threading
+import time
 
 root, build = sys.argv[1], sys.argv[2]
 sys.path.insert(0, os.path.join(root, "bindings", "python"))
@@ -98,12 +102,108 @@ class Cells(html.parser.HTMLParser):
             self.text[-1] += data
 
 
-def chromium(args, profile):
+def chromium_page(url, profile, start_server, width=1240, height=1800, timeout_s=90.0):
+    """Open url in headless Chromium, wait until the page says it finished,
+    and return (serialised DOM, PNG bytes, console lines).
+
+    Driven over the DevTools protocol on a pipe (--remote-debugging-pipe:
+    Chromium reads JSON commands on fd 3 and answers on fd 4, each message
+    ending in a NUL byte), so the wait is for the page's own signal
+    (body data-ready set to '1' or 'error') in real time. A virtual-time
+    budget is not used: WebAssembly compiles off the page's clock, so the
+    budget may run out before the module is ready (a CI run once read the
+    page unfinished, with no numbers). start_server() is called once
+    Chromium is started: the fork happens before any thread exists."""
+    to_chrome_r, to_chrome_w = os.pipe()
+    from_chrome_r, from_chrome_w = os.pipe()
     cmd = [CHROMIUM, "--headless", "--no-sandbox", "--disable-gpu",
            "--no-first-run", "--disable-extensions", "--disable-background-networking",
            "--disable-component-update", "--disable-sync", "--user-data-dir=" + profile,
-           "--virtual-time-budget=15000"] + args
-    return subprocess.run(cmd, check=True, capture_output=True, text=True, timeout=120)
+           "--hide-scrollbars", "--remote-debugging-pipe", "about:blank"]
+
+    def child_fds():
+        # Move both ends above 9 first, so neither is overwritten by the other.
+        high_r = fcntl.fcntl(to_chrome_r, fcntl.F_DUPFD, 10)
+        high_w = fcntl.fcntl(from_chrome_w, fcntl.F_DUPFD, 10)
+        os.dup2(high_r, 3)
+        os.dup2(high_w, 4)
+
+    proc = subprocess.Popen(cmd, stdin=subprocess.DEVNULL, stdout=subprocess.DEVNULL,
+                            stderr=subprocess.DEVNULL, pass_fds=(3, 4), preexec_fn=child_fds)
+    start_server()
+    os.close(to_chrome_r)
+    os.close(from_chrome_w)
+    writer = os.fdopen(to_chrome_w, "wb", buffering=0)
+    reader = os.fdopen(from_chrome_r, "rb", buffering=0)
+    deadline = time.monotonic() + timeout_s
+    pending = b""
+    console = []
+    ids = iter(range(1, 1 << 30))
+
+    def read_message():
+        nonlocal pending
+        while b"\0" not in pending:
+            left = deadline - time.monotonic()
+            if left <= 0 or not select.select([reader], [], [], left)[0]:
+                raise TimeoutError("Chromium did not answer within %.0f s" % timeout_s)
+            chunk = reader.read(65536)
+            if not chunk:
+                raise RuntimeError("Chromium closed the pipe")
+            pending += chunk
+        raw, pending = pending.split(b"\0", 1)
+        return json.loads(raw)
+
+    def call(method, session=None, **params):
+        mid = next(ids)
+        msg = {"id": mid, "method": method, "params": params}
+        if session:
+            msg["sessionId"] = session
+        writer.write(json.dumps(msg).encode() + b"\0")
+        while True:
+            m = read_message()
+            if m.get("method") == "Runtime.consoleAPICalled":
+                console.append(" ".join(str(a.get("value", a.get("description", "")))
+                                        for a in m["params"].get("args", [])))
+            elif m.get("method") == "Runtime.exceptionThrown":
+                d = m["params"]["exceptionDetails"]
+                console.append("exception: %s" % d.get("exception", {}).get("description", d.get("text")))
+            if m.get("id") == mid:
+                if "error" in m:
+                    raise RuntimeError("%s: %s" % (method, m["error"]))
+                return m.get("result", {})
+
+    try:
+        target = call("Target.createTarget", url="about:blank")["targetId"]
+        session = call("Target.attachToTarget", targetId=target, flatten=True)["sessionId"]
+        call("Runtime.enable", session)
+        call("Page.enable", session)
+        call("Emulation.setDeviceMetricsOverride", session, width=width, height=height,
+             deviceScaleFactor=1, mobile=False)
+        call("Page.navigate", session, url=url)
+        state = None
+        while time.monotonic() < deadline:
+            state = call("Runtime.evaluate", session, returnByValue=True,
+                         expression="document.body ? document.body.dataset.ready || '' : ''")
+            state = state.get("result", {}).get("value")
+            if state in ("1", "error"):
+                break
+            time.sleep(0.1)
+        dom = call("Runtime.evaluate", session, returnByValue=True,
+                   expression="'<!DOCTYPE html>' + document.documentElement.outerHTML")["result"]["value"]
+        shot = base64.b64decode(call("Page.captureScreenshot", session, format="png")["data"])
+        try:
+            call("Browser.close")
+        except (RuntimeError, TimeoutError):
+            pass
+        return dom, shot, console
+    finally:
+        writer.close()
+        reader.close()
+        try:
+            proc.wait(timeout=15)
+        except subprocess.TimeoutExpired:
+            proc.kill()
+            proc.wait()
 
 
 def expected(sc):
@@ -179,17 +279,22 @@ def main():
         stage(site)
         handler = functools.partial(Quiet, directory=site)
         server = http.server.ThreadingHTTPServer(("127.0.0.1", 0), handler)
-        threading.Thread(target=server.serve_forever, daemon=True).start()
         url = "http://127.0.0.1:%d/examples/web/index.html" % server.server_address[1]
+        shot = os.path.join(out_dir, "web-page.png")
+        if os.path.exists(shot):
+            os.remove(shot)
+
+        def start_server():
+            threading.Thread(target=server.serve_forever, daemon=True).start()
+
         try:
-            dom = chromium(["--dump-dom", url], os.path.join(tmp, "p1")).stdout
-            shot = os.path.join(out_dir, "web-page.png")
-            if os.path.exists(shot):
-                os.remove(shot)
-            chromium(["--hide-scrollbars", "--window-size=1240,1800",
-                      "--screenshot=" + shot, url], os.path.join(tmp, "p2"))
+            dom, png, console = chromium_page(url, os.path.join(tmp, "profile"), start_server)
         finally:
             server.shutdown()
+        with open(shot, "wb") as f:
+            f.write(png)
+        for line in console:
+            print("page console: %s" % line)
         parser = Cells()
         parser.feed(dom)
         failures = []
