@@ -1084,7 +1084,8 @@ static inline unsigned int first_within(const ntr_sample *e, const struct ring_p
             return lo;
         }
     }
-    return lo < hi ? gallop_within(e, p, lo, hi, t, w) : hi;
+    /* lo - 1 was the last walked, and failed (lo < hi: the walk ran). */
+    return lo < hi ? gallop_within(e, p, lo - 1u, hi, t, w) : hi;
 }
 
 /* The first offset in [lo, hi) whose sodium is at least na (hi when
