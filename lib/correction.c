@@ -1015,19 +1015,31 @@ static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, dou
            before.na_mmol_l <= (sign > 0.0 ? NTR_NA_MAX : -NTR_NA_MIN);
 }
 
-/* The course watcher's spans of the kept entries: 0 up to the widest
- * change the sodium range allows. */
-static int spans_sound(const float *span, const struct ring_pos *p)
+/* Spans [from, to) of the ring array: 0 up to the widest change the
+ * sodium range allows. Compared as floats: 0 and 140 are floats exactly,
+ * so each test equals change_sound() of the span widened to double. */
+static int stretch_spans_sound(const float *span, unsigned int from, unsigned int to)
 {
-    unsigned int i = p->head;
+    const float widest = (float)(NTR_NA_MAX - NTR_NA_MIN);
     unsigned int k;
-    for (k = 0u; k < p->kept; k++) {
-        if (!change_sound((double)span[i])) {
+    for (k = from; k < to; k++) {
+        if (!(span[k] >= 0.0f && span[k] <= widest)) {
             return 0;
         }
-        i = i + 1u == p->cap ? 0u : i + 1u;
     }
     return 1;
+}
+
+/* The course watcher's spans of the kept entries, as the two contiguous
+ * stretches of the ring. */
+static int spans_sound(const float *span, const struct ring_pos *p)
+{
+    const unsigned int end = p->head + p->kept;
+    if (end <= p->cap) {
+        return stretch_spans_sound(span, p->head, end);
+    }
+    return stretch_spans_sound(span, p->head, p->cap) &&
+           stretch_spans_sound(span, 0u, end - p->cap);
 }
 
 /*
@@ -1172,21 +1184,47 @@ static void ring_drop(struct ring_pos *p, unsigned int drop_front, unsigned int 
  * the pair, never enter a result). Fronts keep pointing at the first entry
  * inside their window.
  */
+/* The pairs whose second entry is at ring index from .. to - 1 (one
+ * contiguous stretch): merged span (m2 + span2) - m1, m1 the sodium before
+ * (carried in *before); keeps the smallest, the first on ties, as the ring
+ * index of its second entry. */
+static void scan_pairs(const ntr_sample *e, const float *span, unsigned int from,
+                       unsigned int to, double *before, double *best_span,
+                       unsigned int *best_second)
+{
+    double m1 = *before;
+    double smallest = *best_span;
+    unsigned int at = *best_second;
+    unsigned int i;
+    for (i = from; i < to; i++) {
+        const double merged = e[i].na_mmol_l + (double)span[i] - m1;
+        if (merged < smallest) {
+            smallest = merged;
+            at = i;
+        }
+        m1 = e[i].na_mmol_l;
+    }
+    *before = m1;
+    *best_span = smallest;
+    *best_second = at;
+}
+
 static void ring_compact(ntr_sample *e, float *span, struct ring_pos *p)
 {
-    unsigned int best = 0u;
+    const unsigned int end = p->head + p->kept;
     double best_span = HUGE_VAL;
-    unsigned int a = p->head; /* ring index of offset k */
+    double before = e[p->head].na_mmol_l;
+    unsigned int second = p->head + 1u; /* ring index of the best pair's second */
+    unsigned int best;
     unsigned int k;
-    for (k = 0u; k + 1u < p->kept; k++) {
-        const unsigned int b = a + 1u == p->cap ? 0u : a + 1u;
-        double merged = e[b].na_mmol_l + (double)span[b] - e[a].na_mmol_l;
-        if (merged < best_span) {
-            best_span = merged;
-            best = k;
-        }
-        a = b;
+    if (end <= p->cap) {
+        scan_pairs(e, span, p->head + 1u, end, &before, &best_span, &second);
+    } else {
+        scan_pairs(e, span, p->head + 1u, p->cap, &before, &best_span, &second);
+        scan_pairs(e, span, 0u, end - p->cap, &before, &best_span, &second);
     }
+    /* Offset of the pair's first entry. */
+    best = (second >= p->head ? second - p->head : second + p->cap - p->head) - 1u;
     /* The merged entry (later time, lower sodium) takes one slot of the
      * pair; the entries on the shorter side of it move up by one slot, so
      * a compaction moves at most (kept - 2) / 2 entries. */
