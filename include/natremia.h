@@ -2992,9 +2992,10 @@ NTR_API NTR_MUST_CHECK int ntr_course_watch_init(const ntr_course_limits *lim, n
  * as for ntr_watch_push(), and a push into a full direction compacts it:
  * one pass over the k - 1 adjacent pairs to choose the merge, then at
  * most (k - 2) / 2 candidates moved (the shorter side of the merge). So a
- * single push costs at most about 2 (a k + b log2(k) + c + d k)
- * instructions, and at most the compaction's d k more than a steady push
- * with as many candidates (tests/bench/notes.md); no allocation.
+ * single push costs at most about a k + b log2(k) + c instructions per
+ * direction, plus d k in a direction that compacts: no push costs more
+ * than a steady push with as many candidates plus O(log k) and one
+ * compaction (tests/bench/notes.md, "Worst single push"); no allocation.
  *
  * @param w         a state from ntr_course_watch_init() (updated on success only).
  * @param hours     time of the result, -1e6 to 1e6, not before the last one.
