@@ -1096,14 +1096,14 @@ static unsigned int gallop_within(const ntr_sample *e, const struct ring_pos *p,
 static inline unsigned int first_within(const ntr_sample *e, const struct ring_pos *p,
                                  unsigned int lo, unsigned int hi, double t, double w)
 {
-    const unsigned int walk_end = hi - lo > WALK_STEPS ? lo + WALK_STEPS : hi;
-    for (; lo < walk_end; lo++) {
-        if (within(ring_get(e, p, lo)->hours, t, w)) {
-            return lo;
+    const unsigned int stop = lo + WALK_STEPS; /* lo <= the capacity: no overflow */
+    while (lo < hi && !within(ring_get(e, p, lo)->hours, t, w)) {
+        lo++;
+        if (lo == stop && lo < hi) {
+            return gallop_within(e, p, lo - 1u, hi, t, w); /* it failed at lo - 1 */
         }
     }
-    /* lo - 1 was the last walked, and failed (lo < hi: the walk ran). */
-    return lo < hi ? gallop_within(e, p, lo - 1u, hi, t, w) : hi;
+    return lo;
 }
 
 /* The first offset in [lo, hi) whose sodium is at least na (hi when
@@ -1138,13 +1138,14 @@ static unsigned int gallop_not_lower(const ntr_sample *e, const struct ring_pos 
 static inline unsigned int first_not_lower(const ntr_sample *e, const struct ring_pos *p,
                                            unsigned int lo, unsigned int hi, double na)
 {
-    const unsigned int walk_end = hi - lo > WALK_STEPS ? hi - WALK_STEPS : lo;
-    for (; hi > walk_end; hi--) {
-        if (ring_get(e, p, hi - 1u)->na_mmol_l < na) {
-            return hi;
+    const unsigned int stop = hi - WALK_STEPS; /* below 0 it wraps: then never met */
+    while (hi > lo && ring_get(e, p, hi - 1u)->na_mmol_l >= na) {
+        hi--;
+        if (hi == stop && hi > lo) {
+            return gallop_not_lower(e, p, lo, hi, na); /* it holds from hi on */
         }
     }
-    return hi > lo ? gallop_not_lower(e, p, lo, hi, na) : lo;
+    return hi;
 }
 
 /* How many entries a new sample pushes out: from the front, those no
