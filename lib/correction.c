@@ -960,20 +960,6 @@ static int change_sound(double x)
     return x >= 0.0 && x <= NTR_NA_MAX - NTR_NA_MIN;
 }
 
-/*
- * Every kept entry, in one walk from the oldest. Each push keeps a ring in
- * order: times never decrease (results come in time order; a merge keeps
- * the later time of its pair) and sodium strictly increases (a new sample
- * pushes out every entry not lower than it; a merge keeps the lower
- * sodium). So a ring is sound when the oldest entry is at or above the
- * lower ends of the ranges, each entry is in order after the one before,
- * and the newest is at or below the upper ends: one ordered comparison per
- * entry and number (each false for NaN) proves every entry finite and in
- * range, and proves the order the searches below rely on (issue 16). A
- * ring out of order cannot come from pushes and is refused as damaged.
- * `sign` +1 reads the series, -1 its mirror image (stored negated).
- */
-
 /* Entries [from, to) of the ring array, each in order after *before (the
  * last of them returned in *before). */
 static int stretch_in_order(const ntr_sample *e, unsigned int from, unsigned int to,
@@ -994,6 +980,19 @@ static int stretch_in_order(const ntr_sample *e, unsigned int from, unsigned int
     return 1;
 }
 
+/*
+ * Every kept entry, in one walk from the oldest. Each push keeps a ring in
+ * order: times never decrease (results come in time order; a merge keeps
+ * the later time of its pair) and sodium strictly increases (a new sample
+ * pushes out every entry not lower than it; a merge keeps the lower
+ * sodium). So a ring is sound when the oldest entry is at or above the
+ * lower ends of the ranges, each entry is in order after the one before,
+ * and the newest is at or below the upper ends: one ordered comparison per
+ * entry and number (each false for NaN) proves every entry finite and in
+ * range, and proves the order the searches below rely on (issue 16). A
+ * ring out of order cannot come from pushes and is refused as damaged.
+ * `sign` +1 reads the series, -1 its mirror image (stored negated).
+ */
 static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, double sign)
 {
     const unsigned int end = p->head + p->kept;
@@ -1006,8 +1005,8 @@ static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, dou
           before.na_mmol_l >= (sign > 0.0 ? NTR_NA_MIN : -NTR_NA_MAX))) {
         return 0;
     }
-    /* The oldest entry is compared with itself only for its sodium: start
-     * the chain just below it. */
+    /* The walk starts by comparing the oldest entry with itself: its time
+     * passes (equal), and its sodium passes against -infinity. */
     before.na_mmol_l = -HUGE_VAL;
     if (end <= p->cap) {
         if (!stretch_in_order(e, p->head, end, &before)) {
@@ -1092,7 +1091,7 @@ static unsigned int gallop_within(const ntr_sample *e, const struct ring_pos *p,
 }
 
 /* The first offset in [lo, hi) within w before t (hi when none). Inline
- * (a hint), so the walk costs what the plain loops it replaced did. */
+ * (a hint), so the walk stays close to the plain loops it replaced. */
 static inline unsigned int first_within(const ntr_sample *e, const struct ring_pos *p,
                                  unsigned int lo, unsigned int hi, double t, double w)
 {
@@ -1179,18 +1178,6 @@ static void ring_drop(struct ring_pos *p, unsigned int drop_front, unsigned int 
     }
 }
 
-/*
- * Makes room for one entry (kept >= 2): merges an adjacent pair into one
- * entry with the later time and the lower sodium. A window that holds the
- * later time then sees a minimum no higher than its true one (the true
- * minimum lies at or after the merged pair's first entry, and the ring
- * increases), so no rise is under-reported. An entry stands for a group of
- * original samples; span[] holds, per entry, its highest original sodium
- * minus its stored one: the most it can over-report by. The pair merged is
- * the one whose merged span is smallest (spans are float: they only choose
- * the pair, never enter a result). Fronts keep pointing at the first entry
- * inside their window.
- */
 /* The pairs whose second entry is at ring index from .. to - 1 (one
  * contiguous stretch): merged span (m2 + span2) - m1, m1 the sodium before
  * (carried in *before); keeps the smallest, the first on ties, as the ring
@@ -1216,6 +1203,18 @@ static void scan_pairs(const ntr_sample *e, const float *span, unsigned int from
     *best_second = at;
 }
 
+/*
+ * Makes room for one entry (kept >= 2): merges an adjacent pair into one
+ * entry with the later time and the lower sodium. A window that holds the
+ * later time then sees a minimum no higher than its true one (the true
+ * minimum lies at or after the merged pair's first entry, and the ring
+ * increases), so no rise is under-reported. An entry stands for a group of
+ * original samples; span[] holds, per entry, its highest original sodium
+ * minus its stored one: the most it can over-report by. The pair merged is
+ * the one whose merged span is smallest (spans are float: they only choose
+ * the pair, never enter a result). Fronts keep pointing at the first entry
+ * inside their window.
+ */
 static void ring_compact(ntr_sample *e, float *span, struct ring_pos *p)
 {
     const unsigned int end = p->head + p->kept;
@@ -1313,7 +1312,7 @@ static void ring_direction(const ntr_sample *e, const struct ring_pos *p, int ha
         const ntr_sample next = projected_next(prev, last);
         /* The first entry inside the projected window is its minimum (none
          * inside: no rise). The projected windows start at or after the
-         * current ones, so the searches start at their fronts. */
+         * current ones, so the searches start at their fronts (0 for 48 h). */
         unsigned int k = first_within(e, p, 0u, p->kept, next.hours, WINDOW_48H);
         if (k < p->kept) {
             d->projected_48h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
