@@ -2620,8 +2620,17 @@ NTR_API NTR_MUST_CHECK int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  *
  * The assessment equals, field for field and bit for bit, what
  * ntr_correction_assess() returns for all the samples pushed so far.
- * Cost: O(1) amortised, plus at most O(NTR_WATCH_CAPACITY) for the
- * projection; no allocation.
+ * Cost (since 1.1, issue 16), with k the samples kept (k <= @ref
+ * NTR_WATCH_CAPACITY): the state check reads every kept sample once (one
+ * ordered comparison per number, O(k)); everything else is O(log k): the
+ * five window starts (the 48 h drop, the 24 h and 6 h fronts and the two
+ * projected windows) and the samples pushed out from the back are found
+ * by a walk of at most 4 steps, then galloping and bisection of the
+ * time-ordered ring, at most 4 + 2 log2(k) + 2 probes each. So a single
+ * push costs at most about a k + b log2(k) + c instructions, whatever it
+ * drops: no push costs more than a steady push with as many samples kept
+ * plus O(log k) (tests/bench/notes.md, "Worst single push"); no
+ * allocation.
  *
  * @param w         a state from ntr_watch_init() (updated on success only).
  * @param hours     time of the result, -1e6 to 1e6, not before the last one.
@@ -2631,7 +2640,8 @@ NTR_API NTR_MUST_CHECK int ntr_watch_init(const ntr_limits *lim, ntr_watch *w);
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       @p w was not initialised, or is damaged (an
  *         impossible count or index, or, since 1.1, a stored number that is
- *         NaN, infinite or out of its range).
+ *         NaN, infinite or out of its range, or kept samples out of the
+ *         order every push keeps: times not decreasing, sodium rising).
  * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours or
  *                           @p na_mmol_l.
  * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours
@@ -2976,8 +2986,16 @@ NTR_API NTR_MUST_CHECK int ntr_course_watch_init(const ntr_course_limits *lim, n
  * 72 h rising or falling 0.375-0.5 mmol/L/h, noisy and adversarial; on
  * random dense series at most 1.4 % of the exact 48 h change.
  *
- * Cost: O(1) amortised, plus at most O(@ref NTR_COURSE_WATCH_CAPACITY) for
- * the state check, the projection and a compaction; no allocation.
+ * Cost (issue 16), with k the candidates kept per direction (k <= @ref
+ * NTR_COURSE_WATCH_CAPACITY): per direction, the state check reads every
+ * candidate and span once (O(k)), the window starts are found in O(log k)
+ * as for ntr_watch_push(), and a push into a full direction compacts it:
+ * one pass over the k - 1 adjacent pairs to choose the merge, then at
+ * most (k - 2) / 2 candidates moved (the shorter side of the merge). So a
+ * single push costs at most about a k + b log2(k) + c instructions per
+ * direction, plus d k in a direction that compacts: no push costs more
+ * than a steady push with as many candidates plus O(log k) and one
+ * compaction (tests/bench/notes.md, "Worst single push"); no allocation.
  *
  * @param w         a state from ntr_course_watch_init() (updated on success only).
  * @param hours     time of the result, -1e6 to 1e6, not before the last one.
@@ -2988,7 +3006,8 @@ NTR_API NTR_MUST_CHECK int ntr_course_watch_init(const ntr_course_limits *lim, n
  * @retval NTR_ERR_NULL      @p w or @p out is NULL.
  * @retval NTR_ERR_ARG       out->struct_size below the 1.1 size, or @p w
  *         was not initialised or is damaged (an impossible count or index,
- *         or a stored number that is NaN, infinite or out of its range).
+ *         a stored number that is NaN, infinite or out of its range, or
+ *         candidates out of the order every push keeps).
  * @retval NTR_ERR_NONFINITE an input is NaN or infinite: @p hours or
  *                           @p na_mmol_l.
  * @retval NTR_ERR_RANGE     an input is outside its accepted range: @p hours

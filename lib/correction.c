@@ -893,6 +893,12 @@ int ntr_course_assess(const ntr_sample *s, size_t n, const ntr_course_limits *li
  * (or equal) one, which lies in every window the first one lies in, so no
  * minimum is lost. The course watcher's second ring holds the mirror image
  * (sodium negated), whose minima are the series' maxima: its falls.
+ *
+ * Cost of a push (issue 16), k entries kept: the state check reads each
+ * entry once (O(k): the header promises to refuse a state damaged
+ * anywhere, so no entry can be trusted from an earlier call); each window
+ * start and the back drop is a search of the ordered ring, O(log k); a
+ * compaction reads the k - 1 pairs and moves at most (k - 2) / 2 entries.
  */
 
 /* Where a ring's entries are, in whichever state holds them. */
@@ -954,26 +960,191 @@ static int change_sound(double x)
     return x >= 0.0 && x <= NTR_NA_MAX - NTR_NA_MIN;
 }
 
-static int stretch_sound(const ntr_sample *e, unsigned int from, unsigned int to,
-                         double sign)
+/* Entries [from, to) of the ring array, each in order after *before (the
+ * last of them returned in *before). */
+static int stretch_in_order(const ntr_sample *e, unsigned int from, unsigned int to,
+                            ntr_sample *before)
 {
+    double hours = before->hours;
+    double na = before->na_mmol_l;
     unsigned int k;
     for (k = from; k < to; k++) {
-        if (!sample_sound(e[k], sign)) {
+        if (!(e[k].hours >= hours && e[k].na_mmol_l > na)) {
+            return 0;
+        }
+        hours = e[k].hours;
+        na = e[k].na_mmol_l;
+    }
+    before->hours = hours;
+    before->na_mmol_l = na;
+    return 1;
+}
+
+/*
+ * Every kept entry, in one walk from the oldest. Each push keeps a ring in
+ * order: times never decrease (results come in time order; a merge keeps
+ * the later time of its pair) and sodium strictly increases (a new sample
+ * pushes out every entry not lower than it; a merge keeps the lower
+ * sodium). So a ring is sound when the oldest entry is at or above the
+ * lower ends of the ranges, each entry is in order after the one before,
+ * and the newest is at or below the upper ends: one ordered comparison per
+ * entry and number (each false for NaN) proves every entry finite and in
+ * range, and proves the order the searches below rely on (issue 16). A
+ * ring out of order cannot come from pushes and is refused as damaged.
+ * `sign` +1 reads the series, -1 its mirror image (stored negated).
+ */
+static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, double sign)
+{
+    const unsigned int end = p->head + p->kept;
+    ntr_sample before;
+    if (p->kept == 0u) {
+        return 1;
+    }
+    before = e[p->head];
+    if (!(before.hours >= -NTR_HOURS_MAX &&
+          before.na_mmol_l >= (sign > 0.0 ? NTR_NA_MIN : -NTR_NA_MAX))) {
+        return 0;
+    }
+    /* The walk starts by comparing the oldest entry with itself: its time
+     * passes (equal), and its sodium passes against -infinity. */
+    before.na_mmol_l = -HUGE_VAL;
+    if (end <= p->cap) {
+        if (!stretch_in_order(e, p->head, end, &before)) {
+            return 0;
+        }
+    } else if (!stretch_in_order(e, p->head, p->cap, &before) ||
+               !stretch_in_order(e, 0u, end - p->cap, &before)) {
+        return 0;
+    }
+    return before.hours <= NTR_HOURS_MAX &&
+           before.na_mmol_l <= (sign > 0.0 ? NTR_NA_MAX : -NTR_NA_MIN);
+}
+
+/* Spans [from, to) of the ring array: 0 up to the widest change the
+ * sodium range allows. Compared as floats: 0 and 140 are floats exactly,
+ * so each test equals change_sound() of the span widened to double. */
+static int stretch_spans_sound(const float *span, unsigned int from, unsigned int to)
+{
+    const float widest = (float)(NTR_NA_MAX - NTR_NA_MIN);
+    unsigned int k;
+    for (k = from; k < to; k++) {
+        if (!(span[k] >= 0.0f && span[k] <= widest)) {
             return 0;
         }
     }
     return 1;
 }
 
-/* Every kept entry, as the two contiguous stretches of the ring. */
-static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, double sign)
+/* The course watcher's spans of the kept entries, as the two contiguous
+ * stretches of the ring. */
+static int spans_sound(const float *span, const struct ring_pos *p)
 {
     const unsigned int end = p->head + p->kept;
     if (end <= p->cap) {
-        return stretch_sound(e, p->head, end, sign);
+        return stretch_spans_sound(span, p->head, end);
     }
-    return stretch_sound(e, p->head, p->cap, sign) && stretch_sound(e, 0u, end - p->cap, sign);
+    return stretch_spans_sound(span, p->head, p->cap) &&
+           stretch_spans_sound(span, 0u, end - p->cap);
+}
+
+/*
+ * Searches of a ring in order (ring_numbers_sound). "Within w before time
+ * t" fails for the entries before some offset and holds from it on (t -
+ * hours never increases along the ring, as IEEE subtraction is monotone
+ * in each operand), and so does "sodium at least x" (sodium strictly
+ * increases). A walk one entry at a time finds that offset in d + 1 steps,
+ * d its distance from where the walk starts; galloping (probes at d = 0,
+ * 1, 3, 7, ..., then bisection of the last step) finds the same offset in
+ * at most 2 log2(d + 1) + 2 probes, and in one when d = 0, the common case
+ * of a steady push.
+ */
+
+/* Probes a search makes one entry at a time before it gallops: a steady
+ * push moves each window start by a step or two, and a plain step costs
+ * less than a galloping one. */
+#define WALK_STEPS 4u
+
+/* The first offset in [lo, hi) within w before t (hi when none), given
+ * that "within" fails at lo (galloping, then bisection). */
+static unsigned int gallop_within(const ntr_sample *e, const struct ring_pos *p,
+                                  unsigned int lo, unsigned int hi, double t, double w)
+{
+    unsigned int step = 1u;
+    unsigned int failed = lo; /* "within" fails here and before */
+    while (hi - failed > step && !within(ring_get(e, p, failed + step)->hours, t, w)) {
+        failed += step;
+        step *= 2u;
+    }
+    lo = failed + 1u;
+    if (hi - failed > step) {
+        hi = failed + step; /* holds there */
+    }
+    while (lo < hi) {
+        const unsigned int mid = lo + (hi - lo) / 2u;
+        if (within(ring_get(e, p, mid)->hours, t, w)) {
+            hi = mid;
+        } else {
+            lo = mid + 1u;
+        }
+    }
+    return lo;
+}
+
+/* The first offset in [lo, hi) within w before t (hi when none). Inline
+ * (a hint), so the walk stays close to the plain loops it replaced. */
+static inline unsigned int first_within(const ntr_sample *e, const struct ring_pos *p,
+                                 unsigned int lo, unsigned int hi, double t, double w)
+{
+    const unsigned int stop = lo + WALK_STEPS; /* lo <= the capacity: no overflow */
+    while (lo < hi && !within(ring_get(e, p, lo)->hours, t, w)) {
+        lo++;
+        if (lo == stop && lo < hi) {
+            return gallop_within(e, p, lo - 1u, hi, t, w); /* it failed at lo - 1 */
+        }
+    }
+    return lo;
+}
+
+/* The first offset in [lo, hi) whose sodium is at least na (hi when
+ * none), given that it holds from hi on: galloping backward, then
+ * bisection. */
+static unsigned int gallop_not_lower(const ntr_sample *e, const struct ring_pos *p,
+                                     unsigned int lo, unsigned int hi, double na)
+{
+    unsigned int step = 1u;
+    unsigned int held = hi; /* the test holds from here on */
+    while (held - lo >= step && ring_get(e, p, held - step)->na_mmol_l >= na) {
+        held -= step;
+        step *= 2u;
+    }
+    if (held - lo >= step) {
+        lo = held - step + 1u; /* fails at held - step */
+    }
+    while (lo < held) {
+        const unsigned int mid = lo + (held - lo) / 2u;
+        if (ring_get(e, p, mid)->na_mmol_l >= na) {
+            held = mid;
+        } else {
+            lo = mid + 1u;
+        }
+    }
+    return held;
+}
+
+/* The first offset in [lo, hi) whose sodium is at least na (hi when
+ * none), walking back from hi - 1: the entries a new sample pushes out
+ * from the back. */
+static inline unsigned int first_not_lower(const ntr_sample *e, const struct ring_pos *p,
+                                           unsigned int lo, unsigned int hi, double na)
+{
+    const unsigned int stop = hi - WALK_STEPS; /* below 0 it wraps: then never met */
+    while (hi > lo && ring_get(e, p, hi - 1u)->na_mmol_l >= na) {
+        hi--;
+        if (hi == stop && hi > lo) {
+            return gallop_not_lower(e, p, lo, hi, na); /* it holds from hi on */
+        }
+    }
+    return hi;
 }
 
 /* How many entries a new sample pushes out: from the front, those no
@@ -981,16 +1152,9 @@ static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, dou
 static void ring_drops(const ntr_sample *e, const struct ring_pos *p, ntr_sample s,
                        unsigned int *drop_front, unsigned int *drop_back)
 {
-    unsigned int f = 0u;
-    unsigned int b = 0u;
-    while (f < p->kept && !within(ring_get(e, p, f)->hours, s.hours, WINDOW_48H)) {
-        f++;
-    }
-    while (f + b < p->kept && ring_get(e, p, p->kept - 1u - b)->na_mmol_l >= s.na_mmol_l) {
-        b++;
-    }
+    const unsigned int f = first_within(e, p, 0u, p->kept, s.hours, WINDOW_48H);
     *drop_front = f;
-    *drop_back = b;
+    *drop_back = p->kept - first_not_lower(e, p, f, p->kept, s.na_mmol_l);
 }
 
 static unsigned int front_after(unsigned int front, unsigned int dropped)
@@ -1014,6 +1178,31 @@ static void ring_drop(struct ring_pos *p, unsigned int drop_front, unsigned int 
     }
 }
 
+/* The pairs whose second entry is at ring index from .. to - 1 (one
+ * contiguous stretch): merged span (m2 + span2) - m1, m1 the sodium before
+ * (carried in *before); keeps the smallest, the first on ties, as the ring
+ * index of its second entry. */
+static void scan_pairs(const ntr_sample *e, const float *span, unsigned int from,
+                       unsigned int to, double *before, double *best_span,
+                       unsigned int *best_second)
+{
+    double m1 = *before;
+    double smallest = *best_span;
+    unsigned int at = *best_second;
+    unsigned int i;
+    for (i = from; i < to; i++) {
+        const double merged = e[i].na_mmol_l + (double)span[i] - m1;
+        if (merged < smallest) {
+            smallest = merged;
+            at = i;
+        }
+        m1 = e[i].na_mmol_l;
+    }
+    *before = m1;
+    *best_span = smallest;
+    *best_second = at;
+}
+
 /*
  * Makes room for one entry (kept >= 2): merges an adjacent pair into one
  * entry with the later time and the lower sodium. A window that holds the
@@ -1028,24 +1217,44 @@ static void ring_drop(struct ring_pos *p, unsigned int drop_front, unsigned int 
  */
 static void ring_compact(ntr_sample *e, float *span, struct ring_pos *p)
 {
-    unsigned int best = 0u;
+    const unsigned int end = p->head + p->kept;
     double best_span = HUGE_VAL;
+    double before = e[p->head].na_mmol_l;
+    unsigned int second = p->head + 1u; /* ring index of the best pair's second */
+    unsigned int best;
     unsigned int k;
-    for (k = 0u; k + 1u < p->kept; k++) {
-        const unsigned int b = ring_index(p, k + 1u);
-        double merged = e[b].na_mmol_l + (double)span[b] - ring_get(e, p, k)->na_mmol_l;
-        if (merged < best_span) {
-            best_span = merged;
-            best = k;
-        }
+    if (end <= p->cap) {
+        scan_pairs(e, span, p->head + 1u, end, &before, &best_span, &second);
+    } else {
+        scan_pairs(e, span, p->head + 1u, p->cap, &before, &best_span, &second);
+        scan_pairs(e, span, 0u, end - p->cap, &before, &best_span, &second);
     }
-    e[ring_index(p, best)].hours = ring_get(e, p, best + 1u)->hours;
-    span[ring_index(p, best)] = (float)best_span;
-    for (k = best + 1u; k + 1u < p->kept; k++) {
-        const unsigned int to = ring_index(p, k);
-        const unsigned int from = ring_index(p, k + 1u);
-        e[to] = e[from];
-        span[to] = span[from];
+    /* Offset of the pair's first entry. */
+    best = (second >= p->head ? second - p->head : second + p->cap - p->head) - 1u;
+    /* The merged entry (later time, lower sodium) takes one slot of the
+     * pair; the entries on the shorter side of it move up by one slot, so
+     * a compaction moves at most (kept - 2) / 2 entries. */
+    if (best <= p->kept - 2u - best) {
+        const unsigned int to = ring_index(p, best + 1u);
+        e[to].na_mmol_l = ring_get(e, p, best)->na_mmol_l;
+        span[to] = (float)best_span;
+        for (k = best; k > 0u; k--) {
+            const unsigned int dst = ring_index(p, k);
+            const unsigned int src = ring_index(p, k - 1u);
+            e[dst] = e[src];
+            span[dst] = span[src];
+        }
+        p->head = ring_index(p, 1u);
+    } else {
+        const unsigned int to = ring_index(p, best);
+        e[to].hours = ring_get(e, p, best + 1u)->hours;
+        span[to] = (float)best_span;
+        for (k = best + 1u; k + 1u < p->kept; k++) {
+            const unsigned int dst = ring_index(p, k);
+            const unsigned int src = ring_index(p, k + 1u);
+            e[dst] = e[src];
+            span[dst] = span[src];
+        }
     }
     p->kept--;
     if (p->front24 > best) {
@@ -1062,15 +1271,12 @@ static void ring_insert(ntr_sample *e, struct ring_pos *p, ntr_sample s)
 {
     e[ring_index(p, p->kept)] = s;
     p->kept++;
-    while (!within(ring_get(e, p, p->front24)->hours, s.hours, WINDOW_24H)) {
-        p->front24++;
-    }
+    /* The new entry is inside both windows, so each front stays below kept. */
+    p->front24 = first_within(e, p, p->front24, p->kept, s.hours, WINDOW_24H);
     if (p->front6 < p->front24) {
         p->front6 = p->front24;
     }
-    while (!within(ring_get(e, p, p->front6)->hours, s.hours, WINDOW_6H)) {
-        p->front6++;
-    }
+    p->front6 = first_within(e, p, p->front6, p->kept, s.hours, WINDOW_6H);
 }
 
 /* The largest rises so far, with the window ending at the new sample s
@@ -1104,19 +1310,16 @@ static void ring_direction(const ntr_sample *e, const struct ring_pos *p, int ha
     d->projected_48h = 0.0;
     if (d->moving) {
         const ntr_sample next = projected_next(prev, last);
-        unsigned int k;
-        /* The first entry inside the projected window is its minimum. */
-        for (k = 0u; k < p->kept; k++) {
-            if (within(ring_get(e, p, k)->hours, next.hours, WINDOW_48H)) {
-                d->projected_48h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
-                break;
-            }
+        /* The first entry inside the projected window is its minimum (none
+         * inside: no rise). The projected windows start at or after the
+         * current ones, so the searches start at their fronts (0 for 48 h). */
+        unsigned int k = first_within(e, p, 0u, p->kept, next.hours, WINDOW_48H);
+        if (k < p->kept) {
+            d->projected_48h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
         }
-        for (k = p->front24; k < p->kept; k++) {
-            if (within(ring_get(e, p, k)->hours, next.hours, WINDOW_24H)) {
-                d->projected_24h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
-                break;
-            }
+        k = first_within(e, p, p->front24, p->kept, next.hours, WINDOW_24H);
+        if (k < p->kept) {
+            d->projected_24h = projected_rise(next.na_mmol_l, ring_get(e, p, k)->na_mmol_l);
         }
     }
 }
@@ -1358,18 +1561,6 @@ static int at_sound(double at)
     return at == NTR_COURSE_NO_TIME || time_sound(at);
 }
 
-/* A group's span: 0 up to the widest the sodium range allows. */
-static int spans_sound(const ntr_course_watch_ring *r, const struct ring_pos *p)
-{
-    unsigned int k;
-    for (k = 0u; k < p->kept; k++) {
-        if (!change_sound((double)r->span[ring_index(p, k)])) {
-            return 0;
-        }
-    }
-    return 1;
-}
-
 static int course_numbers_sound(const ntr_course_watch *w, const struct ring_pos *low,
                                 const struct ring_pos *high)
 {
@@ -1386,7 +1577,7 @@ static int course_numbers_sound(const ntr_course_watch *w, const struct ring_pos
            at_sound(w->at_fall_24h) && at_sound(w->at_fall_48h) &&
            ring_numbers_sound(w->low.entry, low, 1.0) &&
            ring_numbers_sound(w->high.entry, high, -1.0) &&
-           spans_sound(&w->low, low) && spans_sound(&w->high, high);
+           spans_sound(w->low.span, low) && spans_sound(w->high.span, high);
 }
 
 static int course_watch_sound(const ntr_course_watch *w)

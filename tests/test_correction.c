@@ -2121,6 +2121,285 @@ static void limits_and_sodium_at_their_edges(void **state)
     assert_int_equal(ntr_watch_push(&w, 0.0, 120.0, &c), NTR_ERR_ARG);
 }
 
+/* ---- issue 16: long streams, watcher against batch and against 1.0 ---------------- */
+
+/* Long invented streams (no patient) through both watchers, every push
+ * compared exactly. Segments of: dense rising or falling fills (every
+ * result a window-minimum candidate, so the rings fill, ntr_watch refuses
+ * with NTR_ERR_CAPACITY and the course watcher compacts); gaps of 30 to
+ * 120 h; steady results every 2 to 6 h; repeats, steps closer than the
+ * time tolerance and steps of exactly 6, 24 and 48 h plus the tolerance
+ * (the window ties); results out of time order; and invalid ones (NaN,
+ * infinite, out of range). Its own generator, so the other tests' random
+ * series stay as they were. */
+#define STREAM_MAX 1500
+#define STREAM_ROUNDS 6
+/* Recorded with commit 9469f72 (see the test below). */
+#define STREAM_DIGEST_1_0 0x5a4d4ded1e78a84au
+#define STREAM_DIGEST_1_1 0x8e89ba5abd5ff4eau
+
+static uint64_t stream_rng = 0x6a09e667f3bcc909u;
+static unsigned int stream_below(unsigned int n)
+{
+    stream_rng ^= stream_rng >> 12;
+    stream_rng ^= stream_rng << 25;
+    stream_rng ^= stream_rng >> 27;
+    return (unsigned int)((stream_rng * 0x2545f4914f6cdd1du) >> 33) % n;
+}
+
+/* The next result after (t, na) in segment `mode`; returns 1 for a result
+ * that must be refused (out of order or invalid). */
+static int stream_next(int mode, double *t, double *na, ntr_sample *out)
+{
+    const double edges[] = {NTR_CF_RAPID_WINDOW_H, 24.0, 48.0};
+    double nt = *t;
+    double nn = *na;
+    int bad = 0;
+    switch (mode) {
+    case 0: /* dense rise */
+        nt += 0.1 * (double)(1 + stream_below(5));
+        nn += 0.05 * (double)(1 + stream_below(2));
+        break;
+    case 1: /* dense fall */
+        nt += 0.1 * (double)(1 + stream_below(5));
+        nn -= 0.05 * (double)(1 + stream_below(2));
+        break;
+    case 2: /* gap */
+        nt += 30.0 + (double)stream_below(91);
+        nn += (double)((int)stream_below(121) - 60) / 10.0;
+        break;
+    case 3: /* steady, a saw tooth of tenths */
+        nt += 2.0 + (double)stream_below(5);
+        nn += (double)((int)stream_below(9) - 4) / 4.0;
+        break;
+    case 4: /* ties of time */
+        switch (stream_below(4)) {
+        case 0: break;
+        case 1: nt += 5e-7; break;
+        default: nt += edges[stream_below(3)] + NTR_CF_TIME_TOLERANCE_H * (double)stream_below(2); break;
+        }
+        nn += (double)((int)stream_below(41) - 20) / 10.0;
+        break;
+    case 5: /* out of time order */
+        nt -= 0.1 * (double)(1 + stream_below(30));
+        bad = 1;
+        break;
+    default: /* invalid numbers */
+        switch (stream_below(6)) {
+        case 0: nt = (double)NAN; break;
+        case 1: nn = (double)NAN; break;
+        case 2: nn = HUGE_VAL; break;
+        case 3: nn = 250.0; break;
+        case 4: nn = 60.0; break;
+        default: nt = 2e6; break;
+        }
+        bad = 1;
+        break;
+    }
+    if (!bad) {
+        nn = nn < 81.0 ? 81.0 : (nn > 219.0 ? 219.0 : nn);
+        *t = nt;
+        *na = nn;
+    }
+    out->hours = nt;
+    out->na_mmol_l = nn;
+    return bad;
+}
+
+/* A 64-bit FNV-1a digest of statuses and reports, number by number, each
+ * number's bits fed low byte first (the same on every byte order). */
+static uint64_t digest_bits(uint64_t h, uint64_t bits, int bytes)
+{
+    int i;
+    for (i = 0; i < bytes; i++) {
+        h = (h ^ ((bits >> (8 * i)) & 0xffu)) * 0x100000001b3u;
+    }
+    return h;
+}
+static uint64_t digest_double(uint64_t h, double x)
+{
+    uint64_t bits;
+    memcpy(&bits, &x, sizeof bits);
+    return digest_bits(h, bits, 8);
+}
+static uint64_t digest_uint(uint64_t h, unsigned int x) { return digest_bits(h, x, 4); }
+
+static uint64_t digest_correction(uint64_t h, int status, const ntr_correction *c)
+{
+    h = digest_uint(h, (unsigned int)status);
+    h = digest_double(h, c->rise_first_24h);
+    h = digest_double(h, c->max_rise_24h);
+    h = digest_double(h, c->max_rise_48h);
+    h = digest_double(h, c->last_rate_per_h);
+    h = digest_double(h, c->excess_mmol_l);
+    return digest_uint(h, c->flags);
+}
+
+static uint64_t digest_course(uint64_t h, int status, const ntr_course_report *r)
+{
+    const double x[] = {r->max_rise_24h, r->max_rise_48h, r->max_fall_24h, r->max_fall_48h,
+                        r->excess_mmol_l, r->rise_first_24h, r->fall_first_24h,
+                        r->rise_now_24h, r->fall_now_24h, r->last_rate_per_h,
+                        r->elapsed_h, r->worst_at_h};
+    size_t i;
+    h = digest_uint(h, (unsigned int)status);
+    for (i = 0; i < COUNT(x); i++) {
+        h = digest_double(h, x[i]);
+    }
+    return digest_uint(h, r->flags);
+}
+
+/* One stream through both watchers. Every push of ntr_watch equals
+ * ntr_correction_assess on the results accepted so far (an invalid or
+ * out-of-order result gets the status assess gives it, a full ring
+ * NTR_ERR_CAPACITY, and then the state and report are untouched); every
+ * course push equals ntr_course_assess while it has not compacted. The
+ * digests of all statuses and reports go to *d10 and *d11. */
+static void run_stream(ntr_sample *acc, ntr_sample *cacc, int long_fills, uint64_t *d10,
+                       uint64_t *d11, unsigned int *capacity_hits,
+                       unsigned int *approximate_pushes, unsigned int *exact_pushes)
+{
+    const ntr_limits lim = standard();
+    ntr_course_limits clim = course_preset(stream_below(2) ? NTR_COURSE_HYPO_STANDARD
+                                                           : NTR_COURSE_HOLD);
+    ntr_watch w, w_before;
+    ntr_course_watch cw;
+    size_t n = 0, cn = 0, k;
+    double t = -20.0 + (double)stream_below(400) / 10.0;
+    double na = 110.0 + (double)stream_below(300) / 10.0;
+    int mode = 0, left = 0;
+    assert_int_equal(ntr_watch_init(&lim, &w), NTR_OK);
+    assert_int_equal(ntr_course_watch_init(&clim, &cw), NTR_OK);
+    for (k = 0; k < STREAM_MAX; k++) {
+        ntr_sample s;
+        ntr_correction got = untouched(), want = untouched();
+        ntr_course_report cgot = course_untouched();
+        ntr_course_report cwant = course_untouched();
+        int bad, st, want_st, cwant_st;
+        if (left == 0) {
+            /* Long fills run long enough to fill either ring (48 h of
+             * 0.1-0.5 h steps); short ones and the other segments do not.
+             * The first result cannot be out of order. */
+            mode = k == 0 ? 0 : (int)stream_below(7);
+            left = mode <= 1 && long_fills ? 150 + (int)stream_below(300)
+                                           : 1 + (int)stream_below(12);
+        }
+        left--;
+        bad = stream_next(mode, &t, &na, &s);
+
+        /* The 1.0 watcher against the batch assessment. */
+        acc[n] = s;
+        want_st = ntr_correction_assess(acc, n + 1, &lim, &want);
+        memcpy(&w_before, &w, sizeof w);
+        st = ntr_watch_push(&w, s.hours, s.na_mmol_l, &got);
+        *d10 = digest_correction(*d10, st, &got);
+        if (want_st == NTR_OK && st == NTR_ERR_CAPACITY) {
+            (*capacity_hits)++;
+        } else {
+            assert_int_equal(st, want_st);
+        }
+        if (st == NTR_OK) {
+            assert_same(&got, &want);
+            n++;
+        } else {
+            assert_untouched(&got);
+            assert_memory_equal(&w, &w_before, sizeof w);
+        }
+
+        /* The course watcher against the batch course assessment. */
+        cacc[cn] = s;
+        cwant_st = ntr_course_assess(cacc, cn + 1, &clim, &cwant);
+        assert_int_equal(bad, cwant_st != NTR_OK); /* it accepts every valid result */
+        st = ntr_course_watch_push(&cw, s.hours, s.na_mmol_l, &cgot);
+        *d11 = digest_course(*d11, st, &cgot);
+        assert_int_equal(st, cwant_st);
+        if (st == NTR_OK) {
+            cn++;
+            if ((cgot.flags & NTR_CF_APPROXIMATE) == 0u) {
+                assert_same_course(&cgot, &cwant);
+                (*exact_pushes)++;
+            } else {
+                (*approximate_pushes)++;
+            }
+        } else {
+            assert_course_untouched(&cgot);
+        }
+    }
+}
+
+/* Issue 16: the watchers with galloping window searches, the ordered
+ * state check and the shorter-side compaction answer every push of long
+ * streams exactly as the batch engine does, and, where the batch engine
+ * cannot say (ntr_watch's capacity refusals, the course watcher once it
+ * has compacted), exactly as the watchers before issue 16 did: the
+ * digests below were recorded by this test with the library of commit
+ * 9469f72 (linear walks, entry-by-entry checks), and a change in any
+ * status, number or flag of any push changes them. */
+static void watchers_on_long_streams_equal_batch_and_1_0(void **state)
+{
+    static ntr_sample acc[STREAM_MAX];
+    static ntr_sample cacc[STREAM_MAX];
+    uint64_t d10 = 0xcbf29ce484222325u, d11 = 0xcbf29ce484222325u;
+    unsigned int capacity_hits = 0u, approximate_pushes = 0u, exact_pushes = 0u;
+    int round;
+    (void)state;
+    for (round = 0; round < STREAM_ROUNDS; round++) {
+        run_stream(acc, cacc, round % 2, &d10, &d11, &capacity_hits, &approximate_pushes,
+                   &exact_pushes);
+    }
+    print_message("long streams: %u capacity refusals, %u course pushes exact, %u "
+                  "approximate, digests %016llx %016llx\n", capacity_hits, exact_pushes,
+                  approximate_pushes, (unsigned long long)d10, (unsigned long long)d11);
+    /* The streams reach the paths they are for. */
+    assert_true(capacity_hits > 0u);
+    assert_true(approximate_pushes > 0u);
+    assert_true(exact_pushes > 1000u);
+    assert_true(d10 == STREAM_DIGEST_1_0);
+    assert_true(d11 == STREAM_DIGEST_1_1);
+}
+
+/* Issue 16: a ring whose entries are out of order (which no sequence of
+ * pushes can leave: sodium strictly increases along it, times never
+ * decrease) is refused as damaged, since the searches rely on the order. */
+static void watchers_refuse_rings_out_of_order(void **state)
+{
+    const ntr_limits lim = standard();
+    const ntr_course_limits clim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_watch fed, w;
+    ntr_course_watch cfed, cw;
+    ntr_correction c = untouched();
+    ntr_course_report r = course_untouched();
+    unsigned int k;
+    (void)state;
+    assert_int_equal(ntr_watch_init(&lim, &fed), NTR_OK);
+    assert_int_equal(ntr_course_watch_init(&clim, &cfed), NTR_OK);
+    for (k = 0; k < 6u; k++) {
+        assert_int_equal(ntr_watch_push(&fed, 2.0 * (double)k, 118.0 + (double)k, &c), NTR_OK);
+        (void)watch_push_ok(&cfed, 2.0 * (double)k, 118.0 + (double)k);
+    }
+    assert_int_equal(fed.kept, 6u);
+    assert_int_equal(cfed.low.kept, 6u);
+    for (k = 0; k < 4u; k++) {
+        const unsigned int i = (fed.head + 2u) % NTR_WATCH_CAPACITY;
+        const unsigned int j = (cfed.low.head + 2u) % NTR_COURSE_WATCH_CAPACITY;
+        memcpy(&w, &fed, sizeof w);
+        memcpy(&cw, &cfed, sizeof cw);
+        switch (k) {
+        case 0: w.ring[i].na_mmol_l = 130.0; cw.low.entry[j].na_mmol_l = 130.0; break;
+        case 1: w.ring[i].na_mmol_l = 119.0; cw.low.entry[j].na_mmol_l = 119.0; break; /* a tie */
+        case 2: w.ring[i].hours = 9.0; cw.low.entry[j].hours = 9.0; break;
+        default: w.ring[i].hours = -1.0; cw.low.entry[j].hours = -1.0; break;
+        }
+        c = untouched();
+        assert_int_equal(ntr_watch_push(&w, 20.0, 130.0, &c), NTR_ERR_ARG);
+        assert_int_equal(ntr_watch_result(&w, &c), NTR_ERR_ARG);
+        assert_untouched(&c);
+        assert_int_equal(ntr_course_watch_push(&cw, 20.0, 130.0, &r), NTR_ERR_ARG);
+        assert_int_equal(ntr_course_watch_result(&cw, &r), NTR_ERR_ARG);
+        assert_course_untouched(&r);
+    }
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -2184,6 +2463,8 @@ int main(void)
         cmocka_unit_test(glucose_push_unmasks_a_rise_that_is_only_glucose),
         cmocka_unit_test(glucose_push_equals_corrected_by_hand),
         cmocka_unit_test(glucose_push_rejects_bad_inputs),
+        cmocka_unit_test(watchers_on_long_streams_equal_batch_and_1_0),
+        cmocka_unit_test(watchers_refuse_rings_out_of_order),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
