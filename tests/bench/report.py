@@ -22,6 +22,7 @@ PG_BARE_TARGET = 1.2        # extension time / bare SQL arithmetic, at most
 PG_SQLFN_TARGET = 1.0       # SQL-language function (same checks) / extension, above
 CODE_TARGET = 12 * 1024     # bytes of .text + .rodata, Cortex-M4 -Os
 STACK_TARGET = 256          # bytes, largest frame of an entry point
+PY_SCALAR_TARGET = 0.5      # microseconds per Python scalar call (accelerated)
 
 # Entry points whose cost grows with their input (a series, a plan, a
 # findings record, a whole watcher state): reported, not held to the
@@ -446,6 +447,95 @@ def firmware_section(page, d):
                 "%d B (%s)" % (d["largest_frame_bytes"], d["largest_frame_function"]), stack_ok)
 
 
+def pyscalar_section(page, d):
+    page.add("## 8. Python scalar calls against plain Python", "")
+    if d is None:
+        page.add("Skipped (python3-dev, python3-venv or pip missing: the "
+                 "accelerator natremia._speed cannot be built).", "")
+        page.result("Python scalar call (accelerated)", "<= %g us" % PY_SCALAR_TARGET,
+                    "skipped", None)
+        return
+    on, off = d["installed"], d["ctypes_only"]
+    page.add("`tests/bench/python-scalar.sh`: the package pip-installed from this "
+             "tree into a throwaway venv (it builds the bundled library and the "
+             "accelerator `natremia._speed`: %s), then "
+             "`tests/bench/bench_python_scalar.py`: each public call against the "
+             "same work in plain Python written the way a skilled user would "
+             "(the same checks in the same order: finite, then range; the "
+             "enumeration from its name; the same formula; a ValueError on "
+             "failure), in one process, taking turns, fastest of %d rounds of %d "
+             "calls (wall clock). *General path*: the binding's ctypes route "
+             "(what every call cost before the accelerator; now only taken to "
+             "name a failure); *ctypes floor*: the bare ctypes call with "
+             "prototypes bound once and no checks. *ctypes only*: the same "
+             "package with `NATREMIA_NO_SPEEDUP=1`, as on a machine without "
+             "python3-dev. For many rows a loop of scalar calls is the wrong "
+             "tool: the array calls of section 3 cost a few nanoseconds a row."
+             % ("on" if d["accelerator"] == "on" else "**off**",
+                on["repeats"], on["calls"]), "")
+    rows, worst, met = [], None, 0
+    for name, r in on["results"].items():
+        o = off["results"][name]
+        ok = d["accelerator"] == "on" and r["natremia"] <= PY_SCALAR_TARGET
+        met += ok
+        rows.append((name, fmt(r["natremia"], 3), fmt(r["plain"], 3),
+                     fmt(r["ratio_to_plain"], 2), yes(ok), fmt(o["natremia"], 3),
+                     fmt(r["general path"], 3), fmt(r["ctypes floor"], 3)))
+        if worst is None or r["natremia"] > worst[1]:
+            worst = (name, r["natremia"])
+    page.table(["function", "natremia us", "plain Python us", "natremia / plain",
+                "<= %g us" % PY_SCALAR_TARGET, "ctypes only us", "general path us",
+                "ctypes floor us"], rows)
+    page.result("Python scalar call, accelerated, beside plain Python (%d functions)"
+                % len(rows), "<= %g us each" % PY_SCALAR_TARGET,
+                "%d of %d; slowest %s %.3f us (plain Python %.3f us)" % (
+                    met, len(rows), worst[0], worst[1],
+                    on["results"][worst[0]]["plain"]), met == len(rows))
+
+
+def dask_section(page, d, machine):
+    page.add("## 9. Dask: the cohort example on 1 and 2 workers", "")
+    if d is None:
+        page.add("Skipped (python3-dask, python3-distributed or pandas missing).", "")
+        page.result("Dask cohort example, 1 worker / 2 workers", "reported", "skipped", None)
+        return
+    m = d["median"]
+    page.add("`tests/bench/bench_dask.py --scaling`: `examples/cohort_dask.py`'s "
+             "computation (each worker generates its partitions of invented "
+             "patients and assesses them with one natremia batch call per "
+             "partition, `map_partitions`) on %d patients (%d sodium results, %d "
+             "partitions), on a `LocalCluster` of 1 worker process and of 2 "
+             "(one thread each), and serially in one process with pandas and "
+             "natremia alone (`run_serial`). Clusters are started and their "
+             "workers have imported pandas, numpy and natremia and run the "
+             "computation once on a tiny cohort before the clock starts; the three take turns, median elapsed time of %d runs. "
+             "*Scaling* = 1-worker time / 2-worker time (2.0 would be perfect). "
+             "This machine has %s cores, shared with other jobs while measured: "
+             "the 2-worker figure has no core to spare for the scheduler, the "
+             "client or anything else, so it shows a lower bound of what two "
+             "dedicated cores give. Results equal to the serial one, bit for "
+             "bit: %s." % (d["patients"], d["samples"], d["partitions"],
+                            d["repeats"], d.get("cores", machine.get("cores", "?")),
+                            "yes" if d["same_result"] else "**no**"), "")
+    page.table(["run", "elapsed s (median)", "runs", "vs serial"], [
+        ("serial, one process", fmt(m["serial"], 3),
+         ", ".join(fmt(x, 3) for x in d["elapsed"]["serial"]), "1.00"),
+        ("Dask, 1 worker", fmt(m["1 worker"], 3),
+         ", ".join(fmt(x, 3) for x in d["elapsed"]["1 worker"]),
+         fmt(m["serial"] / m["1 worker"], 2)),
+        ("Dask, 2 workers", fmt(m["2 workers"], 3),
+         ", ".join(fmt(x, 3) for x in d["elapsed"]["2 workers"]),
+         fmt(m["serial"] / m["2 workers"], 2)),
+    ])
+    page.add("Scaling (1 worker / 2 workers): **%.2f**." % d["scaling"], "")
+    page.result("Dask cohort example: 1-worker / 2-worker time (%d patients, %s shared cores)"
+                % (d["patients"], d.get("cores", "?")), "reported (2.0 = perfect)",
+                "%.2f (serial / 2 workers %.2f)%s" % (
+                    d["scaling"], d["serial_over_2_workers"],
+                    "" if d["same_result"] else "; results differ"),
+                "reported" if d["same_result"] else False)
+
+
 def machine_lines(m):
     return ["- CPU: %s, %s logical cores (shared with other jobs while measured)" % (m["model"], m["cores"]),
             "- Memory: %s" % m["memory"],
@@ -466,6 +556,8 @@ def main():
     pg_section(page, load(results, "pg.json"))
     firmware_section(page, load(results, "firmware.json"))
     machine = load(results, "machine.json")
+    pyscalar_section(page, load(results, "pyscalar.json"))
+    dask_section(page, load(results, "dask.json"), machine or {})
 
     head = ["# Performance", "",
             "Every result natremia computes is an estimate for decision support, "
