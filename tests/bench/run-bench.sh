@@ -129,6 +129,10 @@ export NATREMIA_LIBRARY=$lib
 export PYTHONPATH=$root/bindings/python${PYTHONPATH:+:$PYTHONPATH}
 if "$python" -c "import numpy" 2>/dev/null; then
     "$python" "$root/tests/bench/bench_numpy.py" "$numpy_rows" 5 >"$out/numpy.json"
+    # Again with glibc's default heap (fresh pages by the allocation order),
+    # shown beside the steady-heap figures.
+    "$python" "$root/tests/bench/bench_numpy.py" "$numpy_rows" 5 default \
+        >"$out/numpy_default.json"
 else
     echo "skipped: python3-numpy not installed" >&2
 fi
