@@ -38,7 +38,10 @@ imported pandas, numpy and natremia and run the computation once on a
 tiny cohort, before the clock starts; the three
 take turns REPEATS times and the median elapsed time of each is kept.
 The results must equal the serial one bit for bit. Scaling = 1-worker
-time / 2-worker time (2.0 would be perfect on two cores).
+time / 2-worker time (2.0 would be perfect on two cores). The CPU time
+(user + system) of the workers, summed, or of this process for the serial
+run, is reported beside it: other jobs on a shared machine disturb it
+less than the elapsed time.
 """
 import argparse
 import json
@@ -146,19 +149,24 @@ def scaling(patients, repeats):
     # pandas and natremia (the workers are warmed the same way).
     reference = cohort_dask.run_serial(patients, partitions, seed, preset)
     times = {"serial": [], "1 worker": [], "2 workers": []}
+    cpu = {"serial": [], "1 worker": [], "2 workers": []}
     same = True
     for _ in range(repeats):
+        before = rusage_seconds()
         start = time.perf_counter()
         result = cohort_dask.run_serial(patients, partitions, seed, preset)
         times["serial"].append(time.perf_counter() - start)
+        cpu["serial"].append(rusage_seconds() - before)
         same &= cohort_dask.same_result(result, reference)
         for workers in (1, 2):
+            name = "%d worker%s" % (workers, "s" if workers > 1 else "")
             cluster, client = warmed_cluster(workers, partitions, seed, preset)
             try:
+                before = sum(client.run(rusage_seconds).values())
                 start = time.perf_counter()
                 result = cohort_dask.run_dask(patients, partitions, seed, preset)
-                times["%d worker%s" % (workers, "s" if workers > 1 else "")].append(
-                    time.perf_counter() - start)
+                times[name].append(time.perf_counter() - start)
+                cpu[name].append(sum(client.run(rusage_seconds).values()) - before)
             finally:
                 client.close()
                 cluster.close()
@@ -169,6 +177,8 @@ def scaling(patients, repeats):
             "cores": os.cpu_count(), "elapsed": {k: [round(x, 3) for x in v]
                                                  for k, v in times.items()},
             "median": median, "same_result": bool(same),
+            "cpu": {k: [round(x, 3) for x in v] for k, v in cpu.items()},
+            "median_cpu": {k: round(statistics.median(v), 3) for k, v in cpu.items()},
             "scaling": round(median["1 worker"] / median["2 workers"], 2),
             "serial_over_2_workers": round(median["serial"] / median["2 workers"], 2)}
 
