@@ -4,8 +4,10 @@
 Arguments are keyword-only, as in the scalar API, and broadcast against
 each other (a scalar infusate against a column of patients, say). The
 result has the broadcast shape. No Python loop runs per row: the inputs are
-made contiguous float64 (int32 for sex), handed to an ntr_batch_* function,
-and its output array is returned. The exceptions are the 1.1 solute
+made contiguous float64 (int32 for sex; no copy when they already are),
+handed to an ntr_batch_* function, and its output array is returned. A
+scalar input over many rows is not spread over a column: the call is made
+block by block (_BLOCK rows) with the value written once. The exceptions are the 1.1 solute
 functions at the end (no batch entry point in the library): they call the
 scalar C function once per row.
 
@@ -298,8 +300,8 @@ def _input_names(cname):
 # default such as ethanol 0): the value is written once into a block of this
 # many rows and the batch function is called block by block, instead of
 # being spread over a whole column (8 MB of fresh memory per million rows,
-# which costs more than the formula). Small enough to stay in the cache,
-# large enough that the calls cost nothing next to the rows.
+# which can cost more than the formula). Small enough to stay in the cache,
+# large enough that the calls cost little next to the rows.
 _BLOCK = 16384
 
 
@@ -349,7 +351,8 @@ def _batch_call(fn, n, columns, enum_value, out, status):
 
 def _run(function, cname, inputs, *, sex=None, enum_value=None,
          int_output=False, errors="raise", with_status=False):
-    """Broadcast, call the batch entry point once, check the outcome."""
+    """Broadcast, call the batch entry point (once, or block by block when
+    a scalar input covers many rows), check the outcome."""
     _check_errors_choice(errors)
     scalar, names = _input_names(cname)
     value_names = names[1:] if sex is not None else names
