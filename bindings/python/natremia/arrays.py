@@ -169,6 +169,8 @@ def _float_input(value, argument, frame):
         if value.dtype.kind == "b" or str(value.dtype) == "boolean":
             raise TypeError("%s: argument %s is boolean, not numbers"
                             % (frame.function, argument))
+        if value.dtype == np.float64:  # numpy-backed: missing is NaN already
+            return value.to_numpy()  # no copy (na_value= would make one)
         try:
             return value.to_numpy(dtype=np.float64, na_value=np.nan)
         except (TypeError, ValueError):
