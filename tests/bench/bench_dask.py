@@ -27,6 +27,21 @@ given. Measured side by side on the same invented cohort (same seed):
 
 Prints JSON (defaults: 200000 patients, 3 repeats). Every patient is
 invented.
+
+With --scaling (step 9 of run-bench.sh) it measures instead how the
+example scales: the same cohort (same seed, 32 partitions) computed by
+run_dask on a LocalCluster of 1 worker process and of 2 worker processes
+(one thread each, the example's allocator setting), and by run_serial in
+this process (pandas and natremia alone, partition after partition: the
+time Dask has to beat). Each cluster is started, and its workers have
+imported pandas, numpy and natremia and run the computation once on a
+tiny cohort, before the clock starts; the three
+take turns REPEATS times and the median elapsed time of each is kept.
+The results must equal the serial one bit for bit. Scaling = 1-worker
+time / 2-worker time (2.0 would be perfect on two cores). The CPU time
+(user + system) of the workers, summed, or of this process for the serial
+run, is reported beside it: other jobs on a shared machine disturb it
+less than the elapsed time.
 """
 import argparse
 import json
@@ -112,12 +127,70 @@ def worker_seconds(trim):
     return float(out.split()[-1])
 
 
+def warmed_cluster(workers, partitions, seed, preset):
+    """A started cluster whose workers have imported the modules and run
+    the computation once on a tiny cohort (so that neither side's first
+    use of the code is timed)."""
+    now = sys.modules["cohort_dask"]
+    cluster, client = now.local_cluster(workers, 1)
+    import importlib
+    for name in ("pandas", "numpy", "natremia.arrays", "dask.dataframe"):
+        client.run(importlib.import_module, name)
+    now.run_dask(10 * partitions, partitions, seed, preset)
+    return cluster, client
+
+
+def scaling(patients, repeats):
+    """Elapsed seconds of the serial run and of 1- and 2-worker clusters."""
+    import time
+    import cohort_dask
+    seed, partitions, preset = 20240607, 32, "per_patient"
+    # Untimed: the reference result, and this process's first use of
+    # pandas and natremia (the workers are warmed the same way).
+    reference = cohort_dask.run_serial(patients, partitions, seed, preset)
+    times = {"serial": [], "1 worker": [], "2 workers": []}
+    cpu = {"serial": [], "1 worker": [], "2 workers": []}
+    same = True
+    for _ in range(repeats):
+        before = rusage_seconds()
+        start = time.perf_counter()
+        result = cohort_dask.run_serial(patients, partitions, seed, preset)
+        times["serial"].append(time.perf_counter() - start)
+        cpu["serial"].append(rusage_seconds() - before)
+        same &= cohort_dask.same_result(result, reference)
+        for workers in (1, 2):
+            name = "%d worker%s" % (workers, "s" if workers > 1 else "")
+            cluster, client = warmed_cluster(workers, partitions, seed, preset)
+            try:
+                before = sum(client.run(rusage_seconds).values())
+                start = time.perf_counter()
+                result = cohort_dask.run_dask(patients, partitions, seed, preset)
+                times[name].append(time.perf_counter() - start)
+                cpu[name].append(sum(client.run(rusage_seconds).values()) - before)
+            finally:
+                client.close()
+                cluster.close()
+            same &= cohort_dask.same_result(result, reference)
+    median = {k: round(statistics.median(v), 3) for k, v in times.items()}
+    return {"patients": patients, "partitions": partitions, "repeats": repeats,
+            "samples": int(reference["samples"].sum()),
+            "cores": os.cpu_count(), "elapsed": {k: [round(x, 3) for x in v]
+                                                 for k, v in times.items()},
+            "median": median, "same_result": bool(same),
+            "cpu": {k: [round(x, 3) for x in v] for k, v in cpu.items()},
+            "median_cpu": {k: round(statistics.median(v), 3) for k, v in cpu.items()},
+            "scaling": round(median["1 worker"] / median["2 workers"], 2),
+            "serial_over_2_workers": round(median["serial"] / median["2 workers"], 2)}
+
+
 def main():
     parser = argparse.ArgumentParser()
     parser.add_argument("--patients", type=int, default=200_000)
     parser.add_argument("--repeats", type=int, default=3)
     parser.add_argument("--before", metavar="FILE",
                         help="an earlier cohort_dask.py, run with Dask's defaults")
+    parser.add_argument("--scaling", action="store_true",
+                        help="1 and 2 workers and the serial run instead")
     args = parser.parse_args()
     os.environ.pop(VARIABLE, None)
     # Worker processes import the example module by name.
@@ -125,6 +198,9 @@ def main():
         [examples] + [p for p in os.environ.get("PYTHONPATH", "").split(os.pathsep) if p])
     sys.path.insert(0, examples)
     import cohort_dask
+    if args.scaling:
+        print(json.dumps(scaling(args.patients, args.repeats), indent=1))
+        return
     configs = {"with_dask_malloc_trim": (cohort_dask, True),
                "without_malloc_trim": (cohort_dask, False)}
     if args.before:

@@ -12,6 +12,10 @@ in the same process, alternately, REPEATS times; the fastest run of each is
 kept (process CPU time). The numpy result and status are checked to equal
 the binding's, so both did the same work.
 
+The binding's C batch call is also timed alone (bare_call), into output
+arrays it has already written: binding time / that time is what the
+Python side adds (conversion, allocation, status check, wrapping).
+
 A second, lean numpy version of every function (issue 16) is what a skilled
 numpy user writes: one combined "all inputs in range" mask (a NaN fails
 every comparison, so it also catches non-finite values), the formula over
@@ -20,10 +24,15 @@ all rows, and the exact per-input grading only for the few rows that fail
 It must give values and statuses identical to the binding's too; the run
 reports the binding against both.
 
-Usage: bench_numpy.py ROWS REPEATS  -> JSON on stdout.
+Freed memory is kept in the process for both sides (glibc mallopt, see
+keep_heap); a third argument "default" leaves glibc's defaults, to see the
+cost of fresh pages.
+
+Usage: bench_numpy.py ROWS REPEATS [default]  -> JSON on stdout.
 Needs NATREMIA_LIBRARY (or an installed library) and bindings/python on
 PYTHONPATH.
 """
+import ctypes
 import json
 import sys
 import time
@@ -211,7 +220,7 @@ def lean(checks, value, domain_ok=None, arg_ok=None):
         if arg_ok is not None:
             st[~arg_ok[bad]] = ARG
         for x, lo, hi in checks:
-            st = check(st, x[bad], lo, hi)
+            st = check(st, x[bad] if np.ndim(x) else x, lo, hi)
         if domain_ok is not None:
             st = domain(st, domain_ok[bad])
         status[bad] = st
@@ -329,6 +338,13 @@ def cases(rng, n):
                                  ethanol_mmol_l=e, errors="nan", with_status=True),
         lambda: np_osm_calculated(na, g, u, e),
         lambda: lean_osm_calculated(na, g, u, e))
+    # The same rows without an ethanol column (the argument's default, 0):
+    # a scalar for every row, on both sides.
+    c["osm_calculated, no ethanol"] = (
+        lambda: A.osm_calculated(na_mmol_l=na, glucose_mmol_l=g, urea_mmol_l=u,
+                                 errors="nan", with_status=True),
+        lambda: np_osm_calculated(na, g, u, 0.0),
+        lambda: lean_osm_calculated(na, g, u, 0.0))
     na2, g2 = columns(rng, n, [(110, 160), (3, 40)])
     c["osm_effective"] = (
         lambda: A.osm_effective(na_mmol_l=na2, glucose_mmol_l=g2, errors="nan",
@@ -426,32 +442,84 @@ def same(a, b):
                 np.array_equal(np.asarray(va), np.asarray(vb), equal_nan=True))
 
 
+def bare_call(binding):
+    """The binding's own C batch call(s) alone, for the overhead figure:
+    the arguments the binding hands to the library are captured on one
+    call, then the same call is repeated into the output arrays it has
+    already written (no conversion, allocation, status check or wrapping,
+    and no fresh pages)."""
+    real = getattr(A, "_batch_call", None)
+    if real is None:  # a binding from before it (to measure before/after)
+        return None
+    captured = []
+
+    def spy(*args):
+        captured.append(args)
+        return real(*args)
+
+    A._batch_call = spy
+    try:
+        binding()
+    finally:
+        A._batch_call = real
+    (args,) = captured
+    return lambda: real(*args)
+
+
 def best_time(fn, holder):
     t0 = time.process_time()
     holder.append(fn())
     return time.process_time() - t0
 
 
+def keep_heap():
+    """Ask glibc to keep freed memory in the process (no trimming, blocks
+    up to 32 MiB from the heap instead of fresh mmap pages), for both sides
+    alike. By default glibc trims or unmaps some freed arrays and not
+    others, so which calls of a run start on fresh pages depends on the
+    order of allocations; on this virtual machine a fresh 4 KiB page costs
+    up to tens of microseconds (the kernel zeroes it, the host backs it),
+    more than the formula's work on its 512 rows, so that luck and not
+    the code decided the figures (tests/bench/notes.md, "Python array
+    calls"). Returns whether glibc took the settings."""
+    try:
+        libc = ctypes.CDLL(None)
+        mallopt = libc.mallopt
+    except (OSError, AttributeError):
+        return False
+    mallopt.argtypes = [ctypes.c_int, ctypes.c_int]
+    M_TRIM_THRESHOLD, M_MMAP_THRESHOLD = -1, -3
+    return bool(mallopt(M_MMAP_THRESHOLD, 32 << 20)) and \
+        bool(mallopt(M_TRIM_THRESHOLD, 1 << 30))
+
+
 def main():
     rows, repeats = int(sys.argv[1]), int(sys.argv[2])
+    heap = "default"
+    if (sys.argv[3:4] or ["kept"])[0] != "default" and keep_heap():
+        heap = "kept"
     rng = np.random.default_rng(20260101)
     results = []
     with np.errstate(all="ignore"):
         for name, (binding, numpy_version, lean_version) in cases(rng, rows).items():
-            tb, tn, tl = [], [], []
-            out_b, out_n, out_l = [], [], []
+            bare = bare_call(binding)
+            tb, tn, tl, tc = [], [], [], []
+            out_b, out_n, out_l, out_c = [], [], [], []
             for _ in range(repeats):
                 tb.append(best_time(binding, out_b))
                 tn.append(best_time(numpy_version, out_n))
                 tl.append(best_time(lean_version, out_l))
-                del out_b[:-1], out_n[:-1], out_l[:-1]
+                if bare is not None:
+                    tc.append(best_time(bare, out_c))
+                del out_b[:-1], out_n[:-1], out_l[:-1], out_c[:]
             results.append({"function": name, "binding_s": min(tb),
+                            **({"c_call_s": min(tc)} if tc else {}),
                             "numpy_s": min(tn), "ratio": min(tn) / min(tb),
                             "same_result": same(out_b[-1], out_n[-1]),
                             "lean_s": min(tl), "lean_ratio": min(tl) / min(tb),
                             "lean_same_result": same(out_b[-1], out_l[-1]),
                             "failed_rows": int(np.count_nonzero(out_b[-1][1]))})
-    print(json.dumps({"rows": rows, "repeats": repeats,
+    print(json.dumps({"rows": rows, "repeats": repeats, "heap": heap,
                       "numpy": np.__version__, "functions": results}, indent=1))
 
 

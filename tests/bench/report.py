@@ -22,6 +22,7 @@ PG_BARE_TARGET = 1.2        # extension time / bare SQL arithmetic, at most
 PG_SQLFN_TARGET = 1.0       # SQL-language function (same checks) / extension, above
 CODE_TARGET = 12 * 1024     # bytes of .text + .rodata, Cortex-M4 -Os
 STACK_TARGET = 256          # bytes, largest frame of an entry point
+PY_SCALAR_TARGET = 0.5      # microseconds per Python scalar call (accelerated)
 
 # Entry points whose cost grows with their input (a series, a plan, a
 # findings record, a whole watcher state): reported, not held to the
@@ -193,7 +194,7 @@ def batch_section(page, text):
                 met == len(rows))
 
 
-def numpy_section(page, d):
+def numpy_section(page, d, default_heap=None):
     page.add("## 3. Python binding against numpy with the same validation", "")
     if d is None:
         page.add("Skipped (numpy or the binding missing).", "")
@@ -210,7 +211,18 @@ def numpy_section(page, d):
              "`np.where` (the earlier baseline). Both give the same status codes "
              "and NaN in failed rows. Taking turns, fastest of %d runs each, "
              "process CPU time. *Same* = values and statuses identical to the "
-             "binding's (checked, not assumed)." % (d["numpy"], d["rows"], d["repeats"]), "")
+             "binding's (checked, not assumed). *C call ms*: the binding's own "
+             "batch call alone, repeated into outputs it has already written; "
+             "*binding / C* is what the Python side adds. %s" % (
+                 d["numpy"], d["rows"], d["repeats"],
+                 "Freed memory stays in the process for both sides (glibc "
+                 "`mallopt`: no trimming, arrays up to 32 MiB from the heap), so "
+                 "no side is timed on fresh pages by the luck of the allocation "
+                 "order (see the notes)." if d.get("heap") == "kept" else
+                 "glibc's default heap (fresh pages for some calls, by the "
+                 "allocation order)."), "")
+    fresh = {r["function"]: r["lean_ratio"] for r in default_heap["functions"]} \
+        if default_heap and default_heap.get("heap") == "default" else {}
     rows, worst, met, same = [], None, 0, True
     for r in d["functions"]:
         ok = r["lean_ratio"] >= NUMPY_TARGET and r["lean_same_result"]
@@ -219,11 +231,23 @@ def numpy_section(page, d):
         rows.append((r["function"], fmt(r["binding_s"] * 1e3, 2), fmt(r["lean_s"] * 1e3, 2),
                      fmt(r["lean_ratio"], 1) + "x", "yes" if r["lean_same_result"] else "**no**",
                      yes(ok), fmt(r["numpy_s"] * 1e3, 2), fmt(r["ratio"], 1) + "x",
-                     "yes" if r["same_result"] else "**no**"))
+                     "yes" if r["same_result"] else "**no**")
+                    + ((fmt(r["c_call_s"] * 1e3, 2), fmt(r["binding_s"] / r["c_call_s"], 2))
+                       if "c_call_s" in r else ())
+                    + ((fmt(fresh[r["function"]], 1) + "x" if r["function"] in fresh else "-",)
+                       if fresh else ()))
         if worst is None or r["lean_ratio"] < worst[1]:
             worst = (r["function"], r["lean_ratio"])
     page.table(["function", "natremia ms", "lean numpy ms", "faster", "same",
-                ">= %gx" % NUMPY_TARGET, "graded numpy ms", "faster", "same"], rows)
+                ">= %gx" % NUMPY_TARGET, "graded numpy ms", "faster", "same"]
+               + (["C call ms", "binding / C"] if "c_call_s" in d["functions"][0] else [])
+               + (["faster, glibc default heap"] if fresh else []),
+               rows)
+    if fresh:
+        page.add("*Faster, glibc default heap*: natremia against lean numpy in a "
+                 "second run of the same script with glibc's default allocator "
+                 "settings, where some calls of either side start on fresh pages "
+                 "depending on the order of allocations.", "")
     page.result("Python array calls vs lean numpy, same values and statuses (%d functions)"
                 % len(rows), ">= %gx each" % NUMPY_TARGET,
                 "%d of %d meet it; lowest %s %.1fx%s" % (
@@ -433,6 +457,93 @@ def firmware_section(page, d):
                 "%d B (%s)" % (d["largest_frame_bytes"], d["largest_frame_function"]), stack_ok)
 
 
+def pyscalar_section(page, d):
+    page.add("## 8. Python scalar calls against plain Python", "")
+    if d is None:
+        page.add("Skipped (python3-dev, python3-venv or pip missing: the "
+                 "accelerator natremia._speed cannot be built).", "")
+        page.result("Python scalar call (accelerated)", "<= %g us" % PY_SCALAR_TARGET,
+                    "skipped", None)
+        return
+    on, off = d["installed"], d["ctypes_only"]
+    page.add("`tests/bench/python-scalar.sh`: the package pip-installed from this "
+             "tree into a throwaway venv (it builds the bundled library and the "
+             "accelerator `natremia._speed`: %s), then "
+             "`tests/bench/bench_python_scalar.py`: each public call against the "
+             "same work in plain Python written the way a skilled user would "
+             "(the same checks in the same order: finite, then range; the "
+             "enumeration from its name; the same formula; a ValueError on "
+             "failure), in one process, taking turns, fastest of %d rounds of %d "
+             "calls (wall clock). *General path*: the binding's ctypes route "
+             "(what every call cost before the accelerator; now only taken to "
+             "name a failure); *ctypes floor*: the bare ctypes call with "
+             "prototypes bound once and no checks. *ctypes only*: the same "
+             "package with `NATREMIA_NO_SPEEDUP=1`, as on a machine without "
+             "python3-dev. For many rows a loop of scalar calls is the wrong "
+             "tool: the array calls of section 3 cost a few nanoseconds a row."
+             % ("on" if d["accelerator"] == "on" else "**off**",
+                on["repeats"], on["calls"]), "")
+    rows, worst, met = [], None, 0
+    for name, r in on["results"].items():
+        o = off["results"][name]
+        ok = d["accelerator"] == "on" and r["natremia"] <= PY_SCALAR_TARGET
+        met += ok
+        rows.append((name, fmt(r["natremia"], 3), fmt(r["plain"], 3),
+                     fmt(r["ratio_to_plain"], 2), yes(ok), fmt(o["natremia"], 3),
+                     fmt(r["general path"], 3), fmt(r["ctypes floor"], 3)))
+        if worst is None or r["natremia"] > worst[1]:
+            worst = (name, r["natremia"])
+    page.table(["function", "natremia us", "plain Python us", "natremia / plain",
+                "<= %g us" % PY_SCALAR_TARGET, "ctypes only us", "general path us",
+                "ctypes floor us"], rows)
+    page.result("Python scalar call, accelerated, beside plain Python (%d functions)"
+                % len(rows), "<= %g us each" % PY_SCALAR_TARGET,
+                "%d of %d; slowest %s %.3f us (plain Python %.3f us)" % (
+                    met, len(rows), worst[0], worst[1],
+                    on["results"][worst[0]]["plain"]), met == len(rows))
+
+
+def dask_section(page, d, machine):
+    page.add("## 9. Dask: the cohort example on 1 and 2 workers", "")
+    if d is None:
+        page.add("Skipped (python3-dask, python3-distributed or pandas missing).", "")
+        page.result("Dask cohort example, 1 worker / 2 workers", "reported", "skipped", None)
+        return
+    m = d["median"]
+    page.add("`tests/bench/bench_dask.py --scaling`: `examples/cohort_dask.py`'s "
+             "computation (each worker generates its partitions of invented "
+             "patients and assesses them with one natremia batch call per "
+             "partition, `map_partitions`) on %d patients (%d sodium results, %d "
+             "partitions), on a `LocalCluster` of 1 worker process and of 2 "
+             "(one thread each), and serially in one process with pandas and "
+             "natremia alone (`run_serial`). Clusters are started and their "
+             "workers have imported pandas, numpy and natremia and run the "
+             "computation once on a tiny cohort before the clock starts; the three take turns, median elapsed time of %d runs. "
+             "*Scaling* = 1-worker time / 2-worker time (2.0 would be perfect). "
+             "This machine has %s cores, shared with other jobs while measured: "
+             "the 2-worker figure has no core to spare for the scheduler, the "
+             "client or anything else, so it shows a lower bound of what two "
+             "dedicated cores give. Results equal to the serial one, bit for "
+             "bit: %s." % (d["patients"], d["samples"], d["partitions"],
+                            d["repeats"], d.get("cores", machine.get("cores", "?")),
+                            "yes" if d["same_result"] else "**no**"), "")
+    c = d.get("median_cpu", {})
+    rows = []
+    for key, label in (("serial", "serial, one process"), ("1 worker", "Dask, 1 worker"),
+                       ("2 workers", "Dask, 2 workers")):
+        rows.append((label, fmt(m[key], 3), ", ".join(fmt(x, 3) for x in d["elapsed"][key]),
+                     fmt(m["serial"] / m[key], 2), fmt(c[key], 3) if key in c else "-"))
+    page.table(["run", "elapsed s (median)", "runs", "serial / this",
+                "CPU s (median; workers summed)"], rows)
+    page.add("Scaling (1 worker / 2 workers): **%.2f**." % d["scaling"], "")
+    page.result("Dask cohort example: 1-worker / 2-worker time (%d patients, %s shared cores)"
+                % (d["patients"], d.get("cores", "?")), "reported (2.0 = perfect)",
+                "%.2f (serial / 2 workers %.2f)%s" % (
+                    d["scaling"], d["serial_over_2_workers"],
+                    "" if d["same_result"] else "; results differ"),
+                "reported" if d["same_result"] else False)
+
+
 def machine_lines(m):
     return ["- CPU: %s, %s logical cores (shared with other jobs while measured)" % (m["model"], m["cores"]),
             "- Memory: %s" % m["memory"],
@@ -446,13 +557,15 @@ def main():
     scalar_section(page, load(results, "scalar.json"))
     push_section(page, load(results, "push.json"))
     batch_section(page, load(results, "batch.txt"))
-    numpy_section(page, load(results, "numpy.json"))
+    numpy_section(page, load(results, "numpy.json"), load(results, "numpy_default.json"))
     cohort_section(page, load(results, "cohort.json"))
     scaling_section(page, load(results, "scaling_dense.txt"),
                     load(results, "scaling_sparse.txt"), load(results, "scaling_ir.json"))
     pg_section(page, load(results, "pg.json"))
     firmware_section(page, load(results, "firmware.json"))
     machine = load(results, "machine.json")
+    pyscalar_section(page, load(results, "pyscalar.json"))
+    dask_section(page, load(results, "dask.json"), machine or {})
 
     head = ["# Performance", "",
             "Every result natremia computes is an estimate for decision support, "

@@ -18,12 +18,20 @@
 #   6. the PostgreSQL extension against bare SQL, a SQL-language function
 #      and PL/pgSQL with the same checks (5 million rows)
 #   7. Cortex-M4 code size and stack frames (arm-none-eabi-gcc -Os)
+#   8. Python scalar calls of the pip-installed package (accelerator
+#      natremia._speed, and ctypes only) against plain Python with the same
+#      checks (tests/bench/python-scalar.sh)
+#   9. the Dask cohort example on 1 and 2 worker processes and serially in
+#      one process (tests/bench/bench_dask.py --scaling)
 # A step whose tools are missing is reported as skipped. Sizes can be
 # lowered for a quick look (the page then says what was run):
 #   BENCH_ROWS (10000000) BENCH_NUMPY_ROWS (1000000) BENCH_PATIENTS (1000000)
-#   BENCH_PG_ROWS (5000000) BENCH_REPEATS (7)
+#   BENCH_PG_ROWS (5000000) BENCH_REPEATS (7) BENCH_PY_CALLS (300000)
+#   BENCH_DASK_PATIENTS (200000) BENCH_DASK_REPEATS (3)
 # Packages: meson ninja-build valgrind python3-numpy python3-pandas
-# gcc-arm-none-eabi postgresql-15 postgresql-server-dev-15 make.
+# gcc-arm-none-eabi postgresql-15 postgresql-server-dev-15 make
+# python3-dev python3-venv python3-pip python3-setuptools python3-wheel
+# python3-dask python3-distributed.
 # Takes a few minutes; the pandas side of step 4 is the longest part.
 set -euo pipefail
 
@@ -35,6 +43,9 @@ numpy_rows=${BENCH_NUMPY_ROWS:-1000000}
 patients=${BENCH_PATIENTS:-1000000}
 pg_rows=${BENCH_PG_ROWS:-5000000}
 repeats=${BENCH_REPEATS:-7}
+py_calls=${BENCH_PY_CALLS:-300000}
+dask_patients=${BENCH_DASK_PATIENTS:-200000}
+dask_repeats=${BENCH_DASK_REPEATS:-3}
 python=/usr/bin/python3
 started=$(date +%s)
 
@@ -118,6 +129,10 @@ export NATREMIA_LIBRARY=$lib
 export PYTHONPATH=$root/bindings/python${PYTHONPATH:+:$PYTHONPATH}
 if "$python" -c "import numpy" 2>/dev/null; then
     "$python" "$root/tests/bench/bench_numpy.py" "$numpy_rows" 5 >"$out/numpy.json"
+    # Again with glibc's default heap (fresh pages by the allocation order),
+    # shown beside the steady-heap figures.
+    "$python" "$root/tests/bench/bench_numpy.py" "$numpy_rows" 5 default \
+        >"$out/numpy_default.json"
 else
     echo "skipped: python3-numpy not installed" >&2
 fi
@@ -167,6 +182,23 @@ if have arm-none-eabi-gcc; then
     "$python" "$root/tests/bench/firmware.py" "$root" "$build/bench-m4" >"$out/firmware.json"
 else
     echo "skipped: gcc-arm-none-eabi not installed" >&2
+fi
+
+step "8. Python scalar calls against plain Python ($py_calls calls a round)"
+status=0
+bash "$root/tests/bench/python-scalar.sh" --json "$out/pyscalar.json" "$py_calls" "$repeats" \
+    || status=$?
+if [[ $status -ne 0 ]]; then
+    rm -f "$out/pyscalar.json"
+    [[ $status -eq 77 ]] || { echo "python-scalar.sh failed ($status)" >&2; exit 1; }
+fi
+
+step "9. Dask cohort example: 1 and 2 workers, and serial ($dask_patients patients)"
+if "$python" -c "import dask.dataframe, distributed, pandas" 2>/dev/null; then
+    "$python" "$root/tests/bench/bench_dask.py" --scaling --patients "$dask_patients" \
+        --repeats "$dask_repeats" >"$out/dask.json"
+else
+    echo "skipped: python3-dask, python3-distributed or python3-pandas not installed" >&2
 fi
 
 step "report"

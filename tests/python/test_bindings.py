@@ -190,6 +190,74 @@ class Errors(unittest.TestCase):
         empty = arrays.osm_effective(na_mmol_l=[], glucose_mmol_l=[])
         self.assertEqual(empty.shape, (0,))
 
+    def test_scalar_inputs_over_many_rows(self):
+        """A scalar (or a default such as ethanol 0) over more rows than one
+        block (arrays._BLOCK) is handed to the library block by block: the
+        values, statuses, failed count and first failing row must be those
+        of the same value spread over a full column, including failures in
+        later blocks and a last, partial block."""
+        n = 3 * arrays._BLOCK + 5
+        rng = np.random.default_rng(7)
+        na = rng.uniform(110.0, 160.0, n)
+        glucose = rng.uniform(3.0, 40.0, n)
+        na[[arrays._BLOCK + 1, 2 * arrays._BLOCK, n - 1]] = [np.nan, 300.0, 70.0]
+        for ethanol in (0.0, 15.0, 500.0, np.nan):
+            got = arrays.osm_calculated(na_mmol_l=na, glucose_mmol_l=glucose,
+                                        urea_mmol_l=5.0, ethanol_mmol_l=ethanol,
+                                        errors="nan", with_status=True)
+            want = arrays.osm_calculated(na_mmol_l=na, glucose_mmol_l=glucose,
+                                         urea_mmol_l=np.full(n, 5.0),
+                                         ethanol_mmol_l=np.full(n, ethanol),
+                                         errors="nan", with_status=True)
+            np.testing.assert_array_equal(got[1], want[1])
+            np.testing.assert_array_equal(got[0], want[0])
+        default = arrays.osm_calculated(na_mmol_l=na, glucose_mmol_l=glucose,
+                                        urea_mmol_l=5.0, errors="nan")
+        # 2 Na + glucose + urea + ethanol 0 (lib/osmolality.c, 2*Na formula)
+        ok = np.isfinite(default)
+        np.testing.assert_array_equal(default[ok], 2.0 * na[ok] + glucose[ok] + 5.0)
+        self.assertEqual(int(np.count_nonzero(~ok)), 3)
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            arrays.osm_calculated(na_mmol_l=na, glucose_mmol_l=glucose,
+                                  urea_mmol_l=5.0)
+        self.assertEqual(caught.exception.row, arrays._BLOCK + 1)
+        self.assertEqual(caught.exception.failed, 3)
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            arrays.osm_calculated(na_mmol_l=140.0, glucose_mmol_l=glucose,
+                                  urea_mmol_l=5.0, ethanol_mmol_l=-1.0)
+        self.assertEqual((caught.exception.row, caught.exception.failed), (0, n))
+        self.assertEqual(caught.exception.argument, "ethanol_mmol_l")
+        # Sex as one name for every row, against the codes spread out.
+        age = rng.uniform(1.0, 95.0, n)
+        weight = rng.uniform(10.0, 120.0, n)
+        for sex in ("female", 1, 9):
+            got = arrays.tbw_fraction(sex=sex, age_years=age, weight_kg=weight,
+                                      errors="nan", with_status=True)
+            code = {"female": 2}.get(sex, sex)
+            want = arrays.tbw_fraction(sex=np.full(n, code, dtype=np.int64),
+                                       age_years=age, weight_kg=weight,
+                                       errors="nan", with_status=True)
+            np.testing.assert_array_equal(got[1], want[1])
+            np.testing.assert_array_equal(got[0], want[0])
+        with self.assertRaises(ntr.NatremiaError) as caught:
+            arrays.tbw_fraction(sex=9, age_years=age, weight_kg=weight)
+        self.assertEqual((caught.exception.argument, caught.exception.failed),
+                         ("sex", n))
+
+    def test_integer_codes_beyond_c_int(self):
+        """Codes are range-checked without a widened copy; still refused."""
+        for dtype in (np.int64, np.uint32, np.uint64):
+            sex = np.array([1, 2, 2 ** 31 + 5], dtype=dtype)
+            with self.assertRaises(ntr.NatremiaError) as caught:
+                arrays.tbw_fraction(sex=sex, age_years=40.0, weight_kg=70.0)
+            self.assertEqual(caught.exception.value, 2 ** 31 + 5)
+        low = np.array([1, -2 ** 31 - 1], dtype=np.int64)
+        with self.assertRaises(ntr.NatremiaError):
+            arrays.tbw_fraction(sex=low, age_years=40.0, weight_kg=70.0)
+        codes = np.array([1, 2], dtype=np.int32)
+        out = arrays.tbw_fraction(sex=codes, age_years=40.0, weight_kg=70.0)
+        self.assertEqual(out.tolist(), [42.0, 35.0])  # 0.6 and 0.5 of 70 kg
+
 
 class ConstantsMatchHeader(unittest.TestCase):
     """The Python enumerations repeat C values; read them from the header."""

@@ -4,8 +4,10 @@
 Arguments are keyword-only, as in the scalar API, and broadcast against
 each other (a scalar infusate against a column of patients, say). The
 result has the broadcast shape. No Python loop runs per row: the inputs are
-made contiguous float64 (int32 for sex), handed to an ntr_batch_* function,
-and its output array is returned. The exceptions are the 1.1 solute
+made contiguous float64 (int32 for sex; no copy when they already are),
+handed to an ntr_batch_* function, and its output array is returned. A
+scalar input over many rows is not spread over a column: the call is made
+block by block (_BLOCK rows) with the value written once. The exceptions are the 1.1 solute
 functions at the end (no batch entry point in the library): they call the
 scalar C function once per row.
 
@@ -17,6 +19,7 @@ per-row C status codes (0 = NTR_OK).
 """
 
 import ctypes
+import math
 from typing import Any
 
 import numpy as np
@@ -63,6 +66,9 @@ def _batch_fn(cname, n_double_inputs, int_first=False, enum_arg=False,
         if enum_arg:
             args.append(ctypes.c_int)
         args += [_PI if int_output else _PD, _PI, _PSZ]
+        # Pointers are passed as addresses (plain ints): cheaper than a
+        # ctypes pointer object per argument, and offsets are simple.
+        args = [ctypes.c_void_p if a in (_PI, _PD, _PSZ) else a for a in args]
         fn.argtypes = args
         fn.restype = ctypes.c_int
         _declared[cname] = fn
@@ -78,15 +84,17 @@ def _finish(function, status_code, failed, out, status, shape, errors,
     """Raise or return, following the errors / with_status choice.
     ``blame(row)`` names the argument that failed in a row (the scalar
     binding's rule) for the error message."""
-    if failed.value == _SIZE_MAX:  # a call-level error: nothing was written
+    failed = failed if isinstance(failed, int) or failed is None else \
+        (None if failed.value == _SIZE_MAX else failed.value)
+    if failed is None:  # a call-level error: nothing was written
         raise NatremiaError(status_code, function)
-    if failed.value and errors == "raise":
+    if failed and errors == "raise":
         row = int(np.flatnonzero(status)[0])
         argument = value = accepted = None
         if blame is not None:
             argument, value, accepted = blame(row, int(status[row]))
         raise NatremiaError(int(status[row]), function, row=row,
-                            failed=int(failed.value), argument=argument,
+                            failed=int(failed), argument=argument,
                             value=value, accepted=accepted)
     out = out.reshape(shape)
     if with_status:
@@ -161,6 +169,8 @@ def _float_input(value, argument, frame):
         if value.dtype.kind == "b" or str(value.dtype) == "boolean":
             raise TypeError("%s: argument %s is boolean, not numbers"
                             % (frame.function, argument))
+        if value.dtype == np.float64:  # numpy-backed: missing is NaN already
+            return value.to_numpy()  # no copy (na_value= would make one)
         try:
             return value.to_numpy(dtype=np.float64, na_value=np.nan)
         except (TypeError, ValueError):
@@ -243,14 +253,16 @@ def _enum_input(value, cls, argument, frame):
             out[i] = code
         out = out.reshape(a.shape)
     elif a.dtype.kind in "iu":
-        wide = a.astype(np.int64) if a.dtype != np.uint64 else a
-        if wide.size and (wide.min() < _core._INT_MIN or
-                          wide.max() > _core._INT_MAX):
+        # Only types wider than C int can hold a code beyond it; the check
+        # reads the column once, without a widened copy.
+        if a.size and np.iinfo(a.dtype).max > _core._INT_MAX and \
+                (int(a.min()) < _core._INT_MIN or int(a.max()) > _core._INT_MAX):
+            wide = a.astype(np.int64) if a.dtype != np.uint64 else a
             bad = wide[(wide < _core._INT_MIN) | (wide > _core._INT_MAX)][0]
             raise NatremiaError(_core.ERR_ARG, f, "code %d is beyond C int"
                                 % bad, argument=argument, value=int(bad),
                                 accepted=_core._enum_names(cls))
-        out = a.astype(np.intc)
+        out = a.astype(np.intc, copy=False)
     elif a.dtype.kind == "f":
         finite = np.isfinite(a)
         if not np.all(np.floor(a[finite]) == a[finite]):
@@ -286,9 +298,63 @@ def _input_names(cname):
                     if e is not None or n == "sex"]
 
 
+# Rows per C call when an input is one value for every row (a scalar, or a
+# default such as ethanol 0): the value is written once into a block of this
+# many rows and the batch function is called block by block, instead of
+# being spread over a whole column (8 MB of fresh memory per million rows,
+# which can cost more than the formula). Small enough to stay in the cache,
+# large enough that the calls cost little next to the rows.
+_BLOCK = 16384
+
+
+def _broadcast(arrays):
+    """The broadcast shape, and each array (as given, or as its broadcast
+    view) with its own size. Arrays of one shape and 0-d scalars, the usual
+    case, skip numpy's general broadcasting (a few microseconds per input);
+    anything else goes through np.broadcast_arrays and its errors."""
+    shapes = {a.shape for a in arrays if a.ndim}
+    if len(shapes) <= 1:
+        shape = shapes.pop() if shapes else ()
+        return shape, [(a, a.size) for a in arrays]
+    sizes = [a.size for a in arrays]
+    views = np.broadcast_arrays(*arrays)
+    return views[0].shape, list(zip(views, sizes))
+
+
+def _batch_call(fn, n, columns, enum_value, out, status):
+    """Call a batch function over n rows. ``columns`` are contiguous arrays
+    of n rows, or blocks of _BLOCK rows holding one value (``const``).
+    Returns (return code, failed rows, or None after a call-level error)."""
+    failed = ctypes.c_size_t(_SIZE_MAX)
+    failed_at = ctypes.addressof(failed)
+    tail = [enum_value] if enum_value is not None else []
+    if not any(const for _, const in columns):
+        code = fn(n, *[c.ctypes.data for c, _ in columns], *tail,
+                  out.ctypes.data, status.ctypes.data, failed_at)
+        return code, (None if failed.value == _SIZE_MAX else failed.value)
+    bases = [(c.ctypes.data, 0 if const else c.itemsize) for c, const in columns]
+    out_at, out_size = out.ctypes.data, out.itemsize
+    status_at, status_size = status.ctypes.data, status.itemsize
+    first = 0
+    total = 0
+    for start in range(0, n, _BLOCK):
+        rows = min(_BLOCK, n - start)
+        failed.value = _SIZE_MAX
+        code = fn(rows, *[at + start * size for at, size in bases], *tail,
+                  out_at + start * out_size, status_at + start * status_size,
+                  failed_at)
+        if failed.value == _SIZE_MAX:  # call-level: the same for every block
+            return code, None
+        if code and not first:
+            first = code
+        total += failed.value
+    return first, total
+
+
 def _run(function, cname, inputs, *, sex=None, enum_value=None,
          int_output=False, errors="raise", with_status=False):
-    """Broadcast, call the batch entry point once, check the outcome."""
+    """Broadcast, call the batch entry point (once, or block by block when
+    a scalar input covers many rows), check the outcome."""
     _check_errors_choice(errors)
     scalar, names = _input_names(cname)
     value_names = names[1:] if sex is not None else names
@@ -298,40 +364,40 @@ def _run(function, cname, inputs, *, sex=None, enum_value=None,
     arrays = [_float_input(v, n, frame) for v, n in zip(inputs, value_names)]
     if sex is not None:
         arrays.insert(0, _enum_input(sex, Sex, "sex", frame))
-    arrays = np.broadcast_arrays(*arrays)
-    shape = arrays[0].shape
-    if sex is not None:
-        sex_col = np.ascontiguousarray(arrays[0], dtype=np.intc).ravel()
-        arrays = arrays[1:]
-    columns = [np.ascontiguousarray(a, dtype=np.float64).ravel() for a in arrays]
-    n = int(np.prod(shape, dtype=np.int64))
+    shape, arrays = _broadcast(arrays)
+    n = math.prod(shape)
+    columns = []  # (array, const): n rows, or a block of one value
+    for i, (a, size) in enumerate(arrays):
+        dtype = np.intc if sex is not None and i == 0 else np.float64
+        if size == 1 and n > _BLOCK:
+            columns.append((np.full(_BLOCK, a.flat[0], dtype=dtype), True))
+        else:
+            if a.shape != shape:
+                a = np.broadcast_to(a, shape)
+            columns.append((np.ascontiguousarray(a, dtype=dtype).ravel(), False))
     out = np.empty(n, dtype=np.intc if int_output else np.float64)
     status = np.empty(n, dtype=np.intc)
-    failed = ctypes.c_size_t(_SIZE_MAX)
-    fn = _batch_fn(cname, len(columns), int_first=sex is not None,
+    fn = _batch_fn(cname, len(columns) - (sex is not None),
+                   int_first=sex is not None,
                    enum_arg=enum_value is not None, int_output=int_output)
-    args = [n]
-    if sex is not None:
-        args.append(_ptr(sex_col, ctypes.c_int))
-    args += [_ptr(c, ctypes.c_double) for c in columns]
-    if enum_value is not None:
-        args.append(enum_value)
-    args += [_ptr(out, ctypes.c_int if int_output else ctypes.c_double),
-             _ptr(status, ctypes.c_int), ctypes.byref(failed)]
-    code = fn(*args)
+    code, failed = _batch_call(fn, n, columns, enum_value, out, status)
+
+    def row_value(i, row):
+        column, const = columns[i]
+        return column[0] if const else column[row]
 
     def blame(row, row_status):
         """The argument that failed in one row, by the scalar rule."""
-        row_args = [float(c[row]) for c in columns]
-        all_names = list(value_names)
+        first = 1 if sex is not None else 0
+        row_args = [float(row_value(i, row)) for i in range(first, len(columns))]
         if sex is not None:
-            row_args.insert(0, int(sex_col[row]))
-            all_names.insert(0, "sex")
+            sex_code = int(row_value(0, row))
+            row_args.insert(0, sex_code)
         if enum_value is not None:
             row_args.append(enum_value)
         argument, value = _core._blame(scalar, row_args, row_status)
         if argument is None and sex is not None and row_status == _core.ERR_ARG:
-            argument, value = "sex", int(sex_col[row])
+            argument, value = "sex", sex_code
         if argument == "sex" and value == 0:
             value = "missing"  # a missing entry is passed as code 0
         accepted = (_core._enum_names(Sex) if argument == "sex" else
