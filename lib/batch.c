@@ -345,11 +345,15 @@ int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_osm_calculated(na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                                ethanol_mmol_l, pair_splat(coefficient),
-                                pair_splat(intercept), out, status, i)) {
+        /* Pairs until one fails, with no call inside this loop, so the
+         * kernel's constants stay in registers (a call clobbers them). */
+        while (i + 1 < n &&
+               pair_osm_calculated(na_mmol_l, glucose_mmol_l, urea_mmol_l,
+                                   ethanol_mmol_l, pair_splat(coefficient),
+                                   pair_splat(intercept), out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_osm_calculated(i, i + 1, na_mmol_l, glucose_mmol_l,
                                        urea_mmol_l, ethanol_mmol_l,
                                        coefficient, intercept, out, status);
@@ -403,9 +407,11 @@ int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_osm_effective(na_mmol_l, glucose_mmol_l, out, status, i)) {
+        while (i + 1 < n &&
+               pair_osm_effective(na_mmol_l, glucose_mmol_l, out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_osm_effective(i, i + 1, na_mmol_l, glucose_mmol_l, out,
                                       status);
             i++;
@@ -457,10 +463,12 @@ int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_osm_gap(measured_mosm_kg, calculated_mosm_kg, out, status,
-                         i)) {
+        while (i + 1 < n &&
+               pair_osm_gap(measured_mosm_kg, calculated_mosm_kg, out, status,
+                            i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_osm_gap(i, i + 1, measured_mosm_kg, calculated_mosm_kg,
                                 out, status);
             i++;
@@ -524,10 +532,12 @@ int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_na_corrected_glucose(na_mmol_l, glucose_mmol_l,
-                                      pair_splat(factor), out, status, i)) {
+        while (i + 1 < n &&
+               pair_na_corrected_glucose(na_mmol_l, glucose_mmol_l,
+                                         pair_splat(factor), out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_na_corrected_glucose(i, i + 1, na_mmol_l,
                                              glucose_mmol_l, factor, out,
                                              status);
@@ -584,10 +594,12 @@ int ntr_batch_na_deficit(size_t n, const double *tbw_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_na_deficit(tbw_l, na_mmol_l, target_na_mmol_l, out, status,
-                            i)) {
+        while (i + 1 < n &&
+               pair_na_deficit(tbw_l, na_mmol_l, target_na_mmol_l, out, status,
+                               i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_na_deficit(i, i + 1, tbw_l, na_mmol_l,
                                    target_na_mmol_l, out, status);
             i++;
@@ -644,9 +656,11 @@ int ntr_batch_tbw_fraction(size_t n, const int *sex, const double *age_years,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_tbw_fraction(sex, age_years, weight_kg, out, status, i)) {
+        while (i + 1 < n &&
+               pair_tbw_fraction(sex, age_years, weight_kg, out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_tbw_fraction(i, i + 1, sex, age_years, weight_kg, out,
                                      status);
             i++;
@@ -701,10 +715,12 @@ int ntr_batch_tbw_watson(size_t n, const int *sex, const double *age_years,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_tbw_watson(sex, age_years, height_cm, weight_kg, out, status,
-                            i)) {
+        while (i + 1 < n &&
+               pair_tbw_watson(sex, age_years, height_cm, weight_kg, out, status,
+                               i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_tbw_watson(i, i + 1, sex, age_years, height_cm,
                                    weight_kg, out, status);
             i++;
@@ -755,9 +771,11 @@ int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_free_water_deficit(tbw_l, na_mmol_l, out, status, i)) {
+        while (i + 1 < n &&
+               pair_free_water_deficit(tbw_l, na_mmol_l, out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_free_water_deficit(i, i + 1, tbw_l, na_mmol_l, out,
                                            status);
             i++;
@@ -822,10 +840,12 @@ int ntr_batch_infusate_change_per_litre(size_t n, const double *na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_infusate_change_per_litre(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                           infusate_k_mmol_l, out, status, i)) {
+        while (i + 1 < n &&
+               pair_infusate_change_per_litre(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                              infusate_k_mmol_l, out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_infusate_change_per_litre(i, i + 1, na_mmol_l, tbw_l,
                                                   infusate_na_mmol_l,
                                                   infusate_k_mmol_l, out,
@@ -895,10 +915,12 @@ int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_infusate_change(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                 infusate_k_mmol_l, volume_l, out, status, i)) {
+        while (i + 1 < n &&
+               pair_infusate_change(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                    infusate_k_mmol_l, volume_l, out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_infusate_change(i, i + 1, na_mmol_l, tbw_l,
                                         infusate_na_mmol_l, infusate_k_mmol_l,
                                         volume_l, out, status);
@@ -967,11 +989,13 @@ int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_infusate_volume(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                 infusate_k_mmol_l, target_delta_mmol_l,
-                                 out, status, i)) {
+        while (i + 1 < n &&
+               pair_infusate_volume(na_mmol_l, tbw_l, infusate_na_mmol_l,
+                                    infusate_k_mmol_l, target_delta_mmol_l,
+                                    out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_infusate_volume_for_change(i, i + 1, na_mmol_l, tbw_l,
                                                    infusate_na_mmol_l,
                                                    infusate_k_mmol_l,
@@ -1036,10 +1060,12 @@ int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_furst_ratio(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
-                             out, status, i)) {
+        while (i + 1 < n &&
+               pair_furst_ratio(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
+                                out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_furst_ratio(i, i + 1, urine_na_mmol_l, urine_k_mmol_l,
                                     serum_na_mmol_l, out, status);
             i++;
@@ -1154,10 +1180,12 @@ int ntr_batch_efwc(size_t n, const double *urine_volume_l,
     i = 0;
 #if NTR_PAIRS
     while (i + 1 < n) {
-        if (pair_efwc(urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
-                      serum_na_mmol_l, out, status, i)) {
+        while (i + 1 < n &&
+               pair_efwc(urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
+                         serum_na_mmol_l, out, status, i)) {
             i += 2;
-        } else {
+        }
+        if (i + 1 < n) {
             bad += rows_efwc(i, i + 1, urine_volume_l, urine_na_mmol_l,
                              urine_k_mmol_l, serum_na_mmol_l, out, status);
             i++;

@@ -13,6 +13,14 @@
 #define NTR_WATER_MAN 0.6          /* and children from 1 year */
 #define NTR_WATER_WOMAN 0.5        /* and men from 65 */
 #define NTR_WATER_OLDER_WOMAN 0.45 /* from 65 */
+
+/* Weights, kg, for which every Watson body water inside the accepted share
+ * of weight (NTR_TBW_SHARE_MIN..NTR_TBW_SHARE_MAX) is also inside the
+ * model's NTR_TBW_MIN..NTR_TBW_MAX: in doubles 0.20 * 0.5 rounds to
+ * exactly 0.1 and 0.80 * 500 to exactly 400, and rounding is monotonic.
+ * The two-lane Watson kernel tests this instead of the body water. */
+#define NTR_WATSON_SURE_WEIGHT_MIN 0.5
+#define NTR_WATSON_SURE_WEIGHT_MAX 500.0
 #endif
 
 #if (NTRK_FLAVOUR == 0 && !defined(NTR_WATER_KERNELS_0)) || \
@@ -98,7 +106,11 @@ static inline NTRK_VERDICT NTRK(tbw_watson)(NTRK_SEX sex, NTRK_REAL age_years,
      * of a 10 kg woman 150 cm tall): refuse what is no body water, and
      * what no function taking a body water would accept. */
     NTRK_TRY(NTRK(tbw_share)(tbw, weight_kg));
-    NTRK_TRY(NTRK(model_tbw)(tbw));
+    /* In two lanes, a weight that makes the share check imply this one
+     * (NTRK_TRY_SURE; other weights go to the scalar kernel). */
+    NTRK_TRY_SURE(NTRK(model_tbw)(tbw),
+                  NTRK_WITHIN(weight_kg, NTR_WATSON_SURE_WEIGHT_MIN,
+                              NTR_WATSON_SURE_WEIGHT_MAX));
     *litres = tbw;
     NTRK_END;
 }
