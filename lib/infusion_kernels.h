@@ -104,8 +104,13 @@ static inline NTRK_VERDICT NTRK(infusate_volume_for_change)(
                                    infusate_k_mmol_l));
     NTRK_CHECK(target_delta_mmol_l, -NTR_DELTA_MAX, NTR_DELTA_MAX);
     /* The sodium aimed at must be one the model predicts, by the rule
-     * ntr_relower_estimate() applies to its target. */
-    NTRK_TRY(NTRK(model_na)(na_mmol_l + target_delta_mmol_l));
+     * ntr_relower_estimate() applies to its target. Two lanes require it
+     * at least NTR_VOLUME_SURE_MARGIN inside the range, which the
+     * prediction's check below relies on (see there). */
+    NTRK_TRY_SURE(NTRK(model_na)(na_mmol_l + target_delta_mmol_l),
+                  NTRK_WITHIN(na_mmol_l + target_delta_mmol_l,
+                              NTR_NA_MIN + NTR_VOLUME_SURE_MARGIN,
+                              NTR_NA_MAX - NTR_VOLUME_SURE_MARGIN));
     NTRK_RETURN_IF(NTRK_EQ(target_delta_mmol_l, NTRK_K(0.0)), volume_l, 0.0);
     /* The infusate must lie beyond the target sodium, on the same side.
      * (A change of 0 fails both tests: in two lanes, such a row goes to
@@ -122,28 +127,25 @@ static inline NTRK_VERDICT NTRK(infusate_volume_for_change)(
     /* The volume given to ntr_infusate_change() must not be refused there:
      * a target at the edge of the range can round to just outside it.
      *
-     * Two lanes test something cheaper that implies it (NTRK_TRY_SURE):
-     * the water after the volume as the prediction checks it, and the
-     * target at least NTR_VOLUME_SURE_MARGIN inside the sodium range. The
-     * prediction's sodium is Na + q with q = V*D/(TBW + V), D the
-     * infusate's excess over Na and V = delta*TBW/(D - delta); exactly,
-     * q = delta. Each of the five roundings on the way (D - delta,
-     * delta*TBW, the quotient, V*D, TBW + V, the quotient) is within a
-     * relative 2^-53, and |delta/D| < 1 (D lies beyond delta on the same
-     * side, as the headroom test required), so q is delta within a
-     * relative 10 * 2^-53, i.e. 6e-14 mmol/L for |delta| <= 50. The
-     * predicted sodium and the target (Na + delta, checked above) then
-     * differ by less than 1e-13 mmol/L with their own roundings, and a
-     * target 1e-9 inside the range has a prediction inside it too. Rows
-     * nearer the edge go to the scalar kernel, which computes the
-     * prediction. */
+     * Two lanes test only the water after the volume here (NTRK_TRY_SURE):
+     * the target was found at least NTR_VOLUME_SURE_MARGIN inside the
+     * sodium range above, and that implies the prediction's sodium is in
+     * range too. That sodium is Na + q with q = V*D/(TBW + V), D the
+     * infusate's excess over Na (the same double in the headroom and
+     * here) and V = delta*TBW/(D - delta); exactly, q = delta. Each of
+     * the six roundings on the way (D - delta, delta*TBW, the quotient,
+     * V*D, TBW + V, the quotient) is within a relative 2^-53, and
+     * |delta/D| < 1 (D lies beyond delta on the same side, as the headroom
+     * test required), so q is delta within a relative 10 * 2^-53, i.e.
+     * 6e-14 mmol/L for |delta| <= 50. The predicted sodium and the target
+     * (Na + delta) then differ by less than 1e-13 mmol/L with their own
+     * roundings, and a target 1e-9 inside the range has a prediction
+     * inside it too. Rows nearer the edge go to the scalar kernel, which
+     * computes the prediction (tests/test_batch.c sweeps them). */
     NTRK_TRY_SURE(NTRK(prediction)(na_mmol_l, tbw_l, volume,
                                    volume * (infusate_na_mmol_l +
                                              infusate_k_mmol_l - na_mmol_l)),
-                  NTRK_AND(NTRK(model_tbw)(tbw_l + volume),
-                           NTRK_WITHIN(na_mmol_l + target_delta_mmol_l,
-                                       NTR_NA_MIN + NTR_VOLUME_SURE_MARGIN,
-                                       NTR_NA_MAX - NTR_VOLUME_SURE_MARGIN)));
+                  NTRK(model_tbw)(tbw_l + volume));
     *volume_l = volume;
     NTRK_END;
 }

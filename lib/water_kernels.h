@@ -96,7 +96,10 @@ static inline NTRK_VERDICT NTRK(tbw_watson)(NTRK_SEX sex, NTRK_REAL age_years,
     NTRK_REQUIRE(NTRK(sex_known)(sex), NTR_ERR_ARG);
     NTRK_CHECK(age_years, NTR_ADULT_AGE, NTR_AGE_MAX);
     NTRK_CHECK(height_cm, NTR_HEIGHT_MIN, NTR_HEIGHT_MAX);
-    NTRK_CHECK(weight_kg, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX);
+    /* Two lanes take only the weights for which the share check below
+     * implies the model's body-water range (NTR_WATSON_SURE_WEIGHT_*). */
+    NTRK_CHECK_NARROW(weight_kg, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX,
+                      NTR_WATSON_SURE_WEIGHT_MIN, NTR_WATSON_SURE_WEIGHT_MAX);
     tbw = NTRK_SELECT(NTRK_SEX_IS(sex, NTR_SEX_MALE),
                       2.447 - 0.09516 * age_years + 0.1074 * height_cm +
                           0.3362 * weight_kg,
@@ -106,11 +109,8 @@ static inline NTRK_VERDICT NTRK(tbw_watson)(NTRK_SEX sex, NTRK_REAL age_years,
      * of a 10 kg woman 150 cm tall): refuse what is no body water, and
      * what no function taking a body water would accept. */
     NTRK_TRY(NTRK(tbw_share)(tbw, weight_kg));
-    /* In two lanes, a weight that makes the share check imply this one
-     * (NTRK_TRY_SURE; other weights go to the scalar kernel). */
-    NTRK_TRY_SURE(NTRK(model_tbw)(tbw),
-                  NTRK_WITHIN(weight_kg, NTR_WATSON_SURE_WEIGHT_MIN,
-                              NTR_WATSON_SURE_WEIGHT_MAX));
+    /* Implied in two lanes by the share check and the narrower weight. */
+    NTRK_TRY_IMPLIED(NTRK(model_tbw)(tbw));
     *litres = tbw;
     NTRK_END;
 }
