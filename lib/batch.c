@@ -224,8 +224,7 @@ static inline int pair_put(double *out, int *status, size_t i, ntr_pair value)
 
 /* The row loops (rows_*) stay out of line in this build: they run only
  * for a pair with a failing row and for the last odd row, and keeping
- * them out of the pair loop leaves it its registers, so its constants are
- * loaded once per call instead of once per pair. */
+ * them out of the pair loop leaves it its registers (NTR_DRIVE). */
 #define NTR_ROWS __attribute__((noinline))
 #else
 #define NTR_PAIRS 0
@@ -285,6 +284,42 @@ static int finish(size_t n, const int *status, size_t bad, size_t *failed)
     return status[i];
 }
 
+/* The row loop of every entry point with a double result. Before it, the
+ * entry point defines NTR_PAIR_EVAL(i, v), its two-lane kernel on rows i
+ * and i+1 (the verdict, the two values into *v), and
+ * NTR_ROW_RANGE(from, to), its row loop over [from, to) (the number of
+ * failed rows); bad counts the failed rows.
+ *
+ * Pairs while both rows pass, with no call inside that loop, so the
+ * kernel's constants stay in registers (a call would clobber them). When
+ * a pair fails, its first row goes through the row kernel, which finds the
+ * exact status, and the pairs resume at the next row; the last odd row
+ * goes through the row kernel too. A pair's values are stored only when
+ * both rows pass, so an out column that is also an input column (in
+ * place) is read before it is written, as in the row loop. (Two pairs per
+ * test were tried: no faster on valid rows, up to 40% slower on mixed
+ * ones, tests/bench/batch-ab.sh.) */
+#if NTR_PAIRS
+#define NTR_DRIVE(n, out, status, bad)                                       \
+    do {                                                                     \
+        size_t i_ = 0;                                                       \
+        while (i_ + 1 < (n)) {                                               \
+            ntr_pair v_;                                                     \
+            while (i_ + 1 < (n) && pair_all(NTR_PAIR_EVAL(i_, &v_))) {      \
+                (void)pair_put((out), (status), i_, v_);                     \
+                i_ += 2;                                                     \
+            }                                                                \
+            if (i_ + 1 < (n)) {                                              \
+                (bad) += NTR_ROW_RANGE(i_, i_ + 1);                          \
+                i_++;                                                        \
+            }                                                                \
+        }                                                                    \
+        (bad) += NTR_ROW_RANGE(i_, (n));                                     \
+    } while (0)
+#else
+#define NTR_DRIVE(n, out, status, bad) ((bad) += NTR_ROW_RANGE(0, (n)))
+#endif
+
 /* ---- osmolality (lib/osmolality_kernels.h) ---------------------------- */
 
 /* The formula's coefficients are resolved once per call, so the row loop
@@ -311,22 +346,6 @@ static NTR_ROWS size_t rows_osm_calculated(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_osm_calculated(const double *na, const double *glucose,
-                                      const double *urea, const double *ethanol,
-                                      ntr_pair coefficient, ntr_pair intercept,
-                                      double *out, int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_osm_calculated(pair_load(na + i),
-                                        pair_load(glucose + i),
-                                        pair_load(urea + i),
-                                        pair_load(ethanol + i), coefficient,
-                                        intercept, &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
                              const double *glucose_mmol_l,
                              const double *urea_mmol_l,
@@ -335,31 +354,24 @@ int ntr_batch_osm_calculated(size_t n, const double *na_mmol_l,
 {
     double coefficient;
     double intercept;
-    size_t i;
     size_t bad = 0;
     if (na_mmol_l == NULL || glucose_mmol_l == NULL || urea_mmol_l == NULL ||
         ethanol_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
     NTR_TRY(ntri_osm_formula(formula, &coefficient, &intercept));
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_osm_calculated(na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                                ethanol_mmol_l, pair_splat(coefficient),
-                                pair_splat(intercept), out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_osm_calculated(i, i + 1, na_mmol_l, glucose_mmol_l,
-                                       urea_mmol_l, ethanol_mmol_l,
-                                       coefficient, intercept, out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_osm_calculated(i, n, na_mmol_l, glucose_mmol_l, urea_mmol_l,
-                               ethanol_mmol_l, coefficient, intercept, out,
-                               status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_osm_calculated(pair_load(na_mmol_l + (i)),                           \
+                        pair_load(glucose_mmol_l + (i)),                      \
+                        pair_load(urea_mmol_l + (i)),                         \
+                        pair_load(ethanol_mmol_l + (i)),                      \
+                        pair_splat(coefficient), pair_splat(intercept), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_osm_calculated((from), (to), na_mmol_l, glucose_mmol_l, urea_mmol_l, \
+                        ethanol_mmol_l, coefficient, intercept, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -379,40 +391,23 @@ static NTR_ROWS size_t rows_osm_effective(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_osm_effective(const double *na, const double *glucose,
-                                     double *out, int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_osm_effective(pair_load(na + i),
-                                       pair_load(glucose + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_osm_effective(size_t n, const double *na_mmol_l,
                             const double *glucose_mmol_l, double *out,
                             int *status, size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (na_mmol_l == NULL || glucose_mmol_l == NULL || out == NULL ||
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_osm_effective(na_mmol_l, glucose_mmol_l, out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_osm_effective(i, i + 1, na_mmol_l, glucose_mmol_l, out,
-                                      status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_osm_effective(i, n, na_mmol_l, glucose_mmol_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_osm_effective(pair_load(na_mmol_l + (i)),                            \
+                       pair_load(glucose_mmol_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_osm_effective((from), (to), na_mmol_l, glucose_mmol_l, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -433,42 +428,24 @@ static NTR_ROWS size_t rows_osm_gap(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_osm_gap(const double *measured, const double *calculated,
-                               double *out, int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_osm_gap(pair_load(measured + i),
-                                 pair_load(calculated + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_osm_gap(size_t n, const double *measured_mosm_kg,
                       const double *calculated_mosm_kg, double *out,
                       int *status, size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (measured_mosm_kg == NULL || calculated_mosm_kg == NULL ||
         out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_osm_gap(measured_mosm_kg, calculated_mosm_kg, out, status,
-                         i)) {
-            i += 2;
-        } else {
-            bad += rows_osm_gap(i, i + 1, measured_mosm_kg, calculated_mosm_kg,
-                                out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_osm_gap(i, n, measured_mosm_kg, calculated_mosm_kg, out,
-                        status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_osm_gap(pair_load(measured_mosm_kg + (i)),                           \
+                 pair_load(calculated_mosm_kg + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_osm_gap((from), (to), measured_mosm_kg, calculated_mosm_kg, out,     \
+                 status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -495,48 +472,27 @@ static NTR_ROWS size_t rows_na_corrected_glucose(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_na_corrected_glucose(const double *na,
-                                            const double *glucose,
-                                            ntr_pair factor, double *out,
-                                            int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_na_corrected_glucose_factor(pair_load(na + i),
-                                                     pair_load(glucose + i),
-                                                     factor, &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_na_corrected_glucose(size_t n, const double *na_mmol_l,
                                    const double *glucose_mmol_l, int method,
                                    double *out, int *status, size_t *failed)
 {
     double factor;
-    size_t i;
     size_t bad = 0;
     if (na_mmol_l == NULL || glucose_mmol_l == NULL || out == NULL ||
         status == NULL) {
         return NTR_ERR_NULL;
     }
     NTR_TRY(ntri_glucose_factor(method, &factor));
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_na_corrected_glucose(na_mmol_l, glucose_mmol_l,
-                                      pair_splat(factor), out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_na_corrected_glucose(i, i + 1, na_mmol_l,
-                                             glucose_mmol_l, factor, out,
-                                             status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_na_corrected_glucose(i, n, na_mmol_l, glucose_mmol_l, factor,
-                                     out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_na_corrected_glucose_factor(pair_load(na_mmol_l + (i)),              \
+                                     pair_load(glucose_mmol_l + (i)),         \
+                                     pair_splat(factor), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_na_corrected_glucose((from), (to), na_mmol_l, glucose_mmol_l,        \
+                              factor, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -558,44 +514,25 @@ static NTR_ROWS size_t rows_na_deficit(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_na_deficit(const double *tbw, const double *na,
-                                  const double *target, double *out,
-                                  int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_na_deficit(pair_load(tbw + i), pair_load(na + i),
-                                    pair_load(target + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_na_deficit(size_t n, const double *tbw_l,
                          const double *na_mmol_l,
                          const double *target_na_mmol_l, double *out,
                          int *status, size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (tbw_l == NULL || na_mmol_l == NULL || target_na_mmol_l == NULL ||
         out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_na_deficit(tbw_l, na_mmol_l, target_na_mmol_l, out, status,
-                            i)) {
-            i += 2;
-        } else {
-            bad += rows_na_deficit(i, i + 1, tbw_l, na_mmol_l,
-                                   target_na_mmol_l, out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_na_deficit(i, n, tbw_l, na_mmol_l, target_na_mmol_l, out,
-                           status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_na_deficit(pair_load(tbw_l + (i)), pair_load(na_mmol_l + (i)),       \
+                    pair_load(target_na_mmol_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_na_deficit((from), (to), tbw_l, na_mmol_l, target_na_mmol_l, out,    \
+                    status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -618,42 +555,23 @@ static NTR_ROWS size_t rows_tbw_fraction(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_tbw_fraction(const int *sex, const double *age,
-                                    const double *weight, double *out,
-                                    int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_tbw_fraction(pair_sex_load(sex + i),
-                                      pair_load(age + i),
-                                      pair_load(weight + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_tbw_fraction(size_t n, const int *sex, const double *age_years,
                            const double *weight_kg, double *out, int *status,
                            size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (sex == NULL || age_years == NULL || weight_kg == NULL || out == NULL ||
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_tbw_fraction(sex, age_years, weight_kg, out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_tbw_fraction(i, i + 1, sex, age_years, weight_kg, out,
-                                     status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_tbw_fraction(i, n, sex, age_years, weight_kg, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_tbw_fraction(pair_sex_load(sex + (i)), pair_load(age_years + (i)),   \
+                      pair_load(weight_kg + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_tbw_fraction((from), (to), sex, age_years, weight_kg, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -675,44 +593,25 @@ static NTR_ROWS size_t rows_tbw_watson(size_t from, size_t to, const int *sex,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_tbw_watson(const int *sex, const double *age,
-                                  const double *height, const double *weight,
-                                  double *out, int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_tbw_watson(pair_sex_load(sex + i), pair_load(age + i),
-                                    pair_load(height + i),
-                                    pair_load(weight + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_tbw_watson(size_t n, const int *sex, const double *age_years,
                          const double *height_cm, const double *weight_kg,
                          double *out, int *status, size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (sex == NULL || age_years == NULL || height_cm == NULL ||
         weight_kg == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_tbw_watson(sex, age_years, height_cm, weight_kg, out, status,
-                            i)) {
-            i += 2;
-        } else {
-            bad += rows_tbw_watson(i, i + 1, sex, age_years, height_cm,
-                                   weight_kg, out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_tbw_watson(i, n, sex, age_years, height_cm, weight_kg, out,
-                           status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_tbw_watson(pair_sex_load(sex + (i)), pair_load(age_years + (i)),     \
+                    pair_load(height_cm + (i)), pair_load(weight_kg + (i)),   \
+                    (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_tbw_watson((from), (to), sex, age_years, height_cm, weight_kg, out,  \
+                    status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -732,39 +631,22 @@ static NTR_ROWS size_t rows_free_water_deficit(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_free_water_deficit(const double *tbw, const double *na,
-                                          double *out, int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_free_water_deficit(pair_load(tbw + i),
-                                            pair_load(na + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_free_water_deficit(size_t n, const double *tbw_l,
                                  const double *na_mmol_l, double *out,
                                  int *status, size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (tbw_l == NULL || na_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_free_water_deficit(tbw_l, na_mmol_l, out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_free_water_deficit(i, i + 1, tbw_l, na_mmol_l, out,
-                                           status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_free_water_deficit(i, n, tbw_l, na_mmol_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_free_water_deficit(pair_load(tbw_l + (i)),                           \
+                            pair_load(na_mmol_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_free_water_deficit((from), (to), tbw_l, na_mmol_l, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -790,22 +672,6 @@ rows_infusate_change_per_litre(size_t from, size_t to, const double *na_mmol_l,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_infusate_change_per_litre(const double *na,
-                                                 const double *tbw,
-                                                 const double *infusate_na,
-                                                 const double *infusate_k,
-                                                 double *out, int *status,
-                                                 size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_infusate_change_per_litre(
-               pair_load(na + i), pair_load(tbw + i),
-               pair_load(infusate_na + i), pair_load(infusate_k + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_infusate_change_per_litre(size_t n, const double *na_mmol_l,
                                         const double *tbw_l,
                                         const double *infusate_na_mmol_l,
@@ -813,30 +679,23 @@ int ntr_batch_infusate_change_per_litre(size_t n, const double *na_mmol_l,
                                         double *out, int *status,
                                         size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
         infusate_k_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_infusate_change_per_litre(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                           infusate_k_mmol_l, out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_infusate_change_per_litre(i, i + 1, na_mmol_l, tbw_l,
-                                                  infusate_na_mmol_l,
-                                                  infusate_k_mmol_l, out,
-                                                  status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_infusate_change_per_litre(i, n, na_mmol_l, tbw_l,
-                                          infusate_na_mmol_l,
-                                          infusate_k_mmol_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_infusate_change_per_litre(pair_load(na_mmol_l + (i)),                \
+                                   pair_load(tbw_l + (i)),                    \
+                                   pair_load(infusate_na_mmol_l + (i)),       \
+                                   pair_load(infusate_k_mmol_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_infusate_change_per_litre((from), (to), na_mmol_l, tbw_l,            \
+                                   infusate_na_mmol_l, infusate_k_mmol_l,     \
+                                   out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -862,22 +721,6 @@ static NTR_ROWS size_t rows_infusate_change(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_infusate_change(const double *na, const double *tbw,
-                                       const double *infusate_na,
-                                       const double *infusate_k,
-                                       const double *volume, double *out,
-                                       int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_infusate_change(pair_load(na + i), pair_load(tbw + i),
-                                         pair_load(infusate_na + i),
-                                         pair_load(infusate_k + i),
-                                         pair_load(volume + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
                               const double *tbw_l,
                               const double *infusate_na_mmol_l,
@@ -885,29 +728,23 @@ int ntr_batch_infusate_change(size_t n, const double *na_mmol_l,
                               const double *volume_l, double *out, int *status,
                               size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
         infusate_k_mmol_l == NULL || volume_l == NULL || out == NULL ||
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_infusate_change(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                 infusate_k_mmol_l, volume_l, out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_infusate_change(i, i + 1, na_mmol_l, tbw_l,
-                                        infusate_na_mmol_l, infusate_k_mmol_l,
-                                        volume_l, out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_infusate_change(i, n, na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                infusate_k_mmol_l, volume_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_infusate_change(pair_load(na_mmol_l + (i)), pair_load(tbw_l + (i)),  \
+                         pair_load(infusate_na_mmol_l + (i)),                 \
+                         pair_load(infusate_k_mmol_l + (i)),                  \
+                         pair_load(volume_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_infusate_change((from), (to), na_mmol_l, tbw_l, infusate_na_mmol_l,  \
+                         infusate_k_mmol_l, volume_l, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -932,23 +769,6 @@ rows_infusate_volume_for_change(size_t from, size_t to, const double *na_mmol_l,
     return bad;
 }
 
-#if NTR_PAIRS
-/* A wanted change of 0 is left to the scalar kernel (NTRK_RETURN_IF). */
-static inline int pair_infusate_volume(const double *na, const double *tbw,
-                                       const double *infusate_na,
-                                       const double *infusate_k,
-                                       const double *delta, double *out,
-                                       int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_infusate_volume_for_change(
-               pair_load(na + i), pair_load(tbw + i),
-               pair_load(infusate_na + i), pair_load(infusate_k + i),
-               pair_load(delta + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
                                          const double *tbw_l,
                                          const double *infusate_na_mmol_l,
@@ -957,34 +777,26 @@ int ntr_batch_infusate_volume_for_change(size_t n, const double *na_mmol_l,
                                          double *out, int *status,
                                          size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (na_mmol_l == NULL || tbw_l == NULL || infusate_na_mmol_l == NULL ||
         infusate_k_mmol_l == NULL || target_delta_mmol_l == NULL ||
         out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_infusate_volume(na_mmol_l, tbw_l, infusate_na_mmol_l,
-                                 infusate_k_mmol_l, target_delta_mmol_l,
-                                 out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_infusate_volume_for_change(i, i + 1, na_mmol_l, tbw_l,
-                                                   infusate_na_mmol_l,
-                                                   infusate_k_mmol_l,
-                                                   target_delta_mmol_l, out,
-                                                   status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_infusate_volume_for_change(i, n, na_mmol_l, tbw_l,
-                                           infusate_na_mmol_l,
-                                           infusate_k_mmol_l,
-                                           target_delta_mmol_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_infusate_volume_for_change(pair_load(na_mmol_l + (i)),               \
+                                    pair_load(tbw_l + (i)),                   \
+                                    pair_load(infusate_na_mmol_l + (i)),      \
+                                    pair_load(infusate_k_mmol_l + (i)),       \
+                                    pair_load(target_delta_mmol_l + (i)),     \
+                                    (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_infusate_volume_for_change((from), (to), na_mmol_l, tbw_l,           \
+                                    infusate_na_mmol_l, infusate_k_mmol_l,    \
+                                    target_delta_mmol_l, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -1008,46 +820,26 @@ static NTR_ROWS size_t rows_furst_ratio(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_furst_ratio(const double *urine_na,
-                                   const double *urine_k,
-                                   const double *serum_na, double *out,
-                                   int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_furst_ratio(pair_load(urine_na + i),
-                                     pair_load(urine_k + i),
-                                     pair_load(serum_na + i), &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_furst_ratio(size_t n, const double *urine_na_mmol_l,
                           const double *urine_k_mmol_l,
                           const double *serum_na_mmol_l, double *out,
                           int *status, size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (urine_na_mmol_l == NULL || urine_k_mmol_l == NULL ||
         serum_na_mmol_l == NULL || out == NULL || status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_furst_ratio(urine_na_mmol_l, urine_k_mmol_l, serum_na_mmol_l,
-                             out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_furst_ratio(i, i + 1, urine_na_mmol_l, urine_k_mmol_l,
-                                    serum_na_mmol_l, out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_furst_ratio(i, n, urine_na_mmol_l, urine_k_mmol_l,
-                            serum_na_mmol_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_furst_ratio(pair_load(urine_na_mmol_l + (i)),                        \
+                     pair_load(urine_k_mmol_l + (i)),                         \
+                     pair_load(serum_na_mmol_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_furst_ratio((from), (to), urine_na_mmol_l, urine_k_mmol_l,           \
+                     serum_na_mmol_l, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 
@@ -1126,46 +918,28 @@ static NTR_ROWS size_t rows_efwc(size_t from, size_t to,
     return bad;
 }
 
-#if NTR_PAIRS
-static inline int pair_efwc(const double *volume, const double *urine_na,
-                            const double *urine_k, const double *serum_na,
-                            double *out, int *status, size_t i)
-{
-    ntr_pair v;
-    return pair_all(ntrp_efwc(pair_load(volume + i), pair_load(urine_na + i),
-                              pair_load(urine_k + i), pair_load(serum_na + i),
-                              &v)) &&
-           pair_put(out, status, i, v);
-}
-#endif
-
 int ntr_batch_efwc(size_t n, const double *urine_volume_l,
                    const double *urine_na_mmol_l, const double *urine_k_mmol_l,
                    const double *serum_na_mmol_l, double *out, int *status,
                    size_t *failed)
 {
-    size_t i;
     size_t bad = 0;
     if (urine_volume_l == NULL || urine_na_mmol_l == NULL ||
         urine_k_mmol_l == NULL || serum_na_mmol_l == NULL || out == NULL ||
         status == NULL) {
         return NTR_ERR_NULL;
     }
-    i = 0;
-#if NTR_PAIRS
-    while (i + 1 < n) {
-        if (pair_efwc(urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
-                      serum_na_mmol_l, out, status, i)) {
-            i += 2;
-        } else {
-            bad += rows_efwc(i, i + 1, urine_volume_l, urine_na_mmol_l,
-                             urine_k_mmol_l, serum_na_mmol_l, out, status);
-            i++;
-        }
-    }
-#endif
-    bad += rows_efwc(i, n, urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,
-                     serum_na_mmol_l, out, status);
+#define NTR_PAIR_EVAL(i, v) \
+    ntrp_efwc(pair_load(urine_volume_l + (i)),                                \
+              pair_load(urine_na_mmol_l + (i)),                               \
+              pair_load(urine_k_mmol_l + (i)),                                \
+              pair_load(serum_na_mmol_l + (i)), (v))
+#define NTR_ROW_RANGE(from, to) \
+    rows_efwc((from), (to), urine_volume_l, urine_na_mmol_l, urine_k_mmol_l,  \
+              serum_na_mmol_l, out, status)
+    NTR_DRIVE(n, out, status, bad);
+#undef NTR_PAIR_EVAL
+#undef NTR_ROW_RANGE
     return finish(n, status, bad, failed);
 }
 

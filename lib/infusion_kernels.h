@@ -4,6 +4,16 @@
  * ntr_infusate_volume_for_change(), used by those functions
  * (lib/infusion.c) and by their batch entry points (lib/batch.c).
  * Lane-generic, see lib/kernel_lanes.h. Not installed. */
+#ifndef NTR_INFUSION_KERNELS_ONCE
+#define NTR_INFUSION_KERNELS_ONCE
+/* How far inside the model's sodium range (NTR_NA_MIN..NTR_NA_MAX) a
+ * target sodium must lie for the two-lane volume kernel to take the mass
+ * balance of its volume as accepted without computing it, mmol/L (see
+ * infusate_volume_for_change below): far above the bound on the rounding
+ * error, far below any sodium a caller can tell apart. */
+#define NTR_VOLUME_SURE_MARGIN 1e-9
+#endif
+
 #if (NTRK_FLAVOUR == 0 && !defined(NTR_INFUSION_KERNELS_0)) || \
     (NTRK_FLAVOUR == 1 && !defined(NTR_INFUSION_KERNELS_1)) || \
     (NTRK_FLAVOUR == 2 && !defined(NTR_INFUSION_KERNELS_2))
@@ -94,8 +104,13 @@ static inline NTRK_VERDICT NTRK(infusate_volume_for_change)(
                                    infusate_k_mmol_l));
     NTRK_CHECK(target_delta_mmol_l, -NTR_DELTA_MAX, NTR_DELTA_MAX);
     /* The sodium aimed at must be one the model predicts, by the rule
-     * ntr_relower_estimate() applies to its target. */
-    NTRK_TRY(NTRK(model_na)(na_mmol_l + target_delta_mmol_l));
+     * ntr_relower_estimate() applies to its target. Two lanes require it
+     * at least NTR_VOLUME_SURE_MARGIN inside the range, which the
+     * prediction's check below relies on (see there). */
+    NTRK_TRY_SURE(NTRK(model_na)(na_mmol_l + target_delta_mmol_l),
+                  NTRK_WITHIN(na_mmol_l + target_delta_mmol_l,
+                              NTR_NA_MIN + NTR_VOLUME_SURE_MARGIN,
+                              NTR_NA_MAX - NTR_VOLUME_SURE_MARGIN));
     NTRK_RETURN_IF(NTRK_EQ(target_delta_mmol_l, NTRK_K(0.0)), volume_l, 0.0);
     /* The infusate must lie beyond the target sodium, on the same side.
      * (A change of 0 fails both tests: in two lanes, such a row goes to
@@ -110,10 +125,27 @@ static inline NTRK_VERDICT NTRK(infusate_volume_for_change)(
     volume = target_delta_mmol_l * tbw_l / headroom;
     NTRK_REQUIRE(NTRK_LE(volume, NTRK_K(NTR_INFUSE_VOLUME_MAX)), NTR_ERR_DOMAIN);
     /* The volume given to ntr_infusate_change() must not be refused there:
-     * a target at the edge of the range can round to just outside it. */
-    NTRK_TRY(NTRK(prediction)(na_mmol_l, tbw_l, volume,
-                              volume * (infusate_na_mmol_l + infusate_k_mmol_l -
-                                        na_mmol_l)));
+     * a target at the edge of the range can round to just outside it.
+     *
+     * Two lanes test only the water after the volume here (NTRK_TRY_SURE):
+     * the target was found at least NTR_VOLUME_SURE_MARGIN inside the
+     * sodium range above, and that implies the prediction's sodium is in
+     * range too. That sodium is Na + q with q = V*D/(TBW + V), D the
+     * infusate's excess over Na (the same double in the headroom and
+     * here) and V = delta*TBW/(D - delta); exactly, q = delta. Each of
+     * the six roundings on the way (D - delta, delta*TBW, the quotient,
+     * V*D, TBW + V, the quotient) is within a relative 2^-53, and
+     * |delta/D| < 1 (D lies beyond delta on the same side, as the headroom
+     * test required), so q is delta within a relative 10 * 2^-53, i.e.
+     * 6e-14 mmol/L for |delta| <= 50. The predicted sodium and the target
+     * (Na + delta) then differ by less than 1e-13 mmol/L with their own
+     * roundings, and a target 1e-9 inside the range has a prediction
+     * inside it too. Rows nearer the edge go to the scalar kernel, which
+     * computes the prediction (tests/test_batch.c sweeps them). */
+    NTRK_TRY_SURE(NTRK(prediction)(na_mmol_l, tbw_l, volume,
+                                   volume * (infusate_na_mmol_l +
+                                             infusate_k_mmol_l - na_mmol_l)),
+                  NTRK(model_tbw)(tbw_l + volume));
     *volume_l = volume;
     NTRK_END;
 }

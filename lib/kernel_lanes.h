@@ -52,6 +52,22 @@
  *                              must fail such rows in a later check of its
  *                              own (its comment says which), so that they
  *                              go to flavour 2
+ *   NTRK_TRY_SURE(v, t)        scalar: NTRK_TRY(v). Pairs evaluate the
+ *                              test t instead, which must imply that v
+ *                              succeeds (a sufficient condition that is
+ *                              cheaper, e.g. without a division): a row
+ *                              it fails goes to flavour 2, which finds
+ *                              the exact verdict; the kernel's comment
+ *                              shows why t implies v
+ *   NTRK_TRY_IMPLIED(v)        scalar: NTRK_TRY(v). Pairs test nothing:
+ *                              the pair checks before it imply that v
+ *                              succeeds (the kernel's comment shows why)
+ *   NTRK_CHECK_NARROW(x, lo, hi, from, to)
+ *                              scalar: NTRK_CHECK(x, lo, hi). Pairs test
+ *                              the narrower from <= x <= to (lo <= from,
+ *                              to <= hi), inside which a later
+ *                              NTRK_TRY_IMPLIED holds; rows outside it go
+ *                              to flavour 2
  *   NTRK_GE/GT/LE/LT/EQ(a, b)  comparisons of reals (false for NaN)
  *   NTRK_WITHIN(x, lo, hi)     lo <= x <= hi as a test
  *   NTRK_AND/OR(t, u)          tests combined
@@ -74,6 +90,9 @@
 #undef NTRK_REQUIRE
 #undef NTRK_TRY
 #undef NTRK_RETURN_IF
+#undef NTRK_TRY_SURE
+#undef NTRK_TRY_IMPLIED
+#undef NTRK_CHECK_NARROW
 #undef NTRK_GE
 #undef NTRK_GT
 #undef NTRK_LE
@@ -123,6 +142,9 @@
             return NTR_OK;        \
         }                         \
     } while (0)
+#define NTRK_TRY_SURE(v, t) NTR_TRY(v)
+#define NTRK_TRY_IMPLIED(v) NTR_TRY(v)
+#define NTRK_CHECK_NARROW(x, lo, hi, from, to) NTRK_CHECK(x, lo, hi)
 #define NTRK_GE(a, b) ((a) >= (b))
 #define NTRK_GT(a, b) ((a) > (b))
 #define NTRK_LE(a, b) ((a) <= (b))
@@ -162,6 +184,11 @@
 #define NTRK_TRY(v) (ntrk_ok_ = pair_verdict_and(ntrk_ok_, (v)))
 /* No lane test (see the vocabulary above): a later check fails such rows. */
 #define NTRK_RETURN_IF(t, out, x) ((void)0)
+/* The sufficient test only (see the vocabulary above). */
+#define NTRK_TRY_SURE(v, t) (ntrk_ok_ = pair_verdict_and(ntrk_ok_, (t)))
+#define NTRK_TRY_IMPLIED(v) ((void)0)
+#define NTRK_CHECK_NARROW(x, lo, hi, from, to) \
+    (ntrk_ok_ = pair_verdict_and(ntrk_ok_, pair_in((x), (from), (to))))
 #define NTRK_GE(a, b) pair_ge((a), (b))
 #define NTRK_GT(a, b) pair_gt((a), (b))
 #define NTRK_LE(a, b) pair_le((a), (b))

@@ -13,6 +13,14 @@
 #define NTR_WATER_MAN 0.6          /* and children from 1 year */
 #define NTR_WATER_WOMAN 0.5        /* and men from 65 */
 #define NTR_WATER_OLDER_WOMAN 0.45 /* from 65 */
+
+/* Weights, kg, for which every Watson body water inside the accepted share
+ * of weight (NTR_TBW_SHARE_MIN..NTR_TBW_SHARE_MAX) is also inside the
+ * model's NTR_TBW_MIN..NTR_TBW_MAX: in doubles 0.20 * 0.5 rounds to
+ * exactly 0.1 and 0.80 * 500 to exactly 400, and rounding is monotonic.
+ * The two-lane Watson kernel tests this instead of the body water. */
+#define NTR_WATSON_SURE_WEIGHT_MIN 0.5
+#define NTR_WATSON_SURE_WEIGHT_MAX 500.0
 #endif
 
 #if (NTRK_FLAVOUR == 0 && !defined(NTR_WATER_KERNELS_0)) || \
@@ -88,7 +96,10 @@ static inline NTRK_VERDICT NTRK(tbw_watson)(NTRK_SEX sex, NTRK_REAL age_years,
     NTRK_REQUIRE(NTRK(sex_known)(sex), NTR_ERR_ARG);
     NTRK_CHECK(age_years, NTR_ADULT_AGE, NTR_AGE_MAX);
     NTRK_CHECK(height_cm, NTR_HEIGHT_MIN, NTR_HEIGHT_MAX);
-    NTRK_CHECK(weight_kg, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX);
+    /* Two lanes take only the weights for which the share check below
+     * implies the model's body-water range (NTR_WATSON_SURE_WEIGHT_*). */
+    NTRK_CHECK_NARROW(weight_kg, NTR_WEIGHT_MIN, NTR_WEIGHT_MAX,
+                      NTR_WATSON_SURE_WEIGHT_MIN, NTR_WATSON_SURE_WEIGHT_MAX);
     tbw = NTRK_SELECT(NTRK_SEX_IS(sex, NTR_SEX_MALE),
                       2.447 - 0.09516 * age_years + 0.1074 * height_cm +
                           0.3362 * weight_kg,
@@ -98,7 +109,8 @@ static inline NTRK_VERDICT NTRK(tbw_watson)(NTRK_SEX sex, NTRK_REAL age_years,
      * of a 10 kg woman 150 cm tall): refuse what is no body water, and
      * what no function taking a body water would accept. */
     NTRK_TRY(NTRK(tbw_share)(tbw, weight_kg));
-    NTRK_TRY(NTRK(model_tbw)(tbw));
+    /* Implied in two lanes by the share check and the narrower weight. */
+    NTRK_TRY_IMPLIED(NTRK(model_tbw)(tbw));
     *litres = tbw;
     NTRK_END;
 }

@@ -632,6 +632,101 @@ static void infusion_zero_change_in_pairs(void **state)
     }
 }
 
+/* The two-row Watson kernel takes the model's body-water range as implied
+ * by the share-of-weight check for weights from 0.5 to 500 kg (0.20 * 0.5
+ * kg is 0.1 L, the lowest body water the model accepts; lib/water_kernels.h).
+ * A 30 cm man of 0.5 kg (or 0.4 kg, outside those weights) aged about 60
+ * years has a Watson body water crossing 0.1 L (5.8371 - 0.09516 * age at
+ * 0.5 kg; at 0.4 kg it also crosses the 0.08 L share of weight): ages swept
+ * across them in pairs of rows, every row equal to the scalar function,
+ * both statuses present. Source: the scalar function (the definition), Watson et al.
+ * 1980 men's equation. */
+static void watson_rows_near_lowest_water(void **state)
+{
+    size_t i, failed, bad = 0, ok = 0, domain = 0;
+    int ret;
+    (void)state;
+    for (i = 0; i < 512; i++) {
+        sexes[i] = NTR_SEX_MALE;
+        a1[i] = 59.5 + 1.5 * (double)(i / 2) / 256.0;
+        a2[i] = 30.0;
+        a3[i] = (i % 4 < 2) ? 0.5 : 0.4;
+    }
+    ret = ntr_batch_tbw_watson(512, sexes, a1, a2, a3, out, status, &failed);
+    for (i = 0; i < 512; i++) {
+        double s = SENTINEL;
+        int st = ntr_tbw_watson(sexes[i], a1[i], a2[i], a3[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+        ok += (st == NTR_OK);
+        domain += (st == NTR_ERR_DOMAIN);
+    }
+    check_summary(ret, failed, status, 512, bad);
+    assert_true(ok > 0);
+    assert_true(domain > 0);
+    assert_int_equal(ok + domain, 512);
+}
+
+/* One scenario of infusion_volume_near_model_edges: n rows of the same
+ * sodium, water and infusate, wanted changes from first upwards in steps of
+ * one unit in the last place, every row equal to the scalar function.
+ * across_edge: the scalar function must accept some rows and refuse others
+ * with NTR_ERR_DOMAIN; else it must accept them all. */
+static void volume_edge_rows(double na, double tbw, double inf_na,
+                             double first_delta, size_t n, int across_edge)
+{
+    size_t i, failed, bad = 0, ok = 0, domain = 0;
+    int ret;
+    double d = first_delta;
+    for (i = 0; i < n; i++) {
+        a1[i] = na;
+        a2[i] = tbw;
+        a3[i] = inf_na;
+        a4[i] = 0.0;
+        a5[i] = d;
+        d = nextafter(d, 1e9);
+    }
+    ret = ntr_batch_infusate_volume_for_change(n, a1, a2, a3, a4, a5, out,
+                                               status, &failed);
+    for (i = 0; i < n; i++) {
+        double s = SENTINEL;
+        int st = ntr_infusate_volume_for_change(a1[i], a2[i], a3[i], a4[i],
+                                                a5[i], &s);
+        bad += check_row(i, st, s, status[i], out[i]);
+        ok += (st == NTR_OK);
+        domain += (st == NTR_ERR_DOMAIN);
+    }
+    check_summary(ret, failed, status, n, bad);
+    if (across_edge) {
+        assert_true(ok > 0);
+        assert_true(domain > 0);
+        assert_int_equal(ok + domain, n);
+    } else {
+        assert_int_equal(ok, n);
+    }
+}
+
+/* The two-row volume kernel accepts the mass balance of its volume by a
+ * sufficient test (the target at least NTR_VOLUME_SURE_MARGIN = 1e-9
+ * mmol/L inside 80..220 mmol/L, lib/infusion_kernels.h) instead of
+ * computing it. Targets swept across the range edges themselves and across
+ * that margin, and volumes whose water after crosses 400 L, in pairs of
+ * rows: each row's status and value must be the scalar function's.
+ * Source: the scalar function (the definition), the model range of
+ * docs/ranges.md. */
+static void infusion_volume_near_model_edges(void **state)
+{
+    (void)state;
+    /* rise towards 220 mmol/L: target 200 + delta, delta near 20 */
+    volume_edge_rows(200.0, 40.0, 1000.0, 20.0 - 32 * 3.6e-15, 64, 1);
+    volume_edge_rows(200.0, 40.0, 1000.0, 20.0 - 1e-9 - 32 * 3.6e-15, 64, 0);
+    /* fall towards 80 mmol/L: target 100 + delta, delta near -20 */
+    volume_edge_rows(100.0, 40.0, 0.0, -20.0 - 32 * 3.6e-15, 64, 1);
+    volume_edge_rows(100.0, 40.0, 0.0, -20.0 + 1e-9 - 32 * 3.6e-15, 64, 0);
+    /* water after near 400 L: 395 L + V, V = x*395/(140 - x) = 5 L at
+     * x = 1.75 */
+    volume_edge_rows(140.0, 395.0, 0.0, -1.75 - 100 * 2.22e-16, 200, 1);
+}
+
 static void urine_rows_equal_scalar(void **state)
 {
     size_t i, failed, bad;
@@ -1354,6 +1449,8 @@ int main(void)
         cmocka_unit_test(water_rows_equal_scalar),
         cmocka_unit_test(infusion_rows_equal_scalar),
         cmocka_unit_test(infusion_zero_change_in_pairs),
+        cmocka_unit_test(infusion_volume_near_model_edges),
+        cmocka_unit_test(watson_rows_near_lowest_water),
         cmocka_unit_test(urine_rows_equal_scalar),
         cmocka_unit_test(correction_groups_published),
         cmocka_unit_test(correction_groups_contract),

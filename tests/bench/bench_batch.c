@@ -21,10 +21,21 @@
  * batch call streams; loop_ratio = loop time / batch time (1.0 = the batch
  * call costs nothing beyond its memory traffic).
  *
+ * A diagnostic baseline for the functions whose batch call is slower than
+ * the loop (issue 16, tests/bench/notes.md): the same loop, but computing
+ * the function's value with the arithmetic its formula does per row, in
+ * plain C, still with no checks. It tells the cost of the arithmetic
+ * itself (a division per row, the two Watson equations) from the cost of
+ * the checks. The arithmetic is restated here for timing only; nothing
+ * compares its values (the formulas are defined in the kernel headers, lib/).
+ *
  * Usage: bench_batch [rows] [repeats]   (defaults 10000000 and 5)
  * Output: one line per function,
  *   name rows bytes_per_row batch_s copy_s batch_gb_s copy_gb_s ratio failed
- *   loop_s loop_ratio */
+ *   loop_s loop_ratio
+ * and, after the line of a function with a diagnostic baseline, a comment
+ * line (skipped by tests/bench/report.py):
+ *   # arith name arith_s loop_s/arith_s arith_s/batch_s */
 #define _POSIX_C_SOURCE 200809L
 #include <stdint.h>
 #include <stdio.h>
@@ -57,6 +68,9 @@ struct batch {
     int int_result;  /* result column is int (advice) instead of double */
     struct span spans[MAX_DOUBLE_COLUMNS];
     int (*call)(const struct columns *c, size_t n, size_t *failed);
+    /* the diagnostic baseline (same columns, the formula's arithmetic, no
+     * checks), or NULL */
+    void (*arith)(const struct columns *c, size_t n);
 };
 
 static int call_osm_calculated(const struct columns *c, size_t n, size_t *failed)
@@ -138,38 +152,117 @@ static int call_efwc(const struct columns *c, size_t n, size_t *failed)
                           c->status, failed);
 }
 
+/* ---- diagnostic baselines: the arithmetic, no checks ------------------ */
+
+static void arith_osm_effective(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        c->out[i] = 2.0 * c->in[0][i] + c->in[1][i];
+        c->status[i] = 0;
+    }
+}
+/* Hillier: na + 2.4 * (glucose * 18.0156 - 100) / 100 above 100 mg/dL. */
+static void arith_na_corrected_glucose(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        double mg = c->in[1][i] * 18.0156;
+        c->out[i] = mg <= 100.0 ? c->in[0][i]
+                                : c->in[0][i] + 2.4 * (mg - 100.0) / 100.0;
+        c->status[i] = 0;
+    }
+}
+/* The Adrogue-Madias fraction picked by age and sex, times the weight. */
+static void arith_tbw_fraction(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        double age = c->in[0][i];
+        int female = c->sex[i] == NTR_SEX_FEMALE;
+        double f = age < 18.0 ? 0.6
+                   : female   ? (age >= 65.0 ? 0.45 : 0.5)
+                              : (age >= 65.0 ? 0.5 : 0.6);
+        c->out[i] = f * c->in[1][i];
+        c->status[i] = 0;
+    }
+}
+/* Both Watson equations, one picked by sex. */
+static void arith_tbw_watson(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        double age = c->in[0][i], height = c->in[1][i], weight = c->in[2][i];
+        c->out[i] = c->sex[i] == NTR_SEX_MALE
+                        ? 2.447 - 0.09516 * age + 0.1074 * height +
+                              0.3362 * weight
+                        : -2.097 + 0.1069 * height + 0.2466 * weight;
+        c->status[i] = 0;
+    }
+}
+/* (Na_inf + K_inf - Na) / (TBW + 1): one division per row. */
+static void arith_infusate_change_per_litre(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        c->out[i] = (c->in[2][i] + c->in[3][i] - c->in[0][i]) /
+                    (c->in[1][i] + 1.0);
+        c->status[i] = 0;
+    }
+}
+/* V * (Na_inf + K_inf - Na) / (TBW + V): one division per row. */
+static void arith_infusate_change(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        c->out[i] = c->in[4][i] * (c->in[2][i] + c->in[3][i] - c->in[0][i]) /
+                    (c->in[1][i] + c->in[4][i]);
+        c->status[i] = 0;
+    }
+}
+/* delta * TBW / (Na_inf + K_inf - Na - delta): one division per row. */
+static void arith_infusate_volume_for_change(const struct columns *c, size_t n)
+{
+    size_t i;
+    for (i = 0; i < n; i++) {
+        c->out[i] = c->in[4][i] * c->in[1][i] /
+                    (c->in[2][i] + c->in[3][i] - c->in[0][i] - c->in[4][i]);
+        c->status[i] = 0;
+    }
+}
+
 /* Invented, plausible inputs; every row valid (the run checks failed == 0;
  * infusate_change stops at 770 mmol/L so 2 L never lifts 160 past the
  * 220 mmol/L the mass-balance rule accepts). */
 static const struct batch batches[] = {
     {"ntr_batch_osm_calculated", 0, 4, 0,
-     {{110, 160}, {3, 40}, {2, 30}, {0, 20}}, call_osm_calculated},
+     {{110, 160}, {3, 40}, {2, 30}, {0, 20}}, call_osm_calculated, NULL},
     {"ntr_batch_osm_effective", 0, 2, 0, {{110, 160}, {3, 40}},
-     call_osm_effective},
-    {"ntr_batch_osm_gap", 0, 2, 0, {{270, 330}, {260, 300}}, call_osm_gap},
+     call_osm_effective, arith_osm_effective},
+    {"ntr_batch_osm_gap", 0, 2, 0, {{270, 330}, {260, 300}}, call_osm_gap, NULL},
     {"ntr_batch_na_corrected_glucose", 0, 2, 0, {{110, 160}, {3, 60}},
-     call_na_corrected_glucose},
+     call_na_corrected_glucose, arith_na_corrected_glucose},
     {"ntr_batch_tbw_fraction", 1, 2, 0, {{1, 95}, {10, 120}},
-     call_tbw_fraction},
+     call_tbw_fraction, arith_tbw_fraction},
     {"ntr_batch_tbw_watson", 1, 3, 0, {{18, 95}, {150, 195}, {50, 120}},
-     call_tbw_watson},
+     call_tbw_watson, arith_tbw_watson},
     {"ntr_batch_free_water_deficit", 0, 2, 0, {{20, 50}, {141, 175}},
-     call_free_water_deficit},
+     call_free_water_deficit, NULL},
     {"ntr_batch_na_deficit", 0, 3, 0, {{20, 50}, {105, 125}, {126, 135}},
-     call_na_deficit},
+     call_na_deficit, NULL},
     {"ntr_batch_infusate_change_per_litre", 0, 4, 0,
-     {{105, 160}, {20, 50}, {0, 855}, {0, 40}}, call_infusate_change_per_litre},
+     {{105, 160}, {20, 50}, {0, 855}, {0, 40}}, call_infusate_change_per_litre, arith_infusate_change_per_litre},
     {"ntr_batch_infusate_change", 0, 5, 0,
-     {{105, 160}, {20, 50}, {0, 770}, {0, 40}, {0.1, 2}}, call_infusate_change},
+     {{105, 160}, {20, 50}, {0, 770}, {0, 40}, {0.1, 2}}, call_infusate_change, arith_infusate_change},
     {"ntr_batch_infusate_volume_for_change", 0, 5, 0,
      {{105, 130}, {20, 50}, {300, 855}, {0, 40}, {1, 8}},
-     call_infusate_volume_for_change},
+     call_infusate_volume_for_change, arith_infusate_volume_for_change},
     {"ntr_batch_furst_ratio", 0, 3, 0, {{20, 150}, {10, 80}, {115, 145}},
-     call_furst_ratio},
+     call_furst_ratio, NULL},
     {"ntr_batch_restriction_from_ratio", 0, 1, 1, {{0, 2}},
-     call_restriction_from_ratio},
+     call_restriction_from_ratio, NULL},
     {"ntr_batch_efwc", 0, 4, 0, {{0.5, 3}, {20, 150}, {10, 80}, {115, 145}},
-     call_efwc},
+     call_efwc, NULL},
 };
 
 /* The same-stream loop: reads the inputs a batch call of this shape reads,
@@ -303,6 +396,7 @@ int main(int argc, char **argv)
         size_t per_row = read + written;
         size_t copy_bytes = rows * per_row / 2;
         double best_batch = 1e30, best_copy = 1e30, best_loop = 1e30;
+        double best_arith = 1e30;
         size_t failed = 0;
         int status = NTR_OK;
         for (k = 0; k < t->n_double; k++) {
@@ -321,6 +415,12 @@ int main(int argc, char **argv)
             if (t1 - t0 < best_batch) best_batch = t1 - t0;
             if (t2 - t1 < best_copy) best_copy = t2 - t1;
             if (t3 - t2 < best_loop) best_loop = t3 - t2;
+            if (t->arith != NULL) {
+                double t4 = now_s();
+                t->arith(&c, rows);
+                double t5 = now_s();
+                if (t5 - t4 < best_arith) best_arith = t5 - t4;
+            }
             /* keep the copy observable so it cannot be dropped */
             copy_src[(size_t)k % copy_bytes] ^= copy_dst[copy_bytes - 1u];
         }
@@ -334,6 +434,10 @@ int main(int argc, char **argv)
                best_copy / best_batch *
                    ((double)(rows * per_row) / (double)(2u * copy_bytes)),
                failed, best_loop, best_loop / best_batch);
+        if (t->arith != NULL) {
+            printf("# arith %s %.6f %.4f %.4f\n", t->name, best_arith,
+                   best_loop / best_arith, best_arith / best_batch);
+        }
     }
     return all_ok ? 0 : 1;
 }
