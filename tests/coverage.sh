@@ -9,20 +9,32 @@
 # counted. Where coverage falls short, add cases to tests/test_badinput.c
 # or a tests/test_coverage_<area>.c, never exclusions.
 #
-# Usage: tests/coverage.sh        Environment: NTR_BUILD_PREFIX (default
+# Usage: tests/coverage.sh [--record]   (--record: a run that meets both
+# limits writes its figures into docs/reliability.md, block "coverage.sh",
+# through tests/lib/record_block.py)   Environment: NTR_BUILD_PREFIX (default
 # "build"): the build dirs are <prefix>-coverage and <prefix>-coverage-size;
 # the report is written to <prefix>-coverage/coverage.txt (per file, with
 # uncovered lines).
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
+record=0
+command="tests/coverage.sh${*:+ $*}"
+if [ "${1:-}" = "--record" ]; then
+  record=1
+  shift
+fi
+start=$SECONDS
 dir="${NTR_BUILD_PREFIX:-build}-coverage"
 line_min="${NTR_COVERAGE_LINES:-100}"
 branch_min="${NTR_COVERAGE_BRANCHES:-95}"
 
 source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
+source tests/lib/record.sh
 apt_missing --quiet meson ninja-build gcc libcmocka-dev gcovr
+mkdir -p "$dir"
+record_stamp "$dir/record-stamp.json"
 
 # Two configurations, because the library compiles some checks differently
 # when built for size (__OPTIMIZE_SIZE__, as firmware is: one shared range
@@ -62,6 +74,15 @@ lines=$(sed -n 's/^lines: *\([0-9.]*\)%.*/\1/p' "$dir/coverage-summary.txt")
 branches=$(sed -n 's/^branches: *\([0-9.]*\)%.*/\1/p' "$dir/coverage-summary.txt")
 if awk -v l="$lines" -v b="$branches" -v lm="$line_min" -v bm="$branch_min" 'BEGIN{exit !(l >= lm && b >= bm)}'; then
   echo "coverage.sh: lib/ lines ${lines}% (>= ${line_min}), branches ${branches}% (>= ${branch_min})"
+  if [ "$record" -eq 1 ]; then
+    # "lines: 100.0% (1965 out of 1965)" -> "1965 of 1965"
+    of() { sed -n "s/^$1: *[0-9.]*% (\([0-9]*\) out of \([0-9]*\)).*/\1 of \2/p" "$dir/coverage-summary.txt"; }
+    printf '| | covered | required |\n|---|---|---|\n| lines | **%s %%** (%s) | %s %% |\n| branches | **%s %%** (%s) | %s %% |\n' \
+      "$lines" "$(of lines)" "$line_min" "$branches" "$(of branches)" "$branch_min" |
+      record_write coverage.sh tests/coverage.sh "$command" \
+        "lib/ under $(gcovr --version | head -1), a debug build and one with __OPTIMIZE_SIZE__ merged, unit suite and examples [$((SECONDS - start))s]" \
+        Coverage "$dir/record-stamp.json"
+  fi
 else
   grep -E '^lib/' "$dir/coverage.txt" | awk '$4 != "100%" || $7 != "100%"' | head -40
   echo "coverage.sh: FAILED: lib/ lines ${lines}% (need ${line_min}), branches ${branches}% (need ${branch_min}); report: $dir/coverage.txt"

@@ -17,19 +17,44 @@
 #    among it tests/test_threads.c: several threads calling the library at
 #    once; any data race is fatal (halt_on_error).
 #
-# Usage: tests/sanitize.sh [asan|valgrind|tsan]   (default: all three)
+# Usage: tests/sanitize.sh [--record] [asan|valgrind|tsan]   (default: all
+# three; --record: each mode that passes writes its figures into
+# docs/reliability.md, block "sanitize.sh MODE", through
+# tests/lib/record_block.py)
 # Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
 # <prefix>-sanitize, <prefix>-valgrind and <prefix>-tsan.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 prefix="${NTR_BUILD_PREFIX:-build}"
+record=0
+if [ "${1:-}" = "--record" ]; then
+  record=1
+  shift
+fi
 modes=("$@")
 [ ${#modes[@]} -eq 0 ] && modes=(asan valgrind tsan)
 
 source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
+source tests/lib/record.sh
 apt_missing --quiet meson ninja-build pkg-config gcc libcmocka-dev valgrind
+stamp="$(mktemp)"
+trap 'rm -f "$stamp"' EXIT
+record_stamp "$stamp"
+
+# record_mode MODE BUILDDIR SUMMARY: the block of one mode that passed,
+# with the tests it ran (meson's own log of that run).
+record_mode() {
+  [ "$record" -eq 1 ] || return 0
+  /usr/bin/python3 - "$2/meson-logs/testlog.json" <<'EOF' |
+import json, sys
+runs = [json.loads(line) for line in open(sys.argv[1], encoding="utf-8") if line.strip()]
+print("Tests: " + ", ".join(sorted(r["name"] for r in runs)) + ".")
+EOF
+    record_write "sanitize.sh $1" tests/sanitize.sh "tests/sanitize.sh --record $1" "$3" \
+      "Sanitizers and valgrind" "$stamp"
+}
 
 status=0
 for m in "${modes[@]}"; do
@@ -41,9 +66,12 @@ for m in "${modes[@]}"; do
     quiet ninja -C "$dir"
     if ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:strict_string_checks=1:detect_stack_use_after_return=1 \
        UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
-       meson test -C "$dir" --no-suite build --no-suite bindings --no-suite fuzz --no-suite cross --num-processes 2 \
+       meson test -C "$dir" --no-suite build --no-suite bindings --no-suite fuzz --no-suite cross \
+         --no-suite reliability --num-processes 2 \
          --print-errorlogs >"$dir/sanitize.log" 2>&1; then
       echo "sanitize.sh: ASan+UBSan: $(grep -E '^Ok:' "$dir/sanitize.log" | tr -s ' ') tests, no report [$((SECONDS - start))s]"
+      record_mode asan "$dir" \
+        "ASan + UBSan ($(gcc -dumpfullversion)), every suite but build, bindings, fuzz, cross and reliability: $(meson_counts "$dir/sanitize.log"), no report [$((SECONDS - start))s with the build]"
     else
       grep -E 'ERROR|runtime error|FAIL' "$dir/sanitize.log" | head -20
       echo "sanitize.sh: ASan+UBSan FAILED (log: $dir/sanitize.log)"
@@ -58,6 +86,8 @@ for m in "${modes[@]}"; do
          --wrap='valgrind --error-exitcode=1 --leak-check=full --errors-for-leak-kinds=definite,indirect --quiet' \
          --print-errorlogs >"$dir/valgrind.log" 2>&1; then
       echo "sanitize.sh: valgrind: $(grep -E '^Ok:' "$dir/valgrind.log" | tr -s ' ') tests, no error [$((SECONDS - start))s]"
+      record_mode valgrind "$dir" \
+        "$(valgrind --version) --leak-check=full, unit suite: $(meson_counts "$dir/valgrind.log"), no error [$((SECONDS - start))s with the build]"
     else
       grep -E '==[0-9]+==|FAIL' "$dir/valgrind.log" | head -20
       echo "sanitize.sh: valgrind FAILED (log: $dir/valgrind.log)"
@@ -74,6 +104,8 @@ for m in "${modes[@]}"; do
        meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 4 \
          --print-errorlogs >"$dir/tsan.log" 2>&1; then
       echo "sanitize.sh: ThreadSanitizer: $(grep -E '^Ok:' "$dir/tsan.log" | tr -s ' ') tests (threads among them), no race [$((SECONDS - start))s]"
+      record_mode tsan "$dir" \
+        "ThreadSanitizer ($(gcc -dumpfullversion)), unit suite with the threads test: $(meson_counts "$dir/tsan.log"), no race [$((SECONDS - start))s with the build]"
     else
       grep -E 'WARNING: ThreadSanitizer|SUMMARY|FAIL' "$dir/tsan.log" | head -20
       echo "sanitize.sh: ThreadSanitizer FAILED (log: $dir/tsan.log)"

@@ -17,16 +17,29 @@
 # how many it suppressed). Add one only with a comment saying why the
 # finding cannot happen.
 #
-# Usage: tests/static-analysis.sh     Environment: NTR_BUILD_PREFIX
+# Usage: tests/static-analysis.sh [--record]   (--record: a clean run
+# writes its figures into docs/reliability.md, block "static-analysis.sh",
+# through tests/lib/record_block.py)   Environment: NTR_BUILD_PREFIX
 # (default "build"): compile commands come from <prefix>-analysis.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
+record=0
+command="tests/static-analysis.sh${*:+ $*}"
+if [ "${1:-}" = "--record" ]; then
+  record=1
+  shift
+fi
+start=$SECONDS
 dir="${NTR_BUILD_PREFIX:-build}-analysis"
 
 source tests/lib/build-steps.sh  # quiet, meson_setup_dir
 source tests/lib/apt-missing.sh
+source tests/lib/record.sh
 apt_missing --quiet meson ninja-build gcc cppcheck clang-tidy
+stamp="/tmp/ntr-analysis-stamp.$$"
+trap 'rm -f "$stamp"' EXIT
+record_stamp "$stamp"
 
 # cppcheck suppressions: id:file
 cppcheck_suppress=(
@@ -92,5 +105,16 @@ if [ $findings -eq 0 ]; then
 else
   echo "static-analysis.sh: clang-tidy FAILED ($findings finding(s))"
   status=1
+fi
+if [ "$record" -eq 1 ] && [ $status -eq 0 ]; then
+  files=$(ls lib/*.c | wc -l)
+  {
+    echo "| tool | files | findings | reviewed false positives suppressed |"
+    echo "|---|---|---|---|"
+    echo "| $(cppcheck --version) | $files | 0 | ${#cppcheck_suppress[@]} |"
+    echo "| clang-tidy $(clang-tidy --version | sed -n 's/.*LLVM version \([0-9.]*\).*/\1/p' | head -1) | $files | 0 | $suppressed |"
+  } | record_write static-analysis.sh tests/static-analysis.sh "$command" \
+        "cppcheck and clang-tidy clean on lib/*.c [$((SECONDS - start))s]" \
+        "Static analysis" "$stamp"
 fi
 exit $status
