@@ -455,6 +455,10 @@ def main():
             sys.exit('mutate.py: no recorded run in docs/reliability.md')
         a.only = re.findall(r'^- `([0-9a-f]{10})` .*$', recorded.split('Equivalent')[0], re.M)
     fixed = None
+    if a.fixed and not git('rev-parse', '--git-dir'):
+        # The mutant build copies the tracked files: a tree without git has none.
+        print('mutate.py --fixed: not a git checkout: skipped')
+        return 77
     if a.fixed:
         fixed = load_fixed(a.fixed, allm)
         chosen = [m for _, m, _, _ in fixed]
