@@ -75,17 +75,30 @@ gcovr --root "$root" --add-tracefile "$dir/coverage.json" --add-tracefile "$dir-
 cat "$dir/coverage-summary.txt"
 lines=$(sed -n 's/^lines: *\([0-9.]*\)%.*/\1/p' "$dir/coverage-summary.txt")
 branches=$(sed -n 's/^branches: *\([0-9.]*\)%.*/\1/p' "$dir/coverage-summary.txt")
+met=no
 if awk -v l="$lines" -v b="$branches" -v lm="$line_min" -v bm="$branch_min" 'BEGIN{exit !(l >= lm && b >= bm)}'; then
-  echo "coverage.sh: lib/ lines ${lines}% (>= ${line_min}), branches ${branches}% (>= ${branch_min})"
-  if [ "$record" -eq 1 ]; then
-    # "lines: 100.0% (1965 out of 1965)" -> "1965 of 1965"
-    of() { sed -n "s/^$1: *[0-9.]*% (\([0-9]*\) out of \([0-9]*\)).*/\1 of \2/p" "$dir/coverage-summary.txt"; }
+  met=yes
+fi
+if [ "$record" -eq 1 ]; then
+  # A run that misses the limits is recorded too, with what it missed: the
+  # page must not keep an older, better figure.
+  # "lines: 100.0% (1965 out of 1965)" -> "1965 of 1965"
+  of() { sed -n "s/^$1: *[0-9.]*% (\([0-9]*\) out of \([0-9]*\)).*/\1 of \2/p" "$dir/coverage-summary.txt"; }
+  {
     printf '| | covered | required |\n|---|---|---|\n| lines | **%s %%** (%s) | %s %% |\n| branches | **%s %%** (%s) | %s %% |\n' \
-      "$lines" "$(of lines)" "$line_min" "$branches" "$(of branches)" "$branch_min" |
-      record_write coverage.sh tests/coverage.sh "$command" \
-        "lib/ under $(gcovr --version | head -1), a debug build and one with __OPTIMIZE_SIZE__ merged, unit suite and examples [$((SECONDS - start))s]" \
-        Coverage "$dir/record-stamp.json"
-  fi
+      "$lines" "$(of lines)" "$line_min" "$branches" "$(of branches)" "$branch_min"
+    if [ "$met" = no ]; then
+      echo
+      echo "Limits not met. Lines not run (gcovr's report):"
+      echo
+      awk '/^lib\// && $5 != "" { printf "- `%s`: %s\n", $1, $5 }' "$dir/coverage.txt"
+    fi
+  } | record_write coverage.sh tests/coverage.sh "$command" \
+      "lib/ under $(gcovr --version | head -1), a debug build and one with __OPTIMIZE_SIZE__ merged, unit suite and examples: limits $( [ "$met" = yes ] && echo met || echo NOT met) [$((SECONDS - start))s]" \
+      Coverage "$dir/record-stamp.json"
+fi
+if [ "$met" = yes ]; then
+  echo "coverage.sh: lib/ lines ${lines}% (>= ${line_min}), branches ${branches}% (>= ${branch_min})"
 else
   grep -E '^lib/' "$dir/coverage.txt" | awk '$4 != "100%" || $7 != "100%"' | head -40
   echo "coverage.sh: FAILED: lib/ lines ${lines}% (need ${line_min}), branches ${branches}% (need ${branch_min}); report: $dir/coverage.txt"

@@ -20,7 +20,8 @@
 # Usage: tests/sanitize.sh [--record] [asan|valgrind|tsan]   (default: all
 # three; --record: each mode that passes writes its figures into
 # docs/reliability.md, block "sanitize.sh MODE", through
-# tests/lib/record_block.py)
+# tests/lib/record_block.py; a mode that fails is recorded as failed, with
+# the first lines of what failed, so the page never keeps an older pass)
 # Environment: NTR_BUILD_PREFIX (default "build"): build dirs are
 # <prefix>-sanitize, <prefix>-valgrind and <prefix>-tsan.
 set -euo pipefail
@@ -56,6 +57,30 @@ EOF
       "Sanitizers and valgrind" "$stamp"
 }
 
+# record_failed MODE WHAT LOG PATTERN: the block of a mode that failed:
+# WHAT, then the first lines of LOG matching PATTERN.
+record_failed() {
+  [ "$record" -eq 1 ] || return 0
+  {
+    echo "First lines of the failure:"
+    echo
+    grep -E "$4" "$3" | head -8 | sed 's/`/'"'"'/g; s/^[[:space:]]*//; s/^/- `/; s/$/`/'
+  } | record_write "sanitize.sh $1" tests/sanitize.sh "tests/sanitize.sh --record $1" "$2" \
+        "Sanitizers and valgrind" "$stamp"
+}
+
+# build_mode MODE DIR: the build of a mode; a failed build is reported (and
+# recorded) and the mode counts as failed.
+build_mode() {
+  if ! ninja -C "$2" >"$2/build.log" 2>&1; then
+    grep -E 'error:|FAILED' "$2/build.log" | head -20
+    echo "sanitize.sh: $1: the build FAILED (log: $2/build.log)"
+    record_failed "$1" "$1: FAILED, the build did not finish ($(gcc -dumpfullversion)) [$((SECONDS - start))s]" \
+      "$2/build.log" 'error:'
+    return 1
+  fi
+}
+
 status=0
 for m in "${modes[@]}"; do
   start=$SECONDS
@@ -63,7 +88,7 @@ for m in "${modes[@]}"; do
   asan)
     dir="$prefix-sanitize"
     quiet meson_setup_dir "$dir" -Db_sanitize=address,undefined -Db_lundef=false -Dbuildtype=debugoptimized
-    quiet ninja -C "$dir"
+    build_mode asan "$dir" || { status=1; continue; }
     if ASAN_OPTIONS=detect_leaks=1:abort_on_error=1:strict_string_checks=1:detect_stack_use_after_return=1 \
        UBSAN_OPTIONS=halt_on_error=1:print_stacktrace=1 \
        meson test -C "$dir" --no-suite build --no-suite bindings --no-suite fuzz --no-suite cross \
@@ -75,13 +100,14 @@ for m in "${modes[@]}"; do
     else
       grep -E 'ERROR|runtime error|FAIL' "$dir/sanitize.log" | head -20
       echo "sanitize.sh: ASan+UBSan FAILED (log: $dir/sanitize.log)"
+      record_failed asan "ASan + UBSan: FAILED [$((SECONDS - start))s]" "$dir/sanitize.log" 'ERROR|runtime error|FAIL'
       status=1
     fi
     ;;
   valgrind)
     dir="$prefix-valgrind"
     quiet meson_setup_dir "$dir" -Dbuildtype=debugoptimized
-    quiet ninja -C "$dir"
+    build_mode valgrind "$dir" || { status=1; continue; }
     if meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 10 \
          --wrap='valgrind --error-exitcode=1 --leak-check=full --errors-for-leak-kinds=definite,indirect --quiet' \
          --print-errorlogs >"$dir/valgrind.log" 2>&1; then
@@ -91,6 +117,7 @@ for m in "${modes[@]}"; do
     else
       grep -E '==[0-9]+==|FAIL' "$dir/valgrind.log" | head -20
       echo "sanitize.sh: valgrind FAILED (log: $dir/valgrind.log)"
+      record_failed valgrind "valgrind: FAILED [$((SECONDS - start))s]" "$dir/valgrind.log" '==[0-9]+==|FAIL'
       status=1
     fi
     ;;
@@ -99,7 +126,7 @@ for m in "${modes[@]}"; do
     # library's __tsan_* references resolve in the executable.
     dir="$prefix-tsan"
     quiet meson_setup_dir "$dir" -Db_sanitize=thread -Db_lundef=false -Dbuildtype=debugoptimized
-    quiet ninja -C "$dir"
+    build_mode tsan "$dir" || { status=1; continue; }
     if TSAN_OPTIONS=halt_on_error=1:second_deadlock_stack=1 \
        meson test -C "$dir" --suite unit --num-processes 2 --timeout-multiplier 4 \
          --print-errorlogs >"$dir/tsan.log" 2>&1; then
@@ -109,6 +136,7 @@ for m in "${modes[@]}"; do
     else
       grep -E 'WARNING: ThreadSanitizer|SUMMARY|FAIL' "$dir/tsan.log" | head -20
       echo "sanitize.sh: ThreadSanitizer FAILED (log: $dir/tsan.log)"
+      record_failed tsan "ThreadSanitizer: FAILED [$((SECONDS - start))s]" "$dir/tsan.log" 'WARNING: ThreadSanitizer|SUMMARY|FAIL'
       status=1
     fi
     ;;

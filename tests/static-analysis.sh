@@ -17,8 +17,8 @@
 # how many it suppressed). Add one only with a comment saying why the
 # finding cannot happen.
 #
-# Usage: tests/static-analysis.sh [--record]   (--record: a clean run
-# writes its figures into docs/reliability.md, block "static-analysis.sh",
+# Usage: tests/static-analysis.sh [--record]   (--record: the run's figures,
+# and any finding, go into docs/reliability.md, block "static-analysis.sh",
 # through tests/lib/record_block.py)   Environment: NTR_BUILD_PREFIX
 # (default "build"): compile commands come from <prefix>-analysis.
 set -euo pipefail
@@ -38,7 +38,9 @@ source tests/lib/apt-missing.sh
 source tests/lib/record.sh
 apt_missing --quiet meson ninja-build gcc cppcheck clang-tidy
 stamp="/tmp/ntr-analysis-stamp.$$"
-trap 'rm -f "$stamp"' EXIT
+found="/tmp/ntr-analysis-found.$$"
+trap 'rm -f "$stamp" "$found"' EXIT
+: >"$found"
 record_stamp "$stamp"
 
 # cppcheck suppressions: id:file
@@ -80,6 +82,8 @@ if cppcheck --std=c99 --enable=warning,style,performance,portability --inline-su
 else
   cat "/tmp/ntr-cppcheck.$$"
   echo "static-analysis.sh: cppcheck FAILED"
+  grep -E '^[^ ]+:[0-9]+:[0-9]+: (error|warning|style|performance|portability): ' "/tmp/ntr-cppcheck.$$" |
+    sed 's/^/cppcheck /' >>"$found" || true
   status=1
 fi
 rm -f "/tmp/ntr-cppcheck.$$"
@@ -104,6 +108,7 @@ for f in lib/*.c; do
       suppressed=$((suppressed + 1))
     else
       echo "$line"
+      echo "clang-tidy $line" >>"$found"
       findings=$((findings + 1))
     fi
   done < <(grep -E '(warning|error):' <<<"$out" || true)
@@ -114,15 +119,24 @@ else
   echo "static-analysis.sh: clang-tidy FAILED ($findings finding(s))"
   status=1
 fi
-if [ "$record" -eq 1 ] && [ $status -eq 0 ]; then
+if [ "$record" -eq 1 ]; then
   files=$(ls lib/*.c | wc -l)
+  n_cpp=$(grep -c '^cppcheck ' "$found" || true)
+  n_tidy=$(grep -c '^clang-tidy ' "$found" || true)
   {
     echo "| tool | files | findings | reviewed false positives suppressed |"
     echo "|---|---|---|---|"
-    echo "| $(cppcheck --version) | $files | 0 | ${#cppcheck_suppress[@]} |"
-    echo "| clang-tidy $(clang-tidy --version | sed -n 's/.*LLVM version \([0-9.]*\).*/\1/p' | head -1) | $files | 0 | $suppressed |"
+    echo "| $(cppcheck --version) | $files | $n_cpp | ${#cppcheck_suppress[@]} |"
+    echo "| clang-tidy $(clang-tidy --version | sed -n 's/.*LLVM version \([0-9.]*\).*/\1/p' | head -1) | $files | $n_tidy | $suppressed |"
+    if [ -s "$found" ]; then
+      echo
+      echo "Findings (not reviewed yet):"
+      echo
+      bt='`'
+      sed -e "s|$root/||g" -e 's|[^ ]*\.\./lib/|lib/|' -e "s/$bt/'/g" -e "s/^\([^ ]*\) \(.*\)\$/- \1: $bt\2$bt/" "$found"
+    fi
   } | record_write static-analysis.sh tests/static-analysis.sh "$command" \
-        "cppcheck and clang-tidy clean on lib/*.c [$((SECONDS - start))s]" \
+        "$( [ $status -eq 0 ] && echo "cppcheck and clang-tidy clean on lib/*.c" || echo "FAILED: $((n_cpp + n_tidy)) finding(s) on lib/*.c") [$((SECONDS - start))s]" \
         "Static analysis" "$stamp"
 fi
 exit $status
