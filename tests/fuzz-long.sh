@@ -65,7 +65,8 @@ if [ "$record" -eq 1 ]; then
   extra="${extra#,}"
   config="fork mode, $jobs job(s), seed $seed, ASan + UBSan${extra:+ + ${extra//,/ + }}"
   [ -n "${NTR_FUZZ_CFLAGS:-}" ] && config+=", \`NTR_FUZZ_CFLAGS=$NTR_FUZZ_CFLAGS\`"
-  row="| $(date -u +%Y-%m-%d) | \`$(/usr/bin/python3 -c 'import json,sys; s = json.load(open(sys.argv[1])); print(s["commit"] + ("\` + uncommitted changes" if s["dirty"] else "\`"))' "$out/record-stamp.json") | $config | ${elapsed} s | ${execs:-?} | ${cov:-?} (fork-mode counter) | $found |"
+  commit_cell=$(/usr/bin/python3 -c 'import json, sys; s = json.load(open(sys.argv[1])); print("`%s`%s" % (s["commit"], " + uncommitted changes" if s["dirty"] else ""))' "$out/record-stamp.json")
+  row="| $(date -u +%Y-%m-%d) | $commit_cell | $config | ${elapsed} s | ${execs:-?} | ${cov:-?} (fork-mode counter) | $found |"
   # The new row goes under the rows already recorded (a history of runs).
   /usr/bin/python3 - "$row" <<'EOF' |
 import os, sys
