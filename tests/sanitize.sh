@@ -29,6 +29,7 @@ root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
 prefix="${NTR_BUILD_PREFIX:-build}"
 record=0
+command="tests/sanitize.sh${*:+ $*}"
 if [ "${1:-}" = "--record" ]; then
   record=1
   shift
@@ -45,15 +46,16 @@ trap 'rm -f "$stamp"' EXIT
 record_stamp "$stamp"
 
 # record_mode MODE BUILDDIR SUMMARY: the block of one mode that passed,
-# with the tests it ran (meson's own log of that run).
+# with the tests it ran (meson's own log of that run: testlog.json, or
+# testlog-valgrind.json when meson test wraps the programs).
 record_mode() {
   [ "$record" -eq 1 ] || return 0
-  /usr/bin/python3 - "$2/meson-logs/testlog.json" <<'EOF' |
+  /usr/bin/python3 - "$(ls -t "$2"/meson-logs/testlog*.json | head -1)" <<'EOF' |
 import json, sys
 runs = [json.loads(line) for line in open(sys.argv[1], encoding="utf-8") if line.strip()]
 print("Tests: " + ", ".join(sorted(r["name"] for r in runs)) + ".")
 EOF
-    record_write "sanitize.sh $1" tests/sanitize.sh "tests/sanitize.sh --record $1" "$3" \
+    record_write "sanitize.sh $1" tests/sanitize.sh "$command" "$3" \
       "Sanitizers and valgrind" "$stamp"
 }
 
@@ -65,7 +67,7 @@ record_failed() {
     echo "First lines of the failure:"
     echo
     grep -E "$4" "$3" | head -8 | sed 's/`/'"'"'/g; s/^[[:space:]]*//; s/^/- `/; s/$/`/'
-  } | record_write "sanitize.sh $1" tests/sanitize.sh "tests/sanitize.sh --record $1" "$2" \
+  } | record_write "sanitize.sh $1" tests/sanitize.sh "$command" "$2" \
         "Sanitizers and valgrind" "$stamp"
 }
 
