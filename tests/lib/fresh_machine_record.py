@@ -113,10 +113,11 @@ def render(facts, order):
     """(stamp, summary, body) of the block."""
     commits = sorted(set(facts[r].get('commit', '?') for r in order))
     st = {'commit': ', '.join(commits), 'dirty': False, 'date': facts['run']['date']}
-    summary = ('%s, one chroot after the other; after the two README commands, the install '
-               'recipe, the Python block and the SQL block as README.md writes them (the SQL '
-               'on a throwaway server with an invented two-patient table)'
-               % ' and '.join('Debian %s' % facts[r].get('version', r) for r in order))
+    summary = ('%s%s; after the two README commands, the install recipe, the Python block '
+               'and the SQL block as README.md writes them (the SQL on a throwaway server '
+               'with an invented two-patient table)'
+               % (' and '.join('Debian %s' % facts[r].get('version', r) for r in order),
+                  ', one chroot after the other' if len(order) > 1 else ''))
     body = HEADER + '\n' + '\n'.join(row(r, facts[r]) for r in order)
     return st, summary, body
 
