@@ -96,7 +96,7 @@ if [ "$record" -eq 1 ]; then
       awk '/^lib\// && $5 != "" { printf "- `%s`: %s\n", $1, $5 }' "$dir/coverage.txt"
     fi
   } | record_write coverage.sh tests/coverage.sh "$command" \
-      "lib/ under $(gcovr --version | head -1), a debug build and one with `__OPTIMIZE_SIZE__` merged, unit suite and examples: limits $( [ "$met" = yes ] && echo met || echo NOT met) [$((SECONDS - start))s]" \
+      "lib/ under $(gcovr --version | head -1), a debug build and one with \`__OPTIMIZE_SIZE__\` merged, unit suite and examples: limits $( [ "$met" = yes ] && echo met || echo NOT met) [$((SECONDS - start))s]" \
       Coverage "$dir/record-stamp.json"
 fi
 if [ "$met" = yes ]; then
