@@ -38,8 +38,7 @@ precision="${NTR_FRAMA_PRECISION:-8}"
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
 start=$SECONDS
-commit="$(git rev-parse --short=12 HEAD)"
-dirty="$(git status --porcelain -- lib include tests/frama-c | head -1)"
+/usr/bin/python3 tests/lib/record_block.py stamp >"$work/stamp.json"
 
 frama-c -cpp-extra-args="-Iinclude -Ilib -DNTR_BUILDING -U__SSE2__ -U__aarch64__" lib/*.c \
   tests/frama-c/drivers*.c -save "$work/ast.sav" >"$work/parse.log" 2>&1 || {
@@ -103,13 +102,7 @@ summary="EVA (Frama-C $(frama-c -version 2>/dev/null | head -1), -eva-precision 
 echo "frama-c.sh: $summary"
 
 if [ "$record" -eq 1 ]; then
-  begin='<!-- frama-c.sh: begin (written by tests/frama-c.sh --record; do not edit) -->'
-  end='<!-- frama-c.sh: end -->'
   {
-    echo "$begin"
-    echo
-    echo "Measured at commit \`$commit\`${dirty:+ (with uncommitted changes)} on $(date -u +%Y-%m-%d) with \`tests/frama-c.sh --record\`: $summary."
-    echo
     if [ -s "$report" ]; then
       echo "Remaining alarms (each explained in the section \"Static proof: Frama-C value analysis\" above):"
       echo
@@ -117,19 +110,6 @@ if [ "$record" -eq 1 ]; then
     else
       echo "No alarm."
     fi
-    echo
-    echo "$end"
-  } >"$work/block.md"
-  /usr/bin/python3 - "$root/docs/reliability.md" "$work/block.md" "$begin" "$end" <<'EOF'
-import sys
-doc, block, begin, end = sys.argv[1], open(sys.argv[2]).read().rstrip('\n'), sys.argv[3], sys.argv[4]
-text = open(doc).read()
-if begin in text and end in text:
-    a = text.index(begin)
-    b = text.index(end) + len(end)
-    text = text[:a] + block + text[b:]
-else:
-    text = text.rstrip('\n') + '\n\n' + block + '\n'
-open(doc, 'w').write(text)
-EOF
+  } | /usr/bin/python3 tests/lib/record_block.py write --name frama-c.sh --script tests/frama-c.sh \
+        --command "tests/frama-c.sh --record${*:+ $*}" --summary "$summary" --stamp-file "$work/stamp.json"
 fi

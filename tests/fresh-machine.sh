@@ -16,20 +16,29 @@
 # Needs root and the Debian mirror; takes about ten minutes a release. Not
 # part of CI. The chroots run one after the other, never side by side.
 #
-#   bash tests/fresh-machine.sh [bookworm|trixie|both] [workdir]
+#   bash tests/fresh-machine.sh [--record] [bookworm|trixie|both] [workdir]
 #       (default both; workdir default: a new temp dir; each release gets
 #       workdir/<release>, its logs workdir/<release>.*.log)
 #
 # Ends with one line per release: the test command's "N passed, N failed,
 # N skipped", its time, and whether the demo, the recipe, the Python line
 # and the SQL line passed. Exit status non-zero when anything failed on any
-# release.
+# release. The same results go to workdir/results.tsv as the run goes
+# (format: tests/lib/fresh_machine_record.py); with --record they are
+# written into docs/reliability.md, one table row per release, by
+# tests/lib/fresh_machine_record.py (failed steps too: the table says so).
 set -euo pipefail
 [ "$(id -u)" -eq 0 ] || { echo "fresh-machine.sh: run as root (debootstrap, chroot)" >&2; exit 2; }
 repo=$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)
 . "$repo/tests/lib/apt-missing.sh"
 apt_missing debootstrap git
 
+record=0
+command="bash tests/fresh-machine.sh${*:+ $*}"
+if [[ ${1:-} == --record ]]; then
+    record=1
+    shift
+fi
 case ${1:-both} in
     bookworm | 12) releases=(bookworm) ;;
     trixie | 13) releases=(trixie) ;;
@@ -38,6 +47,8 @@ case ${1:-both} in
 esac
 base=${2:-$(mktemp -d /tmp/natremia-fresh.XXXXXX)}
 mkdir -p "$base"
+results=$base/results.tsv
+printf 'run\tcommand\t%s\nrun\tdate\t%s\n' "$command" "$(date -u +%Y-%m-%d)" > "$results"
 mirror=http://deb.debian.org/debian
 
 root=""
@@ -155,7 +166,7 @@ for release in "${releases[@]}"; do
     mount --rbind /sys "$root/sys"
     mount --rbind /dev "$root/dev"
     git clone -q "$repo" "$root/root/natremia"
-    commit=$(git -C "$root/root/natremia" log -1 --format=%h)
+    commit=$(git -C "$root/root/natremia" rev-parse --short=12 HEAD)
 
     chroot "$root" /bin/bash -c "$inside
 $inside_bindings" 2>&1 | tee "$base/$release.run.log"
@@ -165,11 +176,14 @@ $inside_bindings" 2>&1 | tee "$base/$release.run.log"
     cleanup
     root=""
 
-    line="$release ($(cat "$base/$release/etc/debian_version"), commit $commit):"
+    version=$(cat "$base/$release/etc/debian_version")
+    line="$release ($version, commit $commit):"
+    printf '%s\tversion\t%s\n%s\tcommit\t%s\n' "$release" "$version" "$release" "$commit" >> "$results"
     for part in demo tests recipe python sql; do
-        result=$(sed -n "s/^result: $part //p" "$base/$release.run.log")
+        result=$(sed -n "s/^result: $part //p" "$base/$release.run.log" | head -1)
         [[ $result == ok* ]] || any_failed=1
         line+=" $part ${result:-FAILED (no result)};"
+        printf '%s\t%s\t%s\n' "$release" "$part" "${result:-FAILED (no result)}" >> "$results"
     done
     summary+=("$line")
 done
@@ -177,4 +191,8 @@ done
 for line in "${summary[@]}"; do
     echo "fresh-machine.sh: $line"
 done
+echo "fresh-machine.sh: results in $results"
+if [[ $record -eq 1 ]]; then
+    /usr/bin/python3 "$repo/tests/lib/fresh_machine_record.py" "$results" || any_failed=1
+fi
 exit $any_failed

@@ -11,12 +11,22 @@
 # test command runs it; exits 77 (skipped) when clang or its fuzzer runtime
 # is missing.
 #
+# Usage: tests/fuzz-short.sh [--record]   (--record, when run by hand: a
+# run without finding writes its figures into docs/reliability.md, block
+# "fuzz-short.sh", through tests/lib/record_block.py)
 # Environment: NTR_FUZZ_OUT names the build dir (default
 # <NTR_BUILD_PREFIX or "build">-fuzz); NTR_FUZZ_SECONDS_PER_TARGET
 # (default 1) sets the budget per entry point.
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
+record=0
+command="tests/fuzz-short.sh${*:+ $*}"
+if [ "${1:-}" = "--record" ]; then
+  record=1
+  shift
+fi
+start=$SECONDS
 out="${NTR_FUZZ_OUT:-${NTR_BUILD_PREFIX:-build}-fuzz}"
 per="${NTR_FUZZ_SECONDS_PER_TARGET:-1}"
 
@@ -27,6 +37,8 @@ if ! command -v "${NTR_FUZZ_CC:-clang}" >/dev/null 2>&1 ||
   exit 77
 fi
 mkdir -p "$out"
+source tests/lib/record.sh
+record_stamp "$out/record-stamp.json"
 
 tests/fuzz/build.sh "$out" >"$out/build.log" 2>&1 || { cat "$out/build.log"; exit 1; }
 corpus="$out/corpus-short"
@@ -45,3 +57,12 @@ if ! "$out/fuzz_natremia" -max_total_time="$total" -seed=1 -print_final_stats=1 
 fi
 runs=$(sed -n 's/^stat::number_of_executed_units: *//p' "$log")
 echo "fuzz-short: ${runs} executions in ${total}s, no contract breach, no sanitizer report"
+if [ "$record" -eq 1 ]; then
+  cc_version=$("${NTR_FUZZ_CC:-clang}" --version | head -1)
+  echo "| entry points | seconds each | seed | executions | fuzzing time | findings |
+|---|---|---|---|---|---|
+| $n_seeds | $per | 1 | $runs | ${total} s | none |" |
+    record_write fuzz-short.sh tests/fuzz-short.sh "$command" \
+      "libFuzzer driver tests/fuzz/fuzz_natremia.c built by $cc_version, ASan + UBSan, one seed per entry point [$((SECONDS - start))s with the build]" \
+      Fuzzing "$out/record-stamp.json"
+fi

@@ -37,6 +37,11 @@ Usage:
   tests/mutate.py --full                      # every mutant (hours)
   tests/mutate.py --sample 200 --record       # and write docs/reliability.md
   tests/mutate.py --only KEY [--only KEY ...] # chosen mutants (keys from --list)
+  tests/mutate.py --fixed tests/lib/mutants-fixed.txt
+                                              # a fixed list, each mutant run
+                                              # against the tests named for it;
+                                              # fails unless every one is killed
+                                              # (the meson test mutants-fixed)
 Options: --seed S, --files lib/batch.c,lib/water.c, --workdir DIR
 (default build-mutate in the repository), --keep-going (run every test
 program, not only up to the first failure).
@@ -54,10 +59,12 @@ import sys
 import time
 
 ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
+sys.path.insert(0, os.path.join(ROOT, 'tests', 'lib'))
+import record_block  # noqa: E402  (tests/lib/record_block.py: the shared writer)
+
 EQUIV_FILE = os.path.join(ROOT, 'tests', 'mutate-equivalent.txt')
-DOC = os.path.join(ROOT, 'docs', 'reliability.md')
-BEGIN = '<!-- mutate.py: begin (written by tests/mutate.py --record; do not edit) -->'
-END = '<!-- mutate.py: end -->'
+BLOCK = 'mutate.py'
+SCRIPT = 'tests/mutate.py'
 SUITE = 'natremia:unit'
 
 
@@ -224,7 +231,7 @@ class Mutant:
     def describe(self):
         return '%s:%d %s `%s` -> `%s` in `%s`' % (
             self.path, self.line, self.op, ' '.join(self.orig.split()),
-            self.repl, self.src)
+            ' '.join(self.repl.split()), self.src)
 
 
 def enumerate_mutants(files):
@@ -298,13 +305,20 @@ def build_targets(build, tests):
 
 def objects_of(build, rel):
     """Hashes of the object files compiled from one source (shared and
-    static library objects)."""
-    name = os.path.basename(rel) + '.o'
+    static library objects); for a header, of every library object (any
+    of them may include it)."""
     found = []
     for d in sorted(os.listdir(os.path.join(build, 'lib'))):
-        o = os.path.join(build, 'lib', d, name)
-        if d.endswith('.p') and os.path.exists(o):
-            found.append(hashlib.sha1(open(o, 'rb').read()).hexdigest())
+        if not d.endswith('.p'):
+            continue
+        if rel.endswith('.h'):
+            names = sorted(f for f in os.listdir(os.path.join(build, 'lib', d)) if f.endswith('.o'))
+        else:
+            names = [os.path.basename(rel) + '.o']
+        for name in names:
+            o = os.path.join(build, 'lib', d, name)
+            if os.path.exists(o):
+                found.append(hashlib.sha1(open(o, 'rb').read()).hexdigest())
     return found
 
 
@@ -334,6 +348,41 @@ def run_tests(build, tests, limits, keep_going):
     return failed
 
 
+# ---- a fixed list of mutants ---------------------------------------------
+
+def load_fixed(path, allm):
+    """[(name, mutant, test names, why)] from a fixed list (format in the
+    file's own comments: tests/lib/mutants-fixed.txt)."""
+    entries = []
+    for n, line in enumerate(open(path, encoding='utf-8'), 1):
+        if line.startswith('#') or not line.strip():
+            continue
+        fields = line.rstrip('\n').split('\t')
+        if len(fields) != 4:
+            sys.exit('mutate.py: %s:%d: need 4 tab-separated fields' % (path, n))
+        name, where, tests, why = fields
+        if re.fullmatch(r'[0-9a-f]{10}', where):
+            found = [m for m in allm if m.id == where]
+            if not found:
+                sys.exit('mutate.py: %s:%d: %s: no mutant %s in today\'s lib/ (its line changed?)'
+                         % (path, n, name, where))
+            m = found[0]
+        else:
+            rel, _, change = where.partition(': ')
+            old, sep, new = change.partition(' => ')
+            if not sep:
+                sys.exit('mutate.py: %s:%d: want "FILE: OLD => NEW" or a mutant id' % (path, n))
+            old, new = old.replace('\\n', '\n'), new.replace('\\n', '\n')
+            text = open(os.path.join(ROOT, rel), encoding='utf-8').read()
+            if text.count(old) != 1:
+                sys.exit('mutate.py: %s:%d: %s: the original text occurs %d times in %s (need once)'
+                         % (path, n, name, text.count(old), rel))
+            start = text.index(old)
+            m = Mutant(rel, text, start, start + len(old), new, 'text', 1)
+        entries.append((name, m, tests.split(','), why))
+    return entries
+
+
 # ---- recording ----------------------------------------------------------------
 
 def equivalent_reason(eq, key):
@@ -359,17 +408,10 @@ def load_equivalent():
     return eq
 
 
-def record(summary_lines):
-    text = open(DOC).read()
-    block = BEGIN + '\n' + '\n'.join(summary_lines) + '\n' + END
-    if BEGIN in text and END in text:
-        a = text.index(BEGIN)
-        b = text.index(END) + len(END)
-        text = text[:a] + block + text[b:]
-    else:
-        text = text.rstrip('\n') + '\n\n' + block + '\n'
-    with open(DOC, 'w') as f:
-        f.write(text)
+def recorded_block():
+    """The body of the run recorded in docs/reliability.md, or None."""
+    with open(record_block.doc_path(), encoding='utf-8') as f:
+        return record_block.block_body(f.read(), BLOCK)
 
 
 def main():
@@ -379,6 +421,9 @@ def main():
     g.add_argument('--sample', type=int)
     g.add_argument('--list', action='store_true')
     g.add_argument('--only', action='append', help='a mutant key or id')
+    g.add_argument('--fixed', metavar='LIST',
+                   help='run the mutants of a fixed list, each against the tests named '
+                   'for it; exit 1 unless every one is killed')
     g.add_argument('--recheck', action='store_true',
                    help='re-run the survivors of the run recorded in docs/reliability.md '
                    'on the current tree; with --record, add the outcome below that run')
@@ -405,12 +450,20 @@ def main():
         return 0
     recorded = None
     if a.recheck:
-        text = open(DOC).read()
-        if BEGIN not in text:
+        recorded = recorded_block()
+        if recorded is None:
             sys.exit('mutate.py: no recorded run in docs/reliability.md')
-        recorded = text[text.index(BEGIN):text.index(END)]
         a.only = re.findall(r'^- `([0-9a-f]{10})` .*$', recorded.split('Equivalent')[0], re.M)
-    if a.only:
+    fixed = None
+    if a.fixed and not git('rev-parse', '--git-dir'):
+        # The mutant build copies the tracked files: a tree without git has none.
+        print('mutate.py --fixed: not a git checkout: skipped')
+        return 77
+    if a.fixed:
+        fixed = load_fixed(a.fixed, allm)
+        chosen = [m for _, m, _, _ in fixed]
+        mode = 'a fixed list of %d mutants' % len(chosen)
+    elif a.only:
         chosen = [m for m in allm if m.key in a.only or m.id in a.only]
         mode = 'chosen mutants'
     elif a.full:
@@ -427,11 +480,22 @@ def main():
     signal.signal(signal.SIGTERM, lambda *_: sys.exit(1))
     t0 = time.time()
     # The commit measured: the sources are copied now.
-    commit = git('rev-parse', '--short=12', 'HEAD')
-    dirty = git('status', '--porcelain', '--', 'lib', 'tests', 'include')
+    st = record_block.stamp()
     os.makedirs(a.workdir, exist_ok=True)
     src, build, tests = prepare(a.workdir, a.meson_options or
                                 ['-Dbuildtype=debugoptimized', '-Ddebug=false'])
+    # A fixed list names the tests that must kill each mutant: only those
+    # are built and run for it.
+    tests_of = {}
+    if fixed:
+        by_name = {t['name']: t for t in tests}
+        for name, m, names, _ in fixed:
+            missing = [t for t in names if t not in by_name]
+            if missing:
+                sys.exit('mutate.py: %s: no unit test %s' % (name, ', '.join(missing)))
+            tests_of[m.id] = [by_name[t] for t in names]
+        wanted = set(t for _, _, names, _ in fixed for t in names)
+        tests = [t for t in tests if t['name'] in wanted]
     targets = build_targets(build, tests)
     ok, log = rebuild(build, targets)
     if not ok:
@@ -461,7 +525,8 @@ def main():
         try:
             with open(path, 'w') as f:
                 f.write(m.apply(originals[m.path]))
-            ok, _ = rebuild(build, targets)
+            mine = sorted(tests_of.get(m.id, tests), key=lambda t: times[t['name']])
+            ok, _ = rebuild(build, build_targets(build, mine) if fixed else targets)
             if not ok:
                 verdict, by = 'stillborn', ''
             elif objects_of(build, m.path) == base_objects[m.path]:
@@ -470,7 +535,7 @@ def main():
                 # compiles to the same instructions. No test can see it.
                 verdict, by = 'unchanged', ''
             else:
-                by = run_tests(build, tests, limits, a.keep_going)
+                by = run_tests(build, mine, limits, a.keep_going)
                 verdict = 'killed' if by else 'survived'
         finally:
             with open(path, 'w') as f:
@@ -485,16 +550,21 @@ def main():
     results = [(m, 'equivalent' if v == 'survived' and equivalent_reason(eq, m.key) else v, by)
                for m, v, by in results]
 
+    if fixed:
+        names = {m.id: name for name, m, _, _ in fixed}
+        bad = [(m, v) for m, v, _ in results if v != 'killed']
+        print('mutate.py --fixed: %d of %d mutants killed in %.0f s%s' % (
+            len(results) - len(bad), len(chosen), elapsed,
+            ''.join('; %s %s (%s)' % (names[m.id], v, m.describe()) for m, v in bad)))
+        return 1 if bad or len(results) != len(chosen) else 0
     count = {k: sum(1 for r in results if r[1] == k)
              for k in ('killed', 'survived', 'equivalent', 'stillborn', 'unchanged')}
     scored = count['killed'] + count['survived']
     score = 100.0 * count['killed'] / scored if scored else 100.0
+    command = ' '.join([SCRIPT] + sys.argv[1:])
     lines = [
-        '',
-        'Measured at commit `%s`%s on %s with `tests/mutate.py %s`: %s over %s.' % (
-            commit, ' (with uncommitted changes)' if dirty else '',
-            time.strftime('%Y-%m-%d', time.gmtime()), ' '.join(sys.argv[1:]), mode,
-            ', '.join(files) if a.files else 'every lib/*.c'),
+        record_block.stamp_line(st, command, '%s over %s' % (
+            mode, ', '.join(files) if a.files else 'every lib/*.c')),
         '',
         '| mutants | did not compile | same object code | killed | equivalent | survived | score | run time |',
         '|---|---|---|---|---|---|---|---|',
@@ -529,12 +599,11 @@ def main():
         row = re.search(r'^\| (\d+) \| (\d+) \| (\d+) \| (\d+) \| (\d+) \| (\d+) \|', recorded, re.M)
         k0, e0, s0 = int(row.group(4)), int(row.group(5)), int(row.group(6))
         k1, e1, s1 = k0 + len(killed), e0 + len(eqv), s0 - len(killed) - len(eqv)
-        add = ['', 'Re-check at commit `%s`%s on %s (`tests/mutate.py --recheck --record`, %.0f s): '
+        add = ['', 'Re-check at commit %s on %s (`%s`, %.0f s): '
                'of the %d survivors above, %d are now killed by tests added since, %d are '
                'listed as equivalent, %d survive. The same sample with today\'s tests: '
                '%d killed, %d equivalent, %d survived: **%.1f %%**.' % (
-                   commit, ' (with uncommitted changes)' if dirty else '',
-                   time.strftime('%Y-%m-%d', time.gmtime()), elapsed, len(results),
+                   record_block.commit_text(st), st['date'], command, elapsed, len(results),
                    len(killed), len(eqv), len(left), k1, e1, s1,
                    100.0 * k1 / (k1 + s1) if k1 + s1 else 100.0)]
         if left:
@@ -542,17 +611,11 @@ def main():
             add.append('Still surviving:')
             for m in left:
                 add.append('- `%s` %s' % (m.id, m.describe()))
-        add.append('')
-        text = open(DOC).read()
-        cut = text.index(END)
         # A new re-check replaces the previous one.
-        again = text.find('\nRe-check at commit', text.index(BEGIN), cut)
-        keep = text[:again + 1] if again >= 0 else text[:cut]
-        text = keep + '\n'.join(add).lstrip('\n') + '\n' + text[cut:]
-        with open(DOC, 'w') as f:
-            f.write(text)
+        body = recorded.split('\nRe-check at commit')[0]
+        record_block.write(BLOCK, SCRIPT, body.rstrip('\n') + '\n\n' + '\n'.join(add).strip('\n'))
     elif a.record:
-        record(lines)
+        record_block.write(BLOCK, SCRIPT, '\n'.join(lines))
     return 0 if score >= 95.0 else 1
 
 
