@@ -454,6 +454,10 @@ static int levenberg_marquardt(const struct fit_problem *fp, const double p0[NP]
     for (i = 0; i < NP; i++) {
         st->p[i] = clamp(p0[i], fp->lo[i], fp->hi[i]);
     }
+    /* evaluate() writes it on NTR_OK; set first anyway, because clang's
+     * path-sensitive analyser (tests/static-analysis.sh) does not follow
+     * that write into the loop below and would report a garbage read. */
+    st->ssr = 0.0;
     NTR_TRY(evaluate(fp, st->p, &st->ssr, a, g));
     st->iterations = 0u;
     st->converged = 0;
@@ -499,8 +503,9 @@ static int levenberg_marquardt(const struct fit_problem *fp, const double p0[NP]
             for (i = 0; i < NP; i++) {
                 st->p[i] = trial[i];
             }
-            /* Cannot fail: the same point was just evaluated. */
-            (void)evaluate(fp, st->p, &st->ssr, a, g);
+            /* Cannot fail (the same point was just evaluated); checked
+             * anyway, so that no failure could leave a and g half made. */
+            NTR_TRY(evaluate(fp, st->p, &st->ssr, a, g));
             lambda = lambda > 1e-12 ? lambda * 0.1 : lambda;
             if (before - st->ssr <= 1e-14 * before || moved < 1e-12) {
                 st->converged = 1;
@@ -654,15 +659,17 @@ int ntr_course_fit(const ntr_sample *history, size_t n, double tbw_guess_l,
     if (!have_best) {
         return NTR_ERR_DOMAIN;
     }
-    /* Cannot fail: the point was evaluated by the search. */
-    (void)evaluate(&fp, best.p, &best.ssr, a, g);
+    /* These cannot fail (the search evaluated this point at every sample
+     * time), but a status is never dropped: an impossible failure gives
+     * an error, not outputs from unset numbers. */
+    NTR_TRY(evaluate(&fp, best.p, &best.ssr, a, g));
     s2 = n > NTR_FIT_MIN_SAMPLES ? best.ssr / (double)(n - NTR_FIT_MIN_SAMPLES) : 0.0;
     NTR_TRY(separability(a, s2, &corr, &se_tbw, &se_loss));
-    (void)model_at(&fp, best.p, clock_h(history, n - 1), &m_last, &d_last);
+    NTR_TRY(model_at(&fp, best.p, clock_h(history, n - 1), &m_last, &d_last));
 
     for (k = n - NTR_FIT_MIN_SAMPLES, k_late = 0; k < n; k++, k_late++) {
         double m, d;
-        (void)model_at(&fp, best.p, clock_h(history, k), &m, &d);
+        NTR_TRY(model_at(&fp, best.p, clock_h(history, k), &m, &d));
         late += history[k].na_mmol_l - m;
     }
     late /= (double)k_late;

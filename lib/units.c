@@ -101,7 +101,7 @@ int ntr_unit_parse(const char *ucum, int *unit)
 
 /* The folded spellings ntr_unit_parse_lenient() accepts (header). Arrays,
  * not pointers, so the table needs no relocation. */
-#define SPELLING(text, unit) {text, (unsigned char)(sizeof text - 1u), unit}
+#define SPELLING(text, unit) {text, (unsigned char)(sizeof(text) - 1u), unit}
 static const struct {
     char text[16];
     unsigned char length; /* so only spellings of the folded length are compared */
