@@ -26,7 +26,8 @@
 #   --record  write the figures into docs/reliability.md (between markers)
 # Environment: NTR_FRAMA_PRECISION (EVA -eva-precision, default 8: below it
 # EVA merges the paths of a status check and reports outputs of failed
-# helper calls as uninitialised).
+# helper calls as uninitialised); NTR_FRAMA_PLAN_PRECISION (default 5) for
+# the plan-check and course-watcher drivers (see "Per-driver tuning").
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
@@ -97,15 +98,28 @@ for entry in "${drivers[@]}"; do
   # maxima at +-HUGE_VAL, so for the series drivers only NaN raises an
   # alarm (tests/frama-c/drivers_series.c). EVA stops a path at an alarm it
   # is sure of, so without this it would not look past those constants.
-  # Per-driver tuning (the slow drivers, tests/frama-c/drivers_series.c).
+  # Per-driver tuning: the plan checks (tests/frama-c/drivers_series.c)
+  # run the correction engine's window scans over history and plan points,
+  # and the course watcher judges both directions after every push; at
+  # precision 8 EVA follows them path by path (not finished in 400 s,
+  # even on the bounded grid); precision 5 with the last branch kept apart
+  # (-eva-partition-history 1, as precision 8 sets) finishes in 90 to 270 s
+  # each on the shared machine, without the uninitialised-output alarms of
+  # a plain precision 5.
+  prec="$precision"
   tuning=()
+  case "$d" in
+    drv_plan_check | drv_course_plan_check | drv_fit_reproject | drv_course_watch)
+      prec="${NTR_FRAMA_PLAN_PRECISION:-5}"
+      tuning=(-eva-partition-history 1) ;;
+  esac
   special=()
   if [[ "$d" == drv_batch_* ]]; then
     special=(-warn-special-float none)
   elif grep -q "^void $d(void)$" tests/frama-c/drivers_series.c; then
     special=(-warn-special-float nan)
   fi
-  frama-c -load "$ast" -eva -main "$d" -eva-precision "$precision" \
+  frama-c -load "$ast" -eva -main "$d" -eva-precision "$prec" \
     "${special[@]}" "${tuning[@]}" -eva-msg-key=-initial-state,-final-states >"$log" 2>&1 || true
   # The copy's path is lib/batch.c's (same line numbers).
   sed -i "s|$work/lanes/batch\.c|lib/batch.c|g" "$log"
@@ -137,7 +151,13 @@ for entry in "${drivers[@]}"; do
   done <"$work/$name.alarms"
 done
 elapsed=$((SECONDS - start))
-summary="EVA (Frama-C $(frama-c -version 2>/dev/null | head -1), -eva-precision $precision) from ${#drivers[@]} drivers: $total alarms; $clean of ${#drivers[@]} entry points without an alarm [${elapsed}s]"
+lanes=0
+for entry in "${drivers[@]}"; do
+  if [[ "$entry" == lanes:* ]]; then
+    lanes=$((lanes + 1))
+  fi
+done
+summary="EVA (Frama-C $(frama-c -version 2>/dev/null | head -1), -eva-precision $precision, ${NTR_FRAMA_PLAN_PRECISION:-5} with -eva-partition-history 1 for the plan checks and the course watcher) from ${#drivers[@]} driver runs ($lanes of them on the two-lane path): $total alarms; $clean of ${#drivers[@]} runs without an alarm [${elapsed}s]"
 echo "frama-c.sh: $summary"
 
 if [ "$record" -eq 1 ]; then
