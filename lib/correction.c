@@ -1020,15 +1020,14 @@ static int ring_numbers_sound(const ntr_sample *e, const struct ring_pos *p, dou
            before.na_mmol_l <= (sign > 0.0 ? NTR_NA_MAX : -NTR_NA_MIN);
 }
 
-/* Spans [from, to) of the ring array: 0 up to the widest change the
- * sodium range allows. Compared as floats: 0 and 140 are floats exactly,
- * so each test equals change_sound() of the span widened to double. */
+/* Spans [from, to) of the ring array, each change_sound(). Compared as
+ * doubles: a float comparison is widened anyway on targets that evaluate
+ * floats in double (FLT_EVAL_METHOD 1, such as s390x). */
 static int stretch_spans_sound(const float *span, unsigned int from, unsigned int to)
 {
-    const float widest = (float)(NTR_NA_MAX - NTR_NA_MIN);
     unsigned int k;
     for (k = from; k < to; k++) {
-        if (!(span[k] >= 0.0f && span[k] <= widest)) {
+        if (!change_sound((double)span[k])) {
             return 0;
         }
     }
