@@ -855,22 +855,23 @@ ENGINE_INLINE void scan_ends_body(const ntri_series *v, int read,
 static void scan_window(const ntri_series *v, int read, double w, double bar,
                         size_t from, struct window_scan *res)
 {
-    const int mirror = read & READ_MIRROR;
     if (v->point != NULL) {
         scan_window_body(v, read, w, bar, from, res);
-    } else if ((read & READ_MAX_ONLY) != 0) {
-        scan_window_body(v, mirror | READ_ARRAY | READ_MAX_ONLY, w, bar, from, res);
+    } else if (read == READ_MAX_ONLY) { /* the 1.0 assessment: rises only */
+        scan_window_body(v, READ_ARRAY | READ_MAX_ONLY, w, bar, from, res);
     } else {
-        scan_window_body(v, mirror | READ_ARRAY, w, bar, from, res);
+        scan_window_body(v, (read & READ_MIRROR) | READ_ARRAY, w, bar, from, res);
     }
 }
 
 static void scan_ends(const ntri_series *v, int read, struct direction *d)
 {
-    if (v->point == NULL) {
-        scan_ends_body(v, (read & READ_MIRROR) | READ_ARRAY, d);
-    } else {
+    if (v->point != NULL) {
         scan_ends_body(v, read & READ_MIRROR, d);
+    } else if ((read & READ_MIRROR) == 0) {
+        scan_ends_body(v, READ_ARRAY, d);
+    } else {
+        scan_ends_body(v, READ_MIRROR | READ_ARRAY, d);
     }
 }
 
