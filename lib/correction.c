@@ -538,7 +538,12 @@ static double projected_rise(double projected_na, double window_min)
 
 /* ---- batch engine ------------------------------------------------------- */
 
-#if defined(__GNUC__)
+/* The scans' helpers are inlined even where the compiler's estimate says
+ * no (it left point_at, a load, as a call on every read): the wrappers
+ * below rely on it to compile the scans once per way of reading. Builds
+ * for size (-Os, firmware) leave the choice to the compiler, which then
+ * keeps one copy. */
+#if defined(__GNUC__) && !defined(__OPTIMIZE_SIZE__)
 #define ENGINE_INLINE static inline __attribute__((always_inline))
 #else
 #define ENGINE_INLINE static inline
