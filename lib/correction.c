@@ -594,46 +594,37 @@ struct window_scan {
     size_t first_over; /* first index >= from whose window rise is over bar */
 };
 
-/* A pair's rise, ending at index j, when `pair` is true (else nothing):
- * keeps the largest and, among the pairs reaching it, the smallest j (the
- * order the pairs are visited in does not matter, so the watcher, which
- * visits them by j, agrees). Written as selects, not branches: whether a
- * pair beats the best so far depends on the data, and the branch on it was
- * mispredicted on about one pair in four (tests/bench/notes.md,
- * "Correction assessment per sample"). The larger of r and *best is taken
- * with the plain comparison, which the compiler makes a max instruction:
- * on a tie it keeps *best instead of r, the same number (two equal doubles
- * differ in bits only as +0 and -0, and a rise is never -0: x - y is -0
- * only for x = -0, and no sodium, negated or not, is 0). */
-ENGINE_INLINE void take_rise_if(int read, int pair, double rise, size_t j,
-                                double *best, size_t *at)
-{
-    const double r = ntri_select(pair, rise, -HUGE_VAL); /* -inf: no pair */
-    if ((read & READ_MAX_ONLY) == 0) {
-        const int better = (r > *best) | ((r == *best) & (j < *at));
-        *at = select_index(better, j, *at);
-    }
-    *best = r > *best ? r : *best;
-}
-
+/* A pair's rise, ending at index j: keeps the largest and, among the pairs
+ * reaching it, the smallest j (the order the pairs are visited in does not
+ * matter, so the watcher, which visits them by j, agrees). Written as
+ * selects, not branches: whether a pair beats the best so far depends on
+ * the data, and the branch on it was the most mispredicted one of the
+ * assessment (tests/bench/notes.md, "Correction assessment per sample").
+ * The larger of rise and *best is taken with the plain comparison, which
+ * the compiler makes a max instruction: on a tie it keeps *best instead of
+ * rise, the same number (two equal doubles differ in bits only as +0 and
+ * -0, and a rise is never -0: x - y is -0 only for x = -0, and no sodium,
+ * negated or not, is 0). With READ_MAX_ONLY the index is not kept. */
 ENGINE_INLINE void take_rise(int read, double rise, size_t j, double *best,
                              size_t *at)
 {
-    take_rise_if(read, 1, rise, j, best, at);
+    if ((read & READ_MAX_ONLY) == 0) {
+        const int better = (rise > *best) | ((rise == *best) & (j < *at));
+        *at = select_index(better, j, *at);
+    }
+    *best = rise > *best ? rise : *best;
 }
 
 /*
  * The pairs between a block [start, end) and the one before it
- * [prev_start, start) (see scan_window): walking the later block backwards
- * from p = end - 1, the earlier samples within w of p form a suffix
- * [taken, start) of the earlier block that only grows. This is a merge of
- * two sorted runs: each step either takes the next earlier sample into the
- * suffix (when it is within w of p) or closes p (its rise over the
- * suffix's minimum counts when the suffix is not empty). Which one is
- * decided by the times, so the step is written with selects: as two nested
- * loops, the inner one's exit was mispredicted on most samples. The
- * samples are visited, and the minima and rises formed, in the same order
- * as by the nested loops.
+ * [prev_start, start) (see scan_window_body): walking the later block
+ * backwards, the earlier samples within w of p form a suffix
+ * [taken, start) of the earlier block that only grows, so a running
+ * minimum of that suffix suffices. The loops stay loops: written as one
+ * merge with selects (no branch on the times at all), each step's read
+ * waited for the previous step's comparison, and series of regular
+ * spacing, whose loop exits the processor predicts, became slower
+ * (tests/bench/notes.md, "Correction assessment per sample").
  */
 ENGINE_INLINE void cross_pairs(const ntri_series *v, int read, double w,
                                double bar, size_t from, size_t prev_start,
@@ -641,35 +632,32 @@ ENGINE_INLINE void cross_pairs(const ntri_series *v, int read, double w,
                                size_t *at, size_t *block_first)
 {
     size_t taken = start; /* [taken, start) of the earlier block is in reach */
-    size_t p = end;       /* samples at p and after are closed */
     double cross_min = HUGE_VAL;
-    ntr_sample sp = point_at(v, p - 1, read);
+    size_t p = end;
     double b = *best;
     size_t a = *at;
     size_t bf = *block_first;
-
     while (p > start) {
-        /* The next earlier sample; at the start of the earlier block there
-         * is none, and sample prev_start (always readable) stands in. */
-        const int more = taken > prev_start;
-        const ntr_sample sq = point_at(v, more ? taken - 1 : prev_start, read);
-        const int take = more & within(sq.hours, sp.hours, w);
-        const double rise = sp.na_mmol_l - cross_min;
-        const int close = !take & (taken < start);
-        const size_t q = p - 1;
-        /* take: widen the suffix */
-        cross_min = ntri_select(take & (sq.na_mmol_l < cross_min), sq.na_mmol_l,
-                                  cross_min);
-        taken -= (size_t)take;
-        /* close: p's rise over the suffix, then the next p */
-        take_rise_if(read, close, rise, q, &b, &a);
-        if ((read & READ_MAX_ONLY) == 0) {
-            bf = select_index(close & (rise > bar) & (q >= from) & (q < bf), q, bf);
+        ntr_sample sp;
+        p--;
+        sp = point_at(v, p, read);
+        while (taken > prev_start) {
+            const ntr_sample sq = point_at(v, taken - 1, read);
+            if (!within(sq.hours, sp.hours, w)) {
+                break;
+            }
+            taken--;
+            if (sq.na_mmol_l < cross_min) {
+                cross_min = sq.na_mmol_l;
+            }
         }
-        p -= (size_t)!take;
-        /* p - 1 >= start - 1 >= prev_start: readable even after the last
-         * step (the value is then not used). */
-        sp = point_at(v, p - 1, read);
+        if (taken < start) {
+            const double rise = sp.na_mmol_l - cross_min;
+            take_rise(read, rise, p, &b, &a);
+            if ((read & READ_MAX_ONLY) == 0 && rise > bar && p >= from && p < bf) {
+                bf = p;
+            }
+        }
     }
     *best = b;
     *at = a;
