@@ -598,8 +598,9 @@ struct window_scan {
  * reaching it, the smallest j (the order the pairs are visited in does not
  * matter, so the watcher, which visits them by j, agrees). Written as
  * selects, not branches: whether a pair beats the best so far depends on
- * the data, and the branch on it was the most mispredicted one of the
- * assessment (tests/bench/notes.md, "Correction assessment per sample").
+ * the data, and on short series (a cohort, tests/bench/bench_cohort.py)
+ * the branch on it had a quarter of the mispredictions (tests/bench/notes.md,
+ * "Correction assessment per sample").
  * The larger of rise and *best is taken with the plain comparison, which
  * the compiler makes a max instruction: on a tie it keeps *best instead of
  * rise, the same number (two equal doubles differ in bits only as +0 and
@@ -841,10 +842,11 @@ ENGINE_INLINE void scan_ends_body(const ntri_series *v, int read,
     d->projected_48h = d->moving ? projected_rise(next.na_mmol_l, next_min_48) : 0.0;
 }
 
-/* The scans compiled twice: for a series in an array, where every read is
- * a load the compiler can keep in registers, and for points computed on
- * demand (the plan checks), where a read is a call. Same code, same
- * operations, same order. */
+/* The scans compiled once per way of reading: for a series in an array,
+ * where every read is a load the compiler can keep in registers (rises
+ * only for the 1.0 assessment, rises or falls with all the bookkeeping for
+ * the course), and for points computed on demand (the plan checks), where
+ * a read is a call. Same code, same operations, same order. */
 static void scan_window(const ntri_series *v, int read, double w, double bar,
                         size_t from, struct window_scan *res)
 {
