@@ -286,6 +286,8 @@ int ntri_samples_check(const ntr_sample *s, size_t n, int *order)
 #define DIR_RISE 1u
 #define DIR_FALL 2u
 #define DIR_BOTH (DIR_RISE | DIR_FALL)
+/* With either: the caller reads neither worst_at_h nor breach indices. */
+#define DIR_MAX_ONLY 4u
 
 /* The figures of one direction ("rise" meaning a rise of the series read in
  * that direction: a fall for the mirror). */
@@ -536,11 +538,51 @@ static double projected_rise(double projected_na, double window_min)
 
 /* ---- batch engine ------------------------------------------------------- */
 
-/* Sample i of the series, or of its mirror image. */
-static ntr_sample point_at(const ntri_series *v, size_t i, int mirror)
+/* The scans' helpers are inlined even where the compiler's estimate says
+ * no (it left point_at, a load, as a call on every read): the wrappers
+ * below rely on it to compile the scans once per way of reading. Builds
+ * for size (-Os, firmware) leave the choice to the compiler, which then
+ * keeps one copy. */
+#if defined(__GNUC__) && !defined(__OPTIMIZE_SIZE__)
+#define ENGINE_INLINE static inline __attribute__((always_inline))
+#else
+#define ENGINE_INLINE static inline
+#endif
+
+/* a when c is true, else b, without a branch (ntri_select for an index). */
+ENGINE_INLINE size_t select_index(int c, size_t a, size_t b)
 {
-    ntr_sample s = v->samples != NULL ? v->samples[i] : v->point(v->ctx, i);
-    if (mirror) {
+    const size_t mask = (size_t)0 - (size_t)(c != 0);
+    return (a & mask) | (b & ~mask);
+}
+
+static ntri_series array_series(const ntr_sample *s, size_t n)
+{
+    ntri_series v;
+    v.samples = s;
+    v.point = NULL;
+    v.ctx = NULL;
+    v.n = n;
+    return v;
+}
+
+/* How a scan reads the series: READ_MIRROR reads its mirror image;
+ * READ_ARRAY promises an array series (v->point NULL), so that the
+ * compiler, seeing a constant, drops the call path from the loops. */
+#define READ_MIRROR 1
+#define READ_ARRAY 2
+/* Only the largest rises are wanted: not which sample reaches them first
+ * (worst_at_h) nor the first breach (the 1.0 assessment without breach,
+ * which reads neither), so the scans skip that bookkeeping. */
+#define READ_MAX_ONLY 4
+
+/* Sample i of the series, or of its mirror image. */
+ENGINE_INLINE ntr_sample point_at(const ntri_series *v, size_t i, int read)
+{
+    ntr_sample s = (read & READ_ARRAY) != 0 || v->point == NULL
+                       ? v->samples[i]
+                       : v->point(v->ctx, i);
+    if ((read & READ_MIRROR) != 0) {
         s.na_mmol_l = -s.na_mmol_l;
     }
     return s;
@@ -554,13 +596,73 @@ struct window_scan {
 
 /* A pair's rise, ending at index j: keeps the largest and, among the pairs
  * reaching it, the smallest j (the order the pairs are visited in does not
- * matter, so the watcher, which visits them by j, agrees). */
-static void take_rise(double rise, size_t j, double *best, size_t *at)
+ * matter, so the watcher, which visits them by j, agrees). Written as
+ * selects, not branches: whether a pair beats the best so far depends on
+ * the data, and on short series (a cohort, tests/bench/bench_cohort.py)
+ * the branch on it had a quarter of the mispredictions (tests/bench/notes.md,
+ * "Correction assessment per sample").
+ * The larger of rise and *best is taken with the plain comparison, which
+ * the compiler makes a max instruction: on a tie it keeps *best instead of
+ * rise, the same number (two equal doubles differ in bits only as +0 and
+ * -0, and a rise is never -0: x - y is -0 only for x = -0, and no sodium,
+ * negated or not, is 0). With READ_MAX_ONLY the index is not kept. */
+ENGINE_INLINE void take_rise(int read, double rise, size_t j, double *best,
+                             size_t *at)
 {
-    if (rise > *best || (rise == *best && j < *at)) {
-        *best = rise;
-        *at = j;
+    if ((read & READ_MAX_ONLY) == 0) {
+        const int better = (rise > *best) | ((rise == *best) & (j < *at));
+        *at = select_index(better, j, *at);
     }
+    *best = rise > *best ? rise : *best;
+}
+
+/*
+ * The pairs between a block [start, end) and the one before it
+ * [prev_start, start) (see scan_window_body): walking the later block
+ * backwards, the earlier samples within w of p form a suffix
+ * [taken, start) of the earlier block that only grows, so a running
+ * minimum of that suffix suffices. The loops stay loops: written as one
+ * merge with selects (no branch on the times at all), each step's read
+ * waited for the previous step's comparison, and series of regular
+ * spacing, whose loop exits the processor predicts, became slower
+ * (tests/bench/notes.md, "Correction assessment per sample").
+ */
+ENGINE_INLINE void cross_pairs(const ntri_series *v, int read, double w,
+                               double bar, size_t from, size_t prev_start,
+                               size_t start, size_t end, double *best,
+                               size_t *at, size_t *block_first)
+{
+    size_t taken = start; /* [taken, start) of the earlier block is in reach */
+    double cross_min = HUGE_VAL;
+    size_t p = end;
+    double b = *best;
+    size_t a = *at;
+    size_t bf = *block_first;
+    while (p > start) {
+        ntr_sample sp;
+        p--;
+        sp = point_at(v, p, read);
+        while (taken > prev_start) {
+            const ntr_sample sq = point_at(v, taken - 1, read);
+            if (!within(sq.hours, sp.hours, w)) {
+                break;
+            }
+            taken--;
+            if (sq.na_mmol_l < cross_min) {
+                cross_min = sq.na_mmol_l;
+            }
+        }
+        if (taken < start) {
+            const double rise = sp.na_mmol_l - cross_min;
+            take_rise(read, rise, p, &b, &a);
+            if ((read & READ_MAX_ONLY) == 0 && rise > bar && p >= from && p < bf) {
+                bf = p;
+            }
+        }
+    }
+    *best = b;
+    *at = a;
+    *block_first = bf;
 }
 
 /*
@@ -583,8 +685,9 @@ static void take_rise(double rise, size_t j, double *best, size_t *at)
  * `bar`; the first such index at or after `from` is reported (the earliest
  * block with one wins, and inside a block the smaller of the two kinds).
  */
-static void scan_window(const ntri_series *v, int mirror, double w, double bar,
-                        size_t from, struct window_scan *res)
+ENGINE_INLINE void scan_window_body(const ntri_series *v, int read, double w,
+                                    double bar, size_t from,
+                                    struct window_scan *res)
 {
     const size_t n = v->n;
     size_t prev_start = 0;
@@ -595,20 +698,21 @@ static void scan_window(const ntri_series *v, int mirror, double w, double bar,
     size_t first = NTRI_NONE;
 
     while (start < n) {
-        const ntr_sample s0 = point_at(v, start, mirror);
+        const ntr_sample s0 = point_at(v, start, read);
         double run_min = s0.na_mmol_l;
         size_t end = start + 1;
         size_t block_first = NTRI_NONE;
 
         for (; end < n; end++) {
-            const ntr_sample sj = point_at(v, end, mirror);
+            const ntr_sample sj = point_at(v, end, read);
             double rise;
             if (!within(s0.hours, sj.hours, w)) {
                 break;
             }
             rise = sj.na_mmol_l - run_min;
-            take_rise(rise, end, &best, &at);
-            if (rise > bar && end >= from && block_first == NTRI_NONE) {
+            take_rise(read, rise, end, &best, &at);
+            if ((read & READ_MAX_ONLY) == 0 && rise > bar && end >= from &&
+                block_first == NTRI_NONE) {
                 block_first = end;
             }
             if (sj.na_mmol_l < run_min) {
@@ -617,31 +721,8 @@ static void scan_window(const ntri_series *v, int mirror, double w, double bar,
         }
 
         if (have_prev) {
-            size_t taken = start; /* [taken, start) of the earlier block is in reach */
-            double cross_min = HUGE_VAL;
-            size_t p = end;
-            while (p > start) {
-                ntr_sample sp;
-                p--;
-                sp = point_at(v, p, mirror);
-                while (taken > prev_start) {
-                    const ntr_sample sq = point_at(v, taken - 1, mirror);
-                    if (!within(sq.hours, sp.hours, w)) {
-                        break;
-                    }
-                    taken--;
-                    if (sq.na_mmol_l < cross_min) {
-                        cross_min = sq.na_mmol_l;
-                    }
-                }
-                if (taken < start) {
-                    double rise = sp.na_mmol_l - cross_min;
-                    take_rise(rise, p, &best, &at);
-                    if (rise > bar && p >= from && p < block_first) {
-                        block_first = p;
-                    }
-                }
-            }
+            cross_pairs(v, read, w, bar, from, prev_start, start, end, &best,
+                        &at, &block_first);
         }
 
         if (first == NTRI_NONE) {
@@ -666,12 +747,12 @@ static double time_at(const ntri_series *v, size_t at, double rise)
 /* Walks back from index `end` (exclusive) over the samples within w
  * before time t, lowering *lowest to their lowest sodium; returns the index
  * where it stopped (the first sample of the stretch). */
-static size_t extend_min_back(const ntri_series *v, int mirror, size_t end,
+ENGINE_INLINE size_t extend_min_back(const ntri_series *v, int read, size_t end,
                               double t, double w, double *lowest)
 {
     double m = *lowest;
     while (end > 0) {
-        const ntr_sample s = point_at(v, end - 1, mirror);
+        const ntr_sample s = point_at(v, end - 1, read);
         if (!within(s.hours, t, w)) {
             break;
         }
@@ -685,12 +766,12 @@ static size_t extend_min_back(const ntri_series *v, int mirror, size_t end,
 }
 
 /* The latest sample taken strictly before the last one's time. */
-static int previous_time_point(const ntri_series *v, int mirror, ntr_sample *prev)
+ENGINE_INLINE int previous_time_point(const ntri_series *v, int read, ntr_sample *prev)
 {
-    const ntr_sample last = point_at(v, v->n - 1, mirror);
+    const ntr_sample last = point_at(v, v->n - 1, read);
     size_t i;
     for (i = v->n - 1; i > 0; i--) {
-        const ntr_sample s = point_at(v, i - 1, mirror);
+        const ntr_sample s = point_at(v, i - 1, read);
         if (s.hours < last.hours) {
             *prev = s;
             return 1;
@@ -703,11 +784,12 @@ static int previous_time_point(const ntri_series *v, int mirror, ntr_sample *pre
 /* first_24h, and the windows ending at the last sample and at the
  * projected next one: a walk forward over the first 24 h and one backward
  * over the last 48 h. */
-static void scan_ends(const ntri_series *v, int mirror, struct direction *d)
+ENGINE_INLINE void scan_ends_body(const ntri_series *v, int read,
+                                  struct direction *d)
 {
     const size_t n = v->n;
-    const ntr_sample first = point_at(v, 0, mirror);
-    const ntr_sample last = point_at(v, n - 1, mirror);
+    const ntr_sample first = point_at(v, 0, read);
+    const ntr_sample last = point_at(v, n - 1, read);
     ntr_sample prev;
     ntr_sample next = last;
     int has_prev;
@@ -719,7 +801,7 @@ static void scan_ends(const ntri_series *v, int mirror, struct direction *d)
     size_t i;
 
     for (i = 1; i < n; i++) {
-        const ntr_sample s = point_at(v, i, mirror);
+        const ntr_sample s = point_at(v, i, read);
         if (!within(first.hours, s.hours, WINDOW_24H)) {
             break;
         }
@@ -728,27 +810,27 @@ static void scan_ends(const ntri_series *v, int mirror, struct direction *d)
         }
     }
 
-    has_prev = previous_time_point(v, mirror, &prev);
+    has_prev = previous_time_point(v, read, &prev);
     d->moving = has_interval(has_prev, prev, last) && last.na_mmol_l > prev.na_mmol_l;
 
     /* The 6 h, 24 h and 48 h windows ending at the last sample are nested
      * suffixes of the series: one backward walk in three stretches. */
     lowest = last.na_mmol_l;
     i = n - 1;
-    i = extend_min_back(v, mirror, i, last.hours, WINDOW_6H, &lowest);
+    i = extend_min_back(v, read, i, last.hours, WINDOW_6H, &lowest);
     min_6 = lowest;
-    i = extend_min_back(v, mirror, i, last.hours, WINDOW_24H, &lowest);
+    i = extend_min_back(v, read, i, last.hours, WINDOW_24H, &lowest);
     min_24 = lowest;
-    (void)extend_min_back(v, mirror, i, last.hours, WINDOW_48H, &lowest);
+    (void)extend_min_back(v, read, i, last.hours, WINDOW_48H, &lowest);
     min_48 = lowest;
 
     /* The windows ending at the projected next sample: shorter suffixes. */
     if (d->moving) {
         next = projected_next(prev, last);
         lowest = HUGE_VAL;
-        i = extend_min_back(v, mirror, n, next.hours, WINDOW_24H, &lowest);
+        i = extend_min_back(v, read, n, next.hours, WINDOW_24H, &lowest);
         next_min_24 = lowest;
-        (void)extend_min_back(v, mirror, i, next.hours, WINDOW_48H, &lowest);
+        (void)extend_min_back(v, read, i, next.hours, WINDOW_48H, &lowest);
         next_min_48 = lowest;
     }
 
@@ -760,17 +842,45 @@ static void scan_ends(const ntri_series *v, int mirror, struct direction *d)
     d->projected_48h = d->moving ? projected_rise(next.na_mmol_l, next_min_48) : 0.0;
 }
 
+/* The scans compiled once per way of reading: for a series in an array,
+ * where every read is a load the compiler can keep in registers (rises
+ * only for the 1.0 assessment, rises or falls with all the bookkeeping for
+ * the course), and for points computed on demand (the plan checks), where
+ * a read is a call. Same code, same operations, same order. */
+static void scan_window(const ntri_series *v, int read, double w, double bar,
+                        size_t from, struct window_scan *res)
+{
+    if (v->point != NULL) {
+        scan_window_body(v, read, w, bar, from, res);
+    } else if (read == READ_MAX_ONLY) { /* the 1.0 assessment: rises only */
+        scan_window_body(v, READ_ARRAY | READ_MAX_ONLY, w, bar, from, res);
+    } else {
+        scan_window_body(v, (read & READ_MIRROR) | READ_ARRAY, w, bar, from, res);
+    }
+}
+
+static void scan_ends(const ntri_series *v, int read, struct direction *d)
+{
+    if (v->point != NULL) {
+        scan_ends_body(v, read & READ_MIRROR, d);
+    } else if ((read & READ_MIRROR) == 0) {
+        scan_ends_body(v, READ_ARRAY, d);
+    } else {
+        scan_ends_body(v, READ_MIRROR | READ_ARRAY, d);
+    }
+}
+
 /* One direction of the series: both windows, their first breaches, and
  * the ends. */
-static void scan_direction(const ntri_series *v, int mirror, double limit_24h,
+static void scan_direction(const ntri_series *v, int read, double limit_24h,
                            double limit_48h, size_t from, struct direction *d,
                            size_t *first_24h, size_t *first_48h)
 {
     struct window_scan w24;
     struct window_scan w48;
-    scan_window(v, mirror, WINDOW_24H, bar_of(limit_24h), from, &w24);
-    scan_window(v, mirror, WINDOW_48H, bar_of(limit_48h), from, &w48);
-    scan_ends(v, mirror, d);
+    scan_window(v, read, WINDOW_24H, bar_of(limit_24h), from, &w24);
+    scan_window(v, read, WINDOW_48H, bar_of(limit_48h), from, &w48);
+    scan_ends(v, read, d);
     d->max_24h = w24.max_rise;
     d->max_48h = w48.max_rise;
     d->at_24h = time_at(v, w24.at, w24.max_rise);
@@ -786,17 +896,19 @@ static void course_engine(const ntri_series *v, const ntr_course_limits *lim,
 {
     struct figures f;
     ntri_course_breach b = {NTRI_NONE, NTRI_NONE, NTRI_NONE, NTRI_NONE};
+    const int only = (dirs & DIR_MAX_ONLY) != 0u ? READ_MAX_ONLY : 0;
     ntr_sample prev;
     int has_prev;
 
     f.up = no_direction;
     f.down = no_direction;
     if ((dirs & DIR_RISE) != 0u) {
-        scan_direction(v, 0, lim->max_rise_24h, lim->max_rise_48h, from, &f.up,
+        scan_direction(v, only, lim->max_rise_24h, lim->max_rise_48h, from, &f.up,
                        &b.rise_24h, &b.rise_48h);
     }
     if ((dirs & DIR_FALL) != 0u) {
-        scan_direction(v, 1, lim->max_fall_24h, lim->max_fall_48h, from, &f.down,
+        scan_direction(v, only | READ_MIRROR, lim->max_fall_24h, lim->max_fall_48h,
+                       from, &f.down,
                        &b.fall_24h, &b.fall_48h);
     }
     f.elapsed_h = point_at(v, v->n - 1, 0).hours - point_at(v, 0, 0).hours;
@@ -821,22 +933,15 @@ void ntri_assess(const ntri_series *v, const ntr_limits *lim, size_t from,
     const ntr_course_limits course = course_of(lim);
     ntr_course_report r;
     ntri_course_breach b;
-    course_engine(v, &course, from, DIR_RISE, &r, breach != NULL ? &b : NULL);
+    /* Without breach nothing reads where the windows peak: the 1.0 result
+     * has no worst_at_h. */
+    course_engine(v, &course, from, breach != NULL ? DIR_RISE : DIR_RISE | DIR_MAX_ONLY,
+                  &r, breach != NULL ? &b : NULL);
     correction_of(&r, out);
     if (breach != NULL) {
         breach->first_over_24h = b.rise_24h;
         breach->first_over_48h = b.rise_48h;
     }
-}
-
-static ntri_series array_series(const ntr_sample *s, size_t n)
-{
-    ntri_series v;
-    v.samples = s;
-    v.point = NULL;
-    v.ctx = NULL;
-    v.n = n;
-    return v;
 }
 
 int ntr_correction_assess(const ntr_sample *s, size_t n, const ntr_limits *lim,

@@ -16,8 +16,8 @@
 /* A series read by index: an array, or points computed on demand. */
 typedef ntr_sample (*ntri_point_fn)(const void *ctx, size_t i);
 typedef struct ntri_series {
-    const ntr_sample *samples; /* the series, or NULL to call point() */
-    ntri_point_fn point;
+    const ntr_sample *samples; /* the series when point is NULL */
+    ntri_point_fn point;       /* NULL for an array, else called per read */
     const void *ctx;
     size_t n;
 } ntri_series;

@@ -1388,6 +1388,41 @@ static void correction_assess_is_the_course_engine(void **state)
     }
 }
 
+/* The same on long series on a grid of times and sodium values (many
+ * samples at one time, many equal rises): the 1.0 assessment runs scans
+ * of its own that keep only the largest rises (lib/correction.c,
+ * READ_MAX_ONLY), the course assessment the full ones. */
+static void correction_assess_is_the_course_engine_on_grids(void **state)
+{
+    static ntr_sample s[1200];
+    int round;
+    (void)state;
+    for (round = 0; round < 60; round++) {
+        size_t n = 1 + rng_below(1200), i;
+        double t = 0.0, na = 120.0;
+        ntr_limits lim = random_limits();
+        ntr_course_limits c = course_limits(NTR_GOAL_RAISE, lim.max_rise_24h, lim.max_rise_48h,
+                                            0.0, 0.0, lim.min_rise_24h);
+        for (i = 0; i < n; i++) {
+            s[i].hours = t;
+            s[i].na_mmol_l = na;
+            t += 2.0 * (double)rng_below(round % 2 == 0 ? 4u : 7u); /* 0 to 12 h */
+            na += (double)((int)rng_below(7) - 3);                  /* whole steps */
+            na = na < 100.0 ? 100.0 : (na > 170.0 ? 170.0 : na);
+        }
+        {
+            ntr_correction old = assess(s, n, &lim);
+            ntr_course_report r = course_assess(s, n, &c);
+            assert_true(old.rise_first_24h == r.rise_first_24h);
+            assert_true(old.max_rise_24h == r.max_rise_24h);
+            assert_true(old.max_rise_48h == r.max_rise_48h);
+            assert_true(old.last_rate_per_h == r.last_rate_per_h);
+            assert_true(old.excess_mmol_l == r.excess_mmol_l);
+            assert_int_equal(old.flags, r.flags & NTR_CF_ALL);
+        }
+    }
+}
+
 static ntr_course_limits random_course_limits(void)
 {
     static const int presets[] = {NTR_COURSE_HYPO_STANDARD, NTR_COURSE_HYPO_HIGH_RISK,
@@ -2449,6 +2484,7 @@ int main(void)
         cmocka_unit_test(hold_cases),
         cmocka_unit_test(course_target_only_when_asked),
         cmocka_unit_test(correction_assess_is_the_course_engine),
+        cmocka_unit_test(correction_assess_is_the_course_engine_on_grids),
         cmocka_unit_test(course_assess_agrees_with_the_definitions),
         cmocka_unit_test(course_assess_agrees_on_dense_series),
         cmocka_unit_test(course_assess_rejects_bad_inputs),

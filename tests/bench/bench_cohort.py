@@ -25,7 +25,10 @@ reports natremia against them too:
   (patient * 2**32 + minutes), the start of every row's 24 h and 48 h
   window by np.searchsorted(key, key - window) (the key gap keeps windows
   inside a patient), the window minimum by a sparse table (range minimum
-  in two lookups), and per-patient maxima by np.maximum.reduceat;
+  in two lookups; one table for both windows, its levels gathered level by
+  level instead of stacked into one array: about half the time of a table
+  per window stacked, the earlier version of this baseline), and
+  per-patient maxima by np.maximum.reduceat;
 - flat pandas: one rolling window (24 h, 48 h) over the whole frame on a
   time column that puts a gap of over 48 h between patients (one minute
   counted as one nanosecond so a million patients fit), so one flat
@@ -149,30 +152,40 @@ def finish(ids, minutes, na, starts, window_min, out_cls=dict):
     return out
 
 
-def range_min(values, lo, hi):
-    """min(values[lo[i]:hi[i]+1]) for every i: a sparse table of minima over
-    runs of 2**k, two lookups per query."""
-    length = hi - lo + 1
+def window_mins(values, key, windows_min):
+    """For every row i and each window w (minutes), min(values[lo:i + 1])
+    with lo = np.searchsorted(key, key - w): one sparse table of minima over
+    runs of 2**k (built once, shared by the windows, levels kept apart
+    rather than stacked into one copy), and per window two lookups per row,
+    the rows gathered level by level."""
+    n = values.size
+    rows = np.arange(n)
+    los = [np.searchsorted(key, key - w, side="left") for w in windows_min]
+    longest = int(max((rows - lo).max() for lo in los)) + 1
     levels = [values]
     span = 1
-    while 2 * span <= int(length.max()):
+    while 2 * span <= longest:
         prev = levels[-1]
         nxt = prev.copy()
-        nxt[:-span] = np.minimum(prev[:-span], prev[span:])
+        np.minimum(prev[:-span], prev[span:], out=nxt[:-span])
         levels.append(nxt)
         span *= 2
-    k = np.floor(np.log2(length)).astype(np.int64)
-    table = np.stack(levels)
-    return np.minimum(table[k, lo], table[k, hi - (1 << k) + 1])
+    mins = []
+    for lo in los:
+        level = np.frexp(rows - lo + 1)[1] - 1  # floor(log2(length)), exact
+        res = np.empty(n)
+        for k, table in enumerate(levels):
+            idx = np.flatnonzero(level == k)
+            res[idx] = np.minimum(table[lo[idx]], table[idx - (1 << k) + 1])
+        mins.append(res)
+    return mins
 
 
 def with_numpy(ids, minutes, na):
     starts = np.flatnonzero(np.diff(ids, prepend=ids[0] - 1))
     key = ids * GAP_MIN + minutes
-    rows = np.arange(na.size)
-    window_min = {h: range_min(na, np.searchsorted(key, key - h * 60, side="left"), rows)
-                  for h in (24, 48)}
-    return finish(ids, minutes, na, starts, window_min)
+    m24, m48 = window_mins(na, key, (24 * 60, 48 * 60))
+    return finish(ids, minutes, na, starts, {24: m24, 48: m48})
 
 
 def with_pandas_flat(ids, minutes, na):

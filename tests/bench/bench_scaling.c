@@ -11,10 +11,12 @@
  * the fastest pass: time per sample = best pass time / samples assessed.
  *
  * Usage:
- *   bench_scaling [total] [repeats] [dense|sparse]   table for every length
- *   bench_scaling one N TOTAL [dense|sparse]         one length only (for
+ *   bench_scaling [total] [repeats] [SPACING]   table for every length
+ *   bench_scaling one N TOTAL [SPACING]         one length only (for
  *       callgrind, which counts the instructions inside
  *       ntr_correction_assess)
+ * SPACING: dense (default), sparse, or dense-even / sparse-even (every 4 h /
+ * every 10 h exactly, the same mean spacing without the jitter).
  * Output lines: samples_per_series series samples best_s ns_per_sample
  * flagged (series with a flag raised, to show the work is real). */
 #define _POSIX_C_SOURCE 200809L
@@ -49,8 +51,10 @@ static double uniform(uint64_t *state)
     return (double)(x >> 11) / 9007199254740992.0;
 }
 
-/* Results every min_gap_h to min_gap_h + 4 hours. */
-static void build_series(double min_gap_h)
+/* Results every min_gap_h to min_gap_h + jitter_h hours. The random
+ * numbers are drawn in the same order whatever the spacing, so every
+ * spacing has the same sodium values, index by index. */
+static void build_series(double min_gap_h, double jitter_h)
 {
     uint64_t seed = 0x2545f4914f6cdd1du;
     double t = 0.0, na = 120.0, drift = 0.35;
@@ -58,7 +62,7 @@ static void build_series(double min_gap_h)
     for (k = 0; k < LONGEST; k++) {
         series[k].hours = t;
         series[k].na_mmol_l = na;
-        t += min_gap_h + 4.0 * uniform(&seed);
+        t += min_gap_h + jitter_h * uniform(&seed);
         na += drift * 4.0 * uniform(&seed) - 0.4 * uniform(&seed);
         if (na > 148.0) {
             drift = -0.2;
@@ -98,12 +102,20 @@ int main(int argc, char **argv)
     int failed = 0;
     int one = argc > 1 && strcmp(argv[1], "one") == 0;
     const char *spacing = argc > (one ? 4 : 3) ? argv[one ? 4 : 3] : "dense";
+    /* dense-even and sparse-even: the same mean spacing without jitter
+     * (every 4 h, every 10 h), to tell the number of samples in a window
+     * from the regularity of the loops (tests/bench/notes.md). */
     if (strcmp(spacing, "dense") == 0) {
-        build_series(2.0);
+        build_series(2.0, 4.0);
     } else if (strcmp(spacing, "sparse") == 0) {
-        build_series(8.0);
+        build_series(8.0, 4.0);
+    } else if (strcmp(spacing, "dense-even") == 0) {
+        build_series(4.0, 0.0);
+    } else if (strcmp(spacing, "sparse-even") == 0) {
+        build_series(10.0, 0.0);
     } else {
-        fprintf(stderr, "bench_scaling: spacing is dense or sparse\n");
+        fprintf(stderr, "bench_scaling: spacing is dense, sparse, dense-even "
+                        "or sparse-even\n");
         return 2;
     }
     ntr_limits_preset(NTR_LIMITS_STANDARD, &lim);
