@@ -836,6 +836,36 @@ static void fit_flags_a_bound(void **state)
     assert_near(f.tbw_l, 200.0 / 3.0, 1e-6);
 }
 
+/* A free-water flow beyond the loss's search range: the fit stops at the
+ * range's end and flags it. The box is L in [-2000, 2000] mL/h and
+ * NTR_FIT_LOSS_AT_BOUND means "free_water_loss_ml_h is at -2000 or 2000
+ * mL/h" (the header's Doxygen blocks of ntr_course_fit() and the fit
+ * flags). The hidden patients (sodium 120, body water 60 L, design A,
+ * hourly for 8 h; invented, from the library's own forward model) gain
+ * 2500 mL/h of free water, or lose 2500 mL/h: no L inside the box fits,
+ * so the best point found lies on its edge. */
+static void fit_flags_the_loss_bound(void **state)
+{
+    static const double hidden[] = {-2500.0, 2500.0};
+    static const double guess[] = {60.0, 40.0};
+    size_t i;
+    (void)state;
+    for (i = 0; i < COUNT(hidden); i++) {
+        ntr_timed_flow all[2];
+        ntr_sample h[16];
+        size_t n;
+        ntr_fit f = fresh_fit();
+        all[0] = design_a[0];
+        all[1] = ntr_test_timed(0.0, 720.0, -hidden[i], 0.0, 0.0);
+        assert_int_equal(ntr_balance_course(120.0, 60.0, all, 2, 8.0, 1.0, h, COUNT(h), &n),
+                         NTR_OK);
+        assert_int_equal(ntr_course_fit(h, n, guess[i], design_a, 1, &f), NTR_OK);
+        assert_true((f.flags & NTR_FIT_LOSS_AT_BOUND) != 0u);
+        assert_near(f.free_water_loss_ml_h, hidden[i] < 0.0 ? -2000.0 : 2000.0, 1e-6);
+        assert_true((f.flags & NTR_FIT_NOT_CONVERGED) == 0u);
+    }
+}
+
 static void fit_bad_inputs(void **state)
 {
     ntr_sample h[32], bad[32];
@@ -1015,6 +1045,7 @@ int main(void)
         cmocka_unit_test(fit_when_the_model_is_wrong),
         cmocka_unit_test(fit_properties),
         cmocka_unit_test(fit_flags_a_bound),
+        cmocka_unit_test(fit_flags_the_loss_bound),
         cmocka_unit_test(fit_bad_inputs),
         cmocka_unit_test(reproject_equals_plan_check),
         cmocka_unit_test(reproject_hand_worked),

@@ -224,6 +224,30 @@ static void clamp_never_and_properties(void **state)
     }
 }
 
+/* The stop hour past the longest plan. The rise d is reachable in principle
+ * (A - d*B > 0), but t = d*TBW0 / (A - d*B) lies beyond 720 h, so the
+ * header's Doxygen block for ntr_dda_clamp() gives NTR_THERAPY_NEVER
+ * ("when A - d*B <= 0 or t > 720 h"); this input reaches that second case.
+ * Hand-worked: Na 120, 3% saline (513) at 10 mL/h, no urine, d = 50:
+ * A = 0.01*(513 - 120) = 3.93 mmol/h, B = 0.01 L/h, A - d*B = 3.43.
+ * TBW 100 L: t = 5000 / 3.43 = 1457.7 h > 720: never. Over 24 h the
+ * 2.4 dL of saline add 0.24*393 mmol above Na0 to 100.24 L: a rise of
+ * 94.32 / 100.24. TBW 40 L: t = 2000 / 3.43 = 583.1 h, within the plan
+ * and returned as it is. */
+static void clamp_never_beyond_the_longest_plan(void **state)
+{
+    double rise = NTR_TEST_SENTINEL, stop = NTR_TEST_SENTINEL;
+    (void)state;
+    assert_int_equal(ntr_dda_clamp(120.0, 100.0, 10.0, 513.0, 0.0, 0.0, 50.0, &rise, &stop),
+                     NTR_OK);
+    assert_true(stop == NTR_THERAPY_NEVER);
+    assert_near(rise, 0.24 * 393.0 / 100.24, 1e-9);
+    assert_int_equal(ntr_dda_clamp(120.0, 40.0, 10.0, 513.0, 0.0, 0.0, 50.0, &rise, &stop),
+                     NTR_OK);
+    assert_near(stop, 2000.0 / 3.43, 1e-9);
+    assert_true(stop < 720.0);
+}
+
 static int call_clamp(const double *a, double *d, int *i)
 {
     (void)i;
@@ -650,6 +674,7 @@ int main(void)
         cmocka_unit_test(clamp_hand_worked),
         cmocka_unit_test(clamp_stop_hour_reaches_target),
         cmocka_unit_test(clamp_never_and_properties),
+        cmocka_unit_test(clamp_never_beyond_the_longest_plan),
         cmocka_unit_test(clamp_bad_inputs),
         cmocka_unit_test(relower_hand_worked),
         cmocka_unit_test(relower_from_course_report),
