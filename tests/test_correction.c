@@ -2435,6 +2435,80 @@ static void watchers_refuse_rings_out_of_order(void **state)
     }
 }
 
+/* Rotate a ring's kept entries so they start at new_head (offsets such as
+ * front24 are counted from the head, so they stay). */
+static void rotate_watch(ntr_watch *w, unsigned int new_head)
+{
+    ntr_watch copy = *w;
+    unsigned int k;
+    for (k = 0; k < copy.kept; k++) {
+        w->ring[(new_head + k) % NTR_WATCH_CAPACITY] = copy.ring[(copy.head + k) % NTR_WATCH_CAPACITY];
+    }
+    w->head = new_head;
+}
+
+static void rotate_course_ring(ntr_course_watch_ring *g, unsigned int new_head)
+{
+    ntr_course_watch_ring copy = *g;
+    unsigned int k;
+    for (k = 0; k < copy.kept; k++) {
+        const unsigned int from = (copy.head + k) % NTR_COURSE_WATCH_CAPACITY;
+        const unsigned int to = (new_head + k) % NTR_COURSE_WATCH_CAPACITY;
+        g->entry[to] = copy.entry[from];
+        g->span[to] = copy.span[from];
+    }
+    g->head = new_head;
+}
+
+/* The state check and the searches see a ring whose kept entries wrap past
+ * the end of the array as two stretches (lib/correction.c). The same
+ * samples rotated to wrap must give the same reports bit for bit, and an
+ * entry out of order in the second stretch is refused like one in the
+ * first (header: a damaged state gives NTR_ERR_ARG). */
+static void watchers_see_wrapped_rings_whole(void **state)
+{
+    const ntr_limits lim = standard();
+    const ntr_course_limits clim = course_preset(NTR_COURSE_HYPO_STANDARD);
+    ntr_watch fed, w;
+    ntr_course_watch cfed, cw;
+    ntr_correction want = untouched(), got = untouched();
+    ntr_course_report cwant = course_untouched(), cgot = course_untouched();
+    unsigned int k;
+    (void)state;
+    assert_int_equal(ntr_watch_init(&lim, &fed), NTR_OK);
+    assert_int_equal(ntr_course_watch_init(&clim, &cfed), NTR_OK);
+    for (k = 0; k < 6u; k++) {
+        assert_int_equal(ntr_watch_push(&fed, 2.0 * (double)k, 118.0 + (double)k, &want), NTR_OK);
+        (void)watch_push_ok(&cfed, 2.0 * (double)k, 118.0 + (double)k);
+    }
+    /* Wrapped: the 6 kept entries at the last 3 places and the first 3. */
+    memcpy(&w, &fed, sizeof w);
+    rotate_watch(&w, NTR_WATCH_CAPACITY - 3u);
+    memcpy(&cw, &cfed, sizeof cw);
+    rotate_course_ring(&cw.low, NTR_COURSE_WATCH_CAPACITY - 3u);
+    rotate_course_ring(&cw.high, NTR_COURSE_WATCH_CAPACITY - 1u);
+    assert_int_equal(ntr_watch_push(&fed, 13.0, 125.5, &want), NTR_OK);
+    assert_int_equal(ntr_watch_push(&w, 13.0, 125.5, &got), NTR_OK);
+    assert_memory_equal(&got, &want, sizeof got);
+    assert_int_equal(ntr_course_watch_push(&cfed, 13.0, 125.5, &cwant), NTR_OK);
+    assert_int_equal(ntr_course_watch_push(&cw, 13.0, 125.5, &cgot), NTR_OK);
+    assert_memory_equal(&cgot, &cwant, sizeof cgot);
+
+    /* Now an entry out of order in the second stretch (array index 1). */
+    memcpy(&w, &fed, sizeof w);
+    rotate_watch(&w, NTR_WATCH_CAPACITY - 3u);
+    w.ring[1].na_mmol_l = 130.0;
+    memcpy(&cw, &cfed, sizeof cw);
+    rotate_course_ring(&cw.low, NTR_COURSE_WATCH_CAPACITY - 3u);
+    cw.low.entry[1].na_mmol_l = 130.0;
+    got = untouched();
+    cgot = course_untouched();
+    assert_int_equal(ntr_watch_push(&w, 20.0, 130.0, &got), NTR_ERR_ARG);
+    assert_untouched(&got);
+    assert_int_equal(ntr_course_watch_push(&cw, 20.0, 130.0, &cgot), NTR_ERR_ARG);
+    assert_course_untouched(&cgot);
+}
+
 int main(void)
 {
     const struct CMUnitTest tests[] = {
@@ -2501,6 +2575,7 @@ int main(void)
         cmocka_unit_test(glucose_push_rejects_bad_inputs),
         cmocka_unit_test(watchers_on_long_streams_equal_batch_and_1_0),
         cmocka_unit_test(watchers_refuse_rings_out_of_order),
+        cmocka_unit_test(watchers_see_wrapped_rings_whole),
     };
     return cmocka_run_group_tests(tests, NULL, NULL);
 }
