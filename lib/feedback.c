@@ -464,7 +464,7 @@ static int levenberg_marquardt(const struct fit_problem *fp, const double p0[NP]
     for (it = 0; it < NTR_FIT_ITER_MAX; it++) {
         double m[NP][NP], step[NP], trial[NP], ssr_trial, biggest = 0.0;
         double moved = 0.0;
-        int j;
+        int j, solved;
         st->iterations++;
         if (st->ssr == 0.0) {
             st->converged = 1;
@@ -481,15 +481,10 @@ static int levenberg_marquardt(const struct fit_problem *fp, const double p0[NP]
              * diagonal, so the system stays solvable. */
             m[i][i] += lambda * (a[i][i] > 1e-12 * biggest ? a[i][i] : 1e-12 * biggest + 1e-300);
         }
-        if (solve3(m, g, step) != NTR_OK) {
-            lambda *= 10.0;
-            if (lambda > 1e16) {
-                st->converged = 1;
-                break;
-            }
-            continue;
-        }
-        for (i = 0; i < NP; i++) {
+        /* A step the damped system cannot give is refused like a step
+         * that does not lower the sum of squares (below): more damping. */
+        solved = solve3(m, g, step) == NTR_OK;
+        for (i = 0; solved && i < NP; i++) {
             const double scale = st->p[i] < 0.0 ? -st->p[i] : st->p[i];
             double rel;
             trial[i] = clamp(st->p[i] + step[i], fp->lo[i], fp->hi[i]);
@@ -497,7 +492,7 @@ static int levenberg_marquardt(const struct fit_problem *fp, const double p0[NP]
             rel = rel < 0.0 ? -rel : rel;
             moved = rel > moved ? rel : moved;
         }
-        if (evaluate(fp, trial, &ssr_trial, NULL, NULL) == NTR_OK &&
+        if (solved && evaluate(fp, trial, &ssr_trial, NULL, NULL) == NTR_OK &&
             ssr_trial < st->ssr) {
             const double before = st->ssr;
             for (i = 0; i < NP; i++) {
@@ -513,13 +508,27 @@ static int levenberg_marquardt(const struct fit_problem *fp, const double p0[NP]
             }
         } else {
             lambda *= 10.0;
-            if (lambda > 1e16 || moved < 1e-15) {
+            if (lambda > 1e16 || (solved && moved < 1e-15)) {
                 st->converged = 1;
                 break;
             }
         }
     }
     return NTR_OK;
+}
+
+/* The parameters from the linearised solution x (x[0] and x[1] > 0) into
+ * p; whether all are finite. */
+static int finite_start(const double x[NP], double p[NP])
+{
+    int i, finite = 1;
+    p[P_NA0] = x[0];
+    p[P_TBW] = 1.0 / x[1];
+    p[P_LOSS] = 1000.0 * x[2] * p[P_TBW] / x[0];
+    for (i = 0; i < NP; i++) {
+        finite = finite && p[i] - p[i] == 0.0;
+    }
+    return finite;
 }
 
 /* A start from the model linearised around the first sample:
@@ -546,17 +555,10 @@ static int linear_start(const struct fit_problem *fp, double p[NP])
         }
     }
     NTR_TRY(solve3(a, b, x));
-    if (!(x[1] > 0.0) || !(x[0] > 0.0)) {
+    /* A start with no positive sodium or body water, or a non-finite one
+     * (a near-singular solve), is not used. */
+    if (!(x[1] > 0.0) || !(x[0] > 0.0) || !finite_start(x, p)) {
         return NTR_ERR_DOMAIN;
-    }
-    p[P_NA0] = x[0];
-    p[P_TBW] = 1.0 / x[1];
-    p[P_LOSS] = 1000.0 * x[2] * p[P_TBW] / x[0];
-    /* A non-finite start (a near-singular solve) is not used. */
-    for (i = 0; i < NP; i++) {
-        if (!(p[i] - p[i] == 0.0)) {
-            return NTR_ERR_DOMAIN;
-        }
     }
     return NTR_OK;
 }
