@@ -77,6 +77,8 @@ run_config "$dir-size" "-D__OPTIMIZE_SIZE__=1"
 gcovr --root "$root" --add-tracefile "$dir/coverage.json" --add-tracefile "$dir-size/coverage.json" \
   --txt "$dir/coverage.txt" --print-summary >"$dir/coverage-summary.txt"
 cat "$dir/coverage-summary.txt"
+gcovr --root "$root" --add-tracefile "$dir/coverage.json" --add-tracefile "$dir-size/coverage.json" \
+  --branches --txt "$dir/coverage-branches.txt" >/dev/null
 lines=$(sed -n 's/^lines: *\([0-9.]*\)%.*/\1/p' "$dir/coverage-summary.txt")
 branches=$(sed -n 's/^branches: *\([0-9.]*\)%.*/\1/p' "$dir/coverage-summary.txt")
 met=no
@@ -93,9 +95,17 @@ if [ "$record" -eq 1 ]; then
       "$lines" "$(of lines)" "$line_min" "$branches" "$(of branches)" "$branch_min"
     if [ "$met" = no ]; then
       echo
-      echo "Limits not met. Lines not run (gcovr's report):"
+      echo "Limits not met."
+      if awk '/^lib\// && $5 != "" { found = 1 } END { exit !found }' "$dir/coverage.txt"; then
+        echo
+        echo "Lines not run (gcovr's report):"
+        echo
+        awk '/^lib\// && $5 != "" { printf "- `%s`: %s\n", $1, $5 }' "$dir/coverage.txt"
+      fi
       echo
-      awk '/^lib\// && $5 != "" { printf "- `%s`: %s\n", $1, $5 }' "$dir/coverage.txt"
+      echo "Branches per file below 100 % (gcovr --branches: taken of all):"
+      echo
+      awk '/^lib\// && $4 != "100%" { printf "- `%s`: %s of %s (%s)\n", $1, $3, $2, $4 }' "$dir/coverage-branches.txt"
     fi
   } | record_write coverage.sh tests/coverage.sh "$command" \
       "lib/ under $(gcovr --version | head -1), a debug build and one with \`__OPTIMIZE_SIZE__\` merged, unit suite and examples: limits $( [ "$met" = yes ] && echo met || echo NOT met) [$((SECONDS - start))s]" \
