@@ -108,7 +108,7 @@ for entry in "${drivers[@]}"; do
   prec="$precision"
   tuning=()
   case "$d" in
-    drv_plan_check | drv_course_plan_check | drv_fit_reproject | drv_course_watch)
+    drv_plan_check | drv_course_plan_check | drv_fit_reproject | drv_course_watch | drv_course_fit | drv_hyper_lower_plan | drv_urine_feedback)
       prec="${NTR_FRAMA_PLAN_PRECISION:-5}"
       tuning=(-eva-partition-history 1) ;;
   esac

@@ -335,24 +335,40 @@ void drv_urine_interval_flow(void)
     (void)ntr_urine_interval_flow(&u, &f);
 }
 
-void extra_urine_feedback(void)
+/* The urine feedback on the plan checks' grid: its plan runs from the
+ * last sample to the end of the latest urine interval plus the horizon,
+ * so the history spans at most FEEDBACK_HOURS, the one urine interval
+ * starts and ends within it and the horizon is at most FEEDBACK_HOURS:
+ * at most 2 x FEEDBACK_HOURS = PLAN_HOURS at a step of at least
+ * PLAN_HOURS / PLAN_POINTS (with the history and the intervals over
+ * 0 to 720 h and one or two intervals, EVA did not finish within 400 s
+ * at the plan checks' settings). Every other field spans its
+ * documented range. */
+#define FEEDBACK_HOURS (PLAN_HOURS / 2.0)
+void drv_urine_feedback(void)
 {
     ntr_sample h[SAMPLES];
     ntr_timed_flow f[FLOWS];
-    ntr_urine_interval u[2];
+    ntr_urine_interval u;
     ntr_course_limits lim;
     ntr_urine_feedback_result out;
-    plan_history(h);
+    int i;
+    h[0].hours = 0.0;
+    h[0].na_mmol_l = NA;
+    for (i = 1; i < SAMPLES; i++) {
+        h[i].hours = h[i - 1].hours + D(0.0, FEEDBACK_HOURS / SAMPLES);
+        h[i].na_mmol_l = NA;
+    }
     timed_flows(f);
-    urine_interval(&u[0], 0.0, NTR_PLAN_HOURS_MAX);
-    urine_interval(&u[1], 0.0, NTR_PLAN_HOURS_MAX);
+    urine_interval(&u, 0.0, FEEDBACK_HOURS / 2.0);
+    u.end_h = u.start_h + D(0.0, FEEDBACK_HOURS / 2.0);
     course_limits(&lim);
     out.struct_size = sizeof out;
-    (void)ntr_urine_feedback(h, (size_t)I(1, SAMPLES), TBW, f, (size_t)I(0, FLOWS), u,
-                             (size_t)I(1, 2), PLAN_DURATION, PLAN_STEP, &lim, &out);
+    (void)ntr_urine_feedback(h, (size_t)I(1, SAMPLES), TBW, f, (size_t)I(0, FLOWS), &u, 1,
+                             D(0.0, FEEDBACK_HOURS), PLAN_STEP, &lim, &out);
 }
 
-void extra_course_fit(void)
+void drv_course_fit(void)
 {
     ntr_sample h[SAMPLES];
     ntr_timed_flow f[FLOWS];
@@ -394,7 +410,7 @@ void drv_fit_reproject(void)
 
 /* Therapy plan that checks its course against course limits (so the
  * course code's +-HUGE_VAL starts run, see above). */
-void extra_hyper_lower_plan(void)
+void drv_hyper_lower_plan(void)
 {
     double rate, volume, breach;
     (void)ntr_hyper_lower_plan(NA, TBW, I(-1, 9), I(0, 6), D(0.0, NTR_DELTA_MAX), D(NTR_PLAN_STEP_MIN, NTR_PLAN_HOURS_MAX), D(0.0, NTR_FLOW_RATE_MAX), D(0.0, NTR_URINE_NA_MAX),
