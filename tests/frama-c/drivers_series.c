@@ -14,16 +14,12 @@
  * (ntr_timed_flow, ntr_urine_interval). The bounds are lib/ntr_internal.h's
  * constants, the ones the checks use.
  *
- * The extra_* functions are drivers that tests/frama-c.sh runs only when
- * named (tests/frama-c.sh extra_course_fit ...), not in the recorded
- * figure: the fit's iterations (at precision 5 EVA finished in 200 s with
- * 42 alarms in the Levenberg-Marquardt and Cholesky arithmetic, not
- * checked by hand), the lowering plan, which checks a course of 49
- * points (not finished within 4 min at precision 8), and the urine
- * feedback (not finished within 400 s at precision 5 on the bounded grid,
- * one or two urine intervals added to the plan). The plan checks run
- * on a bounded grid (PLAN_HOURS, PLAN_POINTS below) at the precision
- * tests/frama-c.sh sets for them. */
+ * The plan checks, the course watcher, the fit, the lowering plan (a
+ * course of 49 points) and the urine feedback run at the precision
+ * tests/frama-c.sh sets for them; the plan checks and the urine feedback
+ * on a bounded grid (PLAN_HOURS, PLAN_POINTS, FEEDBACK_HOURS below).
+ * tests/frama-c.sh runs a function named extra_* only when named, outside
+ * the recorded figure; there is none at present. */
 #include "__fc_builtin.h"
 #include "natremia.h"
 #include "ntr_internal.h"
