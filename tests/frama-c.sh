@@ -27,7 +27,8 @@
 # Environment: NTR_FRAMA_PRECISION (EVA -eva-precision, default 8: below it
 # EVA merges the paths of a status check and reports outputs of failed
 # helper calls as uninitialised); NTR_FRAMA_PLAN_PRECISION (default 5) for
-# the plan-check and course-watcher drivers (see "Per-driver tuning").
+# the plan-check, course-watcher, fit, lowering-plan and urine-feedback
+# drivers (see "Per-driver tuning").
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
@@ -104,11 +105,14 @@ for entry in "${drivers[@]}"; do
   # even on the bounded grid); precision 5 with the last branch kept apart
   # (-eva-partition-history 1, as precision 8 sets) finishes in 90 to 270 s
   # each on the shared machine, without the uninitialised-output alarms of
-  # a plain precision 5.
+  # a plain precision 5. The same for the fit (its iterations), the
+  # lowering plan (a course of 49 points, not finished in 4 min at
+  # precision 8; 88 s so) and the urine feedback (its plan check).
   prec="$precision"
   tuning=()
   case "$d" in
-    drv_plan_check | drv_course_plan_check | drv_fit_reproject | drv_course_watch)
+    drv_plan_check | drv_course_plan_check | drv_fit_reproject | drv_course_watch | \
+      drv_course_fit | drv_hyper_lower_plan | drv_urine_feedback)
       prec="${NTR_FRAMA_PLAN_PRECISION:-5}"
       tuning=(-eva-partition-history 1) ;;
   esac
@@ -156,7 +160,7 @@ for entry in "${drivers[@]}"; do
     lanes=$((lanes + 1))
   fi
 done
-summary="EVA (Frama-C $(frama-c -version 2>/dev/null | head -1), -eva-precision $precision, ${NTR_FRAMA_PLAN_PRECISION:-5} with -eva-partition-history 1 for the plan checks and the course watcher) from ${#drivers[@]} driver runs ($lanes of them on the two-lane path): $total alarms; $clean of ${#drivers[@]} runs without an alarm [${elapsed}s]"
+summary="EVA (Frama-C $(frama-c -version 2>/dev/null | head -1), -eva-precision $precision, ${NTR_FRAMA_PLAN_PRECISION:-5} with -eva-partition-history 1 for the plan checks, the course watcher, the fit, the lowering plan and the urine feedback) from ${#drivers[@]} driver runs ($lanes of them on the two-lane path): $total alarms; $clean of ${#drivers[@]} runs without an alarm [${elapsed}s]"
 echo "frama-c.sh: $summary"
 
 if [ "$record" -eq 1 ]; then

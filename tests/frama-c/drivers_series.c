@@ -14,16 +14,12 @@
  * (ntr_timed_flow, ntr_urine_interval). The bounds are lib/ntr_internal.h's
  * constants, the ones the checks use.
  *
- * The extra_* functions are drivers that tests/frama-c.sh runs only when
- * named (tests/frama-c.sh extra_course_fit ...), not in the recorded
- * figure: the fit's iterations (at precision 5 EVA finished in 200 s with
- * 42 alarms in the Levenberg-Marquardt and Cholesky arithmetic, not
- * checked by hand), the lowering plan, which checks a course of 49
- * points (not finished within 4 min at precision 8), and the urine
- * feedback (not finished within 400 s at precision 5 on the bounded grid,
- * one or two urine intervals added to the plan). The plan checks run
- * on a bounded grid (PLAN_HOURS, PLAN_POINTS below) at the precision
- * tests/frama-c.sh sets for them. */
+ * The plan checks, the course watcher, the fit, the lowering plan (a
+ * course of 49 points) and the urine feedback run at the precision
+ * tests/frama-c.sh sets for them; the plan checks and the urine feedback
+ * on a bounded grid (PLAN_HOURS, PLAN_POINTS, FEEDBACK_HOURS below).
+ * tests/frama-c.sh runs a function named extra_* only when named, outside
+ * the recorded figure; there is none at present. */
 #include "__fc_builtin.h"
 #include "natremia.h"
 #include "ntr_internal.h"
@@ -335,24 +331,40 @@ void drv_urine_interval_flow(void)
     (void)ntr_urine_interval_flow(&u, &f);
 }
 
-void extra_urine_feedback(void)
+/* The urine feedback on the plan checks' grid: its plan runs from the
+ * last sample to the end of the latest urine interval plus the horizon,
+ * so the history spans at most FEEDBACK_HOURS, the one urine interval
+ * starts and ends within it and the horizon is at most FEEDBACK_HOURS:
+ * at most 2 x FEEDBACK_HOURS = PLAN_HOURS at a step of at least
+ * PLAN_HOURS / PLAN_POINTS (with the history and the intervals over
+ * 0 to 720 h and one or two intervals, EVA did not finish within 400 s
+ * at the plan checks' settings). Every other field spans its
+ * documented range. */
+#define FEEDBACK_HOURS (PLAN_HOURS / 2.0)
+void drv_urine_feedback(void)
 {
     ntr_sample h[SAMPLES];
     ntr_timed_flow f[FLOWS];
-    ntr_urine_interval u[2];
+    ntr_urine_interval u;
     ntr_course_limits lim;
     ntr_urine_feedback_result out;
-    plan_history(h);
+    int i;
+    h[0].hours = 0.0;
+    h[0].na_mmol_l = NA;
+    for (i = 1; i < SAMPLES; i++) {
+        h[i].hours = h[i - 1].hours + D(0.0, FEEDBACK_HOURS / SAMPLES);
+        h[i].na_mmol_l = NA;
+    }
     timed_flows(f);
-    urine_interval(&u[0], 0.0, NTR_PLAN_HOURS_MAX);
-    urine_interval(&u[1], 0.0, NTR_PLAN_HOURS_MAX);
+    urine_interval(&u, 0.0, FEEDBACK_HOURS / 2.0);
+    u.end_h = u.start_h + D(0.0, FEEDBACK_HOURS / 2.0);
     course_limits(&lim);
     out.struct_size = sizeof out;
-    (void)ntr_urine_feedback(h, (size_t)I(1, SAMPLES), TBW, f, (size_t)I(0, FLOWS), u,
-                             (size_t)I(1, 2), PLAN_DURATION, PLAN_STEP, &lim, &out);
+    (void)ntr_urine_feedback(h, (size_t)I(1, SAMPLES), TBW, f, (size_t)I(0, FLOWS), &u, 1,
+                             D(0.0, FEEDBACK_HOURS), PLAN_STEP, &lim, &out);
 }
 
-void extra_course_fit(void)
+void drv_course_fit(void)
 {
     ntr_sample h[SAMPLES];
     ntr_timed_flow f[FLOWS];
@@ -394,7 +406,7 @@ void drv_fit_reproject(void)
 
 /* Therapy plan that checks its course against course limits (so the
  * course code's +-HUGE_VAL starts run, see above). */
-void extra_hyper_lower_plan(void)
+void drv_hyper_lower_plan(void)
 {
     double rate, volume, breach;
     (void)ntr_hyper_lower_plan(NA, TBW, I(-1, 9), I(0, 6), D(0.0, NTR_DELTA_MAX), D(NTR_PLAN_STEP_MIN, NTR_PLAN_HOURS_MAX), D(0.0, NTR_FLOW_RATE_MAX), D(0.0, NTR_URINE_NA_MAX),
