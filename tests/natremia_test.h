@@ -10,6 +10,7 @@
 
 #include <math.h>
 #include <stddef.h>
+#include <string.h>
 
 #include "natremia.h"
 
@@ -140,6 +141,23 @@ static inline ntr_timed_flow ntr_test_timed(double start_h, double end_h,
     f.reserved[0] = 0u;
     f.reserved[1] = 0u;
     return f;
+}
+
+/* A urine interval with its other members zero, for the feedback, guard
+ * and range tests. */
+static inline ntr_urine_interval ntr_test_urine(double start_h, double end_h,
+                                               double volume_ml, double na_mmol_l,
+                                               double k_mmol_l, double osm_mosm_kg)
+{
+    ntr_urine_interval u;
+    memset(&u, 0, sizeof u);
+    u.start_h = start_h;
+    u.end_h = end_h;
+    u.volume_ml = volume_ml;
+    u.na_mmol_l = na_mmol_l;
+    u.k_mmol_l = k_mmol_l;
+    u.osm_mosm_kg = osm_mosm_kg;
+    return u;
 }
 
 #endif

@@ -22,20 +22,6 @@
 #define COUNT(a) (sizeof(a) / sizeof((a)[0]))
 
 
-static ntr_urine_interval interval(double start, double end, double ml, double na,
-                                   double k, double osm)
-{
-    ntr_urine_interval u;
-    memset(&u, 0, sizeof u);
-    u.start_h = start;
-    u.end_h = end;
-    u.volume_ml = ml;
-    u.na_mmol_l = na;
-    u.k_mmol_l = k;
-    u.osm_mosm_kg = osm;
-    return u;
-}
-
 static ntr_course_limits preset(int p)
 {
     ntr_course_limits lim;
@@ -82,7 +68,7 @@ static ntr_course_plan_result fresh_plan(void)
 static void feedback_water_diuresis_hand_worked(void **state)
 {
     const ntr_sample h[] = {{0.0, 120.0}};
-    const ntr_urine_interval u[] = {interval(0.0, 4.0, 2000.0, 10.0, 10.0, 80.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(0.0, 4.0, 2000.0, 10.0, 10.0, 80.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_STANDARD);
     ntr_urine_feedback_result r = fresh_feedback();
     (void)state;
@@ -123,7 +109,7 @@ static void feedback_water_diuresis_hand_worked(void **state)
 static void feedback_over_now(void **state)
 {
     const ntr_sample h[] = {{0.0, 120.0}};
-    const ntr_urine_interval u[] = {interval(0.0, 8.0, 4000.0, 10.0, 10.0, 80.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(0.0, 8.0, 4000.0, 10.0, 10.0, 80.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_STANDARD);
     ntr_urine_feedback_result r = fresh_feedback();
     (void)state;
@@ -145,8 +131,8 @@ static void feedback_efw_identity(void **state)
     const ntr_sample h[] = {{10.0, 118.0}, {13.0, 121.0}};
     const ntr_timed_flow f[] = {ntr_test_timed(0.0, 6.0, 60.0, 513.0, 0.0),
                                 ntr_test_timed(0.0, 48.0, 20.0, 0.0, 0.0)};
-    const ntr_urine_interval u[] = {interval(2.0, 4.0, 300.0, 60.0, 30.0, 500.0),
-                                    interval(4.0, 5.0, 250.0, 20.0, 15.0, 180.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(2.0, 4.0, 300.0, 60.0, 30.0, 500.0),
+                                    ntr_test_urine(4.0, 5.0, 250.0, 20.0, 15.0, 180.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_STANDARD);
     /* From 3 h to now (5 h): saline 0.12 L, dextrose 0.04 L, urine 0.15 L
      * (half of the first collection) and 0.25 L. */
@@ -191,7 +177,7 @@ static void feedback_equals_plan_check(void **state)
 {
     const ntr_sample h[] = {{0.0, 125.0}, {6.0, 127.0}};
     const ntr_timed_flow f[] = {ntr_test_timed(4.0, 10.0, 100.0, 154.0, 0.0)};
-    const ntr_urine_interval u[] = {interval(3.0, 6.0, 600.0, 40.0, 20.0, 250.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(3.0, 6.0, 600.0, 40.0, 20.0, 250.0)};
     const ntr_timed_flow shifted[] = {ntr_test_timed(0.0, 4.0, 100.0, 154.0, 0.0),
                                       ntr_test_timed(0.0, 8.0, -200.0, 40.0, 20.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPO_HIGH_RISK);
@@ -217,7 +203,7 @@ static void feedback_salt_loss(void **state)
 {
     const ntr_sample h[] = {{0.0, 160.0}};
     const ntr_timed_flow f[] = {ntr_test_timed(0.0, 24.0, 400.0, 0.0, 0.0)};
-    const ntr_urine_interval u[] = {interval(0.0, 2.0, 1000.0, 200.0, 60.0, 700.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(0.0, 2.0, 1000.0, 200.0, 60.0, 700.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPER_CHRONIC);
     ntr_urine_feedback_result r = fresh_feedback();
     const ntr_flow same[] = {{0.8, 0.0, 0.0}, {-1.0, 200.0, 60.0}};
@@ -244,7 +230,7 @@ static void feedback_monotonic_in_urine(void **state)
     double ml;
     (void)state;
     for (ml = 0.0; ml <= 3000.0; ml += 100.0) {
-        const ntr_urine_interval u[] = {interval(0.0, 3.0, ml, 25.0, 15.0, 120.0)};
+        const ntr_urine_interval u[] = {ntr_test_urine(0.0, 3.0, ml, 25.0, 15.0, 120.0)};
         ntr_urine_feedback_result r = fresh_feedback();
         assert_int_equal(ntr_urine_feedback(h, 1, 36.0, NULL, 0, u, 1, 6.0, 0.25, &lim, &r), NTR_OK);
         assert_true(r.plan.final_na_mmol_l >= last_na);
@@ -263,8 +249,8 @@ static void feedback_bad_inputs(void **state)
 {
     const ntr_sample h[] = {{0.0, 120.0}, {2.0, 121.0}};
     const ntr_timed_flow f[] = {ntr_test_timed(0.0, 4.0, 100.0, 513.0, 0.0)};
-    ntr_urine_interval u[] = {interval(0.0, 2.0, 300.0, 20.0, 10.0, 150.0),
-                              interval(2.0, 3.0, 200.0, 20.0, 10.0, 150.0)};
+    ntr_urine_interval u[] = {ntr_test_urine(0.0, 2.0, 300.0, 20.0, 10.0, 150.0),
+                              ntr_test_urine(2.0, 3.0, 200.0, 20.0, 10.0, 150.0)};
     ntr_course_limits lim = preset(NTR_COURSE_HYPO_STANDARD);
     ntr_urine_feedback_result r = fresh_feedback(), before;
     ntr_sample bad_h[2];
@@ -344,7 +330,7 @@ static void feedback_bad_inputs(void **state)
 
 static void interval_flow(void **state)
 {
-    ntr_urine_interval u = interval(2.0, 6.0, 1000.0, 40.0, 20.0, 300.0);
+    ntr_urine_interval u = ntr_test_urine(2.0, 6.0, 1000.0, 40.0, 20.0, 300.0);
     ntr_timed_flow f, before;
     (void)state;
     assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_OK);
@@ -373,7 +359,7 @@ static void interval_flow(void **state)
     /* The rate limit itself is accepted: 5000 mL over exactly 1 h is a
      * loss of 5000 mL/h, the largest timed-flow rate the header allows;
      * one more millilitre is over it. */
-    u = interval(2.0, 3.0, 5000.0, 40.0, 20.0, 300.0);
+    u = ntr_test_urine(2.0, 3.0, 5000.0, 40.0, 20.0, 300.0);
     assert_int_equal(ntr_urine_interval_flow(&u, &f), NTR_OK);
     assert_near(f.rate_ml_h, -5000.0, 0.0);
     f = before;
@@ -736,8 +722,8 @@ static void fit_refuses_inseparable_data(void **state)
  * NTR_FIT_DRIFT. */
 static void fit_when_the_model_is_wrong(void **state)
 {
-    const ntr_urine_interval u[] = {interval(0.0, 12.0, 1200.0, 30.0, 10.0, 400.0),
-                                    interval(12.0, 24.0, 3000.0, 15.0, 5.0, 150.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(0.0, 12.0, 1200.0, 30.0, 10.0, 400.0),
+                                    ntr_test_urine(12.0, 24.0, 3000.0, 15.0, 5.0, 150.0)};
     ntr_timed_flow known[3], all[4];
     ntr_sample h[32];
     ntr_fit f = fresh_fit();
@@ -1014,7 +1000,7 @@ static void feedback_fall_without_urine(void **state)
 {
     const ntr_sample h[] = {{0.0, 160.0}};
     const ntr_timed_flow f[] = {ntr_test_timed(0.0, 24.0, 1000.0, 0.0, 0.0)};
-    const ntr_urine_interval u[] = {interval(0.0, 1.0, 0.0, 40.0, 20.0, 300.0)};
+    const ntr_urine_interval u[] = {ntr_test_urine(0.0, 1.0, 0.0, 40.0, 20.0, 300.0)};
     const ntr_course_limits lim = preset(NTR_COURSE_HYPER_CHRONIC);
     ntr_urine_feedback_result r = fresh_feedback();
     (void)state;

@@ -270,20 +270,6 @@ static void plans_end_at_guard(void **state)
     }
 }
 
-static ntr_urine_interval urine(double start, double end, double ml, double na, double k,
-                                double osm)
-{
-    ntr_urine_interval u;
-    memset(&u, 0, sizeof u);
-    u.start_h = start;
-    u.end_h = end;
-    u.volume_ml = ml;
-    u.na_mmol_l = na;
-    u.k_mmol_l = k;
-    u.osm_mosm_kg = osm;
-    return u;
-}
-
 static void feedback_and_fit_end_at_guard(void **state)
 {
     size_t nu, nh;
@@ -294,9 +280,9 @@ static void feedback_and_fit_end_at_guard(void **state)
                 ntr_test_timed(0.0, 6.0, 60.0, 513.0, 0.0),
                 ntr_test_timed(0.0, 48.0, 20.0, 0.0, 0.0),
             };
-            const ntr_urine_interval u3[3] = {urine(0.0, 2.0, 200.0, 60.0, 30.0, 500.0),
-                                              urine(2.0, 4.0, 300.0, 60.0, 30.0, 500.0),
-                                              urine(4.0, 5.0, 250.0, 20.0, 15.0, 180.0)};
+            const ntr_urine_interval u3[3] = {ntr_test_urine(0.0, 2.0, 200.0, 60.0, 30.0, 500.0),
+                                              ntr_test_urine(2.0, 4.0, 300.0, 60.0, 30.0, 500.0),
+                                              ntr_test_urine(4.0, 5.0, 250.0, 20.0, 15.0, 180.0)};
             ntr_sample *h = guard(2 * sizeof(ntr_sample));
             ntr_timed_flow *tf = guarded_copy(plan, sizeof plan);
             ntr_urine_interval *u = guarded_copy(u3, nu * sizeof u3[0]);

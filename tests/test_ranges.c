@@ -134,15 +134,8 @@ static int p_flow_volume(double x)
 
 static int p_urine_ml(double x)
 {
-    ntr_urine_interval u;
+    const ntr_urine_interval u = ntr_test_urine(0.0, 12.0, x, 60.0, 20.0, 300.0);
     ntr_timed_flow f;
-    memset(&u, 0, sizeof u);
-    u.start_h = 0.0;
-    u.end_h = 12.0;
-    u.volume_ml = x;
-    u.na_mmol_l = 60.0;
-    u.k_mmol_l = 20.0;
-    u.osm_mosm_kg = 300.0;
     return ntr_urine_interval_flow(&u, &f);
 }
 
